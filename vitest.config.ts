@@ -1,0 +1,45 @@
+import { defineConfig } from "vitest/config";
+import { fileURLToPath } from "node:url";
+
+const r = (p: string) => fileURLToPath(new URL(p, import.meta.url));
+
+// Three layers, one runner: `npm test` runs them in order against a throwaway database and the built app.
+export default defineConfig({
+  resolve: {
+    alias: {
+      "@/": r("./src/"),
+      "@sim/": r("./sim/"),
+      "@db/": r("./db/"),
+      "@workers/": r("./workers/"),
+    },
+  },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts", "sim/**/*.test.ts"], environment: "node" },
+      },
+      {
+        extends: true,
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 30_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+        },
+      },
+    ],
+  },
+});
