@@ -1,0 +1,136 @@
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { createRng, gamma, normal, type Rng } from "../../sim/random";
+
+function moments(draw: () => number, n: number) {
+  let sum = 0;
+  let sumSq = 0;
+  for (let i = 0; i < n; i++) {
+    const x = draw();
+    sum += x;
+    sumSq += x * x;
+  }
+  const mean = sum / n;
+  return { mean, variance: sumSq / n - mean * mean };
+}
+
+describe("createRng", () => {
+  it("same seed gives the same sequence; different seeds differ (law, as a property)", () => {
+    fc.assert(
+      fc.property(fc.string(), fc.string(), (a, b) => {
+        const r1 = createRng(a);
+        const r2 = createRng(a);
+        const r3 = createRng(b);
+        let differs = false;
+        for (let i = 0; i < 20; i++) {
+          const x = r1.next();
+          expect(r2.next()).toBe(x);
+          if (r3.next() !== x) differs = true;
+        }
+        if (a !== b) expect(differs).toBe(true);
+      }),
+    );
+  });
+
+  it("draws lie in [0, 1)", () => {
+    fc.assert(
+      fc.property(fc.string(), (seed) => {
+        const r = createRng(seed);
+        for (let i = 0; i < 200; i++) {
+          const x = r.next();
+          expect(x).toBeGreaterThanOrEqual(0);
+          expect(x).toBeLessThan(1);
+        }
+      }),
+    );
+  });
+
+  it("is uniform: mean 1/2, variance 1/12, and ten equal bins pass a chi-square test", () => {
+    // Source: standard statistics — U(0,1) has mean 1/2, variance 1/12. n = 200,000: SE(mean) =
+    // √(1/12/n) ≈ 0.00065, tolerance 5 SE; SE(var) = √((1/80 − 1/144)/n) ≈ 0.00017, tolerance 5 SE.
+    const n = 200_000;
+    const r = createRng("uniform-check");
+    const bins = new Array(10).fill(0);
+    const m = moments(() => {
+      const x = r.next();
+      bins[Math.floor(x * 10)]++;
+      return x;
+    }, n);
+    expect(Math.abs(m.mean - 0.5)).toBeLessThan(5 * 0.00065);
+    expect(Math.abs(m.variance - 1 / 12)).toBeLessThan(5 * 0.00017);
+    const expected = n / 10;
+    const chi2 = bins.reduce((s, b) => s + ((b - expected) ** 2) / expected, 0);
+    // Source: chi-square table, 9 degrees of freedom, 0.999 quantile = 27.88.
+    expect(chi2).toBeLessThan(27.88);
+  });
+});
+
+describe("normal", () => {
+  it("has mean 0, variance 1 and 95 % of its mass within ±1.96", () => {
+    // Source: standard normal closed forms. n = 200,000: SE(mean) = 1/√n ≈ 0.00224; SE(var) = √(2/n) ≈
+    // 0.00316; SE(fraction inside ±1.96) = √(0.95·0.05/n) ≈ 0.00049. Tolerance 5 SE each.
+    const n = 200_000;
+    const r = createRng("normal-check");
+    let inside = 0;
+    const m = moments(() => {
+      const z = normal(r);
+      if (Math.abs(z) < 1.959964) inside++;
+      return z;
+    }, n);
+    expect(Math.abs(m.mean)).toBeLessThan(5 * 0.00224);
+    expect(Math.abs(m.variance - 1)).toBeLessThan(5 * 0.00316);
+    expect(Math.abs(inside / n - 0.95)).toBeLessThan(5 * 0.00049);
+  });
+
+  it("consumes exactly two uniforms per draw (no hidden spare)", () => {
+    const counted = (seed: string) => {
+      const base = createRng(seed);
+      let calls = 0;
+      const rng: Rng = { next: () => (calls++, base.next()) };
+      return { rng, calls: () => calls };
+    };
+    const c = counted("count");
+    for (let i = 0; i < 7; i++) normal(c.rng);
+    expect(c.calls()).toBe(14);
+  });
+});
+
+describe("gamma (Marsaglia–Tsang)", () => {
+  // Source: gamma closed forms — mean kθ, variance kθ², excess kurtosis 6/k, so the sample variance has
+  // SE ≈ σ²·√((2 + 6/k)/n). n = 100,000 per case; tolerance 5 SE.
+  const cases: Array<[number, number]> = [
+    [4, 2.5],
+    [1, 1],
+    [0.5, 3],
+    [10, 0.7],
+  ];
+  for (const [k, theta] of cases) {
+    it(`shape ${k}, scale ${theta}: mean kθ and variance kθ²`, () => {
+      const n = 100_000;
+      const r = createRng(`gamma-${k}-${theta}`);
+      const m = moments(() => gamma(r, k, theta), n);
+      const mean = k * theta;
+      const variance = k * theta * theta;
+      expect(Math.abs(m.mean - mean)).toBeLessThan(5 * Math.sqrt(variance / n));
+      expect(Math.abs(m.variance - variance)).toBeLessThan(5 * variance * Math.sqrt((2 + 6 / k) / n));
+    });
+  }
+
+  it("is positive for any shape and scale", () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0.05, max: 50, noNaN: true }),
+        fc.double({ min: 0.01, max: 100, noNaN: true }),
+        fc.string(),
+        (k, theta, seed) => {
+          const r = createRng(seed);
+          for (let i = 0; i < 20; i++) expect(gamma(r, k, theta)).toBeGreaterThan(0);
+        },
+      ),
+    );
+  });
+
+  it("rejects a negative shape", () => {
+    expect(() => gamma(createRng("x"), -1, 1)).toThrow(RangeError);
+  });
+});
