@@ -11,6 +11,7 @@ export default defineConfig({
       "@sim/": r("./sim/"),
       "@db/": r("./db/"),
       "@workers/": r("./workers/"),
+      "server-only": r("./tests/helpers/empty.ts"),
     },
   },
   test: {

@@ -1,0 +1,23 @@
+/** Applies the committed migrations; logs and exits non-zero on failure. */
+import { migrate } from "drizzle-orm/postgres-js/migrator";
+import { fileURLToPath } from "node:url";
+import { createPool, databaseUrl } from "./client";
+
+export async function runMigrations(url: string): Promise<void> {
+  const pool = createPool(url, 1);
+  try {
+    await migrate(pool.db, { migrationsFolder: fileURLToPath(new URL("./migrations", import.meta.url)) });
+  } finally {
+    await pool.sql.end({ timeout: 5 });
+  }
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  const started = Date.now();
+  runMigrations(databaseUrl())
+    .then(() => console.log(`[pourline] migrations applied in ${Date.now() - started} ms`))
+    .catch((e) => {
+      console.error(`[pourline] migration failed: ${e instanceof Error ? e.message : e}`);
+      process.exit(1);
+    });
+}

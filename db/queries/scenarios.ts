@@ -1,0 +1,154 @@
+import "server-only";
+import { and, desc, eq, sql } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
+import { getDb } from "../client";
+import { scenarioRevisions, scenarios, simulationRuns, users } from "../schema";
+
+const owner = alias(users, "owner");
+const editor = alias(users, "editor");
+
+const scenarioColumns = {
+  id: scenarios.id,
+  projectId: scenarios.projectId,
+  name: scenarios.name,
+  description: scenarios.description,
+  version: scenarios.version,
+  changeNote: scenarios.changeNote,
+  createdAt: scenarios.createdAt,
+  updatedAt: scenarios.updatedAt,
+  ownerId: scenarios.ownerId,
+  ownerName: owner.name,
+  updatedById: scenarios.updatedById,
+  updatedByName: editor.name,
+};
+
+export async function listProjectScenarios({ projectId }: { projectId: string }) {
+  const latestRun = getDb()
+    .selectDistinctOn([simulationRuns.scenarioId], {
+      scenarioId: simulationRuns.scenarioId,
+      runId: simulationRuns.id,
+      runVersion: simulationRuns.scenarioVersion,
+      runSummary: simulationRuns.summary,
+      runAt: simulationRuns.createdAt,
+    })
+    .from(simulationRuns)
+    .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
+    .as("latest_run");
+  return getDb()
+    .select({
+      ...scenarioColumns,
+      runId: latestRun.runId,
+      runVersion: latestRun.runVersion,
+      runSummary: latestRun.runSummary,
+      runAt: latestRun.runAt,
+    })
+    .from(scenarios)
+    .innerJoin(owner, eq(owner.id, scenarios.ownerId))
+    .innerJoin(editor, eq(editor.id, scenarios.updatedById))
+    .leftJoin(latestRun, eq(latestRun.scenarioId, scenarios.id))
+    .where(eq(scenarios.projectId, projectId))
+    .orderBy(desc(scenarios.updatedAt));
+}
+
+export async function getScenario({ id }: { id: string }) {
+  const [row] = await getDb()
+    .select({ ...scenarioColumns, definition: scenarios.definition })
+    .from(scenarios)
+    .innerJoin(owner, eq(owner.id, scenarios.ownerId))
+    .innerJoin(editor, eq(editor.id, scenarios.updatedById))
+    .where(eq(scenarios.id, id));
+  return row ?? null;
+}
+export type ScenarioDetail = NonNullable<Awaited<ReturnType<typeof getScenario>>>;
+
+export async function createScenario(input: {
+  projectId: string;
+  name: string;
+  description: string;
+  definition: Record<string, unknown>;
+  userId: string;
+  changeNote?: string;
+}) {
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx
+      .insert(scenarios)
+      .values({
+        projectId: input.projectId,
+        name: input.name,
+        description: input.description,
+        definition: input.definition,
+        ownerId: input.userId,
+        updatedById: input.userId,
+        changeNote: input.changeNote ?? "Created",
+      })
+      .returning({ id: scenarios.id, version: scenarios.version });
+    await tx.insert(scenarioRevisions).values({
+      scenarioId: row.id,
+      version: row.version,
+      definition: input.definition,
+      savedById: input.userId,
+      changeNote: input.changeNote ?? "Created",
+    });
+    return row;
+  });
+}
+
+export type UpdateResult = { ok: true; version: number } | { ok: false; reason: "conflict"; currentVersion: number } | { ok: false; reason: "missing" };
+
+/** Saves only when the caller saw the latest version; a stale save changes nothing and reports a conflict. */
+export async function updateScenario(input: {
+  id: string;
+  expectedVersion: number;
+  name: string;
+  description: string;
+  definition: Record<string, unknown>;
+  userId: string;
+  changeNote: string;
+}): Promise<UpdateResult> {
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx
+      .update(scenarios)
+      .set({
+        name: input.name,
+        description: input.description,
+        definition: input.definition,
+        version: sql`${scenarios.version} + 1`,
+        updatedById: input.userId,
+        changeNote: input.changeNote,
+        updatedAt: new Date(),
+      })
+      .where(and(eq(scenarios.id, input.id), eq(scenarios.version, input.expectedVersion)))
+      .returning({ version: scenarios.version });
+    if (!row) {
+      const [current] = await tx.select({ version: scenarios.version }).from(scenarios).where(eq(scenarios.id, input.id));
+      return current ? { ok: false, reason: "conflict", currentVersion: current.version } : { ok: false, reason: "missing" };
+    }
+    await tx.insert(scenarioRevisions).values({
+      scenarioId: input.id,
+      version: row.version,
+      definition: input.definition,
+      savedById: input.userId,
+      changeNote: input.changeNote,
+    });
+    return { ok: true, version: row.version };
+  });
+}
+
+export async function deleteScenario({ id }: { id: string }) {
+  const rows = await getDb().delete(scenarios).where(eq(scenarios.id, id)).returning({ id: scenarios.id });
+  return rows.length > 0;
+}
+
+export async function listRevisions({ scenarioId }: { scenarioId: string }) {
+  return getDb()
+    .select({ version: scenarioRevisions.version, changeNote: scenarioRevisions.changeNote, savedAt: scenarioRevisions.savedAt, savedByName: users.name })
+    .from(scenarioRevisions)
+    .innerJoin(users, eq(users.id, scenarioRevisions.savedById))
+    .where(eq(scenarioRevisions.scenarioId, scenarioId))
+    .orderBy(desc(scenarioRevisions.version));
+}
+
+export async function countScenarios(): Promise<number> {
+  const [row] = await getDb().select({ n: sql<number>`count(*)::int` }).from(scenarios);
+  return row.n;
+}

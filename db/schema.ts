@@ -1,0 +1,250 @@
+/**
+ * The database schema. Migrations under db/migrations are generated from this file with
+ * `npm run db:generate` and committed; an applied migration is never edited, a change is a new one.
+ */
+import { sql, type InferInsertModel, type InferSelectModel } from "drizzle-orm";
+import {
+  boolean,
+  customType,
+  date,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from "drizzle-orm/pg-core";
+import { ROLES } from "./schema-enums";
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
+const ts = (name: string) => timestamp(name, { withTimezone: true, mode: "date" });
+
+export { ROLES };
+export type Role = (typeof ROLES)[number];
+export const roleEnum = pgEnum("project_role", ROLES);
+
+export const users = pgTable("users", {
+  id: text("id").primaryKey(),
+  email: text("email").notNull().unique(),
+  name: text("name").notNull(),
+  title: text("title").notNull().default(""),
+  passwordHash: text("password_hash"),
+  createdAt: ts("created_at").notNull().defaultNow(),
+});
+export type User = InferSelectModel<typeof users>;
+
+export const sessions = pgTable("sessions", {
+  id: text("id").primaryKey(),
+  userId: text("user_id")
+    .notNull()
+    .references(() => users.id, { onDelete: "cascade" }),
+  expiresAt: ts("expires_at").notNull(),
+});
+
+/** Failed sign-ins per key ("account:<email>" or "address:<ip>") in a sliding window. */
+export const signInAttempts = pgTable("sign_in_attempts", {
+  key: text("key").primaryKey(),
+  failures: integer("failures").notNull().default(0),
+  windowStart: ts("window_start").notNull().defaultNow(),
+  lockedUntil: ts("locked_until"),
+});
+
+export const projects = pgTable("projects", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  name: text("name").notNull(),
+  structureName: text("structure_name").notNull(),
+  region: text("region").notNull().default(""),
+  deckLengthFt: doublePrecision("deck_length_ft").notNull(),
+  startStationFt: doublePrecision("start_station_ft").notNull(),
+  lanes: jsonb("lanes").$type<string[]>().notNull(),
+  description: text("description").notNull().default(""),
+  createdAt: ts("created_at").notNull().defaultNow(),
+});
+export type Project = InferSelectModel<typeof projects>;
+
+export const projectMembers = pgTable(
+  "project_members",
+  {
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: roleEnum("role").notNull(),
+    addedAt: ts("added_at").notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.projectId, t.userId] })],
+);
+
+export const scenarios = pgTable(
+  "scenarios",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    /** A scenario definition that passed `parseScenario` (sim/validate). */
+    definition: jsonb("definition").$type<Record<string, unknown>>().notNull(),
+    version: integer("version").notNull().default(1),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => users.id),
+    updatedById: text("updated_by")
+      .notNull()
+      .references(() => users.id),
+    changeNote: text("change_note").notNull().default(""),
+    createdAt: ts("created_at").notNull().defaultNow(),
+    updatedAt: ts("updated_at").notNull().defaultNow(),
+  },
+  (t) => [index("scenarios_project_idx").on(t.projectId)],
+);
+export type ScenarioRow = InferSelectModel<typeof scenarios>;
+
+/** Every saved version, so a conflict can show both sides and history can say who changed what. */
+export const scenarioRevisions = pgTable(
+  "scenario_revisions",
+  {
+    scenarioId: uuid("scenario_id")
+      .notNull()
+      .references(() => scenarios.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    definition: jsonb("definition").$type<Record<string, unknown>>().notNull(),
+    savedById: text("saved_by")
+      .notNull()
+      .references(() => users.id),
+    changeNote: text("change_note").notNull().default(""),
+    savedAt: ts("saved_at").notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.scenarioId, t.version] })],
+);
+
+export const simulationRuns = pgTable(
+  "simulation_runs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    scenarioId: uuid("scenario_id")
+      .notNull()
+      .references(() => scenarios.id, { onDelete: "cascade" }),
+    scenarioVersion: integer("scenario_version").notNull(),
+    inputsHash: text("inputs_hash").notNull(),
+    seed: text("seed").notNull(),
+    iterations: integer("iterations").notNull(),
+    /** Small headline figures (P50/P80/P90 …) for lists and compare. */
+    summary: jsonb("summary").$type<Record<string, unknown>>().notNull(),
+    /** The full run summary: histogram, curve, per-operation table, representative trace. */
+    results: jsonb("results").$type<Record<string, unknown>>().notNull(),
+    durationMs: integer("duration_ms").notNull().default(0),
+    createdById: text("created_by").references(() => users.id),
+    createdAt: ts("created_at").notNull().defaultNow(),
+  },
+  (t) => [index("runs_scenario_idx").on(t.scenarioId, t.createdAt)],
+);
+export type SimulationRun = InferSelectModel<typeof simulationRuns>;
+
+export const shareLinks = pgTable(
+  "share_links",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    scenarioId: uuid("scenario_id")
+      .notNull()
+      .references(() => scenarios.id, { onDelete: "cascade" }),
+    /** SHA-256 of the token; the token itself is shown once and never stored. */
+    tokenHash: text("token_hash").notNull(),
+    label: text("label").notNull().default(""),
+    createdById: text("created_by")
+      .notNull()
+      .references(() => users.id),
+    expiresAt: ts("expires_at").notNull(),
+    revokedAt: ts("revoked_at"),
+    createdAt: ts("created_at").notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("share_links_token_idx").on(t.tokenHash)],
+);
+
+export const uploads = pgTable("uploads", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  projectId: uuid("project_id")
+    .notNull()
+    .references(() => projects.id, { onDelete: "cascade" }),
+  scenarioId: uuid("scenario_id").references(() => scenarios.id, { onDelete: "set null" }),
+  kind: text("kind").notNull(),
+  filename: text("filename").notNull(),
+  contentType: text("content_type").notNull(),
+  sizeBytes: integer("size_bytes").notNull(),
+  content: bytea("content").notNull(),
+  rowCount: integer("row_count").notNull().default(0),
+  uploadedById: text("uploaded_by")
+    .notNull()
+    .references(() => users.id),
+  uploadedAt: ts("uploaded_at").notNull().defaultNow(),
+});
+
+export const progressEntries = pgTable(
+  "progress_entries",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    scenarioId: uuid("scenario_id").references(() => scenarios.id, { onDelete: "set null" }),
+    workDate: date("work_date").notNull(),
+    shift: text("shift").notNull(),
+    operationId: text("operation_id").notNull(),
+    fromStationFt: doublePrecision("from_station_ft").notNull(),
+    toStationFt: doublePrecision("to_station_ft").notNull(),
+    crew: text("crew").notNull().default(""),
+    tempF: doublePrecision("temp_f"),
+    rain: boolean("rain").notNull().default(false),
+    lostHours: doublePrecision("lost_hours").notNull().default(0),
+    lostReason: text("lost_reason").notNull().default(""),
+    discovered: jsonb("discovered").$type<{ kind: string; fromStationFt: number; toStationFt: number; areaSqFt: number }[]>().notNull().default(sql`'[]'::jsonb`),
+    version: integer("version").notNull().default(1),
+    enteredById: text("entered_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: ts("created_at").notNull().defaultNow(),
+    updatedAt: ts("updated_at").notNull().defaultNow(),
+  },
+  (t) => [index("progress_project_idx").on(t.projectId, t.workDate)],
+);
+
+export const progressHistory = pgTable("progress_history", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  entryId: uuid("entry_id")
+    .notNull()
+    .references(() => progressEntries.id, { onDelete: "cascade" }),
+  changedById: text("changed_by")
+    .notNull()
+    .references(() => users.id),
+  changedAt: ts("changed_at").notNull().defaultNow(),
+  before: jsonb("before"),
+  after: jsonb("after").notNull(),
+});
+
+export const emailOutbox = pgTable(
+  "email_outbox",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    toAddress: text("to_address").notNull(),
+    subject: text("subject").notNull(),
+    textBody: text("text_body").notNull(),
+    htmlBody: text("html_body"),
+    status: text("status").notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    lastError: text("last_error"),
+    nextAttemptAt: ts("next_attempt_at").notNull().defaultNow(),
+    createdAt: ts("created_at").notNull().defaultNow(),
+    sentAt: ts("sent_at"),
+  },
+  (t) => [index("outbox_pending_idx").on(t.status, t.nextAttemptAt)],
+);
+
+export type NewScenario = InferInsertModel<typeof scenarios>;

@@ -1,0 +1,53 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { requireProject } from "@/lib/server/access";
+import { RoleBadge } from "@/components/role-badge";
+import { formatStation } from "@/lib/format";
+import { can } from "@/lib/permissions";
+import { ScenarioTable } from "./scenario-table";
+
+export const metadata: Metadata = { title: "Project" };
+
+export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const access = await requireProject(projectId, "read").catch((e) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  const { project, role } = access;
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm text-muted">
+        <Link href="/projects" className="hover:text-ink">
+          Projects
+        </Link>{" "}
+        / <span className="text-ink">{project.name}</span>
+      </nav>
+      <header className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <div className="flex items-center gap-3">
+            <h1>{project.name}</h1>
+            <RoleBadge role={role} />
+          </div>
+          <p className="mt-1 text-sm text-muted">
+            {project.structureName} · {project.region} · {project.deckLengthFt.toLocaleString("en-US")} ft from {formatStation(project.startStationFt)} ·{" "}
+            {project.lanes.join(", ")}
+          </p>
+        </div>
+        <div className="flex gap-2">
+          <Link href={`/projects/${project.id}/compare`} className="btn-secondary">
+            Compare scenarios
+          </Link>
+          {can(role, "manageMembers") && (
+            <Link href={`/projects/${project.id}/members`} className="btn-secondary">
+              Members
+            </Link>
+          )}
+        </div>
+      </header>
+      <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario")} />
+    </div>
+  );
+}

@@ -1,0 +1,165 @@
+"use client";
+import Link from "next/link";
+import { useMemo, useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { api } from "@/lib/api-client";
+import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
+import type { RunHeadline } from "@/lib/run-record";
+
+interface ScenarioListRow {
+  id: string;
+  name: string;
+  description: string;
+  version: number;
+  updatedAt: string;
+  updatedByName: string;
+  ownerName: string;
+  changeNote: string;
+  runId: string | null;
+  runVersion: number | null;
+  runSummary: RunHeadline | null;
+  runAt: string | null;
+}
+
+const col = createColumnHelper<ScenarioListRow>();
+
+export function ScenarioTable({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
+  const query = useQuery({
+    queryKey: ["projects", projectId, "scenarios"],
+    queryFn: () => api<{ scenarios: ScenarioListRow[] }>(`/api/projects/${projectId}/scenarios`).then((r) => r.scenarios),
+  });
+  const [sorting, setSorting] = useState<SortingState>([{ id: "updatedAt", desc: true }]);
+
+  const columns = useMemo(
+    () => [
+      col.accessor("name", {
+        header: "Scenario",
+        cell: (c) => (
+          <div>
+            <Link href={`/scenarios/${c.row.original.id}`} className="font-medium text-brand-700 hover:underline">
+              {c.getValue()}
+            </Link>
+            {c.row.original.description && <p className="mt-0.5 line-clamp-1 text-xs text-muted">{c.row.original.description}</p>}
+          </div>
+        ),
+      }),
+      col.accessor((r) => r.runSummary?.finish.p50 ?? "", { id: "p50", header: "P50 finish", cell: (c) => formatIsoDate(c.getValue() || null) }),
+      col.accessor((r) => r.runSummary?.finish.p80 ?? "", { id: "p80", header: "P80 finish", cell: (c) => <span className="font-semibold">{formatIsoDate(c.getValue() || null)}</span> }),
+      col.accessor((r) => r.runSummary?.targetProbability ?? -1, {
+        id: "target",
+        header: "Meets target",
+        cell: (c) => (c.getValue() < 0 ? "—" : formatPercent(c.getValue())),
+      }),
+      col.accessor((r) => (r.runId ? (r.runVersion === r.version ? "current" : "stale") : "none"), {
+        id: "run",
+        header: "Latest run",
+        cell: (c) => {
+          const v = c.getValue();
+          if (v === "none") return <span className="badge border border-line text-muted">Not run</span>;
+          if (v === "stale") return <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">Stale</span>;
+          return <span className="badge bg-brand-50 text-brand-800">Current</span>;
+        },
+      }),
+      col.accessor("version", { header: "Version", cell: (c) => `v${c.getValue()}` }),
+      col.accessor("updatedAt", {
+        header: "Last change",
+        cell: (c) => (
+          <span>
+            {formatDateTime(c.getValue())}
+            <span className="block text-xs text-muted">
+              {c.row.original.updatedByName}
+              {c.row.original.changeNote ? ` — ${c.row.original.changeNote}` : ""}
+            </span>
+          </span>
+        ),
+      }),
+    ],
+    [],
+  );
+
+  const table = useReactTable({
+    data: query.data ?? [],
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
+
+  if (query.isPending) {
+    return (
+      <div className="card" aria-busy="true">
+        <p className="text-sm text-muted">Loading scenarios…</p>
+        <div className="mt-3 space-y-2">{[0, 1, 2].map((i) => <div key={i} className="h-8 animate-pulse rounded bg-paper" />)}</div>
+      </div>
+    );
+  }
+  if (query.isError) {
+    return (
+      <div className="card border-bad/40" role="alert">
+        <h2 className="text-bad">Could not load the scenarios</h2>
+        <p className="mt-1 text-sm">{query.error.message}</p>
+        <button className="btn-secondary mt-3" onClick={() => query.refetch()}>
+          Try again
+        </button>
+      </div>
+    );
+  }
+  if (query.data.length === 0) {
+    return (
+      <div className="card text-center">
+        <h2>No scenarios yet</h2>
+        <p className="mt-2 text-sm text-muted">{canEdit ? "Create the first plan for this structure." : "Engineers and schedulers create scenarios; they will appear here."}</p>
+        {canEdit && (
+          <Link href={`/projects/${projectId}/scenarios/new`} className="btn-primary mt-4">
+            New scenario
+          </Link>
+        )}
+      </div>
+    );
+  }
+
+  return (
+    <section className="card overflow-x-auto p-0" aria-labelledby="scenarios-heading">
+      <div className="flex items-center justify-between px-5 py-4">
+        <h2 id="scenarios-heading">Scenarios</h2>
+        {canEdit && (
+          <Link href={`/projects/${projectId}/scenarios/new`} className="btn-primary">
+            New scenario
+          </Link>
+        )}
+      </div>
+      <table className="w-full min-w-[720px] border-collapse" data-testid="scenario-table">
+        <thead>
+          {table.getHeaderGroups().map((hg) => (
+            <tr key={hg.id}>
+              {hg.headers.map((h) => {
+                const sorted = h.column.getIsSorted();
+                return (
+                  <th key={h.id} className="table-head" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
+                    <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
+                      {flexRender(h.column.columnDef.header, h.getContext())}
+                      <span aria-hidden="true">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
+                    </button>
+                  </th>
+                );
+              })}
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((row) => (
+            <tr key={row.id} className="hover:bg-paper">
+              {row.getVisibleCells().map((cell) => (
+                <td key={cell.id} className="table-cell align-top">
+                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </section>
+  );
+}

@@ -1,0 +1,58 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { listProjectsForUser } from "@db/queries/projects";
+import { requireUser } from "@/lib/server/access";
+import { RoleBadge } from "@/components/role-badge";
+import { formatStation } from "@/lib/format";
+import type { ProjectRole } from "@/lib/permissions";
+
+export const metadata: Metadata = { title: "Projects" };
+
+export default async function ProjectsPage() {
+  const { user } = await requireUser();
+  const projects = await listProjectsForUser({ userId: user.id });
+  return (
+    <div className="space-y-6">
+      <div>
+        <h1>Your projects</h1>
+        <p className="mt-1 text-sm text-muted">Structures you are a member of, with your role on each.</p>
+      </div>
+      {projects.length === 0 ? (
+        <div className="card text-center">
+          <h2>No projects yet</h2>
+          <p className="mt-2 text-sm text-muted">An administrator of a project can add you as a member.</p>
+        </div>
+      ) : (
+        <ul className="grid gap-4 md:grid-cols-2">
+          {projects.map((p) => (
+            <li key={p.id}>
+              <Link href={`/projects/${p.id}`} className="card block h-full hover:border-brand-600">
+                <div className="flex items-start justify-between gap-3">
+                  <h2 className="text-base">{p.name}</h2>
+                  <RoleBadge role={p.role as ProjectRole} />
+                </div>
+                <p className="mt-1 text-sm text-muted">
+                  {p.structureName} · {p.region}
+                </p>
+                <dl className="mt-4 grid grid-cols-3 gap-2 text-sm">
+                  <div>
+                    <dt className="text-muted">Deck</dt>
+                    <dd className="font-medium">{p.deckLengthFt.toLocaleString("en-US")} ft</dd>
+                  </div>
+                  <div>
+                    <dt className="text-muted">From</dt>
+                    <dd className="font-medium">{formatStation(p.startStationFt)}</dd>
+                  </div>
+                  <div>
+                    <dt className="text-muted">Lanes</dt>
+                    <dd className="font-medium">{p.lanes.length}</dd>
+                  </div>
+                </dl>
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}

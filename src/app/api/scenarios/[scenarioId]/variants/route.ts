@@ -1,0 +1,22 @@
+import { NextResponse } from "next/server";
+import { handler, readJson } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { variantSchema } from "@/lib/schemas";
+import { createScenario } from "@db/queries/scenarios";
+
+/** A what-if: a copy of the scenario under a new name, owned by whoever made it. */
+export const POST = handler(async (req: Request, ctx: { params: Promise<{ scenarioId: string }> }) => {
+  const { scenarioId } = await ctx.params;
+  const { user, scenario } = await requireScenario(scenarioId, "editScenario");
+  const body = await readJson(req, variantSchema);
+  const definition = { ...scenario.definition, name: body.name };
+  const row = await createScenario({
+    projectId: scenario.projectId,
+    name: body.name,
+    description: scenario.description,
+    definition,
+    userId: user.id,
+    changeNote: `Variant of “${scenario.name}” v${scenario.version}`,
+  });
+  return NextResponse.json(row, { status: 201 });
+});

@@ -1,0 +1,38 @@
+import "server-only";
+import { z } from "zod";
+import { getMembershipRole, getProject } from "@db/queries/projects";
+import { getScenario } from "@db/queries/scenarios";
+import { can, type Action, type ProjectRole } from "@/lib/permissions";
+import { currentSession, type SignedIn } from "./auth";
+import { AppError } from "./errors";
+
+const uuid = z.uuid();
+
+export async function requireUser(): Promise<SignedIn> {
+  const s = await currentSession();
+  if (!s) throw new AppError("unauthorized", "Sign in to continue.");
+  return s;
+}
+
+/** 404 when the project does not exist or the user is not a member (no hint that it exists); 403 when the role may not. */
+export async function requireProject(projectId: string, action: Action) {
+  const s = await requireUser();
+  if (!uuid.safeParse(projectId).success) throw new AppError("not_found", "No such project.");
+  const role = (await getMembershipRole({ projectId, userId: s.user.id })) as ProjectRole | null;
+  if (!role) throw new AppError("not_found", "No such project.");
+  if (!can(role, action)) throw new AppError("forbidden", `Your role (${role}) may not do this.`);
+  const project = await getProject({ id: projectId });
+  if (!project) throw new AppError("not_found", "No such project.");
+  return { ...s, role, project };
+}
+
+export async function requireScenario(scenarioId: string, action: Action) {
+  const s = await requireUser();
+  if (!uuid.safeParse(scenarioId).success) throw new AppError("not_found", "No such scenario.");
+  const scenario = await getScenario({ id: scenarioId });
+  if (!scenario) throw new AppError("not_found", "No such scenario.");
+  const role = (await getMembershipRole({ projectId: scenario.projectId, userId: s.user.id })) as ProjectRole | null;
+  if (!role) throw new AppError("not_found", "No such scenario.");
+  if (!can(role, action)) throw new AppError("forbidden", `Your role (${role}) may not do this.`);
+  return { ...s, role, scenario };
+}

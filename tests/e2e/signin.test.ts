@@ -1,0 +1,56 @@
+/** A scheduler signs in, finds the project and its scenarios; a wrong password shows the error. */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser } from "playwright-core";
+import { APP_URL, demoEmail } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("sign-in", () => {
+  it("a wrong password shows the error and stays on the sign-in page", async () => {
+    const page = await browser.newPage();
+    await signInPage(page, demoEmail("scheduler"), "not-the-password");
+    await expect.poll(() => page.getByRole("alert").textContent()).toContain("do not match");
+    expect(new URL(page.url()).pathname).toBe("/signin");
+    await screenshot(page, "signin-error");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await page.close();
+  });
+
+  it("the demo scheduler signs in, sees the project and opens its scenario list", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signInPage(page, demoEmail("scheduler"));
+    await page.waitForURL(`${APP_URL}/projects`);
+    await expect.poll(() => page.getByTestId("signed-in-name").textContent()).toBe("Marco Ilves");
+    await screenshot(page, "projects");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    // The scheduler is not on the Tern Point project: it must not be listed.
+    expect(await page.getByText("Tern Point").count()).toBe(0);
+    await page.getByRole("link", { name: /Kestrel Bay Causeway/ }).click();
+    await page.waitForSelector("[data-testid=scenario-table] tbody tr");
+    expect(await page.getByTestId("role-badge").textContent()).toBe("Scheduler");
+    const rows = await page.locator("[data-testid=scenario-table] tbody tr").count();
+    expect(rows).toBeGreaterThanOrEqual(3);
+    // Sorting by name is a keyboard-reachable button in the header.
+    await page.getByRole("button", { name: /Scenario/ }).click();
+    await expect.poll(() => page.locator("th").first().getAttribute("aria-sort")).not.toBe("none");
+    await screenshot(page, "project-scenarios");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await context.close();
+  });
+
+  it("signed out, an app page sends you to sign in", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await page.goto(`${APP_URL}/projects`);
+    expect(new URL(page.url()).pathname).toBe("/signin");
+    await context.close();
+  });
+});
