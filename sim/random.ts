@@ -2,8 +2,8 @@
  * Seeded randomness for the engine. Contract: `createRng(seed)` gives a reproducible uniform stream in [0, 1)
  * (seedrandom's Alea: fast, 32-bit resolution, identical in every JavaScript runtime); `normal` and `gamma`
  * turn that stream into standard normal and gamma variates. No sampler keeps hidden state (no cached
- * Box–Muller spare), so the number of uniforms a draw consumes depends only on the draw itself and a stream
- * stays easy to reason about when code paths change.
+ * spare variate), so a draw depends only on the uniforms it consumes and a stream stays easy to reason
+ * about when code paths change.
  */
 import seedrandom from "seedrandom";
 
@@ -17,14 +17,52 @@ export function createRng(seed: string): Rng {
   return { next: prng };
 }
 
-const TWO_PI = 2 * Math.PI;
+/*
+ * Standard normal by the ziggurat method with 128 layers, in the form that draws the layer and the
+ * position from separate uniforms (so they are independent even with a 32-bit generator).
+ * Source: G. Marsaglia and W. W. Tsang (2000), "The Ziggurat Method for Generating Random Variables",
+ * Journal of Statistical Software 5(8); J. A. Doornik (2005), "An Improved Ziggurat Method to Generate
+ * Normal Random Samples" (ZIGNOR: R = 3.442619855899, V = 9.91256303526217e-3).
+ * About 99 % of draws cost two uniforms and one multiply; the rest use exp/log. No state is kept between
+ * draws, so a draw depends only on the uniforms it consumes.
+ */
+const ZIG_LAYERS = 128;
+const ZIG_R = 3.442619855899;
+const ZIG_V = 9.91256303526217e-3;
+const zigX = new Float64Array(ZIG_LAYERS + 1);
+const zigRatio = new Float64Array(ZIG_LAYERS);
+{
+  const f = Math.exp(-0.5 * ZIG_R * ZIG_R);
+  zigX[0] = ZIG_V / f; // the base strip (rectangle plus tail) has the same area V as every layer
+  zigX[1] = ZIG_R;
+  zigX[ZIG_LAYERS] = 0;
+  for (let i = 2; i < ZIG_LAYERS; i++) {
+    const prev = zigX[i - 1];
+    zigX[i] = Math.sqrt(-2 * Math.log(ZIG_V / prev + Math.exp(-0.5 * prev * prev)));
+  }
+  for (let i = 0; i < ZIG_LAYERS; i++) zigRatio[i] = zigX[i + 1] / zigX[i];
+}
 
-/** Standard normal by Box–Muller (cosine branch only; two uniforms per draw). */
 export function normal(rng: Rng): number {
-  // 1 − u lies in (0, 1], so the logarithm is finite.
-  const u1 = 1 - rng.next();
-  const u2 = rng.next();
-  return Math.sqrt(-2 * Math.log(u1)) * Math.cos(TWO_PI * u2);
+  for (;;) {
+    const u = 2 * rng.next() - 1;
+    const i = (rng.next() * ZIG_LAYERS) | 0;
+    if (Math.abs(u) < zigRatio[i]) return u * zigX[i]; // inside the layer's rectangle
+    if (i === 0) {
+      // Tail beyond R (Marsaglia 1964): x = −ln(U₁)/R, accept when −2 ln(U₂) > x².
+      let x: number;
+      let y: number;
+      do {
+        x = -Math.log(1 - rng.next()) / ZIG_R;
+        y = -Math.log(1 - rng.next());
+      } while (2 * y < x * x);
+      return u < 0 ? -(ZIG_R + x) : ZIG_R + x;
+    }
+    const x = u * zigX[i];
+    const f0 = Math.exp(-0.5 * (zigX[i] * zigX[i] - x * x));
+    const f1 = Math.exp(-0.5 * (zigX[i + 1] * zigX[i + 1] - x * x));
+    if (f1 + rng.next() * (f0 - f1) < 1) return x; // under the density in the layer's wedge
+  }
 }
 
 /**

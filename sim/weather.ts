@@ -1,0 +1,288 @@
+/**
+ * Daily weather for one Monte Carlo iteration, and the hourly view the weather gates read.
+ * Contract:
+ * - `createWeatherSeries(weather, startDay, rng)` returns a series whose day index 0 is day number
+ *   `startDay` (see `./dates`). Days are generated lazily and in order: `ensure(n)` makes days `< n`
+ *   available; the typed arrays are replaced when they grow, so read them through the series object.
+ * - In stochastic mode the series takes exactly two uniforms from `rng` when it is created and seeds a
+ *   private stream with them, so the weather of an iteration does not depend on when or how often the
+ *   caller asks for more days, nor on what else the caller draws from `rng`. Fixed mode draws nothing.
+ * - Fixed mode (MODEL.md): monthly means every day, no rain except `fixedWetDates` (rain 00:00–24:00,
+ *   temperatures still the means), wind `windMeanMph`, humidity `rhMean`.
+ * - Stochastic mode, WGEN family (Richardson 1981, Water Resources Research 17(1); Richardson & Wright 1984,
+ *   USDA-ARS ARS-8): a two-state first-order Markov chain for wet days with the month's P(W|D), P(W|W);
+ *   tmax = tmaxMeanF + (wet ? wetTmaxShiftF : 0) + tmaxSdF·χ, likewise tmin, so the monthly means are the
+ *   dry-day means. Each residual χ follows χᵢ = ρ χᵢ₋₁ + √(1 − ρ²) εᵢ with ρ = `serialCorrelation`: a
+ *   simplification of WGEN's A/B matrices that keeps the lag-1 autocorrelation but drops the tmax–tmin
+ *   cross-correlation. tmin is then capped at tmax − 1 °F. On a wet day rain starts at a uniform whole hour
+ *   0–23 and lasts 1–24 h, from a geometric law truncated at 24 h whose parameter is solved so that the
+ *   mean is exactly `rainHoursMean`; rain may run past midnight. Wind: gamma, shape 4, mean `windMeanMph`.
+ *   Humidity: `rhMean`, +10 on wet days, at most 100.
+ * - `hourlyTempF`: minimum tmin at 06:00, maximum tmax at 15:00, half-cosine rise between them and
+ *   half-cosine fall from 15:00 to 06:00 of the next day (continuous at midnight). Before 06:00 of day 0,
+ *   day 0's own tmax stands in for the missing previous afternoon.
+ * Per generated day nothing is allocated and no Date object is used.
+ */
+import type { Weather } from "./schema";
+import { civilFromDays, daysInMonth, parseIsoDate } from "./dates";
+import { createRng, gamma, normal, type Rng } from "./random";
+
+export interface WeatherSeries {
+  readonly startDay: number;
+  /** Days generated so far. */
+  length: number;
+  tmaxF: Float64Array;
+  tminF: Float64Array;
+  windMph: Float64Array;
+  rhPct: Float64Array;
+  /** 1 on a wet day. */
+  wet: Uint8Array;
+  rainStartHour: Uint8Array;
+  rainHours: Uint8Array;
+  ensure(days: number): void;
+}
+
+/** π = P(W|D) / (1 − P(W|W) + P(W|D)); a chain that never leaves the dry state (0, 1) counts as dry. */
+export function stationaryWetProbability(pWetAfterDry: number, pWetAfterWet: number): number {
+  const denom = 1 - pWetAfterWet + pWetAfterDry;
+  return denom > 0 ? pWetAfterDry / denom : 0;
+}
+
+const WIND_SHAPE = 4;
+const MAX_RAIN_HOURS = 24;
+
+/** Mean of P(h) ∝ q^{h−1}, h = 1…24. */
+function truncatedGeometricMean(q: number): number {
+  let num = 0;
+  let den = 0;
+  let w = 1;
+  for (let h = 1; h <= MAX_RAIN_HOURS; h++) {
+    num += h * w;
+    den += w;
+    w *= q;
+  }
+  return num / den;
+}
+
+/** The ratio q whose truncated geometric has the given mean (bisection on ln q; the mean rises with q). */
+export function rainHoursRatio(mean: number): number {
+  let lo = -30;
+  let hi = 30;
+  for (let i = 0; i < 100; i++) {
+    const mid = (lo + hi) / 2;
+    if (truncatedGeometricMean(Math.exp(mid)) < mean) lo = mid;
+    else hi = mid;
+  }
+  return Math.exp((lo + hi) / 2);
+}
+
+const INITIAL_CAPACITY = 512;
+
+/** Per-profile constants, computed once per `Weather` object (the engine reuses it every iteration). */
+interface Prepared {
+  tmaxMean: Float64Array;
+  tmaxSd: Float64Array;
+  tminMean: Float64Array;
+  tminSd: Float64Array;
+  pWD: Float64Array;
+  pWW: Float64Array;
+  pi: Float64Array;
+  windScale: Float64Array;
+  windMean: Float64Array;
+  rh: Float64Array;
+  fixedWet: Set<number>;
+  /** Truncated-geometric ratio for rain hours: 0 → always 1 h, Infinity → always 24 h. */
+  q: number;
+}
+const prepared = new WeakMap<Weather, Prepared>();
+
+function prepare(weather: Weather): Prepared {
+  const hit = prepared.get(weather);
+  if (hit) return hit;
+  const m = weather.monthly;
+  const col = (f: (x: (typeof m)[number]) => number) => Float64Array.from(m, f);
+  const rainMean = weather.rainHoursMean;
+  const p: Prepared = {
+    tmaxMean: col((x) => x.tmaxMeanF),
+    tmaxSd: col((x) => x.tmaxSdF),
+    tminMean: col((x) => x.tminMeanF),
+    tminSd: col((x) => x.tminSdF),
+    pWD: col((x) => x.pWetAfterDry),
+    pWW: col((x) => x.pWetAfterWet),
+    pi: col((x) => stationaryWetProbability(x.pWetAfterDry, x.pWetAfterWet)),
+    windScale: col((x) => x.windMeanMph / WIND_SHAPE),
+    windMean: col((x) => x.windMeanMph),
+    rh: col((x) => x.rhMean),
+    fixedWet: new Set(weather.fixedWetDates.map(parseIsoDate)),
+    q: rainMean <= 1 ? 0 : rainMean >= MAX_RAIN_HOURS ? Infinity : rainHoursRatio(rainMean),
+  };
+  prepared.set(weather, p);
+  return p;
+}
+
+export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng): WeatherSeries {
+  const P = prepare(weather);
+  const { tmaxMean, tmaxSd, tminMean, tminSd, pWD, pWW, windScale, windMean, rh, fixedWet, q } = P;
+  const own: Rng | null =
+    weather.mode === "stochastic" ? createRng(`wx${(rng.next() * 4294967296) >>> 0}:${(rng.next() * 4294967296) >>> 0}`) : null;
+  const rho = weather.serialCorrelation;
+  const innov = Math.sqrt(1 - rho * rho);
+  const wetMaxShift = weather.wetTmaxShiftF;
+  const wetMinShift = weather.wetTminShiftF;
+
+  // Rain duration by inversion of the truncated geometric: h = 1 + ⌊ln(1 − U(1 − q²⁴)) / ln q⌋.
+  const lnQ = Math.log(q);
+  const oneMinusQ24 = 1 - Math.pow(q, MAX_RAIN_HOURS);
+  const drawRainHours = (r: Rng): number => {
+    if (q === 0) return 1;
+    if (q === Infinity) return MAX_RAIN_HOURS;
+    const u = r.next();
+    if (Math.abs(lnQ) < 1e-12) return 1 + Math.floor(u * MAX_RAIN_HOURS);
+    const h = 1 + Math.floor(Math.log(1 - u * oneMinusQ24) / lnQ);
+    return h < 1 ? 1 : h > MAX_RAIN_HOURS ? MAX_RAIN_HOURS : h;
+  };
+
+  // Calendar position of the next day to generate, stepped day by day (no Date, no allocation).
+  const start = civilFromDays(startDay);
+  let year = start.y;
+  let month = start.m - 1;
+  let dayOfMonth = start.d;
+  let monthLength = daysInMonth(year, month + 1);
+
+  // Generator state: "yesterday" before day 0 is drawn from the stationary law of the first month.
+  let prevWet = false;
+  let chiMax = 0;
+  let chiMin = 0;
+  if (own) {
+    prevWet = own.next() < P.pi[month];
+    chiMax = normal(own);
+    chiMin = normal(own);
+  }
+
+  const series: WeatherSeries = {
+    startDay,
+    length: 0,
+    tmaxF: new Float64Array(INITIAL_CAPACITY),
+    tminF: new Float64Array(INITIAL_CAPACITY),
+    windMph: new Float64Array(INITIAL_CAPACITY),
+    rhPct: new Float64Array(INITIAL_CAPACITY),
+    wet: new Uint8Array(INITIAL_CAPACITY),
+    rainStartHour: new Uint8Array(INITIAL_CAPACITY),
+    rainHours: new Uint8Array(INITIAL_CAPACITY),
+    ensure(days: number) {
+      if (days <= series.length) return;
+      if (days > series.tmaxF.length) grow(days);
+      generate(series.length, days);
+      series.length = days;
+    },
+  };
+
+  function grow(days: number) {
+    let cap = series.tmaxF.length;
+    while (cap < days) cap *= 2;
+    const f = (a: Float64Array) => {
+      const b = new Float64Array(cap);
+      b.set(a);
+      return b;
+    };
+    const u = (a: Uint8Array) => {
+      const b = new Uint8Array(cap);
+      b.set(a);
+      return b;
+    };
+    series.tmaxF = f(series.tmaxF);
+    series.tminF = f(series.tminF);
+    series.windMph = f(series.windMph);
+    series.rhPct = f(series.rhPct);
+    series.wet = u(series.wet);
+    series.rainStartHour = u(series.rainStartHour);
+    series.rainHours = u(series.rainHours);
+  }
+
+  function generate(from: number, to: number) {
+    const { tmaxF, tminF, windMph, rhPct, wet: wetA, rainStartHour, rainHours } = series;
+    for (let i = from; i < to; i++) {
+      const mo = month;
+      if (own) {
+        const wet = own.next() < (prevWet ? pWW[mo] : pWD[mo]);
+        prevWet = wet;
+        chiMax = rho * chiMax + innov * normal(own);
+        chiMin = rho * chiMin + innov * normal(own);
+        const tmax = tmaxMean[mo] + (wet ? wetMaxShift : 0) + tmaxSd[mo] * chiMax;
+        const tmin = tminMean[mo] + (wet ? wetMinShift : 0) + tminSd[mo] * chiMin;
+        tmaxF[i] = tmax;
+        tminF[i] = tmin > tmax - 1 ? tmax - 1 : tmin;
+        windMph[i] = windScale[mo] > 0 ? gamma(own, WIND_SHAPE, windScale[mo]) : 0;
+        const r = rh[mo] + (wet ? 10 : 0);
+        rhPct[i] = r > 100 ? 100 : r;
+        wetA[i] = wet ? 1 : 0;
+        if (wet) {
+          rainStartHour[i] = Math.floor(own.next() * 24);
+          rainHours[i] = drawRainHours(own);
+        } else {
+          rainStartHour[i] = 0;
+          rainHours[i] = 0;
+        }
+      } else {
+        const wet = fixedWet.size > 0 && fixedWet.has(startDay + i);
+        tmaxF[i] = tmaxMean[mo];
+        tminF[i] = tminMean[mo];
+        windMph[i] = windMean[mo];
+        rhPct[i] = rh[mo];
+        wetA[i] = wet ? 1 : 0;
+        rainStartHour[i] = 0;
+        rainHours[i] = wet ? 24 : 0;
+      }
+      if (++dayOfMonth > monthLength) {
+        dayOfMonth = 1;
+        if (++month === 12) {
+          month = 0;
+          year++;
+        }
+        monthLength = daysInMonth(year, month + 1);
+      }
+    }
+  }
+
+  return series;
+}
+
+const RISE_HOURS = 9; // 06:00 → 15:00
+const FALL_HOURS = 15; // 15:00 → 06:00 next day
+
+/** Air temperature at `hour` (hours since 00:00 of day 0, may be fractional). */
+export function hourlyTempF(series: WeatherSeries, hour: number): number {
+  if (hour < 0) hour = 0; // no weather before day 0
+  const d = Math.floor(hour / 24);
+  if (d + 1 >= series.length) series.ensure(d + 2);
+  const h = hour - d * 24;
+  if (h >= 6 && h <= 15) {
+    const lo = series.tminF[d];
+    return lo + ((series.tmaxF[d] - lo) * (1 - Math.cos((Math.PI * (h - 6)) / RISE_HOURS))) / 2;
+  }
+  // Falling branch from the afternoon of day `from` to 06:00 of day `from + 1`.
+  const from = h > 15 ? d : d - 1;
+  const since = h > 15 ? h - 15 : h + 9;
+  const hi = from >= 0 ? series.tmaxF[from] : series.tmaxF[0];
+  const lo = series.tminF[from + 1];
+  return lo + ((hi - lo) * (1 + Math.cos((Math.PI * since) / FALL_HOURS))) / 2;
+}
+
+/** True when rain falls in the hour slot [k, k + 1); k counts hours since 00:00 of day 0. */
+export function isRainHour(series: WeatherSeries, hourSlot: number): boolean {
+  const k = Math.floor(hourSlot);
+  const d = Math.floor(k / 24);
+  if (d >= series.length) series.ensure(d + 1);
+  const h = k - d * 24;
+  if (d >= 0 && series.wet[d] === 1) {
+    const s = series.rainStartHour[d];
+    if (h >= s && h < s + series.rainHours[d]) return true;
+  }
+  // Yesterday's rain that ran past midnight.
+  const p = d - 1;
+  if (p >= 0 && series.wet[p] === 1) {
+    const end = series.rainStartHour[p] + series.rainHours[p];
+    if (h + 24 < end) return true;
+  }
+  return false;
+}
