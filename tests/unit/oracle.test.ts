@@ -1,0 +1,141 @@
+/**
+ * The hour-stepped reference simulator (tests/oracle/reference-sim.ts) checked two ways:
+ * (a) against finishes worked out by hand from MODEL.md (this file's first block), and
+ * (b) against the event engine (sim/index.ts) on deterministic, seeded and generated scenarios.
+ */
+import { describe, expect, it } from "vitest";
+import { referenceSimulate, type RefResult } from "../oracle/reference-sim";
+import { at, climate, crewOp, fixedSamples, scenario } from "../oracle/fixtures";
+
+const DT = 0.25;
+const byKey = (r: RefResult) => new Map(r.packets.map((p) => [`${p.op}#${p.packet}`, p]));
+
+describe("reference simulator, hand-worked cases (MODEL.md applied by hand)", () => {
+  it("1,000 ft, milling then cleanup, one day window: finishes Wednesday 15:00", () => {
+    // Open time = shift 07–17 ∩ window 08–16 = 08:00–16:00 Mon–Fri (8 h). 10 packets of 100 ft.
+    // Milling 50 ft/h → 2 h a packet, 2 h mobilization from 08:00 Monday (t = 0 is Monday 00:00):
+    //   Mon: mob 08–10, p0 10–12, p1 12–14, p2 14–16; Tue: p3–p6 08–16 (p6 ends 40 h);
+    //   Wed: p7 56–58, p8 58–60, p9 60–62.
+    // Cleanup 100 ft/h → 1 h, ready at milling's finish of the same packet:
+    //   p0 12–13, p1 14–15, p2 ready 16:00 (closed) → Tue 08–09 (32–33), p3 34–35, p4 36–37, p5 38–39,
+    //   p6 ready 40 (Tue 16:00, closed) → Wed 56–57, p7 58–59, p8 60–61, p9 62–63 → finish 63 h = Wed 15:00.
+    const s = scenario((x) => {
+      x.operations = [crewOp("milling", 50, { mobilizationHours: 2 }), crewOp("cleanup", 100)];
+      x.links = [{ from: "milling", to: "cleanup" }];
+    });
+    const r = referenceSimulate(s, fixedSamples(s), DT);
+    const k = byKey(r);
+    expect(r.unfinished).toBe(false);
+    expect(r.finish).toBeCloseTo(63, 9);
+    expect(k.get("milling#0")).toMatchObject({ start: 10, finish: 12 });
+    expect(k.get("milling#9")).toMatchObject({ start: 60, finish: 62 });
+    expect(k.get("cleanup#2")).toMatchObject({ start: 32, finish: 33 });
+    expect(k.get("cleanup#6")).toMatchObject({ start: 56, finish: 57 });
+    expect(r.packets).toHaveLength(20);
+  });
+
+  it("night shift of Friday runs into Saturday; the weekend is skipped", () => {
+    // Night shift 20:00 + 10 h on Mon–Fri ∩ overnight window 21:00–05:00 → open 21:00–05:00 after each
+    // work day, including Fri 21:00 → Sat 05:00 (the shift belongs to Friday, the window to a weekday).
+    // 25 ft/h → 4 h a packet, 2 a night; 11 packets: nights Mon–Fri take p0–p9 (p9 ends Sat 05:00 = 125 h);
+    // Sat/Sun shifts are not on work days, so p10 waits for Mon 21:00 (7·24 + 21 = 189) → 193 h.
+    const s = scenario((x) => {
+      x.deck.lengthFt = 1100;
+      x.operations = [crewOp("night-mill", 25, { shifts: ["night"], closure: "two-lane" })];
+    });
+    const k = byKey(referenceSimulate(s, fixedSamples(s), DT));
+    expect(k.get("night-mill#0")).toMatchObject({ start: 21, finish: 25 });
+    expect(k.get("night-mill#9")).toMatchObject({ start: 121, finish: 125 });
+    expect(k.get("night-mill#10")).toMatchObject({ start: 189, finish: 193 });
+  });
+
+  it("Independence Day 2027 stand-down: blocked from Friday 15:00 to Monday 24:00", () => {
+    // 4 July 2027 is a Sunday, observed Monday 5 July (5 U.S.C. 6103); the block Sat 3–Mon 5 runs from
+    // Fri 2 July 15:00 to Mon 5 July 24:00. Start Thu 1 July, 50 ft/h → 2 h a packet, open 08–16:
+    //   Thu: p0–p3; Fri: p4 32–34, p5 34–36, p6 36–38, p7 starts 38 (14:00), 1 h done by 15:00;
+    //   Tue 6 July (t = 120 at 00:00): p7 resumes 128–129, p8 129–131, p9 131–133.
+    const s = scenario((x) => {
+      x.startDate = "2027-07-01";
+      x.calendar.holidays.policy = "standDown";
+      x.operations = [crewOp("milling", 50)];
+    });
+    const r = referenceSimulate(s, fixedSamples(s), DT);
+    const k = byKey(r);
+    expect(k.get("milling#7")).toMatchObject({ start: 38, finish: 129 });
+    expect(r.finish).toBeCloseTo(133, 9);
+  });
+
+  it("winter with demobilization and remobilization", () => {
+    // Start Mon 29 Nov 2027, winter 1 Dec → 1 Mar, demobilize 12 h (blocked from Tue 30 Nov 12:00),
+    // remobilize 3 h. 25 ft/h → 4 h a packet, open 08–16, no holidays observed.
+    //   Mon: p0 08–12, p1 12–16; Tue: p2 08–12, then blocked. Wed 1 Mar 2028: remob 08–11, p3 11–15,
+    //   p4 15–16 + Thu 08–11, p5 11–15, p6 15–16 + Fri 08–11, p7 11–15, p8 15–16 + Mon 6 Mar 08–11,
+    //   p9 11–15.
+    const s = scenario((x) => {
+      x.startDate = "2027-11-29";
+      x.calendar.holidays.observeFederal = false;
+      x.calendar.season = { plan: "single", winterStart: "12-01", winterEnd: "03-01", demobilizeHours: 12, remobilizeHours: 3 };
+      x.operations = [crewOp("milling", 25)];
+    });
+    const k = byKey(referenceSimulate(s, fixedSamples(s), DT));
+    expect(k.get("milling#2")).toMatchObject({ start: 32, finish: 36 });
+    expect(k.get("milling#3")).toMatchObject({ start: at(s, "2028-03-01", 11), finish: at(s, "2028-03-01", 15) });
+    expect(k.get("milling#4")).toMatchObject({ start: at(s, "2028-03-01", 15), finish: at(s, "2028-03-02", 11) });
+    expect(k.get("milling#9")).toMatchObject({ start: at(s, "2028-03-06", 11), finish: at(s, "2028-03-06", 15) });
+  });
+
+  it("two-season cut-off station: packets at or past it wait for the end of the first winter", () => {
+    // Plan two, cut-off STA 15+00 on a deck from STA 10+00 → offset 500 ft: p5–p9 not before 1 Mar 2028.
+    // Start Mon 15 Nov 2027, winter 15 Dec → 1 Mar, remobilize 2 h. 25 ft/h → 4 h, open 08–16:
+    //   Mon p0, p1; Tue p2, p3; Wed p4 08–12. Wed 1 Mar 2028: remob 08–10, p5 10–14, p6 14–16 + Thu 08–10,
+    //   p7 10–14, p8 14–16 + Fri 08–10, p9 10–14.
+    const s = scenario((x) => {
+      x.startDate = "2027-11-15";
+      x.calendar.holidays.observeFederal = false;
+      x.calendar.season = {
+        plan: "two", winterStart: "12-15", winterEnd: "03-01", demobilizeHours: 0, remobilizeHours: 2, cutoffStationFt: 1500,
+      };
+      x.operations = [crewOp("milling", 25)];
+    });
+    const k = byKey(referenceSimulate(s, fixedSamples(s), DT));
+    expect(k.get("milling#4")).toMatchObject({ start: 56, finish: 60 });
+    expect(k.get("milling#5")).toMatchObject({ start: at(s, "2028-03-01", 10), finish: at(s, "2028-03-01", 14) });
+    expect(k.get("milling#9")).toMatchObject({ start: at(s, "2028-03-03", 10), finish: at(s, "2028-03-03", 14) });
+  });
+
+  it("continuous pour must fit one open interval and keep 3 rain-free hours after it", () => {
+    // Shift 06:00 + 18 h ∩ window 06–24 → open 06:00–24:00 weekdays; 25 ft/h → 4 h pours; rain all of
+    // Wed 9 June. Mon: p0–p3 06–22 (22–24 too short). Tue: p4–p6 06–18; p7 at 18 would end 22 and need
+    // 22–01 dry (rain from 00:00 Wed), 19 and 20 fail likewise, 21 does not fit before 24. Wed rains.
+    // Thu (t = 72): p7 78–82, p8 82–86, p9 86–90.
+    const s = scenario((x) => {
+      x.calendar.shifts.push({ id: "long", name: "Long", startHour: 6, lengthHours: 18 });
+      x.calendar.closureWindows.push({ closure: "one-lane", dayTypes: ["weekday"], startHour: 6, endHour: 24 });
+      x.calendar.closures.push({ id: "pour", name: "Pour", lanesClosed: ["L2"] });
+      x.calendar.closureWindows.push({ closure: "pour", dayTypes: ["weekday"], startHour: 6, endHour: 24 });
+      x.weather.fixedWetDates = ["2027-06-09"];
+      x.operations = [
+        crewOp("placement", 25, { shifts: ["long"], closure: "pour", continuous: true, gates: { noRain: true, noRainHoursAfter: 3 } }),
+      ];
+    });
+    const k = byKey(referenceSimulate(s, fixedSamples(s), DT));
+    expect(k.get("placement#3")).toMatchObject({ start: 18, finish: 22 });
+    expect(k.get("placement#6")).toMatchObject({ start: 38, finish: 42 });
+    expect(k.get("placement#7")).toMatchObject({ start: 78, finish: 82 });
+    expect(k.get("placement#9")).toMatchObject({ start: 86, finish: 90 });
+  });
+
+  it("a 45 °F gate blocks cold mornings", () => {
+    // Fixed climate tmin 38 °F, tmax 60 °F. MODEL.md's half-cosine rise from 06:00 to 15:00:
+    // T(h) = 38 + 22·(1 − cos(π(h − 6)/9))/2 → T(9) = 43.5, T(10) = 47.1; so slot 9 fails, 10–14 pass, and
+    // the fall after 15:00 is slow (T(16) ≈ 59.8), so slot 15 passes: production 10:00–16:00, 6 h a day.
+    // 50 ft/h → 2 h: 3 packets a day Mon–Wed, p9 Thu 10–12 → 3·24 + 12 = 84 h.
+    const s = scenario((x) => {
+      x.weather.monthly = climate({ tminF: 38, tmaxF: 60 });
+      x.operations = [crewOp("milling", 50, { gates: { minTempF: 45 } })];
+    });
+    const r = referenceSimulate(s, fixedSamples(s), DT);
+    expect(byKey(r).get("milling#0")).toMatchObject({ start: 10, finish: 12 });
+    expect(r.finish).toBeCloseTo(84, 9);
+  });
+});
