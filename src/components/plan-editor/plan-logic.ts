@@ -1,0 +1,150 @@
+/**
+ * Pure helpers of the plan editor (no React, no DOM), unit-tested in tests/unit/plan-editor-logic.test.ts.
+ * Contract: `proposeLink` refuses self-links, duplicates and links that would close a loop, naming the loop;
+ * `layoutByDepth` places operations left to right by longest-path depth; `diffDefinitions` lists every leaf
+ * that differs between two definitions with a schema-style path; `toFormPath` and `sectionOf` map problem paths
+ * (from `parseScenario` or the server) to react-hook-form names and to the editor section that shows them.
+ */
+import { scenarioSchema, type ScenarioInput } from "@sim/schema";
+
+export interface LinkLike {
+  from: string;
+  to: string;
+}
+
+/** Operation ids reachable from `start` to `goal` along existing links (shortest), or null. */
+export function findPath(links: readonly LinkLike[], start: string, goal: string): string[] | null {
+  const prev = new Map<string, string | null>([[start, null]]);
+  const queue = [start];
+  while (queue.length) {
+    const v = queue.shift()!;
+    if (v === goal) {
+      const path: string[] = [];
+      for (let c: string | null = v; c !== null; c = prev.get(c) ?? null) path.unshift(c);
+      return path;
+    }
+    for (const l of links) {
+      if (l.from === v && !prev.has(l.to)) {
+        prev.set(l.to, v);
+        queue.push(l.to);
+      }
+    }
+  }
+  return null;
+}
+
+export type LinkVerdict = { ok: true } | { ok: false; message: string };
+
+/** Whether `from → to` may be added. `label` turns ids into the names people see (defaults to the id). */
+export function proposeLink(
+  operationIds: readonly string[],
+  links: readonly LinkLike[],
+  from: string,
+  to: string,
+  label: (id: string) => string = (id) => id,
+): LinkVerdict {
+  if (!operationIds.includes(from) || !operationIds.includes(to)) return { ok: false, message: "Refused: both ends must be operations of this plan." };
+  if (from === to) return { ok: false, message: `Refused: ${label(from)} → ${label(from)} would loop (an operation cannot follow itself).` };
+  if (links.some((l) => l.from === from && l.to === to)) return { ok: false, message: `Refused: ${label(from)} → ${label(to)} is already linked.` };
+  const back = findPath(links, to, from);
+  if (back) return { ok: false, message: `Refused: ${[from, ...back].map(label).join(" → ")} would loop.` };
+  return { ok: true };
+}
+
+/** Longest-path depth of each operation; operations caught in a (stored, invalid) loop keep depth 0. */
+export function depths(ids: readonly string[], links: readonly LinkLike[]): Map<string, number> {
+  const depth = new Map(ids.map((id) => [id, 0]));
+  // Bellman-style relaxation capped at n rounds, so a loop in stored data cannot hang the page.
+  for (let round = 0; round < ids.length; round++) {
+    let changed = false;
+    for (const l of links) {
+      const a = depth.get(l.from);
+      const b = depth.get(l.to);
+      if (a === undefined || b === undefined) continue;
+      if (a + 1 > b && a + 1 < ids.length) {
+        depth.set(l.to, a + 1);
+        changed = true;
+      }
+    }
+    if (!changed) break;
+  }
+  return depth;
+}
+
+export function layoutByDepth(ids: readonly string[], links: readonly LinkLike[], dx = 240, dy = 110): Record<string, { x: number; y: number }> {
+  const d = depths(ids, links);
+  const row = new Map<number, number>();
+  const out: Record<string, { x: number; y: number }> = {};
+  for (const id of ids) {
+    const col = d.get(id) ?? 0;
+    const r = row.get(col) ?? 0;
+    row.set(col, r + 1);
+    out[id] = { x: col * dx, y: r * dy };
+  }
+  return out;
+}
+
+export interface Difference {
+  path: string;
+  before: string;
+  after: string;
+}
+
+export function formatValue(v: unknown): string {
+  if (v === undefined) return "(not set)";
+  if (typeof v === "string") return JSON.stringify(v);
+  const text = JSON.stringify(v);
+  return text.length > 80 ? `${text.slice(0, 77)}…` : text;
+}
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && !Array.isArray(v);
+
+/** Every leaf that differs, `theirs → mine`, with paths like `operations[4].rate.dist.mode`. */
+export function diffDefinitions(theirs: unknown, mine: unknown, path = ""): Difference[] {
+  if (Array.isArray(theirs) && Array.isArray(mine)) {
+    const out: Difference[] = [];
+    for (let i = 0; i < Math.max(theirs.length, mine.length); i++) out.push(...diffDefinitions(theirs[i], mine[i], `${path}[${i}]`));
+    return out;
+  }
+  if (isObject(theirs) && isObject(mine)) {
+    const keys = [...new Set([...Object.keys(theirs), ...Object.keys(mine)])].sort();
+    return keys.flatMap((k) => diffDefinitions(theirs[k], mine[k], path ? `${path}.${k}` : k));
+  }
+  if (Object.is(theirs, mine)) return [];
+  return [{ path: path || "(root)", before: formatValue(theirs), after: formatValue(mine) }];
+}
+
+/** `definition.operations[3].rate.dist.max` → `operations.3.rate.dist.max`. */
+export function toFormPath(problemPath: string): string {
+  return problemPath.replace(/^definition\.?/, "").replace(/\[(\d+)\]/g, ".$1").replace(/^\./, "");
+}
+
+export type SectionId = "sequence" | "crews" | "calendar" | "weather";
+
+const SEQUENCE_OP_FIELDS = new Set(["id", "name", "kind"]);
+
+export function sectionOf(problemPath: string): SectionId {
+  const p = toFormPath(problemPath).split(".");
+  if (p[0] === "weather") return "weather";
+  if (p[0] === "calendar" || p[0] === "startDate" || p[0] === "targetDate" || p[0] === "deck" || p[0] === "timeZone") return "calendar";
+  if (p[0] === "operations") {
+    if (p.length <= 1) return "sequence";
+    if (p.length === 2) return "crews";
+    return SEQUENCE_OP_FIELDS.has(p[2]) ? "sequence" : "crews";
+  }
+  return "sequence";
+}
+
+/** Fills the schema's defaults in so the form has every field and two versions compare like for like. */
+export function normalizeDefinition(definition: unknown): ScenarioInput {
+  const parsed = scenarioSchema.safeParse(definition);
+  return (parsed.success ? parsed.data : definition) as ScenarioInput;
+}
+
+/** A fresh, lower-case id not yet used, derived from a name. */
+export function freshId(name: string, taken: readonly string[]): string {
+  const base = name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 32) || "operation";
+  let id = base;
+  for (let n = 2; taken.includes(id); n++) id = `${base}-${n}`;
+  return id;
+}

@@ -1,0 +1,123 @@
+// Pure helpers of the plan editor: refused links, layout by depth, definition diffs, problem-path mapping.
+import { readFileSync } from "node:fs";
+import { describe, expect, it } from "vitest";
+import { parseScenario } from "@sim/validate";
+import {
+  depths,
+  diffDefinitions,
+  findPath,
+  freshId,
+  layoutByDepth,
+  normalizeDefinition,
+  proposeLink,
+  sectionOf,
+  toFormPath,
+} from "@/components/plan-editor/plan-logic";
+
+const ops = ["setup", "milling", "cleanup", "placement", "cure"];
+const chain = [
+  { from: "setup", to: "milling" },
+  { from: "milling", to: "cleanup" },
+  { from: "cleanup", to: "placement" },
+  { from: "placement", to: "cure" },
+];
+
+describe("proposeLink", () => {
+  it("accepts a link that keeps the graph acyclic", () => {
+    expect(proposeLink(ops, chain, "setup", "cleanup")).toEqual({ ok: true });
+  });
+  it("refuses a back link and names the loop in order", () => {
+    const v = proposeLink(ops, chain, "cleanup", "milling");
+    expect(v).toEqual({ ok: false, message: "Refused: cleanup → milling → cleanup would loop." });
+  });
+  it("names a longer loop through every operation on it, using display labels", () => {
+    const v = proposeLink(ops, chain, "cure", "milling", (id) => id.toUpperCase());
+    expect(v.ok).toBe(false);
+    if (!v.ok) expect(v.message).toBe("Refused: CURE → MILLING → CLEANUP → PLACEMENT → CURE would loop.");
+  });
+  it("refuses self-links, duplicates and unknown operations", () => {
+    expect(proposeLink(ops, chain, "cure", "cure").ok).toBe(false);
+    expect(proposeLink(ops, chain, "setup", "milling")).toEqual({ ok: false, message: "Refused: setup → milling is already linked." });
+    expect(proposeLink(ops, chain, "setup", "ghost").ok).toBe(false);
+  });
+  it("agrees with the engine's validator: every refused link would be reported as a cycle, every accepted one not", () => {
+    const file = JSON.parse(readFileSync(new URL("../../scenarios/small-deterministic.json", import.meta.url), "utf8"));
+    const base = { ...file, operations: ops.map((id) => ({ ...file.operations[0], id })), links: chain.slice(0, 3).map((l) => ({ ...l, lagFt: 0, lagHours: 0 })) };
+    const ids = ops;
+    let refused = 0;
+    for (const from of ids) {
+      for (const to of ids) {
+        if (from === to || base.links.some((l) => l.from === from && l.to === to)) continue;
+        const links = [...base.links, { from, to, lagFt: 0, lagHours: 0 }];
+        const parsed = parseScenario({ ...base, links });
+        const cycleReported = !parsed.ok && parsed.problems.some((p) => p.message.includes("cycle"));
+        const verdict = proposeLink(ids, base.links, from, to);
+        expect(verdict.ok).toBe(!cycleReported);
+        if (!verdict.ok) refused++;
+      }
+    }
+    expect(refused).toBe(6); // back links among setup → milling → cleanup → placement: C(4,2)
+  });
+});
+
+describe("findPath and layout", () => {
+  it("finds the shortest path or null", () => {
+    expect(findPath([...chain, { from: "setup", to: "placement" }], "setup", "cure")).toEqual(["setup", "placement", "cure"]);
+    expect(findPath(chain, "cure", "setup")).toBeNull();
+  });
+  it("places operations by longest-path depth, left to right", () => {
+    const links = [...chain, { from: "setup", to: "placement" }];
+    const d = depths(ops, links);
+    expect([...d.values()]).toEqual([0, 1, 2, 3, 4]);
+    const pos = layoutByDepth([...ops, "restripe"], [...links, { from: "setup", to: "restripe" }], 200, 100);
+    expect(pos.cure).toEqual({ x: 800, y: 0 });
+    expect(pos.restripe).toEqual({ x: 200, y: 100 }); // second operation at depth 1
+  });
+  it("does not hang on a stored loop", () => {
+    const d = depths(["a", "b"], [{ from: "a", to: "b" }, { from: "b", to: "a" }]);
+    expect(Math.max(...d.values())).toBeLessThan(2);
+  });
+});
+
+describe("diffDefinitions", () => {
+  it("lists each changed leaf with a schema-style path, theirs → mine", () => {
+    const theirs = { operations: [{ id: "a", rate: { dist: { type: "pert", min: 200, mode: 240, max: 300 } } }], links: [] };
+    const mine = { operations: [{ id: "a", rate: { dist: { type: "pert", min: 200, mode: 260, max: 300 } } }], links: [{ from: "a", to: "b" }] };
+    expect(diffDefinitions(theirs, mine)).toEqual([
+      { path: "links[0]", before: "(not set)", after: '{"from":"a","to":"b"}' },
+      { path: "operations[0].rate.dist.mode", before: "240", after: "260" },
+    ]);
+  });
+  it("is empty for equal definitions and reports removed keys", () => {
+    expect(diffDefinitions({ a: [1, { b: "x" }] }, { a: [1, { b: "x" }] })).toEqual([]);
+    expect(diffDefinitions({ gates: { minTempF: 45 } }, { gates: {} })).toEqual([{ path: "gates.minTempF", before: "45", after: "(not set)" }]);
+  });
+  it("does not report defaults that one side left out once both are normalized", () => {
+    const base = JSON.parse(readFileSync(new URL("../../scenarios/small-deterministic.json", import.meta.url), "utf8"));
+    const filled = normalizeDefinition(base);
+    expect(diffDefinitions(base, filled).length).toBeGreaterThan(0); // defaults really were missing
+    expect(diffDefinitions(normalizeDefinition(base), filled)).toEqual([]);
+  });
+});
+
+describe("problem paths", () => {
+  it("maps server and validator paths to react-hook-form names", () => {
+    expect(toFormPath("definition.operations[3].rate.dist.max")).toBe("operations.3.rate.dist.max");
+    expect(toFormPath("calendar.closureWindows[0].closure")).toBe("calendar.closureWindows.0.closure");
+    expect(toFormPath("weather.monthly[11].tminMeanF")).toBe("weather.monthly.11.tminMeanF");
+  });
+  it("sends each problem to the section that shows its field", () => {
+    expect(sectionOf("definition.operations[3].rate.dist.max")).toBe("crews");
+    expect(sectionOf("operations[2]")).toBe("crews");
+    expect(sectionOf("operations[2].name")).toBe("sequence");
+    expect(sectionOf("links[1]")).toBe("sequence");
+    expect(sectionOf("calendar.season.cutoffDate")).toBe("calendar");
+    expect(sectionOf("startDate")).toBe("calendar");
+    expect(sectionOf("weather.monthly[0].rhMean")).toBe("weather");
+  });
+  it("makes fresh ids that pass the schema's id rule and do not collide", () => {
+    expect(freshId("Hydro-demolition (2nd pass)", [])).toBe("hydro-demolition-2nd-pass");
+    expect(freshId("Cure", ["cure", "cure-2"])).toBe("cure-3");
+    expect(freshId("!!!", [])).toBe("operation");
+  });
+});
