@@ -33,7 +33,8 @@ const scenarioArb = fc.record({
   ops: fc.array(opArb, { minLength: 1, maxLength: 3 }),
 });
 
-function build(g: fc.RecordValue<typeof scenarioArb>): ScenarioInput {
+type Generated = typeof scenarioArb extends fc.Arbitrary<infer T> ? T : never;
+function build(g: Generated): ScenarioInput {
   return small((s) => {
     s.deck.lengthFt = g.length;
     s.calendar.shifts = [{ id: "s", name: "S", startHour: g.shiftStart, lengthHours: g.shiftLen }];

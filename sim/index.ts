@@ -1,0 +1,22 @@
+/**
+ * The engine's public API. Everything a caller (CLI, worker pool, server, tests) needs, re-exported from the
+ * modules that own it, plus `runScenario` for the one-call case.
+ */
+import { compileScenario } from "./engine";
+import { runIterations } from "./montecarlo";
+import type { Scenario } from "./schema";
+import { summarizeRun, type RunSummary } from "./summary";
+
+export { parseScenario, type ParseResult } from "./validate";
+export { compileScenario, simulate, type CompiledScenario, type SimResult, type Trace, type TracePacket, type PauseRecord } from "./engine";
+export { runIterations, mergePartials, type PartialRun } from "./montecarlo";
+export { summarizeRun, type RunSummary, type DateQuantiles } from "./summary";
+export { drawSamples, type IterationSamples } from "./samples";
+export { nearestRank, quantiles } from "./percentiles";
+export { HORIZON_DAYS } from "./calendar";
+export type { Scenario, ScenarioInput, FieldProblem } from "./schema";
+
+export function runScenario(scenario: Scenario, opts: { iterations: number; seed: string }): RunSummary {
+  const compiled = compileScenario(scenario);
+  return summarizeRun(compiled, runIterations(compiled, opts.seed, 0, opts.iterations));
+}

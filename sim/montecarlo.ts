@@ -1,0 +1,124 @@
+/**
+ * Monte Carlo runs (MODEL.md, "Monte Carlo"). Contract: `runIterations(compiled, seed, from, to)` simulates
+ * iterations from ≤ k < to, each on `drawSamples(scenario, seed, k)`, into typed arrays indexed by
+ * k − from. Because iteration k depends only on (scenario, seed, k), ranges run anywhere (a pool of workers)
+ * and joined by `mergePartials` equal one run bit for bit: closure hours are summed as integer
+ * micro-hours, so the sum does not depend on grouping. `shouldStop` ends a range early (`to` shrinks).
+ */
+import { simulate, type CompiledScenario } from "./engine";
+import { drawSamples } from "./samples";
+
+export interface PartialRun {
+  seed: string;
+  from: number;
+  to: number;
+  nOps: number;
+  nClosures: number;
+  days: number;
+  /** Overall finish, hours since 00:00 of startDate (Infinity = unfinished). */
+  finish: Float64Array;
+  /** Iteration-major: opFinish[(k − from) · nOps + op]. */
+  opFinish: Float64Array;
+  season1End: Float64Array;
+  weatherLostShifts: Float64Array;
+  discoveredHours: Float64Array;
+  /** Days of weather the engine read per iteration (the benchmark's floor draws as many). */
+  weatherDays: Float64Array;
+  /** Sum over iterations of round(closure hours · 10⁶) per closure and day: [c · days + d]. */
+  closureMicroHours: Float64Array;
+}
+
+function emptyPartial(c: CompiledScenario, seed: string, from: number, to: number): PartialRun {
+  const n = Math.max(0, to - from);
+  const nOps = c.ops.length;
+  const nClosures = c.closures.length;
+  const days = c.calendar.days;
+  return {
+    seed, from, to, nOps, nClosures, days,
+    finish: new Float64Array(n),
+    opFinish: new Float64Array(n * nOps),
+    season1End: new Float64Array(n),
+    weatherLostShifts: new Float64Array(n),
+    discoveredHours: new Float64Array(n),
+    weatherDays: new Float64Array(n),
+    closureMicroHours: new Float64Array(nClosures * days),
+  };
+}
+
+function truncate(p: PartialRun, done: number): PartialRun {
+  const nOps = p.nOps;
+  return {
+    ...p,
+    to: p.from + done,
+    finish: p.finish.slice(0, done),
+    opFinish: p.opFinish.slice(0, done * nOps),
+    season1End: p.season1End.slice(0, done),
+    weatherLostShifts: p.weatherLostShifts.slice(0, done),
+    discoveredHours: p.discoveredHours.slice(0, done),
+    weatherDays: p.weatherDays.slice(0, done),
+  };
+}
+
+export function runIterations(
+  compiled: CompiledScenario,
+  seed: string,
+  from: number,
+  to: number,
+  onProgress?: (done: number) => void,
+  shouldStop?: () => boolean,
+): PartialRun {
+  const out = emptyPartial(compiled, seed, from, to);
+  const nOps = out.nOps;
+  const days = out.days;
+  for (let k = from; k < to; k++) {
+    if (shouldStop && shouldStop()) return truncate(out, k - from);
+    const j = k - from;
+    const r = simulate(compiled, drawSamples(compiled.scenario, seed, k));
+    out.finish[j] = r.finish;
+    out.opFinish.set(r.opFinish, j * nOps);
+    out.season1End[j] = r.season1End;
+    out.weatherLostShifts[j] = r.weatherLostShifts;
+    out.discoveredHours[j] = r.discoveredHours;
+    out.weatherDays[j] = r.weatherDaysUsed;
+    const { first, last } = r.closureDayRange;
+    for (let c = 0; c < out.nClosures; c++)
+      for (let d = first; d <= last; d++) {
+        const h = r.closureDayHours[c * days + d];
+        if (h !== 0) out.closureMicroHours[c * days + d] += Math.round(h * 1e6);
+      }
+    if (onProgress) onProgress(j + 1);
+  }
+  return out;
+}
+
+/** Joins contiguous ranges (any order) into one; the result equals a single run over the union. */
+export function mergePartials(parts: PartialRun[]): PartialRun {
+  if (parts.length === 0) throw new Error("mergePartials needs at least one partial run");
+  const sorted = [...parts].sort((a, b) => a.from - b.from);
+  const first = sorted[0];
+  for (let i = 1; i < sorted.length; i++) {
+    const p = sorted[i];
+    if (p.from !== sorted[i - 1].to) throw new Error(`partial runs are not contiguous: ${sorted[i - 1].to} then ${p.from}`);
+    if (p.seed !== first.seed || p.nOps !== first.nOps || p.nClosures !== first.nClosures || p.days !== first.days)
+      throw new Error("partial runs come from different runs");
+  }
+  const cat = (key: "finish" | "opFinish" | "season1End" | "weatherLostShifts" | "discoveredHours" | "weatherDays") => {
+    const total = sorted.reduce((n, p) => n + p[key].length, 0);
+    const out = new Float64Array(total);
+    let at = 0;
+    for (const p of sorted) {
+      out.set(p[key], at);
+      at += p[key].length;
+    }
+    return out;
+  };
+  const closureMicroHours = new Float64Array(first.closureMicroHours.length);
+  for (const p of sorted) for (let i = 0; i < closureMicroHours.length; i++) closureMicroHours[i] += p.closureMicroHours[i];
+  return {
+    seed: first.seed, from: first.from, to: sorted[sorted.length - 1].to,
+    nOps: first.nOps, nClosures: first.nClosures, days: first.days,
+    finish: cat("finish"), opFinish: cat("opFinish"), season1End: cat("season1End"),
+    weatherLostShifts: cat("weatherLostShifts"), discoveredHours: cat("discoveredHours"), weatherDays: cat("weatherDays"),
+    closureMicroHours,
+  };
+}

@@ -1,0 +1,173 @@
+/**
+ * The JSON summary of a run (plain objects and numbers only: it crosses workers, the API and the database).
+ * Contract: percentiles are nearest-rank (./percentiles); dates are local ISO (`YYYY-MM-DD`, or
+ * `YYYY-MM-DDTHH:mm` where a time is useful); "unfinished" marks a percentile reached only by iterations
+ * that hit the engine's horizon. The histogram (≤ 60 bins) and CDF (≤ 200 points) are computed here, so a
+ * chart only draws. The representative iteration is re-simulated with its trace.
+ */
+import { formatDayNumber, formatHours, parseIsoDate } from "./dates";
+import { simulate, type CompiledScenario, type Trace } from "./engine";
+import type { PartialRun } from "./montecarlo";
+import { nearestRank, sortedCopy } from "./percentiles";
+import { drawSamples } from "./samples";
+
+export type DateQuantiles = { p10: string; p50: string; p80: string; p90: string };
+
+export interface RunSummary {
+  scenarioName: string;
+  seed: string;
+  iterations: number;
+  unfinishedIterations: number;
+  startDate: string;
+  finish: DateQuantiles;
+  finishAt: DateQuantiles;
+  operations: { id: string; name: string; finish: DateQuantiles }[];
+  histogram: { from: string; to: string; count: number }[];
+  cdf: { date: string; p: number }[];
+  target: { date: string; probability: number } | null;
+  weatherLostShifts: { p50: number; p80: number };
+  discoveredHours: { p50: number; p80: number };
+  closureHours: {
+    byClosure: { closure: string; name: string; days: { date: string; meanHours: number }[] }[];
+    totalByClosure: Record<string, number>;
+  };
+  /** |P80(first half) − P80(second half)| in days; null when it cannot be computed. */
+  convergenceDays: number | null;
+  season1End: { p50: string } | null;
+  /** The iteration whose finish is nearest the P50 (lowest index on ties), re-simulated with its trace. */
+  representative: { iteration: number; finish: string; finishHours: number; trace: Trace };
+}
+
+const UNFINISHED = "unfinished";
+
+export function summarizeRun(compiled: CompiledScenario, partial: PartialRun): RunSummary {
+  const s = compiled.scenario;
+  const day0 = compiled.calendar.startDay;
+  const n = partial.finish.length;
+  if (n === 0) throw new Error("summarizeRun needs at least one iteration");
+  const date = (h: number) => (h < Infinity ? formatDayNumber(day0 + Math.floor(h / 24)) : UNFINISHED);
+  const dateTime = (h: number) => (h < Infinity ? formatHours(day0, h) : UNFINISHED);
+  const sorted = sortedCopy(partial.finish);
+  const q = (arr: Float64Array, f: (h: number) => string): DateQuantiles => ({
+    p10: f(nearestRank(arr, 0.1)), p50: f(nearestRank(arr, 0.5)), p80: f(nearestRank(arr, 0.8)), p90: f(nearestRank(arr, 0.9)),
+  });
+
+  const operations = compiled.ops.map((op, oi) => {
+    const col = new Float64Array(n);
+    for (let j = 0; j < n; j++) col[j] = partial.opFinish[j * partial.nOps + oi];
+    return { id: op.id, name: s.operations[oi].name, finish: q(col.sort(), date) };
+  });
+
+  let unfinishedIterations = 0;
+  for (let j = 0; j < n; j++) if (!(partial.finish[j] < Infinity)) unfinishedIterations++;
+
+  const target = s.targetDate
+    ? (() => {
+        const limit = 24 * (parseIsoDate(s.targetDate!) - day0 + 1);
+        let met = 0;
+        for (let j = 0; j < n; j++) if (partial.finish[j] <= limit) met++;
+        return { date: s.targetDate!, probability: n ? met / n : 0 };
+      })()
+    : null;
+
+  const lost = sortedCopy(partial.weatherLostShifts);
+  const disc = sortedCopy(partial.discoveredHours);
+  const p50 = nearestRank(sorted, 0.5);
+  let convergenceDays: number | null = null;
+  if (n >= 2) {
+    const half = Math.floor(n / 2);
+    const a = nearestRank(sortedCopy(partial.finish.subarray(0, half)), 0.8);
+    const b = nearestRank(sortedCopy(partial.finish.subarray(half)), 0.8);
+    convergenceDays = a < Infinity && b < Infinity ? Math.abs(a - b) / 24 : null;
+  }
+
+  let season1End: { p50: string } | null = null;
+  if (s.calendar.season.plan === "two") {
+    const e = sortedCopy(Array.from(partial.season1End).filter((x) => !Number.isNaN(x)));
+    season1End = e.length ? { p50: dateTime(nearestRank(e, 0.5)) } : null;
+  }
+
+  return {
+    scenarioName: s.name,
+    seed: partial.seed,
+    iterations: n,
+    unfinishedIterations,
+    startDate: s.startDate,
+    finish: q(sorted, date),
+    finishAt: q(sorted, dateTime),
+    operations,
+    histogram: histogram(sorted, day0),
+    cdf: cdf(sorted, dateTime),
+    target,
+    weatherLostShifts: { p50: nearestRank(lost, 0.5), p80: nearestRank(lost, 0.8) },
+    discoveredHours: { p50: nearestRank(disc, 0.5), p80: nearestRank(disc, 0.8) },
+    closureHours: closureHours(compiled, partial, day0),
+    convergenceDays,
+    season1End,
+    representative: representative(compiled, partial, p50, dateTime),
+  };
+}
+
+function histogram(sorted: Float64Array, day0: number): RunSummary["histogram"] {
+  const finished = sorted.filter((x) => x < Infinity);
+  if (finished.length === 0) return [];
+  const lo = Math.floor(finished[0] / 24);
+  const hi = Math.floor(finished[finished.length - 1] / 24);
+  const width = Math.max(1, Math.ceil((hi - lo + 1) / 60));
+  const bins = Math.ceil((hi - lo + 1) / width);
+  const counts = new Array<number>(bins).fill(0);
+  for (const f of finished) counts[Math.floor((Math.floor(f / 24) - lo) / width)]++;
+  return counts.map((count, b) => ({
+    from: formatDayNumber(day0 + lo + b * width),
+    to: formatDayNumber(day0 + lo + (b + 1) * width - 1),
+    count,
+  }));
+}
+
+function cdf(sorted: Float64Array, dateTime: (h: number) => string): RunSummary["cdf"] {
+  const n = sorted.length;
+  const m = Math.min(200, n);
+  const out: RunSummary["cdf"] = [];
+  for (let j = 1; j <= m; j++) {
+    const idx = Math.ceil((j * n) / m) - 1;
+    if (!(sorted[idx] < Infinity)) break;
+    out.push({ date: dateTime(sorted[idx]), p: (idx + 1) / n });
+  }
+  return out;
+}
+
+function closureHours(c: CompiledScenario, p: PartialRun, day0: number): RunSummary["closureHours"] {
+  const n = p.finish.length || 1;
+  const totalByClosure: Record<string, number> = {};
+  const byClosure = c.closures.map((id, ci) => {
+    const days: { date: string; meanHours: number }[] = [];
+    let total = 0;
+    for (let d = 0; d < p.days; d++) {
+      const micro = p.closureMicroHours[ci * p.days + d];
+      if (micro === 0) continue;
+      const meanHours = micro / 1e6 / n;
+      total += meanHours;
+      days.push({ date: formatDayNumber(day0 + d), meanHours: Math.round(meanHours * 1000) / 1000 });
+    }
+    totalByClosure[id] = Math.round(total * 100) / 100;
+    return { closure: id, name: c.scenario.calendar.closures[ci].name, days };
+  });
+  return { byClosure, totalByClosure };
+}
+
+function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): RunSummary["representative"] {
+  const n = p.finish.length;
+  let best = 0;
+  let bestGap = Infinity;
+  for (let j = 0; j < n; j++) {
+    const f = p.finish[j];
+    const gap = f === p50 ? 0 : Math.abs(f - p50);
+    if (gap < bestGap) {
+      bestGap = gap;
+      best = j;
+    }
+  }
+  const k = p.from + best;
+  const r = simulate(c, drawSamples(c.scenario, p.seed, k), { trace: true });
+  return { iteration: k, finish: dateTime(r.finish), finishHours: r.finish, trace: r.trace! };
+}
