@@ -26,3 +26,16 @@ export const shareLinkSchema = z.object({
   label: z.string().max(120).default(""),
   expiresInDays: z.number().int().min(1, "must be at least 1 day").max(365, "must be at most 365 days"),
 });
+
+export const MAX_BROWSER_ITERATIONS = 50_000;
+export const MAX_SERVER_ITERATIONS = 5_000;
+
+export const runWriteSchema = z.object({
+  seed: z.string().trim().min(1, "must not be empty").max(60),
+  iterations: z.number().int("must be a whole number").min(10, "must be at least 10").max(MAX_BROWSER_ITERATIONS, `must be at most ${MAX_BROWSER_ITERATIONS}`),
+  /** The version the run was computed from; a run of an older version is refused rather than mislabelled. */
+  scenarioVersion: z.number().int().min(1).optional(),
+  /** A summary computed in the browser's worker pool; the server re-checks it before storing. */
+  summary: z.record(z.string(), z.unknown()).optional(),
+  durationMs: z.number().int().min(0).max(86_400_000).optional(),
+});

@@ -1,0 +1,138 @@
+"use client";
+import { useState } from "react";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { api, ApiError } from "@/lib/api-client";
+import { ROLE_LABELS, type ProjectRole } from "@/lib/permissions";
+
+interface Member {
+  userId: string;
+  email: string;
+  name: string;
+  title: string;
+  role: ProjectRole;
+}
+
+const ROLE_HELP: Record<ProjectRole, string> = {
+  admin: "manages members; everything an engineer can do",
+  engineer: "edits, runs and shares scenarios; records progress",
+  scheduler: "edits, runs and shares scenarios",
+  inspector: "reads plans; records field progress",
+  viewer: "reads and compares (owner executives)",
+};
+
+export function MembersPanel({ projectId, selfId }: { projectId: string; selfId: string }) {
+  const qc = useQueryClient();
+  const key = ["projects", projectId, "members"];
+  const members = useQuery({ queryKey: key, queryFn: () => api<{ members: Member[] }>(`/api/projects/${projectId}/members`).then((r) => r.members) });
+  const [email, setEmail] = useState("");
+  const [role, setRole] = useState<ProjectRole>("viewer");
+  const refresh = () => qc.invalidateQueries({ queryKey: key });
+  const add = useMutation({ mutationFn: (v: { email: string; role: ProjectRole }) => api(`/api/projects/${projectId}/members`, { method: "POST", body: v }), onSuccess: () => (setEmail(""), refresh()) });
+  const remove = useMutation({ mutationFn: (userId: string) => api(`/api/projects/${projectId}/members/${userId}`, { method: "DELETE" }), onSuccess: refresh });
+  const addError = add.error instanceof ApiError ? add.error : null;
+
+  return (
+    <div className="grid gap-5 lg:grid-cols-[minmax(0,1.5fr)_minmax(0,1fr)]">
+      <section className="card overflow-x-auto p-0" aria-labelledby="members-heading">
+        <h2 id="members-heading" className="px-5 pt-4">
+          People on this project
+        </h2>
+        {members.isPending ? (
+          <p className="px-5 py-4 text-sm text-muted">Loading…</p>
+        ) : members.isError ? (
+          <p role="alert" className="px-5 py-4 text-sm text-bad">
+            {members.error.message}
+          </p>
+        ) : (
+          <table className="mt-3 w-full min-w-[560px] border-collapse">
+            <thead>
+              <tr>
+                <th className="table-head">Person</th>
+                <th className="table-head">Role</th>
+                <th className="table-head">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {members.data.map((m) => (
+                <tr key={m.userId}>
+                  <td className="table-cell">
+                    <span className="font-medium">{m.name}</span>
+                    <span className="block text-xs text-muted">
+                      {m.email}
+                      {m.title ? ` · ${m.title}` : ""}
+                    </span>
+                  </td>
+                  <td className="table-cell">
+                    <label className="sr-only" htmlFor={`role-${m.userId}`}>
+                      Role of {m.name}
+                    </label>
+                    <select id={`role-${m.userId}`} className="field-input mt-0 w-40" value={m.role} disabled={add.isPending} onChange={(e) => add.mutate({ email: m.email, role: e.target.value as ProjectRole })}>
+                      {Object.entries(ROLE_LABELS).map(([r, label]) => (
+                        <option key={r} value={r}>
+                          {label}
+                        </option>
+                      ))}
+                    </select>
+                  </td>
+                  <td className="table-cell text-right">
+                    {m.userId !== selfId && (
+                      <button type="button" className="btn-danger" onClick={() => window.confirm(`Remove ${m.name} from this project?`) && remove.mutate(m.userId)}>
+                        Remove
+                      </button>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+        {remove.isError && (
+          <p role="alert" className="px-5 pb-4 text-sm text-bad">
+            {remove.error.message}
+          </p>
+        )}
+      </section>
+      <section className="card" aria-labelledby="add-member-heading">
+        <h2 id="add-member-heading">Add a person</h2>
+        <p className="mt-1 text-sm text-muted">Add someone who already has a Pourline account.</p>
+        <form
+          className="mt-4 space-y-4"
+          onSubmit={(e) => {
+            e.preventDefault();
+            add.mutate({ email, role });
+          }}
+        >
+          <div>
+            <label htmlFor="member-email" className="field-label">
+              E-mail
+            </label>
+            <input id="member-email" type="email" className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} required aria-invalid={!!addError?.fields.find((f) => f.path === "email")} />
+            {addError?.fields.find((f) => f.path === "email") && <p className="field-error">E-mail {addError.fields.find((f) => f.path === "email")!.message}</p>}
+          </div>
+          <div>
+            <label htmlFor="member-role" className="field-label">
+              Role
+            </label>
+            <select id="member-role" className="field-input" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
+              {Object.entries(ROLE_LABELS).map(([r, label]) => (
+                <option key={r} value={r}>
+                  {label} — {ROLE_HELP[r as ProjectRole]}
+                </option>
+              ))}
+            </select>
+          </div>
+          <button type="submit" className="btn-primary" disabled={add.isPending}>
+            Add to project
+          </button>
+          {addError && !addError.fields.length && (
+            <p role="alert" className="field-error">
+              {addError.message}
+            </p>
+          )}
+        </form>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,34 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { requireProject } from "@/lib/server/access";
+import { listProjectScenarios } from "@db/queries/scenarios";
+import { NewScenarioForm } from "./new-scenario-form";
+
+export const metadata: Metadata = { title: "New scenario" };
+
+export default async function NewScenarioPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const { project } = await requireProject(projectId, "editScenario").catch((e) => {
+    if (e instanceof AppError && (e.code === "not_found" || e.code === "forbidden")) notFound();
+    throw e;
+  });
+  const existing = await listProjectScenarios({ projectId });
+  return (
+    <div className="mx-auto max-w-2xl space-y-5">
+      <nav aria-label="Breadcrumb" className="text-sm text-muted">
+        <Link href={`/projects/${project.id}`} className="hover:text-ink">
+          {project.name}
+        </Link>{" "}
+        / <span className="text-ink">New scenario</span>
+      </nav>
+      <h1>New scenario</h1>
+      <NewScenarioForm
+        projectId={project.id}
+        deck={{ deckLengthFt: project.deckLengthFt, startStationFt: project.startStationFt, lanes: project.lanes }}
+        existing={existing.map((s) => ({ id: s.id, name: s.name }))}
+      />
+    </div>
+  );
+}

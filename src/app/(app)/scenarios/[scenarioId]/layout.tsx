@@ -1,0 +1,47 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { getProject } from "@db/queries/projects";
+import { RoleBadge } from "@/components/role-badge";
+import { can } from "@/lib/permissions";
+import { formatDateTime } from "@/lib/format";
+import { ScenarioTabs } from "./scenario-tabs";
+
+export default async function ScenarioLayout({ children, params }: { children: React.ReactNode; params: Promise<{ scenarioId: string }> }) {
+  const { scenarioId } = await params;
+  const access = await requireScenario(scenarioId, "read").catch((e) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  const { scenario, role } = access;
+  const project = await getProject({ id: scenario.projectId });
+  return (
+    <div className="space-y-5">
+      <nav aria-label="Breadcrumb" className="text-sm text-muted">
+        <Link href="/projects" className="hover:text-ink">
+          Projects
+        </Link>{" "}
+        /{" "}
+        <Link href={`/projects/${scenario.projectId}`} className="hover:text-ink">
+          {project?.name}
+        </Link>{" "}
+        / <span className="text-ink">{scenario.name}</span>
+      </nav>
+      <header className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <div className="flex flex-wrap items-center gap-3">
+            <h1 data-testid="scenario-name">{scenario.name}</h1>
+            <RoleBadge role={role} />
+          </div>
+          <p className="mt-1 text-sm text-muted">
+            Version {scenario.version} · last saved {formatDateTime(scenario.updatedAt)} by {scenario.updatedByName}
+            {scenario.changeNote ? ` — ${scenario.changeNote}` : ""}
+          </p>
+        </div>
+      </header>
+      <ScenarioTabs scenarioId={scenario.id} canShare={can(role, "shareScenario")} />
+      {children}
+    </div>
+  );
+}

@@ -1,0 +1,55 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { getLatestRun } from "@db/queries/runs";
+import { can } from "@/lib/permissions";
+import { formatDateTime } from "@/lib/format";
+import type { RunSummary } from "@sim/index";
+import { ResultsView } from "@/components/results";
+import { RunPanel } from "@/components/run/run-panel";
+import { SafetyNote } from "@/components/safety-note";
+
+export const metadata: Metadata = { title: "Outlook" };
+
+export default async function OutlookPage({ params }: { params: Promise<{ scenarioId: string }> }) {
+  const { scenarioId } = await params;
+  const { scenario, role } = await requireScenario(scenarioId, "read").catch((e) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  const run = await getLatestRun({ scenarioId });
+  const stale = !!run && run.scenarioVersion !== scenario.version;
+  return (
+    <div className="space-y-5">
+      <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario")} />
+      {run ? (
+        <>
+          {stale && (
+            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="stale-run" role="status">
+              This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}). Run it again for a current
+              forecast.
+            </p>
+          )}
+          <p className="text-sm text-muted">
+            Latest run: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”, {formatDateTime(run.createdAt)}
+            {run.createdByName ? ` by ${run.createdByName}` : ""}.
+          </p>
+          <ResultsView
+            summary={run.results as unknown as RunSummary}
+            definition={scenario.definition}
+            run={{ id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale }}
+          />
+        </>
+      ) : (
+        <div className="card text-center" data-testid="no-run">
+          <h2>No forecast yet</h2>
+          <p className="mt-2 text-sm text-muted">
+            {can(role, "runScenario") ? "Run the scenario above to see its finish-date confidence and time–distance chart." : "An engineer or scheduler has not run this scenario yet."}
+          </p>
+        </div>
+      )}
+      <SafetyNote />
+    </div>
+  );
+}

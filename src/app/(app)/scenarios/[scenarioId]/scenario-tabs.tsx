@@ -1,0 +1,33 @@
+"use client";
+import Link from "next/link";
+import { usePathname } from "next/navigation";
+
+export function ScenarioTabs({ scenarioId, canShare }: { scenarioId: string; canShare: boolean }) {
+  const path = usePathname();
+  const base = `/scenarios/${scenarioId}`;
+  const tabs = [
+    { href: base, label: "Outlook" },
+    { href: `${base}/plan`, label: "Plan" },
+    ...(canShare ? [{ href: `${base}/share`, label: "Share" }] : []),
+  ];
+  return (
+    <nav aria-label="Scenario sections" className="border-b border-line">
+      <ul className="-mb-px flex gap-1">
+        {tabs.map((t) => {
+          const active = path === t.href;
+          return (
+            <li key={t.href}>
+              <Link
+                href={t.href}
+                aria-current={active ? "page" : undefined}
+                className={`inline-block border-b-2 px-4 py-2 text-sm font-medium ${active ? "border-brand-600 text-brand-700" : "border-transparent text-muted hover:text-ink"}`}
+              >
+                {t.label}
+              </Link>
+            </li>
+          );
+        })}
+      </ul>
+    </nav>
+  );
+}

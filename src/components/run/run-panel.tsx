@@ -1,0 +1,112 @@
+"use client";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import { useEnginePool } from "./use-engine-pool";
+
+const ITERATION_CHOICES = [1_000, 2_000, 5_000, 10_000, 20_000];
+
+function formatSeconds(s: number | null) {
+  if (s == null || !Number.isFinite(s)) return "estimating…";
+  if (s < 1) return "under a second left";
+  if (s < 90) return `about ${Math.round(s)} s left`;
+  return `about ${Math.round(s / 60)} min left`;
+}
+
+/** Start a Monte Carlo run in the browser's workers, watch it, cancel it, and store the result with the scenario. */
+export function RunPanel({ scenarioId, version, definition, canRun }: { scenarioId: string; version: number; definition: unknown; canRun: boolean }) {
+  const router = useRouter();
+  const qc = useQueryClient();
+  const pool = useEnginePool();
+  const [iterations, setIterations] = useState(2_000);
+  const [seed, setSeed] = useState("pourline");
+  const save = useMutation({
+    mutationFn: (body: unknown) => api<{ id: string }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
+    onSuccess: () => {
+      qc.invalidateQueries({ queryKey: ["scenarios", scenarioId] });
+      router.refresh();
+    },
+  });
+
+  if (!canRun) return null;
+  const running = pool.state.phase === "running";
+  const progress = pool.state.phase === "running" ? pool.state.progress : null;
+  const pct = progress ? Math.floor((progress.done / progress.total) * 100) : pool.state.phase === "done" ? 100 : 0;
+
+  async function start() {
+    save.reset();
+    const result = await pool.start(definition, iterations, seed);
+    if (result) save.mutate({ seed, iterations, scenarioVersion: version, summary: result.summary, durationMs: result.durationMs });
+  }
+
+  return (
+    <section className="card" aria-labelledby="run-heading">
+      <div className="flex flex-wrap items-end gap-4">
+        <h2 id="run-heading" className="mr-auto">
+          Run the forecast
+        </h2>
+        <div>
+          <label htmlFor="run-iterations" className="field-label">
+            Iterations
+          </label>
+          <select id="run-iterations" className="field-input w-32" value={iterations} disabled={running} onChange={(e) => setIterations(Number(e.target.value))}>
+            {ITERATION_CHOICES.map((n) => (
+              <option key={n} value={n}>
+                {n.toLocaleString("en-US")}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="run-seed" className="field-label">
+            Seed
+          </label>
+          <input id="run-seed" className="field-input w-32" value={seed} disabled={running} maxLength={60} onChange={(e) => setSeed(e.target.value)} />
+        </div>
+        {running ? (
+          <button type="button" className="btn-secondary" onClick={pool.cancel} data-testid="cancel-run">
+            Cancel
+          </button>
+        ) : (
+          <button type="button" className="btn-primary" onClick={start} disabled={!seed.trim() || save.isPending} data-testid="start-run">
+            Run {iterations.toLocaleString("en-US")} iterations
+          </button>
+        )}
+      </div>
+      {(running || pool.state.phase === "done") && (
+        <div className="mt-4">
+          <div
+            role="progressbar"
+            aria-label="Run progress"
+            aria-valuemin={0}
+            aria-valuemax={100}
+            aria-valuenow={pct}
+            data-testid="run-progress"
+            className="h-3 w-full overflow-hidden rounded-full bg-paper ring-1 ring-line"
+          >
+            <div className="h-full bg-brand-600 transition-[width] duration-150" style={{ width: `${pct}%` }} />
+          </div>
+          <p className="mt-2 text-sm text-muted" aria-live="polite">
+            {progress
+              ? `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSeconds(progress.secondsLeft)} · ${pool.state.phase === "running" ? pool.state.workers : 1} workers`
+              : pool.state.phase === "done"
+                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version." : ""}`
+                : ""}
+          </p>
+        </div>
+      )}
+      {pool.state.phase === "cancelled" && <p className="mt-3 text-sm text-muted">Run cancelled; nothing was saved.</p>}
+      {pool.state.phase === "failed" && (
+        <p role="alert" className="mt-3 text-sm text-bad">
+          The run failed: {pool.state.message}
+        </p>
+      )}
+      {save.isError && (
+        <p role="alert" className="mt-3 text-sm text-bad">
+          The run finished but could not be saved: {save.error.message}
+        </p>
+      )}
+    </section>
+  );
+}

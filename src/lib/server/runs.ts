@@ -1,0 +1,59 @@
+import "server-only";
+import type { z } from "zod";
+import { compileScenario, runIterations, summarizeRun, type RunSummary } from "@sim/index";
+import { saveRun } from "@db/queries/runs";
+import type { ScenarioDetail } from "@db/queries/scenarios";
+import { headlineOf, inputsHash } from "@/lib/run-record";
+import { MAX_SERVER_ITERATIONS, type runWriteSchema } from "@/lib/schemas";
+import { AppError, badRequest } from "./errors";
+import { validateDefinition } from "./scenario-input";
+
+type RunBody = z.output<typeof runWriteSchema>;
+
+/**
+ * A browser-computed summary is accepted only if it is what the engine would have produced: the server
+ * re-simulates the representative iteration with the same seed and compares its finish and the headline
+ * figures' shape. Same scenario + seed ⇒ the same numbers, so an honest client always passes.
+ */
+function checkClientSummary(compiled: ReturnType<typeof compileScenario>, body: RunBody, summary: RunSummary) {
+  if (summary.iterations !== body.iterations) throw badRequest([{ path: "summary.iterations", message: "must equal iterations" }]);
+  if (summary.seed !== body.seed) throw badRequest([{ path: "summary.seed", message: "must equal seed" }]);
+  const k = summary.representative?.iteration;
+  if (typeof k !== "number" || k < 0 || k >= body.iterations) throw badRequest([{ path: "summary.representative.iteration", message: "is missing or out of range" }]);
+  const one = runIterations(compiled, body.seed, k, k + 1);
+  const expected = one.finish[0];
+  if (Math.abs(expected - summary.representative.finishHours) > 1e-6) {
+    throw badRequest([{ path: "summary", message: "does not match the engine's result for this scenario and seed; run it again" }], "The run does not match this scenario version.");
+  }
+}
+
+export async function recordRun({ scenario, body, userId }: { scenario: ScenarioDetail; body: RunBody; userId: string }) {
+  if (body.scenarioVersion !== undefined && body.scenarioVersion !== scenario.version) {
+    throw new AppError("conflict", `The scenario was saved again (version ${scenario.version}) while this ran on version ${body.scenarioVersion}. Run it again.`);
+  }
+  const parsed = validateDefinition(scenario.definition);
+  const compiled = compileScenario(parsed);
+  const started = Date.now();
+  let summary: RunSummary;
+  if (body.summary) {
+    summary = body.summary as unknown as RunSummary;
+    checkClientSummary(compiled, body, summary);
+  } else {
+    if (body.iterations > MAX_SERVER_ITERATIONS) {
+      throw badRequest([{ path: "iterations", message: `must be at most ${MAX_SERVER_ITERATIONS} when the server computes the run; larger runs go through the browser` }]);
+    }
+    summary = summarizeRun(compiled, runIterations(compiled, body.seed, 0, body.iterations));
+  }
+  const row = await saveRun({
+    scenarioId: scenario.id,
+    scenarioVersion: scenario.version,
+    inputsHash: inputsHash(scenario.definition, body.seed, body.iterations),
+    seed: body.seed,
+    iterations: body.iterations,
+    summary: headlineOf(summary),
+    results: summary as unknown as Record<string, unknown>,
+    durationMs: body.durationMs ?? Date.now() - started,
+    userId,
+  });
+  return { id: row.id, createdAt: row.createdAt, scenarioVersion: scenario.version, headline: headlineOf(summary) };
+}
