@@ -1,0 +1,168 @@
+/**
+ * The workbench as its users use it, in Debian's Chromium: a scheduler edits a rate, saves, runs 2,000
+ * iterations and sees the curves; two people edit one scenario and the second save meets the conflict screen;
+ * the owner executive compares two seeded scenarios; a share link opens with no session and shows the same P80.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, BrowserContext, Page } from "playwright-core";
+import { APP_URL, call, demoEmail, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+
+let browser: Browser;
+let projectId: string;
+
+beforeAll(async () => {
+  browser = await launch();
+  projectId = (await kestrelProject(await signInAs("scheduler"))).id;
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signedIn(role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport: { width, height: 900 } });
+  const page = await context.newPage();
+  await signInPage(page, demoEmail(role));
+  await page.waitForURL(`${APP_URL}/projects`);
+  return { context, page };
+}
+
+/** A fresh copy of the main demo scenario, so each test edits its own. */
+async function freshVariant(name: string): Promise<string> {
+  const cookie = await signInAs("scheduler");
+  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
+  const main = list.body.scenarios.find((s: { name: string }) => /two seasons/i.test(s.name)) ?? list.body.scenarios[0];
+  const res = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name } });
+  expect(res.status).toBe(201);
+  return res.body.id;
+}
+
+async function editPlacementMode(page: Page, value: string) {
+  await page.getByTestId("section-crews").click();
+  const mode = page.locator('[id="operations.4.rate.dist.mode"]');
+  await mode.waitFor();
+  await mode.fill(value);
+}
+
+describe("workbench", () => {
+  it("a scheduler edits a rate, saves, runs 2,000 iterations and sees the confidence curve and time–distance chart", async () => {
+    const id = await freshVariant("E2E rate edit");
+    const { context, page } = await signedIn("scheduler");
+    await page.goto(`${APP_URL}/scenarios/${id}/plan`);
+    await page.getByTestId("section-sequence").waitFor();
+    await screenshot(page, "plan-sequence");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await editPlacementMode(page, "420");
+    await screenshot(page, "plan-crews");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await page.getByTestId("save-scenario").click();
+    await expect.poll(async () => (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.version, { timeout: 15_000 }).toBe(2);
+    const saved = (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.definition;
+    expect(saved.operations[4].rate.dist.mode).toBe(420);
+
+    await page.goto(`${APP_URL}/scenarios/${id}`);
+    await page.getByTestId("no-run").waitFor();
+    await page.getByLabel("Iterations").selectOption("2000");
+    await page.getByTestId("start-run").click();
+    const bar = page.getByTestId("run-progress");
+    await bar.waitFor();
+    await expect.poll(() => bar.getAttribute("aria-valuenow"), { timeout: 90_000 }).toBe("100");
+    await page.getByText("Saved with this version.").waitFor({ timeout: 30_000 });
+    await page.getByTestId("confidence-curve").waitFor({ timeout: 30_000 });
+    await page.getByTestId("time-distance-chart").waitFor();
+    const runs = await call(`/api/scenarios/${id}/runs`, { cookie: await signInAs("scheduler") });
+    expect(runs.body.runs[0].iterations).toBe(2000);
+    expect(runs.body.runs[0].scenarioVersion).toBe(2);
+    expect(runs.body.runs[0].stale).toBe(false);
+    await screenshot(page, "outlook");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await context.close();
+  });
+
+  it("the outlook stays usable at tablet width (768 px)", async () => {
+    const { context, page } = await signedIn("inspector", 768);
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("inspector") });
+    await page.goto(`${APP_URL}/scenarios/${list.body.scenarios.at(-1).id}`);
+    await page.getByTestId("time-distance-chart").waitFor();
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(1);
+    // An inspector reads: no run button.
+    expect(await page.getByTestId("start-run").count()).toBe(0);
+    await screenshot(page, "outlook-tablet");
+    await context.close();
+  });
+
+  it("two people edit one scenario: the second save gets the conflict screen and nothing is overwritten", async () => {
+    const id = await freshVariant("E2E conflict");
+    const a = await signedIn("scheduler");
+    const b = await signedIn("engineer");
+    await a.page.goto(`${APP_URL}/scenarios/${id}/plan`);
+    await b.page.goto(`${APP_URL}/scenarios/${id}/plan`);
+    await editPlacementMode(a.page, "410");
+    await editPlacementMode(b.page, "390");
+    await a.page.getByTestId("save-scenario").click();
+    await expect.poll(async () => (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.version, { timeout: 15_000 }).toBe(2);
+    await b.page.getByTestId("save-scenario").click();
+    const dialog = b.page.getByTestId("conflict-dialog");
+    await dialog.waitFor({ timeout: 15_000 });
+    await expect.poll(() => dialog.textContent()).toContain("410");
+    await screenshot(b.page, "conflict");
+    expect(await seriousA11yViolations(b.page)).toEqual([]);
+    const now = (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario;
+    expect(now.version).toBe(2);
+    expect(now.definition.operations[4].rate.dist.mode).toBe(410);
+    await a.context.close();
+    await b.context.close();
+  });
+
+  it("the owner executive compares two seeded scenarios", async () => {
+    const { context, page } = await signedIn("viewer");
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("viewer") });
+    const seeded = list.body.scenarios.filter((s: { name: string }) => !s.name.startsWith("E2E") && !/^(by |read me|update me|copy me|runs|run me|links|share me|revoke|a variant|updated|Concurrency|Validation)/.test(s.name));
+    const ids = seeded.slice(0, 2).map((s: { id: string }) => s.id);
+    await page.goto(`${APP_URL}/projects/${projectId}/compare?ids=${ids.join(",")}`);
+    await page.getByTestId("compare-curves").waitFor({ timeout: 20_000 });
+    const table = page.getByTestId("compare-table");
+    await table.waitFor();
+    for (const s of seeded.slice(0, 2)) expect(await table.textContent()).toContain(s.name);
+    // A viewer reads and compares; no variant button.
+    expect(await page.getByRole("button", { name: /variant/i }).count()).toBe(0);
+    await screenshot(page, "compare");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await context.close();
+  });
+
+  it("a share link opens in a fresh context without a session and shows the same P80 date; revoked, it is gone", async () => {
+    const { context, page } = await signedIn("scheduler");
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("scheduler") });
+    const target = list.body.scenarios.find((s: { runId: string | null; name: string }) => s.runId && /single season/i.test(s.name)) ?? list.body.scenarios.find((s: { runId: string | null }) => s.runId);
+    await page.goto(`${APP_URL}/scenarios/${target.id}`);
+    const p80 = (await page.getByTestId("p80-date").first().textContent())!.trim();
+    await page.goto(`${APP_URL}/scenarios/${target.id}/share`);
+    await page.getByLabel("Label (who it is for)").fill("Public information office");
+    await page.getByTestId("create-share-link").click();
+    const url = await page.getByTestId("share-link-url").inputValue();
+    expect(url).toMatch(/\/shared\/[A-Za-z0-9_-]{43}$/);
+    await screenshot(page, "share");
+
+    const anonymous = await browser.newContext();
+    const pub = await anonymous.newPage();
+    await pub.goto(url);
+    expect((await pub.getByTestId("p80-date").first().textContent())!.trim()).toBe(p80);
+    expect(await pub.getByText("Sign out").count()).toBe(0);
+    await screenshot(pub, "shared-public");
+    expect(await seriousA11yViolations(pub)).toEqual([]);
+
+    // The visitor has no session: every write is refused.
+    const token = url.split("/shared/")[1];
+    const shared = await call(`/api/shared/${token}`);
+    expect(shared.status).toBe(200);
+
+    await page.getByRole("button", { name: /Revoke link Public information office/ }).click();
+    await expect.poll(async () => (await call(`/api/shared/${token}`)).status, { timeout: 10_000 }).toBe(404);
+    const gone = await pub.goto(url);
+    expect(gone?.status()).toBe(404);
+    await anonymous.close();
+    await context.close();
+  });
+});

@@ -1,0 +1,78 @@
+/** Runs: stored with the scenario version they came from, checked against the engine, stale after an edit. */
+import { beforeAll, describe, expect, it } from "vitest";
+import { call, kestrelProject, signInAs } from "../helpers/app";
+import { parseScenario, runScenario } from "../../sim/index";
+
+let scheduler: string;
+let projectId: string;
+let base: Record<string, unknown>;
+
+beforeAll(async () => {
+  scheduler = await signInAs("scheduler");
+  projectId = (await kestrelProject(scheduler)).id;
+  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: scheduler });
+  base = (await call(`/api/scenarios/${list.body.scenarios[0].id}`, { cookie: scheduler })).body.scenario.definition;
+});
+
+async function fresh(name: string) {
+  const res = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie: scheduler, body: { name, definition: { ...base, name } } });
+  expect(res.status).toBe(201);
+  return res.body as { id: string; version: number };
+}
+
+describe("runs", () => {
+  it("a browser-computed summary is stored when the engine agrees, with its version", async () => {
+    const s = await fresh("Run from browser");
+    const parsed = parseScenario({ ...base, name: "Run from browser" });
+    if (!parsed.ok) throw new Error("base scenario invalid");
+    const summary = runScenario(parsed.scenario, { iterations: 40, seed: "b" });
+    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "b", iterations: 40, scenarioVersion: s.version, summary, durationMs: 10 } });
+    expect(res.status).toBe(201);
+    expect(res.body.headline.finish.p80).toBe(summary.finish.p80);
+    const got = await call(`/api/runs/${res.body.id}`, { cookie: scheduler });
+    expect(got.body.run.results.finish).toEqual(summary.finish);
+    expect(got.body.run.stale).toBe(false);
+  });
+
+  it("a summary that the engine does not reproduce is refused and nothing is stored", async () => {
+    const s = await fresh("Tampered run");
+    const parsed = parseScenario({ ...base, name: "Tampered run" });
+    if (!parsed.ok) throw new Error("base scenario invalid");
+    const summary = runScenario(parsed.scenario, { iterations: 40, seed: "t" });
+    summary.representative.finishHours -= 240;
+    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "t", iterations: 40, summary } });
+    expect(res.status).toBe(400);
+    expect((await call(`/api/scenarios/${s.id}/runs`, { cookie: scheduler })).body.runs).toHaveLength(0);
+  });
+
+  it("the server computes a run when no summary is sent, and the same seed gives the same result as the engine", async () => {
+    const s = await fresh("Server run");
+    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "srv", iterations: 30 } });
+    expect(res.status).toBe(201);
+    const parsed = parseScenario({ ...base, name: "Server run" });
+    if (!parsed.ok) throw new Error("base scenario invalid");
+    expect(res.body.headline.finish).toEqual(runScenario(parsed.scenario, { iterations: 30, seed: "srv" }).finish);
+  });
+
+  it("a run of an older version is refused; after an edit the stored run is stale", async () => {
+    const s = await fresh("Stale run");
+    expect((await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "s", iterations: 20, scenarioVersion: s.version } })).status).toBe(201);
+    const put = await call(`/api/scenarios/${s.id}`, { method: "PUT", cookie: scheduler, body: { name: "Stale run", definition: { ...base, name: "Stale run", description: "edited" }, version: s.version } });
+    expect(put.status).toBe(200);
+    const runs = await call(`/api/scenarios/${s.id}/runs`, { cookie: scheduler });
+    expect(runs.body.runs[0].stale).toBe(true);
+    const old = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "s", iterations: 20, scenarioVersion: s.version } });
+    expect(old.status).toBe(409);
+  });
+
+  it("bad run requests are 400 with the field named", async () => {
+    const s = await fresh("Bad run");
+    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "", iterations: 5 } });
+    expect(res.status).toBe(400);
+    const paths = res.body.fields.map((f: { path: string }) => f.path);
+    expect(paths).toEqual(expect.arrayContaining(["seed", "iterations"]));
+    const big = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "x", iterations: 20_000 } });
+    expect(big.status).toBe(400);
+    expect(big.body.fields[0].path).toBe("iterations");
+  });
+});
