@@ -76,10 +76,14 @@ export function crewOp(id: string, ftPerHour: number, extra: Record<string, unkn
   };
 }
 
-export function scenario(edit: (s: Input) => void): Scenario {
+export function input(edit: (s: Input) => void): Input {
   const s = baseInput();
   edit(s);
-  return scenarioSchema.parse(s);
+  return s;
+}
+
+export function scenario(edit: (s: Input) => void): Scenario {
+  return scenarioSchema.parse(input(edit));
 }
 
 function fixedValue(d: Distribution): number {
@@ -112,4 +116,171 @@ export function fixedSamples(s: Scenario): IterationSamples {
 /** Hours since 00:00 of startDate of `iso` (`YYYY-MM-DD`) plus `hour`. */
 export function at(s: Scenario, iso: string, hour = 0): number {
   return (parseIsoDate(iso) - parseIsoDate(s.startDate)) * 24 + hour;
+}
+
+const ops3 = (x: Input) => {
+  x.operations = [
+    crewOp("milling", 50, { mobilizationHours: 2 }),
+    crewOp("cleanup", 100, { mobilizationHours: 0.5 }),
+    crewOp("striping", 200, { shifts: ["night"], closure: "two-lane", mobilizationHours: 1 }),
+  ];
+  x.links = [
+    { from: "milling", to: "cleanup" },
+    { from: "cleanup", to: "striping" },
+  ];
+};
+
+/** Deterministic scenarios whose every boundary and packet time lies on a quarter hour. */
+export const deterministicCases: Array<{ name: string; input: Input }> = [
+  { name: "one crew, two operations", input: input((x) => {
+    x.operations = [crewOp("milling", 50, { mobilizationHours: 2 }), crewOp("cleanup", 100)];
+    x.links = [{ from: "milling", to: "cleanup" }];
+  }) },
+  { name: "two crews, ftPerShift rate", input: input((x) => {
+    x.operations = [
+      crewOp("milling", 40, { crews: 2, mobilizationHours: 1.5 }),
+      { ...crewOp("cleanup", 0), rate: { unit: "ftPerShift", dist: { type: "fixed", value: 800 } } }, // 80 ft/h
+    ];
+    x.links = [{ from: "milling", to: "cleanup" }];
+  }) },
+  { name: "lagFt and lagHours", input: input((x) => {
+    ops3(x);
+    x.deck.lengthFt = 1250; // a short last packet of 50 ft
+    x.links = [
+      { from: "milling", to: "cleanup", lagFt: 250, lagHours: 3 },
+      { from: "cleanup", to: "striping", lagHours: 0.75 },
+    ];
+  }) },
+  { name: "continuous pour, cure wait, restriping at night", input: input((x) => {
+    x.operations = [
+      crewOp("placement", 50, { continuous: true, crews: 2 }),
+      { id: "cure", name: "Cure", kind: "wait", durationHours: { type: "fixed", value: 30 } },
+      crewOp("striping", 100, { shifts: ["night"], closure: "two-lane" }),
+    ];
+    x.links = [
+      { from: "placement", to: "cure" },
+      { from: "cure", to: "striping", lagFt: 100 },
+    ];
+  }) },
+  { name: "night shift over midnight, Saturday work", input: input((x) => {
+    x.deck.lengthFt = 1500;
+    x.calendar.workDays = [1, 2, 3, 4, 5, 6];
+    x.operations = [crewOp("night-mill", 25, { shifts: ["night"], closure: "two-lane", mobilizationHours: 1.25 })];
+  }) },
+  { name: "overnight window cutting a long shift", input: input((x) => {
+    x.calendar.shifts.push({ id: "evening", name: "Evening", startHour: 18, lengthHours: 12 });
+    x.calendar.closureWindows.push({ closure: "one-lane", dayTypes: ["saturday", "sunday"], startHour: 21.5, endHour: 4.75 });
+    x.calendar.workDays = [0, 5, 6];
+    x.operations = [crewOp("milling", 20, { shifts: ["evening", "day"] }), crewOp("cleanup", 40, { shifts: ["evening"] })];
+    x.links = [{ from: "milling", to: "cleanup", lagFt: 200 }];
+  }) },
+  { name: "Independence Day 2027 stand-down", input: input((x) => {
+    x.startDate = "2027-06-28";
+    x.deck.lengthFt = 2000;
+    x.calendar.holidays.policy = "standDown";
+    ops3(x);
+  }) },
+  { name: "Thanksgiving and a blackout date, stand-down", input: input((x) => {
+    x.startDate = "2027-11-15";
+    x.calendar.season.winterStart = "12-20";
+    x.calendar.holidays = { policy: "standDown", observeFederal: true, blackoutDates: ["2027-11-17"] };
+    x.deck.lengthFt = 2000;
+    ops3(x);
+    x.operations[0] = crewOp("milling", 40, { mobilizationHours: 2 });
+  }) },
+  { name: "Labor Day worked through with holiday windows", input: input((x) => {
+    x.startDate = "2027-08-30";
+    x.calendar.closureWindows.push({ closure: "one-lane", dayTypes: ["holiday"], startHour: 6, endHour: 12 });
+    x.operations = [crewOp("milling", 20)];
+  }) },
+  { name: "winter with demobilization and remobilization", input: input((x) => {
+    x.startDate = "2027-11-22";
+    x.calendar.holidays.observeFederal = false;
+    x.calendar.season = { plan: "single", winterStart: "12-01", winterEnd: "03-01", demobilizeHours: 12, remobilizeHours: 3 };
+    x.operations = [crewOp("milling", 16, { mobilizationHours: 3 }), crewOp("cleanup", 50, { mobilizationHours: 3 })];
+    x.links = [{ from: "milling", to: "cleanup", lagFt: 300 }];
+  }) },
+  { name: "two-season plan: cut-off date and cut-off station", input: input((x) => {
+    x.startDate = "2027-11-01";
+    x.calendar.holidays.observeFederal = false;
+    x.calendar.season = {
+      plan: "two", winterStart: "12-15", winterEnd: "03-15", demobilizeHours: 6, remobilizeHours: 2,
+      cutoffDate: "2027-11-08", cutoffStationFt: 1700,
+    };
+    x.operations = [crewOp("milling", 12.5, { mobilizationHours: 2 }), crewOp("cleanup", 50, { mobilizationHours: 2 })];
+    x.links = [{ from: "milling", to: "cleanup" }];
+  }) },
+  { name: "continuous pour with fixed wet dates and rain-free hours after", input: input((x) => {
+    x.calendar.shifts.push({ id: "long", name: "Long", startHour: 6, lengthHours: 18 });
+    x.calendar.closureWindows.push({ closure: "one-lane", dayTypes: ["weekday"], startHour: 6, endHour: 24 });
+    x.weather.fixedWetDates = ["2027-06-09", "2027-06-15"];
+    x.operations = [
+      crewOp("milling", 50, { gates: { noRain: true } }),
+      crewOp("placement", 25, { shifts: ["long"], continuous: true, gates: { noRain: true, noRainHoursAfter: 3 } }),
+    ];
+    x.links = [{ from: "milling", to: "placement", lagHours: 1.5 }];
+  }) },
+  { name: "temperature, rising and evaporation gates", input: input((x) => {
+    x.startDate = "2027-05-03";
+    x.weather.monthly = climate({ tminF: 38, tmaxF: 60 }).map((m, i) => (i === 4 ? m : { ...m, tminMeanF: 60, tmaxMeanF: 82 }));
+    x.calendar.shifts.push({ id: "long", name: "Long", startHour: 6, lengthHours: 18 });
+    x.calendar.closureWindows.push({ closure: "one-lane", dayTypes: ["weekday"], startHour: 6, endHour: 24 });
+    x.deck.lengthFt = 3000;
+    x.operations = [
+      crewOp("milling", 25, { gates: { minTempF: 45 } }),
+      crewOp("placement", 50, {
+        shifts: ["long"], continuous: true, gates: { minTempF: 45, rising: true, maxEvaporation: 0.12, concreteDeltaF: 10 },
+      }),
+    ];
+    x.links = [{ from: "milling", to: "placement" }];
+  }) },
+];
+
+/** An invented monthly climate with cold winters, warm summers and some rain (January first). */
+export function seasonalClimate() {
+  const tmax = [44, 48, 58, 68, 77, 85, 89, 88, 81, 70, 58, 47];
+  return tmax.map((t, i) => ({
+    tmaxMeanF: t,
+    tmaxSdF: 7,
+    tminMeanF: t - 19,
+    tminSdF: 6,
+    pWetAfterDry: i >= 3 && i <= 5 ? 0.3 : 0.22,
+    pWetAfterWet: 0.5,
+    windMeanMph: i <= 3 || i >= 10 ? 11 : 8,
+    rhMean: 68,
+  }));
+}
+
+/** 2,000 ft, five operations, stochastic weather, random rates and discovered conditions. */
+export function stochasticInput(): Input {
+  return input((x) => {
+    x.startDate = "2027-04-05";
+    x.deck.lengthFt = 2000;
+    x.deck.survey = [{ fromStationFt: 1500, toStationFt: 2100, probability: 0.5 }];
+    x.discovered = { defaultProbability: 0.15, extraHours: { type: "triangular", min: 1, mode: 2, max: 6 } };
+    x.calendar.holidays.policy = "standDown";
+    x.calendar.season = { plan: "single", winterStart: "12-01", winterEnd: "03-15", demobilizeHours: 8, remobilizeHours: 4 };
+    x.calendar.closureWindows.push({ closure: "one-lane", dayTypes: ["saturday"], startHour: 9, endHour: 15.5 });
+    x.weather = { mode: "stochastic", monthly: seasonalClimate() };
+    x.operations = [
+      { ...crewOp("milling", 0, { shifts: ["night"], closure: "two-lane", mobilizationHours: 2 }),
+        rate: { unit: "ftPerHour", dist: { type: "triangular", min: 40, mode: 60, max: 90 } } },
+      { ...crewOp("hydrodemolition", 0, { discovers: true, crews: 2, mobilizationHours: 4, gates: { maxWindMph: 25 } }),
+        rate: { unit: "ftPerShift", dist: { type: "pert", min: 150, mode: 250, max: 400 } } },
+      { ...crewOp("placement", 0, {
+          continuous: true, mobilizationHours: 1,
+          gates: { minTempF: 45, rising: true, noRain: true, noRainHoursAfter: 3, maxEvaporation: 0.2, concreteDeltaF: 10, maxWindMph: 20 },
+        }),
+        rate: { unit: "ftPerHour", dist: { type: "triangular", min: 60, mode: 90, max: 120 } } },
+      { id: "cure", name: "Cure", kind: "wait", durationHours: { type: "triangular", min: 24, mode: 30, max: 48 } },
+      { ...crewOp("striping", 0, { shifts: ["night"], closure: "two-lane", gates: { noRain: true, minTempF: 40 } }),
+        rate: { unit: "ftPerHour", dist: { type: "lognormal", median: 150, sigma: 0.2 } } },
+    ];
+    x.links = [
+      { from: "milling", to: "hydrodemolition", lagFt: 200 },
+      { from: "hydrodemolition", to: "placement", lagHours: 2 },
+      { from: "placement", to: "cure" },
+      { from: "cure", to: "striping", lagFt: 100 },
+    ];
+  });
 }

@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import { parseScenario } from "@sim/validate";
 import {
   depths,
+  convertDist,
   diffDefinitions,
   findPath,
   freshId,
@@ -12,6 +13,7 @@ import {
   proposeLink,
   sectionOf,
   toFormPath,
+  toFormValues,
 } from "@/components/plan-editor/plan-logic";
 
 const ops = ["setup", "milling", "cleanup", "placement", "cure"];
@@ -47,7 +49,7 @@ describe("proposeLink", () => {
     let refused = 0;
     for (const from of ids) {
       for (const to of ids) {
-        if (from === to || base.links.some((l) => l.from === from && l.to === to)) continue;
+        if (from === to || base.links.some((l: { from: string; to: string }) => l.from === from && l.to === to)) continue;
         const links = [...base.links, { from, to, lagFt: 0, lagHours: 0 }];
         const parsed = parseScenario({ ...base, links });
         const cycleReported = !parsed.ok && parsed.problems.some((p) => p.message.includes("cycle"));
@@ -119,5 +121,30 @@ describe("problem paths", () => {
     expect(freshId("Hydro-demolition (2nd pass)", [])).toBe("hydro-demolition-2nd-pass");
     expect(freshId("Cure", ["cure", "cure-2"])).toBe("cure-3");
     expect(freshId("!!!", [])).toBe("operation");
+  });
+});
+
+describe("convertDist and toFormValues", () => {
+  it("keeps the central value when the distribution type changes", () => {
+    expect(convertDist({ type: "fixed", value: 240 }, "pert")).toEqual({ type: "pert", min: 192, mode: 240, max: 300 });
+    expect(convertDist({ type: "pert", min: 1, mode: 2, max: 5 }, "triangular")).toEqual({ type: "triangular", min: 1, mode: 2, max: 5 });
+    expect(convertDist({ type: "triangular", min: 1, mode: 2, max: 5 }, "lognormal")).toEqual({ type: "lognormal", median: 2, sigma: 0.2 });
+    expect(convertDist({ type: "lognormal", median: 30, sigma: 0.4 }, "fixed")).toEqual({ type: "fixed", value: 30 });
+  });
+  it("fills every optional field so the form starts complete, and still parses to the same scenario", () => {
+    const base = JSON.parse(readFileSync(new URL("../../scenarios/small-deterministic.json", import.meta.url), "utf8"));
+    const v = toFormValues(base);
+    const op = v.operations[1];
+    expect(op.kind === "crew" && Object.keys(op.gates ?? {}).sort()).toEqual(
+      ["concreteDeltaF", "maxEvaporation", "maxWindMph", "minTempF", "noRain", "noRainHoursAfter", "rising"],
+    );
+    expect(op.kind === "crew" && op.gates?.minTempF).toBe(45);
+    const a = parseScenario(base);
+    const b = parseScenario(JSON.parse(JSON.stringify(v)));
+    expect(a.ok && b.ok).toBe(true);
+    if (a.ok && b.ok) {
+      // Only the explicit `false` switches differ, and the engine treats them like absent ones (`=== true`).
+      expect(diffDefinitions(a.scenario, b.scenario).map((d) => d.after)).toEqual(["false", "false", "false", "false"]);
+    }
   });
 });

@@ -148,3 +148,43 @@ export function freshId(name: string, taken: readonly string[]): string {
   for (let n = 2; taken.includes(id); n++) id = `${base}-${n}`;
   return id;
 }
+
+type Dist = { type: "fixed"; value: number } | { type: "triangular" | "pert"; min: number; mode: number; max: number } | { type: "lognormal"; median: number; sigma: number };
+
+/** Switches a distribution's type, keeping its central value (and min/max between triangular and PERT). */
+export function convertDist(d: Dist, type: Dist["type"]): Dist {
+  if (d.type === type) return d;
+  const c = d.type === "fixed" ? d.value : d.type === "lognormal" ? d.median : d.mode;
+  const centre = Number.isFinite(c) && c > 0 ? c : 1;
+  const r = (x: number) => Math.round(x * 100) / 100;
+  if (type === "fixed") return { type, value: centre };
+  if (type === "lognormal") return { type, median: centre, sigma: 0.2 };
+  if (d.type === "triangular" || d.type === "pert") return { type, min: d.min, mode: d.mode, max: d.max };
+  return { type, min: r(centre * 0.8), mode: centre, max: r(centre * 1.25) };
+}
+
+const GATE_KEYS = ["minTempF", "noRainHoursAfter", "maxWindMph", "maxEvaporation", "concreteDeltaF"] as const;
+
+/**
+ * The form's starting values: schema defaults filled, and every optional field present (unset optional
+ * numbers as `undefined`, unset gate switches as `false`), so a field that mounts does not itself make the
+ * form dirty and two versions diff like for like. `undefined` keys vanish in JSON, so nothing is saved for them.
+ */
+export function toFormValues(definition: unknown): ScenarioInput {
+  const v = structuredClone(normalizeDefinition(definition)) as ScenarioInput;
+  if (!Array.isArray(v.operations)) return v;
+  v.targetDate = v.targetDate ?? undefined;
+  if (v.calendar?.season) {
+    v.calendar.season.cutoffDate = v.calendar.season.cutoffDate ?? undefined;
+    v.calendar.season.cutoffStationFt = v.calendar.season.cutoffStationFt ?? undefined;
+  }
+  for (const op of v.operations) {
+    if (op.kind !== "crew") continue;
+    const g: Record<string, unknown> = { ...(op.gates ?? {}) };
+    for (const k of GATE_KEYS) g[k] = g[k] ?? undefined;
+    g.rising = g.rising ?? false;
+    g.noRain = g.noRain ?? false;
+    op.gates = g as typeof op.gates;
+  }
+  return v;
+}

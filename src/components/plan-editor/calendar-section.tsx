@@ -1,0 +1,282 @@
+"use client";
+/** Section 3: dates, shifts, work days, closures and their windows, holidays and the season plan. */
+import { useState } from "react";
+import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
+import type { ScenarioInput } from "@sim/schema";
+import { formatStation } from "@/lib/format";
+import { CheckboxField, CheckboxGroup, NumberField, SelectField, TextField, n } from "./fields";
+import { freshId } from "./plan-logic";
+
+const WEEKDAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"].map((label, value) => ({ value, label }));
+const DAY_TYPES = [
+  { value: "weekday", label: "Weekday" },
+  { value: "saturday", label: "Saturday" },
+  { value: "sunday", label: "Sunday" },
+  { value: "holiday", label: "Holiday" },
+];
+
+export function CalendarSection({ readOnly }: { readOnly: boolean }) {
+  const { control, setValue, getValues } = useFormContext<ScenarioInput>();
+  const shifts = useFieldArray({ control, name: "calendar.shifts", keyName: "key" });
+  const closures = useFieldArray({ control, name: "calendar.closures", keyName: "key" });
+  const windows = useFieldArray({ control, name: "calendar.closureWindows", keyName: "key" });
+  const lanes = useWatch({ control, name: "deck.lanes" }) ?? [];
+  const closureList = useWatch({ control, name: "calendar.closures" }) ?? [];
+  const plan = useWatch({ control, name: "calendar.season.plan" });
+  const cutoffFt = useWatch({ control, name: "calendar.season.cutoffStationFt" });
+  const cutoffDate = useWatch({ control, name: "calendar.season.cutoffDate" });
+  const blackout = (useWatch({ control, name: "calendar.holidays.blackoutDates" }) ?? []) as string[];
+  const [newDate, setNewDate] = useState("");
+  const laneOptions = lanes.map((l) => ({ value: l, label: l }));
+  const closureOptions = closureList.map((c) => ({ value: c.id, label: c.name || c.id }));
+
+  const setBlackout = (dates: string[]) => setValue(n("calendar.holidays.blackoutDates"), dates as never, { shouldDirty: true, shouldValidate: true });
+
+  return (
+    <div className="space-y-5">
+      <section className="card" aria-labelledby="dates-heading">
+        <h2 id="dates-heading">Dates and work days</h2>
+        <div className="mt-3 grid gap-4 sm:grid-cols-3">
+          <TextField name="startDate" label="Start date" type="date" />
+          <TextField name="targetDate" label="Target date (optional)" type="date" optional />
+          <CheckboxGroup name="calendar.workDays" legend="Work days" options={WEEKDAYS} />
+        </div>
+      </section>
+
+      <section className="card overflow-x-auto" aria-labelledby="shifts-heading">
+        <div className="flex items-center justify-between gap-3">
+          <h2 id="shifts-heading">Shifts</h2>
+          {!readOnly && (
+            <button
+              type="button"
+              className="btn-secondary"
+              onClick={() => shifts.append({ id: freshId("shift", (getValues("calendar.shifts") ?? []).map((s) => s.id)), name: "New shift", startHour: 7, lengthHours: 10 })}
+            >
+              Add shift
+            </button>
+          )}
+        </div>
+        <p className="mt-1 text-sm text-muted">A shift belongs to the day it starts; a night shift may run past midnight.</p>
+        <table className="mt-3 w-full min-w-[640px] border-collapse">
+          <thead>
+            <tr>
+              {["Id", "Name", "Start hour (0–24)", "Length (h)", ""].map((h, i) => (
+                <th key={i} scope="col" className="table-head">
+                  {h || <span className="sr-only">Actions</span>}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {shifts.fields.map((f, i) => (
+              <tr key={f.key} className="align-top">
+                <td className="table-cell"><TextField name={`calendar.shifts.${i}.id`} label={`Shift ${i + 1} id`} hideLabel /></td>
+                <td className="table-cell"><TextField name={`calendar.shifts.${i}.name`} label={`Shift ${i + 1} name`} hideLabel /></td>
+                <td className="table-cell"><NumberField name={`calendar.shifts.${i}.startHour`} label={`Shift ${i + 1} start hour`} hideLabel min={0} max={24} /></td>
+                <td className="table-cell"><NumberField name={`calendar.shifts.${i}.lengthHours`} label={`Shift ${i + 1} length in hours`} hideLabel min={0} max={24} /></td>
+                <td className="table-cell">
+                  {!readOnly && (
+                    <button type="button" className="btn-danger" onClick={() => shifts.remove(i)} aria-label={`Remove shift ${i + 1}`}>
+                      Remove
+                    </button>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+
+      <section className="card overflow-x-auto" aria-labelledby="closures-heading">
+        <div className="flex items-center justify-between gap-3">
+          <h2 id="closures-heading">Closures</h2>
+          {!readOnly && (
+            <button
+              type="button"
+              className="btn-secondary"
+              onClick={() => closures.append({ id: freshId("closure", (getValues("calendar.closures") ?? []).map((c) => c.id)), name: "New closure", lanesClosed: lanes.slice(0, 1) })}
+            >
+              Add closure
+            </button>
+          )}
+        </div>
+        <table className="mt-3 w-full min-w-[640px] border-collapse">
+          <thead>
+            <tr>
+              {["Id", "Name", "Lanes closed", ""].map((h, i) => (
+                <th key={i} scope="col" className="table-head">
+                  {h || <span className="sr-only">Actions</span>}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {closures.fields.map((f, i) => (
+              <tr key={f.key} className="align-top">
+                <td className="table-cell"><TextField name={`calendar.closures.${i}.id`} label={`Closure ${i + 1} id`} hideLabel /></td>
+                <td className="table-cell"><TextField name={`calendar.closures.${i}.name`} label={`Closure ${i + 1} name`} hideLabel /></td>
+                <td className="table-cell"><CheckboxGroup name={`calendar.closures.${i}.lanesClosed`} legend={`Closure ${i + 1} lanes closed`} hideLegend options={laneOptions} /></td>
+                <td className="table-cell">
+                  {!readOnly && (
+                    <button type="button" className="btn-danger" onClick={() => closures.remove(i)} aria-label={`Remove closure ${i + 1}`}>
+                      Remove
+                    </button>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+
+      <section className="card overflow-x-auto" aria-labelledby="windows-heading">
+        <div className="flex items-center justify-between gap-3">
+          <h2 id="windows-heading">Closure windows</h2>
+          {!readOnly && (
+            <button
+              type="button"
+              className="btn-secondary"
+              disabled={closureList.length === 0}
+              onClick={() => windows.append({ closure: closureList[0]?.id ?? "", dayTypes: ["weekday"], startHour: 20, endHour: 6 })}
+            >
+              Add window
+            </button>
+          )}
+        </div>
+        <p className="mt-1 text-sm text-muted">When each closure may be set up. An end hour at or before the start hour runs overnight into the next day.</p>
+        <table className="mt-3 w-full min-w-[760px] border-collapse">
+          <thead>
+            <tr>
+              {["Closure", "Day types", "Start hour", "End hour", ""].map((h, i) => (
+                <th key={i} scope="col" className="table-head">
+                  {h || <span className="sr-only">Actions</span>}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {windows.fields.map((f, i) => (
+              <tr key={f.key} className="align-top">
+                <td className="table-cell"><SelectField name={`calendar.closureWindows.${i}.closure`} label={`Window ${i + 1} closure`} hideLabel options={closureOptions} /></td>
+                <td className="table-cell"><CheckboxGroup name={`calendar.closureWindows.${i}.dayTypes`} legend={`Window ${i + 1} day types`} hideLegend options={DAY_TYPES} /></td>
+                <td className="table-cell"><NumberField name={`calendar.closureWindows.${i}.startHour`} label={`Window ${i + 1} start hour`} hideLabel min={0} max={24} /></td>
+                <td className="table-cell"><WindowEnd i={i} /></td>
+                <td className="table-cell">
+                  {!readOnly && (
+                    <button type="button" className="btn-danger" onClick={() => windows.remove(i)} aria-label={`Remove window ${i + 1}`}>
+                      Remove
+                    </button>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+
+      <section className="card" aria-labelledby="holidays-heading">
+        <h2 id="holidays-heading">Holidays</h2>
+        <div className="mt-3 grid gap-4 sm:grid-cols-2">
+          <SelectField
+            name="calendar.holidays.policy"
+            label="Holiday policy"
+            options={[
+              { value: "standDown", label: "Stand down (no work from 15:00 the day before)" },
+              { value: "workThrough", label: "Work through" },
+            ]}
+          />
+          <CheckboxField name="calendar.holidays.observeFederal" label="Observe federal holidays" className="pt-7" />
+        </div>
+        <fieldset className="mt-4">
+          <legend className="field-label">Blackout dates (treated as holidays)</legend>
+          {blackout.length === 0 ? (
+            <p className="mt-1 text-sm text-muted">None.</p>
+          ) : (
+            <ul className="mt-2 flex flex-wrap gap-2">
+              {blackout.map((d, i) => (
+                <li key={`${d}-${i}`} className="badge gap-1 border border-line bg-paper text-ink">
+                  {d}
+                  {!readOnly && (
+                    <button type="button" className="ml-1 text-bad" aria-label={`Remove blackout date ${d}`} onClick={() => setBlackout(blackout.filter((_, j) => j !== i))}>
+                      ×
+                    </button>
+                  )}
+                </li>
+              ))}
+            </ul>
+          )}
+          {!readOnly && (
+            <div className="mt-2 flex items-end gap-2">
+              <div>
+                <label htmlFor="new-blackout-date" className="sr-only">
+                  New blackout date
+                </label>
+                <input id="new-blackout-date" type="date" className="field-input" value={newDate} onChange={(e) => setNewDate(e.target.value)} />
+              </div>
+              <button
+                type="button"
+                className="btn-secondary"
+                disabled={!/^\d{4}-\d{2}-\d{2}$/.test(newDate) || blackout.includes(newDate)}
+                onClick={() => {
+                  setBlackout([...blackout, newDate].sort());
+                  setNewDate("");
+                }}
+              >
+                Add date
+              </button>
+            </div>
+          )}
+        </fieldset>
+      </section>
+
+      <section className="card" aria-labelledby="season-heading">
+        <h2 id="season-heading">Season plan</h2>
+        <div className="mt-3 grid gap-4 sm:grid-cols-3">
+          <SelectField
+            name="calendar.season.plan"
+            label="Plan"
+            options={[
+              { value: "single", label: "Single season (resume after winter)" },
+              { value: "two", label: "Two seasons (cut-off before winter)" },
+            ]}
+          />
+          <TextField name="calendar.season.winterStart" label="Winter starts (MM-DD)" />
+          <TextField name="calendar.season.winterEnd" label="Winter ends (MM-DD)" />
+          <NumberField name="calendar.season.demobilizeHours" label="Demobilize before winter (h)" min={0} />
+          <NumberField name="calendar.season.remobilizeHours" label="Remobilize after winter (h)" min={0} />
+        </div>
+        {/* Shown for a single-season plan too while a cut-off is set, so the validator's complaint can be fixed here. */}
+        {plan === "two" || cutoffDate || (typeof cutoffFt === "number" && Number.isFinite(cutoffFt)) ? (
+          <div className="mt-4 grid gap-4 sm:grid-cols-3">
+            <TextField name="calendar.season.cutoffDate" label="Cut-off date (optional)" type="date" optional />
+            <NumberField
+              name="calendar.season.cutoffStationFt"
+              label="Cut-off station (ft, optional)"
+              optional
+              min={0}
+              hint={typeof cutoffFt === "number" && Number.isFinite(cutoffFt) ? formatStation(cutoffFt) : "Packets from here on wait for season 2."}
+            />
+          </div>
+        ) : (
+          <p className="mt-3 text-sm text-muted">A single-season plan has no cut-off: unfinished work resumes after the winter.</p>
+        )}
+      </section>
+    </div>
+  );
+}
+
+function WindowEnd({ i }: { i: number }) {
+  const { control } = useFormContext<ScenarioInput>();
+  const w = useWatch({ control, name: n(`calendar.closureWindows.${i}`) }) as { startHour?: number; endHour?: number } | undefined;
+  const overnight = w && typeof w.startHour === "number" && typeof w.endHour === "number" && w.endHour <= w.startHour;
+  return (
+    <NumberField
+      name={`calendar.closureWindows.${i}.endHour`}
+      label={`Window ${i + 1} end hour`}
+      hideLabel
+      min={0}
+      max={24}
+      hint={overnight ? "Runs overnight into the next day" : undefined}
+    />
+  );
+}

@@ -1,0 +1,143 @@
+"use client";
+/** Section 2: one table row per crew operation (rate, crews, calendar, gates) and the durations of wait operations. */
+import { useFormContext, useWatch } from "react-hook-form";
+import type { ScenarioInput } from "@sim/schema";
+import { SafetyNote } from "@/components/safety-note";
+import { CheckboxField, CheckboxGroup, NumberField, SelectField } from "./fields";
+import { DistributionFields } from "./distribution-fields";
+
+export function CrewsSection() {
+  const { control } = useFormContext<ScenarioInput>();
+  const operations = useWatch({ control, name: "operations" }) ?? [];
+  const shifts = useWatch({ control, name: "calendar.shifts" }) ?? [];
+  const closures = useWatch({ control, name: "calendar.closures" }) ?? [];
+  const crew = operations.map((op, i) => ({ op, i })).filter((x) => x.op.kind === "crew");
+  const wait = operations.map((op, i) => ({ op, i })).filter((x) => x.op.kind === "wait");
+  const shiftOptions = shifts.map((s) => ({ value: s.id, label: s.name || s.id }));
+  const closureOptions = closures.map((c) => ({ value: c.id, label: c.name || c.id }));
+
+  return (
+    <div className="space-y-5">
+      <SafetyNote compact />
+      <section className="card overflow-x-auto p-0" aria-labelledby="crew-ops-heading">
+        <div className="px-5 py-4">
+          <h2 id="crew-ops-heading">Crew operations</h2>
+          <p className="mt-1 text-sm text-muted">
+            Rates are sampled once per iteration. Weather limits marked <span aria-hidden="true">*</span>
+            <span className="sr-only">with an asterisk</span> (minimum temperature, evaporation) are planning inputs: set them per your local specification.
+          </p>
+        </div>
+        {crew.length === 0 ? (
+          <p className="px-5 pb-5 text-sm text-muted">No crew operations yet. Add one in Sequence.</p>
+        ) : (
+          <table className="w-full min-w-[1500px] border-collapse" data-testid="crews-table">
+            <thead>
+              <tr>
+                <th scope="col" className="table-head">Operation</th>
+                <th scope="col" className="table-head">Rate</th>
+                <th scope="col" className="table-head">Crews · mobilization</th>
+                <th scope="col" className="table-head">Shifts · closure</th>
+                <th scope="col" className="table-head">Working</th>
+                <th scope="col" className="table-head">Weather gates</th>
+              </tr>
+            </thead>
+            <tbody>
+              {crew.map(({ op, i }) => {
+                if (op.kind !== "crew") return null;
+                const p = `operations.${i}`;
+                const who = op.name || op.id;
+                const unit = op.rate?.unit === "ftPerShift" ? "ft/shift" : "ft/h";
+                return (
+                  <tr key={`${i}-${op.id}`} className="align-top">
+                    <th scope="row" className="table-cell text-left font-medium">
+                      {who}
+                      <span className="block text-xs font-normal text-muted">{op.id}</span>
+                    </th>
+                    <td className="table-cell">
+                      <div className="space-y-2">
+                        <SelectField
+                          name={`${p}.rate.unit`}
+                          srPrefix={`${who} — `}
+                          label="rate unit"
+                          className="w-36"
+                          options={[
+                            { value: "ftPerHour", label: "ft per hour" },
+                            { value: "ftPerShift", label: "ft per shift" },
+                          ]}
+                        />
+                        <DistributionFields base={`${p}.rate.dist`} who={`${who} rate`} unit={unit} />
+                      </div>
+                    </td>
+                    <td className="table-cell">
+                      <div className="space-y-2">
+                        <NumberField name={`${p}.crews`} srPrefix={`${who} — `} label="crews" step="1" min={1} max={10} className="w-24" />
+                        <NumberField name={`${p}.mobilizationHours`} srPrefix={`${who} — `} label="mobilization (h)" min={0} className="w-28" />
+                      </div>
+                    </td>
+                    <td className="table-cell">
+                      <div className="space-y-2">
+                        <CheckboxGroup name={`${p}.shifts`} legend={`${who} — shifts`} options={shiftOptions} />
+                        <SelectField name={`${p}.closure`} srPrefix={`${who} — `} label="closure" className="w-44" options={closureOptions} />
+                      </div>
+                    </td>
+                    <td className="table-cell">
+                      <div className="space-y-1">
+                        <CheckboxField name={`${p}.continuous`} label="Continuous (never stop a packet)" />
+                        <CheckboxField name={`${p}.discovers`} label="Discovers deeper damage" />
+                      </div>
+                    </td>
+                    <td className="table-cell">
+                      <div className="grid grid-cols-3 gap-2">
+                        <NumberField name={`${p}.gates.minTempF`} srPrefix={`${who} — `} label="min °F *" optional />
+                        <NumberField name={`${p}.gates.maxWindMph`} srPrefix={`${who} — `} label="max wind mph" optional min={0} />
+                        <NumberField name={`${p}.gates.maxEvaporation`} srPrefix={`${who} — `} label="max evap. lb/ft²/h *" optional min={0} step="0.01" />
+                        <NumberField name={`${p}.gates.noRainHoursAfter`} srPrefix={`${who} — `} label="no rain h after" optional min={0} />
+                        <NumberField name={`${p}.gates.concreteDeltaF`} srPrefix={`${who} — `} label="concrete − air °F" optional />
+                        <div className="space-y-1 pt-4">
+                          <CheckboxField name={`${p}.gates.rising`} label={`Rising temp.`} />
+                          <CheckboxField name={`${p}.gates.noRain`} label="No rain" />
+                        </div>
+                      </div>
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        )}
+      </section>
+
+      <section className="card overflow-x-auto p-0" aria-labelledby="wait-ops-heading">
+        <div className="px-5 py-4">
+          <h2 id="wait-ops-heading">Wait operations</h2>
+          <p className="mt-1 text-sm text-muted">No crew and no calendar: a packet waits this long (e.g. cure) once it is ready.</p>
+        </div>
+        {wait.length === 0 ? (
+          <p className="px-5 pb-5 text-sm text-muted">No wait operations.</p>
+        ) : (
+          <table className="w-full min-w-[640px] border-collapse">
+            <thead>
+              <tr>
+                <th scope="col" className="table-head">Operation</th>
+                <th scope="col" className="table-head">Duration (hours)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {wait.map(({ op, i }) => (
+                <tr key={`${i}-${op.id}`} className="align-top">
+                  <th scope="row" className="table-cell text-left font-medium">
+                    {op.name || op.id}
+                    <span className="block text-xs font-normal text-muted">{op.id}</span>
+                  </th>
+                  <td className="table-cell">
+                    <DistributionFields base={`operations.${i}.durationHours`} who={`${op.name || op.id} duration`} unit="h" />
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </section>
+    </div>
+  );
+}

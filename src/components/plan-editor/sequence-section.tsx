@@ -1,0 +1,305 @@
+"use client";
+/**
+ * Section 1: the operations as a graph (drag a handle to link, Delete to remove) with a side panel that does
+ * every graph action by keyboard too. A proposed link that would close a loop is refused with the loop named.
+ * Node positions are laid out by depth and kept only for this visit (they are not part of the scenario).
+ */
+import "@xyflow/react/dist/style.css";
+import { useEffect, useMemo, useState } from "react";
+import { useFormContext, useWatch } from "react-hook-form";
+import { Background, Controls, MarkerType, Position, ReactFlow, applyNodeChanges, type Connection, type Edge, type Node, type NodeChange } from "@xyflow/react";
+import type { Link, Operation, ScenarioInput } from "@sim/schema";
+import { NumberField, TextField, n } from "./fields";
+import { freshId, layoutByDepth, proposeLink } from "./plan-logic";
+
+type OpIn = ScenarioInput["operations"][number];
+type LinkIn = ScenarioInput["links"][number];
+
+function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
+  const byId = new Map(prev.map((nd) => [nd.id, nd]));
+  const layout = layoutByDepth(ops.map((o) => o.id), links);
+  return ops.map((op) => {
+    const old = byId.get(op.id);
+    const data = {
+      label: (
+        <span className="block text-left">
+          <span className="block font-medium">{op.name || op.id}</span>
+          <span className="block text-xs text-muted">{op.kind === "wait" ? "wait" : "crew"}</span>
+        </span>
+      ),
+    };
+    if (old) return { ...old, data };
+    return { id: op.id, position: layout[op.id] ?? { x: 0, y: 0 }, data, sourcePosition: Position.Right, targetPosition: Position.Left };
+  });
+}
+
+export function SequenceSection({ readOnly }: { readOnly: boolean }) {
+  const { control, getValues, setValue } = useFormContext<ScenarioInput>();
+  const ops = (useWatch({ control, name: "operations" }) ?? []) as OpIn[];
+  const links = (useWatch({ control, name: "links" }) ?? []) as LinkIn[];
+  const [nodes, setNodes] = useState<Node[]>([]);
+  const [notice, setNotice] = useState<{ bad: boolean; text: string } | null>(null);
+  const [newName, setNewName] = useState("");
+  const [newKind, setNewKind] = useState<Operation["kind"]>("crew");
+  const [linkFrom, setLinkFrom] = useState("");
+  const [linkTo, setLinkTo] = useState("");
+
+  const opKey = ops.map((o) => `${o.id}\u0000${o.name}\u0000${o.kind}`).join("\u0001");
+  useEffect(() => {
+    setNodes((prev) => syncNodes(prev, getValues("operations") ?? [], getValues("links") ?? []));
+  }, [opKey, getValues]);
+
+  const label = (id: string) => ops.find((o) => o.id === id)?.name || id;
+  const edges: Edge[] = useMemo(
+    () =>
+      links.map((l) => ({
+        id: `${l.from}->${l.to}`,
+        source: l.from,
+        target: l.to,
+        label: `${l.lagFt ?? 0} ft · ${l.lagHours ?? 0} h`,
+        markerEnd: { type: MarkerType.ArrowClosed },
+        labelBgPadding: [6, 3] as [number, number],
+        labelStyle: { fontSize: 12 },
+      })),
+    [links],
+  );
+
+  const write = (nextOps: OpIn[] | null, nextLinks: LinkIn[] | null) => {
+    if (nextOps) setValue("operations", nextOps, { shouldDirty: true, shouldValidate: true });
+    if (nextLinks) setValue("links", nextLinks, { shouldDirty: true, shouldValidate: true });
+  };
+
+  const addLink = (from: string, to: string) => {
+    const current = getValues("links") ?? [];
+    const verdict = proposeLink((getValues("operations") ?? []).map((o) => o.id), current, from, to, label);
+    if (!verdict.ok) {
+      setNotice({ bad: true, text: verdict.message });
+      return false;
+    }
+    write(null, [...current, { from, to, lagFt: 0, lagHours: 0 }]);
+    setNotice({ bad: false, text: `Linked ${label(from)} → ${label(to)}.` });
+    return true;
+  };
+
+  const removeOperation = (id: string) => {
+    write(
+      (getValues("operations") ?? []).filter((o) => o.id !== id),
+      (getValues("links") ?? []).filter((l) => l.from !== id && l.to !== id),
+    );
+    setNotice({ bad: false, text: `Removed ${label(id)} and its links.` });
+  };
+
+  const removeLinks = (keys: string[]) => {
+    write(null, (getValues("links") ?? []).filter((l) => !keys.includes(`${l.from}->${l.to}`)));
+  };
+
+  const addOperation = () => {
+    const name = newName.trim();
+    if (!name) {
+      setNotice({ bad: true, text: "Give the new operation a name first." });
+      return;
+    }
+    const current = getValues("operations") ?? [];
+    const id = freshId(name, current.map((o) => o.id));
+    const cal = getValues("calendar");
+    const op: OpIn =
+      newKind === "wait"
+        ? { id, name, kind: "wait", durationHours: { type: "fixed", value: 24 } }
+        : {
+            id,
+            name,
+            kind: "crew",
+            rate: { unit: "ftPerHour", dist: { type: "fixed", value: 50 } },
+            crews: 1,
+            shifts: cal?.shifts?.[0] ? [cal.shifts[0].id] : [],
+            closure: cal?.closures?.[0]?.id ?? "",
+            mobilizationHours: 0,
+            continuous: false,
+            discovers: false,
+            gates: { minTempF: undefined, rising: false, noRain: false, noRainHoursAfter: undefined, maxWindMph: undefined, maxEvaporation: undefined, concreteDeltaF: undefined },
+          };
+    write([...current, op], null);
+    setNewName("");
+    setNotice({ bad: false, text: `Added ${name} (${newKind}). Set its rate in Crews and rates.` });
+  };
+
+  const focusField = (id: string) => document.getElementById(id)?.focus();
+
+  return (
+    <div className="space-y-5">
+      <section className="card" aria-labelledby="scenario-heading">
+        <h2 id="scenario-heading">Scenario</h2>
+        <div className="mt-3 grid gap-4 md:grid-cols-2">
+          <TextField name="name" label="Name" />
+          <TextField name="description" label="Description" />
+        </div>
+      </section>
+
+      <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <section className="card p-0" aria-labelledby="graph-heading">
+          <div className="px-5 pt-4">
+            <h2 id="graph-heading">Sequence</h2>
+            <p className="mt-1 text-sm text-muted">
+              {readOnly
+                ? "How the operations follow each other."
+                : "Drag from an operation's right handle to another's left handle to link them; select a link and press Delete to remove it. Everything here can also be done in the panel."}
+            </p>
+          </div>
+          <div className="mt-3 h-[26rem] border-t border-line" data-testid="sequence-graph">
+            <ReactFlow
+              nodes={nodes}
+              edges={edges}
+              onNodesChange={(changes: NodeChange[]) => setNodes((nds) => applyNodeChanges(changes.filter((c) => c.type !== "remove"), nds))}
+              onConnect={(c: Connection) => c.source && c.target && addLink(c.source, c.target)}
+              onNodesDelete={(deleted) => deleted.forEach((d) => removeOperation(d.id))}
+              onEdgesDelete={(deleted) => removeLinks(deleted.map((e) => e.id))}
+              onNodeClick={(_, node) => focusField(`operations.${ops.findIndex((o) => o.id === node.id)}.name`)}
+              onEdgeClick={(_, edge) => focusField(`links.${links.findIndex((l) => `${l.from}->${l.to}` === edge.id)}.lagFt`)}
+              nodesConnectable={!readOnly}
+              deleteKeyCode={readOnly ? null : ["Delete", "Backspace"]}
+              fitView
+              minZoom={0.3}
+            >
+              <Background />
+              <Controls showInteractive={false} />
+            </ReactFlow>
+          </div>
+          <div className="px-5 py-3" aria-live="polite">
+            {notice && (
+              <p role={notice.bad ? "alert" : undefined} className={notice.bad ? "text-sm font-medium text-bad" : "text-sm text-ok"} data-testid="sequence-notice">
+                {notice.text}
+              </p>
+            )}
+          </div>
+        </section>
+
+        <div className="space-y-5">
+          <section className="card" aria-labelledby="ops-panel-heading">
+            <h3 id="ops-panel-heading">Operations</h3>
+            <ul className="mt-2 space-y-3">
+              {ops.map((op, i) => (
+                <li key={`${i}-${op.id}`} className="flex items-end gap-2">
+                  <TextField name={`operations.${i}.name`} label={`Name of ${op.id} (${op.kind})`} className="min-w-0 flex-1" />
+                  {!readOnly && (
+                    <button type="button" className="btn-danger" onClick={() => removeOperation(op.id)} aria-label={`Remove operation ${op.name || op.id}`}>
+                      Remove
+                    </button>
+                  )}
+                </li>
+              ))}
+            </ul>
+            {!readOnly && (
+              <div className="mt-4 border-t border-line pt-3">
+                <h4 className="text-sm font-semibold">Add an operation</h4>
+                <div className="mt-2 flex flex-wrap items-end gap-2">
+                  <div className="min-w-0 flex-1">
+                    <label htmlFor="new-op-name" className="field-label">
+                      Name
+                    </label>
+                    <input
+                      id="new-op-name"
+                      className="field-input"
+                      value={newName}
+                      onChange={(e) => setNewName(e.target.value)}
+                      onKeyDown={(e) => {
+                        if (e.key === "Enter") {
+                          e.preventDefault();
+                          addOperation();
+                        }
+                      }}
+                    />
+                  </div>
+                  <div>
+                    <label htmlFor="new-op-kind" className="field-label">
+                      Kind
+                    </label>
+                    <select id="new-op-kind" className="field-input" value={newKind} onChange={(e) => setNewKind(e.target.value as Operation["kind"])}>
+                      <option value="crew">Crew</option>
+                      <option value="wait">Wait</option>
+                    </select>
+                  </div>
+                  <button type="button" className="btn-secondary" onClick={addOperation}>
+                    Add
+                  </button>
+                </div>
+              </div>
+            )}
+          </section>
+
+          <section className="card" aria-labelledby="links-panel-heading">
+            <h3 id="links-panel-heading">Links</h3>
+            <p className="mt-1 text-xs text-muted">Lag: how far (ft) and how long (h) the follower stays behind.</p>
+            {links.length === 0 ? (
+              <p className="mt-2 text-sm text-muted">No links: every operation may start at once.</p>
+            ) : (
+              <ul className="mt-2 space-y-3">
+                {links.map((l: Link | LinkIn, i) => (
+                  <li key={`${l.from}->${l.to}`} className="rounded-md border border-line p-2">
+                    <p className="text-sm font-medium">
+                      {label(l.from)} → {label(l.to)}
+                    </p>
+                    <div className="mt-1 flex items-end gap-2">
+                      <NumberField name={`links.${i}.lagFt`} srPrefix={`${label(l.from)} → ${label(l.to)} `} label="lag (ft)" min={0} className="w-24" />
+                      <NumberField name={`links.${i}.lagHours`} srPrefix={`${label(l.from)} → ${label(l.to)} `} label="lag (h)" min={0} className="w-24" />
+                      {!readOnly && (
+                        <button type="button" className="btn-danger" onClick={() => removeLinks([`${l.from}->${l.to}`])} aria-label={`Remove link ${label(l.from)} to ${label(l.to)}`}>
+                          Remove
+                        </button>
+                      )}
+                    </div>
+                  </li>
+                ))}
+              </ul>
+            )}
+            {!readOnly && ops.length > 1 && (
+              <div className="mt-4 border-t border-line pt-3">
+                <h4 className="text-sm font-semibold">Add a link</h4>
+                <div className="mt-2 flex flex-wrap items-end gap-2">
+                  <div>
+                    <label htmlFor="new-link-from" className="field-label">
+                      From
+                    </label>
+                    <select id="new-link-from" className="field-input" value={linkFrom} onChange={(e) => setLinkFrom(e.target.value)}>
+                      <option value="">Choose…</option>
+                      {ops.map((o) => (
+                        <option key={o.id} value={o.id}>
+                          {o.name || o.id}
+                        </option>
+                      ))}
+                    </select>
+                  </div>
+                  <div>
+                    <label htmlFor="new-link-to" className="field-label">
+                      To
+                    </label>
+                    <select id="new-link-to" className="field-input" value={linkTo} onChange={(e) => setLinkTo(e.target.value)}>
+                      <option value="">Choose…</option>
+                      {ops.map((o) => (
+                        <option key={o.id} value={o.id}>
+                          {o.name || o.id}
+                        </option>
+                      ))}
+                    </select>
+                  </div>
+                  <button
+                    type="button"
+                    className="btn-secondary"
+                    disabled={!linkFrom || !linkTo}
+                    onClick={() => {
+                      if (addLink(linkFrom, linkTo)) {
+                        setLinkFrom("");
+                        setLinkTo("");
+                      }
+                    }}
+                  >
+                    Link
+                  </button>
+                </div>
+              </div>
+            )}
+          </section>
+        </div>
+      </div>
+    </div>
+  );
+}
