@@ -209,6 +209,18 @@ function demoSignIns() {
   }
 }
 
+/** The local stand-in for a mail service: every message lands as a JSON file in `mailboxDir`. */
+async function startFakeSmtp(port, mailboxDir, env) {
+  const script = join(root, "scripts", "fake-smtp.ts");
+  if (!existsSync(script)) return {};
+  if (!(await portFree(port))) fail(`port ${port} (the local mail catcher) is taken by another program. Choose another: SMTP_PORT=2526 npm ${mode}`);
+  mkdirSync(mailboxDir, { recursive: true });
+  const mailEnv = { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(port), POURLINE_MAILBOX_DIR: mailboxDir, POURLINE_FAKE_SMTP: "1" };
+  spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, ...mailEnv });
+  for (let i = 0; i < 100 && (await portFree(port)); i++) await new Promise((r) => setTimeout(r, 100));
+  return mailEnv;
+}
+
 async function startMode() {
   ensureNodeModules();
   const bin = ensurePostgresInstalled();
@@ -232,7 +244,8 @@ async function startMode() {
   }
   if (!(await portFree(appPort))) fail(`port ${appPort} is taken by another program. Stop it, or run: PORT=3001 npm start`);
   buildApp(env);
-  const server = spawnChild(join(root, "node_modules", ".bin", "next"), ["start", "-p", String(appPort)], { ...env, NODE_ENV: "production" });
+  const mailEnv = await startFakeSmtp(Number(process.env.SMTP_PORT ?? 2525), join(root, ".data", "mailbox"), env);
+  const server = spawnChild(join(root, "node_modules", ".bin", "next"), ["start", "-p", String(appPort)], { ...env, ...mailEnv, APP_BASE_URL: `http://localhost:${appPort}`, NODE_ENV: "production" });
   await waitForHttp(`http://localhost:${appPort}/signin`, 60_000);
   say(`Pourline is running at http://localhost:${appPort}  (Ctrl-C stops the app and PostgreSQL)`);
   say(`demo sign-ins:\n${demoSignIns()}`);
@@ -266,6 +279,8 @@ async function testMode() {
   tsx("db/migrate.ts", env, "database migration");
   tsx("db/seed.ts", env, "demo seed");
   buildApp(env);
+  const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
+  Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });
   spawnChild(join(root, "node_modules", ".bin", "next"), ["start", "-p", String(appPort)], { ...env, NODE_ENV: "production" });
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
