@@ -1,0 +1,129 @@
+/**
+ * Comparing scenarios: the `ids` query parameter and the comparison table. Contract: `parseCompareIds`
+ * accepts 1–4 distinct ids separated by commas and names the field `ids` in every problem; the table is a
+ * list of metric rows, each giving a text per scenario and a difference from the first, so a new row (delay, cost) is one more entry
+ * in `COMPARE_METRICS`. Differences are against the first scenario, signed, with units ("+12 d").
+ */
+import { formatIsoDate, formatPercent } from "@/lib/format";
+import { isoToDay } from "./date-axis";
+
+export const MAX_COMPARE = 4;
+
+export type IdsResult = { ok: true; ids: string[] } | { ok: false; message: string };
+
+export function parseCompareIds(raw: string | null | undefined): IdsResult {
+  const ids = (raw ?? "").split(",").map((s) => s.trim()).filter(Boolean);
+  if (ids.length < 1) return { ok: false, message: "must list at least one scenario id" };
+  if (ids.length > MAX_COMPARE) return { ok: false, message: `must list at most ${MAX_COMPARE} scenario ids` };
+  if (new Set(ids).size !== ids.length) return { ok: false, message: "must not list a scenario twice" };
+  return { ok: true, ids };
+}
+
+/** What the compare API returns for a scenario's latest run (a slice of its RunSummary). */
+export interface CompareRun {
+  id: string;
+  scenarioVersion: number;
+  stale: boolean;
+  iterations: number;
+  createdAt: string;
+  startDate: string;
+  unfinishedIterations: number;
+  finish: { p10: string; p50: string; p80: string; p90: string };
+  finishAt: { p10: string; p50: string; p80: string; p90: string };
+  cdf: { date: string; p: number }[];
+  target: { date: string; probability: number } | null;
+  weatherLostShifts: { p50: number; p80: number };
+  closureHoursTotal: number;
+}
+
+export interface CompareScenario {
+  id: string;
+  name: string;
+  version: number;
+  run: CompareRun | null;
+}
+
+export interface CompareMetric {
+  id: string;
+  label: string;
+  text: (r: CompareRun) => string;
+  /** Difference of b from a, or null when it is not meaningful. */
+  diff: (a: CompareRun, b: CompareRun) => string | null;
+}
+
+const MINUS = "\u2212";
+
+/** +12 d, −3 d, ±0 d; `digits` decimals. */
+export function signed(n: number, unit: string, digits = 0): string {
+  const r = Number(n.toFixed(digits));
+  const abs = Math.abs(r).toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  const sign = r > 0 ? "+" : r < 0 ? MINUS : "±";
+  return `${sign}${abs}${unit ? ` ${unit}` : ""}`;
+}
+
+/** Calendar days between two ISO dates (b − a; a time of day is ignored); null when either is unfinished. */
+export function dayDiff(a: string, b: string): number | null {
+  const x = isoToDay(a);
+  const y = isoToDay(b);
+  return x === null || y === null ? null : Math.floor(y) - Math.floor(x);
+}
+
+const dateMetric = (key: "p50" | "p80" | "p90", label: string): CompareMetric => ({
+  id: key,
+  label,
+  text: (r) => (r.finish[key] === "unfinished" ? "not reached" : formatIsoDate(r.finish[key])),
+  diff: (a, b) => {
+    const d = dayDiff(a.finish[key], b.finish[key]);
+    return d === null ? null : signed(d, "d");
+  },
+});
+
+export const COMPARE_METRICS: CompareMetric[] = [
+  dateMetric("p50", "P50 finish"),
+  dateMetric("p80", "P80 finish"),
+  dateMetric("p90", "P90 finish"),
+  {
+    id: "target",
+    label: "Chance of meeting the target",
+    text: (r) => (r.target ? `${formatPercent(r.target.probability)} by ${formatIsoDate(r.target.date)}` : "no target set"),
+    // Percentage points compare only when both aim at the same date.
+    diff: (a, b) => (a.target && b.target && a.target.date === b.target.date ? signed((b.target.probability - a.target.probability) * 100, "pp") : null),
+  },
+  {
+    id: "closureHours",
+    label: "Closure hours (mean, all closures)",
+    text: (r) => `${Math.round(r.closureHoursTotal).toLocaleString("en-US")} h`,
+    diff: (a, b) => signed(b.closureHoursTotal - a.closureHoursTotal, "h"),
+  },
+  {
+    id: "weatherLost",
+    label: "Weather-lost shifts (P50)",
+    text: (r) => `${r.weatherLostShifts.p50.toLocaleString("en-US")}`,
+    diff: (a, b) => signed(b.weatherLostShifts.p50 - a.weatherLostShifts.p50, "shifts"),
+  },
+];
+
+export interface CompareCell {
+  text: string;
+  /** Difference from the first scenario; null for the first one or when not meaningful. */
+  diff: string | null;
+}
+
+export interface CompareRow {
+  id: string;
+  label: string;
+  cells: CompareCell[];
+}
+
+/** Rows × scenarios. A scenario without a run reads "not run yet"; differences need the first scenario's run. */
+export function compareRows(scenarios: CompareScenario[], metrics: CompareMetric[] = COMPARE_METRICS): CompareRow[] {
+  const base = scenarios[0]?.run ?? null;
+  return metrics.map((m) => ({
+    id: m.id,
+    label: m.label,
+    cells: scenarios.map((s, i) => {
+      if (!s.run) return { text: "not run yet", diff: null };
+      return { text: m.text(s.run), diff: i > 0 && base ? m.diff(base, s.run) : null };
+    }),
+  }));
+}

@@ -1,0 +1,65 @@
+// The plain-language sentence of a run: target clause, unfinished iterations, convergence verdict.
+import { describe, expect, it } from "vitest";
+import type { RunSummary } from "@sim/summary";
+import { plainSummary, quantileText, STABLE_DAYS } from "@/components/results/summary-text";
+
+function summary(over: Partial<RunSummary> = {}): RunSummary {
+  return {
+    scenarioName: "t",
+    seed: "s",
+    iterations: 1000,
+    unfinishedIterations: 0,
+    startDate: "2027-04-05",
+    finish: { p10: "2027-09-20", p50: "2027-10-03", p80: "2027-10-14", p90: "2027-10-20" },
+    finishAt: { p10: "2027-09-20T12:00", p50: "2027-10-03T12:00", p80: "2027-10-14T12:00", p90: "2027-10-20T12:00" },
+    operations: [],
+    histogram: [],
+    cdf: [],
+    target: null,
+    weatherLostShifts: { p50: 3, p80: 5 },
+    discoveredHours: { p50: 0, p80: 0 },
+    closureHours: { byClosure: [], totalByClosure: {} },
+    convergenceDays: 0.5,
+    season1End: null,
+    representative: { iteration: 0, finish: "2027-10-03T12:00", finishHours: 0, trace: { packets: [], pauses: [] } },
+    ...over,
+  };
+}
+
+describe("plainSummary", () => {
+  it("P80 date and the target clause", () => {
+    const p = plainSummary(summary({ target: { date: "2027-10-01", probability: 0.62 } }));
+    expect(p.p80).toBe("14 Oct 2027");
+    expect(p.targetClause).toBe(", 62 % chance of meeting the 1 Oct 2027 target");
+    expect(p.percentiles).toBe("P50 3 Oct 2027 · P80 14 Oct 2027 · P90 20 Oct 2027");
+  });
+
+  it("no target: no clause; no season-1 sentence for a single season", () => {
+    const p = plainSummary(summary());
+    expect(p.targetClause).toBe("");
+    expect(p.season1).toBeNull();
+    expect(p.unfinished).toBeNull();
+  });
+
+  it("two-season plans name the season-1 end", () => {
+    expect(plainSummary(summary({ season1End: { p50: "2027-11-20T16:00" } })).season1).toContain("20 Nov 2027");
+  });
+
+  it("convergence: stable at or under the tolerance, 'run more' above it, unknown when null", () => {
+    expect(plainSummary(summary({ convergenceDays: 0.5 })).convergence).toEqual({ stable: true, text: "P80 moved 0.5 days between the two halves of the run — stable." });
+    expect(plainSummary(summary({ convergenceDays: STABLE_DAYS })).convergence.stable).toBe(true);
+    const more = plainSummary(summary({ convergenceDays: STABLE_DAYS + 0.1 })).convergence;
+    expect(more.stable).toBe(false);
+    expect(more.text).toMatch(/run more iterations/);
+    expect(plainSummary(summary({ convergenceDays: null })).convergence.stable).toBeNull();
+  });
+
+  it("unfinished iterations are counted and never shown as a date", () => {
+    const some = plainSummary(summary({ unfinishedIterations: 250, finish: { p10: "2027-09-20", p50: "2027-10-03", p80: "unfinished", p90: "unfinished" } }));
+    expect(some.unfinished).toBe("250 of 1,000 iterations (25 %) did not finish within the six-year horizon; percentiles they reach are shown as not reached.");
+    expect(some.p80).toBe(quantileText("unfinished"));
+    expect(some.p80).not.toMatch(/\d/);
+    const all = plainSummary(summary({ unfinishedIterations: 1000 }));
+    expect(all.unfinished).toMatch(/^None of the 1,000 iterations finished/);
+  });
+});
