@@ -248,3 +248,43 @@ export const emailOutbox = pgTable(
 );
 
 export type NewScenario = InferInsertModel<typeof scenarios>;
+
+/**
+ * An e-mailed invitation to join a project. Like share links, only the SHA-256 of the 256-bit token is
+ * stored; `used_at` makes it single use.
+ */
+export const invitations = pgTable(
+  "invitations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: roleEnum("role").notNull(),
+    tokenHash: text("token_hash").notNull(),
+    invitedById: text("invited_by")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    expiresAt: ts("expires_at").notNull(),
+    usedAt: ts("used_at"),
+    createdAt: ts("created_at").notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("invitations_token_idx").on(t.tokenHash), index("invitations_project_idx").on(t.projectId)],
+);
+
+/** A password-reset link: hashed token, short expiry, single use. */
+export const passwordResets = pgTable(
+  "password_resets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull(),
+    expiresAt: ts("expires_at").notNull(),
+    usedAt: ts("used_at"),
+    createdAt: ts("created_at").notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("password_resets_token_idx").on(t.tokenHash)],
+);
