@@ -40,7 +40,7 @@ export default async function ScenarioLayout({ children, params }: { children: R
           </p>
         </div>
       </header>
-      <ScenarioTabs scenarioId={scenario.id} canShare={can(role, "shareScenario")} />
+      <ScenarioTabs scenarioId={scenario.id} canShare={can(role, "shareScenario")} canEdit={can(role, "editScenario")} />
       {children}
     </div>
   );

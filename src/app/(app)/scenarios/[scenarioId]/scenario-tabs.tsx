@@ -2,12 +2,13 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 
-export function ScenarioTabs({ scenarioId, canShare }: { scenarioId: string; canShare: boolean }) {
+export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: string; canShare: boolean; canEdit: boolean }) {
   const path = usePathname();
   const base = `/scenarios/${scenarioId}`;
   const tabs = [
     { href: base, label: "Outlook" },
     { href: `${base}/plan`, label: "Plan" },
+    ...(canEdit ? [{ href: `${base}/data`, label: "Field data" }] : []),
     ...(canShare ? [{ href: `${base}/share`, label: "Share" }] : []),
   ];
   return (

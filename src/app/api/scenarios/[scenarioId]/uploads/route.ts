@@ -1,0 +1,86 @@
+import { NextResponse } from "next/server";
+import { z } from "zod";
+import { AppError, handler } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { validateDefinition } from "@/lib/server/scenario-input";
+import { insertUpload, listUploads } from "@db/queries/uploads";
+import { looksLikeText, MAX_UPLOAD_BYTES, type RowProblem } from "@/lib/csv/common";
+import { parseWeatherCsv } from "@/lib/csv/weather-csv";
+import { parseSurveyCsv } from "@/lib/csv/survey-csv";
+import { fitClimateProfile } from "@sim/weather-fit";
+
+type Ctx = { params: Promise<{ scenarioId: string }> };
+
+const uploadFields = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("weather"), temperature: z.enum(["F", "C"]), precipitation: z.enum(["in", "mm"]), wind: z.enum(["mph", "kmh"]).default("mph") }),
+  z.object({ kind: z.literal("survey") }),
+]);
+
+const CSV_TYPES = new Set(["text/csv", "text/plain", "application/csv", "application/vnd.ms-excel", ""]);
+
+export const GET = handler(async (_req: Request, ctx: Ctx) => {
+  const { scenarioId } = await ctx.params;
+  await requireScenario(scenarioId, "read");
+  return NextResponse.json({ uploads: await listUploads({ scenarioId }) });
+});
+
+function rowErrors(problems: RowProblem[]) {
+  const shown = problems.slice(0, 200);
+  return new AppError(
+    "bad_request",
+    `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix the rows and upload again.`,
+    shown.map((p) => ({ path: `row ${p.row}${p.field.startsWith("(") ? "" : ` · ${p.field}`}`, message: p.message })),
+  );
+}
+
+/** Checks and stores a CSV, and returns what it would change; applying it is a normal, versioned save of the plan. */
+export const POST = handler(async (req: Request, ctx: Ctx) => {
+  const { scenarioId } = await ctx.params;
+  const { scenario, user } = await requireScenario(scenarioId, "editScenario");
+  let form: FormData;
+  try {
+    form = await req.formData();
+  } catch {
+    throw new AppError("bad_request", "Send the file as a form upload (multipart/form-data).", [{ path: "file", message: "is missing" }]);
+  }
+  const fields = uploadFields.safeParse(Object.fromEntries([...form.entries()].filter(([, v]) => typeof v === "string")));
+  if (!fields.success) throw new AppError("bad_request", "Some fields need attention.", fields.error.issues.map((i) => ({ path: i.path.join(".") || "kind", message: i.message })));
+  const file = form.get("file");
+  if (!(file instanceof File) || file.size === 0) throw new AppError("bad_request", "Choose a CSV file to upload.", [{ path: "file", message: "is missing or empty" }]);
+  if (file.size > MAX_UPLOAD_BYTES) {
+    throw new AppError("too_large", `The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, [{ path: "file", message: "is larger than 5 MB" }]);
+  }
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  const nameOk = /\.(csv|txt)$/i.test(file.name);
+  if (!nameOk || !CSV_TYPES.has(file.type) || !looksLikeText(bytes)) {
+    throw new AppError("unsupported", `“${file.name}” is not a CSV file. Export the sheet as CSV (comma-separated values) and upload that.`, [{ path: "file", message: "is not a CSV file" }]);
+  }
+  const text = new TextDecoder("utf-8", { fatal: false }).decode(bytes);
+  const definition = validateDefinition(scenario.definition);
+
+  let preview: Record<string, unknown>;
+  let rowCount: number;
+  if (fields.data.kind === "weather") {
+    const { observations, problems } = parseWeatherCsv(text, { temperature: fields.data.temperature, precipitation: fields.data.precipitation, wind: fields.data.wind });
+    if (problems.length) throw rowErrors(problems);
+    const fit = fitClimateProfile(observations);
+    rowCount = observations.length;
+    preview = { kind: "weather", fit, current: definition.weather, days: observations.length, from: observations[0]?.date, to: observations.at(-1)?.date };
+  } else {
+    const { ranges, problems } = parseSurveyCsv(text, definition.deck);
+    if (problems.length) throw rowErrors(problems);
+    rowCount = ranges.length;
+    preview = { kind: "survey", ranges, current: definition.deck.survey };
+  }
+  const row = await insertUpload({
+    projectId: scenario.projectId,
+    scenarioId,
+    kind: fields.data.kind,
+    filename: file.name,
+    contentType: file.type || "text/csv",
+    content: Buffer.from(bytes),
+    rowCount,
+    userId: user.id,
+  });
+  return NextResponse.json({ upload: { id: row.id, uploadedAt: row.uploadedAt, filename: file.name, rowCount }, preview, scenarioVersion: scenario.version }, { status: 201 });
+});
