@@ -142,7 +142,10 @@ export function CheckboxGroup<T extends string | number>({ name, legend, options
   const { control } = useFormContext<ScenarioInput>();
   const { field, fieldState } = useController({ control, name: n(name) });
   const value = (Array.isArray(field.value) ? field.value : []) as T[];
-  const error = fieldState.error?.message ?? fieldState.error?.root?.message;
+  // An error may sit on the array or on one element of it (`shifts.1: unknown shift`): show the first.
+  const raw = fieldState.error as unknown as Record<string, unknown> | undefined;
+  const msg = (x: unknown) => (x && typeof x === "object" && typeof (x as { message?: unknown }).message === "string" ? (x as { message: string }).message : undefined);
+  const error = msg(raw) ?? msg(raw?.root) ?? Object.values(raw ?? {}).map(msg).find(Boolean);
   const toggle = (v: T) => {
     const next = value.includes(v) ? value.filter((x) => x !== v) : [...value, v];
     // Keep the order of the options, so a toggle back and forth leaves the form clean.

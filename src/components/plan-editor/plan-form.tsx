@@ -60,9 +60,11 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
 
   useEffect(() => {
     if (!pendingFocus) return;
-    const el =
-      document.getElementById(pendingFocus) ??
-      document.querySelector<HTMLElement>(`[id^="${CSS.escape(pendingFocus)}."], [id^="${CSS.escape(pendingFocus)}-"]`);
+    // A problem may name a part of a field (`shifts.0`) or a whole row (`operations.2`): focus the nearest input.
+    let el: HTMLElement | null = null;
+    for (let path = pendingFocus; path && !el; path = path.includes(".") ? path.slice(0, path.lastIndexOf(".")) : "") {
+      el = document.getElementById(path) ?? document.querySelector<HTMLElement>(`[id^="${CSS.escape(path)}."], [id^="${CSS.escape(path)}-"]`);
+    }
     if (el) {
       el.scrollIntoView({ block: "center" });
       el.focus();
@@ -84,7 +86,8 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
 
   const save = async (version: number) => {
     setStatus(null);
-    const values = getValues();
+    // A deep copy: getValues() shares nested objects with the live form, which may change while the request runs.
+    const values = structuredClone(getValues());
     const parsed = parseScenario(values);
     if (!parsed.ok) {
       setConflict(null);
