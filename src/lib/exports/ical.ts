@@ -1,0 +1,35 @@
+/** The planned closures as an iCalendar file (RFC 5545), written by the `ics` package. */
+import { createEvents, type EventAttributes } from "ics";
+import { closureLocalTimes, localToUtc, type PlannedClosure } from "./closures";
+
+export function closuresToIcs(opts: { closures: PlannedClosure[]; startDate: string; timeZone: string; structure: string; scenario: string; uidSeed: string }): string {
+  const events: EventAttributes[] = opts.closures.map((c, i) => {
+    const local = closureLocalTimes(c, opts.startDate);
+    const s = localToUtc(local.start, opts.timeZone);
+    const e = localToUtc(local.end, opts.timeZone);
+    return {
+      uid: `${opts.uidSeed}-${i}@pourline`,
+      start: [s.getUTCFullYear(), s.getUTCMonth() + 1, s.getUTCDate(), s.getUTCHours(), s.getUTCMinutes()],
+      startInputType: "utc",
+      startOutputType: "utc",
+      end: [e.getUTCFullYear(), e.getUTCMonth() + 1, e.getUTCDate(), e.getUTCHours(), e.getUTCMinutes()],
+      endInputType: "utc",
+      endOutputType: "utc",
+      title: `${opts.structure}: ${c.name} (${c.lanes.join(", ")} closed)`,
+      description: `${c.name} — lanes ${c.lanes.join(", ")} closed for deck overlay work. Planned from scenario “${opts.scenario}”; times are planning estimates (local ${local.start} to ${local.end}, ${opts.timeZone}) and may change with weather and progress.`,
+      location: opts.structure,
+      categories: ["Lane closure", c.closureId],
+      status: "TENTATIVE",
+      busyStatus: "BUSY",
+      productId: "pourline/closures",
+      calName: `${opts.structure} — planned lane closures`,
+    };
+  });
+  if (events.length === 0) {
+    // A calendar with no events is still a valid file to subscribe to.
+    return "BEGIN:VCALENDAR\r\nVERSION:2.0\r\nPRODID:pourline/closures\r\nCALSCALE:GREGORIAN\r\nEND:VCALENDAR\r\n";
+  }
+  const { error, value } = createEvents(events);
+  if (error || !value) throw new Error(`could not write the calendar: ${error?.message ?? "no output"}`);
+  return value;
+}

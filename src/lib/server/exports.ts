@@ -1,0 +1,33 @@
+import "server-only";
+import type { RunSummary } from "@sim/index";
+import { getProject } from "@db/queries/projects";
+import { getLatestRun } from "@db/queries/runs";
+import type { ScenarioDetail } from "@db/queries/scenarios";
+import { plannedClosures } from "@/lib/exports/closures";
+import { closuresToIcs } from "@/lib/exports/ical";
+import { AppError } from "./errors";
+import { validateDefinition } from "./scenario-input";
+
+export async function latestSummaryOf(scenario: ScenarioDetail): Promise<RunSummary> {
+  const run = await getLatestRun({ scenarioId: scenario.id });
+  if (!run) throw new AppError("not_found", "This scenario has not been run yet; run it first.");
+  return run.results as unknown as RunSummary;
+}
+
+export async function closuresCalendar(scenario: ScenarioDetail): Promise<string> {
+  const definition = validateDefinition(scenario.definition);
+  const summary = await latestSummaryOf(scenario);
+  const project = await getProject({ id: scenario.projectId });
+  return closuresToIcs({
+    closures: plannedClosures(summary, definition),
+    startDate: definition.startDate,
+    timeZone: definition.timeZone,
+    structure: project?.structureName ?? definition.name,
+    scenario: scenario.name,
+    uidSeed: scenario.id,
+  });
+}
+
+export function fileName(name: string, ext: string) {
+  return `${name.replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "").toLowerCase() || "scenario"}.${ext}`;
+}
