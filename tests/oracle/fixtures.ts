@@ -200,6 +200,26 @@ export const deterministicCases: Array<{ name: string; input: Input }> = [
     x.operations = [crewOp("milling", 16, { mobilizationHours: 3 }), crewOp("cleanup", 50, { mobilizationHours: 3 })];
     x.links = [{ from: "milling", to: "cleanup", lagFt: 300 }];
   }) },
+  { name: "a crew's first packet comes after a winter (takes mobilizationHours)", input: input((x) => {
+    x.startDate = "2027-11-22";
+    x.calendar.holidays.observeFederal = false;
+    x.calendar.season = { plan: "single", winterStart: "12-01", winterEnd: "03-01", demobilizeHours: 0, remobilizeHours: 1 };
+    x.operations = [crewOp("milling", 12.5), crewOp("cleanup", 50, { mobilizationHours: 5, crews: 2 })];
+    x.links = [{ from: "milling", to: "cleanup", lagFt: 800 }];
+  }) },
+  { name: "back-to-back shifts form one open interval: no pour candidate at 12:30", input: input((x) => {
+    // Shifts 07:00–12:30 and 12:30–16:30 ∩ window 08–16: one interval, so a pour ready at 12:15 waits for 13:00.
+    x.deck.lengthFt = 300;
+    x.calendar.shifts = [
+      { id: "a", name: "A", startHour: 7, lengthHours: 5.5 },
+      { id: "b", name: "B", startHour: 12.5, lengthHours: 4 },
+    ];
+    x.operations = [
+      { id: "prep", name: "Prep", kind: "wait", durationHours: { type: "fixed", value: 12.25 } },
+      crewOp("placement", 50, { shifts: ["a", "b"], continuous: true }),
+    ];
+    x.links = [{ from: "prep", to: "placement" }];
+  }) },
   { name: "two-season plan: cut-off date and cut-off station", input: input((x) => {
     x.startDate = "2027-11-01";
     x.calendar.holidays.observeFederal = false;
@@ -272,9 +292,9 @@ export function stochasticInput(): Input {
           gates: { minTempF: 45, rising: true, noRain: true, noRainHoursAfter: 3, maxEvaporation: 0.2, concreteDeltaF: 10, maxWindMph: 20 },
         }),
         rate: { unit: "ftPerHour", dist: { type: "triangular", min: 60, mode: 90, max: 120 } } },
-      { id: "cure", name: "Cure", kind: "wait", durationHours: { type: "triangular", min: 24, mode: 30, max: 48 } },
+      { id: "cure", name: "Cure", kind: "wait", durationHours: { type: "lognormal", median: 30, sigma: 0.25 } },
       { ...crewOp("striping", 0, { shifts: ["night"], closure: "two-lane", gates: { noRain: true, minTempF: 40 } }),
-        rate: { unit: "ftPerHour", dist: { type: "lognormal", median: 150, sigma: 0.2 } } },
+        rate: { unit: "ftPerHour", dist: { type: "pert", min: 100, mode: 150, max: 220 } } },
     ];
     x.links = [
       { from: "milling", to: "hydrodemolition", lagFt: 200 },
