@@ -2,9 +2,11 @@ import "server-only";
 import { and, desc, eq, gt, isNull } from "drizzle-orm";
 import { getDb } from "../client";
 import { shareLinks, users } from "../schema";
+import type { Executor } from "./mail";
 
-export async function createShareLink(input: { scenarioId: string; tokenHash: string; label: string; userId: string; expiresAt: Date }) {
-  const [row] = await getDb()
+/** `tx` lets the caller write the link in its own transaction (e.g. with the e-mails that carry it). */
+export async function createShareLink(input: { scenarioId: string; tokenHash: string; label: string; userId: string; expiresAt: Date; tx?: Executor }) {
+  const [row] = await (input.tx ?? getDb())
     .insert(shareLinks)
     .values({ scenarioId: input.scenarioId, tokenHash: input.tokenHash, label: input.label, createdById: input.userId, expiresAt: input.expiresAt })
     .returning({ id: shareLinks.id, expiresAt: shareLinks.expiresAt, createdAt: shareLinks.createdAt });

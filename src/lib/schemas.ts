@@ -25,6 +25,8 @@ export const memberSchema = z.object({ email: z.email("must be an e-mail address
 export const shareLinkSchema = z.object({
   label: z.string().max(120).default(""),
   expiresInDays: z.number().int().min(1, "must be at least 1 day").max(365, "must be at most 365 days"),
+  /** Addresses to e-mail the new link to, in the same transaction as the link itself. */
+  emailTo: z.array(z.email("must be an e-mail address").max(200)).max(10, "may list at most 10 addresses").default([]),
 });
 
 export const MAX_BROWSER_ITERATIONS = 50_000;

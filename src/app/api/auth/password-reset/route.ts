@@ -1,0 +1,40 @@
+import { NextResponse } from "next/server";
+import { AppError, handler, readJson } from "@/lib/server/errors";
+import { clientAddress } from "@/lib/server/signin";
+import { passwordResetRequestSchema } from "@/lib/server/mail/schemas";
+import { newShareToken } from "@/lib/server/share-token";
+import { enqueueMail } from "@/lib/server/mail/outbox";
+import { passwordResetMail } from "@/lib/server/mail/templates";
+import { appBaseUrl } from "@/lib/server/mail/links";
+import { insertPasswordReset } from "@db/queries/invitations";
+import { inTransaction } from "@db/queries/mail";
+import { MAX_RESETS_PER_ACCOUNT, MAX_RESETS_PER_ADDRESS, RESET_LINK_MS, RESET_REQUESTED, RESET_TOO_MANY, RESET_WINDOW_MS } from "@/lib/server/mail/reset";
+import { getFailedSignIns, getUserByEmail, recordFailedSignIn } from "@db/queries/users";
+
+/**
+ * Always the same 200 answer whether or not the account exists; an e-mail is queued only for a real account.
+ * Requests are counted per e-mail and per client address (in sign_in_attempts, under "reset:" keys).
+ */
+export const POST = handler(async (req: Request) => {
+  const { email } = await readJson(req, passwordResetRequestSchema);
+  const accountKey = `reset:account:${email.trim().toLowerCase()}`;
+  const addressKey = `reset:address:${clientAddress(req.headers)}`;
+  const [byAccount, byAddress] = await Promise.all([
+    getFailedSignIns({ key: accountKey, windowMs: RESET_WINDOW_MS }),
+    getFailedSignIns({ key: addressKey, windowMs: RESET_WINDOW_MS }),
+  ]);
+  if (byAccount >= MAX_RESETS_PER_ACCOUNT || byAddress >= MAX_RESETS_PER_ADDRESS) {
+    throw new AppError("too_many", RESET_TOO_MANY);
+  }
+  await Promise.all([recordFailedSignIn({ key: accountKey, windowMs: RESET_WINDOW_MS }), recordFailedSignIn({ key: addressKey, windowMs: RESET_WINDOW_MS })]);
+  const user = await getUserByEmail({ email });
+  if (user) {
+    const { token, tokenHash } = newShareToken();
+    const link = `${appBaseUrl(req)}/reset/${token}`;
+    await inTransaction(async (tx) => {
+      await insertPasswordReset({ tx, userId: user.id, tokenHash, expiresAt: new Date(Date.now() + RESET_LINK_MS) });
+      await enqueueMail(tx, passwordResetMail({ to: user.email, name: user.name, link }));
+    });
+  }
+  return NextResponse.json({ ok: true, message: RESET_REQUESTED });
+});

@@ -1,0 +1,22 @@
+import "server-only";
+/** Request schemas of the e-mail flows (invitations, password reset). */
+import { z } from "zod";
+import { ROLES } from "@db/schema-enums";
+
+export const MIN_PASSWORD_LENGTH = 10;
+
+export const invitationSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
+
+export const passwordResetRequestSchema = z.object({ email: z.email("must be an e-mail address").max(200) });
+
+const newPassword = z.string().min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`).max(200);
+
+export const passwordResetConfirmSchema = z.object({ token: z.string().min(1).max(200), password: newPassword });
+
+export const acceptNewAccountSchema = z
+  .object({
+    name: z.string().trim().min(1, "must not be empty").max(120),
+    password: newPassword,
+    confirm: z.string(),
+  })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "must match the password" });

@@ -1,0 +1,52 @@
+import "server-only";
+/**
+ * Reads the local mail catcher's store (scripts/fake-smtp.ts writes one JSON file per message into
+ * POURLINE_MAILBOX_DIR). Used by the dev mailbox page and by tests; never by the product's own flows.
+ */
+import { readdirSync, readFileSync } from "node:fs";
+import { join, resolve } from "node:path";
+
+export interface CaughtMessage {
+  id: string;
+  receivedAt: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string | null;
+}
+
+export function mailboxDir(): string {
+  return resolve(process.env.POURLINE_MAILBOX_DIR || ".data/mailbox");
+}
+
+/** Every stored message, newest first. A missing folder is an empty mailbox. */
+export function listMailbox({ dir = mailboxDir() }: { dir?: string } = {}): CaughtMessage[] {
+  let names: string[];
+  try {
+    names = readdirSync(dir).filter((n) => n.endsWith(".json") && !n.startsWith("."));
+  } catch {
+    return [];
+  }
+  const out: CaughtMessage[] = [];
+  for (const n of names) {
+    try {
+      out.push(JSON.parse(readFileSync(join(dir, n), "utf8")) as CaughtMessage);
+    } catch {
+      // A file someone else put there; not ours to show.
+    }
+  }
+  return out.sort((a, b) => b.receivedAt.localeCompare(a.receivedAt));
+}
+
+/** The newest message to `to` (case-insensitive) whose subject contains `subject`, or null. */
+export function findMail({ to, subject = "", dir }: { to: string; subject?: string; dir?: string }): CaughtMessage | null {
+  const want = to.toLowerCase();
+  return listMailbox({ dir }).find((m) => m.to.some((t) => t.toLowerCase() === want) && m.subject.includes(subject)) ?? null;
+}
+
+/** The first link in a message's text that points at `path` (e.g. "/invite/"). */
+export function linkIn(message: CaughtMessage, path: string): string | null {
+  const found = message.text.match(/https?:\/\/[^\s<>"]+/g) ?? [];
+  return found.find((u) => new URL(u).pathname.startsWith(path)) ?? null;
+}
