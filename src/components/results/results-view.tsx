@@ -1,0 +1,112 @@
+"use client";
+/**
+ * The results of one run, as the Outlook page and the public shared page show them: the plain-language
+ * summary, figures, the confidence curve and histogram, the time–distance chart of the representative
+ * iteration and the per-operation table. Reads only its props (no fetching), so it renders anywhere.
+ */
+import { useMemo } from "react";
+import { parseScenario } from "@sim/validate";
+import type { RunSummary } from "@sim/summary";
+import { formatIsoDate } from "@/lib/format";
+import { ConfidencePanel } from "./confidence-panel";
+import { FinishHistogram } from "./finish-histogram";
+import { OperationsTable } from "./operations-table";
+import { StatCards } from "./stat-cards";
+import { plainSummary } from "./summary-text";
+import { TimeDistanceChart } from "./time-distance-chart";
+
+export interface ResultsRun {
+  id: string;
+  iterations: number;
+  seed: string;
+  createdAt: string;
+  createdByName: string;
+  stale: boolean;
+}
+
+function Section({ title, id, children, description }: { title: string; id: string; children: React.ReactNode; description?: string }) {
+  return (
+    <section className="card" aria-labelledby={id}>
+      <h2 id={id}>{title}</h2>
+      {description && <p className="mt-0.5 text-sm text-muted">{description}</p>}
+      <div className="mt-3">{children}</div>
+    </section>
+  );
+}
+
+export function ResultsView({ summary, definition, run }: { summary: RunSummary; definition: unknown; run: ResultsRun }) {
+  const plan = useMemo(() => {
+    const r = parseScenario(definition);
+    return r.ok ? r.scenario : null;
+  }, [definition]);
+  const text = plainSummary(summary);
+  const allUnfinished = summary.unfinishedIterations >= summary.iterations;
+  const idp = `run-${run.id}`;
+
+  return (
+    <div className="space-y-5" data-testid="results-view">
+      <section className="card" aria-labelledby={`${idp}-summary`}>
+        <div className="flex flex-wrap items-center gap-2">
+          <h2 id={`${idp}-summary`}>Forecast</h2>
+          {run.stale && (
+            <span className="badge bg-warn-bg text-warn" data-testid="stale-badge" title="The scenario changed after this run">
+              Stale — plan changed since this run
+            </span>
+          )}
+          <span className="text-xs text-muted">
+            {summary.iterations.toLocaleString("en-US")} iterations · seed “{run.seed}”
+          </span>
+        </div>
+        <p className="mt-2 text-lg leading-relaxed" data-testid="plain-summary">
+          P80 finish <strong data-testid="p80-date">{text.p80}</strong>
+          {text.targetClause}.
+        </p>
+        <p className="mt-1 text-sm text-muted">{text.percentiles}</p>
+        {text.season1 && <p className="mt-1 text-sm">{text.season1}</p>}
+        {text.unfinished && (
+          <p className="mt-3 rounded-md border border-warn/30 bg-warn-bg px-3 py-2 text-sm" role="status" data-testid="unfinished-warning">
+            <span className="font-semibold text-warn">Unfinished iterations: </span>
+            {text.unfinished}
+          </p>
+        )}
+        <p className="mt-2 flex items-start gap-2 text-sm" data-testid="convergence">
+          <span
+            className={`badge shrink-0 ${text.convergence.stable === true ? "bg-brand-50 text-ok" : text.convergence.stable === false ? "bg-warn-bg text-warn" : "border border-line text-muted"}`}
+          >
+            {text.convergence.stable === true ? "Stable" : text.convergence.stable === false ? "Not yet stable" : "Not measured"}
+          </span>
+          <span>{text.convergence.text}</span>
+        </p>
+      </section>
+
+      <StatCards summary={summary} />
+
+      <div className="grid gap-5 lg:grid-cols-2">
+        <Section title="Confidence curve" id={`${idp}-curve`} description="Share of iterations finished by each date; dots mark P50, P80 and P90.">
+          <ConfidencePanel summary={summary} />
+        </Section>
+        <Section title="Finish dates" id={`${idp}-hist`} description="How many iterations finished in each period.">
+          <FinishHistogram summary={summary} />
+        </Section>
+      </div>
+
+      <Section
+        title="Time–distance"
+        id={`${idp}-td`}
+        description={`The iteration whose finish is nearest the P50 (finish ${formatIsoDate(summary.representative?.finish)}): where each operation is on the deck over time.`}
+      >
+        <div data-testid="time-distance-chart">
+          {allUnfinished && summary.representative?.trace?.packets?.length === 0 ? (
+            <p className="text-sm text-muted">No iteration finished, so there is no representative iteration to draw.</p>
+          ) : (
+            <TimeDistanceChart summary={summary} plan={plan} stale={run.stale} />
+          )}
+        </div>
+      </Section>
+
+      <Section title="Finish by operation" id={`${idp}-ops`}>
+        <OperationsTable operations={summary.operations} />
+      </Section>
+    </div>
+  );
+}

@@ -1,0 +1,50 @@
+/** Small figures of a run: weather-lost shifts, discovered-condition hours, mean closure hours by closure. */
+import type { RunSummary } from "@sim/summary";
+
+const num = (v: number, digits = 0) => (Number.isFinite(v) ? v.toLocaleString("en-US", { maximumFractionDigits: digits }) : "—");
+
+function Stat({ title, children, note }: { title: string; children: React.ReactNode; note?: string }) {
+  return (
+    <div className="rounded-md border border-line bg-paper/60 px-4 py-3">
+      <h3 className="text-sm font-semibold text-muted">{title}</h3>
+      <div className="mt-1 text-ink">{children}</div>
+      {note && <p className="mt-1 text-xs text-muted">{note}</p>}
+    </div>
+  );
+}
+
+export function StatCards({ summary }: { summary: RunSummary }) {
+  const closures = summary.closureHours.byClosure.map((c) => ({ id: c.closure, name: c.name, hours: summary.closureHours.totalByClosure[c.closure] ?? 0 }));
+  return (
+    <div className="grid gap-3 sm:grid-cols-3" data-testid="run-stats">
+      <Stat title="Weather-lost shifts" note="Shifts with a ready crew and an open calendar but no production because of weather.">
+        <p>
+          <span className="text-xl font-semibold">{num(summary.weatherLostShifts.p50)}</span> <span className="text-sm">P50</span>
+          <span className="mx-2 text-muted">·</span>
+          <span className="text-xl font-semibold">{num(summary.weatherLostShifts.p80)}</span> <span className="text-sm">P80</span>
+        </p>
+      </Stat>
+      <Stat title="Discovered-condition hours" note="Extra work where milling or demolition finds deeper deterioration.">
+        <p>
+          <span className="text-xl font-semibold">{num(summary.discoveredHours.p50, 1)} h</span> <span className="text-sm">P50</span>
+          <span className="mx-2 text-muted">·</span>
+          <span className="text-xl font-semibold">{num(summary.discoveredHours.p80, 1)} h</span> <span className="text-sm">P80</span>
+        </p>
+      </Stat>
+      <Stat title="Closure hours by closure" note="Mean over iterations: hours a closure is in place for work or mobilization.">
+        {closures.length === 0 ? (
+          <p className="text-sm text-muted">No closure was used.</p>
+        ) : (
+          <dl className="space-y-0.5 text-sm">
+            {closures.map((c) => (
+              <div key={c.id} className="flex justify-between gap-3">
+                <dt>{c.name}</dt>
+                <dd className="font-semibold tabular-nums">{num(c.hours)} h</dd>
+              </div>
+            ))}
+          </dl>
+        )}
+      </Stat>
+    </div>
+  );
+}

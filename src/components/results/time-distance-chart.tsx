@@ -1,0 +1,175 @@
+"use client";
+/**
+ * Time–distance chart of the representative iteration: date across, station up, one line per operation,
+ * gaps where the crew paused, winter and holiday stand-downs shaded. Stations and shading come from the
+ * plan (the definition); the trace from the run. Rendering stays light: no dots, no animation.
+ */
+import { useMemo } from "react";
+import { CartesianGrid, Line, LineChart, ReferenceArea, ResponsiveContainer, XAxis, YAxis } from "recharts";
+import { compileCalendar, HORIZON_DAYS } from "@sim/calendar";
+import type { Scenario } from "@sim/schema";
+import type { RunSummary } from "@sim/summary";
+import { formatStation } from "@/lib/format";
+import { AXIS_TICK, GRID_STROKE, seriesStyle } from "./chart-style";
+import { dateTicks, formatDay, hoursToDay } from "./date-axis";
+import { AreaSwatch, LineSwatch } from "./legend-swatch";
+import { standDowns } from "./stand-downs";
+import { timeDistanceSeries } from "./time-distance-series";
+
+const STATION_STEPS = [100, 200, 500, 1000, 2000, 5000, 10000];
+
+function stationTicks(lo: number, hi: number, max = 8): number[] {
+  const step = STATION_STEPS.find((s) => (hi - lo) / s <= max) ?? 20000;
+  const out: number[] = [];
+  for (let v = Math.ceil(lo / step) * step; v <= hi; v += step) out.push(v);
+  if (out[0] !== lo) out.unshift(lo);
+  if (out[out.length - 1] !== hi) out.push(hi);
+  return out;
+}
+
+const hoursText = (h: number) => `${Math.round(h).toLocaleString("en-US")} h`;
+
+export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummary; plan: Scenario | null; stale: boolean }) {
+  const trace = summary.representative?.trace;
+  const model = useMemo(() => {
+    if (!plan || !trace) return null;
+    const names = new Map(summary.operations.map((o) => [o.id, o.name]));
+    const ops = plan.operations.map((o) => ({ id: o.id, name: names.get(o.id) ?? o.name }));
+    const toX = (h: number) => hoursToDay(summary.startDate, h);
+    const series = timeDistanceSeries(trace, plan.deck, ops, toX).filter((s) => s.points.length > 0 || s.unfinishedPackets > 0);
+    const drawn = series.filter((s) => s.points.length > 0);
+    if (drawn.length === 0) return { series, bands: [], lo: 0, hi: 0 };
+    const lo = Math.min(...drawn.map((s) => s.firstStart!));
+    const hi = Math.max(...drawn.map((s) => s.lastFinish!));
+    // Stand-downs from the plan's calendar, in the plan's own hours, then onto the shared day axis.
+    const planDay0 = hoursToDay(plan.startDate, 0);
+    const fromH = (lo - planDay0) * 24;
+    const toH = (hi - planDay0) * 24;
+    const days = Math.min(HORIZON_DAYS, Math.max(1, Math.ceil(toH / 24) + 2));
+    const bands = toH > 0 ? standDowns(compileCalendar(plan, days), plan.calendar.season.demobilizeHours, Math.max(0, fromH), toH) : [];
+    return { series, bands: bands.map((b) => ({ kind: b.kind, x1: planDay0 + b.start / 24, x2: planDay0 + b.end / 24 })), lo, hi };
+  }, [plan, trace, summary.operations, summary.startDate]);
+
+  if (!plan) return <p className="text-sm text-muted">The plan behind this run could not be read, so stations cannot be drawn.</p>;
+  if (!model || model.lo === model.hi) {
+    return <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted">The representative iteration did no work that can be drawn (it did not finish within the horizon).</p>;
+  }
+  const { series, bands, lo, hi } = model;
+  const yLo = plan.deck.startStationFt;
+  const yHi = plan.deck.startStationFt + plan.deck.lengthFt;
+  const { ticks, label } = dateTicks(lo, hi, 8);
+  const winters = bands.filter((b) => b.kind === "winter").length;
+  const holidays = bands.filter((b) => b.kind === "holiday").length;
+  const unfinished = series.reduce((n, s) => n + s.unfinishedPackets, 0);
+  const aria =
+    `Time–distance chart of iteration ${summary.representative.iteration + 1} (finish nearest the P50): ${series.length} operations ` +
+    `from ${formatStation(yLo)} to ${formatStation(yHi)} between ${formatDay(lo)} and ${formatDay(hi)}. ` +
+    `Gaps in a line are pauses (nights, weather, stand-downs). Shaded: ${winters} winter and ${holidays} holiday stand-downs. The table below lists each operation.`;
+
+  return (
+    <figure aria-label={aria} className="m-0">
+      {stale && <p className="mb-2 text-xs text-warn">The plan changed after this run: stations and stand-down shading follow the current plan.</p>}
+      <div aria-hidden="true">
+        <ResponsiveContainer width="100%" height={380} initialDimension={{ width: 700, height: 380 }}>
+          <LineChart margin={{ top: 16, right: 24, bottom: 28, left: 16 }} accessibilityLayer={false}>
+            <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
+            {bands.map((b, i) => (
+              <ReferenceArea
+                key={i}
+                x1={b.x1}
+                x2={b.x2}
+                fill={b.kind === "winter" ? "var(--color-brand-100)" : "var(--color-s4)"}
+                fillOpacity={b.kind === "winter" ? 0.7 : 0.35}
+                stroke="none"
+                ifOverflow="hidden"
+                label={b.kind === "winter" && b.x2 - b.x1 > (hi - lo) / 12 ? { value: "Winter", position: "insideTop", fill: "var(--color-brand-800)", fontSize: 12 } : undefined}
+              />
+            ))}
+            <XAxis
+              type="number"
+              dataKey="x"
+              domain={[lo, hi]}
+              ticks={ticks}
+              tickFormatter={label}
+              tick={AXIS_TICK}
+              allowDataOverflow
+              label={{ value: "Date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
+            />
+            <YAxis
+              type="number"
+              domain={[yLo, yHi]}
+              ticks={stationTicks(yLo, yHi)}
+              tickFormatter={(v: number) => formatStation(v)}
+              tick={AXIS_TICK}
+              width={84}
+              label={{ value: "Station (1 STA = 100 ft)", angle: -90, position: "insideLeft", offset: 0, dy: 70, fill: "var(--color-ink)", fontSize: 12 }}
+            />
+            {series.map((s, i) => {
+              const st = seriesStyle(i);
+              return (
+                <Line
+                  key={s.id}
+                  data={s.points}
+                  dataKey="y"
+                  name={s.name}
+                  type="linear"
+                  stroke={st.stroke}
+                  strokeDasharray={st.strokeDasharray || undefined}
+                  strokeWidth={2}
+                  dot={false}
+                  activeDot={false}
+                  connectNulls={false}
+                  isAnimationActive={false}
+                />
+              );
+            })}
+          </LineChart>
+        </ResponsiveContainer>
+      </div>
+      <figcaption className="mt-2">
+        <ul className="flex flex-wrap gap-x-5 gap-y-1.5 text-xs text-ink" aria-label="Legend">
+          {series.map((s, i) => (
+            <li key={s.id} className="flex items-center gap-1.5">
+              <LineSwatch {...seriesStyle(i)} />
+              {s.name}
+            </li>
+          ))}
+          <li className="flex items-center gap-1.5">
+            <AreaSwatch className="bg-brand-100" />
+            Winter stand-down
+          </li>
+          <li className="flex items-center gap-1.5">
+            <AreaSwatch className="bg-s4/40" />
+            Holiday stand-down
+          </li>
+        </ul>
+        {unfinished > 0 && <p className="mt-1 text-xs text-warn">{unfinished} packets of this iteration did not finish within the horizon and are not drawn.</p>}
+      </figcaption>
+      <table className="sr-only">
+        <caption>Operations in the representative iteration</caption>
+        <thead>
+          <tr>
+            <th scope="col">Operation</th>
+            <th scope="col">First start</th>
+            <th scope="col">Last finish</th>
+            <th scope="col">Stretches of work</th>
+            <th scope="col">Paused for weather inside packets</th>
+            <th scope="col">Paused by the calendar inside packets</th>
+          </tr>
+        </thead>
+        <tbody>
+          {series.map((s) => (
+            <tr key={s.id}>
+              <th scope="row">{s.name}</th>
+              <td>{s.firstStart === null ? "—" : formatDay(s.firstStart)}</td>
+              <td>{s.lastFinish === null ? "—" : formatDay(s.lastFinish)}</td>
+              <td>{s.pieces}</td>
+              <td>{hoursText(s.pausedHours.weather)}</td>
+              <td>{hoursText(s.pausedHours.closed)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </figure>
+  );
+}
