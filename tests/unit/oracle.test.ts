@@ -215,6 +215,11 @@ describe("reference vs engine, deterministic scenarios (exact on quarter hours)"
       expect(eng.packets).toHaveLength(ref.packets.length);
       expect(disagreements(s, ref, eng.packets, 1e-6, Infinity)).toEqual([]);
       expect(eng.finish).toBeCloseTo(ref.finish, 6);
+      // The engine's drawSamples must give the same fixed rates (ftPerShift ÷ first listed shift) and waits.
+      const drawn = drawSamples(s, "any", 0);
+      const mine = fixedSamples(s);
+      expect(Array.from(drawn.rateFtPerHour)).toEqual(Array.from(mine.rateFtPerHour));
+      expect(Array.from(drawn.waitHours)).toEqual(Array.from(mine.waitHours));
     });
   }
 });
@@ -266,6 +271,9 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
         { minLength: 2, maxLength: 4 },
       ),
       policy: fc.constantFrom("standDown" as const, "workThrough" as const),
+      blackouts: fc.array(fc.integer({ min: 0, max: 60 }), { maxLength: 2 }), // days after the start
+      wetDays: fc.array(fc.integer({ min: 0, max: 60 }), { maxLength: 3 }),
+      twoSeason: fc.option(fc.record({ cutoffDay: fc.integer({ min: 10, max: 90 }), cutoffFt: fc.integer({ min: 0, max: 24 }).map((n) => n * 25) }), { nil: undefined }),
       demob: quarter(0, 8),
       remob: quarter(0, 4),
       ops: fc.array(
@@ -281,6 +289,8 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
           continuous: fc.integer({ min: 0, max: 2 }).map((n) => n === 0),
           minTempF: fc.option(fc.integer({ min: 55, max: 75 }), { nil: undefined }),
           rising: fc.integer({ min: 0, max: 3 }).map((n) => n === 0),
+          noRain: fc.boolean(),
+          noRainHoursAfter: quarter(0, 4),
           lagFt: fc.integer({ min: 0, max: 4 }).map((n) => n * 25),
           lagHours: quarter(0, 6),
         }),
@@ -289,7 +299,8 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
     })
     .map((g): Input => {
       const x = baseInput();
-      x.startDate = new Date(Date.UTC(2027, 3, 1 + g.startDay)).toISOString().slice(0, 10);
+      const iso = (day: number) => new Date(Date.UTC(2027, 3, 1 + day)).toISOString().slice(0, 10);
+      x.startDate = iso(g.startDay);
       x.deck.lengthFt = g.lengthFt;
       x.deck.packetFt = g.packetFt;
       x.calendar.shifts = g.shifts.map((s, i) => ({ id: `s${i}`, name: `Shift ${i}`, ...s }));
@@ -301,9 +312,16 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
         endHour: (w.startHour + w.lengthHours) % 24,
       }));
       const withWindows = [...new Set(g.windows.map((w) => w.closure))];
-      x.calendar.holidays = { policy: g.policy, observeFederal: true, blackoutDates: [] };
+      x.calendar.holidays = { policy: g.policy, observeFederal: true, blackoutDates: g.blackouts.map((d) => iso(g.startDay + d)) };
       x.calendar.season = { plan: "single", winterStart: "12-01", winterEnd: "03-01", demobilizeHours: g.demob, remobilizeHours: g.remob };
-      x.weather = { mode: "fixed", monthly: climate({ tminF: 50, tmaxF: 80 }) };
+      if (g.twoSeason)
+        x.calendar.season = {
+          ...x.calendar.season,
+          plan: "two",
+          cutoffDate: iso(g.startDay + g.twoSeason.cutoffDay),
+          cutoffStationFt: x.deck.startStationFt + Math.min(g.twoSeason.cutoffFt, g.lengthFt),
+        };
+      x.weather = { mode: "fixed", monthly: climate({ tminF: 50, tmaxF: 80 }), fixedWetDates: g.wetDays.map((d) => iso(g.startDay + d)) };
       x.operations = g.ops.map((o, i) =>
         o.wait
           ? { id: `op${i}`, name: `Op ${i}`, kind: "wait" as const, durationHours: { type: "fixed" as const, value: o.waitHours } }
@@ -314,7 +332,7 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
                 closure: withWindows.includes(o.closure) ? o.closure : withWindows[0],
                 mobilizationHours: o.mob,
                 continuous: o.continuous,
-                gates: { minTempF: o.minTempF, rising: o.rising },
+                gates: { minTempF: o.minTempF, rising: o.rising, noRain: o.noRain, noRainHoursAfter: o.noRainHoursAfter },
               }),
               rate: { unit: o.perShift ? ("ftPerShift" as const) : ("ftPerHour" as const), dist: { type: "fixed" as const, value: o.rate * (o.perShift ? 8 : 1) } },
             },
