@@ -1,0 +1,48 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { requireProject } from "@/lib/server/access";
+import { can } from "@/lib/permissions";
+import { MAX_COMPARE } from "@/components/results/compare-logic";
+import { CompareView } from "./compare-view";
+
+export const metadata: Metadata = { title: "Compare scenarios" };
+
+export default async function ComparePage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
+  const { projectId } = await params;
+  const sp = await searchParams;
+  const { project, role } = await requireProject(projectId, "read").catch((e) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  const raw = Array.isArray(sp.ids) ? sp.ids.join(",") : (sp.ids ?? "");
+  const initialIds = [...new Set(raw.split(",").map((s) => s.trim()).filter(Boolean))].slice(0, MAX_COMPARE);
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm text-muted">
+        <Link href="/projects" className="hover:text-ink">
+          Projects
+        </Link>{" "}
+        /{" "}
+        <Link href={`/projects/${project.id}`} className="hover:text-ink">
+          {project.name}
+        </Link>{" "}
+        / <span className="text-ink">Compare</span>
+      </nav>
+      <header>
+        <h1>Compare scenarios</h1>
+        <p className="mt-1 text-sm text-muted">
+          {project.structureName} · the latest run of each scenario, side by side. Differences are from the first scenario chosen.
+        </p>
+      </header>
+      <CompareView projectId={project.id} canEdit={can(role, "editScenario")} initialIds={initialIds} />
+    </div>
+  );
+}
