@@ -286,39 +286,16 @@ export function stampShifts(shifts: Intervals, a: number, b: number, stamp: Int3
   return count;
 }
 
-/**
- * Hours of the union of segments [starts[j], ends[j]) (j < n; both arrays sorted in place) falling on each
- * day, added into `out[offset + d]`. Returns the first and last day touched (first > last when none).
- */
-export function unionHoursByDay(starts: Float64Array, ends: Float64Array, n: number, out: Float64Array, offset: number, days: number): [number, number] {
-  const s = starts.subarray(0, n).sort();
-  const e = ends.subarray(0, n).sort();
-  let first = days;
-  let last = -1;
-  let i = 0;
-  let j = 0;
-  let depth = 0;
-  let open = 0;
-  while (j < n) {
-    if (i < n && s[i] <= e[j]) {
-      if (depth++ === 0) open = s[i];
-      i++;
-    } else {
-      if (--depth === 0) {
-        const close = e[j];
-        let t = open;
-        while (t < close) {
-          const d = Math.floor(t / 24);
-          if (d >= days) break;
-          const dayEnd = Math.min(close, 24 * (d + 1));
-          out[offset + d] += dayEnd - t;
-          if (d < first) first = d;
-          if (d > last) last = d;
-          t = dayEnd;
-        }
-      }
-      j++;
-    }
+/** Adds the hours of [a, b) falling on each day into `out[offset + d]`; widens `range` = [first, last] day. */
+export function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, days: number, range: Int32Array): void {
+  let t = a;
+  while (t < b) {
+    const d = Math.floor(t / 24);
+    if (d >= days) break;
+    const dayEnd = Math.min(b, 24 * (d + 1));
+    out[offset + d] += dayEnd - t;
+    if (d < range[0]) range[0] = d;
+    if (d > range[1]) range[1] = d;
+    t = dayEnd;
   }
-  return [first, last];
 }

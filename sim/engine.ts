@@ -10,7 +10,7 @@
  * The compiled object owns scratch buffers: one `simulate` at a time per compiled scenario.
  */
 import {
-  compileCalendar, firstIntervalAfter, seasonAt, stampShifts, unionHoursByDay, type CompiledCalendar, type OpCalendar,
+  addHoursByDay, compileCalendar, firstIntervalAfter, seasonAt, stampShifts, type CompiledCalendar, type OpCalendar,
 } from "./calendar";
 import { GateCache, gateProfileOf, pour, produce, profileKey, type GateProfile, type WorkSink } from "./gates";
 import { EventQueue } from "./queue";
@@ -29,6 +29,8 @@ export interface CompiledOp {
   profile: number; // gate profile index, -1 when no per-slot gate
   risingFirst: boolean;
   noRainAfter: number;
+  /** Any weather gate at all (per-slot, rising or no-rain-after). */
+  gated: boolean;
   preds: { from: number; lagHours: number; need: Int32Array }[];
 }
 
@@ -107,7 +109,7 @@ export function compileScenario(scenario: Scenario): CompiledScenario {
         return { from: index.get(l.from)!, lagHours: l.lagHours, need };
       });
     if (op.kind === "wait") {
-      return { index: i, id: op.id, kind: "wait", crews: 0, continuous: false, mobilizationHours: 0, closure: -1, profile: -1, risingFirst: false, noRainAfter: 0, preds };
+      return { index: i, id: op.id, kind: "wait", crews: 0, continuous: false, mobilizationHours: 0, closure: -1, profile: -1, risingFirst: false, noRainAfter: 0, gated: false, preds };
     }
     const prof = gateProfileOf(op);
     let profile = -1;
@@ -130,6 +132,7 @@ export function compileScenario(scenario: Scenario): CompiledScenario {
       profile,
       risingFirst: op.continuous && op.gates.rising === true,
       noRainAfter: op.continuous ? (op.gates.noRainHoursAfter ?? 0) : 0,
+      gated: profile >= 0 || (op.continuous && ((op.gates.noRainHoursAfter ?? 0) > 0 || op.gates.rising === true)),
       preds,
     };
   });
@@ -142,7 +145,7 @@ export function compileScenario(scenario: Scenario): CompiledScenario {
     while (cutoffPacket < packets && cutoffPacket * packetFt < off) cutoffPacket++;
   }
   const gates = new GateCache(profiles, calendar.days);
-  const work = new WorkContext(calendar, gates, closures.length, packets, ops.length, ops.map((o) => (o.kind === "crew" ? calendar.ops[o.index]!.shifts.length : 0)));
+  const work = new WorkContext(calendar, gates, closures.length, packets, ops);
   return { scenario, calendar, packets, packetLen, ops, order: topoOrder(ops), closures, cutoffPacket, work };
 }
 
@@ -220,7 +223,7 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
         else if (season > crewSeason[crew]) mob = c.scenario.calendar.season.remobilizeHours;
         crewMobilized[crew] = 1;
         crewSeason[crew] = season;
-        const m = mob > 0 ? w.mobilize(t0, mob) : s;
+        const m = mob > 0 ? w.mobilize(t0, mob, crew) : s;
         const ex = extra.length ? extra[i] : 0;
         discoveredHours += ex;
         const hours = c.packetLen[i] / rate + ex;
@@ -275,10 +278,16 @@ class WorkContext implements WorkSink {
   lastStart = 0;
   weatherLost = 0;
   season1End = NaN;
+  // Work and mobilization segments per lane (one lane per crew of an operation): chronological per lane,
+  // so the union per closure is a k-way merge, not a sort.
   private segStarts: Float64Array[];
   private segEnds: Float64Array[];
   private readonly segCount: Int32Array;
+  private readonly laneBase: Int32Array;
+  private readonly closureLanes: Int32Array[];
+  private readonly lanePos: Int32Array;
   private readonly closureOut: Float64Array;
+  private readonly range = new Int32Array(2);
   private outFirst = 0;
   private outLast = -1;
   private gen = 0;
@@ -297,15 +306,26 @@ class WorkContext implements WorkSink {
     readonly gates: GateCache,
     private readonly nClosures: number,
     packets: number,
-    nOps: number,
-    shiftCounts: number[],
+    ops: CompiledOp[],
   ) {
+    const nOps = ops.length;
+    const shiftCounts = ops.map((o) => (o.kind === "crew" ? cal.ops[o.index]!.shifts.length : 0));
     this.finish = new Float64Array(nOps * packets);
     this.prefMax = new Float64Array(nOps * packets);
     this.ready = new Float64Array(packets);
-    this.segStarts = Array.from({ length: nClosures }, () => new Float64Array(256));
-    this.segEnds = Array.from({ length: nClosures }, () => new Float64Array(256));
-    this.segCount = new Int32Array(nClosures);
+    this.laneBase = new Int32Array(nOps);
+    let lanes = 0;
+    const byClosure: number[][] = Array.from({ length: nClosures }, () => []);
+    for (const o of ops) {
+      this.laneBase[o.index] = lanes;
+      for (let k = 0; k < o.crews; k++) byClosure[o.closure].push(lanes + k);
+      lanes += o.crews;
+    }
+    this.closureLanes = byClosure.map((l) => Int32Array.from(l));
+    this.lanePos = new Int32Array(lanes);
+    this.segStarts = Array.from({ length: lanes }, () => new Float64Array(64));
+    this.segEnds = Array.from({ length: lanes }, () => new Float64Array(64));
+    this.segCount = new Int32Array(lanes);
     this.closureOut = new Float64Array(nClosures * cal.days);
     this.prodStamp = shiftCounts.map((n) => new Int32Array(n));
     this.waitStamp = shiftCounts.map((n) => new Int32Array(n));
@@ -342,7 +362,8 @@ class WorkContext implements WorkSink {
   }
 
   /** Mobilization: `hours` of open time (1–3) from `t`, not weather-gated; counted as closure time. */
-  mobilize(t: number, hours: number): number {
+  mobilize(t: number, hours: number, crew: number): number {
+    this.crew = crew;
     const iv = this.opCal.open;
     let rem = hours;
     for (let i = firstIntervalAfter(iv, t); i < iv.length; i++) {
@@ -376,7 +397,8 @@ class WorkContext implements WorkSink {
   production(a: number, b: number): void {
     if (!(b > a)) return;
     this.segment(a, b);
-    stampShifts(this.opCal.shifts, a, b, this.prodStamp[this.op.index], this.gen, null, 0);
+    // Only gated operations can wait on the weather, so only they need to know where they produced.
+    if (this.op.gated) stampShifts(this.opCal.shifts, a, b, this.prodStamp[this.op.index], this.gen, null, 0);
     if (b <= this.cal.firstWinterStart && !(b <= this.season1End)) this.season1End = b;
   }
 
@@ -396,19 +418,23 @@ class WorkContext implements WorkSink {
   }
 
   private segment(a: number, b: number): void {
-    const c = this.op.closure;
-    let n = this.segCount[c];
-    if (n === this.segStarts[c].length) {
+    const lane = this.laneBase[this.op.index] + this.crew;
+    const n = this.segCount[lane];
+    if (n > 0 && this.segEnds[lane][n - 1] === a) {
+      this.segEnds[lane][n - 1] = b;
+      return;
+    }
+    if (n === this.segStarts[lane].length) {
       const s = new Float64Array(2 * n);
       const e = new Float64Array(2 * n);
-      s.set(this.segStarts[c]);
-      e.set(this.segEnds[c]);
-      this.segStarts[c] = s;
-      this.segEnds[c] = e;
+      s.set(this.segStarts[lane]);
+      e.set(this.segEnds[lane]);
+      this.segStarts[lane] = s;
+      this.segEnds[lane] = e;
     }
-    this.segStarts[c][n] = a;
-    this.segEnds[c][n] = b;
-    this.segCount[c] = n + 1;
+    this.segStarts[lane][n] = a;
+    this.segEnds[lane][n] = b;
+    this.segCount[lane] = n + 1;
   }
 
   /** Union of work and mobilization time per closure and day (closureOut[c · days + d]). */
@@ -417,15 +443,39 @@ class WorkContext implements WorkSink {
     const out = this.closureOut;
     if (this.outLast >= this.outFirst)
       for (let c = 0; c < this.nClosures; c++) out.fill(0, c * days + this.outFirst, c * days + this.outLast + 1);
-    let first = days;
-    let last = -1;
+    const range = this.range;
+    range[0] = days;
+    range[1] = -1;
+    const pos = this.lanePos;
+    pos.fill(0);
     for (let c = 0; c < this.nClosures; c++) {
-      const [f, l] = unionHoursByDay(this.segStarts[c], this.segEnds[c], this.segCount[c], out, c * days, days);
-      if (f < first) first = f;
-      if (l > last) last = l;
+      const lanes = this.closureLanes[c];
+      let curS = 0;
+      let curE = -Infinity;
+      for (;;) {
+        let pick = -1;
+        let best = Infinity;
+        for (let j = 0; j < lanes.length; j++) {
+          const l = lanes[j];
+          if (pos[l] < this.segCount[l] && this.segStarts[l][pos[l]] < best) {
+            best = this.segStarts[l][pos[l]];
+            pick = l;
+          }
+        }
+        if (pick < 0) break;
+        const e = this.segEnds[pick][pos[pick]++];
+        if (best <= curE) {
+          if (e > curE) curE = e;
+        } else {
+          if (curE > curS) addHoursByDay(curS, curE, out, c * days, days, range);
+          curS = best;
+          curE = e;
+        }
+      }
+      if (curE > curS) addHoursByDay(curS, curE, out, c * days, days, range);
     }
-    this.outFirst = first;
-    this.outLast = last;
-    return { hours: out, first, last };
+    this.outFirst = range[0];
+    this.outLast = range[1];
+    return { hours: out, first: range[0], last: range[1] };
   }
 }

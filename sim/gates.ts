@@ -10,7 +10,7 @@
  */
 import { evaporationLbFt2h } from "./evaporation";
 import type { CrewOperation } from "./schema";
-import { hourlyTempF, isRainHour, type WeatherSeries } from "./weather";
+import { hourlyTempF, type WeatherSeries } from "./weather";
 
 export interface GateProfile {
   minTempF: number; // -Infinity when absent
@@ -52,6 +52,12 @@ export class GateCache {
   private readonly stamp: Int32Array;
   private readonly computed: Int32Array;
   private readonly pass: Int32Array;
+  /** Per (profile, day): bit 0 temperature passes all day, bit 1 the whole day fails (cold or windy). */
+  private readonly dayFlags: Int32Array;
+  private readonly evapPass: Float64Array;
+  private readonly evapFail: Float64Array;
+  private readonly rainStamp: Int32Array;
+  private readonly rainBits: Int32Array;
   private readonly tempStamp: Int32Array;
   private readonly temp: Float64Array;
   private ensured = 0;
@@ -67,6 +73,11 @@ export class GateCache {
     this.stamp = new Int32Array(n);
     this.computed = new Int32Array(n);
     this.pass = new Int32Array(n);
+    this.dayFlags = new Int32Array(n);
+    this.evapPass = new Float64Array(n);
+    this.evapFail = new Float64Array(n);
+    this.rainStamp = new Int32Array(this.stride);
+    this.rainBits = new Int32Array(this.stride);
     this.tempStamp = new Int32Array(this.stride * 24 + 1);
     this.temp = new Float64Array(this.stride * 24 + 1);
   }
@@ -99,7 +110,27 @@ export class GateCache {
   }
 
   rainAt(k: number): boolean {
-    return isRainHour(this.need(Math.floor(k / 24)), k);
+    const d = (k / 24) | 0;
+    return (this.rainMask(d) & (1 << (k - 24 * d))) !== 0;
+  }
+
+  /** Day d's rain as 24 bits (slot h wet ⇔ bit h), the same rule as `isRainHour`, built once per day. */
+  private rainMask(d: number): number {
+    if (this.rainStamp[d] === this.gen) return this.rainBits[d];
+    const s = this.need(d);
+    let bits = 0;
+    if (s.wet[d] === 1) {
+      const lo = s.rainStartHour[d];
+      const hi = Math.min(24, lo + s.rainHours[d]);
+      if (hi > lo) bits |= ((1 << (hi - lo)) - 1) << lo;
+    }
+    if (d > 0 && s.wet[d - 1] === 1) {
+      const spill = s.rainStartHour[d - 1] + s.rainHours[d - 1] - 24;
+      if (spill > 0) bits |= (1 << Math.min(24, spill)) - 1;
+    }
+    this.rainStamp[d] = this.gen;
+    this.rainBits[d] = bits;
+    return bits;
   }
 
   slotOk(profile: number, k: number): boolean {
@@ -110,21 +141,55 @@ export class GateCache {
       this.stamp[at] = this.gen;
       this.computed[at] = 0;
       this.pass[at] = 0;
+      this.dayFlags[at] = this.dayBounds(this.profiles[profile], d);
+      this.evapPass[at] = -Infinity;
+      this.evapFail[at] = Infinity;
     } else if (this.computed[at] & bit) return (this.pass[at] & bit) !== 0;
-    const ok = this.evaluate(this.profiles[profile], k, d);
+    const ok = this.evaluate(this.profiles[profile], k, d, this.dayFlags[at], at);
     this.computed[at] |= bit;
     if (ok) this.pass[at] |= bit;
     return ok;
   }
 
-  private evaluate(p: GateProfile, k: number, d: number): boolean {
-    if (p.risingEverySlot && !isRisingSlot(k)) return false;
+  /**
+   * Whole-day temperature shortcut, exact: every hourly temperature of day d's slots (ends included) is a
+   * half-cosine between two of tmin[d], tmin[d+1], tmax[d−1], tmax[d], so it lies between their minimum and
+   * maximum (a warm night after a cold day can put tmax[d−1] below tmin[d]).
+   */
+  private dayBounds(p: GateProfile, d: number): number {
     const s = this.need(d);
-    if (s.windMph[d] > p.maxWindMph) return false;
-    if (p.noRain && isRainHour(s, k)) return false;
-    if (p.minTempF !== -Infinity && (this.tempAt(k) < p.minTempF || this.tempAt(k + 1) < p.minTempF)) return false;
+    const a = s.tminF[d];
+    const b = s.tminF[d + 1];
+    const c = s.tmaxF[d > 0 ? d - 1 : 0];
+    const e = s.tmaxF[d];
+    const lo = Math.min(a, b, c, e);
+    const hi = Math.max(a, b, c, e);
+    let flags = 0;
+    if (s.windMph[d] > p.maxWindMph) return 2;
+    if (p.minTempF !== -Infinity) flags |= lo >= p.minTempF ? 1 : hi < p.minTempF ? 2 : 0;
+    return flags;
+  }
+
+  private evaluate(p: GateProfile, k: number, d: number, flags: number, at: number): boolean {
+    if (flags & 2) return false;
+    if (p.risingEverySlot && !isRisingSlot(k)) return false;
+    if (p.noRain && (this.rainMask(d) & (1 << (k - 24 * d))) !== 0) return false;
+    if (p.minTempF !== -Infinity && !(flags & 1) && (this.tempAt(k) < p.minTempF || this.tempAt(k + 1) < p.minTempF)) return false;
     if (p.maxEvaporation !== Infinity) {
       const air = this.tempAt(k);
+      if (p.concreteDeltaF >= 0) {
+        // With concrete ≥ air, Uno's E rises with the air temperature (∂E/∂T ∝ (Tc+18)^1.5 − r(Ta+18)^1.5 ≥ 0),
+        // and wind and humidity are daily: within a day, a temperature at or below one known to pass passes,
+        // at or above one known to fail fails; only temperatures in between need the formula.
+        if (air <= this.evapPass[at]) return true;
+        if (air >= this.evapFail[at]) return false;
+        const s = this.series!;
+        const ok = evaporationLbFt2h(air + p.concreteDeltaF, air, s.rhPct[d], s.windMph[d]) <= p.maxEvaporation;
+        if (ok) this.evapPass[at] = air;
+        else this.evapFail[at] = air;
+        return ok;
+      }
+      const s = this.series!;
       if (evaporationLbFt2h(air + p.concreteDeltaF, air, s.rhPct[d], s.windMph[d]) > p.maxEvaporation) return false;
     }
     return true;
@@ -229,8 +294,9 @@ export function pour(
       }
       let next = -1;
       if (profile >= 0) {
-        const kEnd = Math.ceil(t + hours - EPS);
-        for (let k = k0; k < kEnd; k++) {
+        // Latest slot first: every candidate up to a failing slot f contains f, so the next candidate worth
+        // trying is f + 1, and the latest failure skips furthest (hot afternoons fail late slots first).
+        for (let k = Math.ceil(t + hours - EPS) - 1; k >= k0; k--) {
           if (!gates.slotOk(profile, k)) {
             next = k + 1;
             break;

@@ -1,0 +1,72 @@
+/**
+ * Engine benchmark: `npm run bench [-- --json] [--iterations N]`. One thread, the demo scenarios in
+ * scenarios/. For each: iterations per second of `runIterations`, and the floor — the time to draw the same
+ * samples alone (drawSamples plus the same days of weather the engine read) — so `floorRatio` = engine
+ * time ÷ floor time says how much the engine costs beyond generating its inputs. Targets (brief): ≥ 5,000
+ * iterations/s on the main demo and floorRatio ≤ 4. Each measurement is the best of five rounds after a
+ * warm-up, timed in this process's CPU time (process.cpuUsage) so that other processes sharing the machine
+ * do not count against the engine; wall-clock rates are printed beside it.
+ */
+import { readFileSync } from "node:fs";
+import { compileScenario, parseScenario, runIterations } from "../sim/index";
+import { drawSamples } from "../sim/samples";
+
+const MAIN = "kestrel-two-season.json";
+const FILES = [MAIN, "kestrel-single-season.json", "kestrel-holiday-work.json", "kestrel-two-placement-crews.json"];
+
+const args = process.argv.slice(2);
+const json = args.includes("--json");
+const itIdx = args.indexOf("--iterations");
+const iterations = itIdx >= 0 ? Number(args[itIdx + 1]) : 3000;
+const SEED = "bench";
+
+function best<T>(rounds: number, f: () => T): { ms: number; wallMs: number; value: T } {
+  let ms = Infinity;
+  let wallMs = Infinity;
+  let value!: T;
+  for (let r = 0; r < rounds; r++) {
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    value = f();
+    const c = process.cpuUsage(c0);
+    wallMs = Math.min(wallMs, performance.now() - t0);
+    ms = Math.min(ms, (c.user + c.system) / 1000);
+  }
+  return { ms, wallMs, value };
+}
+
+const scenarios = FILES.map((file) => {
+  const parsed = parseScenario(JSON.parse(readFileSync(new URL(`../scenarios/${file}`, import.meta.url), "utf8")));
+  if (!parsed.ok) throw new Error(`${file}: ${parsed.problems.map((p) => `${p.path}: ${p.message}`).join("; ")}`);
+  const compiled = compileScenario(parsed.scenario);
+  runIterations(compiled, SEED, 0, Math.min(500, iterations)); // warm-up
+  const engine = best(5, () => runIterations(compiled, SEED, 0, iterations));
+  const days = engine.value.weatherDays;
+  const floor = best(5, () => {
+    let sink = 0;
+    for (let k = 0; k < iterations; k++) {
+      const s = drawSamples(parsed.scenario, SEED, k);
+      s.weather.ensure(days[k] + 1);
+      sink += s.rateFtPerHour.length;
+    }
+    return sink;
+  });
+  return {
+    file,
+    iterations,
+    iterationsPerSecond: Math.round((iterations / engine.ms) * 1000),
+    wallIterationsPerSecond: Math.round((iterations / engine.wallMs) * 1000),
+    floorIterationsPerSecond: Math.round((iterations / floor.ms) * 1000),
+    floorRatio: Math.round((engine.ms / floor.ms) * 100) / 100,
+    weatherDaysMean: Math.round(days.reduce((a, b) => a + b, 0) / iterations),
+  };
+});
+
+const main = scenarios[0];
+const out = { iterationsPerSecond: main.iterationsPerSecond, floorRatio: main.floorRatio, mainScenario: MAIN, scenarios };
+if (json) console.log(JSON.stringify(out, null, 2));
+else {
+  for (const s of scenarios)
+    console.log(`${s.file.padEnd(36)} ${String(s.iterationsPerSecond).padStart(7)} it/s (wall ${s.wallIterationsPerSecond})   floor ${String(s.floorIterationsPerSecond).padStart(7)} it/s   ratio ${s.floorRatio}   weather days ${s.weatherDaysMean}`);
+  console.log(`main demo: ${main.iterationsPerSecond} it/s (target ≥ 5,000), floorRatio ${main.floorRatio} (target ≤ 4)`);
+}
