@@ -1,0 +1,59 @@
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { small } from "./engine-fixtures";
+
+const root = new URL("../..", import.meta.url).pathname;
+const cli = (...args: string[]) => spawnSync("npx", ["tsx", "scripts/sim-cli.ts", ...args], { cwd: root, encoding: "utf8", timeout: 60_000 });
+
+describe("sim CLI", { timeout: 60_000 }, () => {
+  it("prints one JSON object with the documented fields", () => {
+    const r = cli("scenarios/small-deterministic.json", "--iterations", "5", "--seed", "cli", "--json");
+    expect(r.status, r.stderr).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.iterations).toBe(5);
+    expect(out.seed).toBe("cli");
+    // Hand-worked in engine-handworked.test.ts: the small scenario finishes Wed 2027-04-07 09:00.
+    expect(out.finish).toEqual({ p10: "2027-04-07", p50: "2027-04-07", p80: "2027-04-07", p90: "2027-04-07" });
+    expect(out.operations.map((o: { id: string }) => o.id)).toEqual(["milling", "overlay"]);
+    expect(out.operations[0].finish.p50).toBe("2027-04-06");
+    expect(out.operations[1].finish.p80).toBe("2027-04-07");
+    expect(out.weatherLostShifts.p50).toBe(0);
+    expect(out.convergence).toBe(0);
+  });
+
+  it("prints a readable summary without --json", () => {
+    const r = cli("scenarios/small-deterministic.json", "--iterations", "2");
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/Finish {2}P10 2027-04-07/);
+  });
+
+  it("exits 2 with each problem as path: message for an invalid scenario", () => {
+    const dir = mkdtempSync(join(tmpdir(), "pourline-cli-"));
+    const file = join(dir, "bad.json");
+    writeFileSync(file, JSON.stringify(small((s) => {
+      s.deck.lengthFt = 0;
+      s.links.push({ from: "overlay", to: "milling" });
+    })));
+    const r = cli(file, "--json");
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("deck.lengthFt: must be > 0");
+    expect(r.stdout).toBe("");
+  });
+
+  it("exits 2 for an unreadable file, invalid JSON and a bad option", () => {
+    const missing = cli("scenarios/does-not-exist.json");
+    expect(missing.status).toBe(2);
+    expect(missing.stderr).toMatch(/cannot read scenario file/);
+    const dir = mkdtempSync(join(tmpdir(), "pourline-cli-"));
+    writeFileSync(join(dir, "x.json"), "{ not json");
+    const bad = cli(join(dir, "x.json"));
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/not valid JSON/);
+    const opt = cli("scenarios/small-deterministic.json", "--iterations", "many");
+    expect(opt.status).toBe(2);
+    expect(opt.stderr).toMatch(/--iterations must be a whole number/);
+  });
+});
