@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { redirect } from "next/navigation";
 import { currentSession } from "@/lib/server/auth";
 import { SignInForm } from "./signin-form";
@@ -25,6 +26,11 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       <section className="card md:w-1/2" aria-labelledby="signin-heading">
         <h2 id="signin-heading">Sign in</h2>
         <SignInForm next={next ?? ""} />
+        <p className="mt-4 text-sm">
+          <Link href="/reset" className="text-brand-700 underline">
+            Forgot your password?
+          </Link>
+        </p>
       </section>
     </main>
   );

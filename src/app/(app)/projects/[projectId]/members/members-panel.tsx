@@ -3,6 +3,7 @@ import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/permissions";
+import { formatDateTime } from "@/lib/format";
 
 interface Member {
   userId: string;
@@ -94,45 +95,142 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
           </p>
         )}
       </section>
-      <section className="card" aria-labelledby="add-member-heading">
-        <h2 id="add-member-heading">Add a person</h2>
-        <p className="mt-1 text-sm text-muted">Add someone who already has a Pourline account.</p>
-        <form
-          className="mt-4 space-y-4"
-          onSubmit={(e) => {
-            e.preventDefault();
-            add.mutate({ email, role });
-          }}
-        >
-          <div>
-            <label htmlFor="member-email" className="field-label">
-              E-mail
-            </label>
-            <input id="member-email" type="email" className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} required aria-invalid={!!addError?.fields.find((f) => f.path === "email")} />
-            {addError?.fields.find((f) => f.path === "email") && <p className="field-error">E-mail {addError.fields.find((f) => f.path === "email")!.message}</p>}
-          </div>
-          <div>
-            <label htmlFor="member-role" className="field-label">
-              Role
-            </label>
-            <select id="member-role" className="field-input" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
-              {Object.entries(ROLE_LABELS).map(([r, label]) => (
-                <option key={r} value={r}>
-                  {label} — {ROLE_HELP[r as ProjectRole]}
-                </option>
-              ))}
-            </select>
-          </div>
-          <button type="submit" className="btn-primary" disabled={add.isPending}>
-            Add to project
-          </button>
-          {addError && !addError.fields.length && (
-            <p role="alert" className="field-error">
-              {addError.message}
+      <div className="space-y-5">
+        <section className="card" aria-labelledby="add-member-heading">
+          <h2 id="add-member-heading">Add a person</h2>
+          <p className="mt-1 text-sm text-muted">Add someone who already has a Pourline account.</p>
+          <form
+            className="mt-4 space-y-4"
+            onSubmit={(e) => {
+              e.preventDefault();
+              add.mutate({ email, role });
+            }}
+          >
+            <div>
+              <label htmlFor="member-email" className="field-label">
+                E-mail
+              </label>
+              <input id="member-email" type="email" className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} required aria-invalid={!!addError?.fields.find((f) => f.path === "email")} />
+              {addError?.fields.find((f) => f.path === "email") && <p className="field-error">E-mail {addError.fields.find((f) => f.path === "email")!.message}</p>}
+            </div>
+            <div>
+              <label htmlFor="member-role" className="field-label">
+                Role
+              </label>
+              <select id="member-role" className="field-input" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
+                {Object.entries(ROLE_LABELS).map(([r, label]) => (
+                  <option key={r} value={r}>
+                    {label} — {ROLE_HELP[r as ProjectRole]}
+                  </option>
+                ))}
+              </select>
+            </div>
+            <button type="submit" className="btn-primary" disabled={add.isPending}>
+              Add to project
+            </button>
+            {addError && !addError.fields.length && (
+              <p role="alert" className="field-error">
+                {addError.message}
+              </p>
+            )}
+          </form>
+        </section>
+        <InviteByEmail projectId={projectId} />
+      </div>
+    </div>
+  );
+}
+
+interface PendingInvitation {
+  id: string;
+  email: string;
+  role: ProjectRole;
+  expiresAt: string;
+  invitedByName: string;
+}
+
+/** Invites someone without an account: the server e-mails a single-use link that expires in 7 days. */
+function InviteByEmail({ projectId }: { projectId: string }) {
+  const qc = useQueryClient();
+  const key = ["projects", projectId, "invitations"];
+  const pending = useQuery({ queryKey: key, queryFn: () => api<{ invitations: PendingInvitation[] }>(`/api/projects/${projectId}/invitations`).then((r) => r.invitations) });
+  const [email, setEmail] = useState("");
+  const [role, setRole] = useState<ProjectRole>("viewer");
+  const [sentTo, setSentTo] = useState<string | null>(null);
+  const invite = useMutation({
+    mutationFn: (v: { email: string; role: ProjectRole }) => api<{ email: string }>(`/api/projects/${projectId}/invitations`, { method: "POST", body: v }),
+    onSuccess: (r) => {
+      setSentTo(r.email);
+      setEmail("");
+      qc.invalidateQueries({ queryKey: key });
+    },
+  });
+  const err = invite.error instanceof ApiError ? invite.error : null;
+  const emailError = err?.fields.find((f) => f.path === "email")?.message;
+  return (
+    <section className="card" aria-labelledby="invite-heading">
+      <h2 id="invite-heading">Invite by e-mail</h2>
+      <p className="mt-1 text-sm text-muted">For someone new to Pourline (or who should join with their own account). The link works once, for 7 days.</p>
+      <form
+        className="mt-4 space-y-4"
+        onSubmit={(e) => {
+          e.preventDefault();
+          setSentTo(null);
+          invite.mutate({ email, role });
+        }}
+      >
+        <div>
+          <label htmlFor="invite-email" className="field-label">
+            E-mail to invite
+          </label>
+          <input id="invite-email" type="email" className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} required aria-invalid={!!emailError} aria-describedby={emailError ? "invite-email-error" : undefined} />
+          {emailError && (
+            <p id="invite-email-error" className="field-error">
+              E-mail {emailError}
             </p>
           )}
-        </form>
-      </section>
-    </div>
+        </div>
+        <div>
+          <label htmlFor="invite-role" className="field-label">
+            Their role
+          </label>
+          <select id="invite-role" className="field-input" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
+            {Object.entries(ROLE_LABELS).map(([r, label]) => (
+              <option key={r} value={r}>
+                {label} — {ROLE_HELP[r as ProjectRole]}
+              </option>
+            ))}
+          </select>
+        </div>
+        <button type="submit" className="btn-primary" disabled={invite.isPending}>
+          {invite.isPending ? "Sending…" : "Send invitation"}
+        </button>
+        {err && !emailError && (
+          <p role="alert" className="field-error">
+            {err.message}
+          </p>
+        )}
+        {sentTo && (
+          <p role="status" className="text-sm text-brand-800">
+            Invitation sent to {sentTo}.
+          </p>
+        )}
+      </form>
+      {pending.data && pending.data.length > 0 && (
+        <div className="mt-5">
+          <h3 className="text-sm font-semibold">Waiting for an answer</h3>
+          <ul className="mt-2 space-y-1 text-sm" data-testid="pending-invitations">
+            {pending.data.map((i) => (
+              <li key={i.id}>
+                {i.email} · {ROLE_LABELS[i.role]}
+                <span className="block text-xs text-muted">
+                  by {i.invitedByName}, expires {formatDateTime(i.expiresAt)}
+                </span>
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+    </section>
   );
 }

@@ -19,19 +19,35 @@ function statusOf(l: LinkRow): { text: string; tone: string } {
   return { text: "Live", tone: "bg-brand-50 text-brand-800" };
 }
 
+/** "a@x.example, b@y.example; c@z.example" → the three addresses; blanks dropped. */
+function splitAddresses(list: string): string[] {
+  return list
+    .split(/[\s,;]+/)
+    .map((a) => a.trim())
+    .filter(Boolean);
+}
+
 export function ShareLinks({ scenarioId }: { scenarioId: string }) {
   const qc = useQueryClient();
   const key = ["scenarios", scenarioId, "share-links"];
   const links = useQuery({ queryKey: key, queryFn: () => api<{ links: LinkRow[] }>(`/api/scenarios/${scenarioId}/share-links`).then((r) => r.links) });
   const [label, setLabel] = useState("");
   const [days, setDays] = useState(14);
+  const [emailTo, setEmailTo] = useState("");
   const [created, setCreated] = useState<string | null>(null);
+  const [emailedTo, setEmailedTo] = useState<string[]>([]);
   const [copied, setCopied] = useState(false);
 
   const create = useMutation({
-    mutationFn: () => api<{ path: string }>(`/api/scenarios/${scenarioId}/share-links`, { method: "POST", body: { label, expiresInDays: days } }),
+    mutationFn: () =>
+      api<{ path: string; emailedTo: string[] }>(`/api/scenarios/${scenarioId}/share-links`, {
+        method: "POST",
+        body: { label, expiresInDays: days, emailTo: splitAddresses(emailTo) },
+      }),
     onSuccess: (r) => {
       setCreated(`${window.location.origin}${r.path}`);
+      setEmailedTo(r.emailedTo ?? []);
+      setEmailTo("");
       setCopied(false);
       setLabel("");
       qc.invalidateQueries({ queryKey: key });
@@ -42,6 +58,8 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
     onSuccess: () => qc.invalidateQueries({ queryKey: key }),
   });
   const fieldError = (path: string) => (create.error instanceof ApiError ? create.error.fields.find((f) => f.path === path)?.message : undefined);
+  const emailProblem = create.error instanceof ApiError ? create.error.fields.find((f) => f.path.startsWith("emailTo")) : undefined;
+  const badAddress = emailProblem ? /\[(\d+)\]/.exec(emailProblem.path) : null;
 
   return (
     <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.4fr)]">
@@ -71,10 +89,29 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
             <input id="share-days" type="number" min={1} max={365} className="field-input w-32" value={days} onChange={(e) => setDays(Number(e.target.value))} aria-invalid={!!fieldError("expiresInDays")} />
             {fieldError("expiresInDays") && <p className="field-error">Expiry {fieldError("expiresInDays")}</p>}
           </div>
+          <div>
+            <label htmlFor="share-email-to" className="field-label">
+              E-mail it to (optional)
+            </label>
+            <input
+              id="share-email-to"
+              className="field-input"
+              value={emailTo}
+              onChange={(e) => setEmailTo(e.target.value)}
+              placeholder="e.g. pio@county.example, engineer@firm.example"
+              aria-invalid={!!emailProblem}
+              aria-describedby="share-email-to-note"
+            />
+            <p id="share-email-to-note" className={emailProblem ? "field-error" : "mt-1 text-xs text-muted"}>
+              {emailProblem
+                ? `${badAddress ? `“${splitAddresses(emailTo)[Number(badAddress[1])] ?? ""}” ` : "The list "}${emailProblem.message}`
+                : "Up to 10 addresses, separated by commas. Each gets the link by e-mail."}
+            </p>
+          </div>
           <button type="submit" className="btn-primary" disabled={create.isPending} data-testid="create-share-link">
             {create.isPending ? "Creating…" : "Create link"}
           </button>
-          {create.isError && !fieldError("expiresInDays") && (
+          {create.isError && !fieldError("expiresInDays") && !emailProblem && (
             <p role="alert" className="field-error">
               {create.error.message}
             </p>
@@ -83,6 +120,7 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
         {created && (
           <div className="mt-5 rounded-md border border-brand-100 bg-brand-50 p-3" role="status">
             <p className="text-sm font-medium">Link created — copy it now; it is not shown again.</p>
+            {emailedTo.length > 0 && <p className="mt-1 text-sm">E-mailed to {emailedTo.join(", ")}.</p>}
             <div className="mt-2 flex gap-2">
               <input aria-label="New share link" readOnly value={created} className="field-input mt-0 font-mono text-xs" data-testid="share-link-url" onFocus={(e) => e.currentTarget.select()} />
               <button
