@@ -55,6 +55,7 @@ export class GateCache {
   /** Per (profile, day): bit 0 temperature passes all day, bit 1 the whole day fails (cold or windy). */
   private readonly dayFlags: Int32Array;
   private readonly evapPass: Float64Array;
+  private readonly dayHi: Float64Array;
   private readonly evapFail: Float64Array;
   private readonly rainStamp: Int32Array;
   private readonly rainBits: Int32Array;
@@ -75,6 +76,7 @@ export class GateCache {
     this.pass = new Int32Array(n);
     this.dayFlags = new Int32Array(n);
     this.evapPass = new Float64Array(n);
+    this.dayHi = new Float64Array(n);
     this.evapFail = new Float64Array(n);
     this.rainStamp = new Int32Array(this.stride);
     this.rainBits = new Int32Array(this.stride);
@@ -141,7 +143,7 @@ export class GateCache {
       this.stamp[at] = this.gen;
       this.computed[at] = 0;
       this.pass[at] = 0;
-      this.dayFlags[at] = this.dayBounds(this.profiles[profile], d);
+      this.dayFlags[at] = this.dayBounds(this.profiles[profile], profile, d);
       this.evapPass[at] = -Infinity;
       this.evapFail[at] = Infinity;
     } else if (this.computed[at] & bit) return (this.pass[at] & bit) !== 0;
@@ -156,7 +158,7 @@ export class GateCache {
    * half-cosine between two of tmin[d], tmin[d+1], tmax[d−1], tmax[d], so it lies between their minimum and
    * maximum (a warm night after a cold day can put tmax[d−1] below tmin[d]).
    */
-  private dayBounds(p: GateProfile, d: number): number {
+  private dayBounds(p: GateProfile, profile: number, d: number): number {
     const s = this.need(d);
     const a = s.tminF[d];
     const b = s.tminF[d + 1];
@@ -165,6 +167,7 @@ export class GateCache {
     const lo = Math.min(a, b, c, e);
     const hi = Math.max(a, b, c, e);
     let flags = 0;
+    this.dayHi[profile * this.stride + d] = hi;
     if (s.windMph[d] > p.maxWindMph) return 2;
     if (p.minTempF !== -Infinity) flags |= lo >= p.minTempF ? 1 : hi < p.minTempF ? 2 : 0;
     return flags;
@@ -176,6 +179,16 @@ export class GateCache {
     if (p.noRain && (this.rainMask(d) & (1 << (k - 24 * d))) !== 0) return false;
     if (p.minTempF !== -Infinity && !(flags & 1) && (this.tempAt(k) < p.minTempF || this.tempAt(k + 1) < p.minTempF)) return false;
     if (p.maxEvaporation !== Infinity) {
+      if (p.concreteDeltaF >= 0) {
+        // Day's upper temperature bound passes ⇒ every slot of the day passes (monotone, see below).
+        if (this.evapFail[at] === Infinity && this.evapPass[at] === -Infinity) {
+          const s = this.series!;
+          const hi = this.dayHi[at];
+          if (evaporationLbFt2h(hi + p.concreteDeltaF, hi, s.rhPct[d], s.windMph[d]) <= p.maxEvaporation) this.evapPass[at] = Infinity;
+          else this.evapFail[at] = hi;
+        }
+        if (this.evapPass[at] === Infinity) return true;
+      }
       const air = this.tempAt(k);
       if (p.concreteDeltaF >= 0) {
         // With concrete ≥ air, Uno's E rises with the air temperature (∂E/∂T ∝ (Tc+18)^1.5 − r(Ta+18)^1.5 ≥ 0),
