@@ -10,7 +10,7 @@
  * The compiled object owns scratch buffers: one `simulate` at a time per compiled scenario.
  */
 import {
-  addHoursByDay, compileCalendar, firstIntervalAfter, seasonAt, stampShifts, type CompiledCalendar, type OpCalendar,
+  compileCalendar, firstIntervalAfter, seasonAt, stampShifts, unionLanesByDay, type CompiledCalendar, type OpCalendar,
 } from "./calendar";
 import { GateCache, gateProfileOf, pour, produce, profileKey, type GateProfile, type WorkSink } from "./gates";
 import { EventQueue } from "./queue";
@@ -446,34 +446,9 @@ class WorkContext implements WorkSink {
     const range = this.range;
     range[0] = days;
     range[1] = -1;
-    const pos = this.lanePos;
-    pos.fill(0);
-    for (let c = 0; c < this.nClosures; c++) {
-      const lanes = this.closureLanes[c];
-      let curS = 0;
-      let curE = -Infinity;
-      for (;;) {
-        let pick = -1;
-        let best = Infinity;
-        for (let j = 0; j < lanes.length; j++) {
-          const l = lanes[j];
-          if (pos[l] < this.segCount[l] && this.segStarts[l][pos[l]] < best) {
-            best = this.segStarts[l][pos[l]];
-            pick = l;
-          }
-        }
-        if (pick < 0) break;
-        const e = this.segEnds[pick][pos[pick]++];
-        if (best <= curE) {
-          if (e > curE) curE = e;
-        } else {
-          if (curE > curS) addHoursByDay(curS, curE, out, c * days, days, range);
-          curS = best;
-          curE = e;
-        }
-      }
-      if (curE > curS) addHoursByDay(curS, curE, out, c * days, days, range);
-    }
+    this.lanePos.fill(0);
+    for (let c = 0; c < this.nClosures; c++)
+      unionLanesByDay(this.segStarts, this.segEnds, this.segCount, this.closureLanes[c], this.lanePos, out, c * days, days, range);
     this.outFirst = range[0];
     this.outLast = range[1];
     return { hours: out, first: range[0], last: range[1] };
