@@ -39,7 +39,8 @@ export function ConfidencePanel({ summary }: { summary: RunSummary }) {
           />
         </div>
       )}
-      <table className="sr-only">
+      <div className="sr-only">
+        <table>
         <caption>Finish date by confidence level</caption>
         <thead>
           <tr>
@@ -62,6 +63,7 @@ export function ConfidencePanel({ summary }: { summary: RunSummary }) {
           )}
         </tbody>
       </table>
+      </div>
     </figure>
   );
 }

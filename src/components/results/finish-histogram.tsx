@@ -44,7 +44,8 @@ export function FinishHistogram({ summary }: { summary: RunSummary }) {
           </BarChart>
         </ResponsiveContainer>
       </div>
-      <table className="sr-only">
+      <div className="sr-only">
+        <table>
         <caption>Finish dates by bar</caption>
         <thead>
           <tr>
@@ -61,6 +62,7 @@ export function FinishHistogram({ summary }: { summary: RunSummary }) {
           ))}
         </tbody>
       </table>
+      </div>
     </figure>
   );
 }

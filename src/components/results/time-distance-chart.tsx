@@ -22,9 +22,9 @@ function stationTicks(lo: number, hi: number, max = 8): number[] {
   const step = STATION_STEPS.find((s) => (hi - lo) / s <= max) ?? 20000;
   const out: number[] = [];
   for (let v = Math.ceil(lo / step) * step; v <= hi; v += step) out.push(v);
-  if (out[0] !== lo) out.unshift(lo);
-  if (out[out.length - 1] !== hi) out.push(hi);
-  return out;
+  // The deck's ends are always labelled; a grid tick too close to an end would overlap it.
+  const inner = out.filter((v) => v - lo >= step / 2 && hi - v >= step / 2);
+  return [lo, ...inner, hi];
 }
 
 const hoursText = (h: number) => `${Math.round(h).toLocaleString("en-US")} h`;
@@ -145,7 +145,8 @@ export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummar
         </ul>
         {unfinished > 0 && <p className="mt-1 text-xs text-warn">{unfinished} packets of this iteration did not finish within the horizon and are not drawn.</p>}
       </figcaption>
-      <table className="sr-only">
+      <div className="sr-only">
+        <table>
         <caption>Operations in the representative iteration</caption>
         <thead>
           <tr>
@@ -170,6 +171,7 @@ export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummar
           ))}
         </tbody>
       </table>
+      </div>
     </figure>
   );
 }

@@ -233,7 +233,7 @@ function CompareResults({
                       <span className="badge bg-warn-bg text-warn">{s.run.unfinishedIterations.toLocaleString("en-US")} unfinished</span>
                     )}
                   </div>
-                  <div className="mt-1.5 flex flex-wrap gap-1.5">
+                  <div className="mt-1.5 flex flex-col items-start gap-1.5">
                     {i > 0 && (
                       <button type="button" className="btn-secondary px-2.5 py-1 text-xs" onClick={() => onBaseline(s.id)} aria-label={`Use ${s.name} as the baseline`}>
                         Use as baseline

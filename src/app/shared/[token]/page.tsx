@@ -1,0 +1,83 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { loadSharedScenario } from "@/lib/server/shared";
+import { formatDateTime } from "@/lib/format";
+import type { RunSummary } from "@sim/summary";
+import { ResultsView } from "@/components/results";
+import { SafetyNote } from "@/components/safety-note";
+import { InputsSummary } from "./inputs-summary";
+
+// A share link is a bearer secret: keep it out of search engines and out of Referer headers.
+export const metadata: Metadata = { title: "Shared forecast", robots: { index: false, follow: false }, referrer: "no-referrer" };
+
+export default async function SharedPage({ params }: { params: Promise<{ token: string }> }) {
+  const { token } = await params;
+  const shared = await loadSharedScenario(token).catch((e) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  const { link, project, scenario, run } = shared;
+  const stale = !!run && run.scenarioVersion !== scenario.version;
+  return (
+    <div className="min-h-screen">
+      <header className="border-b border-line bg-white">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center justify-between gap-3 px-5 py-3">
+          <p className="text-lg font-bold tracking-tight text-brand-700">Pourline</p>
+          <p className="badge border border-line text-muted" data-testid="shared-expiry">
+            Read-only link, expires {formatDateTime(link.expiresAt)}
+          </p>
+        </div>
+      </header>
+      <main id="main" className="mx-auto max-w-7xl space-y-5 px-5 py-6">
+        <div>
+          {project && (
+            <p className="text-sm text-muted" data-testid="shared-project">
+              {project.name} · {project.structureName} · {project.region}
+            </p>
+          )}
+          <h1 data-testid="scenario-name">{scenario.name}</h1>
+          {scenario.description && <p className="mt-1 max-w-3xl text-sm">{scenario.description}</p>}
+          <p className="mt-1 text-xs text-muted">
+            Plan version {scenario.version}, last saved {formatDateTime(scenario.updatedAt)}
+            {scenario.updatedByName ? ` by ${scenario.updatedByName}` : ""}
+            {link.label ? ` · shared as “${link.label}”` : ""}
+          </p>
+        </div>
+
+        {run ? (
+          <>
+            <p className="text-sm text-muted">
+              Latest run: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
+              {run.createdByName ? ` by ${run.createdByName}` : ""}
+              {stale ? ` — computed from plan version ${run.scenarioVersion}; the plan has changed since.` : "."}
+            </p>
+            <ResultsView
+              summary={run.results as unknown as RunSummary}
+              definition={scenario.definition}
+              run={{ id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale }}
+            />
+          </>
+        ) : (
+          <div className="card text-center" data-testid="no-run">
+            <h2>No forecast yet</h2>
+            <p className="mx-auto mt-2 max-w-xl text-sm text-muted">
+              This scenario has not been run yet, so there is no finish-date forecast to show. The inputs below are the plan as it stands; ask the person who shared
+              the link to run it.
+            </p>
+          </div>
+        )}
+
+        <section className="card" aria-labelledby="inputs-heading">
+          <h2 id="inputs-heading">Inputs</h2>
+          <p className="mt-0.5 text-sm text-muted">The plan the forecast is computed from (current version).</p>
+          <div className="mt-3">
+            <InputsSummary definition={scenario.definition} />
+          </div>
+        </section>
+
+        <SafetyNote />
+      </main>
+    </div>
+  );
+}
