@@ -25,7 +25,8 @@ export async function createUser(u: { id: string; email: string; name: string; t
  * attempts cannot both slip under the limit.
  */
 export async function recordFailedSignIn({ key, windowMs }: { key: string; windowMs: number }): Promise<number> {
-  const windowStart = new Date(Date.now() - windowMs);
+  // Passed as text with a cast: the driver does not serialise a Date inside a raw SQL fragment.
+  const windowStart = sql`${new Date(Date.now() - windowMs).toISOString()}::timestamptz`;
   const [row] = await getDb()
     .insert(signInAttempts)
     .values({ key, failures: 1, windowStart: new Date() })

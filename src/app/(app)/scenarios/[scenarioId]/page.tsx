@@ -31,6 +31,21 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
               forecast.
             </p>
           )}
+          <nav aria-label="Exports" className="flex flex-wrap items-center gap-2 text-sm">
+            <span className="text-muted">Take it with you:</span>
+            <a className="btn-secondary" href={`/scenarios/${scenario.id}/brief`}>
+              Owner brief
+            </a>
+            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/results.csv`} download>
+              Percentiles (CSV)
+            </a>
+            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/results.csv?part=trace`} download>
+              Time–distance trace (CSV)
+            </a>
+            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/closures.ics`} download>
+              Planned closures (calendar)
+            </a>
+          </nav>
           <p className="text-sm text-muted">
             Latest run: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”, {formatDateTime(run.createdAt)}
             {run.createdByName ? ` by ${run.createdByName}` : ""}.

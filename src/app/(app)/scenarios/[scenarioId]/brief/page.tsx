@@ -1,0 +1,115 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { validateDefinition } from "@/lib/server/scenario-input";
+import { getLatestRun } from "@db/queries/runs";
+import { getProject } from "@db/queries/projects";
+import type { RunSummary } from "@sim/index";
+import { ResultsView } from "@/components/results";
+import { SafetyNote } from "@/components/safety-note";
+import { formatDateTime, formatIsoDate, formatPercent, formatStation } from "@/lib/format";
+import { PrintButton } from "./print-button";
+
+export const metadata: Metadata = { title: "Owner brief" };
+
+const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
+const hour = (h: number) => `${String(Math.floor(h)).padStart(2, "0")}:${String(Math.round((h % 1) * 60)).padStart(2, "0")}`;
+
+/** A printable one-document summary for the owner: the answer first, then the evidence, then the assumptions. */
+export default async function BriefPage({ params }: { params: Promise<{ scenarioId: string }> }) {
+  const { scenarioId } = await params;
+  const { scenario } = await requireScenario(scenarioId, "read").catch((e) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  const [run, project] = await Promise.all([getLatestRun({ scenarioId }), getProject({ id: scenario.projectId })]);
+  const d = validateDefinition(scenario.definition);
+  const s = run?.results as unknown as RunSummary | undefined;
+  return (
+    <article className="brief space-y-6" data-testid="owner-brief">
+      <div className="flex items-start justify-between gap-4 print:hidden">
+        <p className="text-sm text-muted">A print-ready brief of this scenario&apos;s latest forecast. Use your browser&apos;s print dialog to save it as PDF.</p>
+        <PrintButton />
+      </div>
+      <div className="border-b border-line pb-4">
+        <p className="text-sm font-semibold uppercase tracking-widest text-brand-700">Owner brief</p>
+        <h2 className="mt-1 text-2xl">{project?.name}</h2>
+        <p className="text-muted">
+          {project?.structureName} · scenario “{scenario.name}” (version {scenario.version}, saved {formatDateTime(scenario.updatedAt)} by {scenario.updatedByName})
+        </p>
+      </div>
+      {!s || !run ? (
+        <p className="card">This scenario has not been run yet: there is no forecast to brief.</p>
+      ) : (
+        <>
+          <section aria-labelledby="answer-heading" className="grid gap-3 sm:grid-cols-4">
+            <h3 id="answer-heading" className="sr-only">
+              Finish dates
+            </h3>
+            {(["p50", "p80", "p90"] as const).map((k) => (
+              <div key={k} className="card">
+                <p className="text-xs font-semibold uppercase text-muted">{k.toUpperCase()} finish</p>
+                <p className="mt-1 text-xl font-semibold">{formatIsoDate(s.finish[k])}</p>
+              </div>
+            ))}
+            <div className="card">
+              <p className="text-xs font-semibold uppercase text-muted">Target {s.target ? formatIsoDate(s.target.date) : "—"}</p>
+              <p className="mt-1 text-xl font-semibold">{s.target ? `${formatPercent(s.target.probability)} chance` : "no target set"}</p>
+            </div>
+          </section>
+          {run.scenarioVersion !== scenario.version && (
+            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This forecast was computed from version {run.scenarioVersion}; the plan has changed since.</p>
+          )}
+          <p className="text-sm text-muted">
+            Monte Carlo forecast: {run.iterations.toLocaleString("en-US")} iterations (seed “{run.seed}”), computed {formatDateTime(run.createdAt)}. P80 means 80 % of the
+            simulated outcomes finished on or before that date, given the assumptions below.
+          </p>
+          <ResultsView summary={s} definition={scenario.definition} run={{ id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale: run.scenarioVersion !== scenario.version }} />
+        </>
+      )}
+      <section aria-labelledby="assumptions-heading" className="card break-inside-avoid">
+        <h3 id="assumptions-heading">Assumptions</h3>
+        <ul className="mt-2 list-disc space-y-1 pl-5 text-sm">
+          <li>
+            Deck {d.deck.lengthFt.toLocaleString("en-US")} ft from {formatStation(d.deck.startStationFt)}, lanes {d.deck.lanes.join(", ")}, worked in {d.deck.packetFt} ft packets; work starts{" "}
+            {formatIsoDate(d.startDate)}.
+          </li>
+          <li>
+            Season plan: {d.calendar.season.plan === "two" ? "two seasons" : "one season"}; winter stand-down {d.calendar.season.winterStart} to {d.calendar.season.winterEnd}
+            {d.calendar.season.cutoffDate ? `, season 1 stops ${formatIsoDate(d.calendar.season.cutoffDate)}` : ""}
+            {d.calendar.season.cutoffStationFt !== undefined ? `, season 1 stops at ${formatStation(d.calendar.season.cutoffStationFt)}` : ""}.
+          </li>
+          <li>Holidays: {d.calendar.holidays.policy === "standDown" ? "crews stand down from the afternoon before each federal holiday through the holiday weekend" : "work continues through holidays"}.</li>
+          <li>Work days: {d.calendar.workDays.map((w) => DAYS[w]).join(", ")}; shifts: {d.calendar.shifts.map((sh) => `${sh.name} ${hour(sh.startHour)} for ${sh.lengthHours} h`).join("; ")}.</li>
+          <li>
+            Lane closures:{" "}
+            {d.calendar.closures
+              .map((c) => `${c.name} (${c.lanesClosed.join(", ")}) ${d.calendar.closureWindows.filter((w) => w.closure === c.id).map((w) => `${w.dayTypes.join("/")} ${hour(w.startHour)}–${hour(w.endHour)}`).join(", ")}`)
+              .join("; ")}
+            .
+          </li>
+          {d.operations.map((o) =>
+            o.kind === "crew" ? (
+              <li key={o.id}>
+                {o.name}: {o.crews} crew{o.crews > 1 ? "s" : ""}, rate {o.rate.dist.type === "fixed" ? o.rate.dist.value : o.rate.dist.type === "lognormal" ? `median ${o.rate.dist.median}` : `${o.rate.dist.min}–${o.rate.dist.max} (most likely ${o.rate.dist.mode})`}{" "}
+                {o.rate.unit === "ftPerShift" ? "ft per shift" : "ft per hour"}
+                {o.gates.minTempF !== undefined ? `, needs ≥ ${o.gates.minTempF} °F${o.gates.rising ? " and rising" : ""}` : ""}
+                {o.gates.noRain ? ", no rain" : ""}
+                {o.gates.noRainHoursAfter ? ` and ${o.gates.noRainHoursAfter} h dry after` : ""}
+                {o.gates.maxEvaporation !== undefined ? `, evaporation ≤ ${o.gates.maxEvaporation} lb/ft²/h` : ""}.
+              </li>
+            ) : (
+              <li key={o.id}>{o.name}: a timed wait ({o.durationHours.type === "fixed" ? `${o.durationHours.value} h` : "a distribution of hours"}).</li>
+            ),
+          )}
+          <li>
+            Weather: {d.weather.mode === "stochastic" ? "simulated daily from a monthly climate profile (wet/dry Markov chain, correlated temperatures)" : "fixed monthly normals"}; deeper deterioration found in{" "}
+            {formatPercent(d.discovered.defaultProbability)} of packets by default{d.deck.survey.length ? `, per the deck survey in ${d.deck.survey.length} ranges` : ""}.
+          </li>
+        </ul>
+      </section>
+      <SafetyNote />
+    </article>
+  );
+}
