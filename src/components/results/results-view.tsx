@@ -7,12 +7,11 @@
 import { useMemo } from "react";
 import { parseScenario } from "@sim/validate";
 import type { RunSummary } from "@sim/summary";
-import { formatIsoDate } from "@/lib/format";
 import { ConfidencePanel } from "./confidence-panel";
 import { FinishHistogram } from "./finish-histogram";
 import { OperationsTable } from "./operations-table";
 import { StatCards } from "./stat-cards";
-import { plainSummary } from "./summary-text";
+import { plainSummary, quantileText } from "./summary-text";
 import { TimeDistanceChart } from "./time-distance-chart";
 
 export interface ResultsRun {
@@ -93,7 +92,7 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
       <Section
         title="Time–distance"
         id={`${idp}-td`}
-        description={`The iteration whose finish is nearest the P50 (finish ${formatIsoDate(summary.representative?.finish)}): where each operation is on the deck over time.`}
+        description={`The iteration whose finish is nearest the P50 (finish ${summary.representative ? quantileText(summary.representative.finish) : "—"}): where each operation is on the deck over time.`}
       >
         <div data-testid="time-distance-chart">
           {allUnfinished && summary.representative?.trace?.packets?.length === 0 ? (

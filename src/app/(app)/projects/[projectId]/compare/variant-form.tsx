@@ -30,7 +30,7 @@ export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioI
   const error = create.error instanceof ApiError ? (create.error.fields.find((f) => f.path === "name")?.message ?? create.error.message) : create.error?.message;
   return (
     <form
-      className="mt-1 space-y-1.5 normal-case tracking-normal"
+      className="mt-1 space-y-1.5 font-normal normal-case tracking-normal"
       onSubmit={(e) => {
         e.preventDefault();
         if (name.trim()) create.mutate(name.trim());
