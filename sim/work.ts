@@ -1,0 +1,198 @@
+/**
+ * Per-iteration bookkeeping for the engine (./engine): finish times, the crews' event queue, closure
+ * segments and their union per closure and day, weather-lost shift stamps, season-1 end, pauses for the trace.
+ * One instance per compiled scenario, reset by `simulate` for each iteration.
+ */
+import { firstIntervalAfter, seasonAt, stampShifts, unionLanesByDay, type CompiledCalendar, type OpCalendar } from "./calendar";
+import type { CompiledOp, PauseRecord } from "./engine";
+import { GateCache, pour, produce, type WorkSink } from "./gates";
+import type { WeatherSeries } from "./weather";
+import { EventQueue } from "./queue";
+
+/** Per-iteration bookkeeping and scratch: closure segments, weather-lost shift stamps, season-1 end. */
+export class WorkContext implements WorkSink {
+  readonly finish: Float64Array;
+  readonly prefMax: Float64Array;
+  readonly ready: Float64Array;
+  readonly queue = new EventQueue(16);
+  readonly crewSeason = new Int32Array(16);
+  readonly crewMobilized = new Uint8Array(16);
+  lastStart = 0;
+  weatherLost = 0;
+  season1End = NaN;
+  // Work and mobilization segments per lane (one lane per crew of an operation): chronological per lane,
+  // so the union per closure is a k-way merge, not a sort.
+  private segStarts: Float64Array[];
+  private segEnds: Float64Array[];
+  private readonly segCount: Int32Array;
+  private readonly laneBase: Int32Array;
+  private readonly closureLanes: Int32Array[];
+  private readonly lanePos: Int32Array;
+  private readonly closureOut: Float64Array;
+  private readonly range = new Int32Array(2);
+  private outFirst = 0;
+  private outLast = -1;
+  private gen = 0;
+  private readonly prodStamp: Int32Array[];
+  private readonly waitStamp: Int32Array[];
+  private readonly waitList: Int32Array[];
+  private waitCount = 0;
+  private op!: CompiledOp;
+  private opCal!: OpCalendar;
+  private pauses: PauseRecord[] | null = null;
+  private packet = 0;
+  private crew = 0;
+
+  constructor(
+    private readonly cal: CompiledCalendar,
+    readonly gates: GateCache,
+    private readonly nClosures: number,
+    packets: number,
+    ops: CompiledOp[],
+  ) {
+    const nOps = ops.length;
+    const shiftCounts = ops.map((o) => (o.kind === "crew" ? cal.ops[o.index]!.shifts.length : 0));
+    this.finish = new Float64Array(nOps * packets);
+    this.prefMax = new Float64Array(nOps * packets);
+    this.ready = new Float64Array(packets);
+    this.laneBase = new Int32Array(nOps);
+    let lanes = 0;
+    const byClosure: number[][] = Array.from({ length: nClosures }, () => []);
+    for (const o of ops) {
+      this.laneBase[o.index] = lanes;
+      for (let k = 0; k < o.crews; k++) byClosure[o.closure].push(lanes + k);
+      lanes += o.crews;
+    }
+    this.closureLanes = byClosure.map((l) => Int32Array.from(l));
+    this.lanePos = new Int32Array(lanes);
+    this.segStarts = Array.from({ length: lanes }, () => new Float64Array(64));
+    this.segEnds = Array.from({ length: lanes }, () => new Float64Array(64));
+    this.segCount = new Int32Array(lanes);
+    this.closureOut = new Float64Array(nClosures * cal.days);
+    this.prodStamp = shiftCounts.map((n) => new Int32Array(n));
+    this.waitStamp = shiftCounts.map((n) => new Int32Array(n));
+    this.waitList = shiftCounts.map((n) => new Int32Array(n));
+  }
+
+  begin(series: WeatherSeries): void {
+    this.gates.reset(series);
+    this.gen++;
+    this.weatherLost = 0;
+    this.season1End = NaN;
+    this.segCount.fill(0);
+  }
+
+  beginOp(op: CompiledOp, opCal: OpCalendar, pauses: PauseRecord[] | null): void {
+    this.op = op;
+    this.opCal = opCal;
+    this.pauses = pauses;
+    this.waitCount = 0;
+  }
+
+  endOp(): void {
+    const prod = this.prodStamp[this.op.index];
+    const list = this.waitList[this.op.index];
+    for (let j = 0; j < this.waitCount; j++) if (prod[list[j]] !== this.gen) this.weatherLost++;
+  }
+
+  /** First open instant (conditions 1–3) at or after `t`; Infinity past the horizon. */
+  firstOpen(t: number): number {
+    const iv = this.opCal.open;
+    const i = firstIntervalAfter(iv, t);
+    if (i >= iv.length) return Infinity;
+    return iv.starts[i] > t ? iv.starts[i] : t;
+  }
+
+  /** Mobilization: `hours` of open time (1–3) from `t`, not weather-gated; counted as closure time. */
+  mobilize(t: number, hours: number, crew: number): number {
+    this.crew = crew;
+    const iv = this.opCal.open;
+    let rem = hours;
+    for (let i = firstIntervalAfter(iv, t); i < iv.length; i++) {
+      const a = iv.starts[i] > t ? iv.starts[i] : t;
+      const avail = iv.ends[i] - a;
+      if (avail >= rem - 1e-9) {
+        this.segment(a, a + rem);
+        return a + rem;
+      }
+      this.segment(a, iv.ends[i]);
+      rem -= avail;
+    }
+    return Infinity;
+  }
+
+  produce(from: number, hours: number, packet: number, crew: number): number {
+    this.packet = packet;
+    this.crew = crew;
+    const iv = this.opCal.open;
+    return produce(iv, firstIntervalAfter(iv, from), this.gates, this.op.profile, from, hours, this);
+  }
+
+  pour(from: number, hours: number, packet: number, crew: number): number {
+    this.packet = packet;
+    this.crew = crew;
+    const iv = this.opCal.open;
+    const op = this.op;
+    return pour(iv, firstIntervalAfter(iv, from), this.gates, op.profile, op.risingFirst, op.noRainAfter, from, hours, this);
+  }
+
+  production(a: number, b: number): void {
+    if (!(b > a)) return;
+    this.segment(a, b);
+    // Only gated operations can wait on the weather, so only they need to know where they produced.
+    if (this.op.gated) stampShifts(this.opCal.shifts, a, b, this.prodStamp[this.op.index], this.gen, null, 0);
+    if (b <= this.cal.firstWinterStart && !(b <= this.season1End)) this.season1End = b;
+  }
+
+  weatherWait(a: number, b: number): void {
+    if (!(b > a)) return;
+    const oi = this.op.index;
+    this.waitCount = stampShifts(this.opCal.shifts, a, b, this.waitStamp[oi], this.gen, this.waitList[oi], this.waitCount);
+    if (this.pauses && this.lastStart < a) this.pause(a, b, "weather");
+  }
+
+  gap(a: number, b: number): void {
+    if (this.pauses) this.pause(a, b, "closed");
+  }
+
+  private pause(start: number, end: number, reason: "weather" | "closed"): void {
+    this.pauses!.push({ op: this.op.id, packet: this.packet, crew: this.crew, start, end, reason });
+  }
+
+  private segment(a: number, b: number): void {
+    const lane = this.laneBase[this.op.index] + this.crew;
+    const n = this.segCount[lane];
+    if (n > 0 && this.segEnds[lane][n - 1] === a) {
+      this.segEnds[lane][n - 1] = b;
+      return;
+    }
+    if (n === this.segStarts[lane].length) {
+      const s = new Float64Array(2 * n);
+      const e = new Float64Array(2 * n);
+      s.set(this.segStarts[lane]);
+      e.set(this.segEnds[lane]);
+      this.segStarts[lane] = s;
+      this.segEnds[lane] = e;
+    }
+    this.segStarts[lane][n] = a;
+    this.segEnds[lane][n] = b;
+    this.segCount[lane] = n + 1;
+  }
+
+  /** Union of work and mobilization time per closure and day (closureOut[c · days + d]). */
+  closureHours(): { hours: Float64Array; first: number; last: number } {
+    const days = this.cal.days;
+    const out = this.closureOut;
+    if (this.outLast >= this.outFirst)
+      for (let c = 0; c < this.nClosures; c++) out.fill(0, c * days + this.outFirst, c * days + this.outLast + 1);
+    const range = this.range;
+    range[0] = days;
+    range[1] = -1;
+    this.lanePos.fill(0);
+    for (let c = 0; c < this.nClosures; c++)
+      unionLanesByDay(this.segStarts, this.segEnds, this.segCount, this.closureLanes[c], this.lanePos, out, c * days, days, range);
+    this.outFirst = range[0];
+    this.outLast = range[1];
+    return { hours: out, first: range[0], last: range[1] };
+  }
+}
