@@ -4,6 +4,8 @@ const nextConfig: NextConfig = {
   // Native argon2 binding and the database driver stay on the server, loaded by Node at run time.
   serverExternalPackages: ["@node-rs/argon2", "postgres"],
   poweredByHeader: false,
+  // `npm test` builds into its own folder, so a test run never disturbs the app `npm start` serves.
+  distDir: process.env.POURLINE_DIST_DIR ?? ".next",
   typedRoutes: false,
 };
 

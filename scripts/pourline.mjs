@@ -171,7 +171,7 @@ function newestMtime(dir) {
 }
 
 function buildApp(env) {
-  const buildId = join(root, ".next", "BUILD_ID");
+  const buildId = join(root, env.POURLINE_DIST_DIR ?? ".next", "BUILD_ID");
   const sources = Math.max(...["src", "sim", "workers", "db", "public"].map((d) => newestMtime(join(root, d))), statSync(join(root, "package-lock.json")).mtimeMs);
   if (existsSync(buildId) && statSync(buildId).mtimeMs > sources) {
     say("the app build is up to date.");
@@ -274,6 +274,7 @@ async function testMode() {
     TEST_ADMIN_DATABASE_URL: url("postgres"),
     APP_URL: `http://localhost:${appPort}`,
     NEXT_TELEMETRY_DISABLED: "1",
+    POURLINE_DIST_DIR: ".next-test",
     POURLINE_RATE_LIMIT_SCALE: "1",
   };
   tsx("db/migrate.ts", env, "database migration");
