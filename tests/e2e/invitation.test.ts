@@ -50,7 +50,7 @@ describe("invitation by e-mail", () => {
     const inviteeContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await inviteeContext.newPage();
     await page.goto(link);
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toContain("Join Kestrel");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toMatch(/^Join .*Kestrel Bay Causeway/);
     expect(await page.getByTestId("role-badge").textContent()).toBe("Inspector");
     expect(await page.getByTestId("invite-email").textContent()).toBe(INVITEE);
     expect(await seriousA11yViolations(page)).toEqual([]);
@@ -62,6 +62,8 @@ describe("invitation by e-mail", () => {
     await page.getByRole("button", { name: "Create account and join" }).click();
     await expect.poll(() => page.locator("#confirm-error").textContent()).toContain("must match");
     await screenshot(page, "invite-accept-error");
+    // The name survives the refusal; the passwords are asked for again.
+    expect(await page.getByLabel("Your name").inputValue()).toBe("Noor Halvorsen");
 
     await page.getByLabel("New password", { exact: true }).fill("tidewater-2031");
     await page.getByLabel("New password again").fill("tidewater-2031");

@@ -169,7 +169,7 @@ describe("invitations", () => {
     expect(Math.abs(secs - 7 * 86_400)).toBeLessThanOrEqual(2);
 
     const page = await call(`/invite/${token}`);
-    expect(page.body).toContain("Join Kestrel");
+    expect(page.body).toMatch(/Join .*Kestrel Bay Causeway/);
     await appDb`UPDATE invitations SET expires_at = now() - interval '1 minute' WHERE email = ${email}`;
     expect((await call(`/invite/${token}`)).body).toContain("has expired");
     expect((await call(`/invite/${"x".repeat(43)}`)).body).toContain("is not valid");
@@ -226,5 +226,21 @@ describe("share links by e-mail", () => {
     expect(res.status).toBe(500);
     expect((await appDb`SELECT count(*)::int AS n FROM share_links WHERE label = ${label}`)[0].n).toBe(0);
     expect((await appDb`SELECT count(*)::int AS n FROM email_outbox WHERE subject LIKE 'Scenario shared%' AND text_body LIKE ${"%" + label + "%"}`)[0].n).toBe(0);
+  });
+});
+
+describe("dev mailbox page", () => {
+  it("shows caught messages and outbox rows to a project administrator, and is 404 for anyone else", async () => {
+    const admin = await signInAs("admin");
+    const email = `mailbox.${randomUUID().slice(0, 8)}@marrin-dot.example`;
+    const projectId = (await kestrelProject(admin)).id;
+    expect((await call(`/api/projects/${projectId}/invitations`, { method: "POST", cookie: admin, body: { email, role: "viewer" } })).status).toBe(201);
+    await waitForMail(email, "invited");
+    const page = await call("/dev/mailbox", { cookie: admin });
+    expect(page.status).toBe(200);
+    expect(page.body).toContain(email);
+    expect(page.body).toMatch(/href="http:\/\/[^"]+\/invite\//);
+    expect(page.body).toContain('data-testid="outbox-table"');
+    expect((await call("/dev/mailbox", { cookie: await signInAs("scheduler") })).status).toBe(404);
   });
 });

@@ -48,7 +48,14 @@ function pool(): Pool {
 
 async function row(p: Pool, id: string) {
   const [r] = await p.sql`SELECT status, attempts, last_error, next_attempt_at, sent_at FROM email_outbox WHERE id = ${id}`;
-  return r as { status: string; attempts: number; last_error: string | null; next_attempt_at: Date; sent_at: Date | null };
+  // The drizzle-configured client hands timestamps back as text.
+  return {
+    status: r.status as string,
+    attempts: r.attempts as number,
+    last_error: r.last_error as string | null,
+    next_attempt_at: new Date(r.next_attempt_at),
+    sent_at: r.sent_at == null ? null : new Date(r.sent_at),
+  };
 }
 
 beforeAll(async () => {

@@ -13,7 +13,7 @@ import { attemptSignIn, clientAddress } from "@/lib/server/signin";
 import { acceptNewAccountSchema } from "@/lib/server/mail/schemas";
 import { INVITE_PROBLEM } from "./messages";
 
-export type InviteState = { error?: string; fields?: Record<string, string> };
+export type InviteState = { error?: string; fields?: Record<string, string>; name?: string };
 
 const tokenOf = (form: FormData) => hashShareToken(String(form.get("token") ?? ""));
 
@@ -22,10 +22,10 @@ export async function acceptWithNewAccountAction(_prev: InviteState, form: FormD
   if (!parsed.success) {
     const fields: Record<string, string> = {};
     for (const i of parsed.error.issues) fields[String(i.path[0])] ??= i.message;
-    return { error: "Check the highlighted fields.", fields };
+    return { error: "Check the highlighted fields.", fields, name: String(form.get("name") ?? "") };
   }
   const result = await acceptInvitation({ tokenHash: tokenOf(form), newUser: { name: parsed.data.name, passwordHash: await hashPassword(parsed.data.password) } });
-  if (!result.ok) return { error: INVITE_PROBLEM[result.reason] };
+  if (!result.ok) return { error: INVITE_PROBLEM[result.reason], name: parsed.data.name };
   await startSession(result.userId);
   redirect("/projects");
 }

@@ -10,13 +10,13 @@ function Alert({ state }: { state: InviteState }) {
   ) : null;
 }
 
-function Field({ id, label, type = "text", autoComplete, error, hint }: { id: string; label: string; type?: string; autoComplete: string; error?: string; hint?: string }) {
+function Field({ id, label, type = "text", autoComplete, error, hint, defaultValue }: { id: string; label: string; type?: string; autoComplete: string; error?: string; hint?: string; defaultValue?: string }) {
   return (
     <div>
       <label htmlFor={id} className="field-label">
         {label}
       </label>
-      <input id={id} name={id} type={type} autoComplete={autoComplete} required className="field-input" aria-invalid={!!error} aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined} />
+      <input id={id} name={id} type={type} autoComplete={autoComplete} required defaultValue={defaultValue} className="field-input" aria-invalid={!!error} aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined} />
       {hint && !error && (
         <p id={`${id}-hint`} className="mt-1 text-xs text-muted">
           {hint}
@@ -43,7 +43,8 @@ export function NewAccountForm({ token, email }: { token: string; email: string 
           {email}
         </p>
       </div>
-      <Field id="name" label="Your name" autoComplete="name" error={state.fields?.name} />
+      {/* React resets a form after its action; the default value brings back the name that was typed. */}
+      <Field id="name" label="Your name" autoComplete="name" error={state.fields?.name} defaultValue={state.name} />
       <Field id="password" label="New password" type="password" autoComplete="new-password" error={state.fields?.password} hint="At least 10 characters." />
       <Field id="confirm" label="New password again" type="password" autoComplete="new-password" error={state.fields?.confirm} />
       <button type="submit" className="btn-primary w-full" disabled={pending}>
