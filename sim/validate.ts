@@ -68,8 +68,9 @@ export function semanticProblems(s: Scenario): FieldProblem[] {
       refsOk = false;
       out.push({ path: `operations[${i}].closure`, message: `unknown closure "${op.closure}"` });
     }
+    // A lognormal rate is positive by construction (its median is > 0); its lower bound of 0 is never drawn.
     const b = distributionBounds(op.rate.dist);
-    if (!(b.min > 0)) {
+    if (op.rate.dist.type !== "lognormal" && !(b.min > 0)) {
       const field = op.rate.dist.type === "fixed" ? "value" : "min";
       out.push({ path: `operations[${i}].rate.dist.${field}`, message: "a production rate must be > 0" });
     }

@@ -108,4 +108,11 @@ describe("parseScenario", () => {
     const paths = problemsOf(s).map((p) => p.path);
     expect(paths).toEqual(expect.arrayContaining(["operations[0].rate.dist.value", "calendar.season.cutoffDate"]));
   });
+
+  it("accepts a lognormal production rate (positive by construction) and still refuses a zero minimum", () => {
+    const ok = parseScenario(small((s) => (crew(s, 0).rate = { unit: "ftPerHour", dist: { type: "lognormal", median: 40, sigma: 0.3 } })));
+    expect(ok.ok).toBe(true);
+    const bad = small((s) => (crew(s, 0).rate = { unit: "ftPerHour", dist: { type: "triangular", min: 0, mode: 30, max: 50 } }));
+    expect(problemsOf(bad).map((p) => p.path)).toContain("operations[0].rate.dist.min");
+  });
 });
