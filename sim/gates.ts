@@ -293,6 +293,8 @@ export function pour(
   iv: Open, i: number, gates: GateCache, profile: number, risingFirst: boolean, noRainAfter: number,
   from: number, hours: number, sink: WorkSink,
 ): number {
+  // Not started yet: waits before the pour begins are waits for the packet, not pauses inside it.
+  sink.lastStart = Infinity;
   for (; i < iv.length; i++) {
     const a = iv.starts[i];
     const b = iv.ends[i];
