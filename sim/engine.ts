@@ -9,6 +9,7 @@
  * interval boundaries; hour slots are visited only where a weather gate must be checked.
  * The compiled object owns scratch buffers: one `simulate` at a time per compiled scenario.
  */
+import { compileAsBuilt, withDiscovery, type AsBuiltState, type CompiledAsBuilt } from "./asbuilt";
 import { compileCalendar, seasonAt, type CompiledCalendar } from "./calendar";
 import { GateCache, gateProfileOf, profileKey, type GateProfile } from "./gates";
 import { WorkContext } from "./work";
@@ -42,6 +43,13 @@ export interface CompiledScenario {
   /** First packet index at or past the cut-off station (packets = no cut-off). */
   cutoffPacket: number;
   work: WorkContext;
+  /** A re-forecast's as-built state (MODEL.md, "Re-forecast"); null for a plan. */
+  asBuilt: CompiledAsBuilt | null;
+}
+
+export interface CompileOptions {
+  /** Start from this as-built state: done packets keep their recorded finish, time starts at the data date. */
+  asBuilt?: AsBuiltState;
 }
 
 export interface TracePacket {
@@ -81,7 +89,9 @@ export interface SimResult {
   trace?: Trace;
 }
 
-export function compileScenario(scenario: Scenario): CompiledScenario {
+export function compileScenario(plan: Scenario, options: CompileOptions = {}): CompiledScenario {
+  // The discovery update lives in the scenario the samples are drawn from; with nothing inspected it is `plan`.
+  const scenario = options.asBuilt ? withDiscovery(plan, options.asBuilt) : plan;
   const calendar = compileCalendar(scenario);
   const { lengthFt, packetFt } = scenario.deck;
   const packets = Math.ceil(lengthFt / packetFt);
@@ -143,7 +153,8 @@ export function compileScenario(scenario: Scenario): CompiledScenario {
   }
   const gates = new GateCache(profiles, calendar.days);
   const work = new WorkContext(calendar, gates, closures.length, packets, ops);
-  return { scenario, calendar, packets, packetLen, ops, order: topoOrder(ops), closures, cutoffPacket, work };
+  const asBuilt = options.asBuilt ? compileAsBuilt(scenario, options.asBuilt, calendar, packets) : null;
+  return { scenario, calendar, packets, packetLen, ops, order: topoOrder(ops), closures, cutoffPacket, work, asBuilt };
 }
 
 function topoOrder(ops: CompiledOp[]): number[] {
@@ -175,6 +186,7 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
   const crewSeason = w.crewSeason;
   const crewMobilized = w.crewMobilized;
   const trace: Trace | undefined = opts.trace ? { packets: [], pauses: [] } : undefined;
+  const ab = c.asBuilt;
   let discoveredHours = 0;
 
   for (const oi of c.order) {
@@ -204,12 +216,21 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
       const opCal = cal.ops[oi]!;
       w.beginOp(op, opCal, trace ? trace.pauses : null);
       queue.clear();
+      // A re-forecast's crews are free from the data date; those of a started operation are mobilized.
+      const free0 = ab ? ab.crewFree[oi] : 0;
       for (let k = 0; k < op.crews; k++) {
-        queue.push(0, k, k);
-        crewSeason[k] = 0;
-        crewMobilized[k] = 0;
+        queue.push(free0, k, k);
+        crewSeason[k] = ab ? ab.crewSeason[oi] : 0;
+        crewMobilized[k] = ab ? ab.started[oi] : 0;
       }
       for (let i = 0; i < P; i++) {
+        if (ab) {
+          const done = ab.doneFinish[base + i];
+          if (done === done) {
+            finish[base + i] = done; // as built: never claimed, never scheduled again
+            continue;
+          }
+        }
         const free = queue.peekTime();
         const crew = queue.pop();
         const s = free > ready[i] ? free : ready[i];
@@ -223,7 +244,8 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
         const m = mob > 0 ? w.mobilize(t0, mob, crew) : s;
         const ex = extra.length ? extra[i] : 0;
         discoveredHours += ex;
-        const hours = c.packetLen[i] / rate + ex;
+        const len = ab ? c.packetLen[i] * ab.remaining[base + i] : c.packetLen[i];
+        const hours = len / rate + ex;
         const f = op.continuous ? w.pour(m, hours, i, crew) : w.produce(m, hours, i, crew);
         finish[base + i] = f;
         queue.push(f, crew, crew);
@@ -254,7 +276,7 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
     finish: unfinished ? Infinity : overall,
     unfinished,
     opFinish,
-    season1End: w.season1End,
+    season1End: ab && ab.season1End === ab.season1End && !(ab.season1End <= w.season1End) ? ab.season1End : w.season1End,
     weatherLostShifts: w.weatherLost,
     discoveredHours,
     closureDayHours: closure.hours,

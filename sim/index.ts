@@ -8,7 +8,8 @@ import type { Scenario } from "./schema";
 import { summarizeRun, type RunSummary } from "./summary";
 
 export { parseScenario, type ParseResult } from "./validate";
-export { compileScenario, simulate, type CompiledScenario, type SimResult, type Trace, type TracePacket, type PauseRecord } from "./engine";
+export { buildAsBuilt, DISCOVERY_PRIOR_PACKETS, type AsBuiltState, type ProgressRecord, type DiscoveredItem } from "./asbuilt";
+export { compileScenario, simulate, type CompileOptions, type CompiledScenario, type SimResult, type Trace, type TracePacket, type PauseRecord } from "./engine";
 export { runIterations, mergePartials, type PartialRun } from "./montecarlo";
 export { summarizeRun, type RunSummary, type DateQuantiles } from "./summary";
 export { drawSamples, type IterationSamples } from "./samples";
