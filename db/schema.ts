@@ -142,6 +142,8 @@ export const simulationRuns = pgTable(
     /** The full run summary: histogram, curve, per-operation table, representative trace. */
     results: jsonb("results").$type<Record<string, unknown>>().notNull(),
     durationMs: integer("duration_ms").notNull().default(0),
+    /** Set for a re-forecast: the run started from the as-built state at this data date (null = the plan). */
+    dataDate: date("data_date"),
     createdById: text("created_by").references(() => users.id),
     createdAt: ts("created_at").notNull().defaultNow(),
   },
