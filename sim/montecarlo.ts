@@ -4,7 +4,9 @@
  * k − from. Because iteration k depends only on (scenario, seed, k), ranges run anywhere (a pool of workers)
  * and joined by `mergePartials` equal one run bit for bit: closure hours are summed as integer
  * micro-hours, so the sum does not depend on grouping. `shouldStop` ends a range early (`to` shrinks).
+ * With a traffic or costs section (./cost) each iteration also records its delay and costs.
  */
+import { impactModel, iterationImpact } from "./cost";
 import { simulate, type CompiledScenario } from "./engine";
 import { drawSamples } from "./samples";
 
@@ -24,6 +26,12 @@ export interface PartialRun {
   discoveredHours: Float64Array;
   /** Days of weather the engine read per iteration (the benchmark's floor draws as many). */
   weatherDays: Float64Array;
+  /** Work-zone delay, veh-h (0 without a traffic model). */
+  delayVehHours: Float64Array;
+  /** Road-user cost, $ (NaN without a traffic model). */
+  roadUserCost: Float64Array;
+  /** Contract cost, $ (NaN without costs; Infinity when unfinished). */
+  contractCost: Float64Array;
   /** Sum over iterations of round(closure hours · 10⁶) per closure and day: [c · days + d]. */
   closureMicroHours: Float64Array;
 }
@@ -41,6 +49,9 @@ function emptyPartial(c: CompiledScenario, seed: string, from: number, to: numbe
     weatherLostShifts: new Float64Array(n),
     discoveredHours: new Float64Array(n),
     weatherDays: new Float64Array(n),
+    delayVehHours: new Float64Array(n),
+    roadUserCost: new Float64Array(n),
+    contractCost: new Float64Array(n),
     closureMicroHours: new Float64Array(nClosures * days),
   };
 }
@@ -56,6 +67,9 @@ function truncate(p: PartialRun, done: number): PartialRun {
     weatherLostShifts: p.weatherLostShifts.slice(0, done),
     discoveredHours: p.discoveredHours.slice(0, done),
     weatherDays: p.weatherDays.slice(0, done),
+    delayVehHours: p.delayVehHours.slice(0, done),
+    roadUserCost: p.roadUserCost.slice(0, done),
+    contractCost: p.contractCost.slice(0, done),
   };
 }
 
@@ -70,6 +84,11 @@ export function runIterations(
   const out = emptyPartial(compiled, seed, from, to);
   const nOps = out.nOps;
   const days = out.days;
+  const impact = impactModel(compiled);
+  if (!impact) {
+    out.roadUserCost.fill(NaN);
+    out.contractCost.fill(NaN);
+  }
   for (let k = from; k < to; k++) {
     if (shouldStop && shouldStop()) return truncate(out, k - from);
     const j = k - from;
@@ -80,6 +99,12 @@ export function runIterations(
     out.weatherLostShifts[j] = r.weatherLostShifts;
     out.discoveredHours[j] = r.discoveredHours;
     out.weatherDays[j] = r.weatherDaysUsed;
+    if (impact) {
+      const im = iterationImpact(compiled, impact, r);
+      out.delayVehHours[j] = im.delayVehHours;
+      out.roadUserCost[j] = im.roadUserCost;
+      out.contractCost[j] = im.contractCost;
+    }
     const { first, last } = r.closureDayRange;
     for (let c = 0; c < out.nClosures; c++)
       for (let d = first; d <= last; d++) {
@@ -102,7 +127,8 @@ export function mergePartials(parts: PartialRun[]): PartialRun {
     if (p.seed !== first.seed || p.nOps !== first.nOps || p.nClosures !== first.nClosures || p.days !== first.days)
       throw new Error("partial runs come from different runs");
   }
-  const cat = (key: "finish" | "opFinish" | "season1End" | "weatherLostShifts" | "discoveredHours" | "weatherDays") => {
+  type Column = "finish" | "opFinish" | "season1End" | "weatherLostShifts" | "discoveredHours" | "weatherDays" | "delayVehHours" | "roadUserCost" | "contractCost";
+  const cat = (key: Column) => {
     const total = sorted.reduce((n, p) => n + p[key].length, 0);
     const out = new Float64Array(total);
     let at = 0;
@@ -119,6 +145,7 @@ export function mergePartials(parts: PartialRun[]): PartialRun {
     nOps: first.nOps, nClosures: first.nClosures, days: first.days,
     finish: cat("finish"), opFinish: cat("opFinish"), season1End: cat("season1End"),
     weatherLostShifts: cat("weatherLostShifts"), discoveredHours: cat("discoveredHours"), weatherDays: cat("weatherDays"),
+    delayVehHours: cat("delayVehHours"), roadUserCost: cat("roadUserCost"), contractCost: cat("contractCost"),
     closureMicroHours,
   };
 }

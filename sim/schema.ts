@@ -143,6 +143,78 @@ export const surveyRangeSchema = z.object({
   probability: z.number().min(0).max(1),
 });
 
+/** 24 hourly volumes, veh/h, 00:00–01:00 first. */
+const hourlyVolumes = z.array(z.number().min(0, "must be ≥ 0").max(20_000, "must be ≤ 20,000 veh/h")).length(24, "must have 24 hourly volumes, 00:00 first");
+
+/** Traffic of one direction over the deck (./traffic). Day types of demand differ from closure day types. */
+export const trafficDirectionSchema = z.object({
+  id,
+  name: z.string().min(1).max(60),
+  /** Deck lanes this direction uses (names from deck.lanes); the queue stores in all of them. */
+  lanes: z.array(z.string().min(1)).min(1, "must use at least one lane"),
+  /** Share of heavy vehicles (trucks, buses) in the volumes, 0–1. */
+  heavyVehicleShare: z.number().min(0).max(1).default(0.1),
+  /** veh/h by hour. `friday` is Friday; `holidayPeak` the days around each federal holiday (MODEL.md, "Traffic"). */
+  demand: z.object({
+    weekday: hourlyVolumes,
+    friday: hourlyVolumes,
+    saturday: hourlyVolumes,
+    sunday: hourlyVolumes,
+    holidayPeak: hourlyVolumes,
+  }),
+});
+export type TrafficDirection = z.infer<typeof trafficDirectionSchema>;
+
+/** How one closure narrows the road: inputs of the capacity method, or a user override. */
+export const trafficClosureSchema = z.object({
+  closure: id,
+  /** Krammes–Lopez work-intensity adjustment I, pc/h/ln (−160 heavy work … +160 light). */
+  workIntensityPcPerHourPerLane: z.number().min(-160).max(160).default(0),
+  /** HCM 6th ed. factors: barrier type (f_Br = 1 for cones/drums) and night work (f_DN). */
+  barrier: z.enum(["cones", "concrete"]).default("cones"),
+  night: z.boolean().default(false),
+  /** Override: veh/h through the closure for each direction it narrows (e.g. two-way operation on a parallel span). */
+  capacityVehPerHour: z.number().gt(0, "must be > 0").max(20_000).optional(),
+});
+export type TrafficClosure = z.infer<typeof trafficClosureSchema>;
+
+export const trafficSchema = z.object({
+  /** Work-zone capacity method: Krammes & Lopez (1994) short-term, or HCM 6th ed. queue discharge rate. */
+  method: z.enum(["krammesLopez", "hcm6"]).default("krammesLopez"),
+  basePcPerHourPerLane: z.number().min(500).max(2_500).default(1_600),
+  /** Passenger-car equivalent of a heavy vehicle, E_T. */
+  truckPce: z.number().min(1).max(6).default(1.5),
+  areaType: z.enum(["urban", "rural"]).default("urban"),
+  lateralClearanceFt: z.number().min(0).max(12).default(6),
+  /** Rate at which a queue discharges once every lane is open again, pc/h/ln. */
+  openRoadPcPerHourPerLane: z.number().min(500).max(2_800).default(2_000),
+  jamDensityPcPerMiPerLane: z.number().min(100).max(300).default(190),
+  directions: z.array(trafficDirectionSchema).max(4),
+  closures: z.array(trafficClosureSchema).default([]),
+});
+export type Traffic = z.infer<typeof trafficSchema>;
+
+const dollars = z.number().min(0, "must be ≥ 0").max(1e9);
+
+/** What the owner and the public pay (./cost). $ in the dollars of `valueOfTime.year`. */
+export const costsSchema = z.object({
+  valueOfTime: z
+    .object({
+      /** The dollar year of the values (state it: values are not inflated by the engine). */
+      year: z.number().int().min(1990).max(2100).default(2015),
+      carPerVehHour: dollars.default(21.15),
+      truckPerVehHour: dollars.default(27.2),
+    })
+    .default({ year: 2015, carPerVehHour: 21.15, truckPerVehHour: 27.2 }),
+  fieldCostPerDay: dollars.default(0),
+  mobilizationPerSeason: dollars.default(0),
+  winterProtectionPerWinter: dollars.default(0),
+  /** Against `targetDate` (end of day): paid per day early, deducted per day late. */
+  incentivePerDay: dollars.default(0),
+  disincentivePerDay: dollars.default(0),
+});
+export type Costs = z.infer<typeof costsSchema>;
+
 export const scenarioSchema = z.object({
   schemaVersion: z.literal(1),
   name: z.string().min(1, "must not be empty").max(120),
@@ -183,6 +255,38 @@ export const scenarioSchema = z.object({
   operations: z.array(operationSchema).min(1, "must have at least one operation").max(30),
   links: z.array(linkSchema),
   weather: weatherSchema,
+  /** Optional: demand and capacity for queues and delay (absent = no traffic model, results unchanged). */
+  traffic: trafficSchema.optional(),
+  /** Optional: road-user and contract costs. */
+  costs: costsSchema.optional(),
+}).superRefine((s, ctx) => {
+  // References inside the traffic section; the rest of the semantic checks live in ./validate.
+  const t = s.traffic;
+  if (!t) return;
+  const lanes = new Set(s.deck.lanes);
+  const closures = new Map(s.calendar.closures.map((c) => [c.id, c]));
+  const dirIds = new Set<string>();
+  t.directions.forEach((d, i) => {
+    if (dirIds.has(d.id)) ctx.addIssue({ code: "custom", path: ["traffic", "directions", i, "id"], message: `duplicate direction id "${d.id}"` });
+    dirIds.add(d.id);
+    d.lanes.forEach((l, j) => {
+      if (!lanes.has(l)) ctx.addIssue({ code: "custom", path: ["traffic", "directions", i, "lanes", j], message: `unknown lane "${l}" (deck.lanes)` });
+    });
+  });
+  const seen = new Set<string>();
+  t.closures.forEach((c, i) => {
+    if (!closures.has(c.closure)) ctx.addIssue({ code: "custom", path: ["traffic", "closures", i, "closure"], message: `unknown closure "${c.closure}"` });
+    if (seen.has(c.closure)) ctx.addIssue({ code: "custom", path: ["traffic", "closures", i, "closure"], message: `closure "${c.closure}" listed twice` });
+    seen.add(c.closure);
+  });
+  s.calendar.closures.forEach((c, ci) => {
+    const override = t.closures.find((x) => x.closure === c.id)?.capacityVehPerHour;
+    if (override !== undefined) return;
+    t.directions.forEach((d, i) => {
+      if (d.lanes.every((l) => c.lanesClosed.includes(l)))
+        ctx.addIssue({ code: "custom", path: ["traffic", "directions", i, "lanes"], message: `closure "${c.id}" (calendar.closures[${ci}]) closes every lane of direction "${d.id}": add traffic.closures[] with capacityVehPerHour (e.g. a crossover)` });
+    });
+  });
 });
 
 /** A scenario as written by a person (defaults may be left out). */

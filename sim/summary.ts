@@ -4,7 +4,11 @@
  * `YYYY-MM-DDTHH:mm` where a time is useful); "unfinished" marks a percentile reached only by iterations
  * that hit the engine's horizon. The histogram (≤ 60 bins) and CDF (≤ 200 points) are computed here, so a
  * chart only draws. The representative iteration is re-simulated with its trace.
+ * With a traffic or costs section: `delay`, `cost` (P50/P80; null where the input is missing or a
+ * percentile is reached only by unfinished iterations) and `traffic` (the representative day by day).
+ * Without them these keys are absent, so such summaries are unchanged.
  */
+import { impactModel, iterationImpact, type ImpactDetail, type ImpactModel } from "./cost";
 import { formatDayNumber, formatHours, parseIsoDate } from "./dates";
 import { simulate, type CompiledScenario, type Trace } from "./engine";
 import type { PartialRun } from "./montecarlo";
@@ -36,6 +40,40 @@ export interface RunSummary {
   season1End: { p50: string } | null;
   /** The iteration whose finish is nearest the P50 (lowest index on ties), re-simulated with its trace. */
   representative: { iteration: number; finish: string; finishHours: number; trace: Trace };
+  /** Work-zone delay over all directions, veh-h (present with a traffic model). */
+  delay?: { vehicleHours: NumberQuantiles };
+  /** $ in the dollars of `valueOfTimeYear` (present with a traffic model or a costs section). */
+  cost?: { roadUser: NumberQuantiles | null; contract: NumberQuantiles | null; valueOfTimeYear: number };
+  /** The representative iteration's traffic, day by day (present with a traffic model). */
+  traffic?: TrafficDetail;
+}
+
+/** null = reached only by unfinished iterations. */
+export type NumberQuantiles = { p50: number | null; p80: number | null; mean: number | null };
+
+export interface TrafficDay {
+  date: string;
+  /** Union of closure time per closure id, h. */
+  closureHours: Record<string, number>;
+  delayVehHours: number;
+  /** The longest queue of the day over the directions: vehicles, miles and its direction. */
+  peakQueueVeh: number;
+  peakQueueMiles: number;
+  direction: string | null;
+  /** When the day's longest queue cleared (local date-time), null if no queue or still standing at the horizon. */
+  clearsAt: string | null;
+}
+
+export interface TrafficDetail {
+  iteration: number;
+  delayVehHours: number;
+  roadUserCost: number | null;
+  contractCost: number | null;
+  workingDays: number;
+  jamDensityPcPerMiPerLane: number;
+  maxQueue: { miles: number; vehicles: number; date: string } | null;
+  /** Days with closure time or delay, ascending. */
+  days: TrafficDay[];
 }
 
 const UNFINISHED = "unfinished";
@@ -104,7 +142,89 @@ export function summarizeRun(compiled: CompiledScenario, partial: PartialRun): R
     closureHours: closureHours(compiled, partial, day0),
     convergenceDays,
     season1End,
+    ...impactSummary(compiled, partial, p50, dateTime),
     representative: representative(compiled, partial, p50, dateTime),
+  };
+}
+
+const round = (x: number, digits: number) => {
+  const f = 10 ** digits;
+  return Math.round(x * f) / f;
+};
+
+function numberQuantiles(values: Float64Array, digits: number): NumberQuantiles {
+  const s = sortedCopy(values);
+  const fin = (x: number) => (Number.isFinite(x) ? round(x, digits) : null);
+  let sum = 0;
+  for (const v of s) sum += v;
+  return { p50: fin(nearestRank(s, 0.5)), p80: fin(nearestRank(s, 0.8)), mean: fin(sum / s.length) };
+}
+
+function impactSummary(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): Pick<RunSummary, "delay" | "cost" | "traffic"> {
+  const m = impactModel(c);
+  if (!m) return {};
+  const out: Pick<RunSummary, "delay" | "cost" | "traffic"> = {};
+  if (m.traffic) out.delay = { vehicleHours: numberQuantiles(p.delayVehHours, 1) };
+  out.cost = {
+    roadUser: m.traffic ? numberQuantiles(p.roadUserCost, 0) : null,
+    contract: m.costs ? numberQuantiles(p.contractCost, 0) : null,
+    valueOfTimeYear: m.votYear,
+  };
+  if (m.traffic) out.traffic = trafficDetail(c, m, p, representativeIndex(p, p50), dateTime);
+  return out;
+}
+
+function trafficDetail(c: CompiledScenario, m: ImpactModel, p: PartialRun, best: number, dateTime: (h: number) => string): TrafficDetail {
+  const k = p.from + best;
+  const r = simulate(c, drawSamples(c.scenario, p.seed, k));
+  const detail: ImpactDetail = { perDirection: [] };
+  const im = iterationImpact(c, m, r, detail);
+  const t = m.traffic!;
+  const day0 = c.calendar.startDay;
+  const days: TrafficDay[] = [];
+  let maxQueue: TrafficDetail["maxQueue"] = null;
+  const nDays = c.calendar.days;
+  for (let d = 0; d < nDays; d++) {
+    const closureHours: Record<string, number> = {};
+    let any = false;
+    c.closures.forEach((id, ci) => {
+      const h = r.closureDayHours[ci * nDays + d];
+      if (h > 0) {
+        closureHours[id] = round(h, 3);
+        any = true;
+      }
+    });
+    let delay = 0;
+    let bestMiles = 0;
+    let bestVeh = 0;
+    let dir: string | null = null;
+    let clears = NaN;
+    t.directions.forEach((cd, i) => {
+      const qd = detail.perDirection[i];
+      delay += qd.delay[d];
+      const miles = (qd.peakQueue[d] * cd.pcPerVeh) / (t.jamDensity * cd.storageLanes);
+      if (qd.peakQueue[d] > 0 && miles > bestMiles) {
+        bestMiles = miles;
+        bestVeh = qd.peakQueue[d];
+        dir = cd.id;
+        clears = qd.clearsAt[d];
+      }
+    });
+    if (!any && delay <= 0) continue;
+    const date = formatDayNumber(day0 + d);
+    days.push({ date, closureHours, delayVehHours: round(delay, 1), peakQueueVeh: Math.round(bestVeh), peakQueueMiles: round(bestMiles, 2), direction: dir, clearsAt: Number.isNaN(clears) ? null : dateTime(clears) });
+    if (bestMiles > (maxQueue?.miles ?? 0)) maxQueue = { miles: round(bestMiles, 2), vehicles: Math.round(bestVeh), date };
+  }
+  const fin = (x: number) => (Number.isFinite(x) ? Math.round(x) : null);
+  return {
+    iteration: k,
+    delayVehHours: round(im.delayVehHours, 1),
+    roadUserCost: fin(im.roadUserCost),
+    contractCost: fin(im.contractCost),
+    workingDays: im.workingDays,
+    jamDensityPcPerMiPerLane: t.jamDensity,
+    maxQueue,
+    days,
   };
 }
 
@@ -155,7 +275,7 @@ function closureHours(c: CompiledScenario, p: PartialRun, day0: number): RunSumm
   return { byClosure, totalByClosure };
 }
 
-function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): RunSummary["representative"] {
+function representativeIndex(p: PartialRun, p50: number): number {
   const n = p.finish.length;
   let best = 0;
   let bestGap = Infinity;
@@ -167,7 +287,11 @@ function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTim
       best = j;
     }
   }
-  const k = p.from + best;
+  return best;
+}
+
+function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): RunSummary["representative"] {
+  const k = p.from + representativeIndex(p, p50);
   const r = simulate(c, drawSamples(c.scenario, p.seed, k), { trace: true });
   return { iteration: k, finish: dateTime(r.finish), finishHours: r.finish, trace: r.trace! };
 }

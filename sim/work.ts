@@ -1,13 +1,16 @@
 /**
  * Per-iteration bookkeeping for the engine (./engine): finish times, the crews' event queue, closure
  * segments and their union per closure and day, weather-lost shift stamps, season-1 end, pauses for the trace.
- * One instance per compiled scenario, reset by `simulate` for each iteration.
+ * For the traffic and cost models (./traffic, ./cost): the union per closure as segments (`closureSegments`)
+ * and the days on which some crew's shift held work or mobilization (`shiftDaysWorked`), both computed only
+ * when asked, after `simulate`. One instance per compiled scenario, reset by `simulate` for each iteration.
  */
 import { firstIntervalAfter, seasonAt, stampShifts, unionLanesByDay, type CompiledCalendar, type OpCalendar } from "./calendar";
 import type { CompiledOp, PauseRecord } from "./engine";
 import { GateCache, pour, produce, type WorkSink } from "./gates";
 import type { WeatherSeries } from "./weather";
 import { EventQueue } from "./queue";
+import type { ClosureSegments } from "./traffic";
 
 /** Per-iteration bookkeeping and scratch: closure segments, weather-lost shift stamps, season-1 end. */
 export class WorkContext implements WorkSink {
@@ -29,6 +32,10 @@ export class WorkContext implements WorkSink {
   private readonly closureLanes: Int32Array[];
   private readonly lanePos: Int32Array;
   private readonly closureOut: Float64Array;
+  private readonly laneOp: Int32Array;
+  private readonly unionSeg: ClosureSegments;
+  private readonly dayStamp: Int32Array;
+  private dayGen = 0;
   private readonly range = new Int32Array(2);
   private outFirst = 0;
   private outLast = -1;
@@ -64,6 +71,14 @@ export class WorkContext implements WorkSink {
       lanes += o.crews;
     }
     this.closureLanes = byClosure.map((l) => Int32Array.from(l));
+    this.laneOp = new Int32Array(lanes);
+    for (const o of ops) for (let k = 0; k < o.crews; k++) this.laneOp[this.laneBase[o.index] + k] = o.index;
+    this.unionSeg = {
+      starts: Array.from({ length: nClosures }, () => new Float64Array(64)),
+      ends: Array.from({ length: nClosures }, () => new Float64Array(64)),
+      counts: new Int32Array(nClosures),
+    };
+    this.dayStamp = new Int32Array(cal.days + 2);
     this.lanePos = new Int32Array(lanes);
     this.segStarts = Array.from({ length: lanes }, () => new Float64Array(64));
     this.segEnds = Array.from({ length: lanes }, () => new Float64Array(64));
@@ -194,5 +209,90 @@ export class WorkContext implements WorkSink {
     this.outFirst = range[0];
     this.outLast = range[1];
     return { hours: out, first: range[0], last: range[1] };
+  }
+
+  /**
+   * Union of work and mobilization time per closure as chronological disjoint segments (a k-way merge of the
+   * crews' lanes). The buffers are reused: valid until the next call.
+   */
+  closureSegments(): ClosureSegments {
+    const u = this.unionSeg;
+    const pos = this.lanePos;
+    pos.fill(0);
+    for (let c = 0; c < this.nClosures; c++) {
+      const lanes = this.closureLanes[c];
+      let n = 0;
+      let curS = 0;
+      let curE = -Infinity;
+      for (;;) {
+        let pick = -1;
+        let best = Infinity;
+        for (let j = 0; j < lanes.length; j++) {
+          const l = lanes[j];
+          if (pos[l] < this.segCount[l] && this.segStarts[l][pos[l]] < best) {
+            best = this.segStarts[l][pos[l]];
+            pick = l;
+          }
+        }
+        if (pick < 0) break;
+        const e = this.segEnds[pick][pos[pick]++];
+        if (best <= curE) {
+          if (e > curE) curE = e;
+        } else {
+          if (curE > curS) n = this.pushUnion(c, n, curS, curE);
+          curS = best;
+          curE = e;
+        }
+      }
+      if (curE > curS) n = this.pushUnion(c, n, curS, curE);
+      u.counts[c] = n;
+    }
+    return u;
+  }
+
+  private pushUnion(c: number, n: number, a: number, b: number): number {
+    const u = this.unionSeg;
+    if (n === u.starts[c].length) {
+      const s = new Float64Array(2 * n);
+      const e = new Float64Array(2 * n);
+      s.set(u.starts[c]);
+      e.set(u.ends[c]);
+      u.starts[c] = s;
+      u.ends[c] = e;
+    }
+    u.starts[c][n] = a;
+    u.ends[c][n] = b;
+    return n + 1;
+  }
+
+  /**
+   * Working days: distinct days on which a shift instance that starts that day holds some work or
+   * mobilization of a crew (a night shift counts for the day it starts). Also the first and last such day.
+   */
+  shiftDaysWorked(): { days: number; first: number; last: number } {
+    const stamp = this.dayStamp;
+    const gen = ++this.dayGen; // its own counter: the method may be called more than once per iteration
+    let days = 0;
+    let first = Infinity;
+    let last = -Infinity;
+    for (let l = 0; l < this.segCount.length; l++) {
+      const n = this.segCount[l];
+      if (n === 0) continue;
+      const shifts = this.cal.ops[this.laneOp[l]]!.shifts;
+      for (let j = 0; j < n; j++) {
+        const a = this.segStarts[l][j];
+        const b = this.segEnds[l][j];
+        for (let i = firstIntervalAfter(shifts, a - 24); i < shifts.length && shifts.starts[i] < b; i++) {
+          if (shifts.ends[i] <= a) continue;
+          const d = Math.floor(shifts.starts[i] / 24);
+          if (d < 0 || d >= stamp.length || stamp[d] === gen) continue;
+          stamp[d] = gen;
+          days++;
+          if (d < first) first = d;
+          if (d > last) last = d;
+        }
+      }
+    }
+    return { days, first, last };
   }
 }
