@@ -84,9 +84,11 @@ export function templateScenario(name: string, deck: ProjectDeck, startDate: str
       crew("milling", "Mechanical milling", [500, 700, 900], "two-lane"),
       crew("hydrodemo", "Hydrodemolition", [250, 350, 450], "two-lane", { discovers: true }),
       crew("cleanup", "Cleanup", [600, 800, 1000], "two-lane", { mobilizationHours: 1 }),
-      crew("placement", "LMC overlay placement", [300, 400, 500], "two-lane", {
+      // By day: pours start only while the air is warming (45 °F and rising).
+      crew("placement", "LMC overlay placement", [300, 400, 500], "one-lane", {
+        shifts: ["day"],
         continuous: true,
-        gates: { minTempF: 45, rising: false, noRain: true, noRainHoursAfter: 3, maxEvaporation: 0.1, concreteDeltaF: 5 },
+        gates: { minTempF: 45, rising: true, noRain: true, noRainHoursAfter: 3, maxEvaporation: 0.1, concreteDeltaF: 5 },
       }),
       { id: "cure", name: "Wet cure and dry cure", kind: "wait" as const, durationHours: { type: "fixed" as const, value: 96 } },
       crew("restriping", "Restriping", [1500, 2000, 2500], "one-lane", { mobilizationHours: 1, gates: { minTempF: 40, noRain: true } }),
