@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { APP_URL, demoEmail, kestrelProject, signInAs } from "../helpers/app";
+import { APP_URL, DEMO_PASSWORD, call, demoEmail, kestrelProject, signInAs } from "../helpers/app";
 import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
 import { findMail, linkIn } from "../../src/lib/server/mailbox";
 
@@ -91,5 +91,35 @@ describe("invitation by e-mail", () => {
     await signInPage(signIn, INVITEE, "tidewater-2031");
     await signIn.waitForURL(`${APP_URL}/projects`);
     await signInContext.close();
+  });
+
+  it("someone who already has an account signs in on the invite page and gains the membership", async () => {
+    const admin = await signInAs("admin");
+    const tern = (await call("/api/projects", { cookie: admin })).body.projects.find((p: { name: string }) => p.name.includes("Tern Point"));
+    const engineer = demoEmail("engineer");
+    const res = await call(`/api/projects/${tern.id}/invitations`, { method: "POST", cookie: admin, body: { email: engineer, role: "engineer" } });
+    expect(res.status).toBe(201);
+    await expect.poll(() => findMail({ to: engineer, subject: "Tern Point" }), { timeout: 20_000, interval: 250 }).not.toBeNull();
+    const link = linkIn(findMail({ to: engineer, subject: "Tern Point" })!, "/invite/")!;
+
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await page.goto(link);
+    await expect.poll(() => page.getByText("already has a Pourline account").count()).toBe(1);
+    expect(await page.getByLabel("Your name").count()).toBe(0);
+    // A wrong password is refused like any sign-in and joins nothing.
+    await page.getByLabel("Password").fill("not-the-password");
+    await page.getByRole("button", { name: "Sign in and join" }).click();
+    await expect.poll(() => page.getByText("do not match").count()).toBe(1);
+    await page.getByLabel("Password").fill(DEMO_PASSWORD);
+    await page.getByRole("button", { name: "Sign in and join" }).click();
+    await page.waitForURL(`${APP_URL}/projects`);
+    expect(await page.getByRole("link", { name: /Tern Point/ }).getByTestId("role-badge").textContent()).toBe("Engineer");
+    await context.close();
+
+    // Leave the seeded memberships as other test files expect them.
+    const members = (await call(`/api/projects/${tern.id}/members`, { cookie: admin })).body.members as { userId: string; email: string }[];
+    const added = members.find((m) => m.email === engineer)!;
+    expect((await call(`/api/projects/${tern.id}/members/${added.userId}`, { method: "DELETE", cookie: admin })).status).toBe(200);
   });
 });
