@@ -1,0 +1,177 @@
+import "server-only";
+import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
+import { getDb } from "../client";
+import { progressEntries, progressHistory, simulationRuns, users } from "../schema";
+
+/** The fields a person records about one shift (what history stores before and after a change). */
+export interface ProgressFields {
+  workDate: string;
+  shift: string;
+  operationId: string;
+  fromStationFt: number;
+  toStationFt: number;
+  crew: string;
+  tempF: number | null;
+  rain: boolean;
+  lostHours: number;
+  lostReason: string;
+  discovered: { kind: string; fromStationFt: number; toStationFt: number; areaSqFt: number }[];
+}
+
+const entryColumns = {
+  id: progressEntries.id,
+  projectId: progressEntries.projectId,
+  scenarioId: progressEntries.scenarioId,
+  workDate: progressEntries.workDate,
+  shift: progressEntries.shift,
+  operationId: progressEntries.operationId,
+  fromStationFt: progressEntries.fromStationFt,
+  toStationFt: progressEntries.toStationFt,
+  crew: progressEntries.crew,
+  tempF: progressEntries.tempF,
+  rain: progressEntries.rain,
+  lostHours: progressEntries.lostHours,
+  lostReason: progressEntries.lostReason,
+  discovered: progressEntries.discovered,
+  version: progressEntries.version,
+  enteredById: progressEntries.enteredById,
+  enteredByName: users.name,
+  createdAt: progressEntries.createdAt,
+  updatedAt: progressEntries.updatedAt,
+};
+
+const fieldsOf = (r: ProgressFields): ProgressFields => ({
+  workDate: r.workDate,
+  shift: r.shift,
+  operationId: r.operationId,
+  fromStationFt: r.fromStationFt,
+  toStationFt: r.toStationFt,
+  crew: r.crew,
+  tempF: r.tempF,
+  rain: r.rain,
+  lostHours: r.lostHours,
+  lostReason: r.lostReason,
+  discovered: r.discovered,
+});
+
+export async function listProgress({ scenarioId }: { scenarioId: string }) {
+  return getDb()
+    .select(entryColumns)
+    .from(progressEntries)
+    .innerJoin(users, eq(users.id, progressEntries.enteredById))
+    .where(eq(progressEntries.scenarioId, scenarioId))
+    .orderBy(asc(progressEntries.workDate), asc(progressEntries.createdAt));
+}
+export type ProgressRow = Awaited<ReturnType<typeof listProgress>>[number];
+
+export async function getProgressEntry({ id }: { id: string }) {
+  const [row] = await getDb().select(entryColumns).from(progressEntries).innerJoin(users, eq(users.id, progressEntries.enteredById)).where(eq(progressEntries.id, id));
+  return row ?? null;
+}
+
+export async function listProgressHistory({ entryId }: { entryId: string }) {
+  return getDb()
+    .select({ id: progressHistory.id, changedAt: progressHistory.changedAt, changedByName: users.name, before: progressHistory.before, after: progressHistory.after })
+    .from(progressHistory)
+    .innerJoin(users, eq(users.id, progressHistory.changedById))
+    .where(eq(progressHistory.entryId, entryId))
+    .orderBy(desc(progressHistory.changedAt), asc(sql`${progressHistory.before} is null`));
+}
+
+/** Creates an entry and its first history row (before = null) in one transaction. */
+export async function createProgressEntry(input: { projectId: string; scenarioId: string; fields: ProgressFields; userId: string }) {
+  return getDb().transaction(async (tx) => {
+    const fields = fieldsOf(input.fields);
+    const [row] = await tx
+      .insert(progressEntries)
+      .values({ projectId: input.projectId, scenarioId: input.scenarioId, ...fields, enteredById: input.userId })
+      .returning({ id: progressEntries.id, version: progressEntries.version });
+    await tx.insert(progressHistory).values({ entryId: row.id, changedById: input.userId, before: null, after: fields });
+    return row;
+  });
+}
+
+export type ProgressUpdateResult = { ok: true; version: number } | { ok: false; reason: "conflict"; currentVersion: number } | { ok: false; reason: "missing" };
+
+/** Saves only over the version the editor loaded; the history row (before/after, who) is in the same transaction. */
+export async function updateProgressEntry(input: { id: string; expectedVersion: number; fields: ProgressFields; userId: string }): Promise<ProgressUpdateResult> {
+  return getDb().transaction(async (tx) => {
+    const [current] = await tx.select().from(progressEntries).where(eq(progressEntries.id, input.id)).for("update");
+    if (!current) return { ok: false, reason: "missing" };
+    if (current.version !== input.expectedVersion) return { ok: false, reason: "conflict", currentVersion: current.version };
+    const fields = fieldsOf(input.fields);
+    const [row] = await tx
+      .update(progressEntries)
+      .set({ ...fields, version: sql`${progressEntries.version} + 1`, updatedAt: new Date() })
+      .where(and(eq(progressEntries.id, input.id), eq(progressEntries.version, input.expectedVersion)))
+      .returning({ version: progressEntries.version });
+    await tx.insert(progressHistory).values({ entryId: input.id, changedById: input.userId, before: fieldsOf(current), after: fields });
+    return { ok: true, version: row.version };
+  });
+}
+
+export async function deleteProgressEntry({ id }: { id: string }) {
+  const rows = await getDb().delete(progressEntries).where(eq(progressEntries.id, id)).returning({ id: progressEntries.id });
+  return rows.length > 0;
+}
+
+/** A re-forecast is a run with a data date; the summary and results have the same shape as a plan run's. */
+export async function saveReforecastRun(input: {
+  scenarioId: string;
+  scenarioVersion: number;
+  inputsHash: string;
+  seed: string;
+  iterations: number;
+  dataDate: string;
+  summary: Record<string, unknown>;
+  results: Record<string, unknown>;
+  durationMs: number;
+  userId: string;
+}) {
+  const [row] = await getDb()
+    .insert(simulationRuns)
+    .values({ ...input, createdById: input.userId })
+    .returning({ id: simulationRuns.id, createdAt: simulationRuns.createdAt });
+  return row;
+}
+
+/** Re-forecast runs of a scenario, oldest data date first (the drift chart's order), headline figures only. */
+export async function listReforecastRuns({ scenarioId }: { scenarioId: string }) {
+  return getDb()
+    .select({
+      id: simulationRuns.id,
+      dataDate: simulationRuns.dataDate,
+      scenarioVersion: simulationRuns.scenarioVersion,
+      seed: simulationRuns.seed,
+      iterations: simulationRuns.iterations,
+      summary: simulationRuns.summary,
+      createdAt: simulationRuns.createdAt,
+      createdByName: users.name,
+    })
+    .from(simulationRuns)
+    .leftJoin(users, eq(users.id, simulationRuns.createdById))
+    .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate)))
+    .orderBy(asc(simulationRuns.dataDate), asc(simulationRuns.createdAt));
+}
+
+/** The newest plan run (no data date): the drift chart's first point. */
+export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
+  const [row] = await getDb()
+    .select({ id: simulationRuns.id, scenarioVersion: simulationRuns.scenarioVersion, seed: simulationRuns.seed, iterations: simulationRuns.iterations, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, scenarioId), sql`${simulationRuns.dataDate} is null`))
+    .orderBy(desc(simulationRuns.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
+/** The latest re-forecast's full results (for the chart with actuals). */
+export async function getLatestReforecast({ scenarioId }: { scenarioId: string }) {
+  const [row] = await getDb()
+    .select({ id: simulationRuns.id, dataDate: simulationRuns.dataDate, scenarioVersion: simulationRuns.scenarioVersion, results: simulationRuns.results, createdAt: simulationRuns.createdAt })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate)))
+    .orderBy(desc(simulationRuns.createdAt))
+    .limit(1);
+  return row ?? null;
+}

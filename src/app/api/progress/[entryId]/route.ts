@@ -1,0 +1,47 @@
+import { NextResponse } from "next/server";
+import { z } from "zod";
+import { AppError, handler, readJson } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { fieldsOf, validateDelete, validateEntry } from "@/lib/server/progress";
+import { progressUpdateSchema } from "@/lib/progress-schema";
+import { deleteProgressEntry, getProgressEntry, listProgressHistory, updateProgressEntry } from "@db/queries/progress";
+import type { Action } from "@/lib/permissions";
+
+type Ctx = { params: Promise<{ entryId: string }> };
+
+/** The entry and the scenario it belongs to, with the caller's right to `action` (404 hides other projects). */
+async function load(entryId: string, action: Action) {
+  const entry = z.uuid().safeParse(entryId).success ? await getProgressEntry({ id: entryId }) : null;
+  if (!entry || !entry.scenarioId) throw new AppError("not_found", "No such progress entry.");
+  const access = await requireScenario(entry.scenarioId, action);
+  return { entry, ...access };
+}
+
+export const GET = handler(async (_req: Request, ctx: Ctx) => {
+  const { entryId } = await ctx.params;
+  const { entry } = await load(entryId, "read");
+  return NextResponse.json({ entry, history: await listProgressHistory({ entryId }) });
+});
+
+/** Saves only over the version the editor loaded (409 otherwise, nothing changes); history keeps before and after. */
+export const PUT = handler(async (req: Request, ctx: Ctx) => {
+  const { entryId } = await ctx.params;
+  const { scenario, user } = await load(entryId, "recordProgress");
+  const { version, ...entry } = await readJson(req, progressUpdateSchema);
+  await validateEntry({ scenario, entry, id: entryId });
+  const result = await updateProgressEntry({ id: entryId, expectedVersion: version, fields: fieldsOf(entry), userId: user.id });
+  if (!result.ok && result.reason === "missing") throw new AppError("not_found", "No such progress entry.");
+  if (!result.ok) {
+    const current = await getProgressEntry({ id: entryId });
+    throw new AppError("conflict", `Someone else changed this entry (version ${result.currentVersion}) after you opened version ${version}. Nothing was overwritten.`, [], { current });
+  }
+  return NextResponse.json({ version: result.version });
+});
+
+export const DELETE = handler(async (_req: Request, ctx: Ctx) => {
+  const { entryId } = await ctx.params;
+  const { scenario } = await load(entryId, "recordProgress");
+  await validateDelete({ scenario, id: entryId });
+  await deleteProgressEntry({ id: entryId });
+  return NextResponse.json({ ok: true });
+});
