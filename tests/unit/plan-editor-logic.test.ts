@@ -148,3 +148,17 @@ describe("convertDist and toFormValues", () => {
     }
   });
 });
+
+describe("layoutByDepth with wrapping", () => {
+  it("folds a long chain into bands of three columns, in order, without overlaps", () => {
+    const ids = ["a", "b", "c", "d", "e", "f", "g"];
+    const links = ids.slice(1).map((to, i) => ({ from: ids[i], to }));
+    const pos = layoutByDepth(ids, links, 200, 100, 3);
+    expect(ids.map((id) => pos[id].x)).toEqual([0, 200, 400, 0, 200, 400, 0]);
+    const bands = ids.map((id) => pos[id].y);
+    expect(bands[0]).toBe(bands[2]);
+    expect(bands[3]).toBeGreaterThan(bands[2]);
+    expect(bands[6]).toBeGreaterThan(bands[3]);
+    expect(new Set(ids.map((id) => `${pos[id].x},${pos[id].y}`)).size).toBe(ids.length);
+  });
+});

@@ -71,15 +71,35 @@ export function depths(ids: readonly string[], links: readonly LinkLike[]): Map<
   return depth;
 }
 
-export function layoutByDepth(ids: readonly string[], links: readonly LinkLike[], dx = 240, dy = 110): Record<string, { x: number; y: number }> {
+/**
+ * Left to right by depth; with `wrapAfter`, a long chain folds into bands of that many columns, so the
+ * seven-operation chain stays readable in a narrow canvas instead of shrinking to fit one row.
+ */
+export function layoutByDepth(
+  ids: readonly string[],
+  links: readonly LinkLike[],
+  dx = 240,
+  dy = 110,
+  wrapAfter = Infinity,
+): Record<string, { x: number; y: number }> {
   const d = depths(ids, links);
   const row = new Map<number, number>();
   const out: Record<string, { x: number; y: number }> = {};
+  let tallest = 1;
   for (const id of ids) {
     const col = d.get(id) ?? 0;
     const r = row.get(col) ?? 0;
     row.set(col, r + 1);
-    out[id] = { x: col * dx, y: r * dy };
+    tallest = Math.max(tallest, r + 1);
+  }
+  row.clear();
+  for (const id of ids) {
+    const col = d.get(id) ?? 0;
+    const r = row.get(col) ?? 0;
+    row.set(col, r + 1);
+    const band = Number.isFinite(wrapAfter) ? Math.floor(col / wrapAfter) : 0;
+    const x = Number.isFinite(wrapAfter) ? col % wrapAfter : col;
+    out[id] = { x: x * dx, y: (band * (tallest + 0.6) + r) * dy };
   }
   return out;
 }

@@ -17,7 +17,7 @@ type LinkIn = ScenarioInput["links"][number];
 
 function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
   const byId = new Map(prev.map((nd) => [nd.id, nd]));
-  const layout = layoutByDepth(ops.map((o) => o.id), links);
+  const layout = layoutByDepth(ops.map((o) => o.id), links, 220, 90, 3);
   return ops.map((op) => {
     const old = byId.get(op.id);
     const data = {
