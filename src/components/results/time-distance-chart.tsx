@@ -5,7 +5,7 @@
  * plan (the definition); the trace from the run. Rendering stays light: no dots, no animation.
  */
 import { useMemo } from "react";
-import { CartesianGrid, Line, LineChart, ReferenceArea, ResponsiveContainer, XAxis, YAxis } from "recharts";
+import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, XAxis, YAxis } from "recharts";
 import { compileCalendar, HORIZON_DAYS } from "@sim/calendar";
 import type { Scenario } from "@sim/schema";
 import type { RunSummary } from "@sim/summary";
@@ -29,7 +29,27 @@ function stationTicks(lo: number, hi: number, max = 8): number[] {
 
 const hoursText = (h: number) => `${Math.round(h).toLocaleString("en-US")} h`;
 
-export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummary; plan: Scenario | null; stale: boolean }) {
+/** Recorded progress of one operation: x day numbers, y stations; a null y breaks the line between shifts. */
+export interface ActualSeries {
+  id: string;
+  points: { x: number; y: number | null }[];
+}
+
+export function TimeDistanceChart({
+  summary,
+  plan,
+  stale,
+  actuals,
+  dataDay,
+}: {
+  summary: RunSummary;
+  plan: Scenario | null;
+  stale: boolean;
+  /** Optional overlay of recorded progress (drawn thick and pale in the operation's colour). */
+  actuals?: ActualSeries[];
+  /** Optional data date (day number of its 24:00) drawn as a vertical line. */
+  dataDay?: number;
+}) {
   const trace = summary.representative?.trace;
   const model = useMemo(() => {
     if (!plan || !trace) return null;
@@ -38,9 +58,10 @@ export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummar
     const toX = (h: number) => hoursToDay(summary.startDate, h);
     const series = timeDistanceSeries(trace, plan.deck, ops, toX).filter((s) => s.points.length > 0 || s.unfinishedPackets > 0);
     const drawn = series.filter((s) => s.points.length > 0);
-    if (drawn.length === 0) return { series, bands: [], lo: 0, hi: 0 };
-    const lo = Math.min(...drawn.map((s) => s.firstStart!));
-    const hi = Math.max(...drawn.map((s) => s.lastFinish!));
+    const actualX = (actuals ?? []).flatMap((a) => a.points.map((p) => p.x));
+    if (drawn.length === 0 && actualX.length === 0) return { series, bands: [], lo: 0, hi: 0 };
+    const lo = Math.min(...drawn.map((s) => s.firstStart!), ...actualX);
+    const hi = Math.max(...drawn.map((s) => s.lastFinish!), ...actualX);
     // Stand-downs from the plan's calendar, in the plan's own hours, then onto the shared day axis.
     const planDay0 = hoursToDay(plan.startDate, 0);
     const fromH = (lo - planDay0) * 24;
@@ -48,7 +69,7 @@ export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummar
     const days = Math.min(HORIZON_DAYS, Math.max(1, Math.ceil(toH / 24) + 2));
     const bands = toH > 0 ? standDowns(compileCalendar(plan, days), plan.calendar.season.demobilizeHours, Math.max(0, fromH), toH) : [];
     return { series, bands: bands.map((b) => ({ kind: b.kind, x1: planDay0 + b.start / 24, x2: planDay0 + b.end / 24 })), lo, hi };
-  }, [plan, trace, summary.operations, summary.startDate]);
+  }, [plan, trace, summary.operations, summary.startDate, actuals]);
 
   if (!plan) return <p className="text-sm text-muted">The plan behind this run could not be read, so stations cannot be drawn.</p>;
   if (!model || model.lo === model.hi) {
@@ -104,6 +125,25 @@ export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummar
               width={84}
               label={{ value: "Station (1 STA = 100 ft)", angle: -90, position: "insideLeft", offset: 0, dy: 70, fill: "var(--color-ink)", fontSize: 12 }}
             />
+            {(actuals ?? []).map((a) => {
+              const i = series.findIndex((s) => s.id === a.id);
+              return (
+                <Line
+                  key={`actual-${a.id}`}
+                  data={a.points}
+                  dataKey="y"
+                  type="linear"
+                  stroke={i >= 0 ? seriesStyle(i).stroke : "var(--color-muted)"}
+                  strokeOpacity={0.4}
+                  strokeWidth={7}
+                  dot={false}
+                  activeDot={false}
+                  connectNulls={false}
+                  isAnimationActive={false}
+                />
+              );
+            })}
+            {dataDay !== undefined && <ReferenceLine x={dataDay} stroke="var(--color-ink)" strokeDasharray="4 3" ifOverflow="hidden" label={{ value: "Data date", position: "insideTopRight", fontSize: 12, fill: "var(--color-ink)" }} />}
             {series.map((s, i) => {
               const st = seriesStyle(i);
               return (
@@ -134,6 +174,12 @@ export function TimeDistanceChart({ summary, plan, stale }: { summary: RunSummar
               {s.name}
             </li>
           ))}
+          {actuals && actuals.length > 0 && (
+            <li className="flex items-center gap-1.5">
+              <span aria-hidden="true" className="inline-block h-1.5 w-6 rounded bg-ink/40" />
+              Recorded progress (thick, pale)
+            </li>
+          )}
           <li className="flex items-center gap-1.5">
             <AreaSwatch className="bg-brand-100" />
             Winter stand-down
