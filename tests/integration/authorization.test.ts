@@ -46,6 +46,13 @@ async function scenarioFor(f: Fixture, who: Who, label: string) {
   return newScenario(f, label);
 }
 
+async function scenarioWithRun(f: Fixture, who: Who, label: string) {
+  const s = await scenarioFor(f, who, label);
+  const run = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: await adminCookie(), body: { seed: "matrix", iterations: 10 } });
+  if (run.status !== 201) throw new Error(`fixture run failed: ${run.status}`);
+  return s;
+}
+
 const projectOf = (f: Fixture, who: Who) => (who === "nonMember" ? f.ternProjectId : f.projectId);
 
 const readAll = (ok = 200): Record<Who, number> => ({ signedOut: 401, nonMember: 404, viewer: ok, inspector: ok, scheduler: ok, engineer: ok, admin: ok });
@@ -122,6 +129,47 @@ const CASES: Case[] = [
       return { path: `/api/share-links/${link.body.id}` };
     },
     expect: editors(200),
+  },
+  {
+    name: "list uploads",
+    method: "GET",
+    prepare: async (f, w) => ({ path: `/api/scenarios/${(await scenarioFor(f, w, "uploads")).id}/uploads` }),
+    expect: readAll(),
+  },
+  {
+    // The role is checked before the body is read: editors get as far as "send a form upload" (400).
+    name: "upload a file (sent as JSON, so editors get 400)",
+    method: "POST",
+    prepare: async (f, w) => ({ path: `/api/scenarios/${(await scenarioFor(f, w, "upload")).id}/uploads`, body: { kind: "survey" } }),
+    expect: editors(400),
+  },
+  {
+    name: "export planned closures (iCalendar)",
+    method: "GET",
+    prepare: async (f, w) => ({ path: `/api/scenarios/${(await scenarioWithRun(f, w, "ics")).id}/exports/closures.ics` }),
+    expect: readAll(),
+  },
+  {
+    name: "export results (CSV)",
+    method: "GET",
+    prepare: async (f, w) => ({ path: `/api/scenarios/${(await scenarioWithRun(f, w, "csv")).id}/exports/results.csv` }),
+    expect: readAll(),
+  },
+  {
+    name: "compare scenarios",
+    method: "GET",
+    prepare: async (f, w) => {
+      const a = await scenarioWithRun(f, w, "cmp a");
+      const b = await scenarioWithRun(f, w, "cmp b");
+      return { path: `/api/projects/${projectOf(f, w)}/compare?ids=${a.id},${b.id}` };
+    },
+    expect: readAll(),
+  },
+  {
+    name: "invite by e-mail",
+    method: "POST",
+    prepare: async (f, w) => ({ path: `/api/projects/${projectOf(f, w)}/invitations`, body: { email: `invitee-${w}-${Date.now()}@marrin-dot.example`, role: "viewer" } }),
+    expect: adminOnly(201),
   },
   { name: "list members", method: "GET", prepare: async (f, w) => ({ path: `/api/projects/${projectOf(f, w)}/members` }), expect: readAll() },
   {
