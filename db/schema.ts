@@ -290,3 +290,41 @@ export const passwordResets = pgTable(
   },
   (t) => [uniqueIndex("password_resets_token_idx").on(t.tokenHash)],
 );
+
+/** People outside the team (public information office, partner agencies) told when a closure plan is published. */
+export const closureSubscribers = pgTable(
+  "closure_subscribers",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    label: text("label").notNull().default(""),
+    addedById: text("added_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: ts("created_at").notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("closure_subscribers_project_email_idx").on(t.projectId, t.email)],
+);
+
+/** Each time a scenario's planned closures were published, with the run they came from and the feed link. */
+export const closurePublications = pgTable("closure_publications", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  scenarioId: uuid("scenario_id")
+    .notNull()
+    .references(() => scenarios.id, { onDelete: "cascade" }),
+  runId: uuid("run_id")
+    .notNull()
+    .references(() => simulationRuns.id, { onDelete: "cascade" }),
+  shareLinkId: uuid("share_link_id")
+    .notNull()
+    .references(() => shareLinks.id, { onDelete: "cascade" }),
+  closureCount: integer("closure_count").notNull(),
+  notified: integer("notified").notNull(),
+  publishedById: text("published_by")
+    .notNull()
+    .references(() => users.id),
+  publishedAt: ts("published_at").notNull().defaultNow(),
+});
