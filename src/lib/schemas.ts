@@ -41,3 +41,8 @@ export const runWriteSchema = z.object({
   summary: z.record(z.string(), z.unknown()).optional(),
   durationMs: z.number().int().min(0).max(86_400_000).optional(),
 });
+
+export const closureSubscriberSchema = z.object({
+  email: z.email("must be an e-mail address").max(200),
+  label: z.string().trim().max(120).default(""),
+});

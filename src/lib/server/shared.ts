@@ -6,11 +6,25 @@ import { findLiveShareLink } from "@db/queries/shares";
 import { AppError } from "./errors";
 import { hashShareToken } from "./share-token";
 
-export async function loadSharedScenario(token: string) {
+const GONE = "This link does not exist, has expired or was revoked.";
+
+async function liveLink(token: string) {
   const link = token.length >= 20 && token.length <= 100 ? await findLiveShareLink({ tokenHash: hashShareToken(token) }) : null;
-  if (!link) throw new AppError("not_found", "This link does not exist, has expired or was revoked.");
+  if (!link) throw new AppError("not_found", GONE);
+  return link;
+}
+
+/** The scenario behind a live share link (for server-side exports such as the closure calendar feed). */
+export async function sharedScenarioDetail(token: string) {
+  const scenario = await getScenario({ id: (await liveLink(token)).scenarioId });
+  if (!scenario) throw new AppError("not_found", GONE);
+  return scenario;
+}
+
+export async function loadSharedScenario(token: string) {
+  const link = await liveLink(token);
   const scenario = await getScenario({ id: link.scenarioId });
-  if (!scenario) throw new AppError("not_found", "This link does not exist, has expired or was revoked.");
+  if (!scenario) throw new AppError("not_found", GONE);
   const [project, run] = await Promise.all([getProject({ id: scenario.projectId }), getLatestRun({ scenarioId: scenario.id })]);
   return {
     link: { label: link.label, expiresAt: link.expiresAt },

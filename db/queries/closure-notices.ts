@@ -1,0 +1,47 @@
+import "server-only";
+import { and, asc, desc, eq } from "drizzle-orm";
+import { getDb } from "../client";
+import { closurePublications, closureSubscribers, users } from "../schema";
+import type { Executor } from "./mail";
+
+export async function listClosureSubscribers({ projectId }: { projectId: string }) {
+  return getDb()
+    .select({ id: closureSubscribers.id, email: closureSubscribers.email, label: closureSubscribers.label, createdAt: closureSubscribers.createdAt })
+    .from(closureSubscribers)
+    .where(eq(closureSubscribers.projectId, projectId))
+    .orderBy(asc(closureSubscribers.email));
+}
+
+/** Adding someone already on the list changes nothing and is not an error. */
+export async function addClosureSubscriber(input: { projectId: string; email: string; label: string; userId: string }) {
+  await getDb()
+    .insert(closureSubscribers)
+    .values({ projectId: input.projectId, email: input.email.trim().toLowerCase(), label: input.label, addedById: input.userId })
+    .onConflictDoNothing();
+}
+
+export async function removeClosureSubscriber({ projectId, id }: { projectId: string; id: string }) {
+  const rows = await getDb()
+    .delete(closureSubscribers)
+    .where(and(eq(closureSubscribers.projectId, projectId), eq(closureSubscribers.id, id)))
+    .returning({ id: closureSubscribers.id });
+  return rows.length > 0;
+}
+
+export async function insertClosurePublication(input: { tx: Executor; scenarioId: string; runId: string; shareLinkId: string; closureCount: number; notified: number; userId: string }) {
+  const [row] = await input.tx
+    .insert(closurePublications)
+    .values({ scenarioId: input.scenarioId, runId: input.runId, shareLinkId: input.shareLinkId, closureCount: input.closureCount, notified: input.notified, publishedById: input.userId })
+    .returning({ id: closurePublications.id, publishedAt: closurePublications.publishedAt });
+  return row;
+}
+
+export async function listClosurePublications({ scenarioId }: { scenarioId: string }) {
+  return getDb()
+    .select({ id: closurePublications.id, closureCount: closurePublications.closureCount, notified: closurePublications.notified, publishedAt: closurePublications.publishedAt, publishedByName: users.name })
+    .from(closurePublications)
+    .innerJoin(users, eq(users.id, closurePublications.publishedById))
+    .where(eq(closurePublications.scenarioId, scenarioId))
+    .orderBy(desc(closurePublications.publishedAt))
+    .limit(10);
+}

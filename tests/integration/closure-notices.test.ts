@@ -1,0 +1,83 @@
+/**
+ * Publishing a closure plan: subscribers get a notice through the outbox and the local mail catcher, and the
+ * calendar feed behind it is public, parses as iCalendar and dies with its link.
+ */
+import { beforeAll, describe, expect, it } from "vitest";
+import ICAL from "ical.js";
+import { call, kestrelProject, signInAs } from "../helpers/app";
+import { findMail } from "../../src/lib/server/mailbox";
+
+let engineer: string;
+let projectId: string;
+let scenarioId: string;
+const subscriber = `pio-${Date.now()}@marrin-county.example`;
+
+beforeAll(async () => {
+  engineer = await signInAs("engineer");
+  projectId = (await kestrelProject(engineer)).id;
+  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: engineer });
+  const base = (await call(`/api/scenarios/${list.body.scenarios[0].id}`, { cookie: engineer })).body.scenario.definition;
+  const created = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie: engineer, body: { name: "Closure notice plan", definition: { ...base, name: "Closure notice plan" } } });
+  scenarioId = created.body.id;
+});
+
+async function waitForMail(to: string, subject: string, ms = 20_000) {
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    const m = findMail({ to, subject });
+    if (m) return m;
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`no e-mail to ${to} about "${subject}" within ${ms} ms`);
+}
+
+describe("closure notices", () => {
+  it("refuses to publish before the scenario has a current run", async () => {
+    const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer });
+    expect(res.status).toBe(409);
+    expect(res.body.error).toMatch(/Run the scenario/);
+  });
+
+  it("a subscriber's e-mail is validated and a repeat add changes nothing", async () => {
+    const bad = await call(`/api/projects/${projectId}/closure-subscribers`, { method: "POST", cookie: engineer, body: { email: "not-an-address" } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields[0].path).toBe("email");
+    for (let i = 0; i < 2; i++) expect((await call(`/api/projects/${projectId}/closure-subscribers`, { method: "POST", cookie: engineer, body: { email: subscriber, label: "County public information office" } })).status).toBe(201);
+    const list = await call(`/api/projects/${projectId}/closure-subscribers`, { cookie: engineer });
+    expect(list.body.subscribers.filter((s: { email: string }) => s.email === subscriber)).toHaveLength(1);
+  });
+
+  it("publishing notifies every subscriber with the first closures and a calendar feed that parses and can be revoked", async () => {
+    expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: engineer, body: { seed: "notice", iterations: 20 } })).status).toBe(201);
+    const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer });
+    expect(res.status).toBe(201);
+    expect(res.body.closureCount).toBeGreaterThan(0);
+    expect(res.body.notified).toBeGreaterThanOrEqual(1);
+
+    const mail = await waitForMail(subscriber, "Lane closures planned");
+    expect(mail.text).toContain("closed)");
+    const feedPath = new URL(res.body.feedUrl).pathname;
+    expect(mail.text).toContain(feedPath);
+
+    const feed = await call(feedPath);
+    expect(feed.status).toBe(200);
+    expect(feed.headers.get("content-type")).toMatch(/text\/calendar/);
+    const events = new ICAL.Component(ICAL.parse(feed.body as string)).getAllSubcomponents("vevent");
+    expect(events).toHaveLength(res.body.closureCount);
+
+    const pubs = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: engineer });
+    expect(pubs.body.publications[0].closureCount).toBe(res.body.closureCount);
+
+    // The feed is a share link like any other: revoked, it is gone.
+    const links = await call(`/api/scenarios/${scenarioId}/share-links`, { cookie: engineer });
+    const feedLink = links.body.links.find((l: { label: string }) => l.label === "Closure calendar feed");
+    expect((await call(`/api/share-links/${feedLink.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
+    expect((await call(feedPath)).status).toBe(404);
+  });
+
+  it("a viewer can neither see the subscriber list nor publish", async () => {
+    const viewer = await signInAs("viewer");
+    expect((await call(`/api/projects/${projectId}/closure-subscribers`, { cookie: viewer })).status).toBe(403);
+    expect((await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: viewer })).status).toBe(403);
+  });
+});
