@@ -8,6 +8,7 @@ export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: st
   const tabs = [
     { href: base, label: "Outlook" },
     { href: `${base}/plan`, label: "Plan" },
+    { href: `${base}/progress`, label: "Field log" },
     ...(canEdit ? [{ href: `${base}/data`, label: "Field data" }] : []),
     ...(canShare ? [{ href: `${base}/share`, label: "Share" }] : []),
   ];

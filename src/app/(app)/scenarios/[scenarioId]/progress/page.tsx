@@ -1,0 +1,126 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { getLatestPlanRun, getLatestReforecast, listProgress, listReforecastRuns } from "@db/queries/progress";
+import { getLatestRun } from "@db/queries/runs";
+import { can } from "@/lib/permissions";
+import { formatIsoDate } from "@/lib/format";
+import { todayIn } from "@/lib/progress-schema";
+import { parseScenario } from "@sim/validate";
+import { parseIsoDate } from "@sim/dates";
+import type { RunSummary } from "@sim/summary";
+import type { Scenario } from "@sim/schema";
+import { TimeDistanceChart, type ActualSeries } from "@/components/results/time-distance-chart";
+import { DriftChart, type DriftPoint } from "./drift-chart";
+import { ProgressForm, type PlanFacts } from "./progress-form";
+import { ProgressTable, type EntryView } from "./progress-table";
+import { ReforecastPanel } from "./reforecast-panel";
+
+export const metadata: Metadata = { title: "Field log" };
+
+/** Recorded shifts as thick segments per operation: (shift start, from) → (shift end, to), a gap between shifts. */
+function actualsOf(plan: Scenario, entries: EntryView[]): ActualSeries[] {
+  return plan.operations
+    .map((op) => {
+      const points: ActualSeries["points"] = [];
+      const mine = entries.filter((e) => e.operationId === op.id);
+      const timed = mine
+        .map((e) => {
+          const sh = plan.calendar.shifts.find((s) => s.id === e.shift);
+          const start = parseIsoDate(e.workDate) + (sh?.startHour ?? 0) / 24;
+          return { e, start, end: start + (sh?.lengthHours ?? 0) / 24 };
+        })
+        .sort((a, b) => a.start - b.start);
+      for (const t of timed) points.push({ x: t.start, y: t.e.fromStationFt }, { x: t.end, y: t.e.toStationFt }, { x: t.end, y: null });
+      return { id: op.id, points };
+    })
+    .filter((a) => a.points.length > 0);
+}
+
+export default async function FieldLogPage({ params }: { params: Promise<{ scenarioId: string }> }) {
+  const { scenarioId } = await params;
+  const { scenario, role } = await requireScenario(scenarioId, "read").catch((e) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  const parsed = parseScenario(scenario.definition);
+  if (!parsed.ok) return <p className="card text-sm text-bad">The plan has problems, so progress cannot be checked against it. Fix the plan first.</p>;
+  const plan = parsed.scenario;
+  const [rows, drift, planRun, latestRe] = await Promise.all([
+    listProgress({ scenarioId }),
+    listReforecastRuns({ scenarioId }),
+    getLatestPlanRun({ scenarioId }),
+    getLatestReforecast({ scenarioId }),
+  ]);
+  const chartRun = latestRe ? { results: latestRe.results, version: latestRe.scenarioVersion, dataDate: latestRe.dataDate } : await getLatestRun({ scenarioId }).then((r) => r && { results: r.results, version: r.scenarioVersion, dataDate: null });
+  const entries: EntryView[] = rows.map((r) => ({ ...r, enteredByName: r.enteredByName ?? "" }));
+  const canRecord = can(role, "recordProgress");
+  const canRun = can(role, "runScenario");
+  const crewOps = plan.operations.filter((o) => o.kind === "crew");
+  const facts: PlanFacts = {
+    startDate: plan.startDate,
+    today: todayIn(plan.timeZone),
+    deckFrom: plan.deck.startStationFt,
+    deckTo: plan.deck.startStationFt + plan.deck.lengthFt,
+    shifts: plan.calendar.shifts.map((s) => ({ id: s.id, name: s.name })),
+    operations: crewOps.map((o) => ({ id: o.id, name: o.name })),
+  };
+  const names = Object.fromEntries(plan.operations.map((o) => [o.id, o.name]));
+  const lastDate = entries.reduce((m, e) => (e.workDate > m ? e.workDate : m), "");
+  const points: DriftPoint[] = [
+    ...(planRun ? [{ label: "Plan", ...((planRun.summary as { finish: { p50: string; p80: string } }).finish) }] : []),
+    ...drift.map((r) => ({ label: formatIsoDate(r.dataDate), ...((r.summary as { finish: { p50: string; p80: string } }).finish) })),
+  ];
+  const digest = latestRe ? (latestRe.results as { reforecast?: { entriesUsed: number; discovery: { inspected: number; found: number; planMean: number; updatedMean: number } } }).reforecast : undefined;
+
+  return (
+    <div className="space-y-5">
+      {canRecord && (
+        <section className="card" aria-labelledby="record-heading">
+          <h2 id="record-heading">Record a shift</h2>
+          <p className="mt-1 text-sm text-muted">What was completed this shift, the weather seen, hours lost and any deeper deterioration found.</p>
+          <div className="mt-4">
+            <ProgressForm scenarioId={scenario.id} facts={facts} />
+          </div>
+        </section>
+      )}
+      <section className="card" aria-labelledby="log-heading">
+        <h2 id="log-heading">Field log</h2>
+        <p className="mt-1 mb-3 text-sm text-muted">{entries.length} shift{entries.length === 1 ? "" : "s"} recorded.</p>
+        <ProgressTable scenarioId={scenario.id} entries={entries} facts={facts} canRecord={canRecord} names={names} />
+      </section>
+      <section className="card space-y-4" aria-labelledby="drift-heading">
+        <h2 id="drift-heading">Re-forecast and drift</h2>
+        <p className="text-sm text-muted">
+          A re-forecast starts from what is built at the data date — done work keeps its recorded time, cures continue, crews already on site stay mobilized — and
+          simulates the rest. The discovered-condition rate seen so far updates the risk for the rest of the deck (a beta-binomial update: the survey counts as much
+          as 20 inspected packets).
+        </p>
+        {canRun && <ReforecastPanel scenarioId={scenario.id} defaultDate={lastDate || plan.startDate} minDate={plan.startDate} />}
+        {digest && (
+          <p className="text-sm" data-testid="reforecast-digest">
+            Latest re-forecast from {formatIsoDate(latestRe!.dataDate)}: {digest.entriesUsed} shifts used; {digest.discovery.found} of {digest.discovery.inspected} inspected
+            packets had discovered conditions, so the mean discovery probability moved from {(digest.discovery.planMean * 100).toFixed(1)} % to{" "}
+            {(digest.discovery.updatedMean * 100).toFixed(1)} %.
+          </p>
+        )}
+        {points.length > 0 ? <DriftChart points={points} /> : <p className="text-sm text-muted">No forecasts yet: run the plan on the Outlook tab, then re-forecast here.</p>}
+      </section>
+      {chartRun && (
+        <section className="card" aria-labelledby="td-heading">
+          <h2 id="td-heading">{chartRun.dataDate ? `Time–distance: recorded progress and the re-forecast from ${formatIsoDate(chartRun.dataDate)}` : "Time–distance: recorded progress over the plan"}</h2>
+          <div className="mt-3">
+            <TimeDistanceChart
+              summary={chartRun.results as unknown as RunSummary}
+              plan={plan}
+              stale={chartRun.version !== scenario.version}
+              actuals={actualsOf(plan, entries)}
+              dataDay={chartRun.dataDate ? parseIsoDate(chartRun.dataDate) + 1 : undefined}
+            />
+          </div>
+        </section>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,191 @@
+"use client";
+/** The recorded shifts: edit in place (the same form), delete, and each entry's history of who changed what. */
+import { useRouter } from "next/navigation";
+import { Fragment, useEffect, useState } from "react";
+import { api, ApiError } from "@/lib/api-client";
+import { formatDateTime, formatIsoDate, formatStation } from "@/lib/format";
+import { DISCOVERED_LABELS } from "@/lib/progress-schema";
+import { ProgressForm, type PlanFacts } from "./progress-form";
+
+export interface EntryView {
+  id: string;
+  workDate: string;
+  shift: string;
+  operationId: string;
+  fromStationFt: number;
+  toStationFt: number;
+  crew: string;
+  tempF: number | null;
+  rain: boolean;
+  lostHours: number;
+  lostReason: string;
+  discovered: { kind: string; fromStationFt: number; toStationFt: number; areaSqFt: number }[];
+  version: number;
+  enteredByName: string;
+}
+
+interface HistoryRow {
+  id: string;
+  changedAt: string;
+  changedByName: string;
+  before: Record<string, unknown> | null;
+  after: Record<string, unknown>;
+}
+
+const FIELD_LABELS: Record<string, string> = {
+  workDate: "work date", shift: "shift", operationId: "operation", fromStationFt: "from station", toStationFt: "to station", crew: "crew",
+  tempF: "temperature", rain: "rain", lostHours: "lost hours", lostReason: "reason", discovered: "discovered conditions",
+};
+
+function changes(h: HistoryRow): string {
+  if (!h.before) return "created the entry";
+  const diff = Object.keys(FIELD_LABELS).filter((k) => JSON.stringify(h.before![k]) !== JSON.stringify(h.after[k]));
+  if (diff.length === 0) return "saved without changes";
+  const show = (v: unknown) => (Array.isArray(v) ? `${v.length} item${v.length === 1 ? "" : "s"}` : v === null || v === "" ? "—" : String(v));
+  return diff.map((k) => `${FIELD_LABELS[k]} ${show(h.before![k])} → ${show(h.after[k])}`).join("; ");
+}
+
+function History({ entryId }: { entryId: string }) {
+  const [rows, setRows] = useState<HistoryRow[] | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  useEffect(() => {
+    let live = true;
+    api<{ history: HistoryRow[] }>(`/api/progress/${entryId}`).then(
+      (r) => live && setRows(r.history),
+      (e: Error) => live && setError(e.message),
+    );
+    return () => {
+      live = false;
+    };
+  }, [entryId]);
+  if (error) return <p className="text-sm text-bad">{error}</p>;
+  if (!rows) return <p className="text-sm text-muted">Loading history…</p>;
+  return (
+    <ol className="space-y-1 text-sm" data-testid="progress-history">
+      {rows.map((h) => (
+        <li key={h.id}>
+          <span className="text-muted">{formatDateTime(h.changedAt)}</span> — {h.changedByName} {changes(h)}
+        </li>
+      ))}
+    </ol>
+  );
+}
+
+export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: { scenarioId: string; entries: EntryView[]; facts: PlanFacts; canRecord: boolean; names: Record<string, string> }) {
+  const router = useRouter();
+  const [open, setOpen] = useState<{ id: string; mode: "edit" | "history" } | null>(null);
+  const [problem, setProblem] = useState<string | null>(null);
+  const shiftName = (id: string) => facts.shifts.find((s) => s.id === id)?.name ?? id;
+
+  async function remove(e: EntryView) {
+    setProblem(null);
+    if (!window.confirm(`Delete the ${names[e.operationId] ?? e.operationId} entry of ${formatIsoDate(e.workDate)}?`)) return;
+    try {
+      await api(`/api/progress/${e.id}`, { method: "DELETE" });
+      router.refresh();
+    } catch (err) {
+      setProblem(err instanceof ApiError && err.fields.length ? `${err.message} ${err.fields.map((f) => f.message).join(". ")}` : (err as Error).message);
+    }
+  }
+
+  if (entries.length === 0) {
+    return (
+      <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted" data-testid="progress-table">
+        No shifts recorded yet.
+      </p>
+    );
+  }
+  return (
+    <div>
+      {problem && (
+        <p role="alert" className="mb-2 text-sm text-bad">
+          {problem}
+        </p>
+      )}
+      <div className="overflow-x-auto">
+        <table className="w-full text-sm" data-testid="progress-table">
+          <caption className="sr-only">Recorded shifts, oldest first</caption>
+          <thead>
+            <tr className="border-b border-line text-left">
+              <th scope="col" className="py-2 pr-3">Date</th>
+              <th scope="col" className="py-2 pr-3">Shift</th>
+              <th scope="col" className="py-2 pr-3">Operation</th>
+              <th scope="col" className="py-2 pr-3">Stations</th>
+              <th scope="col" className="py-2 pr-3">Crew</th>
+              <th scope="col" className="py-2 pr-3">Weather</th>
+              <th scope="col" className="py-2 pr-3">Lost</th>
+              <th scope="col" className="py-2 pr-3">Discovered</th>
+              <th scope="col" className="py-2 pr-3">By</th>
+              <th scope="col" className="py-2">
+                <span className="sr-only">Actions</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {entries.map((e) => (
+              <Fragment key={e.id}>
+                <tr className="border-b border-line/60 align-top" data-testid="progress-row">
+                  <td className="py-2 pr-3 whitespace-nowrap">{formatIsoDate(e.workDate)}</td>
+                  <td className="py-2 pr-3">{shiftName(e.shift)}</td>
+                  <td className="py-2 pr-3">{names[e.operationId] ?? e.operationId}</td>
+                  <td className="py-2 pr-3 whitespace-nowrap">
+                    {formatStation(e.fromStationFt)} – {formatStation(e.toStationFt)}
+                  </td>
+                  <td className="py-2 pr-3">{e.crew || "—"}</td>
+                  <td className="py-2 pr-3">
+                    {e.tempF === null ? "—" : `${e.tempF} °F`}
+                    {e.rain ? ", rain" : ""}
+                  </td>
+                  <td className="py-2 pr-3">{e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}</td>
+                  <td className="py-2 pr-3">
+                    {e.discovered.length === 0
+                      ? "—"
+                      : e.discovered.map((d, i) => (
+                          <div key={i}>
+                            {DISCOVERED_LABELS[d.kind as keyof typeof DISCOVERED_LABELS] ?? d.kind}, {formatStation(d.fromStationFt)}–{formatStation(d.toStationFt)}, {d.areaSqFt} ft²
+                          </div>
+                        ))}
+                  </td>
+                  <td className="py-2 pr-3">{e.enteredByName}</td>
+                  <td className="py-2 whitespace-nowrap">
+                    {canRecord && (
+                      <button type="button" className="btn-secondary mr-1" onClick={() => setOpen(open?.id === e.id && open.mode === "edit" ? null : { id: e.id, mode: "edit" })}>
+                        Edit
+                      </button>
+                    )}
+                    <button type="button" className="btn-secondary mr-1" onClick={() => setOpen(open?.id === e.id && open.mode === "history" ? null : { id: e.id, mode: "history" })}>
+                      History
+                    </button>
+                    {canRecord && (
+                      <button type="button" className="btn-danger" onClick={() => remove(e)}>
+                        Delete
+                      </button>
+                    )}
+                  </td>
+                </tr>
+                {open?.id === e.id && (
+                  <tr>
+                    <td colSpan={10} className="bg-paper p-3">
+                      {open.mode === "history" ? (
+                        <History entryId={e.id} />
+                      ) : (
+                        <ProgressForm
+                          scenarioId={scenarioId}
+                          facts={facts}
+                          entryId={e.id}
+                          version={e.version}
+                          initial={{ ...e, discovered: e.discovered as never }}
+                          onDone={() => setOpen(null)}
+                        />
+                      )}
+                    </td>
+                  </tr>
+                )}
+              </Fragment>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

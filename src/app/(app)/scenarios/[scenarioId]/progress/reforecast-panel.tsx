@@ -1,0 +1,63 @@
+"use client";
+/**
+ * "Re-forecast from <data date>": the server re-runs the engine from the as-built state at the data date
+ * (at most 5,000 iterations) and stores it; the page then shows the new point on the drift chart.
+ */
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useMutation } from "@tanstack/react-query";
+import { api, ApiError } from "@/lib/api-client";
+import { formatIsoDate } from "@/lib/format";
+
+const ITERATIONS = [500, 1_000, 2_000, 5_000];
+
+export function ReforecastPanel({ scenarioId, defaultDate, minDate }: { scenarioId: string; defaultDate: string; minDate: string }) {
+  const router = useRouter();
+  const [dataDate, setDataDate] = useState(defaultDate);
+  const [iterations, setIterations] = useState(1_000);
+  const [seed, setSeed] = useState("pourline");
+  const run = useMutation({
+    mutationFn: () => api<{ headline: { finish: { p50: string; p80: string } } }>(`/api/scenarios/${scenarioId}/reforecast`, { method: "POST", body: { dataDate, iterations, seed } }),
+    onSuccess: () => router.refresh(),
+  });
+  const problem = run.error instanceof ApiError && run.error.fields.length ? run.error.fields.map((f) => f.message).join(". ") : run.error?.message;
+  return (
+    <div className="flex flex-wrap items-end gap-4">
+      <div>
+        <label htmlFor="reforecast-date" className="field-label">
+          Data date
+        </label>
+        <input id="reforecast-date" type="date" className="field-input" min={minDate} value={dataDate} onChange={(e) => setDataDate(e.target.value)} />
+      </div>
+      <div>
+        <label htmlFor="reforecast-iterations" className="field-label">
+          Iterations
+        </label>
+        <select id="reforecast-iterations" className="field-input w-32" value={iterations} onChange={(e) => setIterations(Number(e.target.value))}>
+          {ITERATIONS.map((n) => (
+            <option key={n} value={n}>
+              {n.toLocaleString("en-US")}
+            </option>
+          ))}
+        </select>
+      </div>
+      <div>
+        <label htmlFor="reforecast-seed" className="field-label">
+          Seed
+        </label>
+        <input id="reforecast-seed" className="field-input w-32" value={seed} maxLength={60} onChange={(e) => setSeed(e.target.value)} />
+      </div>
+      <button type="button" className="btn-primary" data-testid="reforecast-button" disabled={run.isPending || !dataDate || !seed.trim()} onClick={() => run.mutate()}>
+        {run.isPending ? "Re-forecasting…" : `Re-forecast from ${formatIsoDate(dataDate)}`}
+      </button>
+      <p className="w-full text-sm" aria-live="polite">
+        {run.isSuccess && <span className="text-muted" data-testid="reforecast-done">Re-forecast saved: P50 {formatIsoDate(run.data.headline.finish.p50)}, P80 {formatIsoDate(run.data.headline.finish.p80)}.</span>}
+        {run.isError && (
+          <span role="alert" className="text-bad">
+            The re-forecast failed: {problem}
+          </span>
+        )}
+      </p>
+    </div>
+  );
+}
