@@ -1,0 +1,101 @@
+/**
+ * The field-progress rules (`src/lib/progress-schema.ts`) on the Kestrel demo plan: stations inside the deck,
+ * not ahead of the predecessor (with its lag, through a cure), not in the future, discovered items inside the
+ * entry; every problem names its field path and the field in words. The demo week passes them all and its
+ * re-forecast schedules none of the recorded work again.
+ */
+import { describe, expect, it } from "vitest";
+import { demoProgressEntries, DEMO_PROGRESS_TODAY } from "../../db/demo-progress";
+import { buildAsBuilt } from "../../sim/asbuilt";
+import { compileScenario, simulate } from "../../sim/engine";
+import { drawSamples } from "../../sim/samples";
+import { parseScenario } from "../../sim/validate";
+import { checkDependents, checkProgressEntry, crewPredecessors, progressEntrySchema, todayIn, type RuleEntry } from "../../src/lib/progress-schema";
+import { loadScenario } from "./engine-fixtures";
+
+const parsed = parseScenario(loadScenario("kestrel-two-season.json"));
+if (!parsed.ok) throw new Error("demo scenario invalid");
+const plan = parsed.scenario;
+const entry = (over: Record<string, unknown>) =>
+  progressEntrySchema.parse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: 1200, toStationFt: 1600, ...over });
+const check = (over: Record<string, unknown>, others: RuleEntry[] = [], today = "2027-05-01") => checkProgressEntry({ scenario: plan, entry: entry(over), others, today });
+const setupDone: RuleEntry = { id: "a", workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: 1200, toStationFt: 2000 };
+
+describe("progress entry rules", () => {
+  it("accepts an entry inside the deck with nothing before it", () => {
+    expect(check({})).toEqual([]);
+  });
+
+  it("stations outside the deck name the field", () => {
+    const p = check({ fromStationFt: 1100, toStationFt: 9700 });
+    expect(p.map((x) => x.path)).toEqual(["fromStationFt", "toStationFt"]);
+    expect(p[0].message).toMatch(/^From station must be inside the deck \(STA 12\+00 to STA 96\+00\)/);
+  });
+
+  it("from must be before to (schema, with the path of the later field)", () => {
+    const r = progressEntrySchema.safeParse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: 1500, toStationFt: 1500 });
+    expect(r.success).toBe(false);
+    expect(r.error!.issues.map((i) => [i.path.join("."), i.message])).toEqual([["toStationFt", "To station must be after the from station"]]);
+  });
+
+  it("dates after today or before the plan's start are refused", () => {
+    expect(check({ workDate: "2027-05-02" })).toEqual([{ path: "workDate", message: "Work date must not be in the future (today is 2027-05-01)" }]);
+    expect(check({ workDate: "2027-04-04" })[0]).toEqual({ path: "workDate", message: "Work date must not be before the plan starts (2027-04-05)" });
+  });
+
+  it("a wait operation or an unknown one cannot be recorded", () => {
+    expect(check({ operationId: "cure" })[0].path).toBe("operationId");
+    expect(check({ operationId: "nothing" })[0].message).toBe('Operation "nothing" is not in this plan');
+  });
+
+  it("an operation cannot be ahead of its predecessor at the same stations, lag included", () => {
+    // Milling must stay 200 ft behind setup: setup to STA 20+00 allows milling to STA 18+00, not 18+50.
+    expect(check({ operationId: "milling", toStationFt: 1800 }, [setupDone])).toEqual([]);
+    const p = check({ operationId: "milling", toStationFt: 1850 }, [setupDone]);
+    expect(p).toHaveLength(1);
+    expect(p[0].path).toBe("toStationFt");
+    expect(p[0].message).toBe("Mechanical milling cannot be recorded ahead of Work-zone setup: Work-zone setup has no progress recorded by this shift at STA 20+00 (it must stay 200 ft ahead)");
+    // Predecessor progress from a later shift does not count.
+    expect(check({ operationId: "milling", workDate: "2027-04-05", toStationFt: 1300 }, [setupDone])[0].path).toBe("fromStationFt");
+  });
+
+  it("restriping looks through the cure to placement", () => {
+    expect(crewPredecessors(plan, "restriping")).toEqual([{ id: "placement", lagFt: 0 }]);
+    expect(check({ operationId: "restriping" })[0].message).toMatch(/ahead of LMC placement/);
+  });
+
+  it("discovered conditions must lie inside the entry's range", () => {
+    const p = check({ discovered: [{ kind: "full-depth", fromStationFt: 1500, toStationFt: 1700, areaSqFt: 20 }] });
+    expect(p).toEqual([{ path: "discovered[0].toStationFt", message: "Condition to station must be inside this shift's range (STA 12+00 to STA 16+00)" }]);
+  });
+
+  it("an edit that leaves a later operation ahead is reported", () => {
+    const milling: RuleEntry = { id: "m", workDate: "2027-04-06", shift: "night", operationId: "milling", fromStationFt: 1200, toStationFt: 1700 };
+    const before = [setupDone, milling];
+    const after = [{ ...setupDone, toStationFt: 1500 }, milling];
+    expect(checkDependents(plan, before, after).map((p) => p.path)).toEqual(["(entry)"]);
+    expect(checkDependents(plan, before, before)).toEqual([]);
+  });
+
+  it("today is the date in the scenario's time zone", () => {
+    const now = new Date("2026-12-02T03:30:00Z"); // 21:30 on 1 Dec in Chicago (UTC−6)
+    expect(todayIn("America/Chicago", now)).toBe("2026-12-01");
+    expect(todayIn("UTC", now)).toBe("2026-12-02");
+  });
+});
+
+describe("the demo week", () => {
+  it("passes every rule in order and its re-forecast never schedules the recorded work", () => {
+    const entries = demoProgressEntries(plan);
+    expect(entries.length).toBeGreaterThanOrEqual(8);
+    expect(entries.every((e) => e.workDate <= DEMO_PROGRESS_TODAY)).toBe(true);
+    const st = buildAsBuilt(plan, entries, DEMO_PROGRESS_TODAY);
+    const setup = st.ops.find((o) => o.id === "setup")!;
+    // Setup covered STA 12+00–29+50: packets 0–16 done, packet 17 (STA 29+00–30+00) half done.
+    expect(setup.remaining.slice(0, 18)).toEqual([...new Array(17).fill(0), 0.5]);
+    const c = compileScenario(plan, { asBuilt: st });
+    const r = simulate(c, drawSamples(c.scenario, "demo", 0), { trace: true });
+    expect(r.trace!.packets.filter((p) => p.op === "setup").map((p) => p.packet)[0]).toBe(17);
+    for (const p of r.trace!.packets) if (p.crew >= 0) expect(p.start).toBeGreaterThanOrEqual(st.dataTime);
+  });
+});
