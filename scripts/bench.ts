@@ -5,7 +5,10 @@
  * time ÷ floor time says how much the engine costs beyond generating its inputs. Targets (brief): ≥ 5,000
  * iterations/s on the main demo and floorRatio ≤ 4. Each measurement is the best of five rounds after a
  * warm-up, timed in this process's CPU time (process.cpuUsage) so that other processes sharing the machine
- * do not count against the engine; wall-clock rates are printed beside it.
+ * do not count against the engine; wall-clock rates are printed beside it. The demo scenarios carry a
+ * traffic section, so the engine time includes the per-iteration D/D/1 delay and costs; `delayP50VehHours`
+ * is reported beside each rate, and `engineOnlyIterationsPerSecond` is the same run with traffic and costs
+ * removed (what the queue model costs).
  */
 import { readFileSync } from "node:fs";
 import { compileScenario, parseScenario, runIterations } from "../sim/index";
@@ -41,6 +44,10 @@ const scenarios = FILES.map((file) => {
   const compiled = compileScenario(parsed.scenario);
   runIterations(compiled, SEED, 0, Math.min(500, iterations)); // warm-up
   const engine = best(5, () => runIterations(compiled, SEED, 0, iterations));
+  const bare = compileScenario({ ...parsed.scenario, traffic: undefined, costs: undefined });
+  runIterations(bare, SEED, 0, Math.min(500, iterations));
+  const engineOnly = best(3, () => runIterations(bare, SEED, 0, iterations));
+  const delays = Float64Array.from(engine.value.delayVehHours).sort();
   const days = engine.value.weatherDays;
   const floor = best(5, () => {
     let sink = 0;
@@ -58,6 +65,8 @@ const scenarios = FILES.map((file) => {
     wallIterationsPerSecond: Math.round((iterations / engine.wallMs) * 1000),
     floorIterationsPerSecond: Math.round((iterations / floor.ms) * 1000),
     floorRatio: Math.round((engine.ms / floor.ms) * 100) / 100,
+    engineOnlyIterationsPerSecond: Math.round((iterations / engineOnly.ms) * 1000),
+    delayP50VehHours: Math.round(delays[Math.max(0, Math.ceil(0.5 * iterations) - 1)]),
     weatherDaysMean: Math.round(days.reduce((a, b) => a + b, 0) / iterations),
   };
 });
@@ -67,6 +76,6 @@ const out = { iterationsPerSecond: main.iterationsPerSecond, floorRatio: main.fl
 if (json) console.log(JSON.stringify(out, null, 2));
 else {
   for (const s of scenarios)
-    console.log(`${s.file.padEnd(36)} ${String(s.iterationsPerSecond).padStart(7)} it/s (wall ${s.wallIterationsPerSecond})   floor ${String(s.floorIterationsPerSecond).padStart(7)} it/s   ratio ${s.floorRatio}   weather days ${s.weatherDaysMean}`);
+    console.log(`${s.file.padEnd(36)} ${String(s.iterationsPerSecond).padStart(7)} it/s (wall ${s.wallIterationsPerSecond}; no traffic ${s.engineOnlyIterationsPerSecond})   floor ${String(s.floorIterationsPerSecond).padStart(7)} it/s   ratio ${s.floorRatio}   weather days ${s.weatherDaysMean}   delay P50 ${s.delayP50VehHours} veh-h`);
   console.log(`main demo: ${main.iterationsPerSecond} it/s (target ≥ 5,000), floorRatio ${main.floorRatio} (target ≤ 4)`);
 }

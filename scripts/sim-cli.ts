@@ -1,26 +1,30 @@
 /**
- * Command line: `npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json]`.
+ * Command line: `npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff]`.
  * Prints one JSON object with --json (iterations, seed, finish P10–P90 as ISO dates, per-operation P50/P80,
- * weather-lost shifts, convergence, …), otherwise a readable summary. Exit codes: 0 done; 2 for a bad
+ * weather-lost shifts, convergence, …; with a traffic/costs section `delay: {vehicleHours: {p50, p80}}` and
+ * `cost: {roadUser: {p50, p80}, contract: {p50, p80}}`), otherwise a readable summary. `--tradeoff` adds the
+ * holiday trade-off (same seeds, stand down vs work through). Exit codes: 0 done; 2 for a bad
  * command line, an unreadable file, invalid JSON or an invalid scenario (each problem as `path: message`).
  */
 import { readFileSync } from "node:fs";
-import { compileScenario, parseScenario, runIterations, summarizeRun } from "../sim/index";
+import { compileScenario, holidayTradeoff, parseScenario, runIterations, summarizeRun } from "../sim/index";
 
 function fail(lines: string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
   process.exit(2);
 }
 
-const USAGE = "usage: npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json]";
+const USAGE = "usage: npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff]";
 const argv = process.argv.slice(2);
 let file: string | undefined;
 let iterations = 1000;
 let seed = "pourline";
 let json = false;
+let tradeoff = false;
 for (let i = 0; i < argv.length; i++) {
   const a = argv[i];
   if (a === "--json") json = true;
+  else if (a === "--tradeoff") tradeoff = true;
   else if (a === "--iterations" || a === "--seed") {
     const v = argv[++i];
     if (v === undefined) fail([`${a} needs a value`, USAGE]);
@@ -54,11 +58,26 @@ const compiled = compileScenario(parsed.scenario);
 const started = performance.now();
 const summary = summarizeRun(compiled, runIterations(compiled, seed, 0, iterations));
 const seconds = (performance.now() - started) / 1000;
+const trade = tradeoff ? holidayTradeoff(parsed.scenario, seed, iterations) : null;
+const money = (x: number | null) => (x === null ? "n/a" : `$${Math.round(x).toLocaleString("en-US")}`);
+const vh = (x: number | null) => (x === null ? "n/a" : `${Math.round(x).toLocaleString("en-US")} veh-h`);
 
 if (json) {
-  const { representative, closureHours, ...rest } = summary;
+  const { representative, closureHours, traffic, ...rest } = summary;
   const out = {
     ...rest,
+    ...(rest.delay ? { delay: { vehicleHours: { p50: rest.delay.vehicleHours.p50, p80: rest.delay.vehicleHours.p80 } } } : {}),
+    ...(rest.cost
+      ? {
+          cost: {
+            roadUser: rest.cost.roadUser && { p50: rest.cost.roadUser.p50, p80: rest.cost.roadUser.p80 },
+            contract: rest.cost.contract && { p50: rest.cost.contract.p50, p80: rest.cost.contract.p80 },
+            valueOfTimeYear: rest.cost.valueOfTimeYear,
+          },
+        }
+      : {}),
+    ...(traffic ? { maxQueue: traffic.maxQueue } : {}),
+    ...(trade ? { tradeoff: trade } : {}),
     operations: summary.operations.map((o) => ({ id: o.id, name: o.name, finish: o.finish })),
     closureHoursTotal: closureHours.totalByClosure,
     convergence: summary.convergenceDays,
@@ -80,6 +99,13 @@ if (json) {
     `Discovered-condition hours P50 ${s.discoveredHours.p50.toFixed(1)}, P80 ${s.discoveredHours.p80.toFixed(1)}`,
     `Closure hours (mean): ${Object.entries(s.closureHours.totalByClosure).map(([k, v]) => `${k} ${v}`).join(", ")}`,
     `Convergence: P80 of the two halves differ by ${s.convergenceDays === null ? "n/a" : `${s.convergenceDays.toFixed(2)} days`}`,
+    ...(s.delay ? [`Delay P50 ${vh(s.delay.vehicleHours.p50)}, P80 ${vh(s.delay.vehicleHours.p80)}${s.traffic?.maxQueue ? `; longest queue (representative) ${s.traffic.maxQueue.miles} mi on ${s.traffic.maxQueue.date}` : ""}`] : []),
+    ...(s.cost ? [`Cost (${s.cost.valueOfTimeYear} $): road-user P50 ${money(s.cost.roadUser?.p50 ?? null)}, P80 ${money(s.cost.roadUser?.p80 ?? null)}; contract P50 ${money(s.cost.contract?.p50 ?? null)}, P80 ${money(s.cost.contract?.p80 ?? null)}`] : []),
+    ...(trade
+      ? [
+          `Holiday trade-off: working through holidays finishes ${trade.daysGained.p50 ?? "n/a"} days sooner at P50 (${trade.daysGained.p80 ?? "n/a"} at P80) for ${vh(trade.extraDelayVehHours.p50)} more delay (${money(trade.extraRoadUserCost.p50)}) at P50`,
+        ]
+      : []),
   ];
   process.stdout.write(`${lines.join("\n")}\n`);
 }

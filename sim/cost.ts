@@ -28,7 +28,6 @@ export interface ImpactModel {
   votYear: number;
   /** Day index of the target date, or null. */
   targetDay: number | null;
-  pos: Int32Array;
 }
 
 export interface IterationImpact {
@@ -58,7 +57,6 @@ export function impactModel(c: CompiledScenario): ImpactModel | null {
           truckVot: vot.truckPerVehHour,
           votYear: vot.year,
           targetDay: s.targetDate ? parseIsoDate(s.targetDate) - c.calendar.startDay : null,
-          pos: new Int32Array(c.closures.length),
         }
       : null;
   cache.set(c, m);
@@ -106,7 +104,7 @@ export function iterationImpact(c: CompiledScenario, m: ImpactModel, r: SimResul
         d = newQueueDetail(m.traffic!.days);
         detail.perDirection[i] = d;
       }
-      const v = queueDelay(m.traffic!, dir, seg, m.pos, d);
+      const v = queueDelay(m.traffic!, dir, seg, d);
       delay += v;
       ruc += roadUserCost(v, dir.heavyShare, m.carVot, m.truckVot);
     });

@@ -11,11 +11,14 @@ export { parseScenario, type ParseResult } from "./validate";
 export { buildAsBuilt, DISCOVERY_PRIOR_PACKETS, type AsBuiltState, type ProgressRecord, type DiscoveredItem } from "./asbuilt";
 export { compileScenario, simulate, type CompileOptions, type CompiledScenario, type SimResult, type Trace, type TracePacket, type PauseRecord } from "./engine";
 export { runIterations, mergePartials, type PartialRun } from "./montecarlo";
-export { summarizeRun, type RunSummary, type DateQuantiles } from "./summary";
+export { summarizeRun, type RunSummary, type DateQuantiles, type NumberQuantiles, type TrafficDay, type TrafficDetail } from "./summary";
+export { holidayTradeoff, withHolidayPolicy, type HolidayTradeoff, type PolicyOutcome, type HolidayPolicy } from "./tradeoff";
+export { compileTraffic, queueDelay, queuePiece, krammesLopezCapacity, hcm6WorkZone, heavyVehicleFactor, queueMiles, DEMAND_KINDS, type TrafficModel } from "./traffic";
+export { impactModel, iterationImpact, roadUserCost, contractCost, DEFAULT_VALUE_OF_TIME } from "./cost";
 export { drawSamples, type IterationSamples } from "./samples";
 export { nearestRank, quantiles } from "./percentiles";
 export { HORIZON_DAYS } from "./calendar";
-export type { Scenario, ScenarioInput, FieldProblem } from "./schema";
+export type { Scenario, ScenarioInput, FieldProblem, Traffic, Costs } from "./schema";
 
 export function runScenario(scenario: Scenario, opts: { iterations: number; seed: string }): RunSummary {
   const compiled = compileScenario(scenario);

@@ -80,7 +80,7 @@ export function queuePiece(queue: number, arrivals: number, service: number, hou
     out.clearsAfter = -1;
   } else {
     const tc = queue / -net;
-    if (tc >= hours) {
+    if (tc > hours) {
       const q1 = queue + net * hours;
       out.queue = q1;
       out.delay = ((queue + q1) / 2) * hours;
@@ -99,6 +99,10 @@ export interface CompiledDirection {
   name: string;
   /** demand[kind · 24 + hour], veh/h. */
   demand: Float64Array;
+  /** Demand of every clock hour since 00:00 of startDate over the horizon, veh/h (hourDemand[⌊t⌋]). */
+  hourDemand: Float64Array;
+  /** Indices of the closures that narrow this direction. */
+  narrowing: Int32Array;
   heavyShare: number;
   /** Passenger cars per vehicle, 1 + P_T (E_T − 1). */
   pcPerVeh: number;
@@ -115,6 +119,8 @@ export interface TrafficModel {
   dayKind: Uint8Array;
   directions: CompiledDirection[];
   jamDensity: number;
+  /** Scratch of `queueDelay`: the merged capacity pieces of one direction. */
+  scratch: { starts: Float64Array; ends: Float64Array; caps: Float64Array; pos: Int32Array };
 }
 
 /**
@@ -183,18 +189,27 @@ export function compileTraffic(s: Scenario, startDay: number, days: number): Tra
     const demand = new Float64Array(DEMAND_KINDS.length * 24);
     DEMAND_KINDS.forEach((k, ki) => demand.set(dir.demand[k], ki * 24));
     const fHv = heavyVehicleFactor(dir.heavyVehicleShare, t.truckPce);
+    const hourDemand = new Float64Array(24 * days);
+    for (let d = 0; d < days; d++) hourDemand.set(demand.subarray(dayKind[d] * 24, dayKind[d] * 24 + 24), 24 * d);
+    const closureCapacity = closureCapacities(s, t, dir.lanes, fHv);
+    const narrowing: number[] = [];
+    closureCapacity.forEach((c, i) => {
+      if (c !== Infinity) narrowing.push(i);
+    });
     return {
       id: dir.id,
       name: dir.name,
       demand,
+      hourDemand,
+      narrowing: Int32Array.from(narrowing),
       heavyShare: dir.heavyVehicleShare,
       pcPerVeh: 1 + dir.heavyVehicleShare * (t.truckPce - 1),
       storageLanes: dir.lanes.length,
       openCapacity: t.openRoadPcPerHourPerLane * fHv * dir.lanes.length,
-      closureCapacity: closureCapacities(s, t, dir.lanes, fHv),
+      closureCapacity,
     };
   });
-  return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane };
+  return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane, scratch: { starts: new Float64Array(256), ends: new Float64Array(256), caps: new Float64Array(256), pos: new Int32Array(s.calendar.closures.length) } };
 }
 
 /** Closure time of one iteration: per closure, chronological disjoint segments (hours since startDate). */
@@ -220,69 +235,142 @@ export function newQueueDetail(days: number): QueueDetail {
 const piece: QueuePiece = { queue: 0, delay: 0, clearsAfter: -1 };
 
 /**
- * D/D/1 delay of one direction, veh-h, over the closure segments (several closures at once: the lowest
- * capacity holds). Time with no closure and no queue is skipped: no closure means no work-zone delay.
- * `pos` is scratch (one cursor per closure). A queue still standing at the horizon is left there.
+ * The closure time that narrows one direction as disjoint chronological pieces with their capacity (where
+ * closures overlap, the lowest capacity holds). Returns the number of pieces in `m.scratch`.
  */
-export function queueDelay(m: TrafficModel, dir: CompiledDirection, seg: ClosureSegments, pos: Int32Array, detail: QueueDetail | null): number {
-  const nC = seg.counts.length;
-  const horizon = 24 * m.days;
+function capacityPieces(m: TrafficModel, dir: CompiledDirection, seg: ClosureSegments): number {
+  const sc = m.scratch;
+  const rel = dir.narrowing;
   const cap = dir.closureCapacity;
-  const open = dir.openCapacity;
+  if (rel.length === 1) {
+    // One closure: its union is already disjoint and chronological.
+    const c = rel[0];
+    const n = seg.counts[c];
+    grow(sc, n);
+    sc.starts.set(seg.starts[c].subarray(0, n));
+    sc.ends.set(seg.ends[c].subarray(0, n));
+    sc.caps.fill(cap[c], 0, n);
+    return n;
+  }
+  const pos = sc.pos;
   pos.fill(0);
-  let q = 0;
-  let total = 0;
-  let episodeDay = -1;
-  let episodePeak = 0;
+  let n = 0;
   let t = -Infinity;
   for (;;) {
-    let mu = open;
+    let mu = Infinity;
     let next = Infinity;
-    for (let c = 0; c < nC; c++) {
-      if (cap[c] === Infinity) continue;
-      const st = seg.starts[c];
+    for (let j = 0; j < rel.length; j++) {
+      const c = rel[j];
       const en = seg.ends[c];
       let p = pos[c];
       while (p < seg.counts[c] && en[p] <= t) p++;
       pos[c] = p;
       if (p >= seg.counts[c]) continue;
-      if (st[p] <= t) {
+      const st = seg.starts[c][p];
+      if (st <= t) {
         if (cap[c] < mu) mu = cap[c];
         if (en[p] < next) next = en[p];
-      } else if (st[p] < next) next = st[p];
+      } else if (st < next) next = st;
     }
-    if (q <= 0 && mu === open) {
-      // Nothing narrows the road and no queue stands: jump to the next closure.
-      if (next === Infinity || next >= horizon) break;
-      t = next;
-      continue;
-    }
-    if (t >= horizon) break;
-    const hour = Math.floor(t);
-    let b = hour + 1;
-    if (next < b) b = next;
-    if (b > horizon) b = horizon;
-    const day = Math.floor(hour / 24);
-    const lam = dir.demand[m.dayKind[day] * 24 + (hour - day * 24)];
-    const q0 = q;
-    queuePiece(q0, lam, mu, b - t, piece);
-    q = piece.queue;
-    total += piece.delay;
-    if (detail) {
-      if (q0 <= 0 && q > 0) {
-        episodeDay = day;
-        episodePeak = 0;
-      }
-      detail.delay[day] += piece.delay;
-      const peakHere = q > q0 ? q : q0;
-      if (peakHere > detail.peakQueue[day]) detail.peakQueue[day] = peakHere;
-      if (peakHere > episodePeak) episodePeak = peakHere;
-      if (piece.clearsAfter >= 0 && episodeDay >= 0 && episodePeak >= detail.episodePeak[episodeDay]) {
-        detail.episodePeak[episodeDay] = episodePeak;
-        detail.clearsAt[episodeDay] = t + piece.clearsAfter;
+    if (next === Infinity) break;
+    if (mu < Infinity) {
+      if (n > 0 && sc.ends[n - 1] === t && sc.caps[n - 1] === mu) sc.ends[n - 1] = next;
+      else {
+        grow(sc, n + 1);
+        sc.starts[n] = t;
+        sc.ends[n] = next;
+        sc.caps[n] = mu;
+        n++;
       }
     }
-    t = b;
+    t = next;
   }
-  return total;
+  return n;
+}
+
+function grow(sc: TrafficModel["scratch"], n: number): void {
+  if (n <= sc.starts.length) return;
+  const size = Math.max(n, 2 * sc.starts.length);
+  for (const k of ["starts", "ends", "caps"] as const) {
+    const a = new Float64Array(size);
+    a.set(sc[k]);
+    sc[k] = a;
+  }
+}
+
+/** Queue state carried along one direction's walk. */
+interface Walk {
+  q: number;
+  total: number;
+  episodeDay: number;
+  episodePeak: number;
+}
+
+/**
+ * D/D/1 from `a` to `b` at service rate `mu`, one piece per clock hour (demand is constant inside an hour).
+ * With `untilEmpty` the walk stops as soon as the queue is gone (the road is open again). Returns the time
+ * reached.
+ */
+function walk(dir: CompiledDirection, w: Walk, a: number, b: number, mu: number, untilEmpty: boolean, detail: QueueDetail | null): number {
+  const hd = dir.hourDemand;
+  let t = a;
+  while (t < b) {
+    const hour = Math.floor(t);
+    const hb = hour + 1 < b ? hour + 1 : b;
+    const lam = hd[hour];
+    const q0 = w.q;
+    if (q0 <= 0) {
+      if (untilEmpty) return t;
+      if (lam <= mu) {
+        // The common case: no queue and demand within capacity — nothing to add.
+        t = hb;
+        continue;
+      }
+    }
+    queuePiece(q0, lam, mu, hb - t, piece);
+    w.q = piece.queue;
+    w.total += piece.delay;
+    if (detail) record(detail, w, Math.floor(hour / 24), q0, t);
+    if (untilEmpty && piece.clearsAfter >= 0) return t + piece.clearsAfter;
+    t = hb;
+  }
+  return t;
+}
+
+function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number): void {
+  const q = w.q;
+  if (q0 <= 0 && q > 0) {
+    w.episodeDay = day;
+    w.episodePeak = 0;
+  }
+  detail.delay[day] += piece.delay;
+  const peakHere = q > q0 ? q : q0;
+  if (peakHere > detail.peakQueue[day]) detail.peakQueue[day] = peakHere;
+  if (peakHere > w.episodePeak) w.episodePeak = peakHere;
+  if (piece.clearsAfter >= 0 && w.episodeDay >= 0 && w.episodePeak >= detail.episodePeak[w.episodeDay]) {
+    detail.episodePeak[w.episodeDay] = w.episodePeak;
+    detail.clearsAt[w.episodeDay] = t + piece.clearsAfter;
+  }
+}
+
+/**
+ * D/D/1 delay of one direction, veh-h, over the closure segments of one iteration. Outside closure time the
+ * road is open (`openCapacity`) and only a standing queue is walked: no closure means no work-zone delay.
+ * A queue still standing at the horizon is left there.
+ */
+export function queueDelay(m: TrafficModel, dir: CompiledDirection, seg: ClosureSegments, detail: QueueDetail | null): number {
+  if (dir.narrowing.length === 0) return 0;
+  const n = capacityPieces(m, dir, seg);
+  const { starts, ends, caps } = m.scratch;
+  const horizon = 24 * m.days;
+  const w: Walk = { q: 0, total: 0, episodeDay: -1, episodePeak: 0 };
+  let t = 0;
+  for (let i = 0; i < n; i++) {
+    const a = starts[i];
+    if (a >= horizon) break;
+    if (w.q > 0 && t < a) walk(dir, w, t, a, dir.openCapacity, true, detail);
+    t = walk(dir, w, a, ends[i] < horizon ? ends[i] : horizon, caps[i], false, detail);
+  }
+  if (w.q > 0) walk(dir, w, t, horizon, dir.openCapacity, true, detail);
+  return w.total;
 }
