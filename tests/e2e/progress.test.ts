@@ -1,0 +1,82 @@
+/**
+ * The field log in Debian's Chromium: an inspector logs several shifts (one refused with the field named),
+ * then the engineer re-forecasts from the last data date and sees the forecast drift chart, the plan first.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { APP_URL, call, demoEmail, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+
+let browser: Browser;
+let scenarioId: string;
+const day = (n: number) => isoDaysFromToday(-21 + n);
+
+beforeAll(async () => {
+  browser = await launch();
+  const scheduler = await signInAs("scheduler");
+  const projectId = (await kestrelProject(scheduler)).id;
+  scenarioId = (await createPastScenario(scheduler, projectId, "E2E field log")).id;
+  expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: scheduler, body: { seed: "plan", iterations: 50 } })).status).toBe(201);
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signedIn(role: DemoRole): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const page = await context.newPage();
+  await signInPage(page, demoEmail(role));
+  await page.waitForURL(`${APP_URL}/projects`);
+  return page;
+}
+
+async function recordShift(page: Page, s: { date: string; op: string; from: number; to: number; temp?: number }) {
+  const form = page.getByTestId("progress-form");
+  await form.locator("#new-workDate").fill(s.date);
+  await form.locator("#new-operationId").selectOption(s.op);
+  await form.locator("#new-fromStationFt").fill(String(s.from));
+  await form.locator("#new-toStationFt").fill(String(s.to));
+  if (s.temp !== undefined) await form.locator("#new-tempF").fill(String(s.temp));
+  await form.getByTestId("record-progress").click();
+}
+
+describe("field log", () => {
+  it("an inspector logs several shifts; the engineer re-forecasts and sees the drift", async () => {
+    const inspector = await signedIn("inspector");
+    await inspector.goto(`${APP_URL}/scenarios/${scenarioId}/progress`);
+    await inspector.getByTestId("progress-form").waitFor();
+    await expect.poll(() => inspector.getByRole("link", { name: "Field log" }).getAttribute("aria-current")).toBe("page");
+
+    await recordShift(inspector, { date: day(1), op: "milling", from: 0, to: 500, temp: 58 });
+    await inspector.getByText(`Recorded ${day(1)} (day).`).waitFor();
+    // Overlay ahead of milling: refused, and the message stands under the field it names.
+    await recordShift(inspector, { date: day(1), op: "overlay", from: 0, to: 700 });
+    const err = inspector.locator("#new-toStationFt-error");
+    await err.waitFor();
+    expect(await err.textContent()).toMatch(/Overlay placement cannot be recorded ahead of Mechanical milling/);
+    await recordShift(inspector, { date: day(2), op: "milling", from: 500, to: 1000, temp: 61 });
+    await inspector.getByText(`Recorded ${day(2)} (day).`).waitFor();
+    await recordShift(inspector, { date: day(2), op: "overlay", from: 0, to: 400, temp: 61 });
+    await inspector.getByText(`Recorded ${day(2)} (day).`).waitFor();
+    await expect.poll(() => inspector.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(3);
+    expect(await inspector.getByTestId("reforecast-button").count()).toBe(0); // inspectors record, engineers forecast
+    await screenshot(inspector, "field-log-inspector");
+    expect(await seriousA11yViolations(inspector)).toEqual([]);
+
+    const engineer = await signedIn("engineer");
+    await engineer.goto(`${APP_URL}/scenarios/${scenarioId}/progress`);
+    await engineer.getByTestId("progress-table").waitFor();
+    await engineer.locator("#reforecast-date").fill(day(2));
+    await engineer.locator("#reforecast-iterations").selectOption("500");
+    await engineer.getByTestId("reforecast-button").click();
+    await engineer.getByTestId("reforecast-done").waitFor({ timeout: 60_000 });
+    const drift = engineer.getByTestId("drift-chart");
+    await drift.waitFor({ timeout: 15_000 });
+    await expect.poll(() => drift.locator("tbody tr").count(), { timeout: 15_000 }).toBe(2);
+    expect(await drift.locator("tbody tr").first().locator("th").textContent()).toBe("Plan");
+    await engineer.getByTestId("reforecast-digest").waitFor();
+    await screenshot(engineer, "forecast-drift");
+    expect(await seriousA11yViolations(engineer)).toEqual([]);
+  });
+});

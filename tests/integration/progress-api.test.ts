@@ -1,0 +1,128 @@
+/**
+ * Field progress over HTTP: validation messages with field paths, versioned edits (409 on a stale version),
+ * history of who changed what, roles, deletes that would leave later work ahead, and re-forecasts stored with
+ * their data date that never schedule recorded work again.
+ */
+import { beforeAll, describe, expect, it } from "vitest";
+import { call, kestrelProject, signInAs } from "../helpers/app";
+import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+
+let scheduler: string;
+let inspector: string;
+let engineer: string;
+let viewer: string;
+let projectId: string;
+
+beforeAll(async () => {
+  [scheduler, inspector, engineer, viewer] = await Promise.all([signInAs("scheduler"), signInAs("inspector"), signInAs("engineer"), signInAs("viewer")]);
+  projectId = (await kestrelProject(scheduler)).id;
+});
+
+const day = (n: number) => isoDaysFromToday(-21 + n); // day n of the fixture plan
+const milling = (over: Record<string, unknown> = {}) => ({ workDate: day(1), shift: "day", operationId: "milling", fromStationFt: 0, toStationFt: 300, crew: "M1", tempF: 55, ...over });
+
+async function post(id: string, body: unknown, cookie = inspector) {
+  return call(`/api/scenarios/${id}/progress`, { method: "POST", cookie, body });
+}
+
+describe("progress entries", () => {
+  it("records a shift, lists it, and answers rule violations with field paths and named fields", async () => {
+    const s = await createPastScenario(scheduler, projectId, "Progress rules");
+    const ok = await post(s.id, milling());
+    expect(ok.status).toBe(201);
+    const list = await call(`/api/scenarios/${s.id}/progress`, { cookie: viewer });
+    expect(list.status).toBe(200);
+    expect(list.body.entries).toHaveLength(1);
+    expect(list.body.entries[0]).toMatchObject({ operationId: "milling", fromStationFt: 0, toStationFt: 300, enteredByName: "Rosa Tenney" });
+
+    const outside = await post(s.id, milling({ fromStationFt: 900, toStationFt: 1100 }));
+    expect(outside.status).toBe(400);
+    expect(outside.body.fields).toEqual([{ path: "toStationFt", message: "To station must be inside the deck (STA 0+00 to STA 10+00)" }]);
+
+    const future = await post(s.id, milling({ workDate: isoDaysFromToday(1) }));
+    expect(future.status).toBe(400);
+    expect(future.body.fields[0].path).toBe("workDate");
+    expect(future.body.fields[0].message).toMatch(/^Work date must not be in the future/);
+
+    const ahead = await post(s.id, { ...milling({ operationId: "overlay", fromStationFt: 200, toStationFt: 400 }) });
+    expect(ahead.status).toBe(400);
+    expect(ahead.body.fields).toEqual([{ path: "toStationFt", message: "Overlay placement cannot be recorded ahead of Mechanical milling: Mechanical milling has no progress recorded by this shift at STA 3+00" }]);
+
+    const schema = await post(s.id, milling({ lostHours: 25, discovered: [{ kind: "bottom-mat", fromStationFt: 100, toStationFt: 90, areaSqFt: 0 }] }));
+    expect(schema.status).toBe(400);
+    expect(schema.body.fields.map((f: { path: string }) => f.path).sort()).toEqual(["discovered[0].areaSqFt", "discovered[0].toStationFt", "lostHours"]);
+    expect(schema.body.fields.find((f: { path: string }) => f.path === "lostHours").message).toBe("Lost hours must be between 0 and 24");
+
+    const outsideItem = await post(s.id, milling({ fromStationFt: 300, toStationFt: 400, discovered: [{ kind: "full-depth", fromStationFt: 390, toStationFt: 420, areaSqFt: 12 }] }));
+    expect(outsideItem.status).toBe(400);
+    expect(outsideItem.body.fields).toEqual([{ path: "discovered[0].toStationFt", message: "Condition to station must be inside this shift's range (STA 3+00 to STA 4+00)" }]);
+    expect((await call(`/api/scenarios/${s.id}/progress`, { cookie: viewer })).body.entries).toHaveLength(1);
+  });
+
+  it("edits need the loaded version (409 otherwise) and keep a history of who changed what", async () => {
+    const s = await createPastScenario(scheduler, projectId, "Progress edits");
+    const created = await post(s.id, milling());
+    const id = created.body.id;
+    const put = await call(`/api/progress/${id}`, { method: "PUT", cookie: engineer, body: { ...milling({ toStationFt: 350, crew: "M2" }), version: 1 } });
+    expect(put.status).toBe(200);
+    expect(put.body.version).toBe(2);
+    const stale = await call(`/api/progress/${id}`, { method: "PUT", cookie: inspector, body: { ...milling({ toStationFt: 500 }), version: 1 } });
+    expect(stale.status).toBe(409);
+    expect(stale.body.current.toStationFt).toBe(350);
+    const got = await call(`/api/progress/${id}`, { cookie: viewer });
+    expect(got.body.entry).toMatchObject({ toStationFt: 350, crew: "M2", version: 2 });
+    expect(got.body.history).toHaveLength(2);
+    expect(got.body.history[0]).toMatchObject({ changedByName: "Dana Whitcomb", before: { toStationFt: 300, crew: "M1" }, after: { toStationFt: 350, crew: "M2" } });
+    expect(got.body.history[1]).toMatchObject({ changedByName: "Rosa Tenney", before: null, after: { toStationFt: 300 } });
+  });
+
+  it("roles: inspector, engineer and admin write; scheduler and viewer may only read", async () => {
+    const s = await createPastScenario(scheduler, projectId, "Progress roles");
+    expect((await post(s.id, milling(), viewer)).status).toBe(403);
+    expect((await post(s.id, milling(), scheduler)).status).toBe(403);
+    const e = await post(s.id, milling(), engineer);
+    expect(e.status).toBe(201);
+    expect((await call(`/api/progress/${e.body.id}`, { method: "DELETE", cookie: viewer })).status).toBe(403);
+    expect((await call(`/api/progress/${e.body.id}`, { cookie: viewer })).status).toBe(200);
+    expect((await call(`/api/progress/${e.body.id}`, { cookie: null })).status).toBe(401);
+    expect((await call(`/api/progress/00000000-0000-4000-8000-000000000000`, { cookie: viewer })).status).toBe(404);
+    expect((await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: inspector, body: { dataDate: day(1), seed: "x", iterations: 10 } })).status).toBe(403);
+  });
+
+  it("a delete that would leave later work ahead is refused; in order it succeeds", async () => {
+    const s = await createPastScenario(scheduler, projectId, "Progress deletes");
+    const m = await post(s.id, milling());
+    const o = await post(s.id, milling({ operationId: "overlay", fromStationFt: 0, toStationFt: 200 }));
+    expect(o.status).toBe(201);
+    const refused = await call(`/api/progress/${m.body.id}`, { method: "DELETE", cookie: inspector });
+    expect(refused.status).toBe(400);
+    expect(refused.body.fields[0].message).toMatch(/Overlay placement entry .* ahead of its predecessor/);
+    expect((await call(`/api/progress/${o.body.id}`, { method: "DELETE", cookie: inspector })).status).toBe(200);
+    expect((await call(`/api/progress/${m.body.id}`, { method: "DELETE", cookie: inspector })).status).toBe(200);
+  });
+});
+
+describe("re-forecast", () => {
+  it("stores a run with its data date that schedules none of the recorded packets, and lists it for the drift chart", async () => {
+    const s = await createPastScenario(scheduler, projectId, "Re-forecast");
+    expect((await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "p", iterations: 20 } })).status).toBe(201);
+    expect((await post(s.id, milling({ fromStationFt: 0, toStationFt: 500 }))).status).toBe(201);
+    expect((await post(s.id, milling({ workDate: day(2), fromStationFt: 500, toStationFt: 1000 }))).status).toBe(201);
+    expect((await post(s.id, milling({ workDate: day(2), operationId: "overlay", fromStationFt: 0, toStationFt: 250 }))).status).toBe(201);
+    const bad = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: day(-3), seed: "r", iterations: 20 } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields[0].path).toBe("dataDate");
+    const re = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: day(2), seed: "r", iterations: 20 } });
+    expect(re.status).toBe(201);
+    expect(re.body.reforecast.operations[0]).toMatchObject({ id: "milling", donePackets: 10 });
+    expect(re.body.reforecast.operations[1]).toMatchObject({ id: "overlay", donePackets: 2, partPackets: 1 });
+    const run = await call(`/api/runs/${re.body.id}`, { cookie: viewer });
+    const packets = run.body.run.results.representative.trace.packets as { op: string; packet: number }[];
+    expect(packets.filter((p) => p.op === "milling")).toEqual([]);
+    expect(packets.filter((p) => p.op === "overlay").map((p) => p.packet)).toEqual([2, 3, 4, 5, 6, 7, 8, 9]);
+    const drift = await call(`/api/scenarios/${s.id}/reforecast`, { cookie: viewer });
+    expect(drift.status).toBe(200);
+    expect(drift.body.plan.summary.finish.p50).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect(drift.body.runs.map((r: { dataDate: string }) => r.dataDate)).toEqual([day(2)]);
+  });
+});
