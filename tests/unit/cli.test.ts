@@ -24,6 +24,24 @@ describe("sim CLI", { timeout: 60_000 }, () => {
     expect(out.convergence).toBe(0);
   });
 
+  it("adds delay and cost percentiles with a traffic section, and the holiday trade-off with --tradeoff", () => {
+    const r = cli("scenarios/kestrel-two-season.json", "--iterations", "6", "--seed", "cli", "--json", "--tradeoff");
+    expect(r.status, r.stderr).toBe(0);
+    const out = JSON.parse(r.stdout);
+    for (const q of [out.delay.vehicleHours, out.cost.roadUser, out.cost.contract]) {
+      expect(typeof q.p50).toBe("number");
+      expect(q.p80).toBeGreaterThanOrEqual(q.p50);
+    }
+    expect(out.delay.vehicleHours.p50).toBeGreaterThan(0);
+    expect(out.cost.valueOfTimeYear).toBe(2015);
+    expect(out.tradeoff.iterations).toBe(6);
+    expect(out.tradeoff.standDown.policy).toBe("standDown");
+    expect(typeof out.tradeoff.daysGained.p50).toBe("number");
+    // The small deck has no traffic or costs section: no such keys.
+    const plain = JSON.parse(cli("scenarios/small-deterministic.json", "--iterations", "2", "--json").stdout);
+    expect("delay" in plain || "cost" in plain).toBe(false);
+  });
+
   it("prints a readable summary without --json", () => {
     const r = cli("scenarios/small-deterministic.json", "--iterations", "2");
     expect(r.status, r.stderr).toBe(0);
