@@ -1,7 +1,8 @@
 "use client";
 /** Per-operation finish percentiles, sortable by any column (keyboard: the header buttons; state in aria-sort). */
 import { useMemo, useState } from "react";
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { SortableHead, TableRows } from "@/components/sortable-table";
 import type { RunSummary } from "@sim/summary";
 import { quantileText } from "./summary-text";
 
@@ -37,34 +38,8 @@ export function OperationsTable({ operations }: { operations: RunSummary["operat
     <div className="overflow-x-auto">
       <table className="w-full border-collapse" data-testid="operations-table">
         <caption className="sr-only">Finish percentiles per operation; the column headers sort the table.</caption>
-        <thead>
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => {
-                const sorted = h.column.getIsSorted();
-                return (
-                  <th key={h.id} scope="col" className="table-head" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
-                    <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden="true">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
-                    </button>
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="hover:bg-paper">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="table-cell">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
+        <SortableHead table={table} />
+        <TableRows table={table} />
       </table>
     </div>
   );

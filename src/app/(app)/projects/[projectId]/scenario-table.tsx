@@ -2,7 +2,8 @@
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { SortableHead, TableRows } from "@/components/sortable-table";
 import { api } from "@/lib/api-client";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
@@ -131,34 +132,8 @@ export function ScenarioTable({ projectId, canEdit }: { projectId: string; canEd
         )}
       </div>
       <table className="w-full min-w-[720px] border-collapse" data-testid="scenario-table">
-        <thead>
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => {
-                const sorted = h.column.getIsSorted();
-                return (
-                  <th key={h.id} className="table-head" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
-                    <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden="true">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
-                    </button>
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="hover:bg-paper">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="table-cell align-top">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
+        <SortableHead table={table} />
+        <TableRows table={table} cellClassName="table-cell align-top" />
       </table>
     </section>
   );
