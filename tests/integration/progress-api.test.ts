@@ -50,7 +50,7 @@ describe("progress entries", () => {
 
     const schema = await post(s.id, milling({ lostHours: 25, discovered: [{ kind: "bottom-mat", fromStationFt: 100, toStationFt: 90, areaSqFt: 0 }] }));
     expect(schema.status).toBe(400);
-    expect(schema.body.fields.map((f: { path: string }) => f.path).sort()).toEqual(["discovered[0].areaSqFt", "discovered[0].toStationFt", "lostHours"]);
+    expect(schema.body.fields.map((f: { path: string }) => f.path).sort()).toEqual(["discovered[0].areaSqFt", "discovered[0].toStationFt", "lostHours", "lostReason"]);
     expect(schema.body.fields.find((f: { path: string }) => f.path === "lostHours").message).toBe("Lost hours must be between 0 and 24");
 
     const outsideItem = await post(s.id, milling({ fromStationFt: 300, toStationFt: 400, discovered: [{ kind: "full-depth", fromStationFt: 390, toStationFt: 420, areaSqFt: 12 }] }));
