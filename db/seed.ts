@@ -8,7 +8,7 @@ import { fileURLToPath } from "node:url";
 import { createHash, randomUUID } from "node:crypto";
 import { sql } from "drizzle-orm";
 import { createPool, databaseUrl } from "./client";
-import { projectMembers, projects, scenarioRevisions, scenarios, simulationRuns, users, type Role } from "./schema";
+import { closureSubscribers, projectMembers, projects, scenarioRevisions, scenarios, simulationRuns, users, type Role } from "./schema";
 import { hashPassword } from "../src/lib/server/password";
 import { parseScenario } from "../sim/validate";
 import { compileScenario, runIterations, summarizeRun } from "../sim/index";
@@ -86,6 +86,11 @@ export async function seed(url: string): Promise<"seeded" | "skipped"> {
       await tx.insert(projectMembers).values(demoUsers.map((u, i) => ({ projectId: kestrel.id, userId: ids[i], role: u.role })));
       await tx.insert(projectMembers).values({ projectId: tern.id, userId: ids[demoUsers.findIndex((u) => u.role === "admin")], role: "admin" });
 
+      const engineerId = ids[demoUsers.findIndex((u) => u.role === "engineer")];
+      await tx.insert(closureSubscribers).values([
+        { projectId: kestrel.id, email: "info@marrin-county.example", label: "Marrin County public information office", addedById: engineerId },
+        { projectId: kestrel.id, email: "traffic-ops@marrin-transit.example", label: "Marrin Transit operations (bus detours)", addedById: engineerId },
+      ]);
       const ownerId = ids[demoUsers.findIndex((u) => u.role === "scheduler")];
       for (let k = 0; k < definitions.length; k++) {
         const { raw, scenario } = definitions[k];
