@@ -34,6 +34,9 @@ export interface CompareRun {
   target: { date: string; probability: number } | null;
   weatherLostShifts: { p50: number; p80: number };
   closureHoursTotal: number;
+  /** From RunSummary.delay / .cost; absent for runs of plans without a traffic or costs section. */
+  delay?: { vehicleHours: { p50: number | null; p80: number | null } } | null;
+  cost?: { roadUser: { p50: number | null; p80: number | null } | null; contract: { p50: number | null; p80: number | null } | null; valueOfTimeYear?: number } | null;
 }
 
 export interface CompareScenario {
@@ -78,6 +81,33 @@ const dateMetric = (key: "p50" | "p80" | "p90", label: string): CompareMetric =>
   },
 });
 
+type Pick2 = { p50: number | null; p80: number | null } | null | undefined;
+
+/** A delay or cost row: "—" where a run has no such figure; a difference only when both have one. */
+const amountMetric = (id: string, label: string, get: (r: CompareRun) => Pick2, key: "p50" | "p80", unit: "veh-h" | "$"): CompareMetric => {
+  const value = (r: CompareRun) => {
+    const v = get(r)?.[key];
+    return typeof v === "number" && Number.isFinite(v) ? v : null;
+  };
+  const fmt = (v: number) => (unit === "$" ? `$${Math.round(v).toLocaleString("en-US")}` : `${Math.round(v).toLocaleString("en-US")} veh-h`);
+  return {
+    id,
+    label,
+    text: (r) => {
+      const v = value(r);
+      return v === null ? "—" : fmt(v);
+    },
+    diff: (a, b) => {
+      const x = value(a);
+      const y = value(b);
+      if (x === null || y === null) return null;
+      if (unit === "veh-h") return signed(y - x, "veh-h");
+      const d = Math.round(y - x);
+      return `${d > 0 ? "+" : d < 0 ? MINUS : "±"}$${Math.abs(d).toLocaleString("en-US")}`;
+    },
+  };
+};
+
 export const COMPARE_METRICS: CompareMetric[] = [
   dateMetric("p50", "P50 finish"),
   dateMetric("p80", "P80 finish"),
@@ -101,6 +131,12 @@ export const COMPARE_METRICS: CompareMetric[] = [
     text: (r) => `${r.weatherLostShifts.p50.toLocaleString("en-US")}`,
     diff: (a, b) => signed(b.weatherLostShifts.p50 - a.weatherLostShifts.p50, "shifts"),
   },
+  amountMetric("delayP50", "Delay to drivers (P50)", (r) => r.delay?.vehicleHours, "p50", "veh-h"),
+  amountMetric("delayP80", "Delay to drivers (P80)", (r) => r.delay?.vehicleHours, "p80", "veh-h"),
+  amountMetric("roadUserP50", "Road-user cost (P50)", (r) => r.cost?.roadUser, "p50", "$"),
+  amountMetric("roadUserP80", "Road-user cost (P80)", (r) => r.cost?.roadUser, "p80", "$"),
+  amountMetric("contractP50", "Contract cost (P50)", (r) => r.cost?.contract, "p50", "$"),
+  amountMetric("contractP80", "Contract cost (P80)", (r) => r.cost?.contract, "p80", "$"),
 ];
 
 export interface CompareCell {

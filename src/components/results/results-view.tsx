@@ -8,11 +8,13 @@ import { useMemo } from "react";
 import { parseScenario } from "@sim/validate";
 import type { RunSummary } from "@sim/summary";
 import { ConfidencePanel } from "./confidence-panel";
+import { DelayPanel } from "./delay-panel";
 import { FinishHistogram } from "./finish-histogram";
 import { OperationsTable } from "./operations-table";
 import { StatCards } from "./stat-cards";
 import { plainSummary, quantileText } from "./summary-text";
 import { TimeDistanceChart } from "./time-distance-chart";
+import { TradeoffPanel } from "./tradeoff-panel";
 
 export interface ResultsRun {
   id: string;
@@ -102,6 +104,20 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
           )}
         </div>
       </Section>
+
+      <Section
+        title="Delay and cost"
+        id={`${idp}-delay`}
+        description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, closure hours and the longest queue of each day."
+      >
+        <DelayPanel summary={summary} />
+      </Section>
+
+      {plan && (
+        <Section title="Holiday trade-off" id={`${idp}-tradeoff`} description="Days gained by working through federal holidays against the extra delay to drivers, on the same seeds.">
+          <TradeoffPanel definition={definition} seed={run.seed} iterations={run.iterations} />
+        </Section>
+      )}
 
       <Section title="Finish by operation" id={`${idp}-ops`}>
         <OperationsTable operations={summary.operations} />
