@@ -13,6 +13,7 @@ import { hashPassword } from "../src/lib/server/password";
 import { parseScenario } from "../sim/validate";
 import { compileScenario, runIterations, summarizeRun } from "../sim/index";
 import { headlineOf, inputsHash } from "../src/lib/run-record";
+import { insertDemoProgress } from "./demo-progress";
 
 export const DEMO_SCENARIO_FILES = [
   "kestrel-two-season.json",
@@ -107,6 +108,8 @@ export async function seed(url: string): Promise<"seeded" | "skipped"> {
           })
           .returning({ id: scenarios.id, version: scenarios.version });
         await tx.insert(scenarioRevisions).values({ scenarioId: row.id, version: row.version, definition: raw, savedById: ownerId, changeNote: "Demo scenario" });
+        // The main demo carries an illustrative first week of field progress (see db/demo-progress.ts).
+        if (k === 0) await insertDemoProgress(tx, { projectId: kestrel.id, scenarioId: row.id, userId: ids[demoUsers.findIndex((u) => u.role === "inspector")], scenario });
         const { summary, durationMs } = runs[k];
         await tx.insert(simulationRuns).values({
           scenarioId: row.id,

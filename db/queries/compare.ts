@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { scenarios, simulationRuns } from "../schema";
 
@@ -40,7 +40,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
         'totalByClosure', ${r} -> 'closureHours' -> 'totalByClosure')`.as("slice"),
     })
     .from(simulationRuns)
-    .where(inArray(simulationRuns.scenarioId, ids))
+    .where(and(inArray(simulationRuns.scenarioId, ids), isNull(simulationRuns.dataDate)))
     .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
     .as("latest_run");
   return getDb()

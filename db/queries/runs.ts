@@ -1,5 +1,5 @@
 import "server-only";
-import { desc, eq } from "drizzle-orm";
+import { and, desc, eq, isNull } from "drizzle-orm";
 import { getDb } from "../client";
 import { simulationRuns, users } from "../schema";
 
@@ -21,6 +21,9 @@ export async function saveRun(input: {
   return row;
 }
 
+/** Runs of the plan itself; re-forecasts (with a data date) are listed with the field log instead. */
+const planRunsOf = (scenarioId: string) => and(eq(simulationRuns.scenarioId, scenarioId), isNull(simulationRuns.dataDate));
+
 const listColumns = {
   id: simulationRuns.id,
   scenarioId: simulationRuns.scenarioId,
@@ -39,7 +42,7 @@ export async function listRuns({ scenarioId, limit = 20 }: { scenarioId: string;
     .select(listColumns)
     .from(simulationRuns)
     .leftJoin(users, eq(users.id, simulationRuns.createdById))
-    .where(eq(simulationRuns.scenarioId, scenarioId))
+    .where(planRunsOf(scenarioId))
     .orderBy(desc(simulationRuns.createdAt))
     .limit(limit);
 }
@@ -58,7 +61,7 @@ export async function getLatestRun({ scenarioId }: { scenarioId: string }) {
     .select({ ...listColumns, results: simulationRuns.results })
     .from(simulationRuns)
     .leftJoin(users, eq(users.id, simulationRuns.createdById))
-    .where(eq(simulationRuns.scenarioId, scenarioId))
+    .where(planRunsOf(scenarioId))
     .orderBy(desc(simulationRuns.createdAt))
     .limit(1);
   return row ?? null;

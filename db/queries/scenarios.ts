@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, sql } from "drizzle-orm";
+import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { scenarioRevisions, scenarios, simulationRuns, users } from "../schema";
@@ -32,6 +32,7 @@ export async function listProjectScenarios({ projectId }: { projectId: string })
       runAt: simulationRuns.createdAt,
     })
     .from(simulationRuns)
+    .where(isNull(simulationRuns.dataDate))
     .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
     .as("latest_run");
   return getDb()
