@@ -1,7 +1,7 @@
 "use client";
 /**
  * The plan editor: one react-hook-form form over the whole scenario definition (validated by the engine's zod
- * schema), four sections switched client-side so edits survive, an explicit save that runs `parseScenario`
+ * schema), five sections switched client-side so edits survive, an explicit save that runs `parseScenario`
  * first, server field problems shown the same way, and a conflict screen on 409. Nothing saves on its own.
  */
 import { useEffect, useState } from "react";
@@ -21,6 +21,7 @@ import { sectionOf, toFormPath, toFormValues, type SectionId } from "./plan-logi
 import { SaveBar } from "./save-bar";
 import { SequenceSection } from "./sequence-section";
 import type { ScenarioRecord, ScenarioResponse } from "./types";
+import { TrafficSection } from "./traffic-section";
 import { WeatherSection } from "./weather-section";
 import { useLeaveGuard } from "./use-leave-guard";
 
@@ -29,6 +30,7 @@ const SECTIONS: { id: SectionId; label: string; hint: string }[] = [
   { id: "crews", label: "Crews and rates", hint: "Rates, crews, gates" },
   { id: "calendar", label: "Calendar and closures", hint: "Shifts, closures, seasons" },
   { id: "weather", label: "Weather", hint: "Climate profile" },
+  { id: "traffic", label: "Traffic and costs", hint: "Demand, capacity, costs" },
 ];
 
 function initialValues(s: ScenarioRecord): ScenarioInput {
@@ -192,6 +194,7 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
               {section === "crews" && <CrewsSection />}
               {section === "calendar" && <CalendarSection readOnly={readOnly} />}
               {section === "weather" && <WeatherSection />}
+              {section === "traffic" && <TrafficSection readOnly={readOnly} />}
             </fieldset>
           </form>
         </div>

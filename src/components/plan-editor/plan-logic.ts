@@ -139,13 +139,14 @@ export function toFormPath(problemPath: string): string {
   return problemPath.replace(/^definition\.?/, "").replace(/\[(\d+)\]/g, ".$1").replace(/^\./, "");
 }
 
-export type SectionId = "sequence" | "crews" | "calendar" | "weather";
+export type SectionId = "sequence" | "crews" | "calendar" | "weather" | "traffic";
 
 const SEQUENCE_OP_FIELDS = new Set(["id", "name", "kind"]);
 
 export function sectionOf(problemPath: string): SectionId {
   const p = toFormPath(problemPath).split(".");
   if (p[0] === "weather") return "weather";
+  if (p[0] === "traffic" || p[0] === "costs") return "traffic";
   if (p[0] === "calendar" || p[0] === "startDate" || p[0] === "targetDate" || p[0] === "deck" || p[0] === "timeZone") return "calendar";
   if (p[0] === "operations") {
     if (p.length <= 1) return "sequence";
