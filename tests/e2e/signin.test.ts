@@ -14,13 +14,14 @@ afterAll(async () => {
 
 describe("sign-in", () => {
   it("a wrong password shows the error and stays on the sign-in page", async () => {
-    const page = await browser.newPage();
+    const context = await browser.newContext();
+    const page = await context.newPage();
     await signInPage(page, demoEmail("scheduler"), "not-the-password");
     await page.getByRole("alert").filter({ hasText: "do not match an account" }).waitFor();
     expect(new URL(page.url()).pathname).toBe("/signin");
     await screenshot(page, "signin-error");
     expect(await seriousA11yViolations(page)).toEqual([]);
-    await page.close();
+    await context.close();
   });
 
   it("the demo scheduler signs in, sees the project and opens its scenario list", async () => {

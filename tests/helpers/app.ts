@@ -58,3 +58,11 @@ export async function kestrelProject(cookie: string): Promise<{ id: string }> {
   if (!p) throw new Error("the seeded Kestrel project is missing");
   return p;
 }
+
+/** The definition of a seeded demo scenario (other tests add scenarios of their own to the same project). */
+export async function demoDefinition(cookie: string, projectId: string): Promise<Record<string, any>> {
+  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
+  const demo = list.body.scenarios.find((s: { name: string }) => s.name.startsWith("Kestrel Bay Causeway"));
+  if (!demo) throw new Error("no seeded demo scenario on the project");
+  return (await call(`/api/scenarios/${demo.id}`, { cookie })).body.scenario.definition;
+}

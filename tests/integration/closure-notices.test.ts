@@ -4,7 +4,7 @@
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import ICAL from "ical.js";
-import { call, kestrelProject, signInAs } from "../helpers/app";
+import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { findMail } from "../../src/lib/server/mailbox";
 
 let engineer: string;
@@ -15,8 +15,7 @@ const subscriber = `pio-${Date.now()}@marrin-county.example`;
 beforeAll(async () => {
   engineer = await signInAs("engineer");
   projectId = (await kestrelProject(engineer)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: engineer });
-  const base = (await call(`/api/scenarios/${list.body.scenarios[0].id}`, { cookie: engineer })).body.scenario.definition;
+  const base = await demoDefinition(engineer, projectId);
   const created = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie: engineer, body: { name: "Closure notice plan", definition: { ...base, name: "Closure notice plan" } } });
   scenarioId = created.body.id;
 });

@@ -1,6 +1,6 @@
 /** Runs: stored with the scenario version they came from, checked against the engine, stale after an edit. */
 import { beforeAll, describe, expect, it } from "vitest";
-import { call, kestrelProject, signInAs } from "../helpers/app";
+import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { parseScenario, runScenario } from "../../sim/index";
 
 let scheduler: string;
@@ -10,8 +10,7 @@ let base: Record<string, unknown>;
 beforeAll(async () => {
   scheduler = await signInAs("scheduler");
   projectId = (await kestrelProject(scheduler)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: scheduler });
-  base = (await call(`/api/scenarios/${list.body.scenarios[0].id}`, { cookie: scheduler })).body.scenario.definition;
+  base = await demoDefinition(scheduler, projectId);
 });
 
 async function fresh(name: string) {

@@ -1,6 +1,6 @@
 /** Scenario writes through the real API: validation, optimistic concurrency, and nothing half-saved. */
 import { beforeAll, describe, expect, it } from "vitest";
-import { call, kestrelProject, signInAs } from "../helpers/app";
+import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 
 let projectId: string;
 let base: Record<string, unknown>;
@@ -11,8 +11,7 @@ beforeAll(async () => {
   scheduler = await signInAs("scheduler");
   engineer = await signInAs("engineer");
   projectId = (await kestrelProject(scheduler)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: scheduler });
-  base = (await call(`/api/scenarios/${list.body.scenarios[0].id}`, { cookie: scheduler })).body.scenario.definition;
+  base = await demoDefinition(scheduler, projectId);
 });
 
 async function create(name: string) {

@@ -1,6 +1,6 @@
 /** CSV uploads over HTTP: checked as a whole, stored only when every row is good, refused clearly otherwise. */
 import { beforeAll, describe, expect, it } from "vitest";
-import { APP_URL, call, kestrelProject, signInAs } from "../helpers/app";
+import { APP_URL, call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 
 let cookie: string;
 let scenarioId: string;
@@ -8,8 +8,7 @@ let scenarioId: string;
 beforeAll(async () => {
   cookie = await signInAs("engineer");
   const projectId = (await kestrelProject(cookie)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
-  const base = (await call(`/api/scenarios/${list.body.scenarios[0].id}`, { cookie })).body.scenario.definition;
+  const base = await demoDefinition(cookie, projectId);
   const created = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie, body: { name: "Upload target", definition: { ...base, name: "Upload target" } } });
   scenarioId = created.body.id;
 });
