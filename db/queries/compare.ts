@@ -13,6 +13,8 @@ export interface CompareSlice {
   target: { date: string; probability: number } | null;
   weatherLostShifts: { p50: number; p80: number };
   totalByClosure: Record<string, number> | null;
+  delay: { vehicleHours: { p50: number | null; p80: number | null } } | null;
+  cost: { roadUser: { p50: number | null; p80: number | null } | null; contract: { p50: number | null; p80: number | null } | null; valueOfTimeYear?: number } | null;
 }
 
 /**
@@ -37,7 +39,9 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
         'cdf', ${r} -> 'cdf',
         'target', ${r} -> 'target',
         'weatherLostShifts', ${r} -> 'weatherLostShifts',
-        'totalByClosure', ${r} -> 'closureHours' -> 'totalByClosure')`.as("slice"),
+        'totalByClosure', ${r} -> 'closureHours' -> 'totalByClosure',
+        'delay', ${r} -> 'delay',
+        'cost', ${r} -> 'cost')`.as("slice"),
     })
     .from(simulationRuns)
     .where(and(inArray(simulationRuns.scenarioId, ids), isNull(simulationRuns.dataDate)))

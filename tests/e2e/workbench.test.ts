@@ -126,6 +126,11 @@ describe("workbench", () => {
     const table = page.getByTestId("compare-table");
     await table.waitFor();
     for (const s of seeded.slice(0, 2)) expect(await table.textContent()).toContain(s.name);
+    // Delay and cost sit beside the dates, with a figure for every seeded scenario.
+    const delayRow = table.locator('[data-metric="delayP50"]');
+    await delayRow.waitFor();
+    expect(await delayRow.textContent()).toMatch(/veh-h/);
+    expect(await table.locator('[data-metric="roadUserP50"]').textContent()).toMatch(/\$/);
     // A viewer reads and compares; no variant button.
     expect(await page.getByRole("button", { name: /variant/i }).count()).toBe(0);
     await screenshot(page, "compare");

@@ -44,6 +44,8 @@ export const GET = handler(async (req: Request, ctx: { params: Promise<{ project
               target: s.target ?? null,
               weatherLostShifts: s.weatherLostShifts,
               closureHoursTotal: Object.values(s.totalByClosure ?? {}).reduce((a, b) => a + Number(b), 0),
+              delay: s.delay ?? null,
+              cost: s.cost ?? null,
             }
           : null,
     };
