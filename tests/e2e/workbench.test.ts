@@ -171,4 +171,30 @@ describe("workbench", () => {
     await anonymous.close();
     await context.close();
   });
+
+  it("the engineer weighs the holiday trade-off in one click, sees delay and cost, and opens the owner brief", async () => {
+    const { context, page } = await signedIn("engineer");
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("engineer") });
+    const main = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons");
+    await page.goto(`${APP_URL}/scenarios/${main.id}`);
+    await page.getByTestId("delay-panel").waitFor();
+    expect(await page.getByTestId("delay-vehicle-hours").textContent()).toMatch(/\d/);
+    await page.getByTestId("tradeoff-run").click();
+    await page.getByTestId("tradeoff-sentence").waitFor({ timeout: 90_000 });
+    expect(await page.getByTestId("tradeoff-sentence").textContent()).toMatch(/day/);
+    await screenshot(page, "outlook-tradeoff");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+
+    await page.goto(`${APP_URL}/scenarios/${main.id}/brief`);
+    const brief = page.getByTestId("owner-brief");
+    await brief.waitFor();
+    const p80 = (await page.getByTestId("p80-date").first().textContent())!.trim();
+    expect(await brief.textContent()).toContain("Assumptions");
+    expect(await brief.textContent()).toContain("Planning aid, not an approval");
+    expect(p80.length).toBeGreaterThan(5);
+    await page.emulateMedia({ media: "print" });
+    await screenshot(page, "owner-brief-print");
+    expect(await page.locator("header").first().isVisible()).toBe(false);
+    await context.close();
+  });
 });
