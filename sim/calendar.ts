@@ -287,7 +287,7 @@ export function stampShifts(shifts: Intervals, a: number, b: number, stamp: Int3
 }
 
 /** Adds the hours of [a, b) falling on each day into `out[offset + d]`; widens `range` = [first, last] day. */
-function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, days: number, range: Int32Array): void {
+export function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, days: number, range: Int32Array): void {
   let t = a;
   while (t < b) {
     const d = Math.floor(t / 24);
@@ -298,38 +298,4 @@ function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, 
     if (d > range[1]) range[1] = d;
     t = dayEnd;
   }
-}
-
-/**
- * Union of segments held in lanes (each lane chronological and non-overlapping, e.g. one crew's work), by a
- * k-way merge of the lanes listed in `lanes`, added per day into `out[offset + d]` (see addHoursByDay).
- * `pos` is scratch (one cursor per lane, zeroed by the caller).
- */
-export function unionLanesByDay(
-  starts: Float64Array[], ends: Float64Array[], counts: Int32Array, lanes: Int32Array, pos: Int32Array,
-  out: Float64Array, offset: number, days: number, range: Int32Array,
-): void {
-  let curS = 0;
-  let curE = -Infinity;
-  for (;;) {
-    let pick = -1;
-    let best = Infinity;
-    for (let j = 0; j < lanes.length; j++) {
-      const l = lanes[j];
-      if (pos[l] < counts[l] && starts[l][pos[l]] < best) {
-        best = starts[l][pos[l]];
-        pick = l;
-      }
-    }
-    if (pick < 0) break;
-    const e = ends[pick][pos[pick]++];
-    if (best <= curE) {
-      if (e > curE) curE = e;
-    } else {
-      if (curE > curS) addHoursByDay(curS, curE, out, offset, days, range);
-      curS = best;
-      curE = e;
-    }
-  }
-  if (curE > curS) addHoursByDay(curS, curE, out, offset, days, range);
 }

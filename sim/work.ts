@@ -5,7 +5,7 @@
  * and the days on which some crew's shift held work or mobilization (`shiftDaysWorked`), both computed only
  * when asked, after `simulate`. One instance per compiled scenario, reset by `simulate` for each iteration.
  */
-import { firstIntervalAfter, seasonAt, stampShifts, unionLanesByDay, type CompiledCalendar, type OpCalendar } from "./calendar";
+import { addHoursByDay, firstIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
 import type { CompiledOp, PauseRecord } from "./engine";
 import { GateCache, pour, produce, type WorkSink } from "./gates";
 import type { WeatherSeries } from "./weather";
@@ -31,6 +31,8 @@ export class WorkContext implements WorkSink {
   private readonly laneBase: Int32Array;
   private readonly closureLanes: Int32Array[];
   private readonly lanePos: Int32Array;
+  private readonly head: Float64Array;
+  private unionGen = -1;
   private readonly closureOut: Float64Array;
   private readonly laneOp: Int32Array;
   private readonly unionSeg: ClosureSegments;
@@ -80,6 +82,7 @@ export class WorkContext implements WorkSink {
     };
     this.dayStamp = new Int32Array(cal.days + 2);
     this.lanePos = new Int32Array(lanes);
+    this.head = new Float64Array(lanes);
     this.segStarts = Array.from({ length: lanes }, () => new Float64Array(64));
     this.segEnds = Array.from({ length: lanes }, () => new Float64Array(64));
     this.segCount = new Int32Array(lanes);
@@ -203,9 +206,12 @@ export class WorkContext implements WorkSink {
     const range = this.range;
     range[0] = days;
     range[1] = -1;
-    this.lanePos.fill(0);
-    for (let c = 0; c < this.nClosures; c++)
-      unionLanesByDay(this.segStarts, this.segEnds, this.segCount, this.closureLanes[c], this.lanePos, out, c * days, days, range);
+    const u = this.closureSegments();
+    for (let c = 0; c < this.nClosures; c++) {
+      const st = u.starts[c];
+      const en = u.ends[c];
+      for (let j = 0; j < u.counts[c]; j++) addHoursByDay(st[j], en[j], out, c * days, days, range);
+    }
     this.outFirst = range[0];
     this.outLast = range[1];
     return { hours: out, first: range[0], last: range[1] };
@@ -213,29 +219,40 @@ export class WorkContext implements WorkSink {
 
   /**
    * Union of work and mobilization time per closure as chronological disjoint segments (a k-way merge of the
-   * crews' lanes). The buffers are reused: valid until the next call.
+   * crews' lanes), computed once per iteration. The buffers are reused: valid until the next `simulate`.
    */
   closureSegments(): ClosureSegments {
     const u = this.unionSeg;
+    if (this.unionGen === this.gen) return u;
+    this.unionGen = this.gen;
+    // head[j]: start of lane j's next segment (Infinity when the lane is spent), so the merge scans one array.
+    const head = this.head;
     const pos = this.lanePos;
-    pos.fill(0);
     for (let c = 0; c < this.nClosures; c++) {
       const lanes = this.closureLanes[c];
+      const nl = lanes.length;
+      for (let j = 0; j < nl; j++) {
+        const l = lanes[j];
+        pos[j] = 0;
+        head[j] = this.segCount[l] > 0 ? this.segStarts[l][0] : Infinity;
+      }
       let n = 0;
       let curS = 0;
       let curE = -Infinity;
       for (;;) {
         let pick = -1;
         let best = Infinity;
-        for (let j = 0; j < lanes.length; j++) {
-          const l = lanes[j];
-          if (pos[l] < this.segCount[l] && this.segStarts[l][pos[l]] < best) {
-            best = this.segStarts[l][pos[l]];
-            pick = l;
+        for (let j = 0; j < nl; j++) {
+          if (head[j] < best) {
+            best = head[j];
+            pick = j;
           }
         }
         if (pick < 0) break;
-        const e = this.segEnds[pick][pos[pick]++];
+        const l = lanes[pick];
+        const p = pos[pick]++;
+        const e = this.segEnds[l][p];
+        head[pick] = p + 1 < this.segCount[l] ? this.segStarts[l][p + 1] : Infinity;
         if (best <= curE) {
           if (e > curE) curE = e;
         } else {
