@@ -1,22 +1,18 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { loadSharedScenario } from "@/lib/server/shared";
 import { formatDateTime } from "@/lib/format";
 import type { RunSummary } from "@sim/summary";
 import { ResultsView } from "@/components/results";
 import { SafetyNote } from "@/components/safety-note";
 import { InputsSummary } from "./inputs-summary";
+import { orNotFound } from "@/lib/server/page-access";
 
 // A share link is a bearer secret: keep it out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Shared forecast", robots: { index: false, follow: false }, referrer: "no-referrer" };
 
 export default async function SharedPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const shared = await loadSharedScenario(token).catch((e) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const shared = await orNotFound(loadSharedScenario(token));
   const { link, project, scenario, run } = shared;
   const stale = !!run && run.scenarioVersion !== scenario.version;
   return (

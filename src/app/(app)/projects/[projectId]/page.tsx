@@ -1,21 +1,17 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { RoleBadge } from "@/components/role-badge";
 import { formatStation } from "@/lib/format";
 import { can } from "@/lib/permissions";
 import { ScenarioTable } from "./scenario-table";
+import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Project" };
 
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const access = await requireProject(projectId, "read").catch((e) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role } = access;
   return (
     <div className="space-y-6">

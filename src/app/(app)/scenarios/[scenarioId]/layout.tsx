@@ -1,19 +1,15 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { getProject } from "@db/queries/projects";
 import { RoleBadge } from "@/components/role-badge";
 import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import { ScenarioTabs } from "./scenario-tabs";
+import { orNotFound } from "@/lib/server/page-access";
 
 export default async function ScenarioLayout({ children, params }: { children: React.ReactNode; params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const access = await requireScenario(scenarioId, "read").catch((e) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const access = await orNotFound(requireScenario(scenarioId, "read"));
   const { scenario, role } = access;
   const project = await getProject({ id: scenario.projectId });
   return (

@@ -1,6 +1,4 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { getLatestRun } from "@db/queries/runs";
 import { can } from "@/lib/permissions";
@@ -9,15 +7,13 @@ import type { RunSummary } from "@sim/index";
 import { ResultsView } from "@/components/results";
 import { RunPanel } from "@/components/run/run-panel";
 import { SafetyNote } from "@/components/safety-note";
+import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Outlook" };
 
 export default async function OutlookPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario, role } = await requireScenario(scenarioId, "read").catch((e) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
   const run = await getLatestRun({ scenarioId });
   const stale = !!run && run.scenarioVersion !== scenario.version;
   return (

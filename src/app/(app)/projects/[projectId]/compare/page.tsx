@@ -1,11 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { can } from "@/lib/permissions";
 import { MAX_COMPARE } from "@/components/results/compare-logic";
 import { CompareView } from "./compare-view";
+import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Compare scenarios" };
 
@@ -18,10 +17,7 @@ export default async function ComparePage({
 }) {
   const { projectId } = await params;
   const sp = await searchParams;
-  const { project, role } = await requireProject(projectId, "read").catch((e) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const { project, role } = await orNotFound(requireProject(projectId, "read"));
   const raw = Array.isArray(sp.ids) ? sp.ids.join(",") : (sp.ids ?? "");
   const initialIds = [...new Set(raw.split(",").map((s) => s.trim()).filter(Boolean))].slice(0, MAX_COMPARE);
   return (

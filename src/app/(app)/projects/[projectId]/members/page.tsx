@@ -1,18 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { MembersPanel } from "./members-panel";
+import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Members" };
 
 export default async function MembersPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const { project, user } = await requireProject(projectId, "manageMembers").catch((e) => {
-    if (e instanceof AppError && (e.code === "not_found" || e.code === "forbidden")) notFound();
-    throw e;
-  });
+  const { project, user } = await orNotFound(requireProject(projectId, "manageMembers"), ["not_found", "forbidden"]);
   return (
     <div className="space-y-5">
       <nav aria-label="Breadcrumb" className="text-sm text-muted">

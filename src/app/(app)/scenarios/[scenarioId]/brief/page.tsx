@@ -1,6 +1,4 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { validateDefinition } from "@/lib/server/scenario-input";
 import { getLatestRun } from "@db/queries/runs";
@@ -10,6 +8,7 @@ import { ResultsView } from "@/components/results";
 import { SafetyNote } from "@/components/safety-note";
 import { formatDateTime, formatIsoDate, formatPercent, formatStation } from "@/lib/format";
 import { PrintButton } from "./print-button";
+import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Owner brief" };
 
@@ -19,10 +18,7 @@ const hour = (h: number) => `${String(Math.floor(h)).padStart(2, "0")}:${String(
 /** A printable one-document summary for the owner: the answer first, then the evidence, then the assumptions. */
 export default async function BriefPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario } = await requireScenario(scenarioId, "read").catch((e) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const { scenario } = await orNotFound(requireScenario(scenarioId, "read"));
   const [run, project] = await Promise.all([getLatestRun({ scenarioId }), getProject({ id: scenario.projectId })]);
   const d = validateDefinition(scenario.definition);
   const s = run?.results as unknown as RunSummary | undefined;

@@ -1,6 +1,4 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { getLatestPlanRun, getLatestReforecast, listProgress, listReforecastRuns } from "@db/queries/progress";
 import { getLatestRun } from "@db/queries/runs";
@@ -16,6 +14,7 @@ import { DriftChart, type DriftPoint } from "./drift-chart";
 import { ProgressForm, type PlanFacts } from "./progress-form";
 import { ProgressTable, type EntryView } from "./progress-table";
 import { ReforecastPanel } from "./reforecast-panel";
+import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Field log" };
 
@@ -40,10 +39,7 @@ function actualsOf(plan: Scenario, entries: EntryView[]): ActualSeries[] {
 
 export default async function FieldLogPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario, role } = await requireScenario(scenarioId, "read").catch((e) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
   const parsed = parseScenario(scenario.definition);
   if (!parsed.ok) return <p className="card text-sm text-bad">The plan has problems, so progress cannot be checked against it. Fix the plan first.</p>;
   const plan = parsed.scenario;

@@ -6,20 +6,11 @@ import { api, ApiError } from "@/lib/api-client";
 import { formatDateTime, formatIsoDate, formatStation } from "@/lib/format";
 import { DISCOVERED_LABELS } from "@/lib/progress-schema";
 import { ProgressForm, type PlanFacts } from "./progress-form";
+// Type only: erased from the client bundle, so the server-only query module is never shipped.
+import type { ProgressFields } from "@db/queries/progress";
 
-export interface EntryView {
+export interface EntryView extends ProgressFields {
   id: string;
-  workDate: string;
-  shift: string;
-  operationId: string;
-  fromStationFt: number;
-  toStationFt: number;
-  crew: string;
-  tempF: number | null;
-  rain: boolean;
-  lostHours: number;
-  lostReason: string;
-  discovered: { kind: string; fromStationFt: number; toStationFt: number; areaSqFt: number }[];
   version: number;
   enteredByName: string;
 }

@@ -1,19 +1,15 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { listProjectScenarios } from "@db/queries/scenarios";
 import { NewScenarioForm } from "./new-scenario-form";
+import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "New scenario" };
 
 export default async function NewScenarioPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const { project } = await requireProject(projectId, "editScenario").catch((e) => {
-    if (e instanceof AppError && (e.code === "not_found" || e.code === "forbidden")) notFound();
-    throw e;
-  });
+  const { project } = await orNotFound(requireProject(projectId, "editScenario"), ["not_found", "forbidden"]);
   const existing = await listProjectScenarios({ projectId });
   return (
     <div className="mx-auto max-w-2xl space-y-5">
