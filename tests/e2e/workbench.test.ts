@@ -150,6 +150,7 @@ describe("workbench", () => {
     const url = await page.getByTestId("share-link-url").inputValue();
     expect(url).toMatch(/\/shared\/[A-Za-z0-9_-]{43}$/);
     await screenshot(page, "share");
+    expect(await seriousA11yViolations(page)).toEqual([]);
 
     const anonymous = await browser.newContext();
     const pub = await anonymous.newPage();
