@@ -8,7 +8,7 @@
  */
 import { impactModel, iterationImpact } from "./cost";
 import { simulate, type CompiledScenario } from "./engine";
-import { drawSamples } from "./samples";
+import { drawSamples, type IterationSamples } from "./samples";
 
 export interface PartialRun {
   seed: string;
@@ -89,10 +89,13 @@ export function runIterations(
     out.roadUserCost.fill(NaN);
     out.contractCost.fill(NaN);
   }
+  // Each iteration's samples are dead once it is simulated: the next one recycles their buffers.
+  let samples: IterationSamples | undefined;
   for (let k = from; k < to; k++) {
     if (shouldStop && shouldStop()) return truncate(out, k - from);
     const j = k - from;
-    const r = simulate(compiled, drawSamples(compiled.scenario, seed, k));
+    samples = drawSamples(compiled.scenario, seed, k, samples);
+    const r = simulate(compiled, samples);
     out.finish[j] = r.finish;
     out.opFinish.set(r.opFinish, j * nOps);
     out.season1End[j] = r.season1End;

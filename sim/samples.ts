@@ -5,6 +5,9 @@
  * ft/h; wait → duration in hours), then for each discovering operation in scenario order, for each packet
  * in index order: one uniform u, and when u < p (the packet's discovery probability) one extra-hours draw.
  * `"${seed}:${k}:w"` drives the weather series, which grows lazily as the engine reads it.
+ * `reuse`, an earlier result for the same scenario that the caller no longer reads, lends its buffers (the
+ * Monte Carlo loop passes the previous iteration's); the values drawn do not depend on it, and it must not be
+ * read again.
  * The engine and the reference simulator both consume these samples, so they see the same world.
  */
 import { parseIsoDate } from "./dates";
@@ -69,30 +72,32 @@ function prepare(s: Scenario): Prepared {
 
 const EMPTY = new Float64Array(0);
 
-export function drawSamples(scenario: Scenario, seed: string, iteration: number): IterationSamples {
+export function drawSamples(scenario: Scenario, seed: string, iteration: number, reuse?: IterationSamples): IterationSamples {
   const prep = prepare(scenario);
   const ops = scenario.operations;
   const rng = createRng(`${seed}:${iteration}`);
-  const rateFtPerHour = new Float64Array(ops.length).fill(NaN);
-  const waitHours = new Float64Array(ops.length).fill(NaN);
+  const fits = reuse !== undefined && reuse.rateFtPerHour.length === ops.length;
+  const rateFtPerHour = fits ? reuse.rateFtPerHour.fill(NaN) : new Float64Array(ops.length).fill(NaN);
+  const waitHours = fits ? reuse.waitHours.fill(NaN) : new Float64Array(ops.length).fill(NaN);
   for (let i = 0; i < ops.length; i++) {
     const op = ops[i];
     if (op.kind === "crew") rateFtPerHour[i] = sampleDistribution(op.rate.dist, rng) * prep.rateFactor[i];
     else waitHours[i] = sampleDistribution(op.durationHours, rng);
   }
-  const discoveredExtraHours: Float64Array[] = [];
+  const discoveredExtraHours: Float64Array[] = fits ? reuse.discoveredExtraHours : [];
   for (let i = 0; i < ops.length; i++) {
     const op = ops[i];
     if (op.kind !== "crew" || !op.discovers) {
-      discoveredExtraHours.push(EMPTY);
+      discoveredExtraHours[i] = EMPTY;
       continue;
     }
-    const extra = new Float64Array(prep.packets);
+    const old = fits ? reuse.discoveredExtraHours[i] : undefined;
+    const extra = old !== undefined && old.length === prep.packets ? old.fill(0) : new Float64Array(prep.packets);
     for (let j = 0; j < prep.packets; j++) {
       if (rng.next() < prep.probability[j]) extra[j] = sampleDistribution(scenario.discovered.extraHours, rng);
     }
-    discoveredExtraHours.push(extra);
+    discoveredExtraHours[i] = extra;
   }
-  const weather = createWeatherSeries(scenario.weather, prep.startDay, createRng(`${seed}:${iteration}:w`));
+  const weather = createWeatherSeries(scenario.weather, prep.startDay, createRng(`${seed}:${iteration}:w`), reuse?.weather);
   return { rateFtPerHour, waitHours, discoveredExtraHours, weather };
 }

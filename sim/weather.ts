@@ -1,9 +1,12 @@
 /**
  * Daily weather for one Monte Carlo iteration, and the hourly view the weather gates read.
  * Contract:
- * - `createWeatherSeries(weather, startDay, rng)` returns a series whose day index 0 is day number
+ * - `createWeatherSeries(weather, startDay, rng, reuse?)` returns a series whose day index 0 is day number
  *   `startDay` (see `./dates`). Days are generated lazily and in order: `ensure(n)` makes days `< n`
  *   available; the typed arrays are replaced when they grow, so read them through the series object.
+ *   `reuse`, a series the caller no longer reads, lends its arrays (the Monte Carlo loop recycles them
+ *   instead of allocating per iteration); it must not be read again. Days are written before they are read,
+ *   so the recycled contents never show.
  * - In stochastic mode the series takes exactly two uniforms from `rng` when it is created and seeds a
  *   private stream with them, so the weather of an iteration does not depend on when or how often the
  *   caller asks for more days, nor on what else the caller draws from `rng`. Fixed mode draws nothing.
@@ -120,7 +123,7 @@ function prepare(weather: Weather): Prepared {
   return p;
 }
 
-export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng): WeatherSeries {
+export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng, reuse?: WeatherSeries): WeatherSeries {
   const P = prepare(weather);
   const { tmaxMean, tmaxSd, tminMean, tminSd, pWD, pWW, windScale, windMean, rh, fixedWet, q } = P;
   const own: Rng | null =
@@ -162,13 +165,13 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
   const series: WeatherSeries = {
     startDay,
     length: 0,
-    tmaxF: new Float64Array(INITIAL_CAPACITY),
-    tminF: new Float64Array(INITIAL_CAPACITY),
-    windMph: new Float64Array(INITIAL_CAPACITY),
-    rhPct: new Float64Array(INITIAL_CAPACITY),
-    wet: new Uint8Array(INITIAL_CAPACITY),
-    rainStartHour: new Uint8Array(INITIAL_CAPACITY),
-    rainHours: new Uint8Array(INITIAL_CAPACITY),
+    tmaxF: reuse ? reuse.tmaxF : new Float64Array(INITIAL_CAPACITY),
+    tminF: reuse ? reuse.tminF : new Float64Array(INITIAL_CAPACITY),
+    windMph: reuse ? reuse.windMph : new Float64Array(INITIAL_CAPACITY),
+    rhPct: reuse ? reuse.rhPct : new Float64Array(INITIAL_CAPACITY),
+    wet: reuse ? reuse.wet : new Uint8Array(INITIAL_CAPACITY),
+    rainStartHour: reuse ? reuse.rainStartHour : new Uint8Array(INITIAL_CAPACITY),
+    rainHours: reuse ? reuse.rainHours : new Uint8Array(INITIAL_CAPACITY),
     ensure(days: number) {
       if (days <= series.length) return;
       if (days > series.tmaxF.length) grow(days);
