@@ -111,6 +111,12 @@ export interface CompiledDirection {
   openCapacity: number;
   /** Per closure index: veh/h through the work zone, or Infinity when the closure narrows no lane of this direction. */
   closureCapacity: Float64Array;
+  /**
+   * Per closure index (null where it does not narrow): nextOver[h] = the first clock hour ≥ h whose demand
+   * exceeds the closure's capacity (24 · days if none), so the walk jumps over hours that add no queue.
+   * Optional: without it the walk steps hour by hour (same result).
+   */
+  nextOver?: (Int32Array | null)[];
 }
 
 export interface TrafficModel {
@@ -196,6 +202,7 @@ export function compileTraffic(s: Scenario, startDay: number, days: number): Tra
     closureCapacity.forEach((c, i) => {
       if (c !== Infinity) narrowing.push(i);
     });
+    const nextOver = Array.from(closureCapacity, (cap) => (cap === Infinity ? null : nextHourOver(hourDemand, cap)));
     return {
       id: dir.id,
       name: dir.name,
@@ -207,9 +214,18 @@ export function compileTraffic(s: Scenario, startDay: number, days: number): Tra
       storageLanes: dir.lanes.length,
       openCapacity: t.openRoadPcPerHourPerLane * fHv * dir.lanes.length,
       closureCapacity,
+      nextOver,
     };
   });
   return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane, scratch: { starts: new Float64Array(256), ends: new Float64Array(256), caps: new Float64Array(256), pos: new Int32Array(s.calendar.closures.length) } };
+}
+
+function nextHourOver(hourDemand: Float64Array, cap: number): Int32Array {
+  const n = hourDemand.length;
+  const out = new Int32Array(n + 1);
+  out[n] = n;
+  for (let h = n - 1; h >= 0; h--) out[h] = hourDemand[h] > cap ? h : out[h + 1];
+  return out;
 }
 
 /** Closure time of one iteration: per closure, chronological disjoint segments (hours since startDate). */
@@ -308,10 +324,11 @@ interface Walk {
 
 /**
  * D/D/1 from `a` to `b` at service rate `mu`, one piece per clock hour (demand is constant inside an hour).
- * With `untilEmpty` the walk stops as soon as the queue is gone (the road is open again). Returns the time
- * reached.
+ * With `untilEmpty` the walk stops as soon as the queue is gone (the road is open again). `over`, when
+ * given, is the `nextOver` table of capacity `mu`: with no queue, the hours up to the next one whose demand
+ * exceeds `mu` would each add nothing, so the walk jumps to it. Returns the time reached.
  */
-function walk(dir: CompiledDirection, w: Walk, a: number, b: number, mu: number, untilEmpty: boolean, detail: QueueDetail | null): number {
+function walk(dir: CompiledDirection, w: Walk, a: number, b: number, mu: number, untilEmpty: boolean, detail: QueueDetail | null, over: Int32Array | null): number {
   const hd = dir.hourDemand;
   let t = a;
   while (t < b) {
@@ -322,8 +339,11 @@ function walk(dir: CompiledDirection, w: Walk, a: number, b: number, mu: number,
     if (q0 <= 0) {
       if (untilEmpty) return t;
       if (lam <= mu) {
-        // The common case: no queue and demand within capacity — nothing to add.
-        t = hb;
+        // The common case: no queue and demand within capacity — nothing to add, up to the next hour over.
+        if (over) {
+          const h = over[hour];
+          t = h < b ? h : b;
+        } else t = hb;
         continue;
       }
     }
@@ -353,6 +373,14 @@ function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number
   }
 }
 
+/** The `nextOver` table of a piece's capacity: that of a narrowing closure with exactly this capacity. */
+function overTable(dir: CompiledDirection, mu: number): Int32Array | null {
+  const rel = dir.narrowing;
+  const tables = dir.nextOver;
+  if (tables) for (let j = 0; j < rel.length; j++) if (dir.closureCapacity[rel[j]] === mu) return tables[rel[j]];
+  return null;
+}
+
 /**
  * D/D/1 delay of one direction, veh-h, over the closure segments of one iteration. Outside closure time the
  * road is open (`openCapacity`) and only a standing queue is walked: no closure means no work-zone delay.
@@ -368,9 +396,9 @@ export function queueDelay(m: TrafficModel, dir: CompiledDirection, seg: Closure
   for (let i = 0; i < n; i++) {
     const a = starts[i];
     if (a >= horizon) break;
-    if (w.q > 0 && t < a) walk(dir, w, t, a, dir.openCapacity, true, detail);
-    t = walk(dir, w, a, ends[i] < horizon ? ends[i] : horizon, caps[i], false, detail);
+    if (w.q > 0 && t < a) walk(dir, w, t, a, dir.openCapacity, true, detail, null);
+    t = walk(dir, w, a, ends[i] < horizon ? ends[i] : horizon, caps[i], false, detail, overTable(dir, caps[i]));
   }
-  if (w.q > 0) walk(dir, w, t, horizon, dir.openCapacity, true, detail);
+  if (w.q > 0) walk(dir, w, t, horizon, dir.openCapacity, true, detail, null);
   return w.total;
 }
