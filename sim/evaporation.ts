@@ -20,7 +20,11 @@ const pos = (x: number) => (x > 0 ? x : 0);
 /** Uno (1998): E = 5·[(Tc + 18)^2.5 − r·(Ta + 18)^2.5]·(V + 4)·10⁻⁶ kg/m²/h; °C, km/h. */
 export function unoEvaporationKgM2h(concreteC: number, airC: number, rhPct: number, windKmh: number): number {
   const r = rhPct / 100;
-  const e = 5 * (Math.pow(pos(concreteC + 18), 2.5) - r * Math.pow(pos(airC + 18), 2.5)) * (pos(windKmh) + 4) * 1e-6;
+  // x^2.5 as x·x·√x: several times cheaper than Math.pow on the gate's hot path; within 2 ulp of it (about
+  // 4e-16 relative), far below the formula's ±40 % accuracy; a gate flips only at that distance from its limit.
+  const tc = pos(concreteC + 18);
+  const ta = pos(airC + 18);
+  const e = 5 * (tc * tc * Math.sqrt(tc) - r * (ta * ta * Math.sqrt(ta))) * (pos(windKmh) + 4) * 1e-6;
   return pos(e);
 }
 
