@@ -268,24 +268,41 @@ function capacityPieces(m: TrafficModel, dir: CompiledDirection, seg: ClosureSeg
     sc.caps.fill(cap[c], 0, n);
     return n;
   }
-  const pos = sc.pos;
-  pos.fill(0);
+  // The current segment of each narrowing closure (j indexes `rel`) in local scratch, so the sweep reads
+  // flat arrays; a spent closure gets start = end = Infinity, which never covers t nor bounds `next`.
+  const k = rel.length;
+  if (headS.length < k) {
+    headS = new Float64Array(k);
+    headE = new Float64Array(k);
+    headP = new Int32Array(k);
+  }
+  for (let j = 0; j < k; j++) {
+    const c = rel[j];
+    headP[j] = 0;
+    headS[j] = seg.counts[c] > 0 ? seg.starts[c][0] : Infinity;
+    headE[j] = seg.counts[c] > 0 ? seg.ends[c][0] : Infinity;
+  }
   let n = 0;
   let t = -Infinity;
   for (;;) {
     let mu = Infinity;
     let next = Infinity;
-    for (let j = 0; j < rel.length; j++) {
-      const c = rel[j];
-      const en = seg.ends[c];
-      let p = pos[c];
-      while (p < seg.counts[c] && en[p] <= t) p++;
-      pos[c] = p;
-      if (p >= seg.counts[c]) continue;
-      const st = seg.starts[c][p];
+    for (let j = 0; j < k; j++) {
+      if (headE[j] <= t) {
+        const c = rel[j];
+        const en = seg.ends[c];
+        const count = seg.counts[c];
+        let p = headP[j] + 1;
+        while (p < count && en[p] <= t) p++;
+        headP[j] = p;
+        headS[j] = p < count ? seg.starts[c][p] : Infinity;
+        headE[j] = p < count ? en[p] : Infinity;
+      }
+      const st = headS[j];
       if (st <= t) {
-        if (cap[c] < mu) mu = cap[c];
-        if (en[p] < next) next = en[p];
+        const cj = cap[rel[j]];
+        if (cj < mu) mu = cj;
+        if (headE[j] < next) next = headE[j];
       } else if (st < next) next = st;
     }
     if (next === Infinity) break;
@@ -303,6 +320,10 @@ function capacityPieces(m: TrafficModel, dir: CompiledDirection, seg: ClosureSeg
   }
   return n;
 }
+
+let headS = new Float64Array(4);
+let headE = new Float64Array(4);
+let headP = new Int32Array(4);
 
 function grow(sc: TrafficModel["scratch"], n: number): void {
   if (n <= sc.starts.length) return;
