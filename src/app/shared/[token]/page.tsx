@@ -6,6 +6,7 @@ import { ResultsView } from "@/components/results";
 import { SafetyNote } from "@/components/safety-note";
 import { InputsSummary } from "./inputs-summary";
 import { orNotFound } from "@/lib/server/page-access";
+import { resultsRunOf } from "@/lib/run-record";
 
 // A share link is a bearer secret: keep it out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Shared forecast", robots: { index: false, follow: false }, referrer: "no-referrer" };
@@ -51,7 +52,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
             <ResultsView
               summary={run.results as unknown as RunSummary}
               definition={scenario.definition}
-              run={{ id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale }}
+              run={resultsRunOf(run, scenario.version)}
             />
           </>
         ) : (

@@ -8,6 +8,7 @@ import { ResultsView } from "@/components/results";
 import { RunPanel } from "@/components/run/run-panel";
 import { SafetyNote } from "@/components/safety-note";
 import { orNotFound } from "@/lib/server/page-access";
+import { resultsRunOf } from "@/lib/run-record";
 
 export const metadata: Metadata = { title: "Outlook" };
 
@@ -49,7 +50,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
           <ResultsView
             summary={run.results as unknown as RunSummary}
             definition={scenario.definition}
-            run={{ id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale }}
+            run={resultsRunOf(run, scenario.version)}
           />
         </>
       ) : (

@@ -9,6 +9,7 @@ import { SafetyNote } from "@/components/safety-note";
 import { formatDateTime, formatIsoDate, formatPercent, formatStation } from "@/lib/format";
 import { PrintButton } from "./print-button";
 import { orNotFound } from "@/lib/server/page-access";
+import { resultsRunOf } from "@/lib/run-record";
 
 export const metadata: Metadata = { title: "Owner brief" };
 
@@ -61,7 +62,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
             Monte Carlo forecast: {run.iterations.toLocaleString("en-US")} iterations (seed “{run.seed}”), computed {formatDateTime(run.createdAt)}. P80 means 80 % of the
             simulated outcomes finished on or before that date, given the assumptions below.
           </p>
-          <ResultsView summary={s} definition={scenario.definition} run={{ id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale: run.scenarioVersion !== scenario.version }} />
+          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run, scenario.version)} />
         </>
       )}
       <section aria-labelledby="assumptions-heading" className="card break-inside-avoid">
