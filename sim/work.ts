@@ -37,6 +37,8 @@ export class WorkContext implements WorkSink {
   private readonly laneOp: Int32Array;
   private readonly unionSeg: ClosureSegments;
   private readonly dayStamp: Int32Array;
+  // shiftDay[op][i]: the day shift i of the operation starts on, or -1 outside the horizon (fixed per scenario).
+  private readonly shiftDay: Int32Array[];
   private dayGen = 0;
   private readonly range = new Int32Array(2);
   private outFirst = 0;
@@ -81,6 +83,16 @@ export class WorkContext implements WorkSink {
       counts: new Int32Array(nClosures),
     };
     this.dayStamp = new Int32Array(cal.days + 2);
+    this.shiftDay = ops.map((o) => {
+      if (o.kind !== "crew") return new Int32Array(0);
+      const sh = cal.ops[o.index]!.shifts;
+      const out = new Int32Array(sh.length);
+      for (let i = 0; i < sh.length; i++) {
+        const d = Math.floor(sh.starts[i] / 24);
+        out[i] = d < 0 || d >= this.dayStamp.length ? -1 : d;
+      }
+      return out;
+    });
     this.lanePos = new Int32Array(lanes);
     this.head = new Float64Array(lanes);
     this.segStarts = Array.from({ length: lanes }, () => new Float64Array(64));
@@ -296,13 +308,19 @@ export class WorkContext implements WorkSink {
       const n = this.segCount[l];
       if (n === 0) continue;
       const shifts = this.cal.ops[this.laneOp[l]]!.shifts;
+      const sDay = this.shiftDay[this.laneOp[l]];
+      const ss = shifts.starts;
+      const se = shifts.ends;
+      const sl = shifts.length;
+      const st = this.segStarts[l];
+      const en = this.segEnds[l];
       for (let j = 0; j < n; j++) {
-        const a = this.segStarts[l][j];
-        const b = this.segEnds[l][j];
-        for (let i = firstIntervalAfter(shifts, a - 24); i < shifts.length && shifts.starts[i] < b; i++) {
-          if (shifts.ends[i] <= a) continue;
-          const d = Math.floor(shifts.starts[i] / 24);
-          if (d < 0 || d >= stamp.length || stamp[d] === gen) continue;
+        const a = st[j];
+        const b = en[j];
+        for (let i = firstIntervalAfter(shifts, a - 24); i < sl && ss[i] < b; i++) {
+          if (se[i] <= a) continue;
+          const d = sDay[i];
+          if (d < 0 || stamp[d] === gen) continue;
           stamp[d] = gen;
           days++;
           if (d < first) first = d;
