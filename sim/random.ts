@@ -126,7 +126,14 @@ export function gamma(rng: Rng, shape: number, scale: number): number {
     return gamma(rng, shape + 1, scale) * Math.pow(u, 1 / shape);
   }
   const d = shape - 1 / 3;
-  const c = 1 / Math.sqrt(9 * d);
+  return gammaCore(rng, d, 1 / Math.sqrt(9 * d), scale);
+}
+
+/**
+ * Marsaglia–Tsang's loop for shape ≥ 1 given d = shape − 1/3 and c = 1/√(9d) (`gamma` above, for callers
+ * that draw many variates of one shape and hoist the two constants; the same draws, bit for bit).
+ */
+export function gammaCore(rng: Rng, d: number, c: number, scale: number): number {
   for (;;) {
     let x: number;
     let v: number;

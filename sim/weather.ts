@@ -28,7 +28,7 @@
  */
 import type { Weather } from "./schema";
 import { civilFromDays, daysInMonth, parseIsoDate } from "./dates";
-import { createRng, gamma, normal, type Rng } from "./random";
+import { createRng, gammaCore, normal, type Rng } from "./random";
 
 export interface WeatherSeries {
   readonly startDay: number;
@@ -52,6 +52,9 @@ export function stationaryWetProbability(pWetAfterDry: number, pWetAfterWet: num
 }
 
 const WIND_SHAPE = 4;
+// gamma(rng, WIND_SHAPE, θ)'s constants, once (θ > 0 is tested per day, as `gamma` would).
+const WIND_D = WIND_SHAPE - 1 / 3;
+const WIND_C = 1 / Math.sqrt(9 * WIND_D);
 const MAX_RAIN_HOURS = 24;
 
 /** Mean of P(h) ∝ q^{h−1}, h = 1…24. */
@@ -215,7 +218,7 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
         const tmin = tminMean[mo] + (wet ? wetMinShift : 0) + tminSd[mo] * chiMin;
         tmaxF[i] = tmax;
         tminF[i] = tmin > tmax - 1 ? tmax - 1 : tmin;
-        windMph[i] = windScale[mo] > 0 ? gamma(own, WIND_SHAPE, windScale[mo]) : 0;
+        windMph[i] = windScale[mo] > 0 ? gammaCore(own, WIND_D, WIND_C, windScale[mo]) : 0;
         const r = rh[mo] + (wet ? 10 : 0);
         rhPct[i] = r > 100 ? 100 : r;
         wetA[i] = wet ? 1 : 0;
