@@ -1,65 +1,20 @@
 /**
  * Seeded randomness for the engine. Contract: `createRng(seed)` gives a reproducible uniform stream in [0, 1)
- * (Alea: fast, 32-bit resolution, identical in every JavaScript runtime; the very stream of seedrandom's
- * `alea(seed)`, reimplemented here as a plain class so that the per-iteration streams cost no closures and
- * `next` reads fields of one fixed shape); `normal` and `gamma`
+ * (seedrandom's Alea: fast, 32-bit resolution, identical in every JavaScript runtime); `normal` and `gamma`
  * turn that stream into standard normal and gamma variates. No sampler keeps hidden state (no cached
  * spare variate), so a draw depends only on the uniforms it consumes and a stream stays easy to reason
  * about when code paths change.
  */
+import seedrandom from "seedrandom";
+
 export interface Rng {
   /** Uniform on [0, 1). */
   next(): number;
 }
 
-/*
- * Alea and its Mash seeding, operation for operation as in seedrandom 3 (lib/alea.js), so every uniform is
- * bit-identical to `seedrandom.alea(seed)()`: the same double arithmetic in the same order.
- * Source: J. Baagøe (2010), "Better random numbers for JavaScript" (Alea, Mash), as ported in the seedrandom
- * package, lib/alea.js (MIT licence).
- */
-class Alea implements Rng {
-  private s0: number;
-  private s1: number;
-  private s2: number;
-  private c = 1;
-
-  constructor(seed: string) {
-    let n = 0xefc8249d;
-    const mash = (data: string): number => {
-      for (let i = 0; i < data.length; i++) {
-        n += data.charCodeAt(i);
-        let h = 0.02519603282416938 * n;
-        n = h >>> 0;
-        h -= n;
-        h *= n;
-        n = h >>> 0;
-        h -= n;
-        n += h * 0x100000000; // 2^32
-      }
-      return (n >>> 0) * 2.3283064365386963e-10; // 2^-32
-    };
-    this.s0 = mash(" ");
-    this.s1 = mash(" ");
-    this.s2 = mash(" ");
-    this.s0 -= mash(seed);
-    if (this.s0 < 0) this.s0 += 1;
-    this.s1 -= mash(seed);
-    if (this.s1 < 0) this.s1 += 1;
-    this.s2 -= mash(seed);
-    if (this.s2 < 0) this.s2 += 1;
-  }
-
-  next(): number {
-    const t = 2091639 * this.s0 + this.c * 2.3283064365386963e-10; // 2^-32
-    this.s0 = this.s1;
-    this.s1 = this.s2;
-    return (this.s2 = t - (this.c = t | 0));
-  }
-}
-
 export function createRng(seed: string): Rng {
-  return new Alea(String(seed));
+  const prng = seedrandom.alea(seed);
+  return { next: prng };
 }
 
 /*
