@@ -33,6 +33,20 @@ function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
   });
 }
 
+/** Picks one operation (by id, shown by name) for a new link. */
+function OperationSelect({ id, value, onChange, ops }: { id: string; value: string; onChange: (id: string) => void; ops: OpIn[] }) {
+  return (
+    <select id={id} className="field-input" value={value} onChange={(e) => onChange(e.target.value)}>
+      <option value="">Choose…</option>
+      {ops.map((o) => (
+        <option key={o.id} value={o.id}>
+          {o.name || o.id}
+        </option>
+      ))}
+    </select>
+  );
+}
+
 export function SequenceSection({ readOnly }: { readOnly: boolean }) {
   const { control, getValues, setValue } = useFormContext<ScenarioInput>();
   const ops = (useWatch({ control, name: "operations" }) ?? []) as OpIn[];
@@ -259,27 +273,13 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
                     <label htmlFor="new-link-from" className="field-label">
                       From
                     </label>
-                    <select id="new-link-from" className="field-input" value={linkFrom} onChange={(e) => setLinkFrom(e.target.value)}>
-                      <option value="">Choose…</option>
-                      {ops.map((o) => (
-                        <option key={o.id} value={o.id}>
-                          {o.name || o.id}
-                        </option>
-                      ))}
-                    </select>
+                    <OperationSelect id="new-link-from" value={linkFrom} onChange={setLinkFrom} ops={ops} />
                   </div>
                   <div>
                     <label htmlFor="new-link-to" className="field-label">
                       To
                     </label>
-                    <select id="new-link-to" className="field-input" value={linkTo} onChange={(e) => setLinkTo(e.target.value)}>
-                      <option value="">Choose…</option>
-                      {ops.map((o) => (
-                        <option key={o.id} value={o.id}>
-                          {o.name || o.id}
-                        </option>
-                      ))}
-                    </select>
+                    <OperationSelect id="new-link-to" value={linkTo} onChange={setLinkTo} ops={ops} />
                   </div>
                   <button
                     type="button"

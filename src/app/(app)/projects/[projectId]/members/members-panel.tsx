@@ -21,6 +21,19 @@ const ROLE_HELP: Record<ProjectRole, string> = {
   viewer: "reads and compares (owner executives)",
 };
 
+/** A role picker that says what each role may do. */
+function RoleSelect({ id, value, onChange }: { id: string; value: ProjectRole; onChange: (role: ProjectRole) => void }) {
+  return (
+    <select id={id} className="field-input" value={value} onChange={(e) => onChange(e.target.value as ProjectRole)}>
+      {Object.entries(ROLE_LABELS).map(([r, label]) => (
+        <option key={r} value={r}>
+          {label} — {ROLE_HELP[r as ProjectRole]}
+        </option>
+      ))}
+    </select>
+  );
+}
+
 export function MembersPanel({ projectId, selfId }: { projectId: string; selfId: string }) {
   const qc = useQueryClient();
   const key = ["projects", projectId, "members"];
@@ -117,13 +130,7 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
               <label htmlFor="member-role" className="field-label">
                 Role
               </label>
-              <select id="member-role" className="field-input" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
-                {Object.entries(ROLE_LABELS).map(([r, label]) => (
-                  <option key={r} value={r}>
-                    {label} — {ROLE_HELP[r as ProjectRole]}
-                  </option>
-                ))}
-              </select>
+              <RoleSelect id="member-role" value={role} onChange={setRole} />
             </div>
             <button type="submit" className="btn-primary" disabled={add.isPending}>
               Add to project
@@ -194,13 +201,7 @@ function InviteByEmail({ projectId }: { projectId: string }) {
           <label htmlFor="invite-role" className="field-label">
             Their role
           </label>
-          <select id="invite-role" className="field-input" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
-            {Object.entries(ROLE_LABELS).map(([r, label]) => (
-              <option key={r} value={r}>
-                {label} — {ROLE_HELP[r as ProjectRole]}
-              </option>
-            ))}
-          </select>
+          <RoleSelect id="invite-role" value={role} onChange={setRole} />
         </div>
         <button type="submit" className="btn-primary" disabled={invite.isPending}>
           {invite.isPending ? "Sending…" : "Send invitation"}
