@@ -82,7 +82,8 @@ export async function getOutboxMessage({ db = getDb(), id }: { db?: Database; id
   return row ?? null;
 }
 
-export async function listOutbox({ limit = 50 }: { limit?: number } = {}) {
+/** Outbox rows addressed to one person (the dev mailbox shows nobody anyone else's mail). */
+export async function listOutbox({ toAddress, limit = 50 }: { toAddress: string; limit?: number }) {
   return getDb()
     .select({
       id: emailOutbox.id,
@@ -96,6 +97,7 @@ export async function listOutbox({ limit = 50 }: { limit?: number } = {}) {
       sentAt: emailOutbox.sentAt,
     })
     .from(emailOutbox)
+    .where(eq(sql`lower(${emailOutbox.toAddress})`, toAddress.trim().toLowerCase()))
     .orderBy(desc(emailOutbox.createdAt))
     .limit(limit);
 }

@@ -15,17 +15,21 @@ export type SignInResult = { ok: true; userId: string } | { ok: false; status: 4
 
 /**
  * Unknown account and wrong password give the same message and take the same time. Every attempt first
- * reserves a slot per client address and per account (counted atomically in the database); only an attempt
- * that got both slots has its password checked, so in one window no more than MAX_ACCOUNT_FAILURES passwords
- * are ever tried against an account, however many requests arrive at once. A success gives its slots back
- * (the account's count starts again); a failure keeps them.
+ * reserves a slot per account and per client address (each counted atomically in the database); only an
+ * attempt that got both has its password checked, so in one window no more than MAX_ACCOUNT_FAILURES
+ * passwords are ever tried against an account, however many requests arrive at once — and the account's
+ * count in sign_in_attempts is exactly the number tried. A success gives its slots back (the account's count
+ * starts again); a failure keeps them.
  */
 export async function attemptSignIn({ email, password, address }: { email: string; password: string; address: string }): Promise<SignInResult> {
   const accountKey = `account:${email.trim().toLowerCase()}`;
   const addressKey = `address:${address}`;
-  // The address first: a client already over its limit cannot spend the account's attempts.
-  if ((await reserveAttempt({ key: addressKey, windowMs: WINDOW_MS, max: MAX_ADDRESS_FAILURES })) === null) return locked();
   if ((await reserveAttempt({ key: accountKey, windowMs: WINDOW_MS, max: MAX_ACCOUNT_FAILURES })) === null) return locked();
+  if ((await reserveAttempt({ key: addressKey, windowMs: WINDOW_MS, max: MAX_ADDRESS_FAILURES })) === null) {
+    // No password was checked, so the account's slot goes back: its count stays the number of passwords tried.
+    await releaseAttempt({ key: accountKey });
+    return locked();
+  }
   const user = await getUserByEmail({ email });
   const ok = await verifyPassword(user?.passwordHash ?? null, password);
   if (!ok || !user) return { ok: false, status: 401, message: SIGN_IN_FAILED };
