@@ -374,8 +374,10 @@ async function testMode() {
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
   const extra = process.argv.slice(3);
-  const vitest = spawnSync(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
-  return vitest.status ?? 1;
+  // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) meanwhile.
+  const vitest = spawn(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
+  const [code] = await new Promise((res) => vitest.on("exit", (...a) => res(a)));
+  return code ?? 1;
 }
 
 async function shutdown(code) {

@@ -1,6 +1,5 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
-import { DatabaseError } from "@db/safe-errors";
 
 /**
  * What the server log may say about an unexpected error: a reference (also given to the client) and a code.
@@ -9,7 +8,8 @@ import { DatabaseError } from "@db/safe-errors";
  * can quote the values it was given.
  */
 export function describeError(e: unknown): string {
-  if (e instanceof DatabaseError) return `${e.name}: ${e.message}`;
+  // By name, not instanceof: the bundler may give route and page code separate copies of db/safe-errors.
+  if (e instanceof Error && e.name === "DatabaseError") return `${e.name}: ${e.message}`;
   if (e instanceof Error) {
     const frames = (e.stack ?? "").split("\n").filter((l) => l.trim().startsWith("at ")).slice(0, 5).join("\n");
     return `${e.name}${frames ? `\n${frames}` : ""}`;
