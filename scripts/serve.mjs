@@ -24,6 +24,10 @@ const server = createServer((req, res) => {
     if (!res.headersSent) res.writeHead(500).end();
   });
 });
+// Longer than a proxy's or an HTTP client's idle keep-alive, so the server is never the side closing a
+// connection the other end is about to reuse (a reset request) — Node's own default is 5 s.
+server.keepAliveTimeout = 65_000;
+server.headersTimeout = 66_000;
 server.listen(port, host, () => console.log(`[pourline] serving on http://${host.includes(":") ? `[${host}]` : host}:${port}`));
 
 for (const sig of ["SIGINT", "SIGTERM"]) {
