@@ -2,6 +2,7 @@ import "server-only";
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { formatPath, type FieldProblem } from "@sim/schema";
+import { logServerError } from "./log";
 
 export type ErrorCode = "bad_request" | "unauthorized" | "forbidden" | "not_found" | "conflict" | "too_many" | "too_large" | "unsupported";
 
@@ -42,15 +43,19 @@ export function badRequest(fields: FieldProblem[], message = "Some fields need a
   return new AppError("bad_request", message, fields);
 }
 
-/** Wraps a route handler: AppErrors become their response; anything else is logged and becomes a plain 500. */
+/**
+ * Wraps a route handler: AppErrors become their response; anything else becomes a plain 500 carrying a
+ * reference, and the log gets that reference with a code — never the error's message or properties, which for
+ * a failed query could hold its values (session keys, scenario bodies).
+ */
 export function handler<A extends unknown[]>(fn: (...args: A) => Promise<Response>) {
   return async (...args: A): Promise<Response> => {
     try {
       return await fn(...args);
     } catch (e) {
       if (e instanceof AppError) return e.toResponse();
-      console.error("[pourline] unexpected server error", e);
-      return NextResponse.json({ error: "Something went wrong on the server. Try again.", code: "server_error", fields: [] }, { status: 500 });
+      const ref = logServerError(e);
+      return NextResponse.json({ error: `Something went wrong on the server. Try again; if it keeps happening, quote reference ${ref}.`, code: "server_error", ref, fields: [] }, { status: 500 });
     }
   };
 }
