@@ -1,7 +1,7 @@
 /**
  * Calling a server action over HTTP the way the framework's client does: a POST to the page with the action's id
  * in the `Next-Action` header and the arguments encoded as React encodes a reply (a FormData argument's fields
- * travel under a "<n>_" prefix and are referred to as "$K<n>"). Action ids come from the build's
+ * travel under a "_<n>_" prefix and are referred to as "$K<n>"). Action ids come from the build's
  * server-reference manifest, which names each action's file and export.
  */
 import { readFileSync } from "node:fs";
@@ -38,7 +38,7 @@ function encodeArgs(args: unknown[]): FormData {
   const encoded = args.map((a) => {
     if (!(a instanceof FormData)) return a;
     const ref = next++;
-    for (const [k, v] of a.entries()) body.append(`${ref}_${k}`, v);
+    for (const [k, v] of a.entries()) body.append(`_${ref}_${k}`, v);
     return `$K${ref.toString(16)}`;
   });
   body.set("0", JSON.stringify(encoded));
