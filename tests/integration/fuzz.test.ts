@@ -51,8 +51,18 @@ async function sendAll<T extends { note: string }>(items: T[], send: (item: T) =
     while (next < items.length) {
       const i = next++;
       const started = performance.now();
-      const res = await send(items[i]);
-      const text = await res.text();
+      let res: Response;
+      let text: string;
+      try {
+        // One retry when the connection was closed under the request: the test's HTTP client reuses idle
+        // keep-alive connections, and one the server has just timed out is closed before it reads anything.
+        res = await send(items[i]).catch(() => send(items[i]));
+        text = await res.text();
+      } catch (e) {
+        // No answer at all (the connection was closed on us) is a finding like a 500, reported with its body.
+        out[i] = { status: 0, ms: performance.now() - started, body: `no answer: ${(e as Error).cause ?? e}`, note: items[i].note };
+        continue;
+      }
       const ms = performance.now() - started;
       let body: any = text;
       try {
@@ -85,6 +95,7 @@ function namesItsFields(body: any): boolean {
 function judge(route: string, outcomes: Outcome[]) {
   const bad = (why: string, o: Outcome) => `${why}: ${o.status} in ${Math.round(o.ms)} ms — ${o.note} → ${JSON.stringify(o.body)?.slice(0, 300)}`;
   const problems = [
+    ...outcomes.filter((o) => o.status === 0).map((o) => bad("no answer", o)),
     ...outcomes.filter((o) => o.status >= 500).map((o) => bad("server error", o)),
     ...outcomes.filter((o) => o.ms > PER_REQUEST_MS).map((o) => bad(`slower than ${PER_REQUEST_MS} ms`, o)),
     ...outcomes.filter((o) => o.status === 400 && !namesItsFields(o.body)).map((o) => bad("a 400 that names no field", o)),
