@@ -103,7 +103,8 @@ function judge(route: string, outcomes: Outcome[]) {
   const byStatus: Record<number, number> = {};
   for (const o of outcomes) byStatus[o.status] = (byStatus[o.status] ?? 0) + 1;
   console.log(`[fuzz] ${route}: ${outcomes.length} bodies, answers ${JSON.stringify(byStatus)}, slowest ${Math.round(Math.max(...outcomes.map((o) => o.ms)))} ms`);
-  expect(problems.length, `${route}: ${problems.length} bad answers (seed ${SEED}); first ones:\n${problems.slice(0, 8).join("\n")}`).toBe(0);
+  // Soft, so the "nothing stored" count after it is checked even when some answers were bad.
+  expect.soft(problems.length, `${route}: ${problems.length} bad answers (seed ${SEED}); first ones:\n${problems.slice(0, 8).join("\n")}`).toBe(0);
   return outcomes.filter((o) => o.status >= 200 && o.status < 300).length;
 }
 
