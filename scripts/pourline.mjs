@@ -237,7 +237,7 @@ async function startMode() {
   if (!process.env.DATABASE_URL) ensureDatabase(bin, port, "pourline");
   const env = { ...process.env, DATABASE_URL: databaseUrl, NEXT_TELEMETRY_DISABLED: "1" };
   tsx("db/migrate.ts", env, "database migration");
-  tsx("db/seed.ts", env, "demo seed");
+  tsx("scripts/seed.ts", env, "demo seed");
   if (mode === "dev") {
     const dev = spawnChild(join(root, "node_modules", ".bin", "next"), ["dev", "-p", String(appPort)], env);
     await new Promise((res) => dev.on("exit", res));
@@ -280,7 +280,7 @@ async function testMode() {
     POURLINE_RATE_LIMIT_SCALE: "1",
   };
   tsx("db/migrate.ts", env, "database migration");
-  tsx("db/seed.ts", env, "demo seed");
+  tsx("scripts/seed.ts", env, "demo seed");
   buildApp(env);
   const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
   Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });

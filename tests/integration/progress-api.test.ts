@@ -112,6 +112,10 @@ describe("re-forecast", () => {
     const bad = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: day(-3), seed: "r", iterations: 20 } });
     expect(bad.status).toBe(400);
     expect(bad.body.fields[0].path).toBe("dataDate");
+    // A data date after today is refused in words: nothing can have been recorded for it yet.
+    const future = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: isoDaysFromToday(2), seed: "r", iterations: 20 } });
+    expect(future.status).toBe(400);
+    expect(future.body.fields[0]).toMatchObject({ path: "dataDate", message: expect.stringMatching(/must not be in the future/) });
     const re = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: day(2), seed: "r", iterations: 20 } });
     expect(re.status).toBe(201);
     expect(re.body.reforecast.operations[0]).toMatchObject({ id: "milling", donePackets: 10 });

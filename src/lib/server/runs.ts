@@ -3,7 +3,7 @@ import type { z } from "zod";
 import { compileScenario, runIterations, summarizeRun, type RunSummary } from "@sim/index";
 import { saveRun } from "@db/queries/runs";
 import type { ScenarioDetail } from "@db/queries/scenarios";
-import { headlineOf, inputsHash } from "@/lib/run-record";
+import { headlineOf, storedRun } from "@/lib/run-record";
 import { MAX_SERVER_ITERATIONS, type runWriteSchema } from "@/lib/schemas";
 import { AppError, badRequest } from "./errors";
 import { validateDefinition } from "./scenario-input";
@@ -44,16 +44,7 @@ export async function recordRun({ scenario, body, userId }: { scenario: Scenario
     }
     summary = summarizeRun(compiled, runIterations(compiled, body.seed, 0, body.iterations));
   }
-  const row = await saveRun({
-    scenarioId: scenario.id,
-    scenarioVersion: scenario.version,
-    inputsHash: inputsHash(scenario.definition, body.seed, body.iterations),
-    seed: body.seed,
-    iterations: body.iterations,
-    summary: headlineOf(summary),
-    results: summary as unknown as Record<string, unknown>,
-    durationMs: body.durationMs ?? Date.now() - started,
-    userId,
-  });
+  const columns = storedRun({ definition: scenario.definition, seed: body.seed, iterations: body.iterations, summary, durationMs: body.durationMs ?? Date.now() - started });
+  const row = await saveRun({ scenarioId: scenario.id, scenarioVersion: scenario.version, ...columns, userId });
   return { id: row.id, createdAt: row.createdAt, scenarioVersion: scenario.version, headline: headlineOf(summary) };
 }
