@@ -7,6 +7,7 @@ import { headlineOf, storedRun } from "@/lib/run-record";
 import { MAX_SERVER_ITERATIONS, type runWriteSchema } from "@/lib/schemas";
 import { AppError, badRequest } from "./errors";
 import { validateDefinition } from "./scenario-input";
+import { weatherFeasibility } from "@sim/feasibility";
 
 type RunBody = z.output<typeof runWriteSchema>;
 
@@ -22,7 +23,10 @@ function checkClientSummary(compiled: ReturnType<typeof compileScenario>, body: 
   if (typeof k !== "number" || k < 0 || k >= body.iterations) throw badRequest([{ path: "summary.representative.iteration", message: "is missing or out of range" }]);
   const one = runIterations(compiled, body.seed, k, k + 1);
   const expected = one.finish[0];
-  if (Math.abs(expected - summary.representative.finishHours) > 1e-6) {
+  // An unfinished iteration's finish is Infinity, which JSON carries as null.
+  const sent = summary.representative.finishHours ?? Infinity;
+  const same = expected === Infinity ? sent === Infinity : Math.abs(expected - sent) <= 1e-6;
+  if (!same) {
     throw badRequest([{ path: "summary", message: "does not match the engine's result for this scenario and seed; run it again" }], "The run does not match this scenario version.");
   }
 }
@@ -32,6 +36,8 @@ export async function recordRun({ scenario, body, userId }: { scenario: Scenario
     throw new AppError("conflict", `The scenario was saved again (version ${scenario.version}) while this ran on version ${body.scenarioVersion}. Run it again.`);
   }
   const parsed = validateDefinition(scenario.definition);
+  const never = weatherFeasibility(parsed);
+  if (never.length) throw badRequest(never, "This plan can never finish; nothing was run.");
   const compiled = compileScenario(parsed);
   const started = Date.now();
   let summary: RunSummary;
