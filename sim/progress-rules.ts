@@ -1,7 +1,7 @@
 /**
  * The field-log rules that need the plan and the other entries, next to the as-built rules they feed
- * (`asbuilt.ts`): stations on the deck, not in the future, not before the plan starts, not ahead of a
- * predecessor (`checkProgressEntry`), and edits or deletes that would leave later work ahead of its
+ * (`asbuilt.ts`): stations on the deck, not in the future, not before the plan starts, a stretch recorded once
+ * per operation, not ahead of a predecessor (`checkProgressEntry`), and edits or deletes that would leave later work ahead of its
  * predecessor (`checkDependents`). Every problem names its field path (`fromStationFt`,
  * `discovered[0].toStationFt`) and says in words which field is wrong. "Today" is passed in (the server uses
  * its clock in the scenario's time zone; tests and the demo seed inject a date). Pure: used by the app's
@@ -105,6 +105,15 @@ export function checkProgressEntry(args: { scenario: Scenario; entry: ProgressEn
       out.push({ path: `discovered[${i}].toStationFt`, message: `Condition to station must be inside this shift's range (${sta(e.fromStationFt)} to ${sta(e.toStationFt)})` });
   });
   if (out.length === 0 && op) {
+    // A stretch is built once: a second record of it would count the same work twice in the as-built deck.
+    const twice = args.others.find((o) => o.id !== args.id && o.operationId === e.operationId && Math.min(o.toStationFt, e.toStationFt) - Math.max(o.fromStationFt, e.fromStationFt) > 1e-6);
+    if (twice) {
+      out.push({
+        path: "fromStationFt",
+        message: `${op.name} is already recorded over ${sta(twice.fromStationFt)}–${sta(twice.toStationFt)} (${twice.workDate}, ${twice.shift} shift): record only the stretch not yet done, or edit that entry`,
+      });
+      return out;
+    }
     const p = aheadProblem(s, { ...e, id: args.id }, args.others);
     if (p) out.push(p);
   }
@@ -125,4 +134,13 @@ export function checkDependents(s: Scenario, before: ReadonlyArray<RuleEntry>, a
     if (now) out.push({ path: "(entry)", message: `This change would leave the ${name(e.operationId)} entry of ${e.workDate} (${e.shift}, ${sta(e.fromStationFt)}–${sta(e.toStationFt)}) ahead of its predecessor` });
   }
   return out;
+}
+
+/** A station typed as feet ("1250", "1,250.5") or in station notation ("12+50", "STA 12+50.5"); null otherwise. */
+export function parseStation(raw: string): number | null {
+  const s = raw.trim().replace(/^sta\.?\s*/i, "");
+  const m = /^(-?\d+)\+(\d{1,2}(?:\.\d+)?)$/.exec(s);
+  if (m) return (m[1].startsWith("-") ? -1 : 1) * (Math.abs(Number(m[1])) * 100 + Number(m[2]));
+  if (/^-?(\d{1,3}(,\d{3})+|\d+)(\.\d+)?$/.test(s)) return Number(s.replace(/,/g, ""));
+  return null;
 }

@@ -4,7 +4,8 @@
  * `sim/progress-rules.ts` and are re-exported here, so forms and handlers import one module.
  */
 import { z } from "zod";
-export { checkDependents, checkProgressEntry, crewPredecessors, sta, type RuleEntry } from "@sim/progress-rules";
+import { parseStation } from "@sim/progress-rules";
+export { checkDependents, checkProgressEntry, crewPredecessors, parseStation, sta, type RuleEntry } from "@sim/progress-rules";
 
 export const DISCOVERED_KINDS = ["bottom-mat", "full-depth"] as const;
 export const DISCOVERED_LABELS: Record<(typeof DISCOVERED_KINDS)[number], string> = {
@@ -15,12 +16,22 @@ export const DISCOVERED_LABELS: Record<(typeof DISCOVERED_KINDS)[number], string
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Work date must be a date (YYYY-MM-DD)");
 // zod 4 numbers refuse NaN and ±Infinity, so an empty number input (NaN) gets this message.
 const num = (label: string) => z.number({ error: `${label} must be a number` });
+/** A station as a number of feet, or typed as feet or 12+50; anything else ("12a0") is refused, never trimmed. */
+const station = (label: string) =>
+  z.union([z.number({ error: `${label} must be in feet (1250) or a station (12+50)` }), z.string()]).transform((v, ctx) => {
+    const n = typeof v === "number" ? v : parseStation(v);
+    if (n === null || !Number.isFinite(n)) {
+      ctx.addIssue({ code: "custom", message: `${label} must be in feet (1250) or a station (12+50)${typeof v === "string" && v.trim() ? `; “${v.trim()}” is neither` : ""}` });
+      return z.NEVER;
+    }
+    return n;
+  });
 
 export const discoveredItemSchema = z
   .object({
     kind: z.enum(DISCOVERED_KINDS, { error: "Condition must be bottom-mat exposure or full-depth repair" }),
-    fromStationFt: num("Condition from station"),
-    toStationFt: num("Condition to station"),
+    fromStationFt: station("Condition from station"),
+    toStationFt: station("Condition to station"),
     areaSqFt: num("Condition area").gt(0, "Condition area must be more than 0 ft²").max(100_000, "Condition area must be at most 100,000 ft²"),
   })
   .superRefine((d, ctx) => {
@@ -32,8 +43,8 @@ const entryObject = z.object({
     workDate: isoDate,
     shift: z.string().min(1, "Shift must be chosen").max(40),
     operationId: z.string().min(1, "Operation must be chosen").max(40),
-    fromStationFt: num("From station"),
-    toStationFt: num("To station"),
+    fromStationFt: station("From station"),
+    toStationFt: station("To station"),
     crew: z.string().trim().max(80, "Crew must be at most 80 characters").default(""),
     tempF: num("Temperature").min(-40, "Temperature must be at least −40 °F").max(130, "Temperature must be at most 130 °F").nullable().default(null),
     rain: z.boolean().default(false),

@@ -35,6 +35,13 @@ describe("progress entries", () => {
     expect(list.body.entries).toHaveLength(1);
     expect(list.body.entries[0]).toMatchObject({ operationId: "milling", fromStationFt: 0, toStationFt: 300, enteredByName: "Rosa Tenney" });
 
+    const again = await post(s.id, milling({ workDate: day(2), fromStationFt: "2+00", toStationFt: "4+00" }));
+    expect(again.status).toBe(400);
+    expect(again.body.fields).toEqual([{ path: "fromStationFt", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
+    const letters = await post(s.id, milling({ workDate: day(2), fromStationFt: "3a0", toStationFt: 400 }));
+    expect(letters.status).toBe(400);
+    expect(letters.body.fields[0]).toMatchObject({ path: "fromStationFt", message: expect.stringContaining("“3a0” is neither") });
+
     const outside = await post(s.id, milling({ fromStationFt: 900, toStationFt: 1100 }));
     expect(outside.status).toBe(400);
     expect(outside.body.fields).toEqual([{ path: "toStationFt", message: "To station must be inside the deck (STA 0+00 to STA 10+00)" }]);

@@ -79,3 +79,23 @@ describe("progress entry rules", () => {
     expect(todayIn("UTC", now)).toBe("2026-12-02");
   });
 });
+
+describe("stations as people type them", () => {
+  it("accepts feet or 12+50 and refuses letters instead of dropping them", () => {
+    expect(progressEntrySchema.parse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: "12+00", toStationFt: "STA 16+50.5" })).toMatchObject({ fromStationFt: 1200, toStationFt: 1650.5 });
+    expect(progressEntrySchema.parse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: "1,200", toStationFt: 1600 }).fromStationFt).toBe(1200);
+    const bad = progressEntrySchema.safeParse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: "12a0", toStationFt: 1600 });
+    expect(bad.success).toBe(false);
+    expect(bad.error!.issues[0]).toMatchObject({ path: ["fromStationFt"], message: "From station must be in feet (1250) or a station (12+50); “12a0” is neither" });
+  });
+});
+
+describe("a stretch is recorded once per operation", () => {
+  it("refuses setup over STA 15+00–16+00 again, names the earlier entry, and lets an edit of that entry through", () => {
+    const p = check({ fromStationFt: 1500, toStationFt: 1700 }, [setupDone]);
+    expect(p).toEqual([{ path: "fromStationFt", message: expect.stringMatching(/^Work-zone setup is already recorded over STA 12\+00–STA 20\+00 \(2027-04-06, night shift\)/) }]);
+    // Touching end to end is not an overlap; editing the entry itself is not a second record.
+    expect(check({ fromStationFt: 2000, toStationFt: 2300 }, [setupDone])).toEqual([]);
+    expect(checkProgressEntry({ scenario: plan, entry: entry({ fromStationFt: 1200, toStationFt: 2100 }), others: [setupDone], today: "2027-05-01", id: "a" })).toEqual([]);
+  });
+});
