@@ -137,3 +137,27 @@ describe("re-forecast", () => {
     expect(drift.body.runs.map((r: { dataDate: string }) => r.dataDate)).toEqual([day(2)]);
   });
 });
+
+describe("the seeded demo is a job under way", () => {
+  it("has a field log and drift history before today, and the inspector can log today's shift", async () => {
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: viewer });
+    const demo = list.body.scenarios.find((x: { name: string }) => x.name === "Kestrel Bay Causeway — two seasons");
+    const def = (await call(`/api/scenarios/${demo.id}`, { cookie: viewer })).body.scenario.definition;
+    const today = isoDaysFromToday(0, def.timeZone);
+    expect(def.startDate < today).toBe(true);
+    const entries = (await call(`/api/scenarios/${demo.id}/progress`, { cookie: viewer })).body.entries as { workDate: string; operationId: string; toStationFt: number }[];
+    expect(entries.length).toBeGreaterThan(0);
+    expect(entries.every((e) => e.workDate < today)).toBe(true);
+    const drift = await call(`/api/scenarios/${demo.id}/reforecast`, { cookie: viewer });
+    expect(drift.body.runs.length).toBeGreaterThan(0);
+    // Today's setup shift continues where the log stops.
+    const reached = Math.max(...entries.filter((e) => e.operationId === "setup").map((e) => e.toStationFt));
+    const end = def.deck.startStationFt + def.deck.lengthFt;
+    const next = { workDate: today, shift: "night", operationId: "setup", fromStationFt: reached, toStationFt: Math.min(end, reached + 100), crew: "Traffic control crew" };
+    if (reached < end) {
+      const logged = await post(demo.id, next);
+      expect(logged.status).toBe(201);
+      expect((await call(`/api/progress/${logged.body.id}`, { method: "DELETE", cookie: inspector })).status).toBe(200);
+    }
+  });
+});
