@@ -270,7 +270,7 @@ async function startMode() {
   const env = { ...process.env, DATABASE_URL: databaseUrl, NEXT_TELEMETRY_DISABLED: "1" };
   tsx("db/migrate.ts", env, "database migration");
   // The demo's accounts share a published password: seeded into the local demo database only, or on request.
-  if (ownDatabase || process.env.POURLINE_SEED_DEMO === "1") tsx("db/seed.ts", env, "demo seed");
+  if (ownDatabase || process.env.POURLINE_SEED_DEMO === "1") tsx("scripts/seed.ts", env, "demo seed");
   const host = process.env.HOST || "127.0.0.1";
   if (mode === "dev") {
     const dev = spawnChild(join(root, "node_modules", ".bin", "next"), ["dev", "-H", host, "-p", String(appPort)], env);
@@ -330,7 +330,7 @@ async function testMode() {
     POURLINE_DIST_DIR: ".next-test",
   };
   tsx("db/migrate.ts", env, "database migration");
-  tsx("db/seed.ts", env, "demo seed");
+  tsx("scripts/seed.ts", env, "demo seed");
   buildApp(env);
   const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
   Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });

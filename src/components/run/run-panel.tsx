@@ -15,7 +15,7 @@ function formatSeconds(s: number | null) {
 }
 
 /** Start a Monte Carlo run in the browser's workers, watch it, cancel it, and store the result with the scenario. */
-export function RunPanel({ scenarioId, version, definition, canRun }: { scenarioId: string; version: number; definition: unknown; canRun: boolean }) {
+export function RunPanel({ scenarioId, version, definition, canRun, blockers = [] }: { scenarioId: string; version: number; definition: unknown; canRun: boolean; blockers?: string[] }) {
   const router = useRouter();
   const qc = useQueryClient();
   const pool = useEnginePool();
@@ -69,11 +69,21 @@ export function RunPanel({ scenarioId, version, definition, canRun }: { scenario
             Cancel
           </button>
         ) : (
-          <button type="button" className="btn-primary" onClick={start} disabled={!seed.trim() || save.isPending} data-testid="start-run">
+          <button type="button" className="btn-primary" onClick={start} disabled={!seed.trim() || save.isPending || blockers.length > 0} data-testid="start-run">
             Run {iterations.toLocaleString("en-US")} iterations
           </button>
         )}
       </div>
+      {blockers.length > 0 && (
+        <div role="alert" className="mt-4 rounded-md border border-bad/40 bg-bad-bg px-3 py-2 text-sm" data-testid="run-blockers">
+          <p className="font-medium text-bad">This plan can never finish, so a run would only wait for the six-year horizon:</p>
+          <ul className="mt-1 list-disc pl-5">
+            {blockers.map((b) => (
+              <li key={b}>{b}</li>
+            ))}
+          </ul>
+        </div>
+      )}
       {(running || pool.state.phase === "done") && (
         <div className="mt-4">
           <div

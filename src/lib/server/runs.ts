@@ -3,10 +3,11 @@ import type { z } from "zod";
 import { compileScenario, runIterations, summarizeRun, type RunSummary } from "@sim/index";
 import { saveRun } from "@db/queries/runs";
 import type { ScenarioDetail } from "@db/queries/scenarios";
-import { headlineOf, inputsHash } from "@/lib/run-record";
+import { headlineOf, storedRun } from "@/lib/run-record";
 import { MAX_SERVER_ITERATIONS, type runWriteSchema } from "@/lib/schemas";
 import { AppError, badRequest } from "./errors";
 import { validateDefinition } from "./scenario-input";
+import { weatherFeasibility } from "@sim/feasibility";
 
 type RunBody = z.output<typeof runWriteSchema>;
 
@@ -22,7 +23,10 @@ function checkClientSummary(compiled: ReturnType<typeof compileScenario>, body: 
   if (typeof k !== "number" || k < 0 || k >= body.iterations) throw badRequest([{ path: "summary.representative.iteration", message: "is missing or out of range" }]);
   const one = runIterations(compiled, body.seed, k, k + 1);
   const expected = one.finish[0];
-  if (Math.abs(expected - summary.representative.finishHours) > 1e-6) {
+  // An unfinished iteration's finish is Infinity, which JSON carries as null.
+  const sent = summary.representative.finishHours ?? Infinity;
+  const same = expected === Infinity ? sent === Infinity : Math.abs(expected - sent) <= 1e-6;
+  if (!same) {
     throw badRequest([{ path: "summary", message: "does not match the engine's result for this scenario and seed; run it again" }], "The run does not match this scenario version.");
   }
 }
@@ -32,6 +36,8 @@ export async function recordRun({ scenario, body, userId }: { scenario: Scenario
     throw new AppError("conflict", `The scenario was saved again (version ${scenario.version}) while this ran on version ${body.scenarioVersion}. Run it again.`);
   }
   const parsed = validateDefinition(scenario.definition);
+  const never = weatherFeasibility(parsed);
+  if (never.length) throw badRequest(never, "This plan can never finish; nothing was run.");
   const compiled = compileScenario(parsed);
   const started = Date.now();
   let summary: RunSummary;
@@ -44,16 +50,7 @@ export async function recordRun({ scenario, body, userId }: { scenario: Scenario
     }
     summary = summarizeRun(compiled, runIterations(compiled, body.seed, 0, body.iterations));
   }
-  const row = await saveRun({
-    scenarioId: scenario.id,
-    scenarioVersion: scenario.version,
-    inputsHash: inputsHash(scenario.definition, body.seed, body.iterations),
-    seed: body.seed,
-    iterations: body.iterations,
-    summary: headlineOf(summary),
-    results: summary as unknown as Record<string, unknown>,
-    durationMs: body.durationMs ?? Date.now() - started,
-    userId,
-  });
+  const columns = storedRun({ definition: scenario.definition, seed: body.seed, iterations: body.iterations, summary, durationMs: body.durationMs ?? Date.now() - started });
+  const row = await saveRun({ scenarioId: scenario.id, scenarioVersion: scenario.version, ...columns, userId });
   return { id: row.id, createdAt: row.createdAt, scenarioVersion: scenario.version, headline: headlineOf(summary) };
 }

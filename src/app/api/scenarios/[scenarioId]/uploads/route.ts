@@ -12,7 +12,13 @@ import { fitClimateProfile } from "@sim/weather-fit";
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
 const uploadFields = z.discriminatedUnion("kind", [
-  z.object({ kind: z.literal("weather"), temperature: z.enum(["F", "C"]), precipitation: z.enum(["in", "mm"]), wind: z.enum(["mph", "kmh"]).default("mph") }),
+  z.object({
+    kind: z.literal("weather"),
+    // "auto": the unit the column's header states, else guessed from the values (the answer says which).
+    temperature: z.enum(["auto", "F", "C"], { error: "Temperature unit must be °F, °C or read from the file" }).default("auto"),
+    precipitation: z.enum(["auto", "in", "mm"], { error: "Precipitation unit must be inches, millimetres or read from the file" }).default("auto"),
+    wind: z.enum(["auto", "mph", "kmh", "ms"], { error: "Wind unit must be mph, km/h, m/s or read from the file" }).default("auto"),
+  }),
   z.object({ kind: z.literal("survey") }),
 ]);
 
@@ -24,12 +30,15 @@ export const GET = handler(async (_req: Request, ctx: Ctx) => {
   return NextResponse.json({ uploads: await listUploads({ scenarioId }) });
 });
 
-function rowErrors(problems: RowProblem[]) {
+function rowErrors(problems: RowProblem[], read?: { columns: { header: string; readAs: string; unit: string | null }[]; ignored: string[] }) {
   const shown = problems.slice(0, 200);
+  // A unit question (row 1, "… unit") is about the whole file, not a row.
+  const where = (p: RowProblem) => (p.field.endsWith(" unit") ? p.field : `row ${p.row}${p.field.startsWith("(") ? "" : ` · ${p.field}`}`);
+  const howRead = read?.columns.length ? ` Read as: ${read.columns.map((c) => `“${c.header}” = ${c.readAs}${c.unit ? ` in ${c.unit}` : ""}`).join("; ")}.` : "";
   return new AppError(
     "bad_request",
-    `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix the rows and upload again.`,
-    shown.map((p) => ({ path: `row ${p.row}${p.field.startsWith("(") ? "" : ` · ${p.field}`}`, message: p.message })),
+    `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix them and upload again.${howRead}`,
+    shown.map((p) => ({ path: where(p), message: p.message })),
   );
 }
 
@@ -61,11 +70,11 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   let preview: Record<string, unknown>;
   let rowCount: number;
   if (fields.data.kind === "weather") {
-    const { observations, problems } = parseWeatherCsv(text, { temperature: fields.data.temperature, precipitation: fields.data.precipitation, wind: fields.data.wind });
-    if (problems.length) throw rowErrors(problems);
+    const { observations, problems, columns, ignored, skipped } = parseWeatherCsv(text, { temperature: fields.data.temperature, precipitation: fields.data.precipitation, wind: fields.data.wind });
+    if (problems.length) throw rowErrors(problems, { columns, ignored });
     const fit = fitClimateProfile(observations);
     rowCount = observations.length;
-    preview = { kind: "weather", fit, current: definition.weather, days: observations.length, from: observations[0]?.date, to: observations.at(-1)?.date };
+    preview = { kind: "weather", fit, current: definition.weather, days: observations.length, from: observations[0]?.date, to: observations.at(-1)?.date, columns, ignored, skipped };
   } else {
     const { ranges, problems } = parseSurveyCsv(text, definition.deck);
     if (problems.length) throw rowErrors(problems);
