@@ -7,6 +7,8 @@ const nextConfig: NextConfig = {
   // `npm test` builds into its own folder, so a test run never disturbs the app `npm start` serves.
   distDir: process.env.POURLINE_DIST_DIR ?? ".next",
   typedRoutes: false,
+  // forbidden(): a member whose role may not open a page gets 403 and the role-refusal page, not "not found".
+  experimental: { authInterrupts: true },
 };
 
 export default nextConfig;

@@ -18,6 +18,7 @@ import { ConflictDialog } from "./conflict-dialog";
 import { CrewsSection } from "./crews-section";
 import { n } from "./fields";
 import { sectionOf, toFormPath, toFormValues, type SectionId } from "./plan-logic";
+import { describeProblemPath, plainMessage } from "./problem-labels";
 import { SaveBar } from "./save-bar";
 import { SequenceSection } from "./sequence-section";
 import type { ScenarioRecord, ScenarioResponse } from "./types";
@@ -82,7 +83,8 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
   const showProblems = (source: "check" | "server", list: FieldProblem[]) => {
     setProblems({ source, list });
     clearErrors();
-    for (const p of list) setError(n(toFormPath(p.path)), { type: source, message: p.message });
+    const values = getValues();
+    for (const p of list) setError(n(toFormPath(p.path)), { type: source, message: plainMessage(p.message, values) });
     if (list[0]) jumpTo(list[0].path);
   };
 
@@ -175,16 +177,20 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
             {problems && problems.list.length > 0 && (
               <section className="card border-bad/40" role="alert" aria-labelledby="problems-heading" data-testid="plan-problems">
                 <h2 id="problems-heading" className="text-bad">
-                  {problems.source === "server" ? "The server refused the save" : "Fix these before saving"}
+                  {problems.source === "server" ? "Not saved: the server found these problems (select one to go to the field)" : "Fix these before saving (select one to go to the field)"}
                 </h2>
                 <ul className="mt-2 space-y-1 text-sm">
-                  {problems.list.map((p, i) => (
-                    <li key={`${p.path}-${i}`}>
-                      <button type="button" className="text-left hover:underline" onClick={() => jumpTo(p.path)}>
-                        <code className="font-semibold text-ink">{p.path.replace(/^definition\./, "")}</code> — {p.message}
-                      </button>
-                    </li>
-                  ))}
+                  {problems.list.map((p, i) => {
+                    // Named as people see it: section, row and label; the button takes them to the field.
+                    const where = describeProblemPath(p.path, getValues());
+                    return (
+                      <li key={`${p.path}-${i}`}>
+                        <button type="button" className="text-left hover:underline" onClick={() => jumpTo(p.path)} data-problem-path={toFormPath(p.path)}>
+                          <span className="text-muted">{where.sectionLabel}:</span> <span className="font-semibold text-ink">{where.field}</span> — {plainMessage(p.message, getValues())}
+                        </button>
+                      </li>
+                    );
+                  })}
                 </ul>
               </section>
             )}
