@@ -46,7 +46,8 @@ function ensureNodeModules() {
   const lock = join(root, "package-lock.json");
   if (existsSync(marker) && statSync(marker).mtimeMs >= statSync(lock).mtimeMs) return;
   say("installing npm dependencies (npm ci) …");
-  const r = run("npm", ["ci", "--no-audit", "--no-fund"], { allowFail: true, what: "npm ci" });
+  // --loglevel=error: npm's notices (install scripts it has not been told to allow, funding) are not for a newcomer.
+  const r = run("npm", ["ci", "--no-audit", "--no-fund", "--loglevel=error"], { allowFail: true, what: "npm ci" });
   if (r.status !== 0) fail("npm could not install the dependencies. Check the network to the npm registry and run `npm start` again.");
 }
 
@@ -189,18 +190,24 @@ function buildApp(env) {
     say("the app build is up to date.");
     return;
   }
-  say("building the app (next build) …");
-  run(join(root, "node_modules", ".bin", "next"), ["build"], { env, what: "next build" });
+  say("building the app (next build; a few minutes the first time) …");
+  // Quiet: the route table and bundler notes are for contributors; a failed build prints its last lines.
+  run(join(root, "node_modules", ".bin", "next"), ["build"], { env, what: "next build", quiet: true });
 }
 
-/** `logFile`: also append the child's output there (the tests read the app's log through it). */
-function spawnChild(cmd, args, env, logFile) {
-  const child = spawn(cmd, args, { cwd: root, env, stdio: logFile ? ["ignore", "pipe", "pipe"] : "inherit" });
-  if (logFile) {
+// Start-up chatter of the children that `npm start` already says better in its own lines.
+const CHATTER = [/^fake SMTP listening on \d+$/, /Running next\.config\.ts took/, /^\[pourline\] serving on /];
+
+/** `logFile`: also append the child's output there (the tests read the app's log through it). `quiet`: drop CHATTER. */
+function spawnChild(cmd, args, env, logFile, { quiet = false } = {}) {
+  const piped = Boolean(logFile) || quiet;
+  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : "inherit" });
+  if (piped) {
     for (const [from, to] of [[child.stdout, process.stdout], [child.stderr, process.stderr]]) {
       from.on("data", (chunk) => {
-        to.write(chunk);
-        appendFileSync(logFile, chunk);
+        const text = quiet ? String(chunk).split("\n").filter((l) => !CHATTER.some((re) => re.test(l.replace(/\x1b\[[0-9;]*m/g, "").trim()))).join("\n") : chunk;
+        if (String(text).trim()) to.write(text);
+        if (logFile) appendFileSync(logFile, chunk);
       });
     }
   }
@@ -238,14 +245,14 @@ async function startFakeSmtp(port, mailboxDir, env) {
   mkdirSync(mailboxDir, { recursive: true });
   // POURLINE_DEV_MAILBOX switches on the /dev/mailbox page: only here, for the local catcher this script runs.
   const mailEnv = { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(port), POURLINE_MAILBOX_DIR: mailboxDir, POURLINE_FAKE_SMTP: "1", POURLINE_DEV_MAILBOX: "1" };
-  spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, ...mailEnv });
+  spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, ...mailEnv }, null, { quiet: true });
   for (let i = 0; i < 100 && (await portFree(port)); i++) await new Promise((r) => setTimeout(r, 100));
   return mailEnv;
 }
 
 /** The app server: scripts/serve.mjs (next start plus the peer address), on loopback unless HOST says otherwise. */
 function serveApp(env, logFile) {
-  return spawnChild(process.execPath, [join(root, "scripts", "serve.mjs")], { HOST: "127.0.0.1", ...env, NODE_ENV: "production" }, logFile);
+  return spawnChild(process.execPath, [join(root, "scripts", "serve.mjs")], { HOST: "127.0.0.1", ...env, NODE_ENV: "production" }, logFile, { quiet: !logFile });
 }
 
 async function startMode() {

@@ -57,3 +57,10 @@ describe("describeProblemPath", () => {
     }
   });
 });
+
+describe("plainMessage on the schema's own wording", () => {
+  it("says a blank or unreadable number must be a number, and limits as ≤ / ≥", () => {
+    expect(plainMessage("Invalid input: expected number, received NaN", plan)).toBe("must be a number");
+    expect(plainMessage("Too big: expected number to be <=130", plan)).toBe("must be ≤ 130");
+  });
+});

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
 import type { ScenarioInput } from "@sim/schema";
 import { formatStation } from "@/lib/format";
-import { CheckboxField, CheckboxGroup, NumberField, SelectField, TextField, n } from "./fields";
+import { CheckboxField, CheckboxGroup, NumberField, SelectField, StationField, TextField, n } from "./fields";
 import { freshId } from "./plan-logic";
 
 const WEEKDAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"].map((label, value) => ({ value, label }));
@@ -249,11 +249,10 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
         {plan === "two" || cutoffDate || (typeof cutoffFt === "number" && Number.isFinite(cutoffFt)) ? (
           <div className="mt-4 grid gap-4 sm:grid-cols-3">
             <TextField name="calendar.season.cutoffDate" label="Cut-off date (optional)" type="date" optional />
-            <NumberField
+            <StationField
               name="calendar.season.cutoffStationFt"
-              label="Cut-off station (ft, optional)"
+              label="Cut-off station (ft or 12+50, optional)"
               optional
-              min={0}
               hint={typeof cutoffFt === "number" && Number.isFinite(cutoffFt) ? formatStation(cutoffFt) : "Packets from here on wait for season 2."}
             />
           </div>

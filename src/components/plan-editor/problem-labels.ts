@@ -221,6 +221,9 @@ export function describeProblemPath(problemPath: string, values: unknown): Probl
  */
 export function plainMessage(message: string, values: unknown): string {
   return message
+    .replace(/^Invalid input: expected number, received (NaN|undefined|string)$/, "must be a number")
+    .replace(/^Too big: expected number to be <=\s*(\S+)$/, "must be ≤ $1")
+    .replace(/^Too small: expected number to be >=\s*(\S+)$/, "must be ≥ $1")
     .replace(/\b([a-z][A-Za-z]*(?:\[\d+\]|\.[a-zA-Z]+)+(?:\[\d+\]|\.[a-zA-Z]+)*)/g, (m) => (/[.[]/.test(m) && !/^(e\.g|i\.e)$/.test(m) ? describeProblemPath(m, values).field : m))
     .replace(/\b([a-z]+[A-Z][A-Za-z]*)\b/g, (m) => (FIELD_WORDS[m] ? FIELD_WORDS[m] : m));
 }
