@@ -231,7 +231,8 @@ async function waitForHttp(url, ms) {
 function demoSignIns() {
   try {
     const users = JSON.parse(readFileSync(join(root, "db", "demo-users.json"), "utf8"));
-    return users.map((u) => `    ${u.role.padEnd(10)} ${u.email.padEnd(28)} password: ${u.password}`).join("\n");
+    const wide = Math.max(...users.map((u) => u.email.length));
+    return users.map((u) => `    ${u.role.padEnd(10)} ${u.email.padEnd(wide)}  password: ${u.password}`).join("\n");
   } catch {
     return "    (see db/demo-users.json)";
   }

@@ -20,7 +20,9 @@ export const scenarioUpdateSchema = scenarioWriteSchema.extend({
 
 export const variantSchema = z.object({ name: z.string().trim().min(1, "must not be empty").max(120) });
 
-export const memberSchema = z.object({ email: z.email("must be an e-mail address"), role: z.enum(ROLES) });
+export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
+/** An invitation names a person and a role like adding a member does; the same contract. */
+export const invitationSchema = memberSchema;
 
 export const shareLinkSchema = z.object({
   label: z.string().max(120).default(""),

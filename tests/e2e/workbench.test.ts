@@ -166,6 +166,13 @@ describe("workbench", () => {
     expect(shared.status).toBe(200);
 
     await page.getByRole("button", { name: /Revoke link Public information office/ }).click();
+    // One click only asks: the dialog names the link and says what revoking does; nothing is revoked yet.
+    const confirm = page.getByTestId("revoke-dialog");
+    await confirm.waitFor();
+    expect(await confirm.textContent()).toContain("Public information office");
+    expect((await call(`/api/shared/${token}`)).status).toBe(200);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await page.getByTestId("revoke-dialog-confirm").click();
     await expect.poll(async () => (await call(`/api/shared/${token}`)).status, { timeout: 10_000 }).toBe(404);
     const gone = await pub.goto(url);
     expect(gone?.status()).toBe(404);

@@ -31,10 +31,11 @@ async function waitForMail(to: string, subject: string, ms = 20_000) {
 }
 
 describe("closure notices", () => {
-  it("refuses to publish before the scenario has a current run", async () => {
+  it("refuses to publish (or preview a publication) before the scenario has a current run", async () => {
     const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatch(/Run the scenario/);
+    expect((await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer })).status).toBe(409);
   });
 
   it("a subscriber's e-mail is validated and a repeat add changes nothing", async () => {
@@ -48,6 +49,10 @@ describe("closure notices", () => {
 
   it("publishing notifies every subscriber with the first closures and a calendar feed that parses and can be revoked", async () => {
     expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: engineer, body: { seed: "notice", iterations: 20 } })).status).toBe(201);
+    // The confirmation first shows what will be sent; publishing sends exactly that, with the new calendar link.
+    const preview = await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer });
+    expect(preview.status).toBe(200);
+    expect(preview.body.preview.to).toContain(subscriber);
     const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer });
     expect(res.status).toBe(201);
     expect(res.body.closureCount).toBeGreaterThan(0);
@@ -55,6 +60,9 @@ describe("closure notices", () => {
 
     const mail = await waitForMail(subscriber, "Lane closures planned");
     expect(mail.text).toContain("closed)");
+    expect(mail.subject).toBe(preview.body.preview.subject);
+    expect(preview.body.preview.closureCount).toBe(res.body.closureCount);
+    expect(mail.text).toBe(preview.body.preview.text.replace("(a new calendar link, created when you publish)", res.body.feedUrl));
     const feedPath = new URL(res.body.feedUrl).pathname;
     expect(mail.text).toContain(feedPath);
 

@@ -43,4 +43,8 @@ describe("layoutGraph", () => {
     const pos = layoutGraph(["a"], [{ from: "a", to: "ghost" }]);
     expect(Object.keys(pos)).toEqual(["a"]);
   });
+  it("lays out a stored loop too (the editor refuses new loops, but must still open such a plan)", () => {
+    const pos = layoutGraph(["a", "b"], [{ from: "a", to: "b" }, { from: "b", to: "a" }]);
+    expect(overlap(pos.a, pos.b)).toBe(false);
+  });
 });

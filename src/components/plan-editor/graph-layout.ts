@@ -11,13 +11,13 @@ export interface GraphLink {
   to: string;
 }
 
-export const NODE_WIDTH = 190;
+export const NODE_WIDTH = 160;
 export const NODE_HEIGHT = 56;
 
 export function layoutGraph(ids: readonly string[], links: readonly GraphLink[], size = { width: NODE_WIDTH, height: NODE_HEIGHT }): Record<string, { x: number; y: number }> {
   const g = new dagre.graphlib.Graph({ multigraph: false });
   // ranksep leaves room for the lag label each link carries; nodesep keeps parallel crews apart.
-  g.setGraph({ rankdir: "LR", nodesep: 36, ranksep: 90, marginx: 10, marginy: 10 });
+  g.setGraph({ rankdir: "LR", nodesep: 36, ranksep: 80, marginx: 10, marginy: 10 });
   g.setDefaultEdgeLabel(() => ({}));
   const known = new Set(ids);
   for (const id of ids) g.setNode(id, { width: size.width, height: size.height });

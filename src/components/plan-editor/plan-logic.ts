@@ -1,7 +1,7 @@
 /**
  * Pure helpers of the plan editor (no React, no DOM), unit-tested in tests/unit/plan-editor-logic.test.ts.
- * Contract: `proposeLink` refuses self-links, duplicates and links that would close a loop, naming the loop;
- * `layoutByDepth` places operations left to right by longest-path depth; `diffDefinitions` lists every leaf
+ * Contract: `proposeLink` refuses self-links, duplicates and links that would close a loop, naming the loop
+ * (the graph's layout is graph-layout.ts); `diffDefinitions` lists every leaf
  * that differs between two definitions with a schema-style path; `toFormPath` and `sectionOf` map problem paths
  * (from `parseScenario` or the server) to react-hook-form names and to the editor section that shows them.
  */
@@ -49,59 +49,6 @@ export function proposeLink(
   const back = findPath(links, to, from);
   if (back) return { ok: false, message: `Refused: ${[from, ...back].map(label).join(" → ")} would loop.` };
   return { ok: true };
-}
-
-/** Longest-path depth of each operation; operations caught in a (stored, invalid) loop keep depth 0. */
-export function depths(ids: readonly string[], links: readonly LinkLike[]): Map<string, number> {
-  const depth = new Map(ids.map((id) => [id, 0]));
-  // Bellman-style relaxation capped at n rounds, so a loop in stored data cannot hang the page.
-  for (let round = 0; round < ids.length; round++) {
-    let changed = false;
-    for (const l of links) {
-      const a = depth.get(l.from);
-      const b = depth.get(l.to);
-      if (a === undefined || b === undefined) continue;
-      if (a + 1 > b && a + 1 < ids.length) {
-        depth.set(l.to, a + 1);
-        changed = true;
-      }
-    }
-    if (!changed) break;
-  }
-  return depth;
-}
-
-/**
- * Left to right by depth; with `wrapAfter`, a long chain folds into bands of that many columns, so the
- * seven-operation chain stays readable in a narrow canvas instead of shrinking to fit one row.
- */
-export function layoutByDepth(
-  ids: readonly string[],
-  links: readonly LinkLike[],
-  dx = 240,
-  dy = 110,
-  wrapAfter = Infinity,
-): Record<string, { x: number; y: number }> {
-  const d = depths(ids, links);
-  const row = new Map<number, number>();
-  const out: Record<string, { x: number; y: number }> = {};
-  let tallest = 1;
-  for (const id of ids) {
-    const col = d.get(id) ?? 0;
-    const r = row.get(col) ?? 0;
-    row.set(col, r + 1);
-    tallest = Math.max(tallest, r + 1);
-  }
-  row.clear();
-  for (const id of ids) {
-    const col = d.get(id) ?? 0;
-    const r = row.get(col) ?? 0;
-    row.set(col, r + 1);
-    const band = Number.isFinite(wrapAfter) ? Math.floor(col / wrapAfter) : 0;
-    const x = Number.isFinite(wrapAfter) ? col % wrapAfter : col;
-    out[id] = { x: x * dx, y: (band * (tallest + 0.6) + r) * dy };
-  }
-  return out;
 }
 
 export interface Difference {

@@ -4,7 +4,7 @@
  * people know it by the section it sits in, the row it belongs to (the operation's name) and the field's label.
  * A path this table does not know still reads as words (camelCase split), never as a path.
  */
-import { format } from "date-fns";
+import { monthName } from "@/lib/format";
 import { sectionOf, toFormPath, type SectionId } from "./plan-logic";
 
 export const SECTION_LABELS: Record<SectionId, string> = {
@@ -159,7 +159,7 @@ function rowLabel(values: unknown, list: string[], index: number): string {
       return l ? `link ${nameOf(l.from)} → ${nameOf(l.to)}` : `link ${index + 1}`;
     }
     case "weather.monthly":
-      return index >= 0 && index < 12 ? format(new Date(2001, index, 1), "MMMM") : `month ${index + 1}`;
+      return index >= 0 && index < 12 ? monthName(index + 1, true) : `month ${index + 1}`;
     case "traffic.directions":
       return named("direction");
     case "traffic.closures": {

@@ -181,7 +181,8 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
         </div>
       </section>
 
-      <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      {/* The graph takes the full width (a seven-operation chain reads at a useful zoom); the panels sit below. */}
+      <div className="space-y-5">
         <section className="card p-0" aria-labelledby="graph-heading">
           <div className="px-5 pt-4">
             <h2 id="graph-heading">Sequence</h2>
@@ -221,7 +222,7 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
           </div>
         </section>
 
-        <div className="space-y-5">
+        <div className="grid items-start gap-5 lg:grid-cols-2">
           <section className="card" aria-labelledby="ops-panel-heading">
             <h3 id="ops-panel-heading">Operations</h3>
             <ul className="mt-2 space-y-3">

@@ -99,8 +99,9 @@ export function TimeDistanceChart({
                 key={i}
                 x1={b.x1}
                 x2={b.x2}
-                fill={b.kind === "winter" ? "var(--color-brand-100)" : "var(--color-s4)"}
-                fillOpacity={b.kind === "winter" ? 0.7 : 0.35}
+                // Holidays in neutral grey: a coloured band would hide the operation line of the same hue.
+                fill={b.kind === "winter" ? "var(--color-brand-100)" : "var(--color-muted)"}
+                fillOpacity={b.kind === "winter" ? 0.7 : 0.16}
                 stroke="none"
                 ifOverflow="hidden"
                 label={b.kind === "winter" && b.x2 - b.x1 > (hi - lo) / 12 ? { value: "Winter", position: "insideTop", fill: "var(--color-brand-800)", fontSize: 12 } : undefined}
@@ -155,7 +156,7 @@ export function TimeDistanceChart({
                   type="linear"
                   stroke={st.stroke}
                   strokeDasharray={st.strokeDasharray || undefined}
-                  strokeWidth={2}
+                  strokeWidth={2.5}
                   dot={false}
                   activeDot={false}
                   connectNulls={false}
@@ -185,7 +186,7 @@ export function TimeDistanceChart({
             Winter stand-down
           </li>
           <li className="flex items-center gap-1.5">
-            <AreaSwatch className="bg-s4/40" />
+            <AreaSwatch className="bg-muted/20" />
             Holiday stand-down
           </li>
         </ul>

@@ -5,7 +5,7 @@
  */
 import { parseScenario } from "@sim/validate";
 import type { Distribution, Scenario } from "@sim/schema";
-import { formatIsoDate, formatStation } from "@/lib/format";
+import { formatIsoDate, formatStation, monthName } from "@/lib/format";
 
 const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
 const n = (v: number) => v.toLocaleString("en-US", { maximumFractionDigits: 2 });
@@ -23,7 +23,7 @@ function dist(d: Distribution, unit: string): string {
   }
 }
 
-const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+const MONTHS = Array.from({ length: 12 }, (_, i) => monthName(i + 1));
 /** "11-15" → "15 Nov". */
 const monthDay = (md: string) => `${Number(md.slice(3, 5))} ${MONTHS[Number(md.slice(0, 2)) - 1] ?? md}`;
 
