@@ -1,7 +1,7 @@
 // The plain-language sentence of a run: target clause, unfinished iterations, convergence verdict.
 import { describe, expect, it } from "vitest";
 import type { RunSummary } from "@sim/summary";
-import { p80Meaning, plainSummary, quantileText, STABLE_DAYS, winterCarryover } from "@/components/results/summary-text";
+import { BRIEF_MIN_ITERATIONS, iterationsStatement, p80Meaning, plainSummary, quantileText, STABLE_DAYS, winterCarryover } from "@/components/results/summary-text";
 import type { Scenario } from "@sim/schema";
 
 function summary(over: Partial<RunSummary> = {}): RunSummary {
@@ -77,5 +77,20 @@ describe("plain words for an executive", () => {
     expect(winterCarryover(s, plan)).toBe("In 28 % of the iterations the work is not finished by the winter stand-down (15 Nov 2027) and carries over to the next season.");
     const two = { ...plan, calendar: { season: { ...plan.calendar.season, plan: "two" } } } as unknown as Scenario;
     expect(winterCarryover(s, two)).toBeNull();
+  });
+});
+
+describe("iterationsStatement (the owner brief)", () => {
+  it("always states the iteration count, and warns only when too few or not stable", () => {
+    const ok = iterationsStatement(summary({ iterations: 5000, convergenceDays: 0.5 }));
+    expect(ok.text).toBe("This forecast rests on 5,000 simulated outcomes (iterations).");
+    expect(ok.warning).toBeNull();
+    const few = iterationsStatement(summary({ iterations: BRIEF_MIN_ITERATIONS - 500, convergenceDays: 0.5 }));
+    expect(few.text).toContain("500 simulated outcomes");
+    expect(few.warning).toContain("500 iterations are fewer than the 1,000 a brief should rest on");
+    const unsteady = iterationsStatement(summary({ iterations: 500, convergenceDays: STABLE_DAYS + 3 }));
+    expect(unsteady.warning).toContain("fewer than the 1,000");
+    expect(unsteady.warning).toContain(`not yet stable (the P80 moved ${STABLE_DAYS + 3} days`);
+    expect(iterationsStatement(summary({ iterations: 5000, convergenceDays: null })).warning).toContain("could not be measured");
   });
 });

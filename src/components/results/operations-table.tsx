@@ -12,7 +12,7 @@ const col = createColumnHelper<Row>();
 
 const dateCell = (v: string) => (v === "unfinished" ? <span className="text-warn">not reached</span> : quantileText(v));
 
-export function OperationsTable({ operations }: { operations: RunSummary["operations"] }) {
+export function OperationsTable({ operations, sortable = true }: { operations: RunSummary["operations"]; sortable?: boolean }) {
   const data = useMemo(() => operations.map((o, i) => ({ ...o, order: i })), [operations]);
   const [sorting, setSorting] = useState<SortingState>([]);
   const columns = useMemo(
@@ -37,8 +37,8 @@ export function OperationsTable({ operations }: { operations: RunSummary["operat
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse" data-testid="operations-table">
-        <caption className="sr-only">Finish percentiles per operation; the column headers sort the table.</caption>
-        <SortableHead table={table} />
+        <caption className="sr-only">Finish percentiles per operation{sortable ? "; the column headers sort the table" : ""}.</caption>
+        <SortableHead table={table} sortable={sortable} />
         <TableRows table={table} />
       </table>
     </div>

@@ -3,6 +3,8 @@
  * The results of one run, as the Outlook page and the public shared page show them: the plain-language
  * summary, figures, the confidence curve and histogram, the time–distance chart of the representative
  * iteration and the per-operation table. Reads only its props (no fetching), so it renders anywhere.
+ * `document`: the owner brief's layout — one column (charts as wide as the page), and nothing to click (no
+ * sorting, no trade-off button), because it is printed.
  */
 import { useMemo } from "react";
 import { parseScenario } from "@sim/validate";
@@ -35,7 +37,7 @@ function Section({ title, id, children, description }: { title: string; id: stri
   );
 }
 
-export function ResultsView({ summary, definition, run }: { summary: RunSummary; definition: unknown; run: ResultsRun }) {
+export function ResultsView({ summary, definition, run, document = false }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean }) {
   const plan = useMemo(() => {
     const r = parseScenario(definition);
     return r.ok ? r.scenario : null;
@@ -88,7 +90,7 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
 
       <StatCards summary={summary} />
 
-      <div className="grid gap-5 lg:grid-cols-2">
+      <div className={document ? "grid gap-5" : "grid gap-5 lg:grid-cols-2"}>
         <Section title="Confidence curve" id={`${idp}-curve`} description="Share of iterations finished by each date; dots mark P50, P80 and P90.">
           <ConfidencePanel summary={summary} />
         </Section>
@@ -119,14 +121,14 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
         <DelayPanel summary={summary} />
       </Section>
 
-      {plan && (
+      {plan && !document && (
         <Section title="Holiday trade-off" id={`${idp}-tradeoff`} description="Days gained by working through federal holidays against the extra delay to drivers, on the same seeds.">
           <TradeoffPanel definition={definition} seed={run.seed} iterations={run.iterations} />
         </Section>
       )}
 
       <Section title="Finish by operation" id={`${idp}-ops`}>
-        <OperationsTable operations={summary.operations} />
+        <OperationsTable operations={summary.operations} sortable={!document} />
       </Section>
     </div>
   );
