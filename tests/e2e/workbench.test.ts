@@ -5,8 +5,10 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { APP_URL, call, demoEmail, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { APP_URL, call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn as signedInAs } from "./pages/sign-in";
+import { ScenarioPage } from "./pages/scenario";
 
 let browser: Browser;
 let projectId: string;
@@ -19,13 +21,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signedIn(role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: { width, height: 900 } });
-  const page = await context.newPage();
-  await signInPage(page, demoEmail(role));
-  await page.waitForURL(`${APP_URL}/projects`);
-  return { context, page };
-}
+const signedIn = (role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> => signedInAs(browser, role, width);
 
 /** A fresh copy of the main demo scenario, so each test edits its own. */
 async function freshVariant(name: string): Promise<string> {
@@ -38,8 +34,9 @@ async function freshVariant(name: string): Promise<string> {
 }
 
 async function editPlacementMode(page: Page, value: string) {
-  await page.getByTestId("section-crews").click();
-  const mode = page.locator('[id="operations.4.rate.dist.mode"]');
+  const plan = new ScenarioPage(page, "");
+  await plan.openPlanSection("crews");
+  const mode = plan.field("operations.4.rate.dist.mode");
   await mode.waitFor();
   await mode.fill(value);
 }
@@ -48,19 +45,20 @@ describe("workbench", () => {
   it("a scheduler edits a rate, saves, runs 2,000 iterations and sees the confidence curve and time–distance chart", async () => {
     const id = await freshVariant("E2E rate edit");
     const { context, page } = await signedIn("scheduler");
-    await page.goto(`${APP_URL}/scenarios/${id}/plan`);
+    const scenario = new ScenarioPage(page, id);
+    await scenario.open("plan");
     await page.getByTestId("section-sequence").waitFor();
     await screenshot(page, "plan-sequence");
     expect(await seriousA11yViolations(page)).toEqual([]);
     await editPlacementMode(page, "28");
     await screenshot(page, "plan-crews");
     expect(await seriousA11yViolations(page)).toEqual([]);
-    await page.getByTestId("save-scenario").click();
+    await scenario.save();
     await expect.poll(async () => (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.version, { timeout: 15_000 }).toBe(2);
     const saved = (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.definition;
     expect(saved.operations[4].rate.dist.mode).toBe(28);
 
-    await page.goto(`${APP_URL}/scenarios/${id}`);
+    await scenario.open("outlook");
     await page.getByTestId("no-run").waitFor();
     await page.getByLabel("Iterations").selectOption("2000");
     await page.getByTestId("start-run").click();
@@ -96,8 +94,8 @@ describe("workbench", () => {
     const id = await freshVariant("E2E conflict");
     const a = await signedIn("scheduler");
     const b = await signedIn("engineer");
-    await a.page.goto(`${APP_URL}/scenarios/${id}/plan`);
-    await b.page.goto(`${APP_URL}/scenarios/${id}/plan`);
+    await new ScenarioPage(a.page, id).open("plan");
+    await new ScenarioPage(b.page, id).open("plan");
     await editPlacementMode(a.page, "27");
     await editPlacementMode(b.page, "26");
     await a.page.getByTestId("save-scenario").click();
@@ -142,9 +140,10 @@ describe("workbench", () => {
     const { context, page } = await signedIn("scheduler");
     const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("scheduler") });
     const target = list.body.scenarios.find((s: { runId: string | null; name: string }) => s.runId && /single season/i.test(s.name)) ?? list.body.scenarios.find((s: { runId: string | null }) => s.runId);
-    await page.goto(`${APP_URL}/scenarios/${target.id}`);
+    const scenario = new ScenarioPage(page, target.id);
+    await scenario.open("outlook");
     const p80 = (await page.getByTestId("p80-date").first().textContent())!.trim();
-    await page.goto(`${APP_URL}/scenarios/${target.id}/share`);
+    await scenario.open("share");
     await page.getByLabel("Label (who it is for)").fill("Public information office");
     await page.getByTestId("create-share-link").click();
     const url = await page.getByTestId("share-link-url").inputValue();
@@ -184,7 +183,8 @@ describe("workbench", () => {
     const { context, page } = await signedIn("engineer");
     const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("engineer") });
     const main = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons");
-    await page.goto(`${APP_URL}/scenarios/${main.id}`);
+    const scenario = new ScenarioPage(page, main.id);
+    await scenario.open("outlook");
     await page.getByTestId("delay-panel").waitFor();
     expect(await page.getByTestId("delay-vehicle-hours").textContent()).toMatch(/\d/);
     await page.getByTestId("tradeoff-run").click();
@@ -193,7 +193,7 @@ describe("workbench", () => {
     await screenshot(page, "outlook-tradeoff");
     expect(await seriousA11yViolations(page)).toEqual([]);
 
-    await page.goto(`${APP_URL}/scenarios/${main.id}/brief`);
+    await scenario.open("brief");
     const brief = page.getByTestId("owner-brief");
     await brief.waitFor();
     const p80 = (await page.getByTestId("p80-date").first().textContent())!.trim();
