@@ -11,13 +11,14 @@ export interface GraphLink {
   to: string;
 }
 
-export const NODE_WIDTH = 160;
+export const NODE_WIDTH = 150;
 export const NODE_HEIGHT = 56;
 
 export function layoutGraph(ids: readonly string[], links: readonly GraphLink[], size = { width: NODE_WIDTH, height: NODE_HEIGHT }): Record<string, { x: number; y: number }> {
   const g = new dagre.graphlib.Graph({ multigraph: false });
-  // ranksep leaves room for the lag label each link carries; nodesep keeps parallel crews apart.
-  g.setGraph({ rankdir: "LR", nodesep: 36, ranksep: 80, marginx: 10, marginy: 10 });
+  // ranksep leaves room for a short lag label ("200 ft"); nodesep keeps parallel crews apart. Kept tight so the
+  // seven-operation chain reads at about 80 % zoom across a 1,440 px screen.
+  g.setGraph({ rankdir: "LR", nodesep: 36, ranksep: 48, marginx: 10, marginy: 10 });
   g.setDefaultEdgeLabel(() => ({}));
   const known = new Set(ids);
   for (const id of ids) g.setNode(id, { width: size.width, height: size.height });

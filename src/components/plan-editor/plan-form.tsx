@@ -194,7 +194,7 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
                 </ul>
               </section>
             )}
-            <fieldset disabled={readOnly} className="min-w-0">
+            <fieldset disabled={readOnly} className={readOnly ? "plan-readonly min-w-0" : "min-w-0"}>
               <legend className="sr-only">{SECTIONS.find((s) => s.id === section)?.label}</legend>
               {section === "sequence" && <SequenceSection readOnly={readOnly} />}
               {section === "crews" && <CrewsSection />}

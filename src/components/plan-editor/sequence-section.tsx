@@ -83,7 +83,8 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
         id: `${l.from}->${l.to}`,
         source: l.from,
         target: l.to,
-        label: `${l.lagFt ?? 0} ft · ${l.lagHours ?? 0} h`,
+        // Only lags that exist are written on the link (the panel lists both); "0 ft · 0 h" on every link is noise.
+        label: [l.lagFt ? `${l.lagFt} ft` : "", l.lagHours ? `${l.lagHours} h` : ""].filter(Boolean).join(" · ") || undefined,
         ariaLabel: `Link ${label(l.from)} → ${label(l.to)}, lag ${l.lagFt ?? 0} ft and ${l.lagHours ?? 0} h${readOnly ? "" : "; press Delete to remove"}`,
         focusable: true,
         markerEnd: { type: MarkerType.ArrowClosed },
