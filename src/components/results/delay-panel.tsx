@@ -74,12 +74,14 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
   const hi = data[data.length - 1].day + 0.5;
   const { ticks, label: tickLabel } = dateTicks(lo, hi, 8);
   const gaps = data.slice(1).flatMap((d, i) => (d.day - data[i].day > LONG_GAP_DAYS ? [{ x1: data[i].day + 0.5, x2: d.day - 0.5 }] : []));
+  // A point with no value in each long gap, so the queue line stops there instead of drawing across the winter.
+  const drawn = [...data, ...gaps.map((g) => ({ date: "", day: (g.x1 + g.x2) / 2, hours: null, miles: null }))].sort((a, b) => a.day - b.day);
   const aria = `Day-by-day chart for the representative iteration (${data.length} days with a closure or a queue): bars are closure hours, the line is the day’s longest queue in miles${max ? `; the longest is ${max.miles} miles on ${formatIsoDate(max.date)}` : ""}. The same figures are in the table that follows.`;
   return (
     <figure aria-label={aria} className="m-0" data-testid="delay-chart">
       <div aria-hidden="true">
         <ResponsiveContainer width="100%" height={260} initialDimension={{ width: 700, height: 260 }}>
-          <ComposedChart data={data} margin={{ top: 8, right: 8, bottom: 28, left: 8 }} accessibilityLayer={false}>
+          <ComposedChart data={drawn} margin={{ top: 8, right: 8, bottom: 28, left: 8 }} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
             {gaps.map((g) => (
               <ReferenceArea
@@ -107,9 +109,9 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
             {/* Wide enough for the ticks and the title beside them; the title is centred on the axis, never cut. */}
             <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={64} label={{ value: "Longest queue (mi)", angle: 90, position: "insideRight", offset: 4, style: { textAnchor: "middle" }, fill: "var(--color-ink)", fontSize: 12 }} />
             <Tooltip labelFormatter={(v) => (typeof v === "number" ? formatDay(v) : String(v))} />
-            <Legend verticalAlign="top" height={28} />
+            <Legend verticalAlign="top" height={28} wrapperStyle={{ fontSize: 12 }} />
             <Bar yAxisId="h" dataKey="hours" name="Closure hours" fill="var(--color-s2)" isAnimationActive={false} />
-            <Line yAxisId="mi" dataKey="miles" name="Longest queue (mi)" stroke="var(--color-s6)" strokeWidth={2} dot={false} isAnimationActive={false} />
+            <Line yAxisId="mi" dataKey="miles" name="Longest queue (mi)" stroke="var(--color-s6)" strokeWidth={2} dot={false} connectNulls={false} isAnimationActive={false} />
           </ComposedChart>
         </ResponsiveContainer>
       </div>

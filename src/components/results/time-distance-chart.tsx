@@ -121,7 +121,8 @@ export function TimeDistanceChart({
               type="number"
               domain={[yLo, yHi]}
               ticks={stationTicks(yLo, yHi)}
-              tickFormatter={(v: number) => formatStation(v)}
+              // A no-break space keeps "STA 40+00" on one line (the axis would wrap it at the space).
+              tickFormatter={(v: number) => formatStation(v).replace(" ", "\u00a0")}
               tick={AXIS_TICK}
               width={84}
               label={{ value: "Station (1 STA = 100 ft)", angle: -90, position: "insideLeft", offset: 0, dy: 70, fill: "var(--color-ink)", fontSize: 12 }}
