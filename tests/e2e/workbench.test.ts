@@ -77,6 +77,38 @@ describe("workbench", () => {
     await context.close();
   });
 
+  it("the sequence graph: a new operation lands clear of the others, every link takes Tab focus, Delete removes the focused one", async () => {
+    const id = await freshVariant("E2E graph keyboard");
+    const { context, page } = await signedIn("scheduler", 1440);
+    await new ScenarioPage(page, id).open("plan");
+    const edges = page.locator("[data-testid=sequence-graph] .react-flow__edge");
+    await expect.poll(() => edges.count()).toBe(6);
+    await page.locator("#new-op-name").fill("Joint repair");
+    await page.locator("#new-op-name").press("Enter");
+    const nodes = page.locator("[data-testid=sequence-graph] .react-flow__node");
+    await expect.poll(() => nodes.count()).toBe(8);
+    const boxes = (await nodes.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().toJSON()))) as DOMRect[];
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        expect(a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top, `operations ${i} and ${j} overlap`).toBe(true);
+      }
+    // Every link is reachable with Tab, and each one says what it is.
+    await page.getByTestId("section-sequence").focus();
+    const reached = new Set<string>();
+    for (let i = 0; i < 80 && reached.size < 6; i++) {
+      await page.keyboard.press("Tab");
+      const label = await page.evaluate(() => (document.activeElement?.classList.contains("react-flow__edge") ? document.activeElement.getAttribute("aria-label") : null));
+      if (label) reached.add(label);
+    }
+    expect(reached.size).toBe(6);
+    await edges.nth(1).focus();
+    await page.keyboard.press("Delete");
+    await expect.poll(() => edges.count()).toBe(5);
+    expect(await page.getByTestId("sequence-notice").textContent()).toMatch(/^Removed the link /);
+    await context.close();
+  });
+
   it("the outlook stays usable at tablet width (768 px)", async () => {
     const { context, page } = await signedIn("inspector", 768);
     const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("inspector") });
