@@ -15,14 +15,18 @@ const ACTION_WORDS: Record<Action, string> = {
  * The page a member sees where their role may not go (answered with 403): it says so and what each role may
  * do, instead of "not found", which would suggest the thing is gone. Non-members still get 404.
  */
-export function RoleRefusal() {
+export function RoleRefusal({ pageHeading = false }: { pageHeading?: boolean }) {
   const roles = Object.keys(ROLE_LABELS) as ProjectRole[];
+  // Inside a scenario the page already has its heading (the scenario's name); elsewhere this is the page's own.
+  const Heading = pageHeading ? "h1" : "h2";
   return (
     <section className="card max-w-2xl" data-testid="role-refusal" aria-labelledby="role-refusal-heading">
-      <h2 id="role-refusal-heading">Your role on this project cannot do this</h2>
+      <Heading id="role-refusal-heading" className={pageHeading ? "text-xl" : undefined}>
+        Your role on this project cannot do this
+      </Heading>
       <p className="mt-2 text-sm">
-        This page is for roles that may change or share the project. Your role (shown beside the name above, and on the project list) can still
-        open everything it may read. If you need this page, ask the project&apos;s administrator to change your role.
+        This page is for roles that may change or share the project. Your role (on the project list, and beside each scenario&apos;s name) can
+        still open everything it may read. If you need this page, ask the project&apos;s administrator to change your role.
       </p>
       <table className="mt-4 w-full border-collapse text-sm">
         <caption className="sr-only">What each role may do</caption>
