@@ -322,7 +322,8 @@ async function testMode() {
     ensureDatabase(bin, port, db);
     return ensureAppRole(bin, port, db, appPassword);
   });
-  const appPort = await freePort(3100);
+  // TEST_APP_PORT: where to start looking, for machines where several test runs share the ports.
+  const appPort = await freePort(Number(process.env.TEST_APP_PORT ?? 3100));
   const appLog = join(dirname(dataDir), "app.log");
   writeFileSync(appLog, "");
   const env = {
