@@ -114,8 +114,13 @@ export class GateCache {
     return v;
   }
 
-  /** Slot [k, k+1) is not falling (MODEL.md, `rising`). */
+  /**
+   * Slot [k, k+1) is not falling (MODEL.md, `rising`). Slots 06–14 lie on the 06:00–15:00 rise from tmin to
+   * tmax ≥ tmin, both ends from the same increasing formula: they rise without computing a temperature.
+   */
   rising(k: number): boolean {
+    const h = k - 24 * Math.floor(k / 24);
+    if (h >= 6 && h < 15) return true;
     return this.tempAt(k + 1) >= this.tempAt(k);
   }
 
@@ -216,13 +221,6 @@ export class GateCache {
     if (lo >= p.minTempF && hi <= p.maxTempF) flags |= TEMP_ALL_PASS;
     if (w * WIND_FACTOR_MAX <= p.maxWindMph) flags |= WIND_ALL_PASS;
     if (p.maxEvaporation === Infinity) flags |= EVAP_ALL_PASS;
-    else {
-      // An upper bound of Uno's E over the day: the warmest concrete, the least vapour term (the lowest RH,
-      // reached at the warmest hour, times the coolest air), the strongest wind. E rises with the concrete
-      // temperature and the wind and falls with the vapour term, so every hour's E is at or below it.
-      const rhMin = rhFromVapor(this.vaporOf(d), hi);
-      if (evaporationLbFt2h(hi + p.concreteDeltaF, lo, rhMin, w * WIND_FACTOR_MAX) <= p.maxEvaporation) flags |= EVAP_ALL_PASS;
-    }
     return flags;
   }
 
@@ -239,6 +237,8 @@ export class GateCache {
     const wind = s.windMph[d] * WIND_FACTOR[k - 24 * d];
     if (!(flags & WIND_ALL_PASS) && wind > p.maxWindMph) return false;
     if (!(flags & EVAP_ALL_PASS)) {
+      // Exact, hour by hour: bounds over the day (extreme temperatures, humidities and winds) would cost two
+      // more exponentials a day to spare about one, as few slots of a day get this far (measured on the demos).
       const air = this.tempAt(k);
       if (evaporationLbFt2h(air + p.concreteDeltaF, air, rhFromVapor(this.vaporOf(d), air), wind) > p.maxEvaporation) return false;
     }

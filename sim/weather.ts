@@ -260,22 +260,30 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
 const RISE_HOURS = 9; // 06:00 → 15:00
 const FALL_HOURS = 15; // 15:00 → 06:00 next day
 
+// The half-cosine weights at whole hours, (1 ∓ cos)/2, computed with the very expression used for
+// fractional hours: halving is exact, so a table value gives the same bits as the inline formula.
+const RISE_W = Float64Array.from({ length: RISE_HOURS + 1 }, (_, i) => (1 - Math.cos((Math.PI * i) / RISE_HOURS)) / 2);
+const FALL_W = Float64Array.from({ length: FALL_HOURS + 1 }, (_, i) => (1 + Math.cos((Math.PI * i) / FALL_HOURS)) / 2);
+
 /** Air temperature at `hour` (hours since 00:00 of day 0, may be fractional). */
 export function hourlyTempF(series: WeatherSeries, hour: number): number {
   if (hour < 0) hour = 0; // no weather before day 0
   const d = Math.floor(hour / 24);
   if (d + 1 >= series.length) series.ensure(d + 2);
   const h = hour - d * 24;
+  const whole = h === Math.floor(h);
   if (h >= 6 && h <= 15) {
     const lo = series.tminF[d];
-    return lo + ((series.tmaxF[d] - lo) * (1 - Math.cos((Math.PI * (h - 6)) / RISE_HOURS))) / 2;
+    const w = whole ? RISE_W[h - 6] : (1 - Math.cos((Math.PI * (h - 6)) / RISE_HOURS)) / 2;
+    return lo + (series.tmaxF[d] - lo) * w;
   }
   // Falling branch from the afternoon of day `from` to 06:00 of day `from + 1`.
   const from = h > 15 ? d : d - 1;
   const since = h > 15 ? h - 15 : h + 9;
   const hi = from >= 0 ? series.tmaxF[from] : series.tmaxF[0];
   const lo = series.tminF[from + 1];
-  return lo + ((hi - lo) * (1 + Math.cos((Math.PI * since) / FALL_HOURS))) / 2;
+  const w = whole ? FALL_W[since] : (1 + Math.cos((Math.PI * since) / FALL_HOURS)) / 2;
+  return lo + (hi - lo) * w;
 }
 
 /** True when rain falls in the hour slot [k, k + 1); k counts hours since 00:00 of day 0. */
