@@ -86,6 +86,8 @@ export const gatesSchema = z
         if (p.hours !== undefined && p.minTempF === undefined)
           ctx.addIssue({ code: "custom", path: ["minTempF"], message: "set the temperature to protect above (or clear its hours)" });
       })
+      // An empty pair (a form with both fields blank) is no protection, and parses to none.
+      .transform((p) => (p.minTempF === undefined && p.hours === undefined ? undefined : p))
       .optional(),
   })
   .superRefine((g, ctx) => {
