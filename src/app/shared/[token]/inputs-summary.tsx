@@ -118,7 +118,9 @@ export function InputsSummary({ definition }: { definition: unknown }) {
                   </>
                 ) : (
                   <>
-                    <td className="table-cell">{dist(op.durationHours, "h")} per packet</td>
+                    <td className="table-cell">
+                      {dist(op.durationHours, "h")} per packet{op.countAboveF !== undefined ? `, counting only hours at or above ${op.countAboveF} °F` : ""}
+                    </td>
                     <td className="table-cell text-muted">no crew</td>
                     <td className="table-cell text-muted">any time</td>
                     <td className="table-cell text-muted">—</td>
