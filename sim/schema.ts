@@ -58,9 +58,14 @@ export const closureWindowSchema = z.object({
   endHour: hourOfDay,
 });
 
+const airTempF = z.number().min(-40, "must be ≥ −40 °F").max(140, "must be ≤ 140 °F");
+
 export const gatesSchema = z
   .object({
-    minTempF: z.number().min(-40).max(120).optional(),
+    minTempF: airTempF.optional(),
+    /** Maximum air temperature, °F (hot-weather limit). */
+    maxTempF: airTempF.optional(),
+    /** Not falling: T(k+1) ≥ T(k), judged from the hourly temperature (MODEL.md, "Weather"). */
     rising: z.boolean().optional(),
     noRain: z.boolean().optional(),
     noRainHoursAfter: nonNeg.max(72).optional(),
@@ -69,6 +74,25 @@ export const gatesSchema = z
     maxEvaporation: positive.optional(),
     /** Concrete temperature above air temperature for the evaporation estimate, °F. */
     concreteDeltaF: z.number().min(-20).max(40).optional(),
+    /**
+     * Continuous operations: after a packet's finish the air stays at or above `minTempF` for `hours`
+     * (no pour into a hard-freeze night). Both or neither: a half-filled pair is refused, an empty one is none.
+     */
+    protectAfter: z
+      .object({ minTempF: airTempF.optional(), hours: nonNeg.max(72, "must be ≤ 72 h").optional() })
+      .superRefine((p, ctx) => {
+        if (p.minTempF !== undefined && p.hours === undefined)
+          ctx.addIssue({ code: "custom", path: ["hours"], message: "set how many hours the protection lasts (or clear its temperature)" });
+        if (p.hours !== undefined && p.minTempF === undefined)
+          ctx.addIssue({ code: "custom", path: ["minTempF"], message: "set the temperature to protect above (or clear its hours)" });
+      })
+      // An empty pair (a form with both fields blank) is no protection, and parses to none.
+      .transform((p) => (p.minTempF === undefined && p.hours === undefined ? undefined : p))
+      .optional(),
+  })
+  .superRefine((g, ctx) => {
+    if (g.minTempF !== undefined && g.maxTempF !== undefined && g.maxTempF < g.minTempF)
+      ctx.addIssue({ code: "custom", path: ["maxTempF"], message: "must be ≥ the minimum temperature" });
   })
   .default({});
 export type Gates = z.infer<typeof gatesSchema>;
@@ -92,6 +116,8 @@ const waitOperationSchema = z.object({
   name: z.string().min(1).max(60),
   kind: z.literal("wait"),
   durationHours: distributionSchema,
+  /** Count only hours with the air at or above this temperature, °F (cure counted in warm hours). */
+  countAboveF: airTempF.optional(),
 });
 
 export const operationSchema = z.discriminatedUnion("kind", [crewOperationSchema, waitOperationSchema]);
@@ -241,6 +267,10 @@ export const scenarioSchema = z.object({
       policy: z.enum(["standDown", "workThrough"]),
       observeFederal: z.boolean().default(true),
       blackoutDates: z.array(isoDate).default([]),
+      /** Stand-down starts at this hour of the day before the holiday block (0 = the whole day before). */
+      standDownStartHour: hourOfDay.default(15),
+      /** Also stand down the Monday after a block that ends on a Saturday or Sunday. */
+      standDownThroughMonday: z.boolean().default(false),
     }),
     season: z.object({
       plan: z.enum(["single", "two"]),
