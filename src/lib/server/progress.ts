@@ -6,6 +6,7 @@ import "server-only";
 import { buildAsBuilt, compileScenario, runIterations, summarizeRun, type AsBuiltState, type ProgressRecord } from "@sim/index";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
 import { HORIZON_DAYS } from "@sim/calendar";
+import { budgetProblem } from "@sim/budget";
 import type { Scenario } from "@sim/schema";
 import type { z } from "zod";
 import { listProgress, saveReforecastRun, type ProgressFields, type ProgressRow } from "@db/queries/progress";
@@ -71,6 +72,8 @@ export async function runReforecast({ scenario, body, userId }: { scenario: Scen
   if (body.dataDate < plan.startDate || body.dataDate > last) {
     throw badRequest([{ path: "dataDate", message: `Data date must be between the plan's start (${plan.startDate}) and ${last}` }]);
   }
+  const overBudget = budgetProblem(plan, body.iterations, "server");
+  if (overBudget) throw badRequest([overBudget], "The re-forecast is larger than the server's work budget; nothing was run or saved.");
   const rows = await listProgress({ scenarioId: scenario.id });
   const records = rows.map(toRecord);
   const started = Date.now();

@@ -8,6 +8,11 @@ import { looksLikeText, MAX_UPLOAD_BYTES, type RowProblem } from "@/lib/csv/comm
 import { parseWeatherCsv } from "@/lib/csv/weather-csv";
 import { parseSurveyCsv } from "@/lib/csv/survey-csv";
 import { fitClimateProfile } from "@sim/weather-fit";
+import { controlCharacterIn } from "@sim/text";
+import { readBodyBytes } from "@/lib/server/json-body";
+
+/** The file plus the form's other fields and multipart framing. */
+const MAX_UPLOAD_BODY_BYTES = MAX_UPLOAD_BYTES + 64 * 1024;
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
@@ -25,11 +30,11 @@ export const GET = handler(async (_req: Request, ctx: Ctx) => {
 });
 
 function rowErrors(problems: RowProblem[]) {
-  const shown = problems.slice(0, 200);
+  // Every problem is passed on; the response lists the first ones and counts the rest (AppError.toResponse).
   return new AppError(
     "bad_request",
     `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix the rows and upload again.`,
-    shown.map((p) => ({ path: `row ${p.row}${p.field.startsWith("(") ? "" : ` · ${p.field}`}`, message: p.message })),
+    problems.map((p) => ({ path: `row ${p.row}${p.field.startsWith("(") ? "" : ` · ${p.field}`}`, message: p.message })),
   );
 }
 
@@ -37,9 +42,14 @@ function rowErrors(problems: RowProblem[]) {
 export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario, user } = await requireScenario(scenarioId, "editScenario");
+  // The body is read under a byte limit first (Content-Length and counted), so a huge upload is refused early.
+  const bytes = await readBodyBytes(req, MAX_UPLOAD_BODY_BYTES);
+  if (bytes === "too_large") {
+    throw new AppError("too_large", `The upload is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB for a file. Nothing was imported.`, [{ path: "file", message: `must be at most ${MAX_UPLOAD_BYTES / 1024 / 1024} MB` }]);
+  }
   let form: FormData;
   try {
-    form = await req.formData();
+    form = await new Response(bytes as BodyInit, { headers: { "content-type": req.headers.get("content-type") ?? "" } }).formData();
   } catch {
     throw new AppError("bad_request", "Send the file as a form upload (multipart/form-data).", [{ path: "file", message: "is missing" }]);
   }
@@ -50,12 +60,15 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   if (file.size > MAX_UPLOAD_BYTES) {
     throw new AppError("too_large", `The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, [{ path: "file", message: "is larger than 5 MB" }]);
   }
-  const bytes = new Uint8Array(await file.arrayBuffer());
+  if (file.name.length > 200 || controlCharacterIn(file.name)) {
+    throw new AppError("bad_request", "The file name is too long or contains control characters; rename the file and upload it again.", [{ path: "file", message: "has a file name longer than 200 characters or with control characters" }]);
+  }
+  const content = new Uint8Array(await file.arrayBuffer());
   const nameOk = /\.(csv|txt)$/i.test(file.name);
-  if (!nameOk || !CSV_TYPES.has(file.type) || !looksLikeText(bytes)) {
+  if (!nameOk || !CSV_TYPES.has(file.type) || !looksLikeText(content)) {
     throw new AppError("unsupported", `“${file.name}” is not a CSV file. Export the sheet as CSV (comma-separated values) and upload that.`, [{ path: "file", message: "is not a CSV file" }]);
   }
-  const text = new TextDecoder("utf-8", { fatal: false }).decode(bytes);
+  const text = new TextDecoder("utf-8", { fatal: false }).decode(content);
   const definition = validateDefinition(scenario.definition);
 
   let preview: Record<string, unknown>;
@@ -78,7 +91,7 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
     kind: fields.data.kind,
     filename: file.name,
     contentType: file.type || "text/csv",
-    content: Buffer.from(bytes),
+    content: Buffer.from(content),
     rowCount,
     userId: user.id,
   });
