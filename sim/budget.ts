@@ -48,12 +48,12 @@ export function budgetProblem(s: Pick<Scenario, "deck" | "operations" | "links">
   const w = runWork(s, iterations);
   if (w.total <= budget) return null;
   const fits = Math.floor(budget / w.perIteration);
-  const where = place === "server" ? "the server's work budget" : "the work budget of a run";
+  const where = place === "server" ? "a run the server computes" : "a run in the browser";
   return {
     path: "iterations",
     message:
       `this run needs ${n(w.total)} work units (${n(w.packets)} packets × ${w.operations} operations × ${w.links + 1} (links + 1) + ${n(HORIZON_DAYS)} weather days, ` +
-      `× ${n(iterations)} iterations), ${(w.total / budget).toFixed(1)} times ${where} of ${n(budget)}. ` +
+      `× ${n(iterations)} iterations): ${(w.total / budget).toFixed(1)} times the limit of ${n(budget)} for ${where}. ` +
       (fits >= 10 ? `At most ${n(fits)} iterations fit; or use longer packets, fewer operations or fewer links.` : "Use longer packets, fewer operations or fewer links."),
   };
 }

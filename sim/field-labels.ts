@@ -74,6 +74,14 @@ const LABELS: Record<string, string | [string, string]> = {
   weather: "Weather",
   monthly: ["Months", "Month"],
   fixedWetDates: ["Fixed wet dates", "Fixed wet date"],
+  tmaxMeanF: "Mean daily high",
+  tmaxSdF: "Daily high, standard deviation",
+  tminMeanF: "Mean daily low",
+  tminSdF: "Daily low, standard deviation",
+  pWetAfterDry: "Chance of rain after a dry day",
+  pWetAfterWet: "Chance of rain after a wet day",
+  windMeanMph: "Mean wind",
+  rhMean: "Mean relative humidity",
   traffic: "Traffic",
   directions: ["Directions", "Direction"],
   demand: "Demand",
@@ -103,6 +111,8 @@ const LABELS: Record<string, string | [string, string]> = {
   dataDate: "Data date",
 };
 
+const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
+
 /** `a.b[2].c` → ["a", "b", 2, "c"]. */
 export function pathParts(path: string): (string | number)[] {
   const out: (string | number)[] = [];
@@ -124,9 +134,9 @@ export function fieldLabel(path: string | ReadonlyArray<PropertyKey>): string {
     if (typeof part === "number") {
       const prev = parts[i - 1];
       const entry = typeof prev === "string" ? LABELS[prev] : undefined;
-      const item = Array.isArray(entry) ? entry[1] : "Item";
-      if (out.length && typeof prev === "string") out[out.length - 1] = `${item} ${part + 1}`;
-      else out.push(`${item} ${part + 1}`);
+      const item = prev === "monthly" ? MONTHS[part] ?? `Month ${part + 1}` : `${Array.isArray(entry) ? entry[1] : "Item"} ${part + 1}`;
+      if (out.length && typeof prev === "string") out[out.length - 1] = item;
+      else out.push(item);
       return;
     }
     const entry = LABELS[part];

@@ -70,27 +70,40 @@ function characterProblem(s: string): string | null {
   return null;
 }
 
+interface Node {
+  v: unknown;
+  key: PropertyKey | null;
+  parent: Node | null;
+}
+
+function pathOf(node: Node, lastKey?: string): string {
+  const parts: PropertyKey[] = lastKey === undefined ? [] : [lastKey];
+  for (let n: Node | null = node; n && n.key !== null; n = n.parent) parts.push(n.key);
+  return parts.length ? formatPath(parts.reverse()) : "(body)";
+}
+
 /**
  * Every string value and key of a parsed JSON value that cannot be stored or shown, with its path (at most
- * `max`). Iterative, so it cannot overflow the stack whatever the nesting.
+ * `max`). Iterative with parent links (no recursion, no path copies), so any nesting is walked in linear time.
  */
 export function unsafeStrings(value: unknown, max = 100): FieldProblem[] {
   const out: FieldProblem[] = [];
-  const stack: { v: unknown; path: PropertyKey[] }[] = [{ v: value, path: [] }];
+  const stack: Node[] = [{ v: value, key: null, parent: null }];
   while (stack.length && out.length < max) {
-    const { v, path } = stack.pop()!;
+    const node = stack.pop()!;
+    const v = node.v;
     if (typeof v === "string") {
       const p = characterProblem(v);
-      if (p) out.push({ path: path.length ? formatPath(path) : "(body)", message: p });
+      if (p) out.push({ path: pathOf(node), message: p });
     } else if (Array.isArray(v)) {
-      for (let i = v.length - 1; i >= 0; i--) stack.push({ v: v[i], path: [...path, i] });
+      for (let i = v.length - 1; i >= 0; i--) stack.push({ v: v[i], key: i, parent: node });
     } else if (v && typeof v === "object") {
       const keys = Object.keys(v);
       for (let i = keys.length - 1; i >= 0; i--) {
         const k = keys[i];
         const p = characterProblem(k);
-        if (p) out.push({ path: formatPath([...path, k.replace(CONTROL, "?")]), message: `field name ${p}` });
-        else stack.push({ v: (v as Record<string, unknown>)[k], path: [...path, k] });
+        if (p) out.push({ path: pathOf(node, k.replace(new RegExp(CONTROL, "g"), "?")), message: `field name ${p}` });
+        else stack.push({ v: (v as Record<string, unknown>)[k], key: k, parent: node });
       }
     }
   }
