@@ -9,6 +9,7 @@ import { parseWeatherCsv } from "@/lib/csv/weather-csv";
 import { parseSurveyCsv } from "@/lib/csv/survey-csv";
 import { fitClimateProfile } from "@sim/weather-fit";
 import { controlCharacterIn } from "@sim/text";
+import { LIMITS } from "@sim/limits";
 import { readBodyBytes } from "@/lib/server/json-body";
 
 /** The file plus the form's other fields and multipart framing. */
@@ -82,6 +83,12 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   } else {
     const { ranges, problems } = parseSurveyCsv(text, definition.deck);
     if (problems.length) throw rowErrors(problems);
+    // Refused here rather than when the plan is saved: a scenario holds at most LIMITS.surveyRanges ranges.
+    if (ranges.length > LIMITS.surveyRanges) {
+      throw new AppError("bad_request", `The survey has ${ranges.length.toLocaleString("en-US")} ranges; a scenario holds at most ${LIMITS.surveyRanges}. Merge neighbouring ranges and upload again.`, [
+        { path: "file", message: `at most ${LIMITS.surveyRanges} survey ranges (got ${ranges.length.toLocaleString("en-US")})` },
+      ]);
+    }
     rowCount = ranges.length;
     preview = { kind: "survey", ranges, current: definition.deck.survey };
   }
