@@ -5,9 +5,18 @@
  * Units: feet, hours (0–24 local clock), °F, mph, lb/ft²/h; dates are local `YYYY-MM-DD`.
  */
 import { z } from "zod";
+import { LIMITS } from "./limits";
+import { isKnownTimeZone, plainText, realIsoDate } from "./text";
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD");
-const monthDay = z.string().regex(/^\d{2}-\d{2}$/, "must be a month-day MM-DD");
+const isoDate = realIsoDate();
+const monthDay = z.string().max(5, { abort: true, error: "must be a month-day MM-DD" }).regex(/^\d{2}-\d{2}$/, "must be a month-day MM-DD");
+const count = (n: number) => n.toLocaleString("en-US");
+/** An array of at most `max` items; the message says how many were sent. */
+const upTo = <T extends z.ZodType>(item: T, max: number, what: string) =>
+  z.array(item).max(max, { error: (iss) => `at most ${count(max)} ${what} (got ${count((iss.input as unknown[]).length)})` });
+/** A one-line name: not empty, no control characters. */
+const name = (max: number = LIMITS.name) => plainText(max).min(1, "must not be empty");
+const laneName = name(LIMITS.laneName);
 const id = z
   .string()
   .min(1, "must not be empty")
@@ -39,20 +48,20 @@ export type DayType = z.infer<typeof dayTypeSchema>;
 
 export const shiftSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   startHour: hourOfDay,
   lengthHours: z.number().gt(0, "must be > 0").max(24, "a shift cannot be longer than 24 h"),
 });
 
 export const closureSchema = z.object({
   id,
-  name: z.string().min(1).max(80),
-  lanesClosed: z.array(z.string().min(1)).min(1, "must close at least one lane"),
+  name: name(),
+  lanesClosed: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must close at least one lane"),
 });
 
 export const closureWindowSchema = z.object({
   closure: id,
-  dayTypes: z.array(dayTypeSchema).min(1, "must list at least one day type"),
+  dayTypes: upTo(dayTypeSchema, 4, "day types").min(1, "must list at least one day type"),
   startHour: hourOfDay,
   /** `endHour ≤ startHour` runs overnight into the next day. */
   endHour: hourOfDay,
@@ -99,11 +108,11 @@ export type Gates = z.infer<typeof gatesSchema>;
 
 const crewOperationSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   kind: z.literal("crew"),
   rate: z.object({ unit: z.enum(["ftPerHour", "ftPerShift"]), dist: distributionSchema }),
   crews: z.number().int("must be a whole number").min(1, "must be ≥ 1").max(10),
-  shifts: z.array(id).min(1, "must list at least one shift"),
+  shifts: upTo(id, LIMITS.calendarItems, "shifts").min(1, "must list at least one shift"),
   closure: id,
   mobilizationHours: nonNeg.max(240).default(0),
   continuous: z.boolean().default(false),
@@ -113,7 +122,7 @@ const crewOperationSchema = z.object({
 
 const waitOperationSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   kind: z.literal("wait"),
   durationHours: distributionSchema,
   /** Count only hours with the air at or above this temperature, °F (cure counted in warm hours). */
@@ -159,7 +168,7 @@ export const weatherSchema = z.object({
   serialCorrelation: z.number().min(0).max(0.95).default(0.6),
   rainHoursMean: z.number().min(1).max(24).default(6),
   /** Deterministic wet dates (rain all day), for tests and what-ifs in fixed mode. */
-  fixedWetDates: z.array(isoDate).default([]),
+  fixedWetDates: upTo(isoDate, LIMITS.dates, "dates").default([]),
 });
 export type Weather = z.infer<typeof weatherSchema>;
 
@@ -175,9 +184,9 @@ const hourlyVolumes = z.array(z.number().min(0, "must be ≥ 0").max(20_000, "mu
 /** Traffic of one direction over the deck (./traffic). Day types of demand differ from closure day types. */
 export const trafficDirectionSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   /** Deck lanes this direction uses (names from deck.lanes); the queue stores in all of them. */
-  lanes: z.array(z.string().min(1)).min(1, "must use at least one lane"),
+  lanes: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must use at least one lane"),
   /** Share of heavy vehicles (trucks, buses) in the volumes, 0–1. */
   heavyVehicleShare: z.number().min(0).max(1).default(0.1),
   /** veh/h by hour. `friday` is Friday; `holidayPeak` the days around each federal holiday (MODEL.md, "Traffic"). */
@@ -215,8 +224,8 @@ export const trafficSchema = z.object({
   /** Rate at which a queue discharges once every lane is open again, pc/h/ln. */
   openRoadPcPerHourPerLane: z.number().min(500).max(2_800).default(2_000),
   jamDensityPcPerMiPerLane: z.number().min(100).max(300).default(190),
-  directions: z.array(trafficDirectionSchema).max(4),
-  closures: z.array(trafficClosureSchema).default([]),
+  directions: upTo(trafficDirectionSchema, 4, "directions"),
+  closures: upTo(trafficClosureSchema, LIMITS.calendarItems, "closures").default([]),
 });
 export type Traffic = z.infer<typeof trafficSchema>;
 
@@ -243,30 +252,34 @@ export type Costs = z.infer<typeof costsSchema>;
 
 export const scenarioSchema = z.object({
   schemaVersion: z.literal(1),
-  name: z.string().min(1, "must not be empty").max(120),
-  description: z.string().max(2000).default(""),
+  name: name(),
+  description: plainText(LIMITS.description, { multiline: true }).default(""),
   startDate: isoDate,
   targetDate: isoDate.optional(),
-  timeZone: z.string().min(1).default("America/Chicago"),
+  timeZone: z
+    .string()
+    .max(LIMITS.timeZone, { abort: true, error: (iss) => `must be an IANA time zone such as America/Chicago (got ${count(String(iss.input).length)} characters)` })
+    .refine(isKnownTimeZone, { error: (iss) => `"${String(iss.input)}" is not an IANA time zone (e.g. America/Chicago)` })
+    .default("America/Chicago"),
   deck: z.object({
     startStationFt: nonNeg,
     lengthFt: z.number().gt(0, "must be > 0").max(50_000),
     packetFt: z.number().min(10, "must be ≥ 10").max(1_000).default(100),
-    lanes: z.array(z.string().min(1)).min(1, "must name at least one lane"),
-    survey: z.array(surveyRangeSchema).default([]),
+    lanes: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must name at least one lane"),
+    survey: upTo(surveyRangeSchema, LIMITS.surveyRanges, "survey ranges").default([]),
   }),
   discovered: z
     .object({ defaultProbability: z.number().min(0).max(1), extraHours: distributionSchema })
     .default({ defaultProbability: 0, extraHours: { type: "fixed", value: 0 } }),
   calendar: z.object({
-    shifts: z.array(shiftSchema).min(1, "must define at least one shift"),
-    workDays: z.array(z.number().int().min(0).max(6)).min(1, "must list at least one work day"),
-    closures: z.array(closureSchema).min(1, "must define at least one closure"),
-    closureWindows: z.array(closureWindowSchema),
+    shifts: upTo(shiftSchema, LIMITS.calendarItems, "shifts").min(1, "must define at least one shift"),
+    workDays: upTo(z.number().int().min(0).max(6), 7, "work days").min(1, "must list at least one work day"),
+    closures: upTo(closureSchema, LIMITS.calendarItems, "closures").min(1, "must define at least one closure"),
+    closureWindows: upTo(closureWindowSchema, LIMITS.calendarItems, "closure windows"),
     holidays: z.object({
       policy: z.enum(["standDown", "workThrough"]),
       observeFederal: z.boolean().default(true),
-      blackoutDates: z.array(isoDate).default([]),
+      blackoutDates: upTo(isoDate, LIMITS.dates, "dates").default([]),
       /** Stand-down starts at this hour of the day before the holiday block (0 = the whole day before). */
       standDownStartHour: hourOfDay.default(15),
       /** Also stand down the Monday after a block that ends on a Saturday or Sunday. */
@@ -282,8 +295,8 @@ export const scenarioSchema = z.object({
       cutoffStationFt: nonNeg.optional(),
     }),
   }),
-  operations: z.array(operationSchema).min(1, "must have at least one operation").max(30),
-  links: z.array(linkSchema),
+  operations: upTo(operationSchema, LIMITS.operations, "operations").min(1, "must have at least one operation"),
+  links: upTo(linkSchema, LIMITS.links, "links"),
   weather: weatherSchema,
   /** Optional: demand and capacity for queues and delay (absent = no traffic model, results unchanged). */
   traffic: trafficSchema.optional(),
