@@ -135,7 +135,7 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
       crews: op.crews,
       continuous: op.continuous,
       mobilizationHours: op.mobilizationHours,
-      closure: closures.indexOf(op.closure),
+      closure: op.closure === undefined ? -1 : closures.indexOf(op.closure),
       profile,
       risingFirst: op.continuous && op.gates.rising === true,
       noRainAfter: op.continuous ? (op.gates.noRainHoursAfter ?? 0) : 0,

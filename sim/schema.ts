@@ -44,10 +44,18 @@ export const shiftSchema = z.object({
   lengthHours: z.number().gt(0, "must be > 0").max(24, "a shift cannot be longer than 24 h"),
 });
 
+/**
+ * A short-term closure (MODEL.md, "Closures that stand"): set up at the start of each window interval a crew
+ * uses, taken down at its end. Work cannot start before it is set up and must stop in time to take it down.
+ */
 export const closureSchema = z.object({
   id,
   name: z.string().min(1).max(80),
   lanesClosed: z.array(z.string().min(1)).min(1, "must close at least one lane"),
+  /** Hours to set the closure up (signs, cones, crossover gates) before work can start; lanes count as closed. */
+  setupHours: nonNeg.max(12, "must be ≤ 12 h").default(0),
+  /** Hours to take it down after work stops; lanes count as closed. */
+  takedownHours: nonNeg.max(12, "must be ≤ 12 h").default(0),
 });
 
 export const closureWindowSchema = z.object({
@@ -80,7 +88,8 @@ const crewOperationSchema = z.object({
   rate: z.object({ unit: z.enum(["ftPerHour", "ftPerShift"]), dist: distributionSchema }),
   crews: z.number().int("must be a whole number").min(1, "must be ≥ 1").max(10),
   shifts: z.array(id).min(1, "must list at least one shift"),
-  closure: id,
+  /** The short-term closure the crew needs on top of its stage's standing closure; absent = the standing closure alone. */
+  closure: id.optional(),
   mobilizationHours: nonNeg.max(240).default(0),
   continuous: z.boolean().default(false),
   discovers: z.boolean().default(false),
@@ -106,6 +115,39 @@ export const linkSchema = z.object({
   lagHours: nonNeg.default(0),
 });
 export type Link = z.infer<typeof linkSchema>;
+
+/** How a stage follows an earlier one (MODEL.md, "Stages"). */
+export const stageAfterSchema = z.object({
+  /** An earlier stage's id. */
+  stage: id,
+  /** `stageDone`: wait for the whole earlier stage; `restoredAhead`: follow its restored front, like a link. */
+  when: z.enum(["stageDone", "restoredAhead"]).default("stageDone"),
+  lagFt: nonNeg.default(0),
+  lagHours: nonNeg.default(0),
+});
+export type StageAfter = z.infer<typeof stageAfterSchema>;
+
+/**
+ * A stage: the deck lanes it rehabilitates over a station range, the lanes behind barrier while it is open
+ * (default: its own lanes; [] = no standing closure) and the operations that run in it (default: all).
+ */
+export const stageSchema = z
+  .object({
+    id,
+    name: z.string().min(1).max(80),
+    lanes: z.array(z.string().min(1)).min(1, "must rehabilitate at least one lane"),
+    /** Absolute stations, [from, to); default the whole deck. */
+    fromStationFt: nonNeg.optional(),
+    toStationFt: nonNeg.optional(),
+    standingLanesClosed: z.array(z.string().min(1)).optional(),
+    operations: z.array(id).min(1, "must list at least one operation").optional(),
+    /** Absent: after the previous stage when it is done (the first stage has none). */
+    after: stageAfterSchema.optional(),
+    /** Override: veh/h for each direction the standing closure narrows (e.g. traffic shifted to a crossover). */
+    capacityVehPerHour: z.number().gt(0, "must be > 0").max(20_000).optional(),
+  })
+  .transform((st) => ({ ...st, standingLanesClosed: st.standingLanesClosed ?? st.lanes }));
+export type Stage = z.output<typeof stageSchema>;
 
 export const monthClimateSchema = z
   .object({
@@ -216,7 +258,8 @@ export const costsSchema = z.object({
 export type Costs = z.infer<typeof costsSchema>;
 
 export const scenarioSchema = z.object({
-  schemaVersion: z.literal(1),
+  /** Version 1 input is upgraded by `upgradeScenario` (./upgrade) before it is parsed. */
+  schemaVersion: z.literal(2, "must be 2 (version 1 scenarios are upgraded on reading)"),
   name: z.string().min(1, "must not be empty").max(120),
   description: z.string().max(2000).default(""),
   startDate: isoDate,
@@ -226,7 +269,7 @@ export const scenarioSchema = z.object({
     startStationFt: nonNeg,
     lengthFt: z.number().gt(0, "must be > 0").max(50_000),
     packetFt: z.number().min(10, "must be ≥ 10").max(1_000).default(100),
-    lanes: z.array(z.string().min(1)).min(1, "must name at least one lane"),
+    lanes: z.array(z.string().min(1)).min(1, "must name at least one lane").max(16, "at most 16 lanes"),
     survey: z.array(surveyRangeSchema).default([]),
   }),
   discovered: z
@@ -235,7 +278,8 @@ export const scenarioSchema = z.object({
   calendar: z.object({
     shifts: z.array(shiftSchema).min(1, "must define at least one shift"),
     workDays: z.array(z.number().int().min(0).max(6)).min(1, "must list at least one work day"),
-    closures: z.array(closureSchema).min(1, "must define at least one closure"),
+    /** Short-term closures; a plan may have none (its stages' standing closures alone). */
+    closures: z.array(closureSchema),
     closureWindows: z.array(closureWindowSchema),
     holidays: z.object({
       policy: z.enum(["standDown", "workThrough"]),
@@ -253,6 +297,8 @@ export const scenarioSchema = z.object({
     }),
   }),
   operations: z.array(operationSchema).min(1, "must have at least one operation").max(30),
+  /** The work in stages, in the order they are built (MODEL.md, "Stages"); one stage over all lanes is the simple plan. */
+  stages: z.array(stageSchema).min(1, "must have at least one stage").max(12, "at most 12 stages"),
   links: z.array(linkSchema),
   weather: weatherSchema,
   /** Optional: demand and capacity for queues and delay (absent = no traffic model, results unchanged). */

@@ -71,7 +71,7 @@ export class WorkContext implements WorkSink {
     const byClosure: number[][] = Array.from({ length: nClosures }, () => []);
     for (const o of ops) {
       this.laneBase[o.index] = lanes;
-      for (let k = 0; k < o.crews; k++) byClosure[o.closure].push(lanes + k);
+      if (o.closure >= 0) for (let k = 0; k < o.crews; k++) byClosure[o.closure].push(lanes + k);
       lanes += o.crews;
     }
     this.closureLanes = byClosure.map((l) => Int32Array.from(l));

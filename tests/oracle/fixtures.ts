@@ -33,7 +33,7 @@ export type Input = ScenarioInput & {
 /** 1,000 ft from STA 10+00, one day shift 07:00–17:00, a weekday window 08:00–16:00, Monday–Friday. */
 export function baseInput(): Input {
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     name: "Oracle test deck",
     startDate: "2027-06-07", // a Monday
     deck: { startStationFt: 1000, lengthFt: 1000, packetFt: 100, lanes: ["L1", "L2"] },
@@ -56,6 +56,7 @@ export function baseInput(): Input {
     },
     operations: [],
     links: [],
+    stages: [{ id: "whole-deck", name: "Whole deck", lanes: ["L1", "L2"], standingLanesClosed: [] }],
     weather: { mode: "fixed", monthly: climate() },
   };
 }
