@@ -42,6 +42,8 @@ export interface CompiledCalendar {
   firstWinterEnd: number;
   /** Per operation index; null for wait operations. */
   ops: (OpCalendar | null)[];
+  /** Per short-term closure (calendar.closures order): its window intervals, before set-up/take-down and blocks. */
+  closureWindows: Intervals[];
 }
 
 type Pairs = number[]; // flat [s0, e0, s1, e1, …]
@@ -287,7 +289,12 @@ export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS):
     };
   });
 
+  const closureWindows = cal.closures.map((c) =>
+    toIntervals(windowIntervals(pattern, cal.closureWindows.filter((w) => w.closure === c.id)), days),
+  );
+
   return {
+    closureWindows,
     startDay,
     days,
     horizonHours,
@@ -316,14 +323,14 @@ export function stampShifts(shifts: Intervals, a: number, b: number, stamp: Int3
   return count;
 }
 
-/** Adds the hours of [a, b) falling on each day into `out[offset + d]`; widens `range` = [first, last] day. */
-export function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, days: number, range: Int32Array): void {
+/** Adds the hours of [a, b) falling on each day (× `weight`) into `out[offset + d]`; widens `range` = [first, last] day. */
+export function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, days: number, range: Int32Array, weight = 1): void {
   let t = a;
   while (t < b) {
     const d = Math.floor(t / 24);
     if (d >= days) break;
     const dayEnd = Math.min(b, 24 * (d + 1));
-    out[offset + d] += dayEnd - t;
+    out[offset + d] += (dayEnd - t) * weight;
     if (d < range[0]) range[0] = d;
     if (d > range[1]) range[1] = d;
     t = dayEnd;

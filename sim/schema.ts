@@ -279,7 +279,7 @@ export const scenarioSchema = z.object({
     shifts: z.array(shiftSchema).min(1, "must define at least one shift"),
     workDays: z.array(z.number().int().min(0).max(6)).min(1, "must list at least one work day"),
     /** Short-term closures; a plan may have none (its stages' standing closures alone). */
-    closures: z.array(closureSchema),
+    closures: z.array(closureSchema).max(18, "at most 18 closures"),
     closureWindows: z.array(closureWindowSchema),
     holidays: z.object({
       policy: z.enum(["standDown", "workThrough"]),
