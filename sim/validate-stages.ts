@@ -62,6 +62,12 @@ export function stageProblems(s: Scenario): FieldProblem[] {
       out.push({ path: `${at}.toStationFt`, message: `station ${to} ft is outside the deck (${deckStart}–${deckEnd} ft)` });
     if (to <= from) out.push({ path: `${at}.toStationFt`, message: "must be greater than fromStationFt" });
   });
+  if (refsOk) {
+    const listed = new Set(s.stages.flatMap((st) => st.operations ?? s.operations.map((o) => o.id)));
+    s.operations.forEach((o, i) => {
+      if (!listed.has(o.id)) out.push({ path: `operations[${i}]`, message: `"${o.id}" runs in no stage: list it in a stage's operations` });
+    });
+  }
   if (!refsOk || out.length) return out;
 
   const stages = resolveStages(s);
