@@ -2,7 +2,9 @@
  * The work budget of one run, checked before any run starts (server run, re-forecast, a browser run and its
  * save), so that no single scenario can occupy a machine for minutes.
  *
- * Work units per iteration = packets × operations × (links + 1) + HORIZON_DAYS. The first term bounds the
+ * Work units per iteration = packets × operations × (links + 1) + HORIZON_DAYS, where operations counts each
+ * operation once per stage it works in (the engine schedules every stage operation over the stage's packets;
+ * counting the whole deck for each over-counts a stage on part of it). The first term bounds the
  * engine's claims and precedence checks (each packet of each operation looks at its incoming links); the
  * second the weather days one iteration may draw. It over-counts links (measured: 9× the demo's links costs
  * 1.3× the time, not 9×), which errs on the safe side. Common practice, no published source.
@@ -30,11 +32,18 @@ export interface RunWork {
   total: number;
 }
 
-type WorkInput = { deck: { lengthFt: number; packetFt: number }; operations: readonly unknown[]; links: readonly unknown[] };
+type WorkInput = {
+  deck: { lengthFt: number; packetFt: number };
+  operations: readonly unknown[];
+  links: readonly unknown[];
+  /** Absent (a version-1 plan): one stage with every operation. */
+  stages?: readonly { operations?: readonly unknown[] }[];
+};
 
 export function runWork(s: WorkInput, iterations: number): RunWork {
   const packets = Math.ceil(s.deck.lengthFt / s.deck.packetFt);
-  const operations = s.operations.length;
+  const stages = s.stages?.length ? s.stages : [{}];
+  const operations = stages.reduce((n, st) => n + (st.operations?.length ?? s.operations.length), 0);
   const links = s.links.length;
   const perIteration = packets * operations * (links + 1) + HORIZON_DAYS;
   return { packets, operations, links, perIteration, total: perIteration * iterations };
@@ -43,7 +52,7 @@ export function runWork(s: WorkInput, iterations: number): RunWork {
 const n = (x: number) => Math.round(x).toLocaleString("en-US");
 
 /** null when the run fits its budget; otherwise a problem on `iterations` saying which limit and by how much. */
-export function budgetProblem(s: Pick<Scenario, "deck" | "operations" | "links">, iterations: number, place: RunPlace): FieldProblem | null {
+export function budgetProblem(s: Pick<Scenario, "deck" | "operations" | "links" | "stages">, iterations: number, place: RunPlace): FieldProblem | null {
   const budget = place === "server" ? SERVER_WORK_BUDGET : BROWSER_WORK_BUDGET;
   const w = runWork(s, iterations);
   if (w.total <= budget) return null;
