@@ -21,8 +21,9 @@ export type CachedForecastRow = NonNullable<Awaited<ReturnType<typeof getCachedF
 
 export async function claimForecastFetch(input: { projectId: string; latitude: number; longitude: number; now: Date; freshMs: number; retryMs: number }): Promise<boolean> {
   const t = projectForecasts;
-  const freshBefore = new Date(input.now.getTime() - input.freshMs);
-  const retryBefore = new Date(input.now.getTime() - input.retryMs);
+  // As ISO text with a cast: a Date inside a raw `sql` fragment is not serialized by the driver.
+  const freshBefore = sql`${new Date(input.now.getTime() - input.freshMs).toISOString()}::timestamptz`;
+  const retryBefore = sql`${new Date(input.now.getTime() - input.retryMs).toISOString()}::timestamptz`;
   const moved = sql`(${t.latitude} <> excluded.latitude OR ${t.longitude} <> excluded.longitude)`;
   const rows = await getDb()
     .insert(t)

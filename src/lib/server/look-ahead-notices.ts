@@ -13,6 +13,9 @@ import { localDate, localHour, scenarioLookAhead } from "./look-ahead";
 import { lookAheadMail } from "./mail/look-ahead-mail";
 import { enqueueMail } from "./mail/outbox";
 
+/** The last error logged per scenario: a notice that keeps failing is reported once, not every pass. */
+const lastErrors = new Map<string, string>();
+
 export async function sendDueLookAheadNotices(now = new Date()): Promise<number> {
   let sent = 0;
   for (const n of await listEnabledNotices()) {
@@ -28,9 +31,12 @@ export async function sendDueLookAheadNotices(now = new Date()): Promise<number>
         for (const to of n.recipients) await enqueueMail(tx, lookAheadMail({ to, scenarioName: n.name, board, previous: (n.lastBoard as CompactBoard | null) ?? null, link }));
         sent++;
       });
+      lastErrors.delete(n.scenarioId);
     } catch (e) {
       // One scenario that cannot be read (say, a definition an older version saved) must not stop the others.
-      console.error(`[pourline] look-ahead notice for ${n.scenarioId} failed: ${e instanceof Error ? e.message : String(e)}`);
+      const msg = e instanceof Error ? e.message : String(e);
+      if (lastErrors.get(n.scenarioId) !== msg) console.error(`[pourline] look-ahead notice for ${n.scenarioId} failed: ${msg}`);
+      lastErrors.set(n.scenarioId, msg);
     }
   }
   return sent;
