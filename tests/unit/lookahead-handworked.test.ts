@@ -146,3 +146,20 @@ describe("look-ahead gates worked by hand", () => {
     expect(lookAhead(s, forecast(), { today: "2027-04-07" })[1].shifts.find((x) => x.shiftId === "day")!.operations[0].status).toBe("no");
   });
 });
+
+describe("the other per-slot gates on one hour, by hand", () => {
+  it("maximum temperature at both ends of the slot, and the evaporation of a hot, dry, windy hour", async () => {
+    const { HourlyGates } = await import("../../sim/lookahead-gates");
+    // Slot [k, k+1) with T(k) = 90 °F, T(k+1) = 96 °F, RH 15 %, wind 22 mph.
+    const g = new HourlyGates({ tempF: [90, 96], popPct: [0, 0], rhPct: [15, 15], windMph: [22, 22] });
+    const v = g.slot({ maxTempF: 95, maxEvaporation: 0.2, concreteDeltaF: 0 }, 0, false);
+    // maxTemp 95: T(k+1) = 96 > 95 fails although T(k) = 90 holds.
+    expect(v[0]).toEqual({ gate: "maxTemp", ok: false, detail: "96 °F against a maximum of 95 °F" });
+    // Uno (1998), concrete = air = 90 °F = 32.22 °C, r = 0.15, V = 22 mph = 35.41 km/h:
+    // 5·[(50.22)^2.5 − 0.15·(50.22)^2.5]·(35.41 + 4)·10⁻⁶ = 5·0.85·17 873·39.41·10⁻⁶ ≈ 2.994 kg/m²/h ≈ 0.613 lb/ft²/h.
+    expect(v[1].gate).toBe("maxEvaporation");
+    expect(v[1].ok).toBe(false);
+    expect(v[1].detail).toBe("0.61 lb/ft²/h against a limit of 0.2");
+    expect(g.evaporation(0, 0)).toBeCloseTo(0.613, 2);
+  });
+});
