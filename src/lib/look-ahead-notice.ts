@@ -13,6 +13,27 @@ export const STATUS_WORDS: Record<CellStatus, string> = {
 };
 export const STATUS_MARKS: Record<CellStatus, string> = { go: "✓", partial: "◐", no: "✗", unknown: "?", closed: "–" };
 
+/**
+ * Slot start times (`YYYY-MM-DDTHH:mm`, ascending) as runs of consecutive hours: "12-02 07:00–17:00, 12-02 21:00–12-03 05:00".
+ * A run ends at the end of its last slot.
+ */
+export function hourRanges(times: string[]): string {
+  const ms = (t: string) => Date.UTC(+t.slice(0, 4), +t.slice(5, 7) - 1, +t.slice(8, 10), +t.slice(11, 13), +t.slice(14, 16));
+  const label = (m: number, withDate: boolean) => {
+    const d = new Date(m);
+    const p = (n: number) => String(n).padStart(2, "0");
+    return `${withDate ? `${p(d.getUTCMonth() + 1)}-${p(d.getUTCDate())} ` : ""}${p(d.getUTCHours())}:${p(d.getUTCMinutes())}`;
+  };
+  const runs: [number, number][] = [];
+  for (const t of times) {
+    const m = ms(t);
+    const last = runs[runs.length - 1];
+    if (last && m === last[1]) last[1] = m + 3_600_000;
+    else runs.push([m, m + 3_600_000]);
+  }
+  return runs.map(([a, b]) => `${label(a, true)}–${label(b, new Date(a).getUTCDate() !== new Date(b).getUTCDate())}`).join(", ");
+}
+
 /** The board reduced to one status per (date, shift, operation), the part the next notice compares. */
 export type CompactBoard = Record<string, CellStatus>;
 

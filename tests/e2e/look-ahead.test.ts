@@ -49,7 +49,7 @@ describe("week ahead", () => {
     const detail = page.getByTestId("cell-detail");
     await detail.waitFor();
     expect(await detail.getByRole("heading", { level: 3 }).textContent()).toContain(`Overlay placement, Day shift`);
-    expect(await detail.getByTestId("failing-gates").textContent()).toMatch(/Minimum temperature fails at/);
+    expect(await detail.getByTestId("failing-gates").textContent()).toMatch(/Minimum temperature fails \d{2}-\d{2} 07:00–17:00/);
     const firstHour = detail.getByTestId("hour-reasons").locator("tbody tr").first();
     expect(await firstHour.textContent()).toMatch(/07:00.*✗ fails.*Minimum temperature: \d+ °F against a minimum of 45 °F/);
     await screenshot(page, "week-ahead-cold-snap");

@@ -1,6 +1,6 @@
 /** The daily look-ahead e-mail's words: the board as lines, and what changed since the last notice. */
 import { describe, expect, it } from "vitest";
-import { boardLines, changesSince, compactBoard } from "../../src/lib/look-ahead-notice";
+import { boardLines, changesSince, compactBoard, hourRanges } from "../../src/lib/look-ahead-notice";
 import type { LookAheadDay, OperationCell } from "../../sim/lookahead";
 
 const cell = (status: OperationCell["status"], extra: Partial<OperationCell> = {}): OperationCell => ({
@@ -34,5 +34,13 @@ describe("look-ahead notice", () => {
     expect(changesSince(yesterday, today)).toEqual(["Thu 2027-04-08, Day shift, Overlay placement: may work → blocked"]);
     expect(changesSince(null, today)).toEqual([]);
     expect(changesSince(compactBoard(today), today)).toEqual([]);
+  });
+});
+
+describe("hour ranges", () => {
+  it("joins consecutive slots into runs that end with their last slot, naming the date when a run crosses midnight", () => {
+    expect(hourRanges(["2027-04-08T07:00", "2027-04-08T08:00", "2027-04-08T14:00"])).toBe("04-08 07:00–09:00, 04-08 14:00–15:00");
+    expect(hourRanges(["2027-04-08T22:00", "2027-04-08T23:00", "2027-04-09T00:00"])).toBe("04-08 22:00–04-09 01:00");
+    expect(hourRanges(["2027-04-08T23:00"])).toBe("04-08 23:00–04-09 00:00");
   });
 });

@@ -1,5 +1,5 @@
 "use client";
-import { STATUS_WORDS } from "@/lib/look-ahead-notice";
+import { STATUS_WORDS, hourRanges } from "@/lib/look-ahead-notice";
 import { GATE_LABELS } from "@sim/lookahead-gates";
 import type { LookAheadDay, LookAheadShift, OperationCell } from "@sim/lookahead";
 
@@ -30,7 +30,7 @@ export function CellDetail({ day, shift, cell, onClose }: { day: LookAheadDay; s
         <ul className="mt-2 list-disc pl-5 text-sm" data-testid="failing-gates">
           {cell.failing.map((f) => (
             <li key={f.gate}>
-              <strong>{f.label}</strong> fails at {f.at.map(hhmm).join(", ")}
+              <strong>{f.label}</strong> fails {hourRanges(f.at)}
             </li>
           ))}
         </ul>
