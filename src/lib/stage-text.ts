@@ -6,6 +6,11 @@
 import type { Scenario } from "@sim/schema";
 import { formatStation } from "./format";
 
+/** "Stage 2: North lanes" — or the name alone when it already says which stage it is ("Stage 2: …"). */
+export function stageLabel(name: string, i: number): string {
+  return new RegExp(`^\\s*stage\\s*${i + 1}\\b`, "i").test(name) ? name : `Stage ${i + 1}: ${name}`;
+}
+
 export function stageSentence(s: Scenario, i: number): string {
   const st = s.stages[i];
   const deckEnd = s.deck.startStationFt + s.deck.lengthFt;
@@ -28,5 +33,5 @@ export function stageSentence(s: Scenario, i: number): string {
         : `; follows stage ${k + 1} along the deck once it is restored${lag ? ` (${lag} behind)` : ""}`;
   }
   const capacity = st.capacityVehPerHour !== undefined ? `; traffic capacity ${st.capacityVehPerHour.toLocaleString("en-US")} veh/h per direction` : "";
-  return `Stage ${i + 1}, ${st.name}: lanes ${st.lanes.join(", ")} ${where}; ${standing}${ops}${follows}${capacity}.`;
+  return `${stageLabel(st.name, i)} — lanes ${st.lanes.join(", ")} ${where}; ${standing}${ops}${follows}${capacity}.`;
 }

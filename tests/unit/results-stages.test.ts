@@ -8,7 +8,7 @@ import type { ClosurePeriodSummary } from "@sim/summary-closures";
 import { closureRows, lanesClosed } from "@/components/results/closure-strip";
 import { isoToDay } from "@/components/results/date-axis";
 import { seriesByStage } from "@/components/results/stage-series";
-import { stageSentence } from "@/lib/stage-text";
+import { stageLabel, stageSentence } from "@/lib/stage-text";
 
 const deck = { startStationFt: 0, lengthFt: 200, packetFt: 100 };
 const ops = [
@@ -108,7 +108,15 @@ describe("closure strip", () => {
   });
 });
 
-describe("stageSentence", () => {
+describe("stage text", () => {
+  it("a stage's label names its number once", () => {
+    expect(stageLabel("North lanes", 1)).toBe("Stage 2: North lanes");
+    expect(stageLabel("Stage 2: North lanes", 1)).toBe("Stage 2: North lanes");
+    expect(stageLabel("stage 2 — north", 1)).toBe("stage 2 — north");
+    // "Stage 12" is not stage 1.
+    expect(stageLabel("Stage 12 lanes", 0)).toBe("Stage 1: Stage 12 lanes");
+  });
+
   const load = (f: string) => {
     const p = parseScenario(JSON.parse(readFileSync(new URL(`../../scenarios/${f}`, import.meta.url), "utf8")));
     if (!p.ok) throw new Error(`${f} invalid`);
@@ -116,7 +124,7 @@ describe("stageSentence", () => {
   };
   it("the staged demo: lanes, barrier, order and capacity in words", () => {
     const s = load("kestrel-staged-three-lane.json");
-    expect(stageSentence(s, 0)).toMatch(/^Stage 1, .*: lanes L1 over the whole deck; L1 behind barrier round the clock until restored; operations: /);
+    expect(stageSentence(s, 0)).toMatch(/^Stage 1: L1 behind barrier, traffic on L2-L3 — lanes L1 over the whole deck; L1 behind barrier round the clock until restored; operations: /);
     expect(stageSentence(s, 1)).toMatch(/L2, L3 behind barrier round the clock until restored;.* starts after stage 1 is finished \(\+24 h\); traffic capacity 2,600 veh\/h per direction\.$/);
   });
   it("an upgraded one-stage plan says it has no barrier between shifts; a stretch is given in stations", () => {

@@ -78,8 +78,8 @@ describe("stages and lane-closed hours in words", () => {
       }),
     );
     expect(two.stages).toEqual([
-      "Stage 1, North lane (L1): restored P50 19 May 2027 · P80 24 May 2027",
-      "Stage 2, South lanes (L2, L3): restored P50 4 Aug 2027 · P80 not reached within the six-year horizon",
+      "Stage 1: North lane (L1): restored P50 19 May 2027 · P80 24 May 2027",
+      "Stage 2: South lanes (L2, L3): restored P50 4 Aug 2027 · P80 not reached within the six-year horizon",
     ]);
     expect(plainSummary(summary({ stages: [{ id: "a", name: "Whole deck", lanes: ["L1"], finish: q("2027-05-19", "2027-05-24") }] })).stages).toEqual([]);
   });

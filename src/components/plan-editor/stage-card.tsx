@@ -9,6 +9,7 @@ import { useEffect, useState } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import type { ScenarioInput } from "@sim/schema";
 import { formatStation } from "@/lib/format";
+import { stageLabel } from "@/lib/stage-text";
 import { CheckboxGroup, NumberField, SelectField, TextField, n } from "./fields";
 import { StationField } from "./station-field";
 import { standingMode, type StageValues, type StandingMode } from "./stages-logic";
@@ -60,9 +61,8 @@ export function StageCard({ i, count, readOnly, onMoveUp, onMoveDown, onRemove }
   return (
     <section className="card" aria-labelledby={`${p}-heading`} data-testid={`stage-${i}`}>
       <div className="flex flex-wrap items-start justify-between gap-3">
-        <h3 id={`${p}-heading`} className="flex items-center gap-2">
-          <span className="badge bg-brand-50 text-brand-800">{title}</span>
-          <span className="text-base">{stage?.name || "(no name)"}</span>
+        <h3 id={`${p}-heading`} className="text-base">
+          {stageLabel(stage?.name || "(no name)", i)}
         </h3>
         {!readOnly && (
           <div className="flex gap-2">

@@ -41,7 +41,7 @@ export function ClosureStrip({ timeline, lo, hi, laneClosed }: { timeline: Closu
           {rows.map((r) => (
             <div key={r.closure}>
               <p className="text-xs" style={{ paddingLeft: INSET.left }}>
-                <span className="font-medium">{r.kind === "standing" ? `Barrier: ${r.name}` : r.name}</span>
+                <span className="font-medium">{r.kind === "standing" ? `Barrier of ${r.name}` : r.name}</span>
                 <span className="text-muted">
                   {" "}
                   — {r.lanes.join(", ")} · {r.kind === "standing" ? "standing" : "short-term"}

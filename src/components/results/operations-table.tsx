@@ -8,6 +8,7 @@ import { useMemo, useState } from "react";
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { SortableHead, TableRows } from "@/components/sortable-table";
 import type { RunSummary } from "@sim/summary";
+import { stageLabel } from "@/lib/stage-text";
 import { quantileText } from "./summary-text";
 
 type Row = { order: number; stage: string; name: string; finish: RunSummary["operations"][number]["finish"] };
@@ -19,7 +20,7 @@ const dateCell = (v: string) => (v === "unfinished" ? <span className="text-warn
 export function OperationsTable({ operations, stages = [] }: { operations: RunSummary["operations"]; stages?: RunSummary["stages"] }) {
   const staged = stages.length > 1;
   const data = useMemo(() => {
-    const stageRows = staged ? stages.map((st, i) => ({ stage: `Stage ${i + 1}: ${st.name}`, name: `Lanes ${st.lanes.join(", ")} restored`, finish: st.finish })) : [];
+    const stageRows = staged ? stages.map((st, i) => ({ stage: stageLabel(st.name, i), name: `Lanes ${st.lanes.join(", ")} restored`, finish: st.finish })) : [];
     const opRows = operations.map((o) => ({ stage: staged ? "All stages (last packet)" : "", name: o.name, finish: o.finish }));
     return [...stageRows, ...opRows].map((r, order) => ({ ...r, order }));
   }, [operations, stages, staged]);

@@ -1,12 +1,13 @@
 "use client";
 /** Which stages the time–distance chart draws: all of them, or one (with its lanes and P50 restoration). */
 import type { RunSummary } from "@sim/summary";
+import { stageLabel } from "@/lib/stage-text";
 import { quantileText } from "./summary-text";
 import type { StageInfo } from "./stage-series";
 
 export function StageSelector({ stages, finishes, value, onChange }: { stages: StageInfo[]; finishes: RunSummary["stages"]; value: string; onChange: (id: string) => void }) {
   const finishOf = new Map(finishes.map((f) => [f.id, f.finish.p50]));
-  const options = [{ id: "all", label: "All stages", detail: `${stages.length} stages` }, ...stages.map((st, i) => ({ id: st.id, label: `Stage ${i + 1}: ${st.name}`, detail: [st.lanes?.length ? `lanes ${st.lanes.join(", ")}` : "", finishOf.has(st.id) ? `restored P50 ${quantileText(finishOf.get(st.id)!)}` : ""].filter(Boolean).join(" · ") }))];
+  const options = [{ id: "all", label: "All stages", detail: `${stages.length} stages` }, ...stages.map((st, i) => ({ id: st.id, label: stageLabel(st.name, i), detail: [st.lanes?.length ? `lanes ${st.lanes.join(", ")}` : "", finishOf.has(st.id) ? `restored P50 ${quantileText(finishOf.get(st.id)!)}` : ""].filter(Boolean).join(" · ") }))];
   return (
     <fieldset className="mb-3" data-testid="stage-selector">
       <legend className="mb-1 text-xs font-medium text-muted">Show</legend>

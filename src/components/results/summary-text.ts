@@ -5,6 +5,7 @@
  */
 import type { RunSummary } from "@sim/summary";
 import { formatIsoDate, formatPercent } from "@/lib/format";
+import { stageLabel } from "@/lib/stage-text";
 
 /**
  * A run is called stable when the P80 of its two halves differs by at most this many days. Our own
@@ -32,7 +33,7 @@ export interface PlainSummary {
   season1: string | null;
   unfinished: string | null;
   convergence: { stable: boolean | null; text: string };
-  /** One line per stage when there are several: "Stage 1 (L1): lanes restored P50 … · P80 …". */
+  /** One line per stage when there are several: "Stage 1: North lane (L1): restored P50 … · P80 …". */
   stages: string[];
   /** Lane-closed hours over the whole job, or null for runs stored before the closure timeline. */
   laneClosed: string | null;
@@ -68,7 +69,7 @@ export function plainSummary(s: RunSummary): PlainSummary {
     };
   const stages =
     (s.stages?.length ?? 0) > 1
-      ? s.stages.map((st, i) => `Stage ${i + 1}, ${st.name} (${st.lanes.join(", ")}): restored P50 ${quantileText(st.finish.p50)} · P80 ${quantileText(st.finish.p80)}`)
+      ? s.stages.map((st, i) => `${stageLabel(st.name, i)} (${st.lanes.join(", ")}): restored P50 ${quantileText(st.finish.p50)} · P80 ${quantileText(st.finish.p80)}`)
       : [];
   const hours = (x: number) => Math.round(x).toLocaleString("en-US");
   const laneClosed = s.laneClosedHours

@@ -13,6 +13,7 @@ import { compileCalendar, HORIZON_DAYS } from "@sim/calendar";
 import type { Scenario } from "@sim/schema";
 import type { RunSummary } from "@sim/summary";
 import { formatStation } from "@/lib/format";
+import { stageLabel } from "@/lib/stage-text";
 import { AXIS_TICK, GRID_STROKE, seriesStyle } from "./chart-style";
 import { dateTicks, formatDay, hoursToDay } from "./date-axis";
 import { ClosureStrip } from "./closure-strip-view";
@@ -88,7 +89,7 @@ export function TimeDistanceChart({
   const series = visible.flatMap((g) => g.series.map((s) => ({ ...s, key: `${g.stage?.id ?? ""}/${s.id}`, stage: g.stage })));
   // The legend lists each operation once, in the plan's order, with the style it has in every stage.
   const legend = [...new Map(series.map((s) => [s.id, s])).values()].sort((a, b) => a.styleIndex - b.styleIndex);
-  const stageStarts = staged ? visible.map((g) => ({ id: g.stage!.id, label: g.stage!.name, x: Math.min(...g.series.filter((s) => s.firstStart !== null).map((s) => s.firstStart!)) })).filter((m) => Number.isFinite(m.x)) : [];
+  const stageStarts = staged ? visible.map((g) => ({ id: g.stage!.id, label: `Stage ${groups.indexOf(g) + 1} starts`, x: Math.min(...g.series.filter((s) => s.firstStart !== null).map((s) => s.firstStart!)) })).filter((m) => Number.isFinite(m.x)) : [];
   const yLo = plan.deck.startStationFt;
   const yHi = plan.deck.startStationFt + plan.deck.lengthFt;
   const { ticks, label } = dateTicks(lo, hi, 8);
@@ -211,7 +212,7 @@ export function TimeDistanceChart({
       </figcaption>
       {summary.representative?.closureTimeline && <ClosureStrip timeline={summary.representative.closureTimeline} lo={lo} hi={hi} laneClosed={summary.laneClosedHours} />}
       <div className="sr-only">
-        <table>
+        <table data-testid="time-distance-table">
         <caption>Operations in the representative iteration</caption>
         <thead>
           <tr>
@@ -227,7 +228,7 @@ export function TimeDistanceChart({
         <tbody>
           {series.map((s) => (
             <tr key={s.key}>
-              {staged && <td>{s.stage?.name}</td>}
+              {staged && <td>{s.stage ? stageLabel(s.stage.name, groups.findIndex((g) => g.stage?.id === s.stage!.id)) : ""}</td>}
               <th scope="row">{s.name}</th>
               <td>{s.firstStart === null ? "—" : formatDay(s.firstStart)}</td>
               <td>{s.lastFinish === null ? "—" : formatDay(s.lastFinish)}</td>
