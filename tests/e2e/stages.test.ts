@@ -59,6 +59,7 @@ describe("stages", () => {
     await page.getByText("STA 5+00 (500 ft)").waitFor();
     await page.locator('[id="stages.1.after.lagHours"]').fill("48");
     await screenshot(page, "plan-stages");
+    expect(await page.locator('[id="stages.1.after.stage"] option:checked').textContent()).toBe(STAGED.stages[0].name);
     expect(await seriousA11yViolations(page)).toEqual([]);
 
     await page.getByTestId("save-scenario").click();
@@ -90,6 +91,8 @@ describe("stages", () => {
     expect(await page.getByTestId("stage-finishes").textContent()).toMatch(/Stage 1: .*restored P50 .*Stage 2: L2 and L3 behind barrier \(L2, L3\): restored P50/);
     const table = page.getByTestId("operations-table");
     expect(await table.textContent()).toContain("Lanes L2, L3 restored");
+    // Nothing added for stages widens the page (hidden tables included).
+    expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(1);
     await chart.scrollIntoViewIfNeeded();
     await screenshot(page, "outlook-stages");
     await chart.screenshot({ path: new URL("./screenshots/time-distance-stages.png", import.meta.url).pathname });

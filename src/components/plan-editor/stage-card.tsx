@@ -52,7 +52,7 @@ export function StageCard({ i, count, readOnly, onMoveUp, onMoveDown, onRemove }
 
   const someOps = Array.isArray(stage?.operations);
   const opOptions = operations.map((o) => ({ value: o.id, label: o.name || o.id }));
-  const earlier = all.slice(0, i).map((s, j) => ({ value: s.id, label: `Stage ${j + 1}: ${s.name || s.id}` }));
+  const earlier = all.slice(0, i).map((s, j) => ({ value: s.id, label: stageLabel(s.name || s.id, j) }));
   const when = stage?.after?.when ?? "stageDone";
   const deckStart = deck?.startStationFt ?? 0;
   const deckEnd = deckStart + (deck?.lengthFt ?? 0);

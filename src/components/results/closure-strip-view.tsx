@@ -67,7 +67,9 @@ export function ClosureStrip({ timeline, lo, hi, laneClosed }: { timeline: Closu
           </div>
         </div>
       )}
-      <table className="sr-only">
+      {/* A table ignores the width sr-only sets, so it hides inside a block that honours it. */}
+      <div className="sr-only">
+      <table data-testid="closure-table">
         <caption>Closures in the representative iteration</caption>
         <thead>
           <tr>
@@ -94,6 +96,7 @@ export function ClosureStrip({ timeline, lo, hi, laneClosed }: { timeline: Closu
           ))}
         </tbody>
       </table>
+      </div>
     </div>
   );
 }

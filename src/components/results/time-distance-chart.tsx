@@ -108,7 +108,7 @@ export function TimeDistanceChart({
       {staged && <StageSelector stages={groups.map((g) => g.stage!)} finishes={summary.stages ?? []} value={shown} onChange={setShown} />}
       <div aria-hidden="true">
         <ResponsiveContainer width="100%" height={380} initialDimension={{ width: 700, height: 380 }}>
-          <LineChart margin={{ top: 16, right: 24, bottom: 28, left: 16 }} accessibilityLayer={false}>
+          <LineChart margin={{ top: stageStarts.length ? 26 : 16, right: 24, bottom: 28, left: 16 }} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
             {bands.map((b, i) => (
               <ReferenceArea
@@ -160,7 +160,7 @@ export function TimeDistanceChart({
               );
             })}
             {stageStarts.map((m) => (
-              <ReferenceLine key={`stage-${m.id}`} x={m.x} stroke="var(--color-ink)" strokeDasharray="2 2" ifOverflow="hidden" label={{ value: m.label, position: "insideTopRight", angle: -90, dx: -4, dy: 4, fontSize: 11, fill: "var(--color-ink)", textAnchor: "end" }} />
+              <ReferenceLine key={`stage-${m.id}`} x={m.x} stroke="var(--color-ink)" strokeDasharray="2 2" ifOverflow="hidden" label={{ value: `▸ ${m.label}`, position: "top", textAnchor: "start", dx: -4, fontSize: 12, fontWeight: 600, fill: "var(--color-ink)" }} />
             ))}
             {dataDay !== undefined && <ReferenceLine x={dataDay} stroke="var(--color-ink)" strokeDasharray="4 3" ifOverflow="hidden" label={{ value: "Data date", position: "insideTopRight", fontSize: 12, fill: "var(--color-ink)" }} />}
             {series.map((s) => {
