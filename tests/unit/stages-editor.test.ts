@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { resolveStages } from "@sim/stages";
 import { parseScenario } from "@sim/validate";
 import { sectionOf, toFormValues } from "@/components/plan-editor/plan-logic";
-import { newStage, parseStationText, repairStageOrder, stageFormValues, standingMode, type StageValues } from "@/components/plan-editor/stages-logic";
+import { newStage, parseStationText, repairStageOrder, stageFormValues, standingMode, withoutOperation, type StageValues } from "@/components/plan-editor/stages-logic";
 
 const demo = (file: string) => JSON.parse(readFileSync(new URL(`../../scenarios/${file}`, import.meta.url), "utf8"));
 const demos = readdirSync(new URL("../../scenarios/", import.meta.url)).filter((f) => f.endsWith(".json"));
@@ -73,6 +73,15 @@ describe("newStage", () => {
     const parsed = parseScenario({ ...form, traffic: undefined, stages: [first, newStage([first], form.deck.lanes)] });
     if (!parsed.ok) throw new Error(parsed.problems.map((p) => `${p.path}: ${p.message}`).join("; "));
     expect(parsed.scenario.stages).toHaveLength(2);
+  });
+});
+
+describe("withoutOperation", () => {
+  it("drops a removed operation from stages that list it; stages running every operation are untouched", () => {
+    const list = [{ ...stage("a", ["L1"]), operations: ["mill", "pour"] }, stage("b", ["L2"], "a")];
+    const out = withoutOperation(list, "pour");
+    expect(out[0].operations).toEqual(["mill"]);
+    expect(out[1]).toBe(list[1]);
   });
 });
 

@@ -4,7 +4,7 @@
  * clean) and spells out the default `after` of every stage but the first (the previous stage, when it is
  * done, no lag — MODEL.md "Stages"), which means the same as leaving it out; `repairStageOrder` keeps each
  * `after` pointing at an earlier stage after a move or removal; `newStage` proposes the next stage;
- * `standingMode` names how a stage's standing closure relates to its lanes; `parseStationText` reads
+ * `withoutOperation` drops a removed operation from the stages' lists; `standingMode` names how a stage's standing closure relates to its lanes; `parseStationText` reads
  * `12+50`, `STA 12+50` or feet.
  */
 import type { ScenarioInput } from "@sim/schema";
@@ -68,6 +68,11 @@ function unusedId(base: string, taken: readonly string[]): string {
   let id = base;
   for (let k = 2; taken.includes(id); k++) id = `${base}-${k}`;
   return id;
+}
+
+/** Stages after operation `id` is removed from the plan: it leaves every stage's own list of operations. */
+export function withoutOperation(stages: readonly StageValues[], id: string): StageValues[] {
+  return stages.map((st) => (st.operations?.includes(id) ? { ...st, operations: st.operations.filter((o) => o !== id) } : st));
 }
 
 export type StandingMode = "same" | "more" | "none";

@@ -83,9 +83,13 @@ export function TimeDistanceChart({
   if (!model || model.lo === model.hi) {
     return <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted">The representative iteration did no work that can be drawn (it did not finish within the horizon).</p>;
   }
-  const { groups, bands, lo, hi } = model;
+  const { groups, bands } = model;
   const staged = groups.length > 1;
   const visible = staged && shown !== "all" ? groups.filter((g) => g.stage?.id === shown) : groups;
+  // One stage on its own is drawn over its own dates (the closure strip follows); all stages share the whole span.
+  const own = visible.length < groups.length ? visible.flatMap((g) => g.series).filter((s) => s.points.length > 0) : [];
+  const lo = own.length ? Math.min(...own.map((s) => s.firstStart!)) : model.lo;
+  const hi = own.length ? Math.max(...own.map((s) => s.lastFinish!)) : model.hi;
   const series = visible.flatMap((g) => g.series.map((s) => ({ ...s, key: `${g.stage?.id ?? ""}/${s.id}`, stage: g.stage })));
   // The legend lists each operation once, in the plan's order, with the style it has in every stage.
   const legend = [...new Map(series.map((s) => [s.id, s])).values()].sort((a, b) => a.styleIndex - b.styleIndex);
