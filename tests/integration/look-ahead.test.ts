@@ -33,10 +33,10 @@ describe("the week ahead", () => {
   it("refuses a location out of range or half given, naming the field", async () => {
     const far = await call(`/api/projects/${projectId}/location`, { method: "PUT", cookie: admin, body: { latitude: 95, longitude: -88 } });
     expect(far.status).toBe(400);
-    expect(far.body.fields).toEqual([{ path: "latitude", message: "Latitude must be between −90 and 90 degrees." }]);
+    expect(far.body.fields).toEqual([{ path: "latitude", label: "Latitude", message: "Latitude must be between −90 and 90 degrees." }]);
     const half = await call(`/api/projects/${projectId}/location`, { method: "PUT", cookie: admin, body: { latitude: 30, longitude: null } });
     expect(half.status).toBe(400);
-    expect(half.body.fields[0]).toEqual({ path: "longitude", message: "Give both latitude and longitude, or clear both." });
+    expect(half.body.fields[0]).toEqual({ path: "longitude", label: "Longitude", message: "Give both latitude and longitude, or clear both." });
   });
 
   it("without a location the board still answers, and says why there is no forecast", async () => {
