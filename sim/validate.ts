@@ -10,11 +10,14 @@ import { openBeforeBlocks, type DayPattern } from "./calendar";
 import { daysInMonth, parseIsoDate } from "./dates";
 import { distributionBounds } from "./distributions";
 import { formatPath, scenarioSchema, type FieldProblem, type Scenario } from "./schema";
+import { upgradeScenario } from "./upgrade";
+import { stageProblems } from "./validate-stages";
 
 export type ParseResult = { ok: true; scenario: Scenario } | { ok: false; problems: FieldProblem[] };
 
+/** Accepts version 1 and 2 input (version 1 is upgraded first, ./upgrade); always returns version 2. */
 export function parseScenario(input: unknown): ParseResult {
-  const parsed = scenarioSchema.safeParse(input);
+  const parsed = scenarioSchema.safeParse(upgradeScenario(input));
   if (!parsed.success) {
     return {
       ok: false,
@@ -64,7 +67,7 @@ export function semanticProblems(s: Scenario): FieldProblem[] {
         out.push({ path: `operations[${i}].shifts[${j}]`, message: `unknown shift "${sh}"` });
       }
     });
-    if (!closureIds.has(op.closure)) {
+    if (op.closure !== undefined && !closureIds.has(op.closure)) {
       refsOk = false;
       out.push({ path: `operations[${i}].closure`, message: `unknown closure "${op.closure}"` });
     }
@@ -127,6 +130,8 @@ export function semanticProblems(s: Scenario): FieldProblem[] {
   if (s.targetDate && parseIsoDate(s.targetDate) < startDay)
     out.push({ path: "targetDate", message: "must not be before startDate" });
 
+  const stages = stageProblems(s);
+  out.push(...stages);
   if (refsOk) out.push(...calendarProblems(s));
   return out;
 }
@@ -176,25 +181,24 @@ function calendarProblems(s: Scenario): FieldProblem[] {
   s.operations.forEach((op, i) => {
     if (op.kind !== "crew") return;
     const shifts = op.shifts.map((id) => cal.shifts.find((x) => x.id === id)!);
-    const windows = cal.closureWindows.filter((w) => w.closure === op.closure);
-    const a = openBeforeBlocks(ordinary, shifts, windows).open;
-    const b = openBeforeBlocks(holiday, shifts, windows).open;
+    const closure = op.closure === undefined ? null : cal.closures.find((c) => c.id === op.closure)!;
+    const windows = closure ? cal.closureWindows.filter((w) => w.closure === op.closure) : null;
+    const a = openBeforeBlocks(ordinary, shifts, windows, closure).open;
+    const b = openBeforeBlocks(holiday, shifts, windows, closure).open;
     if (a.length === 0 && b.length === 0) {
       out.push({
         path: `operations[${i}].shifts`,
-        message: `the shifts of "${op.id}" never overlap a window of closure "${op.closure}" on its work days: it can never work`,
+        message: closure && (closure.setupHours > 0 || closure.takedownHours > 0)
+          ? `the shifts of "${op.id}" never overlap the usable part (after ${closure.setupHours} h set-up, before ${closure.takedownHours} h take-down) of a window of closure "${op.closure}" on its work days: it can never work`
+          : `the shifts of "${op.id}" never overlap a window of closure "${op.closure}" on its work days: it can never work`,
       });
       return;
     }
-    const rising = op.gates.rising === true;
-    if (rising && !op.continuous && !anyRisingOpen(a) && !anyRisingOpen(b)) {
-      out.push({ path: `operations[${i}].gates.rising`, message: `"${op.id}" is never open between 06:00 and 15:00, so the rising gate never passes` });
-      return;
-    }
+    // `rising` is judged from the weather (MODEL.md), not the clock: a warm night can rise, so it limits no hour here.
     if (!op.continuous) return;
     const maxRate = distributionBounds(op.rate.dist).max * (op.rate.unit === "ftPerShift" ? 1 / shifts[0].lengthHours : 1);
     const hours = Math.min(s.deck.packetFt, s.deck.lengthFt) / maxRate;
-    const best = Math.max(longestFit(a, hours, rising), longestFit(b, hours, rising));
+    const best = Math.max(longestInterval(a), longestInterval(b));
     if (best < hours - 1e-9) {
       out.push({
         path: `operations[${i}]`,
@@ -207,26 +211,9 @@ function calendarProblems(s: Scenario): FieldProblem[] {
 
 const round = (x: number) => Math.round(x * 100) / 100;
 
-function anyRisingOpen(p: number[]): boolean {
-  for (let i = 0; i < p.length; i += 2) {
-    for (let k = Math.floor(p[i]); k < p[i + 1]; k++) if (k % 24 >= 6 && k % 24 < 15) return true;
-  }
-  return false;
-}
-
-/** Longest time available after a candidate start (interval start or whole hour; rising if required). */
-function longestFit(p: number[], hours: number, rising: boolean): number {
+/** Longest open interval: a continuous packet starts at its beginning at the earliest. */
+function longestInterval(p: number[]): number {
   let best = 0;
-  for (let i = 0; i < p.length; i += 2) {
-    const [a, b] = [p[i], p[i + 1]];
-    if (!rising) {
-      best = Math.max(best, b - a);
-      continue;
-    }
-    for (let t = a; t < b; t = t === a && !Number.isInteger(a) ? Math.ceil(a) : t + 1) {
-      if (Math.floor(t) % 24 >= 6 && Math.floor(t) % 24 < 15) best = Math.max(best, b - t);
-      if (best >= hours) return best;
-    }
-  }
+  for (let i = 0; i < p.length; i += 2) best = Math.max(best, p[i + 1] - p[i]);
   return best;
 }

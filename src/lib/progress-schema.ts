@@ -6,6 +6,7 @@
 import { z } from "zod";
 import { parseStation } from "@sim/progress-rules";
 export { checkDependents, checkProgressEntry, crewPredecessors, parseStation, sta, type RuleEntry } from "@sim/progress-rules";
+import { plainText, realIsoDate } from "@sim/text";
 
 export const DISCOVERED_KINDS = ["bottom-mat", "full-depth"] as const;
 export const DISCOVERED_LABELS: Record<(typeof DISCOVERED_KINDS)[number], string> = {
@@ -13,7 +14,7 @@ export const DISCOVERED_LABELS: Record<(typeof DISCOVERED_KINDS)[number], string
   "full-depth": "Full-depth repair",
 };
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Work date must be a date (YYYY-MM-DD)");
+const isoDate = realIsoDate("Work date");
 // zod 4 numbers refuse NaN and ±Infinity, so an empty number input (NaN) gets this message.
 const num = (label: string) => z.number({ error: `${label} must be a number` });
 /** A station as a number of feet, or typed as feet or 12+50; anything else ("12a0") is refused, never trimmed. */
@@ -41,15 +42,15 @@ export type DiscoveredInput = z.infer<typeof discoveredItemSchema>;
 
 const entryObject = z.object({
     workDate: isoDate,
-    shift: z.string().min(1, "Shift must be chosen").max(40),
-    operationId: z.string().min(1, "Operation must be chosen").max(40),
+    shift: plainText(40, { label: "Shift" }).min(1, "Shift must be chosen"),
+    operationId: plainText(40, { label: "Operation" }).min(1, "Operation must be chosen"),
     fromStationFt: station("From station"),
     toStationFt: station("To station"),
-    crew: z.string().trim().max(80, "Crew must be at most 80 characters").default(""),
+    crew: plainText(80, { label: "Crew" }).trim().default(""),
     tempF: num("Temperature").min(-40, "Temperature must be at least −40 °F").max(130, "Temperature must be at most 130 °F").nullable().default(null),
     rain: z.boolean().default(false),
     lostHours: num("Lost hours").min(0, "Lost hours must be between 0 and 24").max(24, "Lost hours must be between 0 and 24").default(0),
-    lostReason: z.string().trim().max(300, "Reason for lost hours must be at most 300 characters").default(""),
+    lostReason: plainText(300, { multiline: true, label: "Reason for lost hours" }).trim().default(""),
     discovered: z.array(discoveredItemSchema).max(50, "At most 50 discovered conditions per shift").default([]),
 });
 
@@ -65,8 +66,8 @@ export type ProgressEntry = z.output<typeof progressEntrySchema>;
 export const progressUpdateSchema = entryObject.extend({ version: z.number().int().min(1, "Version must be the version you loaded") }).superRefine(entryRules);
 
 export const reforecastSchema = z.object({
-  dataDate: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Data date must be a date (YYYY-MM-DD)"),
-  seed: z.string().trim().min(1, "Seed must not be empty").max(60),
+  dataDate: realIsoDate("Data date"),
+  seed: plainText(60, { label: "Seed" }).trim().min(1, "Seed must not be empty"),
   iterations: z.number().int("Iterations must be a whole number").min(10, "Iterations must be at least 10").max(5_000, "Iterations must be at most 5,000 (the server computes re-forecasts)"),
 });
 

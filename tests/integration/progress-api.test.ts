@@ -37,14 +37,14 @@ describe("progress entries", () => {
 
     const again = await post(s.id, milling({ workDate: day(2), fromStationFt: "2+00", toStationFt: "4+00" }));
     expect(again.status).toBe(400);
-    expect(again.body.fields).toEqual([{ path: "fromStationFt", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
+    expect(again.body.fields).toEqual([{ path: "fromStationFt", label: "From station", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
     const letters = await post(s.id, milling({ workDate: day(2), fromStationFt: "3a0", toStationFt: 400 }));
     expect(letters.status).toBe(400);
     expect(letters.body.fields[0]).toMatchObject({ path: "fromStationFt", message: expect.stringContaining("“3a0” is neither") });
 
     const outside = await post(s.id, milling({ fromStationFt: 900, toStationFt: 1100 }));
     expect(outside.status).toBe(400);
-    expect(outside.body.fields).toEqual([{ path: "toStationFt", message: "To station must be inside the deck (STA 0+00 to STA 10+00)" }]);
+    expect(outside.body.fields).toEqual([{ path: "toStationFt", label: "To station", message: "To station must be inside the deck (STA 0+00 to STA 10+00)" }]);
 
     const future = await post(s.id, milling({ workDate: isoDaysFromToday(1) }));
     expect(future.status).toBe(400);
@@ -53,7 +53,7 @@ describe("progress entries", () => {
 
     const ahead = await post(s.id, { ...milling({ operationId: "overlay", fromStationFt: 200, toStationFt: 400 }) });
     expect(ahead.status).toBe(400);
-    expect(ahead.body.fields).toEqual([{ path: "toStationFt", message: "Overlay placement cannot be recorded ahead of Mechanical milling: Mechanical milling has no progress recorded by this shift at STA 3+00" }]);
+    expect(ahead.body.fields).toEqual([{ path: "toStationFt", label: "To station", message: "Overlay placement cannot be recorded ahead of Mechanical milling: Mechanical milling has no progress recorded by this shift at STA 3+00" }]);
 
     const schema = await post(s.id, milling({ lostHours: 25, discovered: [{ kind: "bottom-mat", fromStationFt: 100, toStationFt: 90, areaSqFt: 0 }] }));
     expect(schema.status).toBe(400);
@@ -62,7 +62,7 @@ describe("progress entries", () => {
 
     const outsideItem = await post(s.id, milling({ fromStationFt: 300, toStationFt: 400, discovered: [{ kind: "full-depth", fromStationFt: 390, toStationFt: 420, areaSqFt: 12 }] }));
     expect(outsideItem.status).toBe(400);
-    expect(outsideItem.body.fields).toEqual([{ path: "discovered[0].toStationFt", message: "Condition to station must be inside this shift's range (STA 3+00 to STA 4+00)" }]);
+    expect(outsideItem.body.fields).toEqual([{ path: "discovered[0].toStationFt", label: "Discovered condition 1 › To station", message: "Condition to station must be inside this shift's range (STA 3+00 to STA 4+00)" }]);
     expect((await call(`/api/scenarios/${s.id}/progress`, { cookie: viewer })).body.entries).toHaveLength(1);
   });
 

@@ -48,7 +48,7 @@ describe("uploads", () => {
     const before = await uploadsNow();
     const res = await upload(weatherFields, history(100, 41), "one-bad-row.csv");
     expect(res.status).toBe(400);
-    expect(res.body.fields).toEqual([{ path: "row 43 · daily maximum temperature", message: '"warm" is not a number' }]);
+    expect(res.body.fields).toEqual([{ path: "row 43 · daily maximum temperature", label: "Row 43 · daily maximum temperature", message: '"warm" is not a number' }]);
     expect(res.body.error).toMatch(/nothing was imported/);
     expect(await uploadsNow()).toBe(before);
   });

@@ -19,10 +19,12 @@ function summary(over: Partial<RunSummary> = {}): RunSummary {
     target: null,
     weatherLostShifts: { p50: 3, p80: 5 },
     discoveredHours: { p50: 0, p80: 0 },
-    closureHours: { byClosure: [], totalByClosure: {} },
+    stages: [],
+    laneClosedHours: { total: { p50: 0, p80: 0 }, byClosure: [], byDay: [] },
+    winterStandingShare: 0,
     convergenceDays: 0.5,
     season1End: null,
-    representative: { iteration: 0, finish: "2027-10-03T12:00", finishHours: 0, trace: { packets: [], pauses: [] } },
+    representative: { iteration: 0, finish: "2027-10-03T12:00", finishHours: 0, trace: { packets: [], pauses: [] }, closureTimeline: [] },
     ...over,
   };
 }
@@ -62,6 +64,30 @@ describe("plainSummary", () => {
     expect(some.p80).not.toMatch(/\d/);
     const all = plainSummary(summary({ unfinishedIterations: 1000 }));
     expect(all.unfinished).toMatch(/^None of the 1,000 iterations finished/);
+  });
+});
+
+describe("stages and lane-closed hours in words", () => {
+  const q = (p50: string, p80: string) => ({ p10: p50, p50, p80, p90: p80 });
+  it("one line per stage with its lanes and restoration; none for a one-stage plan", () => {
+    const two = plainSummary(
+      summary({
+        stages: [
+          { id: "a", name: "North lane", lanes: ["L1"], finish: q("2027-05-19", "2027-05-24") },
+          { id: "b", name: "South lanes", lanes: ["L2", "L3"], finish: q("2027-08-04", "unfinished") },
+        ],
+      }),
+    );
+    expect(two.stages).toEqual([
+      "Stage 1: North lane (L1): restored P50 19 May 2027 · P80 24 May 2027",
+      "Stage 2: South lanes (L2, L3): restored P50 4 Aug 2027 · P80 not reached within the six-year horizon",
+    ]);
+    expect(plainSummary(summary({ stages: [{ id: "a", name: "Whole deck", lanes: ["L1"], finish: q("2027-05-19", "2027-05-24") }] })).stages).toEqual([]);
+  });
+  it("lane-closed hours rounded, P50 and P80; absent for runs stored before the closure timeline", () => {
+    const p = plainSummary(summary({ laneClosedHours: { total: { p50: 4803.6, p80: 5120.2 }, byClosure: [], byDay: [] } }));
+    expect(p.laneClosed).toMatch(/^Lane-closed hours: 4,804 P50 · 5,120 P80 /);
+    expect(plainSummary(summary({ laneClosedHours: undefined as unknown as RunSummary["laneClosedHours"] })).laneClosed).toBeNull();
   });
 });
 

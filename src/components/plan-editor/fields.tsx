@@ -5,9 +5,7 @@
  * hidden inside tables), and its zod error is shown under it and linked with `aria-describedby`.
  */
 import { get, useController, useFormContext, useFormState, type Path } from "react-hook-form";
-import { useState } from "react";
 import type { ScenarioInput } from "@sim/schema";
-import { parseStation } from "@sim/progress-rules";
 
 export type Name = Path<ScenarioInput>;
 export const n = (s: string) => s as Name;
@@ -100,7 +98,8 @@ export function TextField({ name, label, hideLabel, hint, className, type = "tex
   );
 }
 
-export function SelectField({ name, label, hideLabel, srPrefix, hint, className, options }: Common & { options: { value: string; label: string }[] }) {
+/** `optional`: the option with value "" stands for "not set" (the field is left out). */
+export function SelectField({ name, label, hideLabel, srPrefix, hint, className, options, optional }: Common & { options: { value: string; label: string }[]; optional?: boolean }) {
   const { register } = useFormContext<ScenarioInput>();
   const error = useFieldError(name);
   return (
@@ -112,7 +111,7 @@ export function SelectField({ name, label, hideLabel, srPrefix, hint, className,
         className="field-input"
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(name, error, hint)}
-        {...register(n(name))}
+        {...register(n(name), optional ? { setValueAs: (v: unknown) => (v === "" || v == null ? undefined : v) } : {})}
       >
         {options.map((o) => (
           <option key={o.value} value={o.value}>
@@ -173,40 +172,3 @@ export function CheckboxGroup<T extends string | number>({ name, legend, options
   );
 }
 
-/**
- * A station, typed as feet (`1250`) or in station notation (`12+50`), like the field log and the survey CSV;
- * letters are refused with a message, never dropped. The form holds feet (NaN while the text is not a station).
- */
-export function StationField({ name, label, hint, className, optional }: Common & { optional?: boolean }) {
-  const { control } = useFormContext<ScenarioInput>();
-  const { field } = useController({ control, name: n(name) });
-  const formError = useFieldError(name);
-  const shown = typeof field.value === "number" && Number.isFinite(field.value) ? String(field.value) : "";
-  // The text as typed; the editor remounts the form when it loads another version, which starts this afresh.
-  const [text, setText] = useState(shown);
-  const ownError = text.trim() !== "" && parseStation(text) === null ? "must be feet (1250) or a station (12+50)" : undefined;
-  const error = ownError ?? formError;
-  return (
-    <div className={className}>
-      <Label id={name} label={label} />
-      <input
-        id={name}
-        data-testid={name}
-        type="text"
-        inputMode="decimal"
-        placeholder="1250 or 12+50"
-        className="field-input min-w-[5.5rem]"
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(name, error, hint)}
-        value={text}
-        onBlur={field.onBlur}
-        onChange={(e) => {
-          setText(e.target.value);
-          const v = e.target.value.trim();
-          field.onChange(v === "" ? (optional ? undefined : Number.NaN) : (parseStation(v) ?? Number.NaN));
-        }}
-      />
-      <ErrorText id={name} error={error} hint={hint} />
-    </div>
-  );
-}

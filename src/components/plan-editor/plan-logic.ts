@@ -6,6 +6,8 @@
  * (from `parseScenario` or the server) to react-hook-form names and to the editor section that shows them.
  */
 import { scenarioSchema, type ScenarioInput } from "@sim/schema";
+import { upgradeScenario } from "@sim/upgrade";
+import { stageFormValues } from "./stages-logic";
 
 export interface LinkLike {
   from: string;
@@ -86,13 +88,14 @@ export function toFormPath(problemPath: string): string {
   return problemPath.replace(/^definition\.?/, "").replace(/\[(\d+)\]/g, ".$1").replace(/^\./, "");
 }
 
-export type SectionId = "sequence" | "crews" | "calendar" | "weather" | "traffic";
+export type SectionId = "sequence" | "stages" | "crews" | "calendar" | "weather" | "traffic";
 
 const SEQUENCE_OP_FIELDS = new Set(["id", "name", "kind"]);
 
 export function sectionOf(problemPath: string): SectionId {
   const p = toFormPath(problemPath).split(".");
   if (p[0] === "weather") return "weather";
+  if (p[0] === "stages") return "stages";
   if (p[0] === "traffic" || p[0] === "costs") return "traffic";
   if (p[0] === "calendar" || p[0] === "startDate" || p[0] === "targetDate" || p[0] === "deck" || p[0] === "timeZone") return "calendar";
   if (p[0] === "operations") {
@@ -105,8 +108,9 @@ export function sectionOf(problemPath: string): SectionId {
 
 /** Fills the schema's defaults in so the form has every field and two versions compare like for like. */
 export function normalizeDefinition(definition: unknown): ScenarioInput {
-  const parsed = scenarioSchema.safeParse(definition);
-  return (parsed.success ? parsed.data : definition) as ScenarioInput;
+  const current = upgradeScenario(definition);
+  const parsed = scenarioSchema.safeParse(current);
+  return (parsed.success ? parsed.data : current) as ScenarioInput;
 }
 
 /** A fresh, lower-case id not yet used, derived from a name. */
@@ -131,7 +135,7 @@ export function convertDist(d: Dist, type: Dist["type"]): Dist {
   return { type, min: r(centre * 0.8), mode: centre, max: r(centre * 1.25) };
 }
 
-const GATE_KEYS = ["minTempF", "noRainHoursAfter", "maxWindMph", "maxEvaporation", "concreteDeltaF"] as const;
+const GATE_KEYS = ["minTempF", "maxTempF", "noRainHoursAfter", "maxWindMph", "maxEvaporation", "concreteDeltaF"] as const;
 
 /**
  * The form's starting values: schema defaults filled, and every optional field present (unset optional
@@ -141,17 +145,25 @@ const GATE_KEYS = ["minTempF", "noRainHoursAfter", "maxWindMph", "maxEvaporation
 export function toFormValues(definition: unknown): ScenarioInput {
   const v = structuredClone(normalizeDefinition(definition)) as ScenarioInput;
   if (!Array.isArray(v.operations)) return v;
+  if (Array.isArray(v.stages)) v.stages = stageFormValues(v.stages);
   v.targetDate = v.targetDate ?? undefined;
   if (v.calendar?.season) {
     v.calendar.season.cutoffDate = v.calendar.season.cutoffDate ?? undefined;
     v.calendar.season.cutoffStationFt = v.calendar.season.cutoffStationFt ?? undefined;
   }
   for (const op of v.operations) {
+    if (op.kind === "wait") {
+      op.countAboveF = op.countAboveF ?? undefined;
+      continue;
+    }
     if (op.kind !== "crew") continue;
     const g: Record<string, unknown> = { ...(op.gates ?? {}) };
     for (const k of GATE_KEYS) g[k] = g[k] ?? undefined;
     g.rising = g.rising ?? false;
     g.noRain = g.noRain ?? false;
+    // Both halves present (blank = undefined): an empty pair parses to "no protection".
+    const pa = (g.protectAfter ?? {}) as { minTempF?: number; hours?: number };
+    g.protectAfter = { minTempF: pa.minTempF ?? undefined, hours: pa.hours ?? undefined };
     op.gates = g as typeof op.gates;
   }
   return v;

@@ -4,11 +4,13 @@
  * people know it by the section it sits in, the row it belongs to (the operation's name) and the field's label.
  * A path this table does not know still reads as words (camelCase split), never as a path.
  */
+import { fieldLabel } from "@sim/field-labels";
 import { monthName } from "@/lib/format";
 import { sectionOf, toFormPath, type SectionId } from "./plan-logic";
 
 export const SECTION_LABELS: Record<SectionId, string> = {
   sequence: "Sequence",
+  stages: "Stages",
   crews: "Crews and rates",
   calendar: "Calendar and closures",
   weather: "Weather",
@@ -123,9 +125,9 @@ const GROUPS = new Set(["calendar", "season", "holidays", "deck", "weather", "tr
 const upper = (s: string) => (s ? s[0].toUpperCase() + s.slice(1) : s);
 const isIndex = (s: string | undefined) => s !== undefined && /^\d+$/.test(s);
 
-/** `openRoadPcPerHour` → "open road pc per hour": a key nobody listed still reads as words. */
+/** A key this table does not list reads as the engine's own label for it (sim/field-labels.ts), else as words. */
 export function humanizeKey(key: string): string {
-  return FIELD_WORDS[key] ?? key.replace(/([a-z0-9])([A-Z])/g, "$1 $2").replace(/_/g, " ").toLowerCase();
+  return FIELD_WORDS[key] ?? fieldLabel(key).toLowerCase();
 }
 
 type Values = Record<string, unknown>;
@@ -170,6 +172,8 @@ function rowLabel(values: unknown, list: string[], index: number): string {
     }
     case "deck.survey":
       return `survey range ${index + 1}`;
+    case "stages":
+      return named("stage");
     default:
       return `${humanizeKey(list[list.length - 1])} ${index + 1}`;
   }

@@ -14,6 +14,7 @@ import type { Link, Operation, ScenarioInput } from "@sim/schema";
 import { NumberField, TextField, n } from "./fields";
 import { layoutGraph, NODE_HEIGHT, NODE_WIDTH } from "./graph-layout";
 import { freshId, proposeLink } from "./plan-logic";
+import { withoutOperation } from "./stages-logic";
 
 type OpIn = ScenarioInput["operations"][number];
 type LinkIn = ScenarioInput["links"][number];
@@ -117,6 +118,7 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
       (getValues("operations") ?? []).filter((o) => o.id !== id),
       (getValues("links") ?? []).filter((l) => l.from !== id && l.to !== id),
     );
+    setValue("stages", withoutOperation(getValues("stages") ?? [], id), { shouldDirty: true, shouldValidate: true });
     setNotice({ bad: false, text: `Removed ${label(id)} and its links.` });
   };
 

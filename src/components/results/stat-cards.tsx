@@ -1,4 +1,4 @@
-/** Small figures of a run: weather-lost shifts, discovered-condition hours, mean closure hours by closure. */
+/** Small figures of a run: weather-lost shifts, discovered-condition hours, lane-closed hours by closure. */
 import type { RunSummary } from "@sim/summary";
 
 const num = (v: number, digits = 0) => (Number.isFinite(v) ? v.toLocaleString("en-US", { maximumFractionDigits: digits }) : "—");
@@ -14,7 +14,7 @@ function Stat({ title, children, note }: { title: string; children: React.ReactN
 }
 
 export function StatCards({ summary }: { summary: RunSummary }) {
-  const closures = summary.closureHours.byClosure.map((c) => ({ id: c.closure, name: c.name, hours: summary.closureHours.totalByClosure[c.closure] ?? 0 }));
+  const closures = (summary.laneClosedHours?.byClosure ?? []).map((c) => ({ id: c.closure, name: c.name, hours: c.p50 }));
   return (
     <div className="grid gap-3 sm:grid-cols-3" data-testid="run-stats">
       <Stat title="Weather-lost shifts" note="Shifts with a ready crew and an open calendar but no production because of weather.">
@@ -31,11 +31,17 @@ export function StatCards({ summary }: { summary: RunSummary }) {
           <span className="text-xl font-semibold">{num(summary.discoveredHours.p80, 1)} h</span> <span className="text-sm">P80</span>
         </p>
       </Stat>
-      <Stat title="Closure hours by closure" note="Mean over iterations: hours a closure is in place for work or mobilization.">
+      <Stat title="Lane-closed hours by closure" note="P50 over iterations: lanes closed × hours the closure stands (set-up and take-down included).">
         {closures.length === 0 ? (
           <p className="text-sm text-muted">No closure was used.</p>
         ) : (
           <dl className="space-y-0.5 text-sm">
+            {summary.laneClosedHours && (
+              <div className="flex justify-between gap-3 border-b border-line pb-0.5">
+                <dt className="font-medium">All closures (a lane closed twice at once counts once)</dt>
+                <dd className="font-semibold tabular-nums">{num(summary.laneClosedHours.total.p50)} h</dd>
+              </div>
+            )}
             {closures.map((c) => (
               <div key={c.id} className="flex justify-between gap-3">
                 <dt>{c.name}</dt>

@@ -1,6 +1,8 @@
 "use client";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useMemo, useState } from "react";
+import { budgetProblem } from "@sim/budget";
+import { parseScenario } from "@sim/validate";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { useEnginePool } from "./use-engine-pool";
@@ -21,6 +23,9 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
   const pool = useEnginePool();
   const [iterations, setIterations] = useState(2_000);
   const [seed, setSeed] = useState("pourline");
+  // The same budget the server checks when the run is saved: refuse here instead of computing in vain.
+  const plan = useMemo(() => parseScenario(definition), [definition]);
+  const overBudget = plan.ok ? budgetProblem(plan.scenario, iterations, "browser") : null;
   const save = useMutation({
     mutationFn: (body: unknown) => api<{ id: string }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
     onSuccess: () => {
@@ -35,6 +40,7 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
   const pct = progress ? Math.floor((progress.done / progress.total) * 100) : pool.state.phase === "done" ? 100 : 0;
 
   async function start() {
+    if (overBudget) return;
     save.reset();
     const result = await pool.start(definition, iterations, seed);
     if (result) save.mutate({ seed, iterations, scenarioVersion: version, summary: result.summary, durationMs: result.durationMs });
@@ -69,7 +75,7 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
             Cancel
           </button>
         ) : (
-          <button type="button" className="btn-primary" onClick={start} disabled={!seed.trim() || save.isPending || blockers.length > 0} data-testid="start-run">
+          <button type="button" className="btn-primary" onClick={start} disabled={!seed.trim() || save.isPending || blockers.length > 0 || overBudget !== null} data-testid="start-run">
             Run {iterations.toLocaleString("en-US")} iterations
           </button>
         )}
@@ -105,6 +111,11 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
                 : ""}
           </p>
         </div>
+      )}
+      {overBudget && (
+        <p role="alert" className="mt-3 text-sm text-bad" data-testid="run-over-budget">
+          Too large to run: {overBudget.message}
+        </p>
       )}
       {pool.state.phase === "cancelled" && <p className="mt-3 text-sm text-muted">Run cancelled; nothing was saved.</p>}
       {pool.state.phase === "failed" && (

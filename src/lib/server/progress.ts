@@ -6,6 +6,8 @@ import "server-only";
 import type { ProgressRecord } from "@sim/index";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
 import { HORIZON_DAYS } from "@sim/calendar";
+import { budgetProblem } from "@sim/budget";
+import type { Scenario } from "@sim/schema";
 import type { z } from "zod";
 import { listProgress, saveReforecastRun, type ProgressFields, type ProgressRow } from "@db/queries/progress";
 import type { ScenarioDetail } from "@db/queries/scenarios";
@@ -55,6 +57,8 @@ export async function runReforecast({ scenario, body, userId, now = new Date() }
   // pretends the days in between passed with no work.
   const today = todayIn(plan.timeZone, now);
   if (body.dataDate > today) throw badRequest([{ path: "dataDate", message: `Data date must not be in the future (today is ${today})` }]);
+  const overBudget = budgetProblem(plan, body.iterations, "server");
+  if (overBudget) throw badRequest([overBudget], "The re-forecast is larger than the server's work budget; nothing was run or saved.");
   const rows = await listProgress({ scenarioId: scenario.id });
   const record = reforecastRunRecord({ plan, definition: scenario.definition, records: rows.map(toRecord), dataDate: body.dataDate, seed: body.seed, iterations: body.iterations });
   const { headline, reforecast, ...columns } = record;

@@ -1,6 +1,7 @@
 import "server-only";
 import type { z } from "zod";
 import { compileScenario, runIterations, summarizeRun, type RunSummary } from "@sim/index";
+import { budgetProblem } from "@sim/budget";
 import { saveRun } from "@db/queries/runs";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { headlineOf, storedRun } from "@/lib/run-record";
@@ -38,16 +39,19 @@ export async function recordRun({ scenario, body, userId }: { scenario: Scenario
   const parsed = validateDefinition(scenario.definition);
   const never = weatherFeasibility(parsed);
   if (never.length) throw badRequest(never, "This plan can never finish; nothing was run.");
+  if (!body.summary && body.iterations > MAX_SERVER_ITERATIONS) {
+    throw badRequest([{ path: "iterations", message: `must be at most ${MAX_SERVER_ITERATIONS} when the server computes the run; larger runs go through the browser` }]);
+  }
+  // Checked before compiling: compiling itself is packets × links work.
+  const overBudget = budgetProblem(parsed, body.iterations, body.summary ? "browser" : "server");
+  if (overBudget) throw badRequest([overBudget], "The run is larger than the work budget; nothing was run or saved.");
   const compiled = compileScenario(parsed);
   const started = Date.now();
   let summary: RunSummary;
   if (body.summary) {
-    summary = body.summary as unknown as RunSummary;
+    summary = body.summary;
     checkClientSummary(compiled, body, summary);
   } else {
-    if (body.iterations > MAX_SERVER_ITERATIONS) {
-      throw badRequest([{ path: "iterations", message: `must be at most ${MAX_SERVER_ITERATIONS} when the server computes the run; larger runs go through the browser` }]);
-    }
     summary = summarizeRun(compiled, runIterations(compiled, body.seed, 0, body.iterations));
   }
   const columns = storedRun({ definition: scenario.definition, seed: body.seed, iterations: body.iterations, summary, durationMs: body.durationMs ?? Date.now() - started });

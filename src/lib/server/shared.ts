@@ -4,6 +4,7 @@ import { getLatestRun } from "@db/queries/runs";
 import { getScenario } from "@db/queries/scenarios";
 import { findLiveShareLink } from "@db/queries/shares";
 import type { ShareScope } from "@db/schema";
+import { parseScenario } from "@sim/validate";
 import { AppError } from "./errors";
 import { hashShareToken } from "./share-token";
 
@@ -34,11 +35,14 @@ export async function loadSharedScenario(token: string) {
   const link = await liveLink(token, SCENARIO_VIEW);
   const scenario = await getScenario({ id: link.scenarioId });
   if (!scenario) throw new AppError("not_found", GONE);
+  // Publish the parsed definition: only fields of the format leave through a link, whatever a row holds.
+  const parsed = parseScenario(scenario.definition);
+  const definition = parsed.ok ? parsed.scenario : scenario.definition;
   const [project, run] = await Promise.all([getProject({ id: scenario.projectId }), getLatestRun({ scenarioId: scenario.id })]);
   return {
     link: { label: link.label, expiresAt: link.expiresAt },
     project: project && { name: project.name, structureName: project.structureName, region: project.region },
-    scenario: { name: scenario.name, description: scenario.description, version: scenario.version, updatedAt: scenario.updatedAt, updatedByName: scenario.updatedByName, definition: scenario.definition },
+    scenario: { name: scenario.name, description: scenario.description, version: scenario.version, updatedAt: scenario.updatedAt, updatedByName: scenario.updatedByName, definition },
     run,
   };
 }

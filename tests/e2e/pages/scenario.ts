@@ -2,10 +2,10 @@
 import type { Page } from "playwright-core";
 import { APP_URL } from "../../helpers/app";
 
-export type ScenarioTab = "outlook" | "plan" | "progress" | "data" | "share" | "brief";
-const TAB_PATH: Record<ScenarioTab, string> = { outlook: "", plan: "/plan", progress: "/progress", data: "/data", share: "/share", brief: "/brief" };
-const TAB_LABEL: Partial<Record<ScenarioTab, string>> = { outlook: "Outlook", plan: "Plan", progress: "Field log", data: "Field data", share: "Share" };
-export type PlanSection = "sequence" | "crews" | "calendar" | "weather" | "traffic";
+export type ScenarioTab = "outlook" | "plan" | "lookAhead" | "progress" | "data" | "share" | "brief";
+const TAB_PATH: Record<ScenarioTab, string> = { outlook: "", plan: "/plan", lookAhead: "/look-ahead", progress: "/progress", data: "/data", share: "/share", brief: "/brief" };
+const TAB_LABEL: Partial<Record<ScenarioTab, string>> = { outlook: "Outlook", plan: "Plan", lookAhead: "Week ahead", progress: "Field log", data: "Field data", share: "Share" };
+export type PlanSection = "sequence" | "stages" | "crews" | "calendar" | "weather" | "traffic";
 
 export class ScenarioPage {
   constructor(

@@ -5,6 +5,7 @@
  */
 import { parseScenario } from "@sim/validate";
 import type { Distribution, Scenario } from "@sim/schema";
+import { stageSentence } from "@/lib/stage-text";
 import { formatIsoDate, formatStation, monthName } from "@/lib/format";
 
 const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
@@ -42,6 +43,8 @@ function gatesText(g: Scenario["operations"][number] & { kind: "crew" }): string
   if (x.noRainHoursAfter) parts.push(`dry ${x.noRainHoursAfter} h after`);
   if (x.maxWindMph !== undefined) parts.push(`wind ≤ ${x.maxWindMph} mph`);
   if (x.maxEvaporation !== undefined) parts.push(`evaporation ≤ ${x.maxEvaporation} lb/ft²/h`);
+  if (x.maxTempF !== undefined) parts.push(`≤ ${x.maxTempF} °F`);
+  if (x.protectAfter?.minTempF !== undefined && x.protectAfter.hours) parts.push(`air ≥ ${x.protectAfter.minTempF} °F for ${x.protectAfter.hours} h after`);
   return parts.length ? parts.join(", ") : "none";
 }
 
@@ -110,13 +113,15 @@ export function InputsSummary({ definition }: { definition: unknown }) {
                     </td>
                     <td className="table-cell">
                       {op.shifts.map((id) => shiftName.get(id) ?? id).join(", ")}
-                      <span className="block text-xs text-muted">{closureName.get(op.closure) ?? op.closure}</span>
+                      <span className="block text-xs text-muted">{op.closure ? (closureName.get(op.closure) ?? op.closure) : "stage's standing closure only"}</span>
                     </td>
                     <td className="table-cell">{gatesText(op)}</td>
                   </>
                 ) : (
                   <>
-                    <td className="table-cell">{dist(op.durationHours, "h")} per packet</td>
+                    <td className="table-cell">
+                      {dist(op.durationHours, "h")} per packet{op.countAboveF !== undefined ? `, counting only hours at or above ${op.countAboveF} °F` : ""}
+                    </td>
                     <td className="table-cell text-muted">no crew</td>
                     <td className="table-cell text-muted">any time</td>
                     <td className="table-cell text-muted">—</td>
@@ -126,6 +131,15 @@ export function InputsSummary({ definition }: { definition: unknown }) {
             ))}
           </tbody>
         </table>
+      </div>
+
+      <div>
+        <h3>Stages</h3>
+        <ul className="mt-1 list-disc space-y-0.5 pl-5" data-testid="inputs-stages">
+          {s.stages.map((_, i) => (
+            <li key={i}>{stageSentence(s, i)}</li>
+          ))}
+        </ul>
       </div>
 
       <div className="grid gap-5 md:grid-cols-2">
@@ -145,7 +159,8 @@ export function InputsSummary({ definition }: { definition: unknown }) {
               const windows = cal.closureWindows.filter((w) => w.closure === c.id);
               return (
                 <li key={c.id}>
-                  {c.name} (closes {c.lanesClosed.join(", ")}):{" "}
+                  {c.name} (closes {c.lanesClosed.join(", ")}
+                  {c.setupHours || c.takedownHours ? `; ${n(c.setupHours)} h set-up, ${n(c.takedownHours)} h take-down` : ""}):{" "}
                   {windows.length
                     ? windows.map((w) => `${w.dayTypes.join("/")} ${clock(w.startHour)}–${clock(w.endHour)}${w.endHour <= w.startHour ? " (overnight)" : ""}`).join("; ")
                     : "no windows"}
@@ -165,7 +180,9 @@ export function InputsSummary({ definition }: { definition: unknown }) {
           </p>
           <h3 className="mt-3">Holidays</h3>
           <p className="mt-1">
-            {cal.holidays.policy === "standDown" ? "Crews stand down over holidays (from 15:00 the day before, with adjoining weekends)" : "Crews work through holidays"}
+            {cal.holidays.policy === "standDown"
+              ? `Crews stand down over holidays (from ${clock(cal.holidays.standDownStartHour)} the day before, with adjoining weekends${cal.holidays.standDownThroughMonday ? " and the Monday after" : ""})`
+              : "Crews work through holidays"}
             {cal.holidays.observeFederal ? "; federal holidays observed" : "; federal holidays not observed"}
             {cal.holidays.blackoutDates.length ? `; ${cal.holidays.blackoutDates.length} blackout dates` : ""}.
           </p>
