@@ -121,6 +121,8 @@ export async function seed(url: string): Promise<"seeded" | "skipped"> {
           results: summary as unknown as Record<string, unknown>,
           durationMs,
           createdById: ownerId,
+          // Computed here by the engine on the server side, not sent by a browser.
+          verification: "server",
         });
       }
     });

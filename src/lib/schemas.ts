@@ -30,14 +30,13 @@ export const shareLinkSchema = z.object({
 });
 
 export const MAX_BROWSER_ITERATIONS = 50_000;
-export const MAX_SERVER_ITERATIONS = 5_000;
 
 export const runWriteSchema = z.object({
   seed: z.string().trim().min(1, "must not be empty").max(60),
   iterations: z.number().int("must be a whole number").min(10, "must be at least 10").max(MAX_BROWSER_ITERATIONS, `must be at most ${MAX_BROWSER_ITERATIONS}`),
   /** The version the run was computed from; a run of an older version is refused rather than mislabelled. */
   scenarioVersion: z.number().int().min(1).optional(),
-  /** A summary computed in the browser's worker pool; the server re-checks it before storing. */
+  /** A summary computed in the browser's worker pool: stored as pending, then verified by a server job. */
   summary: z.record(z.string(), z.unknown()).optional(),
   durationMs: z.number().int().min(0).max(86_400_000).optional(),
 });
