@@ -222,6 +222,28 @@ async function startFakeSmtp(port, mailboxDir, env) {
   return mailEnv;
 }
 
+/**
+ * The engine worker beside the web server (`npm run worker` does the same by hand). Like a service manager,
+ * it is started again if it dies (a crash, or a test's `kill -9`), and stopped with everything else.
+ */
+function superviseWorker(env) {
+  let restarts = 0;
+  let stopped = false;
+  const launch = () => {
+    const child = spawnChild(join(root, "node_modules", ".bin", "tsx"), ["--conditions=react-server", join("workers", "server", "worker.ts")], env);
+    const started = Date.now();
+    child.on("exit", (code, signal) => {
+      if (stopped || shuttingDown) return;
+      restarts = Date.now() - started > 60_000 ? 0 : restarts + 1;
+      if (restarts > 5) return say("the engine worker keeps stopping; not starting it again (see the messages above).");
+      say(`the engine worker stopped (${signal ?? `exit ${code}`}); starting it again …`);
+      setTimeout(launch, 1_000);
+    });
+  };
+  launch();
+  return () => (stopped = true);
+}
+
 async function startMode() {
   ensureNodeModules();
   const bin = ensurePostgresInstalled();
@@ -239,6 +261,7 @@ async function startMode() {
   tsx("db/migrate.ts", env, "database migration");
   tsx("db/seed.ts", env, "demo seed");
   if (mode === "dev") {
+    superviseWorker(env);
     const dev = spawnChild(join(root, "node_modules", ".bin", "next"), ["dev", "-p", String(appPort)], env);
     await new Promise((res) => dev.on("exit", res));
     return;
@@ -247,6 +270,7 @@ async function startMode() {
   buildApp(env);
   const mailEnv = await startFakeSmtp(Number(process.env.SMTP_PORT ?? 2525), join(root, ".data", "mailbox"), env);
   const server = spawnChild(join(root, "node_modules", ".bin", "next"), ["start", "-p", String(appPort)], { ...env, ...mailEnv, APP_BASE_URL: `http://localhost:${appPort}`, NODE_ENV: "production" });
+  superviseWorker({ ...env, ...mailEnv, NODE_ENV: "production" });
   await waitForHttp(`http://localhost:${appPort}/signin`, 60_000);
   say(`Pourline is running at http://localhost:${appPort}  (Ctrl-C stops the app and PostgreSQL)`);
   say(`demo sign-ins:\n${demoSignIns()}`);
@@ -285,6 +309,7 @@ async function testMode() {
   const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
   Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });
   spawnChild(join(root, "node_modules", ".bin", "next"), ["start", "-p", String(appPort)], { ...env, NODE_ENV: "production" });
+  superviseWorker({ ...env, NODE_ENV: "production" });
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
   const extra = process.argv.slice(3);
@@ -292,7 +317,9 @@ async function testMode() {
   return vitest.status ?? 1;
 }
 
+let shuttingDown = false;
 async function shutdown(code) {
+  shuttingDown = true;
   for (const c of children) c.kill("SIGTERM");
   await new Promise((r) => setTimeout(r, children.size ? 500 : 0));
   try {

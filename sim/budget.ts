@@ -8,8 +8,8 @@
  */
 export const MAX_WORK_UNITS = 40_000_000;
 
-/** Units per second assumed when setting a job's time limit: a tenth of the engine's speed on the demo. */
-const SLOW_UNITS_PER_SECOND = 300_000;
+/** Units per second assumed when setting a job's time limit: a thirtieth of the engine's speed on the demo (a shared, busy machine runs it ten times slower). */
+const SLOW_UNITS_PER_SECOND = 100_000;
 const MIN_TIME_LIMIT_SECONDS = 60;
 const MAX_TIME_LIMIT_SECONDS = 900;
 
@@ -39,3 +39,6 @@ export function maxIterationsFor(s: Sized): number {
 export function timeLimitSeconds(units: number): number {
   return Math.min(MAX_TIME_LIMIT_SECONDS, Math.max(MIN_TIME_LIMIT_SECONDS, Math.ceil(60 + units / SLOW_UNITS_PER_SECOND)));
 }
+
+/** A plan search's whole budget (all variants together): some minutes of one thread at most. */
+export const MAX_SEARCH_WORK_UNITS = 300_000_000;

@@ -165,3 +165,22 @@ export function intRange(from: number, to: number, step = 1): number[] {
   }
   return out;
 }
+
+/** Problems of a spec against the plan it varies (unknown operations, shifts or windows), with their paths. */
+export function specProblems(plan: Pick<ScenarioInput, "operations" | "calendar">, spec: Pick<SearchSpec, "dimensions">): { path: string; message: string }[] {
+  const problems: { path: string; message: string }[] = [];
+  const crewIds = new Set(plan.operations.filter((o) => o.kind === "crew").map((o) => o.id));
+  const shiftIds = new Set(plan.calendar.shifts.map((s) => s.id));
+  const windows = plan.calendar.closureWindows.length;
+  spec.dimensions.forEach((d, i) => {
+    const at = `spec.dimensions[${i}]`;
+    if ((d.kind === "crews" || d.kind === "shifts") && !crewIds.has(d.operation)) problems.push({ path: `${at}.operation`, message: `"${d.operation}" is not a crew operation of this plan` });
+    if (d.kind === "shifts")
+      d.values.forEach((set, j) => set.forEach((sh) => !shiftIds.has(sh) && problems.push({ path: `${at}.values[${j}]`, message: `"${sh}" is not a shift of this plan` })));
+    if (d.kind === "closureWindows")
+      d.values.forEach((set, j) => set.forEach((w) => w >= windows && problems.push({ path: `${at}.values[${j}]`, message: `window ${w + 1} does not exist (the plan has ${windows})` })));
+  });
+  const kinds = spec.dimensions.map((d) => (d.kind === "crews" || d.kind === "shifts" ? `${d.kind}:${d.operation}` : d.kind));
+  kinds.forEach((k, i) => kinds.indexOf(k) !== i && problems.push({ path: `spec.dimensions[${i}]`, message: "varies the same thing as an earlier dimension" }));
+  return problems;
+}

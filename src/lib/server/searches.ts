@@ -1,0 +1,53 @@
+import "server-only";
+/**
+ * Plan searches on the server: checking a spec against the plan and the budget, building the variants
+ * (sim/search) and queuing them, and the view of a search with its frontier (sim/frontier).
+ */
+import { z } from "zod";
+import { buildVariants, searchSpecSchema, specProblems, variantLabel } from "@sim/search";
+import { nonDominated, objectivesOf } from "@sim/frontier";
+import { MAX_SEARCH_WORK_UNITS, MAX_WORK_UNITS, timeLimitSeconds, workUnits } from "@sim/budget";
+import type { ScenarioDetail } from "@db/queries/scenarios";
+import type { SearchDetail } from "@db/queries/searches";
+import type { listVariants } from "@db/queries/searches";
+import { enqueueSearch } from "@workers/server/enqueue";
+import { searchJobKey } from "@/lib/run-keys";
+import { badRequest } from "./errors";
+import { queue } from "./jobs";
+import { validateDefinition } from "./scenario-input";
+
+export const searchWriteSchema = z.object({
+  name: z.string().trim().min(1, "must not be empty").max(120),
+  spec: searchSpecSchema,
+});
+
+export async function startSearch({ scenario, body, userId }: { scenario: ScenarioDetail; body: z.output<typeof searchWriteSchema>; userId: string }) {
+  const plan = validateDefinition(scenario.definition);
+  const problems = specProblems(plan, body.spec);
+  if (problems.length) throw badRequest(problems, "The search names things this plan does not have.");
+  const built = buildVariants(body.spec);
+  const perVariant = workUnits(plan, body.spec.iterations);
+  const runs = built.variants.length + 1; // the plan as saved runs too, as the reference point
+  if (perVariant > MAX_WORK_UNITS || perVariant * runs > MAX_SEARCH_WORK_UNITS) {
+    throw badRequest([{ path: "spec.iterations", message: `${runs} plans × ${body.spec.iterations.toLocaleString("en-US")} iterations is more work than one search may take; use fewer variants or iterations` }], "The search is too large.");
+  }
+  const variants = [{ choice: null, label: "The plan as saved" }, ...built.variants.map((choice) => ({ choice, label: variantLabel(body.spec.dimensions, choice) }))];
+  return enqueueSearch(
+    await queue(),
+    { projectId: scenario.projectId, scenarioId: scenario.id, scenarioVersion: scenario.version, name: body.name, spec: body.spec, method: built.method, gridSize: built.gridSize, userId },
+    variants,
+    { seed: body.spec.seed, iterations: body.spec.iterations, timeLimitSeconds: timeLimitSeconds(perVariant), singletonKeyOf: searchJobKey },
+  );
+}
+
+/** A search as the page draws it: each finished plan with its objectives and whether it is on the frontier. */
+export function searchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>) {
+  const done = variants.filter((v) => v.status === "done" && v.outcome);
+  const front = nonDominated(done.map((v) => objectivesOf(v.outcome!)));
+  const onFront = new Set(done.filter((_, i) => front[i]).map((v) => v.idx));
+  return {
+    search: { ...search, createdAt: search.createdAt.toISOString(), stale: search.scenarioVersion !== search.currentVersion, variantCount: variants.length - 1 },
+    variants: variants.map((v) => ({ ...v, current: v.idx === 0, onFrontier: onFront.has(v.idx) })),
+  };
+}
+export type SearchView = ReturnType<typeof searchView>;
