@@ -7,6 +7,7 @@ import type { Browser, Page } from "playwright-core";
 import { APP_URL, call, demoEmail, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
 import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+import { waitForJob } from "../helpers/jobs";
 
 let browser: Browser;
 let scenarioId: string;
@@ -17,7 +18,9 @@ beforeAll(async () => {
   const scheduler = await signInAs("scheduler");
   const projectId = (await kestrelProject(scheduler)).id;
   scenarioId = (await createPastScenario(scheduler, projectId, "E2E field log")).id;
-  expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: scheduler, body: { seed: "plan", iterations: 50 } })).status).toBe(201);
+  const planRun = await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: scheduler, body: { seed: "plan", iterations: 50 } });
+  expect(planRun.status).toBe(202);
+  expect((await waitForJob(planRun.body.job.id, scheduler)).status).toBe("completed");
 });
 afterAll(async () => {
   await browser?.close();

@@ -5,6 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { call, kestrelProject, signIn, signInAs, demoEmail, type DemoRole } from "../helpers/app";
+import { waitForJob } from "../helpers/jobs";
 
 type Who = DemoRole | "signedOut" | "nonMember";
 const EVERYONE: Who[] = ["signedOut", "nonMember", "viewer", "inspector", "scheduler", "engineer", "admin"];
@@ -49,7 +50,10 @@ async function scenarioFor(f: Fixture, who: Who, label: string) {
 async function scenarioWithRun(f: Fixture, who: Who, label: string) {
   const s = await scenarioFor(f, who, label);
   const run = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: await adminCookie(), body: { seed: "matrix", iterations: 10 } });
-  if (run.status !== 201) throw new Error(`fixture run failed: ${run.status}`);
+  if (run.status !== 202) throw new Error(`fixture run failed: ${run.status}`);
+  // The same computation on every fixture scenario copy is a distinct job (scenario ids differ); wait for it.
+  const job = await waitForJob(run.body.job.id, await adminCookie());
+  if (job.status !== "completed") throw new Error(`fixture run ${job.status}: ${job.error}`);
   return s;
 }
 
@@ -106,7 +110,7 @@ const CASES: Case[] = [
     name: "save a run (server-computed)",
     method: "POST",
     prepare: async (f, w) => ({ path: `/api/scenarios/${(await scenarioFor(f, w, "run me")).id}/runs`, body: { seed: "matrix", iterations: 20 } }),
-    expect: editors(201),
+    expect: editors(202),
   },
   {
     name: "list share links",
