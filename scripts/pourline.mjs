@@ -313,8 +313,10 @@ async function testMode() {
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
   const extra = process.argv.slice(3);
-  const vitest = spawnSync(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
-  return vitest.status ?? 1;
+  // Not spawnSync: this process must stay responsive while the tests run, to restart the engine worker if a
+  // test (or a crash) stops it.
+  const vitest = spawn(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
+  return await new Promise((res) => vitest.on("exit", (code) => res(code ?? 1)));
 }
 
 let shuttingDown = false;

@@ -95,7 +95,7 @@ export function RunPanel({ scenarioId, version, definition, canRun }: { scenario
             {progress
               ? `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSeconds(progress.secondsLeft)} · ${pool.state.phase === "running" ? pool.state.workers : 1} workers`
               : pool.state.phase === "done"
-                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version; not yet verified by the server." : ""}`
+                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version. Not yet verified: the server is reproducing it." : ""}`
                 : ""}
           </p>
         </div>
