@@ -94,6 +94,40 @@ describe("verified forecasts", () => {
   });
 });
 
+describe("plan search", () => {
+  it("a search over a small grid returns every variant, and its frontier is the non-dominated set", async () => {
+    const s = await fresh("Search grid");
+    const crewOp = (base.operations as { id: string; kind: string }[]).find((o) => o.kind === "crew")!.id;
+    const spec = {
+      dimensions: [
+        { kind: "holidayPolicy", values: ["standDown", "workThrough"] },
+        { kind: "crews", operation: crewOp, values: [1, 2] },
+      ],
+      maxVariants: 10,
+      iterations: 100,
+      seed: "grid",
+    };
+    const res = await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: scheduler, body: { name: "grid", spec } });
+    expect(res.status).toBe(202);
+    expect(res.body.search).toMatchObject({ method: "grid", gridSize: 4 });
+    await waitForJob(res.body.job.id, scheduler, { timeoutMs: 180_000 });
+    const got = await call(`/api/searches/${res.body.search.id}`, { cookie: scheduler });
+    const variants = got.body.variants as { idx: number; choice: number[] | null; status: string; onFrontier: boolean; outcome: { p80Finish: string; delayVehHours: number | null; contractCost: number | null } }[];
+    expect(variants).toHaveLength(5); // the plan as saved, and 2 × 2 variants
+    expect(variants.map((v) => v.choice)).toEqual([null, [0, 0], [0, 1], [1, 0], [1, 1]]);
+    expect(variants.every((v) => v.status === "done")).toBe(true);
+    const obj = variants.map((v) => [v.outcome.p80Finish === "unfinished" ? Infinity : Date.parse(v.outcome.p80Finish), v.outcome.delayVehHours ?? 0, v.outcome.contractCost ?? 0]);
+    const dominated = obj.map((p, i) => obj.some((q, j) => j !== i && q.every((x, k) => x <= p[k]) && q.some((x, k) => x < p[k])));
+    expect(variants.map((v) => v.onFrontier)).toEqual(dominated.map((d) => !d));
+    // The same seed for every plan: the saved plan and its identical variant give identical outcomes.
+    const policies: string[] = ["standDown", "workThrough"];
+    const basePolicy = (base.calendar as { holidays: { policy: string } }).holidays.policy;
+    expect(variants[0].outcome).toEqual(variants[policies.indexOf(basePolicy) * 2 + 1].outcome);
+  }, 240_000);
+});
+
+// Last in the file: its long local recomputation leaves the HTTP connections idle long enough for the server
+// to close them, which a following request in this file could race with.
 describe("the worker", () => {
   it("the session route answers promptly while the heaviest allowed server run is in progress; cancel stops it and frees the worker", async () => {
     const s = await fresh("Heaviest run");
@@ -144,36 +178,4 @@ describe("the worker", () => {
     const run = await call(`/api/runs/${job.runId}`, { cookie: scheduler });
     expect(run.body.run.results.finish).toEqual(runScenario(plan("Killed worker"), { iterations: 6_000, seed }).finish);
   }, 400_000);
-});
-
-describe("plan search", () => {
-  it("a search over a small grid returns every variant, and its frontier is the non-dominated set", async () => {
-    const s = await fresh("Search grid");
-    const crewOp = (base.operations as { id: string; kind: string }[]).find((o) => o.kind === "crew")!.id;
-    const spec = {
-      dimensions: [
-        { kind: "holidayPolicy", values: ["standDown", "workThrough"] },
-        { kind: "crews", operation: crewOp, values: [1, 2] },
-      ],
-      maxVariants: 10,
-      iterations: 100,
-      seed: "grid",
-    };
-    const res = await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: scheduler, body: { name: "grid", spec } });
-    expect(res.status).toBe(202);
-    expect(res.body.search).toMatchObject({ method: "grid", gridSize: 4 });
-    await waitForJob(res.body.job.id, scheduler, { timeoutMs: 180_000 });
-    const got = await call(`/api/searches/${res.body.search.id}`, { cookie: scheduler });
-    const variants = got.body.variants as { idx: number; choice: number[] | null; status: string; onFrontier: boolean; outcome: { p80Finish: string; delayVehHours: number | null; contractCost: number | null } }[];
-    expect(variants).toHaveLength(5); // the plan as saved, and 2 × 2 variants
-    expect(variants.map((v) => v.choice)).toEqual([null, [0, 0], [0, 1], [1, 0], [1, 1]]);
-    expect(variants.every((v) => v.status === "done")).toBe(true);
-    const obj = variants.map((v) => [v.outcome.p80Finish === "unfinished" ? Infinity : Date.parse(v.outcome.p80Finish), v.outcome.delayVehHours ?? 0, v.outcome.contractCost ?? 0]);
-    const dominated = obj.map((p, i) => obj.some((q, j) => j !== i && q.every((x, k) => x <= p[k]) && q.some((x, k) => x < p[k])));
-    expect(variants.map((v) => v.onFrontier)).toEqual(dominated.map((d) => !d));
-    // The same seed for every plan: the saved plan and its identical variant give identical outcomes.
-    const policies: string[] = ["standDown", "workThrough"];
-    const basePolicy = (base.calendar as { holidays: { policy: string } }).holidays.policy;
-    expect(variants[0].outcome).toEqual(variants[policies.indexOf(basePolicy) * 2 + 1].outcome);
-  }, 240_000);
 });
