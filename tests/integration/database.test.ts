@@ -47,8 +47,16 @@ describe("migrations", () => {
         "progress_history",
         "email_outbox",
         "sign_in_attempts",
+        "engine_jobs",
+        "engine_workers",
+        "engine_leases",
+        "plan_searches",
+        "plan_search_variants",
       ]),
     );
+    // The engine job queue's own tables and its queue (pg-boss), installed by the same step.
+    const queues = await sql`SELECT name FROM pgboss.queue`;
+    expect(queues.map((q) => q.name)).toContain("engine");
   });
 
   it("are idempotent: applying them again changes nothing", async () => {
