@@ -22,6 +22,7 @@ import {
 import { ROLES } from "./schema-enums";
 import type { SearchSpec } from "../sim/search";
 import type { PlanOutcome } from "../sim/frontier";
+import type { RunSummary } from "../sim/run-summary-schema";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 const ts = (name: string) => timestamp(name, { withTimezone: true, mode: "date" });
@@ -40,12 +41,15 @@ export const users = pgTable("users", {
 });
 export type User = InferSelectModel<typeof users>;
 
+/** `id` is the SHA-256 of the cookie's token (src/lib/server/auth.ts); the token itself is never stored. */
 export const sessions = pgTable("sessions", {
   id: text("id").primaryKey(),
   userId: text("user_id")
     .notNull()
     .references(() => users.id, { onDelete: "cascade" }),
   expiresAt: ts("expires_at").notNull(),
+  /** Sign-in time: a session ends SESSION_ABSOLUTE_MS after it however often it is renewed. */
+  createdAt: ts("created_at").notNull().defaultNow(),
 });
 
 /** Failed sign-ins per key ("account:<email>" or "address:<ip>") in a sliding window. */
@@ -141,8 +145,11 @@ export const simulationRuns = pgTable(
     iterations: integer("iterations").notNull(),
     /** Small headline figures (P50/P80/P90 …) for lists and compare. */
     summary: jsonb("summary").$type<Record<string, unknown>>().notNull(),
-    /** The full run summary: histogram, curve, per-operation table, representative trace. */
-    results: jsonb("results").$type<Record<string, unknown>>().notNull(),
+    /**
+     * The full run summary (the run-result contract, sim/run-summary-schema.ts): histogram, curve, per-operation
+     * table, representative trace; a re-forecast adds the digest of its as-built state.
+     */
+    results: jsonb("results").$type<StoredRunResults>().notNull(),
     durationMs: integer("duration_ms").notNull().default(0),
     /** Set for a re-forecast: the run started from the as-built state at this data date (null = the plan). */
     dataDate: date("data_date"),
@@ -159,12 +166,20 @@ export const simulationRuns = pgTable(
   (t) => [index("runs_scenario_idx").on(t.scenarioId, t.createdAt), uniqueIndex("runs_result_key_idx").on(t.resultKey)],
 );
 export type SimulationRun = InferSelectModel<typeof simulationRuns>;
+/** What `simulation_runs.results` holds. Over JSON an unfinished representative's finishHours reads back as null. */
+export type StoredRunResults = RunSummary & { reforecast?: Record<string, unknown> };
 export type RunVerification = "server" | "pending" | "verified" | "rejected";
+
+/** What a share-link token opens: the read-only scenario page and its JSON, or only the closure calendar feed. */
+export const SHARE_SCOPES = ["scenario", "closure-feed"] as const;
+export type ShareScope = (typeof SHARE_SCOPES)[number];
+export const shareScopeEnum = pgEnum("share_scope", SHARE_SCOPES);
 
 export const shareLinks = pgTable(
   "share_links",
   {
     id: uuid("id").primaryKey().defaultRandom(),
+    scope: shareScopeEnum("scope").notNull().default("scenario"),
     scenarioId: uuid("scenario_id")
       .notNull()
       .references(() => scenarios.id, { onDelete: "cascade" }),
@@ -245,6 +260,9 @@ export const emailOutbox = pgTable(
   "email_outbox",
   {
     id: uuid("id").primaryKey().defaultRandom(),
+    /** Who caused the e-mail and on which project: what the sending quotas count (null for password resets). */
+    requestedById: text("requested_by").references(() => users.id, { onDelete: "set null" }),
+    projectId: uuid("project_id").references(() => projects.id, { onDelete: "set null" }),
     toAddress: text("to_address").notNull(),
     subject: text("subject").notNull(),
     textBody: text("text_body").notNull(),
@@ -256,7 +274,11 @@ export const emailOutbox = pgTable(
     createdAt: ts("created_at").notNull().defaultNow(),
     sentAt: ts("sent_at"),
   },
-  (t) => [index("outbox_pending_idx").on(t.status, t.nextAttemptAt)],
+  (t) => [
+    index("outbox_pending_idx").on(t.status, t.nextAttemptAt),
+    index("outbox_requested_by_idx").on(t.requestedById, t.createdAt),
+    index("outbox_project_idx").on(t.projectId, t.createdAt),
+  ],
 );
 
 export type NewScenario = InferInsertModel<typeof scenarios>;

@@ -27,6 +27,11 @@ export interface CompiledOp {
   profile: number; // gate profile index, -1 when no per-slot gate
   risingFirst: boolean;
   noRainAfter: number;
+  /** Protection window after a continuous packet: air ≥ protectMinF for protectHours (0 = none). */
+  protectMinF: number;
+  protectHours: number;
+  /** Wait operations: count only hours at or above this temperature (NaN = every hour counts). */
+  countAboveF: number;
   /** Any weather gate at all (per-slot, rising or no-rain-after). */
   gated: boolean;
   preds: { from: number; lagHours: number; need: Int32Array }[];
@@ -116,7 +121,10 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
         return { from: index.get(l.from)!, lagHours: l.lagHours, need };
       });
     if (op.kind === "wait") {
-      return { index: i, id: op.id, kind: "wait", crews: 0, continuous: false, mobilizationHours: 0, closure: -1, profile: -1, risingFirst: false, noRainAfter: 0, gated: false, preds };
+      return {
+        index: i, id: op.id, kind: "wait", crews: 0, continuous: false, mobilizationHours: 0, closure: -1, profile: -1,
+        risingFirst: false, noRainAfter: 0, protectMinF: -Infinity, protectHours: 0, countAboveF: op.countAboveF ?? NaN, gated: false, preds,
+      };
     }
     const prof = gateProfileOf(op);
     let profile = -1;
@@ -128,6 +136,8 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
       }
       profile = profileIds.get(key)!;
     }
+    const pa = op.gates.protectAfter;
+    const protect = op.continuous && pa?.minTempF !== undefined && pa.hours !== undefined && pa.hours > 0;
     return {
       index: i,
       id: op.id,
@@ -139,7 +149,10 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
       profile,
       risingFirst: op.continuous && op.gates.rising === true,
       noRainAfter: op.continuous ? (op.gates.noRainHoursAfter ?? 0) : 0,
-      gated: profile >= 0 || (op.continuous && ((op.gates.noRainHoursAfter ?? 0) > 0 || op.gates.rising === true)),
+      protectMinF: protect ? pa!.minTempF! : -Infinity,
+      protectHours: protect ? pa!.hours! : 0,
+      countAboveF: NaN,
+      gated: profile >= 0 || protect || (op.continuous && ((op.gates.noRainHoursAfter ?? 0) > 0 || op.gates.rising === true)),
       preds,
     };
   });
@@ -206,9 +219,11 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
     }
     if (op.kind === "wait") {
       const dur = samples.waitHours[oi];
+      const above = op.countAboveF;
       for (let i = 0; i < P; i++) {
-        finish[base + i] = ready[i] + dur;
-        if (trace) trace.packets.push({ op: op.id, packet: i, crew: -1, start: ready[i], finish: ready[i] + dur });
+        const f = above === above ? w.warmCure(ready[i], dur, above) : ready[i] + dur;
+        finish[base + i] = f;
+        if (trace) trace.packets.push({ op: op.id, packet: i, crew: -1, start: ready[i], finish: f });
       }
     } else {
       const rate = samples.rateFtPerHour[oi];
@@ -240,7 +255,6 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
         if (!crewMobilized[crew]) mob = op.mobilizationHours;
         else if (season > crewSeason[crew]) mob = c.scenario.calendar.season.remobilizeHours;
         crewMobilized[crew] = 1;
-        crewSeason[crew] = season;
         const m = mob > 0 ? w.mobilize(t0, mob, crew) : s;
         const ex = extra.length ? extra[i] : 0;
         discoveredHours += ex;
@@ -248,6 +262,9 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
         const hours = len / rate + ex;
         const f = op.continuous ? w.pour(m, hours, i, crew) : w.produce(m, hours, i, crew);
         finish[base + i] = f;
+        // "After a winter" counts from this packet's production start (MODEL.md, "Work"): a packet that waited
+        // through a winter and started after it leaves the crew in the new season, not the one it was claimed in.
+        crewSeason[crew] = w.lastStart < Infinity ? seasonAt(cal, w.lastStart) : season;
         queue.push(f, crew, crew);
         if (trace) {
           const tp: TracePacket = { op: op.id, packet: i, crew, start: w.lastStart, finish: f };

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, gt, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
-import { scenarios, simulationRuns, users, type RunVerification } from "../schema";
+import { scenarios, simulationRuns, users, type RunVerification, type StoredRunResults } from "../schema";
 
 /** Runs a person may see as a scenario's forecast: computed by the server, or reproduced by it exactly. */
 export const FORECAST_VERIFICATIONS: RunVerification[] = ["server", "verified"];
@@ -15,7 +15,7 @@ export interface NewRun {
   iterations: number;
   dataDate?: string | null;
   summary: Record<string, unknown>;
-  results: Record<string, unknown>;
+  results: StoredRunResults;
   durationMs: number;
   userId: string | null;
   verification: "server" | "pending";

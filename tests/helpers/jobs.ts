@@ -40,3 +40,10 @@ export async function withAppDb<T>(fn: (sql: postgres.Sql) => Promise<T>): Promi
     await sql.end({ timeout: 5 });
   }
 }
+
+/** A run the server's engine workers compute: asked for (202 with its job) and waited for; the finished job. */
+export async function serverRunDone(scenarioId: string, cookie: string, body: { seed: string; iterations: number }): Promise<JobReply> {
+  const res = await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie, body });
+  if (res.status !== 202) throw new Error(`POST /api/scenarios/${scenarioId}/runs: ${res.status} ${JSON.stringify(res.body)}`);
+  return waitForJob(res.body.job.id, cookie);
+}

@@ -8,7 +8,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { waitForJob, withAppDb } from "../helpers/jobs";
 import { parseScenario, runScenario, type Scenario } from "../../sim/index";
-import { maxIterationsFor } from "../../sim/budget";
+import { iterationsThatFit } from "../../sim/budget";
+import { MAX_SERVER_ITERATIONS } from "../../src/lib/schemas";
 
 let scheduler: string;
 let projectId: string;
@@ -52,10 +53,10 @@ describe("server runs", () => {
   it("a run beyond the work budget is refused at once, naming the iterations", async () => {
     const long = { ...base, deck: { ...(base.deck as object), lengthFt: 50_000 } };
     const s = await fresh("Too much work", long);
-    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "x", iterations: 50_000 } });
+    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "x", iterations: MAX_SERVER_ITERATIONS } });
     expect(res.status).toBe(400);
     expect(res.body.fields[0].path).toBe("iterations");
-    expect(res.body.fields[0].message).toMatch(/at most [\d,]+ iterations/);
+    expect(res.body.fields[0].message).toMatch(/At most [\d,]+ iterations fit/);
   });
 });
 
@@ -126,12 +127,25 @@ describe("plan search", () => {
   }, 240_000);
 });
 
+describe("cancel", () => {
+  it("the scheduler who started a job may cancel it; a second cancel is a conflict", async () => {
+    const s = await fresh("Owner cancels");
+    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: `own-${Date.now()}`, iterations: MAX_SERVER_ITERATIONS } });
+    expect(res.status).toBe(202);
+    const del = await call(`/api/jobs/${res.body.job.id}`, { method: "DELETE", cookie: scheduler });
+    expect(del.status).toBe(200);
+    expect(del.body.job.status).toBe("cancelled");
+    const again = await call(`/api/jobs/${res.body.job.id}`, { method: "DELETE", cookie: scheduler });
+    expect(again.status).toBe(409);
+  });
+});
+
 // Last in the file: its long local recomputation leaves the HTTP connections idle long enough for the server
 // to close them, which a following request in this file could race with.
 describe("the worker", () => {
   it("the session route answers promptly while the heaviest allowed server run is in progress; cancel stops it and frees the worker", async () => {
     const s = await fresh("Heaviest run");
-    const iterations = Math.min(50_000, maxIterationsFor(plan("Heaviest run")));
+    const iterations = Math.min(MAX_SERVER_ITERATIONS, iterationsThatFit(plan("Heaviest run"), "server"));
     const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: `heavy-${Date.now()}`, iterations } });
     expect(res.status).toBe(202);
     await waitForJob(res.body.job.id, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 180_000 });
@@ -158,7 +172,7 @@ describe("the worker", () => {
   it("kill -9 of the worker mid-job: the job is retried and its result stored exactly once", async () => {
     const s = await fresh("Killed worker");
     const seed = `kill-${Date.now()}`;
-    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed, iterations: 6_000 } });
+    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed, iterations: MAX_SERVER_ITERATIONS } });
     expect(res.status).toBe(202);
     await waitForJob(res.body.job.id, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 120_000 });
     const pids = await withAppDb((sql) => sql<{ pid: number }[]>`select pid from engine_workers`);
@@ -176,6 +190,6 @@ describe("the worker", () => {
     const rows = await withAppDb((sql) => sql<{ n: number }[]>`select count(*)::int as n from simulation_runs where scenario_id = ${s.id} and seed = ${seed}`);
     expect(rows[0].n).toBe(1);
     const run = await call(`/api/runs/${job.runId}`, { cookie: scheduler });
-    expect(run.body.run.results.finish).toEqual(runScenario(plan("Killed worker"), { iterations: 6_000, seed }).finish);
+    expect(run.body.run.results.finish).toEqual(runScenario(plan("Killed worker"), { iterations: MAX_SERVER_ITERATIONS, seed }).finish);
   }, 400_000);
 });

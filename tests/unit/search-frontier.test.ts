@@ -3,7 +3,7 @@ import fc from "fast-check";
 import { readFileSync } from "node:fs";
 import { dominates, nonDominated, objectivesOf, outcomeOf } from "../../sim/frontier";
 import { applyVariant, buildVariants, fullGrid, latinHypercube, searchSpecSchema, variantLabel, type SearchDimension } from "../../sim/search";
-import { MAX_WORK_UNITS, maxIterationsFor, packetCount, timeLimitSeconds, workUnits } from "../../sim/budget";
+import { BROWSER_WORK_BUDGET, iterationsThatFit, runWork, SEARCH_WORK_BUDGET, searchBudgetProblem, SERVER_WORK_BUDGET, timeLimitSeconds } from "../../sim/budget";
 import { parseScenario } from "../../sim/validate";
 import type { ScenarioInput } from "../../sim/schema";
 
@@ -105,17 +105,31 @@ describe("variants", () => {
   });
 });
 
-describe("work budget", () => {
-  it("grows with packets, operations and iterations", () => {
-    const s = { deck: { lengthFt: 8400, packetFt: 100 }, operations: new Array(7).fill(0) };
-    expect(packetCount(s)).toBe(84);
-    expect(workUnits(s, 1000)).toBe(84 * 7 * 1000);
-    expect(workUnits(s, maxIterationsFor(s))).toBeLessThanOrEqual(MAX_WORK_UNITS);
-    expect(workUnits(s, maxIterationsFor(s) + 1)).toBeGreaterThan(MAX_WORK_UNITS);
+describe("work budget of a job and a search", () => {
+  // The demo deck: 84 packets, 7 operations, 6 links ⇒ 84 × 7 × 7 + 2,192 = 6,308 units per iteration.
+  const s = { deck: { lengthFt: 8400, packetFt: 100 }, operations: new Array(7).fill(0), links: new Array(6).fill(0) };
+
+  it("the iterations that fit are the most within each budget", () => {
+    expect(runWork(s, 1).perIteration).toBe(6_308);
+    for (const [place, budget] of [["server", SERVER_WORK_BUDGET], ["browser", BROWSER_WORK_BUDGET]] as const) {
+      const fit = iterationsThatFit(s, place);
+      expect(runWork(s, fit).total).toBeLessThanOrEqual(budget);
+      expect(runWork(s, fit + 1).total).toBeGreaterThan(budget);
+    }
   });
+
+  it("a search fits when every plan fits one server run and all of them the search budget", () => {
+    expect(searchBudgetProblem(s, 1_000, 61)).toBeNull(); // the form's default: 60 variants and the plan
+    const whole = searchBudgetProblem(s, 5_000, 201); // 201 × 5,000 × 6,308 = 6,339,540,000 units
+    expect(whole?.path).toBe("spec.iterations");
+    expect(whole?.message).toContain(`${(6_339_540_000 / SEARCH_WORK_BUDGET).toFixed(1)} times the limit of ${SEARCH_WORK_BUDGET.toLocaleString("en-US")}`);
+    const onePlan = searchBudgetProblem(s, iterationsThatFit(s, "server") + 1, 2);
+    expect(onePlan?.message).toMatch(/^each plan of the search is one run: .*for a run the server computes/);
+  });
+
   it("gives a longer time limit to more work, within bounds", () => {
     expect(timeLimitSeconds(0)).toBe(60);
-    expect(timeLimitSeconds(MAX_WORK_UNITS)).toBeGreaterThan(timeLimitSeconds(1_000_000));
+    expect(timeLimitSeconds(SERVER_WORK_BUDGET)).toBeGreaterThan(timeLimitSeconds(1_000_000));
     expect(timeLimitSeconds(1e12)).toBe(900);
   });
 });

@@ -1,4 +1,5 @@
 /** The holiday trade-off (sim/tradeoff.ts): same seeds, policy flipped. */
+import { tradeoffSentence } from "../../src/components/results/tradeoff-panel";
 import { describe, expect, it } from "vitest";
 import { holidayTradeoff, parseScenario, runScenario, withHolidayPolicy } from "../../sim/index";
 import type { ScenarioInput } from "../../sim/schema";
@@ -68,5 +69,19 @@ describe("holiday trade-off", () => {
     expect(t.workThrough.finish).toEqual({ p50: work.finish.p50, p80: work.finish.p80 });
     expect(t.standDown.delayVehHours).toEqual({ p50: stand.delay!.vehicleHours.p50, p80: stand.delay!.vehicleHours.p80 });
     expect(t.workThrough.roadUserCost).toEqual({ p50: work.cost!.roadUser!.p50, p80: work.cost!.roadUser!.p80 });
+    // The chance of meeting the target and the contract cost are those of the same plain runs.
+    expect(t.standDown.targetProbability).toBe(stand.target!.probability);
+    expect(t.workThrough.targetProbability).toBe(work.target!.probability);
+    expect(t.targetProbabilityChange).toBeCloseTo(work.target!.probability - stand.target!.probability, 6);
+    expect(t.workThrough.contractCost.p50).toBe(Math.round(work.cost!.contract!.p50!));
+    expect(t.extraContractCost.p50).toBe(Math.round(work.cost!.contract!.p50!) - Math.round(stand.cost!.contract!.p50!));
+  });
+
+  it("says the change in the chance of meeting the target and in contract cost in words", () => {
+    const demo = parsed(loadScenario("kestrel-two-season.json"));
+    const t = holidayTradeoff(demo, "same", 12);
+    const text = tradeoffSentence({ ...t, standDown: { ...t.standDown, targetProbability: 0.48 }, workThrough: { ...t.workThrough, targetProbability: 0.61 }, extraContractCost: { p50: 41000, p80: 45000 } });
+    expect(text).toContain("The chance of meeting the 30 Jun 2028 target rises from 48 % to 61 %.");
+    expect(text).toContain("The contract costs $41,000 more at P50.");
   });
 });

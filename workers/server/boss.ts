@@ -1,8 +1,9 @@
 /**
  * The job queue: pg-boss on the app's own database (schema `pgboss`). The web server only sends; worker
  * processes fetch, and one of them also runs pg-boss's maintenance (expiring jobs that outlive their time
- * limit, retrying them, archiving old ones). `installQueue` runs with the database migrations, as the
- * database's owner, so neither the web server nor a worker needs the right to create schemas.
+ * limit, retrying them, archiving old ones). `installQueue` runs with the database migrations, as the app's
+ * own database role (`pourline_app`, which owns the database: scripts/app-db-role.mjs), so the `pgboss` schema
+ * belongs to the same role the web server and the workers connect as, and no superuser is needed.
  */
 import PgBoss from "pg-boss";
 

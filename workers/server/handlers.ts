@@ -11,7 +11,8 @@ import { getSearch, getVariant, saveVariantOutcome, variantProgress } from "../.
 import { applyVariant } from "../../sim/search";
 import { parseScenario } from "../../sim/validate";
 import type { ScenarioInput } from "../../sim/schema";
-import { headlineOf, inputsHash } from "../../src/lib/run-record";
+import type { ProgressRecord } from "../../sim/index";
+import { reforecastInputsHash, storedReforecast, storedRun } from "../../src/lib/run-record";
 import { resultKey, runJobKey } from "../../src/lib/run-keys";
 import type { EngineMessage } from "./boss";
 import type { EngineTask, TaskResult } from "./tasks";
@@ -72,12 +73,12 @@ async function handleSingle(pool: ThreadPool, job: EngineJob) {
   }
   let task: EngineTask;
   let reforecast: { dataDate: string; inputsHash: string } | null = null;
+  let records: ProgressRecord[] = [];
+  const raw = await getScenarioRevision({ scenarioId: job.scenarioId, version: job.scenarioVersion });
   if (job.kind === "reforecast" && job.dataDate) {
     const rows = await listProgress({ scenarioId: job.scenarioId });
-    const records = rows.map((r) => ({ workDate: r.workDate, shift: r.shift, operationId: r.operationId, fromStationFt: r.fromStationFt, toStationFt: r.toStationFt, discovered: r.discovered }));
-    const used = records.filter((r) => r.workDate <= job.dataDate!);
-    const raw = await getScenarioRevision({ scenarioId: job.scenarioId, version: job.scenarioVersion });
-    reforecast = { dataDate: job.dataDate, inputsHash: inputsHash({ definition: raw, progress: used, dataDate: job.dataDate }, job.seed, job.iterations) };
+    records = rows.map((r) => ({ workDate: r.workDate, shift: r.shift, operationId: r.operationId, fromStationFt: r.fromStationFt, toStationFt: r.toStationFt, discovered: r.discovered }));
+    reforecast = { dataDate: job.dataDate, inputsHash: reforecastInputsHash({ definition: raw, records, dataDate: job.dataDate, seed: job.seed, iterations: job.iterations }) };
     // The job names the field entries it was asked for; if they changed since, this is another computation.
     if (job.singletonKey !== runJobKey({ scenarioId: job.scenarioId, scenarioVersion: job.scenarioVersion, seed: job.seed, iterations: job.iterations, reforecast })) {
       return void (await finishEngineJob({ id: job.id, status: "failed", error: "The field log changed after this re-forecast was asked for; ask for it again." }));
@@ -88,17 +89,16 @@ async function handleSingle(pool: ThreadPool, job: EngineJob) {
   if (!r) return;
   if (r.kind === "infeasible") return void (await finishEngineJob({ id: job.id, status: "failed", error: `The scenario is not valid: ${r.problem}` }));
   if (r.kind !== "run" && r.kind !== "reforecast") return void (await finishEngineJob({ id: job.id, status: "failed", error: "unexpected result" }));
-  const summary = r.summary;
+  const common = { definition: raw, seed: job.seed, iterations: job.iterations, summary: r.summary, durationMs: Date.now() - started };
+  // The same stored columns as the demo seed's (src/lib/run-record.ts).
+  const columns =
+    r.kind === "reforecast" && job.dataDate
+      ? (({ headline: _h, reforecast: _r, ...c }) => c)(storedReforecast({ ...common, records, dataDate: job.dataDate, reforecast: r.reforecast }))
+      : { ...storedRun(common), dataDate: null };
   const saved = await saveRun({
     scenarioId: job.scenarioId,
     scenarioVersion: job.scenarioVersion,
-    inputsHash: reforecast ? reforecast.inputsHash : inputsHash(definition, job.seed, job.iterations),
-    seed: job.seed,
-    iterations: job.iterations,
-    dataDate: reforecast?.dataDate ?? null,
-    summary: reforecast ? { ...headlineOf(summary), dataDate: reforecast.dataDate } : headlineOf(summary),
-    results: r.kind === "reforecast" ? { ...(summary as unknown as Record<string, unknown>), reforecast: r.reforecast } : (summary as unknown as Record<string, unknown>),
-    durationMs: Date.now() - started,
+    ...columns,
     userId: job.createdById,
     verification: "server",
     resultKey: resultKey({ scenarioId: job.scenarioId, scenarioVersion: job.scenarioVersion, seed: job.seed, iterations: job.iterations, reforecast }),

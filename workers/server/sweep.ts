@@ -2,12 +2,12 @@
 import type PgBoss from "pg-boss";
 import { listUncheckedRuns } from "../../db/queries/runs";
 import { verifyJobKey } from "../../src/lib/run-keys";
-import { timeLimitSeconds, workUnits } from "../../sim/budget";
+import { runWork, timeLimitSeconds } from "../../sim/budget";
 import { getScenarioRevision } from "../../db/queries/jobs";
 import { parseScenario } from "../../sim/validate";
 import { enqueueJob } from "./enqueue";
 
-type Sized = Parameters<typeof workUnits>[0];
+type Sized = Parameters<typeof runWork>[0];
 
 export async function queueVerification(boss: PgBoss, run: { id: string; projectId: string; scenarioId: string; scenarioVersion: number; seed: string; iterations: number; createdById: string | null }, definition: Sized) {
   return enqueueJob(boss, {
@@ -20,7 +20,7 @@ export async function queueVerification(boss: PgBoss, run: { id: string; project
     runId: run.id,
     singletonKey: verifyJobKey(run.id),
     totalUnits: run.iterations,
-    timeLimitSeconds: timeLimitSeconds(workUnits(definition, run.iterations)),
+    timeLimitSeconds: timeLimitSeconds(runWork(definition, run.iterations).total),
     userId: run.createdById,
   });
 }

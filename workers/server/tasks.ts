@@ -5,7 +5,9 @@
 import { isDeepStrictEqual } from "node:util";
 import { buildAsBuilt, compileScenario, parseScenario, runIterations, summarizeRun, type ProgressRecord, type RunSummary } from "../../sim/index";
 import { outcomeOf, type PlanOutcome } from "../../sim/frontier";
-import { asBuiltDigest } from "../../src/lib/asbuilt-digest";
+import { runSummarySchema } from "../../sim/run-summary-schema";
+import { weatherFeasibility } from "../../sim/feasibility";
+import { asBuiltDigest } from "../../src/lib/run-record";
 
 export type EngineTask =
   | { kind: "run"; definition: unknown; seed: string; iterations: number }
@@ -38,15 +40,31 @@ export function firstDifference(a: unknown, b: unknown, path = "summary"): strin
 /** A summary as it reads back from JSON (and so from the database): what a stored summary is compared with. */
 const asJson = <T>(v: T): unknown => JSON.parse(JSON.stringify(v));
 
+/**
+ * What the worker stores is held to the same run-result contract as a browser's summary (checked as it will
+ * read back from JSON); a summary outside it is an engine error, and the job fails saying where.
+ */
+function withinContract(summary: RunSummary): RunSummary {
+  const checked = runSummarySchema.safeParse(asJson(summary));
+  if (!checked.success) {
+    const where = checked.error.issues.slice(0, 3).map((i) => `${i.path.join(".") || "summary"}: ${i.message}`);
+    throw new Error(`the engine's summary is outside the run-result contract (${where.join("; ")})`);
+  }
+  return summary;
+}
+
 export function runTask(task: EngineTask, onProgress: Progress): TaskResult {
   const parsed = parseScenario(task.definition);
   if (!parsed.ok) return { kind: "infeasible", problem: parsed.problems.map((p) => `${p.path}: ${p.message}`).join("; ") };
   const plan = parsed.scenario;
+  // A plan the weather never lets finish would only run every iteration to the horizon.
+  const never = weatherFeasibility(plan);
+  if (never.length) return { kind: "infeasible", problem: never.map((p) => p.message).join("; ") };
   if (task.kind === "reforecast") {
     const asBuilt = buildAsBuilt(plan, task.records, task.dataDate);
     const compiled = compileScenario(plan, { asBuilt });
     const summary = summarizeRun(compiled, runIterations(compiled, task.seed, 0, task.iterations, onProgress));
-    return { kind: "reforecast", summary, reforecast: asBuiltDigest(plan, asBuilt) };
+    return { kind: "reforecast", summary: withinContract(summary), reforecast: asBuiltDigest(plan, asBuilt) };
   }
   const compiled = compileScenario(plan);
   const summary = summarizeRun(compiled, runIterations(compiled, task.seed, 0, task.iterations, onProgress));
@@ -57,5 +75,5 @@ export function runTask(task: EngineTask, onProgress: Progress): TaskResult {
     const diff = firstDifference(asJson(summary), task.claimed);
     return { kind: "verify", summary, matches: diff === null, firstDifference: diff };
   }
-  return { kind: "run", summary };
+  return { kind: "run", summary: withinContract(summary) };
 }

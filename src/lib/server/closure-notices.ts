@@ -8,7 +8,7 @@ import { createShareLink } from "@db/queries/shares";
 import type { RunSummary } from "@sim/index";
 import { closureLocalTimes, plannedClosures } from "@/lib/exports/closures";
 import { AppError } from "./errors";
-import { enqueueMail } from "./mail/outbox";
+import { enqueueMailsFor } from "./mail/outbox";
 import { closureNoticeMail } from "./closure-notice-mail";
 import { validateDefinition } from "./scenario-input";
 import { newShareToken } from "./share-token";
@@ -31,11 +31,13 @@ export async function publishClosurePlan({ scenario, userId, baseUrl }: { scenar
   const feedUrl = `${baseUrl}/api/shared/${token}/closures.ics`;
   const upcoming = closures.slice(0, 12).map((c) => ({ ...closureLocalTimes(c, definition.startDate), name: c.name, lanes: c.lanes }));
   return getDb().transaction(async (tx) => {
-    const link = await createShareLink({ tx, scenarioId: scenario.id, tokenHash, label: "Closure calendar feed", userId, expiresAt: new Date(Date.now() + FEED_DAYS * 86_400_000) });
+    const link = await createShareLink({ tx, scenarioId: scenario.id, tokenHash, label: "Closure calendar feed", scope: "closure-feed", userId, expiresAt: new Date(Date.now() + FEED_DAYS * 86_400_000) });
     const publication = await insertClosurePublication({ tx, scenarioId: scenario.id, runId: run.id, shareLinkId: link.id, closureCount: closures.length, notified: subscribers.length, userId });
-    for (const s of subscribers) {
-      await enqueueMail(tx, closureNoticeMail({ to: s.email, structure: project?.structureName ?? scenario.name, timeZone: definition.timeZone, count: closures.length, upcoming, feedUrl }));
-    }
+    await enqueueMailsFor(
+      tx,
+      { userId, projectId: scenario.projectId },
+      subscribers.map((s) => closureNoticeMail({ to: s.email, structure: project?.structureName ?? scenario.name, timeZone: definition.timeZone, count: closures.length, upcoming, feedUrl })),
+    );
     return { id: publication.id, publishedAt: publication.publishedAt, closureCount: closures.length, notified: subscribers.length, feedUrl };
   });
 }

@@ -7,7 +7,7 @@ import "server-only";
 import type PgBoss from "pg-boss";
 import { cancelEngineJob, type EngineJob } from "@db/queries/jobs";
 import { pendingVariantJobIds } from "@db/queries/searches";
-import { MAX_WORK_UNITS, maxIterationsFor, timeLimitSeconds, workUnits } from "@sim/budget";
+import { budgetProblem, runWork, timeLimitSeconds } from "@sim/budget";
 import type { Scenario } from "@sim/schema";
 import { ENGINE_QUEUE, openBoss } from "@workers/server/boss";
 import { enqueueJob } from "@workers/server/enqueue";
@@ -29,19 +29,15 @@ export function queue(): Promise<PgBoss> {
   return globalForBoss.__pourlineBoss;
 }
 
-/** Refuses work beyond the budget, naming the field and the largest count that fits. */
-export function checkBudget(plan: Scenario, iterations: number, field = "iterations") {
-  if (workUnits(plan, iterations) > MAX_WORK_UNITS) {
-    throw badRequest(
-      [{ path: field, message: `is too much work for one server job with this plan (${plan.operations.length} operations over ${Math.ceil(plan.deck.lengthFt / plan.deck.packetFt)} packets): at most ${maxIterationsFor(plan).toLocaleString("en-US")} iterations` }],
-      "The run is larger than the server computes in one job.",
-    );
-  }
+/** Refuses a server job beyond the server's work budget (@sim/budget), naming the field and what fits. */
+function checkServerBudget(plan: Scenario, iterations: number) {
+  const problem = budgetProblem(plan, iterations, "server");
+  if (problem) throw badRequest([problem], "The run is larger than the work budget; nothing was run or saved.");
 }
 
 export async function queueRunJob(input: { plan: Scenario; projectId: string; computation: Computation; dataDate?: string; userId: string }) {
   const { plan, computation: c } = input;
-  checkBudget(plan, c.iterations);
+  checkServerBudget(plan, c.iterations);
   return enqueueJob(await queue(), {
     kind: c.reforecast ? "reforecast" : "run",
     projectId: input.projectId,
@@ -52,7 +48,7 @@ export async function queueRunJob(input: { plan: Scenario; projectId: string; co
     dataDate: c.reforecast?.dataDate ?? null,
     singletonKey: runJobKey(c),
     totalUnits: c.iterations,
-    timeLimitSeconds: timeLimitSeconds(workUnits(plan, c.iterations)),
+    timeLimitSeconds: timeLimitSeconds(runWork(plan, c.iterations).total),
     userId: input.userId,
   });
 }

@@ -6,11 +6,12 @@ import "server-only";
 import type { ProgressRecord } from "@sim/index";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
 import { HORIZON_DAYS } from "@sim/calendar";
+import { budgetProblem } from "@sim/budget";
 import type { z } from "zod";
 import { listProgress, type ProgressFields, type ProgressRow } from "@db/queries/progress";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { checkDependents, checkProgressEntry, todayIn, type ProgressEntry, type reforecastSchema, type RuleEntry } from "@/lib/progress-schema";
-import { inputsHash } from "@/lib/run-record";
+import { reforecastInputsHash } from "@/lib/run-record";
 import { queueRunJob } from "./jobs";
 import { badRequest } from "./errors";
 import { validateDefinition } from "./scenario-input";
@@ -50,15 +51,20 @@ type ReforecastBody = z.output<typeof reforecastSchema>;
  * Queues a re-forecast from the as-built state at `dataDate`; a worker computes it and stores it as a run with
  * that data date. The job's key includes the field entries it uses, so a new entry means a new computation.
  */
-export async function queueReforecast({ scenario, body, userId }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string }) {
+export async function queueReforecast({ scenario, body, userId, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; now?: Date }) {
   const plan = validateDefinition(scenario.definition);
   const last = formatDayNumber(parseIsoDate(plan.startDate) + HORIZON_DAYS - 1);
   if (body.dataDate < plan.startDate || body.dataDate > last) {
     throw badRequest([{ path: "dataDate", message: `Data date must be between the plan's start (${plan.startDate}) and ${last}` }]);
   }
+  // Progress after today cannot have been recorded, so a later data date would forecast from a deck that
+  // pretends the days in between passed with no work.
+  const today = todayIn(plan.timeZone, now);
+  if (body.dataDate > today) throw badRequest([{ path: "dataDate", message: `Data date must not be in the future (today is ${today})` }]);
+  const overBudget = budgetProblem(plan, body.iterations, "server");
+  if (overBudget) throw badRequest([overBudget], "The re-forecast is larger than the server's work budget; nothing was run or saved.");
   const rows = await listProgress({ scenarioId: scenario.id });
-  const used = rows.map(toRecord).filter((r) => r.workDate <= body.dataDate);
-  const hash = inputsHash({ definition: scenario.definition, progress: used, dataDate: body.dataDate }, body.seed, body.iterations);
+  const hash = reforecastInputsHash({ definition: scenario.definition, records: rows.map(toRecord), dataDate: body.dataDate, seed: body.seed, iterations: body.iterations });
   const { job } = await queueRunJob({
     plan,
     projectId: scenario.projectId,

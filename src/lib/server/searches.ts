@@ -6,7 +6,8 @@ import "server-only";
 import { z } from "zod";
 import { buildVariants, searchSpecSchema, specProblems, variantLabel } from "@sim/search";
 import { nonDominated, objectivesOf } from "@sim/frontier";
-import { MAX_SEARCH_WORK_UNITS, MAX_WORK_UNITS, timeLimitSeconds, workUnits } from "@sim/budget";
+import { runWork, searchBudgetProblem, timeLimitSeconds } from "@sim/budget";
+import { weatherFeasibility } from "@sim/feasibility";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import type { SearchDetail } from "@db/queries/searches";
 import type { listVariants } from "@db/queries/searches";
@@ -23,20 +24,20 @@ export const searchWriteSchema = z.object({
 
 export async function startSearch({ scenario, body, userId }: { scenario: ScenarioDetail; body: z.output<typeof searchWriteSchema>; userId: string }) {
   const plan = validateDefinition(scenario.definition);
+  const never = weatherFeasibility(plan);
+  if (never.length) throw badRequest(never, "This plan can never finish; no search was started.");
   const problems = specProblems(plan, body.spec);
   if (problems.length) throw badRequest(problems, "The search names things this plan does not have.");
   const built = buildVariants(body.spec);
-  const perVariant = workUnits(plan, body.spec.iterations);
   const runs = built.variants.length + 1; // the plan as saved runs too, as the reference point
-  if (perVariant > MAX_WORK_UNITS || perVariant * runs > MAX_SEARCH_WORK_UNITS) {
-    throw badRequest([{ path: "spec.iterations", message: `${runs} plans × ${body.spec.iterations.toLocaleString("en-US")} iterations is more work than one search may take; use fewer variants or iterations` }], "The search is too large.");
-  }
+  const overBudget = searchBudgetProblem(plan, body.spec.iterations, runs);
+  if (overBudget) throw badRequest([overBudget], "The search is larger than the work budget; nothing was started.");
   const variants = [{ choice: null, label: "The plan as saved" }, ...built.variants.map((choice) => ({ choice, label: variantLabel(body.spec.dimensions, choice) }))];
   return enqueueSearch(
     await queue(),
     { projectId: scenario.projectId, scenarioId: scenario.id, scenarioVersion: scenario.version, name: body.name, spec: body.spec, method: built.method, gridSize: built.gridSize, userId },
     variants,
-    { seed: body.spec.seed, iterations: body.spec.iterations, timeLimitSeconds: timeLimitSeconds(perVariant), singletonKeyOf: searchJobKey },
+    { seed: body.spec.seed, iterations: body.spec.iterations, timeLimitSeconds: timeLimitSeconds(runWork(plan, body.spec.iterations).total), singletonKeyOf: searchJobKey },
   );
 }
 

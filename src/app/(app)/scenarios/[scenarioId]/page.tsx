@@ -10,6 +10,8 @@ import { RunPanel } from "@/components/run/run-panel";
 import { SafetyNote } from "@/components/safety-note";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
+import { parseScenario } from "@sim/validate";
+import { weatherFeasibility } from "@sim/feasibility";
 
 export const metadata: Metadata = { title: "Outlook" };
 
@@ -21,9 +23,12 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
   const pending = unverified?.verification === "pending" ? unverified : null;
   const run = pending ?? forecast;
   const stale = !!run && run.stale;
+  const parsed = parseScenario(scenario.definition);
+  // A plan the weather never lets finish is said in words here, before anyone starts a run.
+  const blockers = parsed.ok ? weatherFeasibility(parsed.scenario).map((p) => p.message) : [];
   return (
     <div className="space-y-5">
-      <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario")} />
+      <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario")} blockers={blockers} />
       {unverified?.verification === "rejected" && (
         <p className="rounded-md border border-bad/30 bg-bad/10 px-4 py-2 text-sm" role="alert" data-testid="rejected-run">
           The run of {formatDateTime(unverified.createdAt)} ({unverified.iterations.toLocaleString("en-US")} iterations, seed “{unverified.seed}”) did not match the server’s
