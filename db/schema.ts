@@ -69,6 +69,9 @@ export const projects = pgTable("projects", {
   startStationFt: doublePrecision("start_station_ft").notNull(),
   lanes: jsonb("lanes").$type<string[]>().notNull(),
   description: text("description").notNull().default(""),
+  /** Where the structure is, for the weather forecast (set by an admin or engineer; null = not set). */
+  latitude: doublePrecision("latitude"),
+  longitude: doublePrecision("longitude"),
   createdAt: ts("created_at").notNull().defaultNow(),
 });
 export type Project = InferSelectModel<typeof projects>;
@@ -469,4 +472,40 @@ export const engineLeases = pgTable("engine_leases", {
     .notNull()
     .references(() => engineWorkers.id, { onDelete: "cascade" }),
   startedAt: ts("started_at").notNull().defaultNow(),
+});
+
+/**
+ * The last hourly forecast fetched for a project, shared by everyone who reads it (src/lib/server/forecast/
+ * cache.ts): at most one fetch per project per hour. `data` keeps the last good forecast when a later
+ * attempt fails, so the board can still show it with its age.
+ */
+export const projectForecasts = pgTable("project_forecasts", {
+  projectId: uuid("project_id")
+    .primaryKey()
+    .references(() => projects.id, { onDelete: "cascade" }),
+  /** The location the forecast is for: a changed location makes it stale at once. */
+  latitude: doublePrecision("latitude").notNull(),
+  longitude: doublePrecision("longitude").notNull(),
+  data: jsonb("data").$type<Record<string, unknown>>(),
+  fetchedAt: ts("fetched_at"),
+  lastAttemptAt: ts("last_attempt_at"),
+  lastError: text("last_error"),
+});
+
+/** The daily look-ahead e-mail of a scenario: to whom, at which local hour, and what was sent last. */
+export const lookAheadNotices = pgTable("look_ahead_notices", {
+  scenarioId: uuid("scenario_id")
+    .primaryKey()
+    .references(() => scenarios.id, { onDelete: "cascade" }),
+  enabled: boolean("enabled").notNull().default(true),
+  recipients: jsonb("recipients").$type<string[]>().notNull(),
+  /** Local hour of the scenario's time zone, 0–23. */
+  hour: integer("hour").notNull(),
+  lastSentOn: date("last_sent_on"),
+  /** The compact board of the last notice, to say what changed. */
+  lastBoard: jsonb("last_board").$type<Record<string, unknown>>(),
+  updatedById: text("updated_by")
+    .notNull()
+    .references(() => users.id),
+  updatedAt: ts("updated_at").notNull().defaultNow(),
 });

@@ -133,7 +133,7 @@ export function demoFieldLog(plan: Scenario, today: string): DemoEntry[] {
     const oi = plan.operations.findIndex((o) => o.id === tp.op);
     const op = plan.operations[oi];
     if (op.kind !== "crew") continue;
-    const pauses = trace.pauses.filter((p) => p.op === tp.op && p.packet === tp.packet && p.crew === tp.crew);
+    const pauses = trace.pauses.filter((p) => p.op === tp.op && p.stage === tp.stage && p.packet === tp.packet && p.crew === tp.crew);
     const worked = workedIntervals(tp.start, tp.finish, pauses);
     const total = worked.reduce((n, [a, b]) => n + b - a, 0);
     const a0 = tp.packet * packetFt;

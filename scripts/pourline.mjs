@@ -266,6 +266,19 @@ function superviseWorker(env, logFile) {
   return () => (stopped = true);
 }
 
+/**
+ * The local stand-in for the weather service (scripts/fake-forecast.ts), unless FORECAST_BASE_URL already
+ * points somewhere (the real service: FORECAST_BASE_URL=https://api.weather.gov).
+ */
+async function startFakeForecast(port, env) {
+  const script = join(root, "scripts", "fake-forecast.ts");
+  if (process.env.FORECAST_BASE_URL || !existsSync(script)) return {};
+  if (!(await portFree(port))) fail(`port ${port} (the local weather-service fake) is taken by another program. Choose another: FORECAST_FAKE_PORT=2701 npm ${mode}`);
+  spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, FORECAST_FAKE_PORT: String(port) });
+  for (let i = 0; i < 100 && (await portFree(port)); i++) await new Promise((r) => setTimeout(r, 100));
+  return { FORECAST_BASE_URL: `http://127.0.0.1:${port}`, FORECAST_FAKE: "1" };
+}
+
 /** The app server: scripts/serve.mjs (next start plus the peer address), on loopback unless HOST says otherwise. */
 function serveApp(env, logFile) {
   return spawnChild(process.execPath, [join(root, "scripts", "serve.mjs")], { HOST: "127.0.0.1", ...env, NODE_ENV: "production" }, logFile);
@@ -305,9 +318,11 @@ async function startMode() {
   buildApp(env);
   const mailEnv = await startFakeSmtp(Number(process.env.SMTP_PORT ?? 2525), join(root, ".data", "mailbox"), env);
   const baseUrl = process.env.APP_BASE_URL ?? `http://localhost:${appPort}`;
+  const forecastEnv = await startFakeForecast(Number(process.env.FORECAST_FAKE_PORT ?? 2700), env);
   const server = serveApp({
     ...env,
     ...mailEnv,
+    ...forecastEnv,
     HOST: host,
     PORT: String(appPort),
     APP_BASE_URL: baseUrl,
@@ -359,6 +374,8 @@ async function testMode() {
   buildApp(env);
   const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
   Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });
+  // Short waits so the failure paths of the weather service are tested in seconds, and a quick notice pace.
+  Object.assign(env, await startFakeForecast(await freePort(2750), env), { FORECAST_TIMEOUT_MS: "1500", FORECAST_RETRY_BASE_MS: "100", POURLINE_NOTICE_INTERVAL_MS: "2000" });
   serveApp({ ...env, PORT: String(appPort) }, appLog);
   superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);

@@ -80,6 +80,9 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           startStationFt: definitions[0].scenario.deck.startStationFt,
           lanes: definitions[0].scenario.deck.lanes,
           description: "Hydrodemolition and latex-modified concrete overlay of the eastbound causeway deck, under traffic.",
+          // An invented point; the local weather-service fake (scripts/fake-forecast.ts) serves a week for it.
+          latitude: 30.25,
+          longitude: -88.1,
         })
         .returning({ id: projects.id });
       // A second project the demo scheduler does not belong to: it must stay invisible to them.

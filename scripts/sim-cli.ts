@@ -63,7 +63,7 @@ const money = (x: number | null) => (x === null ? "n/a" : `$${Math.round(x).toLo
 const vh = (x: number | null) => (x === null ? "n/a" : `${Math.round(x).toLocaleString("en-US")} veh-h`);
 
 if (json) {
-  const { representative, closureHours, traffic, ...rest } = summary;
+  const { representative, laneClosedHours, traffic, stages, ...rest } = summary;
   const out = {
     ...rest,
     ...(rest.delay ? { delay: { vehicleHours: { p50: rest.delay.vehicleHours.p50, p80: rest.delay.vehicleHours.p80 } } } : {}),
@@ -79,7 +79,11 @@ if (json) {
     ...(traffic ? { maxQueue: traffic.maxQueue } : {}),
     ...(trade ? { tradeoff: trade } : {}),
     operations: summary.operations.map((o) => ({ id: o.id, name: o.name, finish: o.finish })),
-    closureHoursTotal: closureHours.totalByClosure,
+    stages: stages.map((st) => ({ id: st.id, name: st.name, lanes: st.lanes, finish: { p50: st.finish.p50, p80: st.finish.p80, p90: st.finish.p90 } })),
+    laneClosedHours: {
+      total: laneClosedHours.total,
+      byClosure: laneClosedHours.byClosure.map((c) => ({ closure: c.closure, name: c.name, kind: c.kind, lanes: c.lanes, p50: c.p50, p80: c.p80 })),
+    },
     convergence: summary.convergenceDays,
     representative: { iteration: representative.iteration, finish: representative.finish },
     seconds: Math.round(seconds * 1000) / 1000,
@@ -97,7 +101,9 @@ if (json) {
     ...s.operations.map((o) => `  ${o.name.padEnd(40)} ${o.finish.p50}  ${o.finish.p80}`),
     `Weather-lost shifts P50 ${s.weatherLostShifts.p50}, P80 ${s.weatherLostShifts.p80}`,
     `Discovered-condition hours P50 ${s.discoveredHours.p50.toFixed(1)}, P80 ${s.discoveredHours.p80.toFixed(1)}`,
-    `Closure hours (mean): ${Object.entries(s.closureHours.totalByClosure).map(([k, v]) => `${k} ${v}`).join(", ")}`,
+    ...(s.stages.length > 1 ? ["Stages (restored P50 / P80):", ...s.stages.map((st) => `  ${`${st.name} (${st.lanes.join(", ")})`.padEnd(40)} ${st.finish.p50}  ${st.finish.p80}`)] : []),
+    `Lane-closed hours P50 ${s.laneClosedHours.total.p50}, P80 ${s.laneClosedHours.total.p80}; by closure (P50): ${s.laneClosedHours.byClosure.map((c) => `${c.closure} ${c.p50}`).join(", ")}`,
+    ...(s.winterStandingShare > 0 ? [`A standing closure stays through a winter in ${(s.winterStandingShare * 100).toFixed(1)} % of iterations`] : []),
     `Convergence: P80 of the two halves differ by ${s.convergenceDays === null ? "n/a" : `${s.convergenceDays.toFixed(2)} days`}`,
     ...(s.delay ? [`Delay P50 ${vh(s.delay.vehicleHours.p50)}, P80 ${vh(s.delay.vehicleHours.p80)}${s.traffic?.maxQueue ? `; longest queue (representative) ${s.traffic.maxQueue.miles} mi on ${s.traffic.maxQueue.date}` : ""}`] : []),
     ...(s.cost ? [`Cost (${s.cost.valueOfTimeYear} $): road-user P50 ${money(s.cost.roadUser?.p50 ?? null)}, P80 ${money(s.cost.roadUser?.p80 ?? null)}; contract P50 ${money(s.cost.contract?.p50 ?? null)}, P80 ${money(s.cost.contract?.p80 ?? null)}`] : []),

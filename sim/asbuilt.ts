@@ -13,6 +13,7 @@ import { seasonAt, type CompiledCalendar } from "./calendar";
 import { parseIsoDate } from "./dates";
 import { packetProbabilities } from "./samples";
 import type { Distribution, Scenario } from "./schema";
+import { resolveStages, type ResolvedStage } from "./stages";
 
 export interface DiscoveredItem {
   kind: string;
@@ -29,13 +30,17 @@ export interface ProgressRecord {
   fromStationFt: number;
   toStationFt: number;
   discovered?: DiscoveredItem[];
+  /** The stage the work belongs to; absent: the first stage whose range holds the start station and whose work there is not yet covered. */
+  stage?: string;
 }
 
 /** The survey counts as much as this many inspected packets (a judgement, no published source). */
 export const DISCOVERY_PRIOR_PACKETS = 20;
 
+/** One stage operation's progress (stage operations in the engine's order: stage by stage). */
 export interface AsBuiltOp {
   id: string;
+  stage: string;
   kind: "crew" | "wait";
   /** Per packet: share of its length still to do, 0 (done) … 1 (untouched); always 1 for wait operations. */
   remaining: number[];
@@ -53,7 +58,7 @@ export interface AsBuiltState {
   entriesUsed: number;
   ops: AsBuiltOp[];
   /** Wait packets whose predecessors are done and whose nominal duration has not passed at the data time. */
-  curing: { op: string; packet: number; since: number; nominalFinish: number }[];
+  curing: { op: string; stage: string; packet: number; since: number; nominalFinish: number }[];
   discovered: { items: number; areaSqFt: number; byKind: Record<string, number> };
   discovery: {
     priorPackets: number;
@@ -111,8 +116,10 @@ export function buildAsBuilt(s: Scenario, records: ReadonlyArray<ProgressRecord>
   const pStart = (i: number) => i * packetFt;
   const pEnd = (i: number) => Math.min((i + 1) * packetFt, L);
 
-  const ops: AsBuiltOp[] = s.operations.map((op) => {
-    const mine = op.kind === "crew" ? used.filter((r) => r.operationId === op.id && shiftLen.has(r.shift)) : [];
+  const stageOps = resolveStages(s).flatMap((st) => st.ops.map((oi) => ({ st, oi, op: s.operations[oi] })));
+  const mineOf = assignRecords(s, stageOps, used.filter((r) => shiftLen.has(r.shift)));
+  const ops: AsBuiltOp[] = stageOps.map(({ st, op }, k) => {
+    const mine = op.kind === "crew" ? mineOf[k] : [];
     const spans = mine.map((r) => {
       const start = shiftStartHours(s, r.workDate, r.shift)!;
       return { a: r.fromStationFt - s0, b: r.toStationFt - s0, start, end: start + shiftLen.get(r.shift)! };
@@ -121,6 +128,11 @@ export function buildAsBuilt(s: Scenario, records: ReadonlyArray<ProgressRecord>
     const remaining: number[] = [];
     const finish: (number | null)[] = [];
     for (let i = 0; i < P; i++) {
+      if (i < st.lo || i >= st.hi) {
+        remaining.push(1); // not this stage's packet
+        finish.push(null);
+        continue;
+      }
       const len = pEnd(i) - pStart(i);
       const left = 1 - coveredLength(union, pStart(i), pEnd(i)) / len;
       const rem = left * len < EPS ? 0 : Math.min(1, left);
@@ -139,7 +151,7 @@ export function buildAsBuilt(s: Scenario, records: ReadonlyArray<ProgressRecord>
       if (lastShiftEnd === null || x.end > lastShiftEnd) lastShiftEnd = x.end;
       if (lastShiftStart === null || x.start > lastShiftStart) lastShiftStart = x.start;
     }
-    return { id: op.id, kind: op.kind, remaining, finish, lastShiftStart, lastShiftEnd };
+    return { id: op.id, stage: st.id, kind: op.kind, remaining, finish, lastShiftStart, lastShiftEnd };
   });
 
   const curing = curingPackets(s, ops, dataTime, P);
@@ -160,7 +172,8 @@ export function buildAsBuilt(s: Scenario, records: ReadonlyArray<ProgressRecord>
   for (let i = 0; i < P; i++) {
     const a = s0 + pStart(i);
     const b = s0 + pEnd(i);
-    const discovering = s.operations.map((op, oi) => (op.kind === "crew" && op.discovers ? ops[oi].remaining[i] : 1));
+    // Every stage-operation pair that discovers (a packet outside a pair's stage reads remaining 1).
+    const discovering = stageOps.map(({ op }, k) => (op.kind === "crew" && op.discovers ? ops[k].remaining[i] : 1));
     const done = discovering.some((r) => r === 0);
     const worked = discovering.some((r) => r < 1);
     const hasItem = items.some((it) => Math.min(b, it.toStationFt) - Math.max(a, it.fromStationFt) > EPS);
@@ -184,27 +197,60 @@ export function buildAsBuilt(s: Scenario, records: ReadonlyArray<ProgressRecord>
   };
 }
 
-/** Wait packets whose crew predecessors are done by the data time and whose nominal duration has not passed. */
+/** Wait packets whose crew predecessors (in the same stage) are done by the data time and whose nominal duration has not passed. */
 function curingPackets(s: Scenario, ops: AsBuiltOp[], dataTime: number, P: number): AsBuiltState["curing"] {
-  const index = new Map(s.operations.map((o, i) => [o.id, i]));
   const out: AsBuiltState["curing"] = [];
-  s.operations.forEach((op, oi) => {
+  ops.forEach((ab) => {
+    const op = s.operations.find((o) => o.id === ab.id)!;
     if (op.kind !== "wait") return;
-    const links = s.links.filter((l) => l.to === op.id);
+    const mine = new Map(ops.filter((o) => o.stage === ab.stage).map((o) => [o.id, o]));
+    const links = s.links.filter((l) => l.to === op.id && mine.has(l.from));
     if (links.length === 0) return;
     for (let i = 0; i < P; i++) {
       let since = -Infinity;
       let ready = true;
       for (const l of links) {
-        const f = ops[index.get(l.from)!].finish[i];
+        const f = mine.get(l.from)!.finish[i];
         if (f === null) ready = false;
         else since = Math.max(since, f + l.lagHours);
       }
       if (!ready || since > dataTime) continue;
       const nominalFinish = since + nominal(op.durationHours);
-      if (nominalFinish > dataTime) out.push({ op: op.id, packet: i, since, nominalFinish });
+      if (nominalFinish > dataTime) out.push({ op: op.id, stage: ab.stage, packet: i, since, nominalFinish });
     }
   });
+  return out;
+}
+
+/**
+ * Records per stage operation (MODEL.md, "Re-forecast", Stages): a record naming its stage goes there; otherwise
+ * to the first stage (in stage order) with its operation whose range holds the record's start station and whose
+ * records so far do not yet cover the record's stretch inside that range (failing that, the first such stage,
+ * the first whose range the record overlaps, or the first with its operation). Records are taken in time order.
+ */
+function assignRecords(s: Scenario, stageOps: { st: ResolvedStage; oi: number; op: Scenario["operations"][number] }[], records: ProgressRecord[]): ProgressRecord[][] {
+  const s0 = s.deck.startStationFt;
+  const out: ProgressRecord[][] = stageOps.map(() => []);
+  const time = (r: ProgressRecord) => shiftStartHours(s, r.workDate, r.shift) ?? 0;
+  const sorted = records.map((r, i) => ({ r, i, t: time(r) })).sort((a, b) => a.t - b.t || a.i - b.i);
+  for (const { r } of sorted) {
+    const mine = stageOps.map((x, k) => ({ ...x, k })).filter((x) => x.op.id === r.operationId && x.op.kind === "crew");
+    let pick: number | undefined;
+    if (r.stage !== undefined) pick = mine.find((x) => x.st.id === r.stage)?.k;
+    else {
+      const a = r.fromStationFt - s0;
+      const b = r.toStationFt - s0;
+      const holding = mine.filter((x) => a >= x.st.fromFt && a < x.st.toFt);
+      const open = holding.find((x) => {
+        const lo = Math.max(a, x.st.fromFt);
+        const hi = Math.min(b, x.st.toFt);
+        const union = unionRanges(out[x.k].map((q) => [q.fromStationFt - s0, q.toStationFt - s0] as [number, number]));
+        return coveredLength(union, lo, hi) < hi - lo - EPS;
+      });
+      pick = (open ?? holding[0] ?? mine.find((x) => Math.min(b, x.st.toFt) > Math.max(a, x.st.fromFt)) ?? mine[0])?.k;
+    }
+    if (pick !== undefined) out[pick].push(r);
+  }
   return out;
 }
 
@@ -225,11 +271,11 @@ export interface CompiledAsBuilt {
   season1End: number;
 }
 
-export function compileAsBuilt(s: Scenario, state: AsBuiltState, cal: CompiledCalendar, packets: number): CompiledAsBuilt {
-  if (state.ops.length !== s.operations.length || state.ops.some((o, i) => o.id !== s.operations[i].id || o.remaining.length !== packets)) {
-    throw new Error("the as-built state belongs to a different scenario (operations or packets differ)");
+export function compileAsBuilt(s: Scenario, state: AsBuiltState, cal: CompiledCalendar, packets: number, stageOps: ReadonlyArray<{ id: string; stageId: string }>): CompiledAsBuilt {
+  if (state.ops.length !== stageOps.length || state.ops.some((o, i) => o.id !== stageOps[i].id || o.stage !== stageOps[i].stageId || o.remaining.length !== packets)) {
+    throw new Error("the as-built state belongs to a different scenario (stages, operations or packets differ)");
   }
-  const n = s.operations.length;
+  const n = stageOps.length;
   const remaining = new Float64Array(n * packets).fill(1);
   const doneFinish = new Float64Array(n * packets).fill(NaN);
   const crewFree = new Float64Array(n);

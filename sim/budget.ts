@@ -3,7 +3,9 @@
  * save, each variant of a plan search), so that no single scenario can occupy a machine for minutes. The time
  * limit of an engine job on the queue follows from the same units.
  *
- * Work units per iteration = packets × operations × (links + 1) + HORIZON_DAYS. The first term bounds the
+ * Work units per iteration = packets × operations × (links + 1) + HORIZON_DAYS, where operations counts each
+ * operation once per stage it works in (the engine schedules every stage operation over the stage's packets;
+ * counting the whole deck for each over-counts a stage on part of it). The first term bounds the
  * engine's claims and precedence checks (each packet of each operation looks at its incoming links); the
  * second the weather days one iteration may draw. It over-counts links (measured: 9× the demo's links costs
  * 1.3× the time, not 9×), which errs on the safe side. Common practice, no published source.
@@ -36,11 +38,18 @@ export interface RunWork {
   total: number;
 }
 
-type WorkInput = { deck: { lengthFt: number; packetFt: number }; operations: readonly unknown[]; links: readonly unknown[] };
+type WorkInput = {
+  deck: { lengthFt: number; packetFt: number };
+  operations: readonly unknown[];
+  links: readonly unknown[];
+  /** Absent (a version-1 plan): one stage with every operation. */
+  stages?: readonly { operations?: readonly unknown[] }[];
+};
 
 export function runWork(s: WorkInput, iterations: number): RunWork {
   const packets = Math.ceil(s.deck.lengthFt / s.deck.packetFt);
-  const operations = s.operations.length;
+  const stages = s.stages?.length ? s.stages : [{}];
+  const operations = stages.reduce((n, st) => n + (st.operations?.length ?? s.operations.length), 0);
   const links = s.links.length;
   const perIteration = packets * operations * (links + 1) + HORIZON_DAYS;
   return { packets, operations, links, perIteration, total: perIteration * iterations };

@@ -42,6 +42,8 @@ export interface CompiledCalendar {
   firstWinterEnd: number;
   /** Per operation index; null for wait operations. */
   ops: (OpCalendar | null)[];
+  /** Per short-term closure (calendar.closures order): its window intervals, before set-up/take-down and blocks. */
+  closureWindows: Intervals[];
 }
 
 type Pairs = number[]; // flat [s0, e0, s1, e1, …]
@@ -145,17 +147,13 @@ export interface DayPattern {
   dayType(d: number): number;
 }
 
-/** Shifts on work days ∩ the closure's windows by day type, before blocking (also used by validation). */
-export function openBeforeBlocks(
-  pattern: DayPattern,
-  shifts: ReadonlyArray<{ startHour: number; lengthHours: number }>,
-  windows: ReadonlyArray<{ dayTypes: DayType[]; startHour: number; endHour: number }>,
-): { open: Pairs; shiftPairs: Pairs } {
-  const shiftPairs: Pairs = [];
+type WindowLike = { dayTypes: DayType[]; startHour: number; endHour: number };
+
+/** A closure's window intervals: the maximal intervals of the union of its window instances (MODEL.md, condition 2). */
+export function windowIntervals(pattern: DayPattern, windows: ReadonlyArray<WindowLike>): Pairs {
   const windowPairs: Pairs = [];
   for (let d = 0; d < pattern.days; d++) {
     const base = 24 * d;
-    if (pattern.workDay(d)) for (const s of shifts) shiftPairs.push(base + s.startHour, base + s.startHour + s.lengthHours);
     const type = pattern.dayType(d);
     for (const w of windows) {
       if (!w.dayTypes.some((t) => DAY_TYPE_CODE[t] === type)) continue;
@@ -163,12 +161,45 @@ export function openBeforeBlocks(
       windowPairs.push(base + w.startHour, end);
     }
   }
+  return sortMerge(windowPairs);
+}
+
+/** The usable part [a + setup, b − takedown) of each window interval; empty parts are dropped. */
+export function usableParts(intervals: Pairs, setupHours: number, takedownHours: number): Pairs {
+  if (setupHours === 0 && takedownHours === 0) return intervals;
+  const out: Pairs = [];
+  for (let i = 0; i < intervals.length; i += 2) {
+    const a = intervals[i] + setupHours;
+    const b = intervals[i + 1] - takedownHours;
+    if (a < b) out.push(a, b);
+  }
+  return out;
+}
+
+/**
+ * Shifts on work days ∩ the usable parts of the closure's window intervals, before blocking (also used by
+ * validation). `windows` null: the operation needs no short-term closure, so its shifts alone.
+ */
+export function openBeforeBlocks(
+  pattern: DayPattern,
+  shifts: ReadonlyArray<{ startHour: number; lengthHours: number }>,
+  windows: ReadonlyArray<WindowLike> | null,
+  changeover: { setupHours: number; takedownHours: number } | null = null,
+): { open: Pairs; shiftPairs: Pairs } {
+  const shiftPairs: Pairs = [];
+  for (let d = 0; d < pattern.days; d++) {
+    const base = 24 * d;
+    if (pattern.workDay(d)) for (const s of shifts) shiftPairs.push(base + s.startHour, base + s.startHour + s.lengthHours);
+  }
   const sortedShifts: Pairs = [];
   const order = [];
   for (let i = 0; i < shiftPairs.length; i += 2) order.push(i);
   order.sort((a, b) => shiftPairs[a] - shiftPairs[b] || shiftPairs[a + 1] - shiftPairs[b + 1]);
   for (const i of order) sortedShifts.push(shiftPairs[i], shiftPairs[i + 1]);
-  return { open: intersect(sortMerge(shiftPairs), sortMerge(windowPairs)), shiftPairs: sortedShifts };
+  const merged = sortMerge(shiftPairs);
+  if (windows === null) return { open: merged, shiftPairs: sortedShifts };
+  const usable = usableParts(windowIntervals(pattern, windows), changeover?.setupHours ?? 0, changeover?.takedownHours ?? 0);
+  return { open: intersect(merged, usable), shiftPairs: sortedShifts };
 }
 
 function monthDayOf(md: string): [number, number] {
@@ -253,8 +284,9 @@ export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS):
   const ops = scenario.operations.map((op) => {
     if (op.kind !== "crew") return null;
     const shifts = op.shifts.map((id) => cal.shifts.find((s) => s.id === id)!);
-    const windows = cal.closureWindows.filter((w) => w.closure === op.closure);
-    const { open, shiftPairs } = openBeforeBlocks(pattern, shifts, windows);
+    const closure = op.closure === undefined ? null : cal.closures.find((c) => c.id === op.closure)!;
+    const windows = closure ? cal.closureWindows.filter((w) => w.closure === closure.id) : null;
+    const { open, shiftPairs } = openBeforeBlocks(pattern, shifts, windows, closure);
     const clipped = intersect(open, horizonPair);
     return {
       open: toIntervals(subtract(clipped, blockedMerged), days),
@@ -262,7 +294,12 @@ export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS):
     };
   });
 
+  const closureWindows = cal.closures.map((c) =>
+    toIntervals(windowIntervals(pattern, cal.closureWindows.filter((w) => w.closure === c.id)), days),
+  );
+
   return {
+    closureWindows,
     startDay,
     days,
     horizonHours,
@@ -291,14 +328,14 @@ export function stampShifts(shifts: Intervals, a: number, b: number, stamp: Int3
   return count;
 }
 
-/** Adds the hours of [a, b) falling on each day into `out[offset + d]`; widens `range` = [first, last] day. */
-export function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, days: number, range: Int32Array): void {
+/** Adds the hours of [a, b) falling on each day (× `weight`) into `out[offset + d]`; widens `range` = [first, last] day. */
+export function addHoursByDay(a: number, b: number, out: Float64Array, offset: number, days: number, range: Int32Array, weight = 1): void {
   let t = a;
   while (t < b) {
     const d = Math.floor(t / 24);
     if (d >= days) break;
     const dayEnd = Math.min(b, 24 * (d + 1));
-    out[offset + d] += dayEnd - t;
+    out[offset + d] += (dayEnd - t) * weight;
     if (d < range[0]) range[0] = d;
     if (d > range[1]) range[1] = d;
     t = dayEnd;

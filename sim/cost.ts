@@ -2,8 +2,8 @@
  * What one iteration costs (MODEL.md, "Traffic" and "Costs"). Contract: `impactModel(compiled)` compiles the
  * traffic model and the cost inputs once per compiled scenario (cached; null when the scenario has neither a
  * traffic section with a direction nor a costs section); `iterationImpact` turns one `simulate` result into
- * vehicle-hours of delay (D/D/1 over the union of closure time, ./traffic), road-user cost and contract cost.
- * It must be called right after the `simulate` whose result it reads (the closure segments are scratch).
+ * vehicle-hours of delay (D/D/1 over the closure timeline, ./traffic-capacity and ./traffic), road-user cost and contract cost.
+ * It must be called right after the `simulate` whose result it reads (the closure timeline is scratch).
  * Units: veh-h, $ (in the dollars of `costs.valueOfTime.year`).
  */
 import { seasonAt } from "./calendar";
@@ -11,6 +11,7 @@ import { parseIsoDate } from "./dates";
 import type { CompiledScenario, SimResult } from "./engine";
 import type { Costs } from "./schema";
 import { compileTraffic, newQueueDetail, queueDelay, type QueueDetail, type TrafficModel } from "./traffic";
+import { timelineCapacityPieces } from "./traffic-capacity";
 
 /**
  * Value of time defaults, $ per vehicle-hour in 2015 dollars — from memory: USDOT departmental guidance on
@@ -96,7 +97,6 @@ export function iterationImpact(c: CompiledScenario, m: ImpactModel, r: SimResul
   let delay = 0;
   let ruc = NaN;
   if (m.traffic) {
-    const seg = c.work.closureSegments();
     ruc = 0;
     m.traffic.directions.forEach((dir, i) => {
       let d: QueueDetail | null = null;
@@ -104,7 +104,7 @@ export function iterationImpact(c: CompiledScenario, m: ImpactModel, r: SimResul
         d = newQueueDetail(m.traffic!.days);
         detail.perDirection[i] = d;
       }
-      const v = queueDelay(m.traffic!, dir, seg, d);
+      const v = queueDelay(m.traffic!, dir, timelineCapacityPieces(m.traffic!, dir, c.timeline), d);
       delay += v;
       ruc += roadUserCost(v, dir.heavyShare, m.carVot, m.truckVot);
     });

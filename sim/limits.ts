@@ -15,8 +15,15 @@ export const LIMITS = {
   surveyRanges: 500,
   operations: 40,
   links: 200,
-  /** Shifts, closures, closure windows and traffic closures, each. */
+  /** Shifts and closure windows, each. */
   calendarItems: 50,
+  /**
+   * Short-term closures (and the traffic entries that refer to them). With one standing closure per stage
+   * they make the closure timeline's set of standing closures one 32-bit mask: 18 + 12 stages ≤ 30 bits.
+   */
+  closures: 18,
+  /** Stages of the work (see `closures`). */
+  stages: 12,
   /** Blackout dates and fixed wet dates, each. */
   dates: 500,
 } as const;

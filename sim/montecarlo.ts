@@ -2,8 +2,8 @@
  * Monte Carlo runs (MODEL.md, "Monte Carlo"). Contract: `runIterations(compiled, seed, from, to)` simulates
  * iterations from ≤ k < to, each on `drawSamples(scenario, seed, k)`, into typed arrays indexed by
  * k − from. Because iteration k depends only on (scenario, seed, k), ranges run anywhere (a pool of workers)
- * and joined by `mergePartials` equal one run bit for bit: closure hours are summed as integer
- * micro-hours, so the sum does not depend on grouping. `shouldStop` ends a range early (`to` shrinks).
+ * and joined by `mergePartials` equal one run bit for bit (every column is per iteration). `shouldStop` ends a
+ * range early (`to` shrinks). Lane-closed hours come from each iteration's closure timeline (./timeline).
  * With a traffic or costs section (./cost) each iteration also records its delay and costs.
  */
 import { impactModel, iterationImpact } from "./cost";
@@ -15,12 +15,22 @@ export interface PartialRun {
   from: number;
   to: number;
   nOps: number;
+  nStages: number;
+  /** Timeline closures: the short-term closures, then one standing closure per stage. */
   nClosures: number;
   days: number;
   /** Overall finish, hours since 00:00 of startDate (Infinity = unfinished). */
   finish: Float64Array;
   /** Iteration-major: opFinish[(k − from) · nOps + op]. */
   opFinish: Float64Array;
+  /** Iteration-major: stageFinish[(k − from) · nStages + stage]. */
+  stageFinish: Float64Array;
+  /** Lane-closed hours of the iteration's closure timeline. */
+  laneClosedHours: Float64Array;
+  /** Iteration-major: laneClosedByClosure[(k − from) · nClosures + closure]. */
+  laneClosedByClosure: Float64Array;
+  /** 1 when a standing closure stood in a winter. */
+  winterStanding: Float64Array;
   season1End: Float64Array;
   weatherLostShifts: Float64Array;
   discoveredHours: Float64Array;
@@ -32,19 +42,22 @@ export interface PartialRun {
   roadUserCost: Float64Array;
   /** Contract cost, $ (NaN without costs; Infinity when unfinished). */
   contractCost: Float64Array;
-  /** Sum over iterations of round(closure hours · 10⁶) per closure and day: [c · days + d]. */
-  closureMicroHours: Float64Array;
 }
 
 function emptyPartial(c: CompiledScenario, seed: string, from: number, to: number): PartialRun {
   const n = Math.max(0, to - from);
-  const nOps = c.ops.length;
-  const nClosures = c.closures.length;
+  const nOps = c.scenario.operations.length;
+  const nStages = c.stages.length;
+  const nClosures = c.timelineClosures.length;
   const days = c.calendar.days;
   return {
-    seed, from, to, nOps, nClosures, days,
+    seed, from, to, nOps, nStages, nClosures, days,
     finish: new Float64Array(n),
     opFinish: new Float64Array(n * nOps),
+    stageFinish: new Float64Array(n * nStages),
+    laneClosedHours: new Float64Array(n),
+    laneClosedByClosure: new Float64Array(n * nClosures),
+    winterStanding: new Float64Array(n),
     season1End: new Float64Array(n),
     weatherLostShifts: new Float64Array(n),
     discoveredHours: new Float64Array(n),
@@ -52,7 +65,6 @@ function emptyPartial(c: CompiledScenario, seed: string, from: number, to: numbe
     delayVehHours: new Float64Array(n),
     roadUserCost: new Float64Array(n),
     contractCost: new Float64Array(n),
-    closureMicroHours: new Float64Array(nClosures * days),
   };
 }
 
@@ -63,6 +75,10 @@ function truncate(p: PartialRun, done: number): PartialRun {
     to: p.from + done,
     finish: p.finish.slice(0, done),
     opFinish: p.opFinish.slice(0, done * nOps),
+    stageFinish: p.stageFinish.slice(0, done * p.nStages),
+    laneClosedHours: p.laneClosedHours.slice(0, done),
+    laneClosedByClosure: p.laneClosedByClosure.slice(0, done * p.nClosures),
+    winterStanding: p.winterStanding.slice(0, done),
     season1End: p.season1End.slice(0, done),
     weatherLostShifts: p.weatherLostShifts.slice(0, done),
     discoveredHours: p.discoveredHours.slice(0, done),
@@ -83,7 +99,6 @@ export function runIterations(
 ): PartialRun {
   const out = emptyPartial(compiled, seed, from, to);
   const nOps = out.nOps;
-  const days = out.days;
   const impact = impactModel(compiled);
   if (!impact) {
     out.roadUserCost.fill(NaN);
@@ -98,6 +113,10 @@ export function runIterations(
     const r = simulate(compiled, samples);
     out.finish[j] = r.finish;
     out.opFinish.set(r.opFinish, j * nOps);
+    out.stageFinish.set(r.stageFinish, j * out.nStages);
+    out.laneClosedHours[j] = r.laneClosedHours;
+    out.laneClosedByClosure.set(r.laneClosedByClosure, j * out.nClosures);
+    out.winterStanding[j] = r.winterStanding ? 1 : 0;
     out.season1End[j] = r.season1End;
     out.weatherLostShifts[j] = r.weatherLostShifts;
     out.discoveredHours[j] = r.discoveredHours;
@@ -108,12 +127,6 @@ export function runIterations(
       out.roadUserCost[j] = im.roadUserCost;
       out.contractCost[j] = im.contractCost;
     }
-    const { first, last } = r.closureDayRange;
-    for (let c = 0; c < out.nClosures; c++)
-      for (let d = first; d <= last; d++) {
-        const h = r.closureDayHours[c * days + d];
-        if (h !== 0) out.closureMicroHours[c * days + d] += Math.round(h * 1e6);
-      }
     if (onProgress) onProgress(j + 1);
   }
   return out;
@@ -127,10 +140,10 @@ export function mergePartials(parts: PartialRun[]): PartialRun {
   for (let i = 1; i < sorted.length; i++) {
     const p = sorted[i];
     if (p.from !== sorted[i - 1].to) throw new Error(`partial runs are not contiguous: ${sorted[i - 1].to} then ${p.from}`);
-    if (p.seed !== first.seed || p.nOps !== first.nOps || p.nClosures !== first.nClosures || p.days !== first.days)
+    if (p.seed !== first.seed || p.nOps !== first.nOps || p.nStages !== first.nStages || p.nClosures !== first.nClosures || p.days !== first.days)
       throw new Error("partial runs come from different runs");
   }
-  type Column = "finish" | "opFinish" | "season1End" | "weatherLostShifts" | "discoveredHours" | "weatherDays" | "delayVehHours" | "roadUserCost" | "contractCost";
+  type Column = "finish" | "opFinish" | "stageFinish" | "laneClosedHours" | "laneClosedByClosure" | "winterStanding" | "season1End" | "weatherLostShifts" | "discoveredHours" | "weatherDays" | "delayVehHours" | "roadUserCost" | "contractCost";
   const cat = (key: Column) => {
     const total = sorted.reduce((n, p) => n + p[key].length, 0);
     const out = new Float64Array(total);
@@ -141,14 +154,13 @@ export function mergePartials(parts: PartialRun[]): PartialRun {
     }
     return out;
   };
-  const closureMicroHours = new Float64Array(first.closureMicroHours.length);
-  for (const p of sorted) for (let i = 0; i < closureMicroHours.length; i++) closureMicroHours[i] += p.closureMicroHours[i];
   return {
     seed: first.seed, from: first.from, to: sorted[sorted.length - 1].to,
-    nOps: first.nOps, nClosures: first.nClosures, days: first.days,
-    finish: cat("finish"), opFinish: cat("opFinish"), season1End: cat("season1End"),
+    nOps: first.nOps, nStages: first.nStages, nClosures: first.nClosures, days: first.days,
+    finish: cat("finish"), opFinish: cat("opFinish"), stageFinish: cat("stageFinish"),
+    laneClosedHours: cat("laneClosedHours"), laneClosedByClosure: cat("laneClosedByClosure"), winterStanding: cat("winterStanding"),
+    season1End: cat("season1End"),
     weatherLostShifts: cat("weatherLostShifts"), discoveredHours: cat("discoveredHours"), weatherDays: cat("weatherDays"),
     delayVehHours: cat("delayVehHours"), roadUserCost: cat("roadUserCost"), contractCost: cat("contractCost"),
-    closureMicroHours,
   };
 }

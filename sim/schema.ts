@@ -53,10 +53,18 @@ export const shiftSchema = z.object({
   lengthHours: z.number().gt(0, "must be > 0").max(24, "a shift cannot be longer than 24 h"),
 });
 
+/**
+ * A short-term closure (MODEL.md, "Closures that stand"): set up at the start of each window interval a crew
+ * uses, taken down at its end. Work cannot start before it is set up and must stop in time to take it down.
+ */
 export const closureSchema = z.object({
   id,
   name: name(),
   lanesClosed: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must close at least one lane"),
+  /** Hours to set the closure up (signs, cones, crossover gates) before work can start; lanes count as closed. */
+  setupHours: nonNeg.max(12, "must be ≤ 12 h").default(0),
+  /** Hours to take it down after work stops; lanes count as closed. */
+  takedownHours: nonNeg.max(12, "must be ≤ 12 h").default(0),
 });
 
 export const closureWindowSchema = z.object({
@@ -113,7 +121,8 @@ const crewOperationSchema = z.object({
   rate: z.object({ unit: z.enum(["ftPerHour", "ftPerShift"]), dist: distributionSchema }),
   crews: z.number().int("must be a whole number").min(1, "must be ≥ 1").max(10),
   shifts: upTo(id, LIMITS.calendarItems, "shifts").min(1, "must list at least one shift"),
-  closure: id,
+  /** The short-term closure the crew needs on top of its stage's standing closure; absent = the standing closure alone. */
+  closure: id.optional(),
   mobilizationHours: nonNeg.max(240).default(0),
   continuous: z.boolean().default(false),
   discovers: z.boolean().default(false),
@@ -141,6 +150,39 @@ export const linkSchema = z.object({
   lagHours: nonNeg.default(0),
 });
 export type Link = z.infer<typeof linkSchema>;
+
+/** How a stage follows an earlier one (MODEL.md, "Stages"). */
+export const stageAfterSchema = z.object({
+  /** An earlier stage's id. */
+  stage: id,
+  /** `stageDone`: wait for the whole earlier stage; `restoredAhead`: follow its restored front, like a link. */
+  when: z.enum(["stageDone", "restoredAhead"]).default("stageDone"),
+  lagFt: nonNeg.default(0),
+  lagHours: nonNeg.default(0),
+});
+export type StageAfter = z.infer<typeof stageAfterSchema>;
+
+/**
+ * A stage: the deck lanes it rehabilitates over a station range, the lanes behind barrier while it is open
+ * (default: its own lanes; [] = no standing closure) and the operations that run in it (default: all).
+ */
+export const stageSchema = z
+  .object({
+    id,
+    name: name(),
+    lanes: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must rehabilitate at least one lane"),
+    /** Absolute stations, [from, to); default the whole deck. */
+    fromStationFt: nonNeg.optional(),
+    toStationFt: nonNeg.optional(),
+    standingLanesClosed: upTo(laneName, LIMITS.lanes, "lanes").optional(),
+    operations: upTo(id, LIMITS.operations, "operations").min(1, "must list at least one operation").optional(),
+    /** Absent: after the previous stage when it is done (the first stage has none). */
+    after: stageAfterSchema.optional(),
+    /** Override: veh/h for each direction the standing closure narrows (e.g. traffic shifted to a crossover). */
+    capacityVehPerHour: z.number().gt(0, "must be > 0").max(20_000).optional(),
+  })
+  .transform((st) => ({ ...st, standingLanesClosed: st.standingLanesClosed ?? st.lanes }));
+export type Stage = z.output<typeof stageSchema>;
 
 export const monthClimateSchema = z
   .object({
@@ -225,7 +267,7 @@ export const trafficSchema = z.object({
   openRoadPcPerHourPerLane: z.number().min(500).max(2_800).default(2_000),
   jamDensityPcPerMiPerLane: z.number().min(100).max(300).default(190),
   directions: upTo(trafficDirectionSchema, 4, "directions"),
-  closures: upTo(trafficClosureSchema, LIMITS.calendarItems, "closures").default([]),
+  closures: upTo(trafficClosureSchema, LIMITS.closures, "closures").default([]),
 });
 export type Traffic = z.infer<typeof trafficSchema>;
 
@@ -251,7 +293,8 @@ export const costsSchema = z.object({
 export type Costs = z.infer<typeof costsSchema>;
 
 export const scenarioSchema = z.object({
-  schemaVersion: z.literal(1),
+  /** Version 1 input is upgraded by `upgradeScenario` (./upgrade) before it is parsed. */
+  schemaVersion: z.literal(2, "must be 2 (version 1 scenarios are upgraded on reading)"),
   name: name(),
   description: plainText(LIMITS.description, { multiline: true }).default(""),
   startDate: isoDate,
@@ -274,7 +317,8 @@ export const scenarioSchema = z.object({
   calendar: z.object({
     shifts: upTo(shiftSchema, LIMITS.calendarItems, "shifts").min(1, "must define at least one shift"),
     workDays: upTo(z.number().int().min(0).max(6), 7, "work days").min(1, "must list at least one work day"),
-    closures: upTo(closureSchema, LIMITS.calendarItems, "closures").min(1, "must define at least one closure"),
+    /** Short-term closures; a plan may have none (its stages' standing closures alone). */
+    closures: upTo(closureSchema, LIMITS.closures, "closures"),
     closureWindows: upTo(closureWindowSchema, LIMITS.calendarItems, "closure windows"),
     holidays: z.object({
       policy: z.enum(["standDown", "workThrough"]),
@@ -296,6 +340,8 @@ export const scenarioSchema = z.object({
     }),
   }),
   operations: upTo(operationSchema, LIMITS.operations, "operations").min(1, "must have at least one operation"),
+  /** The work in stages, in the order they are built (MODEL.md, "Stages"); one stage over all lanes is the simple plan. */
+  stages: upTo(stageSchema, LIMITS.stages, "stages").min(1, "must have at least one stage"),
   links: upTo(linkSchema, LIMITS.links, "links"),
   weather: weatherSchema,
   /** Optional: demand and capacity for queues and delay (absent = no traffic model, results unchanged). */

@@ -15,6 +15,7 @@ import { simulate, type CompiledScenario, type Trace } from "./engine";
 import type { PartialRun } from "./montecarlo";
 import { nearestRank, sortedCopy } from "./percentiles";
 import { drawSamples } from "./samples";
+import { laneClosedSummary, representativeClosures } from "./summary-closures";
 import type { DateQuantiles, NumberQuantiles, RunSummary, TrafficDay, TrafficDetail } from "./run-summary-schema";
 
 export type { RunSummary, DateQuantiles, NumberQuantiles, TrafficDay, TrafficDetail } from "./run-summary-schema";
@@ -38,10 +39,15 @@ export function summarizeRun(compiled: CompiledScenario, partial: PartialRun): R
     p10: f(nearestRank(arr, 0.1)), p50: f(nearestRank(arr, 0.5)), p80: f(nearestRank(arr, 0.8)), p90: f(nearestRank(arr, 0.9)),
   });
 
-  const operations = compiled.ops.map((op, oi) => {
+  const operations = s.operations.map((op, oi) => {
     const col = new Float64Array(n);
     for (let j = 0; j < n; j++) col[j] = partial.opFinish[j * partial.nOps + oi];
-    return { id: op.id, name: s.operations[oi].name, finish: q(col.sort(), date) };
+    return { id: op.id, name: op.name, finish: q(col.sort(), date) };
+  });
+  const stages = compiled.stages.map((st, si) => {
+    const col = new Float64Array(n);
+    for (let j = 0; j < n; j++) col[j] = partial.stageFinish[j * partial.nStages + si];
+    return { id: st.id, name: st.name, lanes: st.lanes, finish: q(col.sort(), date) };
   });
 
   let unfinishedIterations = 0;
@@ -73,6 +79,10 @@ export function summarizeRun(compiled: CompiledScenario, partial: PartialRun): R
     season1End = e.length ? { p50: dateTime(nearestRank(e, 0.5)) } : null;
   }
 
+  const closures = laneClosedSummary(compiled, partial);
+  const traffic = impactSummary(compiled, partial, p50, dateTime);
+  const rep = representative(compiled, partial, p50, dateTime);
+  closures.laneClosedHours.byDay = rep.byDay;
   return {
     scenarioName: s.name,
     seed: partial.seed,
@@ -82,16 +92,17 @@ export function summarizeRun(compiled: CompiledScenario, partial: PartialRun): R
     finish: q(sorted, date),
     finishAt: q(sorted, dateTime),
     operations,
+    stages,
     histogram: histogram(sorted, day0),
     cdf: cdf(sorted, dateTime),
     target,
     weatherLostShifts: { p50: nearestRank(lost, 0.5), p80: nearestRank(lost, 0.8) },
     discoveredHours: { p50: nearestRank(disc, 0.5), p80: nearestRank(disc, 0.8) },
-    closureHours: closureHours(compiled, partial, day0),
+    ...closures,
     convergenceDays,
     season1End,
-    ...impactSummary(compiled, partial, p50, dateTime),
-    representative: representative(compiled, partial, p50, dateTime),
+    ...traffic,
+    representative: rep.representative,
   };
 }
 
@@ -132,13 +143,14 @@ function trafficDetail(c: CompiledScenario, m: ImpactModel, p: PartialRun, best:
   const days: TrafficDay[] = [];
   let maxQueue: TrafficDetail["maxQueue"] = null;
   const nDays = c.calendar.days;
+  const lane = c.timeline.byDay();
   for (let d = 0; d < nDays; d++) {
-    const closureHours: Record<string, number> = {};
+    const laneClosedHours: Record<string, number> = {};
     let any = false;
-    c.closures.forEach((id, ci) => {
-      const h = r.closureDayHours[ci * nDays + d];
+    c.timelineClosures.forEach((cl, j) => {
+      const h = lane.byClosure[j][d];
       if (h > 0) {
-        closureHours[id] = round(h, 3);
+        laneClosedHours[cl.id] = round(h, 3);
         any = true;
       }
     });
@@ -160,7 +172,7 @@ function trafficDetail(c: CompiledScenario, m: ImpactModel, p: PartialRun, best:
     });
     if (!any && delay <= 0) continue;
     const date = formatDayNumber(day0 + d);
-    days.push({ date, closureHours, delayVehHours: round(delay, 1), peakQueueVeh: Math.round(bestVeh), peakQueueMiles: round(bestMiles, 2), direction: dir, clearsAt: Number.isNaN(clears) ? null : dateTime(clears) });
+    days.push({ date, laneClosedHours, delayVehHours: round(delay, 1), peakQueueVeh: Math.round(bestVeh), peakQueueMiles: round(bestMiles, 2), direction: dir, clearsAt: Number.isNaN(clears) ? null : dateTime(clears) });
     if (bestMiles > (maxQueue?.miles ?? 0)) maxQueue = { miles: round(bestMiles, 2), vehicles: Math.round(bestVeh), date };
   }
   const fin = (x: number) => (Number.isFinite(x) ? Math.round(x) : null);
@@ -204,25 +216,6 @@ function cdf(sorted: Float64Array, dateTime: (h: number) => string): RunSummary[
   return out;
 }
 
-function closureHours(c: CompiledScenario, p: PartialRun, day0: number): RunSummary["closureHours"] {
-  const n = p.finish.length || 1;
-  const totalByClosure: Record<string, number> = {};
-  const byClosure = c.closures.map((id, ci) => {
-    const days: { date: string; meanHours: number }[] = [];
-    let total = 0;
-    for (let d = 0; d < p.days; d++) {
-      const micro = p.closureMicroHours[ci * p.days + d];
-      if (micro === 0) continue;
-      const meanHours = micro / 1e6 / n;
-      total += meanHours;
-      days.push({ date: formatDayNumber(day0 + d), meanHours: Math.round(meanHours * 1000) / 1000 });
-    }
-    totalByClosure[id] = Math.round(total * 100) / 100;
-    return { closure: id, name: c.scenario.calendar.closures[ci].name, days };
-  });
-  return { byClosure, totalByClosure };
-}
-
 function representativeIndex(p: PartialRun, p50: number): number {
   const n = p.finish.length;
   let best = 0;
@@ -238,8 +231,9 @@ function representativeIndex(p: PartialRun, p50: number): number {
   return best;
 }
 
-function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): RunSummary["representative"] {
+function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): { representative: RunSummary["representative"]; byDay: RunSummary["laneClosedHours"]["byDay"] } {
   const k = p.from + representativeIndex(p, p50);
   const r = simulate(c, drawSamples(c.scenario, p.seed, k), { trace: true });
-  return { iteration: k, finish: dateTime(r.finish), finishHours: r.finish, trace: r.trace! };
+  const cl = representativeClosures(c);
+  return { representative: { iteration: k, finish: dateTime(r.finish), finishHours: r.finish, trace: r.trace!, closureTimeline: cl.timeline }, byDay: cl.byDay };
 }

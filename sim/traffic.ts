@@ -1,15 +1,17 @@
 /**
- * The traffic model (MODEL.md, "Traffic"): hourly demand by demand day type, work-zone capacity under each
- * closure, and deterministic (D/D/1) queuing over the simulated closure time. Contract:
- * - `compileTraffic` does all per-scenario work once (day kinds over the horizon, demand profiles, the
- *   capacity of every closure for every direction), so an iteration only walks its closure segments.
+ * The traffic model (MODEL.md, "Traffic"): hourly demand by demand day type, the capacity formulas, and
+ * deterministic (D/D/1) queuing over the pieces of narrowed road of an iteration. Contract:
+ * - `compileTraffic` does all per-scenario work once (day kinds over the horizon, demand profiles, which
+ *   timeline closures can narrow each direction); the capacity of what stands in each piece is read from the
+ *   closure timeline by ./traffic-capacity;
  * - `queueDelay` runs D/D/1 exactly over piecewise-constant demand (one rate per clock hour) and capacity
- *   (constant between closure segment ends), only over closure time and the time a queue remains.
+ *   (constant inside a piece), only over narrowed time and the time a queue remains.
  * Units: veh/h (demand, capacity), pc/h/ln (capacity method inputs), veh (queues), veh-h (delay), miles.
  */
 import { civilFromDays, parseIsoDate, weekdayOfDayNumber } from "./dates";
 import { federalHolidays } from "./holidays";
 import type { Scenario, Traffic } from "./schema";
+import { timelineClosureTraffic, type TimelineClosureTraffic } from "./traffic-capacity";
 
 /** Demand day kinds: the index of the profile in `demand` (24 values each). */
 export const DEMAND_KINDS = ["weekday", "friday", "saturday", "sunday", "holidayPeak"] as const;
@@ -101,22 +103,25 @@ export interface CompiledDirection {
   demand: Float64Array;
   /** Demand of every clock hour since 00:00 of startDate over the horizon, veh/h (hourDemand[⌊t⌋]). */
   hourDemand: Float64Array;
-  /** Indices of the closures that narrow this direction. */
-  narrowing: Int32Array;
   heavyShare: number;
   /** Passenger cars per vehicle, 1 + P_T (E_T − 1). */
   pcPerVeh: number;
   storageLanes: number;
   /** veh/h once every lane is open (queue discharge). */
   openCapacity: number;
-  /** Per closure index: veh/h through the work zone, or Infinity when the closure narrows no lane of this direction. */
-  closureCapacity: Float64Array;
+  /** The direction's lanes as a bit mask over deck.lanes. */
+  laneMask: number;
+  /** Heavy-vehicle factor f_HV. */
+  fHv: number;
+  /** Timeline closures (bit j) whose lanes include one of this direction's: only they can narrow it. */
+  select: number;
+  /** Capacity (veh/h) by the set of timeline closures standing, filled as sets are met (./traffic-capacity). */
+  capBySet: Map<number, number>;
   /**
-   * Per closure index (null where it does not narrow): nextOver[h] = the first clock hour ≥ h whose demand
-   * exceeds the closure's capacity (24 · days if none), so the walk jumps over hours that add no queue.
-   * Optional: without it the walk steps hour by hour (same result).
+   * Per capacity value: nextOver[h] = the first clock hour ≥ h whose demand exceeds it (24 · days if none), so
+   * the walk jumps over hours that add no queue. Built when a capacity is first met.
    */
-  nextOver?: (Int32Array | null)[];
+  nextOver: Map<number, Int32Array>;
 }
 
 export interface TrafficModel {
@@ -125,8 +130,19 @@ export interface TrafficModel {
   dayKind: Uint8Array;
   directions: CompiledDirection[];
   jamDensity: number;
-  /** Scratch of `queueDelay`: the merged capacity pieces of one direction. */
-  scratch: { starts: Float64Array; ends: Float64Array; caps: Float64Array; pos: Int32Array };
+  /** What each timeline closure does to capacity (./traffic-capacity). */
+  closures: TimelineClosureTraffic[];
+  traffic: Traffic;
+  /** Scratch of the capacity pieces of one direction. */
+  scratch: CapacityPieces;
+}
+
+/** Disjoint chronological pieces of narrowed road with their capacity, veh/h. */
+export interface CapacityPieces {
+  starts: Float64Array;
+  ends: Float64Array;
+  caps: Float64Array;
+  n: number;
 }
 
 /**
@@ -163,27 +179,6 @@ export function demandKindOf(z: number, peak: Set<number>): number {
 }
 
 /** Capacity of each closure for one direction (veh/h); Infinity where the closure leaves the direction alone. */
-function closureCapacities(s: Scenario, t: Traffic, lanes: string[], fHv: number): Float64Array {
-  const out = new Float64Array(s.calendar.closures.length);
-  s.calendar.closures.forEach((c, ci) => {
-    const closed = lanes.filter((l) => c.lanesClosed.includes(l)).length;
-    const cfg = t.closures.find((x) => x.closure === c.id);
-    if (closed === 0) out[ci] = Infinity;
-    else if (cfg?.capacityVehPerHour !== undefined) out[ci] = cfg.capacityVehPerHour;
-    else {
-      const open = lanes.length - closed;
-      if (t.method === "hcm6") {
-        // The D/D/1 server is the queue discharge rate: once a queue stands, that is what flows.
-        const h = hcm6WorkZone({ openLanes: open, totalLanes: lanes.length, cones: (cfg?.barrier ?? "cones") === "cones", rural: t.areaType === "rural", lateralClearanceFt: t.lateralClearanceFt, night: cfg?.night ?? false });
-        out[ci] = h.qdr * fHv * open;
-      } else {
-        out[ci] = krammesLopezCapacity({ basePcPerHourPerLane: t.basePcPerHourPerLane, workIntensity: cfg?.workIntensityPcPerHourPerLane ?? 0, fHv, openLanes: open });
-      }
-    }
-  });
-  return out;
-}
-
 /** Null when the scenario has no traffic section or no direction: then no delay is computed at all. */
 export function compileTraffic(s: Scenario, startDay: number, days: number): TrafficModel | null {
   const t = s.traffic;
@@ -191,48 +186,45 @@ export function compileTraffic(s: Scenario, startDay: number, days: number): Tra
   const peak = holidayPeakDays(s, startDay, days);
   const dayKind = new Uint8Array(days + 1);
   for (let d = 0; d <= days; d++) dayKind[d] = demandKindOf(startDay + d, peak);
+  const closures = timelineClosureTraffic(s);
+  const laneBit = new Map(s.deck.lanes.map((l, i) => [l, 1 << i]));
   const directions = t.directions.map((dir): CompiledDirection => {
     const demand = new Float64Array(DEMAND_KINDS.length * 24);
     DEMAND_KINDS.forEach((k, ki) => demand.set(dir.demand[k], ki * 24));
     const fHv = heavyVehicleFactor(dir.heavyVehicleShare, t.truckPce);
     const hourDemand = new Float64Array(24 * days);
     for (let d = 0; d < days; d++) hourDemand.set(demand.subarray(dayKind[d] * 24, dayKind[d] * 24 + 24), 24 * d);
-    const closureCapacity = closureCapacities(s, t, dir.lanes, fHv);
-    const narrowing: number[] = [];
-    closureCapacity.forEach((c, i) => {
-      if (c !== Infinity) narrowing.push(i);
+    const laneMask = dir.lanes.reduce((m, l) => m | (laneBit.get(l) ?? 0), 0);
+    let select = 0;
+    closures.forEach((c, j) => {
+      if (c.mask & laneMask) select |= 1 << j;
     });
-    const nextOver = Array.from(closureCapacity, (cap) => (cap === Infinity ? null : nextHourOver(hourDemand, cap)));
     return {
       id: dir.id,
       name: dir.name,
       demand,
       hourDemand,
-      narrowing: Int32Array.from(narrowing),
       heavyShare: dir.heavyVehicleShare,
       pcPerVeh: 1 + dir.heavyVehicleShare * (t.truckPce - 1),
       storageLanes: dir.lanes.length,
       openCapacity: t.openRoadPcPerHourPerLane * fHv * dir.lanes.length,
-      closureCapacity,
-      nextOver,
+      laneMask,
+      fHv,
+      select,
+      capBySet: new Map(),
+      nextOver: new Map(),
     };
   });
-  return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane, scratch: { starts: new Float64Array(256), ends: new Float64Array(256), caps: new Float64Array(256), pos: new Int32Array(s.calendar.closures.length) } };
+  return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane, closures, traffic: t, scratch: { starts: new Float64Array(256), ends: new Float64Array(256), caps: new Float64Array(256), n: 0 } };
 }
 
-function nextHourOver(hourDemand: Float64Array, cap: number): Int32Array {
+/** nextOver table of one capacity: the first clock hour ≥ h whose demand exceeds it. */
+export function nextHourOver(hourDemand: Float64Array, cap: number): Int32Array {
   const n = hourDemand.length;
   const out = new Int32Array(n + 1);
   out[n] = n;
   for (let h = n - 1; h >= 0; h--) out[h] = hourDemand[h] > cap ? h : out[h + 1];
   return out;
-}
-
-/** Closure time of one iteration: per closure, chronological disjoint segments (hours since startDate). */
-export interface ClosureSegments {
-  starts: Float64Array[];
-  ends: Float64Array[];
-  counts: Int32Array;
 }
 
 /** Per-day detail for the representative iteration (arrays over days since startDate). */
@@ -249,91 +241,6 @@ export function newQueueDetail(days: number): QueueDetail {
 }
 
 const piece: QueuePiece = { queue: 0, delay: 0, clearsAfter: -1 };
-
-/**
- * The closure time that narrows one direction as disjoint chronological pieces with their capacity (where
- * closures overlap, the lowest capacity holds). Returns the number of pieces in `m.scratch`.
- */
-function capacityPieces(m: TrafficModel, dir: CompiledDirection, seg: ClosureSegments): number {
-  const sc = m.scratch;
-  const rel = dir.narrowing;
-  const cap = dir.closureCapacity;
-  if (rel.length === 1) {
-    // One closure: its union is already disjoint and chronological.
-    const c = rel[0];
-    const n = seg.counts[c];
-    grow(sc, n);
-    sc.starts.set(seg.starts[c].subarray(0, n));
-    sc.ends.set(seg.ends[c].subarray(0, n));
-    sc.caps.fill(cap[c], 0, n);
-    return n;
-  }
-  // The current segment of each narrowing closure (j indexes `rel`) in local scratch, so the sweep reads
-  // flat arrays; a spent closure gets start = end = Infinity, which never covers t nor bounds `next`.
-  const k = rel.length;
-  if (headS.length < k) {
-    headS = new Float64Array(k);
-    headE = new Float64Array(k);
-    headP = new Int32Array(k);
-  }
-  for (let j = 0; j < k; j++) {
-    const c = rel[j];
-    headP[j] = 0;
-    headS[j] = seg.counts[c] > 0 ? seg.starts[c][0] : Infinity;
-    headE[j] = seg.counts[c] > 0 ? seg.ends[c][0] : Infinity;
-  }
-  let n = 0;
-  let t = -Infinity;
-  for (;;) {
-    let mu = Infinity;
-    let next = Infinity;
-    for (let j = 0; j < k; j++) {
-      if (headE[j] <= t) {
-        const c = rel[j];
-        const en = seg.ends[c];
-        const count = seg.counts[c];
-        let p = headP[j] + 1;
-        while (p < count && en[p] <= t) p++;
-        headP[j] = p;
-        headS[j] = p < count ? seg.starts[c][p] : Infinity;
-        headE[j] = p < count ? en[p] : Infinity;
-      }
-      const st = headS[j];
-      if (st <= t) {
-        const cj = cap[rel[j]];
-        if (cj < mu) mu = cj;
-        if (headE[j] < next) next = headE[j];
-      } else if (st < next) next = st;
-    }
-    if (next === Infinity) break;
-    if (mu < Infinity) {
-      if (n > 0 && sc.ends[n - 1] === t && sc.caps[n - 1] === mu) sc.ends[n - 1] = next;
-      else {
-        grow(sc, n + 1);
-        sc.starts[n] = t;
-        sc.ends[n] = next;
-        sc.caps[n] = mu;
-        n++;
-      }
-    }
-    t = next;
-  }
-  return n;
-}
-
-let headS = new Float64Array(4);
-let headE = new Float64Array(4);
-let headP = new Int32Array(4);
-
-function grow(sc: TrafficModel["scratch"], n: number): void {
-  if (n <= sc.starts.length) return;
-  const size = Math.max(n, 2 * sc.starts.length);
-  for (const k of ["starts", "ends", "caps"] as const) {
-    const a = new Float64Array(size);
-    a.set(sc[k]);
-    sc[k] = a;
-  }
-}
 
 /** Queue state carried along one direction's walk. */
 interface Walk {
@@ -395,22 +302,32 @@ function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number
 }
 
 /** The `nextOver` table of a piece's capacity: that of a narrowing closure with exactly this capacity. */
-function overTable(dir: CompiledDirection, mu: number): Int32Array | null {
-  const rel = dir.narrowing;
-  const tables = dir.nextOver;
-  if (tables) for (let j = 0; j < rel.length; j++) if (dir.closureCapacity[rel[j]] === mu) return tables[rel[j]];
-  return null;
+/** The `nextOver` table of a capacity, built the first time it is met. */
+let lastDir: CompiledDirection | null = null;
+let lastMu = NaN;
+let lastTable: Int32Array | null = null;
+
+function overTable(dir: CompiledDirection, mu: number): Int32Array {
+  if (dir === lastDir && mu === lastMu) return lastTable!;
+  let t = dir.nextOver.get(mu);
+  if (!t) {
+    t = nextHourOver(dir.hourDemand, mu);
+    dir.nextOver.set(mu, t);
+  }
+  lastDir = dir;
+  lastMu = mu;
+  lastTable = t;
+  return t;
 }
 
 /**
- * D/D/1 delay of one direction, veh-h, over the closure segments of one iteration. Outside closure time the
- * road is open (`openCapacity`) and only a standing queue is walked: no closure means no work-zone delay.
- * A queue still standing at the horizon is left there.
+ * D/D/1 delay of one direction, veh-h, over the pieces of narrowed road of one iteration (from the closure
+ * timeline, ./traffic-capacity). Outside them every lane is open (`openCapacity`) and only a standing queue is
+ * walked: no closure means no work-zone delay. A queue still standing at the horizon is left there.
  */
-export function queueDelay(m: TrafficModel, dir: CompiledDirection, seg: ClosureSegments, detail: QueueDetail | null): number {
-  if (dir.narrowing.length === 0) return 0;
-  const n = capacityPieces(m, dir, seg);
-  const { starts, ends, caps } = m.scratch;
+export function queueDelay(m: TrafficModel, dir: CompiledDirection, pieces: CapacityPieces, detail: QueueDetail | null): number {
+  const { starts, ends, caps, n } = pieces;
+  if (n === 0) return 0;
   const horizon = 24 * m.days;
   const w: Walk = { q: 0, total: 0, episodeDay: -1, episodePeak: 0 };
   let t = 0;

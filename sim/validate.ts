@@ -10,11 +10,14 @@ import { openBeforeBlocks, type DayPattern } from "./calendar";
 import { daysInMonth, parseIsoDate } from "./dates";
 import { distributionBounds } from "./distributions";
 import { formatPath, scenarioSchema, type FieldProblem, type Scenario } from "./schema";
+import { upgradeScenario } from "./upgrade";
+import { stageProblems } from "./validate-stages";
 
 export type ParseResult = { ok: true; scenario: Scenario } | { ok: false; problems: FieldProblem[] };
 
+/** Accepts version 1 and 2 input (version 1 is upgraded first, ./upgrade); always returns version 2. */
 export function parseScenario(input: unknown): ParseResult {
-  const parsed = scenarioSchema.safeParse(input);
+  const parsed = scenarioSchema.safeParse(upgradeScenario(input));
   if (!parsed.success) {
     return {
       ok: false,
@@ -64,7 +67,7 @@ export function semanticProblems(s: Scenario): FieldProblem[] {
         out.push({ path: `operations[${i}].shifts[${j}]`, message: `unknown shift "${sh}"` });
       }
     });
-    if (!closureIds.has(op.closure)) {
+    if (op.closure !== undefined && !closureIds.has(op.closure)) {
       refsOk = false;
       out.push({ path: `operations[${i}].closure`, message: `unknown closure "${op.closure}"` });
     }
@@ -127,6 +130,8 @@ export function semanticProblems(s: Scenario): FieldProblem[] {
   if (s.targetDate && parseIsoDate(s.targetDate) < startDay)
     out.push({ path: "targetDate", message: "must not be before startDate" });
 
+  const stages = stageProblems(s);
+  out.push(...stages);
   if (refsOk) out.push(...calendarProblems(s));
   return out;
 }
@@ -176,13 +181,16 @@ function calendarProblems(s: Scenario): FieldProblem[] {
   s.operations.forEach((op, i) => {
     if (op.kind !== "crew") return;
     const shifts = op.shifts.map((id) => cal.shifts.find((x) => x.id === id)!);
-    const windows = cal.closureWindows.filter((w) => w.closure === op.closure);
-    const a = openBeforeBlocks(ordinary, shifts, windows).open;
-    const b = openBeforeBlocks(holiday, shifts, windows).open;
+    const closure = op.closure === undefined ? null : cal.closures.find((c) => c.id === op.closure)!;
+    const windows = closure ? cal.closureWindows.filter((w) => w.closure === op.closure) : null;
+    const a = openBeforeBlocks(ordinary, shifts, windows, closure).open;
+    const b = openBeforeBlocks(holiday, shifts, windows, closure).open;
     if (a.length === 0 && b.length === 0) {
       out.push({
         path: `operations[${i}].shifts`,
-        message: `the shifts of "${op.id}" never overlap a window of closure "${op.closure}" on its work days: it can never work`,
+        message: closure && (closure.setupHours > 0 || closure.takedownHours > 0)
+          ? `the shifts of "${op.id}" never overlap the usable part (after ${closure.setupHours} h set-up, before ${closure.takedownHours} h take-down) of a window of closure "${op.closure}" on its work days: it can never work`
+          : `the shifts of "${op.id}" never overlap a window of closure "${op.closure}" on its work days: it can never work`,
       });
       return;
     }

@@ -1,23 +1,28 @@
 /**
- * Per-iteration bookkeeping for the engine (./engine): finish times, the crews' event queue, closure
- * segments and their union per closure and day, weather-lost shift stamps, season-1 end, pauses for the trace.
- * For the traffic and cost models (./traffic, ./cost): the union per closure as segments (`closureSegments`)
- * and the days on which some crew's shift held work or mobilization (`shiftDaysWorked`), both computed only
- * when asked, after `simulate`. One instance per compiled scenario, reset by `simulate` for each iteration.
+ * Per-iteration bookkeeping for the engine (./engine): finish and start times per stage operation and packet,
+ * the crews' event queue, work and mobilization segments per crew, weather-lost shift stamps, season-1 end,
+ * pauses for the trace. For the closure timeline (./timeline): the union of crew time per short-term closure as
+ * segments (`closureSegments`); for the cost model (./cost): the days on which some crew's shift held work or
+ * mobilization (`shiftDaysWorked`); both computed only when asked, after the schedule. One instance per
+ * compiled scenario, reset by `simulate` for each iteration.
  */
-import { addHoursByDay, firstIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
+import { firstIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
 import type { CompiledOp, PauseRecord } from "./engine";
 import type { GateCache } from "./gates";
 import { pour, produce, warmCureFinish, type WorkSink } from "./production";
 import type { WeatherSeries } from "./weather";
 import { EventQueue } from "./queue";
-import type { ClosureSegments } from "./traffic";
+import type { ClosurePeriods as ClosureSegments } from "./timeline";
 
 /** Per-iteration bookkeeping and scratch: closure segments, weather-lost shift stamps, season-1 end. */
 export class WorkContext implements WorkSink {
   readonly finish: Float64Array;
   readonly prefMax: Float64Array;
   readonly ready: Float64Array;
+  /** Per stage operation and packet: start of its mobilization or production (Infinity: none scheduled). */
+  readonly packetStart: Float64Array;
+  /** Per stage operation: its last packet's finish. */
+  readonly stageOpFinish: Float64Array;
   readonly queue = new EventQueue(16);
   readonly crewSeason = new Int32Array(16);
   readonly crewMobilized = new Uint8Array(16);
@@ -34,16 +39,13 @@ export class WorkContext implements WorkSink {
   private readonly lanePos: Int32Array;
   private readonly head: Float64Array;
   private unionGen = -1;
-  private readonly closureOut: Float64Array;
+  /** Per crew lane: the scenario operation index (its calendar). */
   private readonly laneOp: Int32Array;
   private readonly unionSeg: ClosureSegments;
   private readonly dayStamp: Int32Array;
   // shiftDay[op][i]: the day shift i of the operation starts on, or -1 outside the horizon (fixed per scenario).
   private readonly shiftDay: Int32Array[];
   private dayGen = 0;
-  private readonly range = new Int32Array(2);
-  private outFirst = 0;
-  private outLast = -1;
   private gen = 0;
   private readonly prodStamp: Int32Array[];
   private readonly waitStamp: Int32Array[];
@@ -63,30 +65,32 @@ export class WorkContext implements WorkSink {
     ops: CompiledOp[],
   ) {
     const nOps = ops.length;
-    const shiftCounts = ops.map((o) => (o.kind === "crew" ? cal.ops[o.index]!.shifts.length : 0));
+    const shiftCounts = ops.map((o) => (o.kind === "crew" ? cal.ops[o.op]!.shifts.length : 0));
     this.finish = new Float64Array(nOps * packets);
     this.prefMax = new Float64Array(nOps * packets);
     this.ready = new Float64Array(packets);
+    this.packetStart = new Float64Array(nOps * packets);
+    this.stageOpFinish = new Float64Array(nOps);
     this.laneBase = new Int32Array(nOps);
     let lanes = 0;
     const byClosure: number[][] = Array.from({ length: nClosures }, () => []);
     for (const o of ops) {
       this.laneBase[o.index] = lanes;
-      for (let k = 0; k < o.crews; k++) byClosure[o.closure].push(lanes + k);
+      if (o.closure >= 0) for (let k = 0; k < o.crews; k++) byClosure[o.closure].push(lanes + k);
       lanes += o.crews;
     }
     this.closureLanes = byClosure.map((l) => Int32Array.from(l));
     this.laneOp = new Int32Array(lanes);
-    for (const o of ops) for (let k = 0; k < o.crews; k++) this.laneOp[this.laneBase[o.index] + k] = o.index;
+    for (const o of ops) for (let k = 0; k < o.crews; k++) this.laneOp[this.laneBase[o.index] + k] = o.op;
     this.unionSeg = {
       starts: Array.from({ length: nClosures }, () => new Float64Array(64)),
       ends: Array.from({ length: nClosures }, () => new Float64Array(64)),
       counts: new Int32Array(nClosures),
     };
     this.dayStamp = new Int32Array(cal.days + 2);
-    this.shiftDay = ops.map((o) => {
-      if (o.kind !== "crew") return new Int32Array(0);
-      const sh = cal.ops[o.index]!.shifts;
+    this.shiftDay = cal.ops.map((oc) => {
+      if (!oc) return new Int32Array(0);
+      const sh = oc.shifts;
       const out = new Int32Array(sh.length);
       for (let i = 0; i < sh.length; i++) {
         const d = Math.floor(sh.starts[i] / 24);
@@ -99,7 +103,6 @@ export class WorkContext implements WorkSink {
     this.segStarts = Array.from({ length: lanes }, () => new Float64Array(64));
     this.segEnds = Array.from({ length: lanes }, () => new Float64Array(64));
     this.segCount = new Int32Array(lanes);
-    this.closureOut = new Float64Array(nClosures * cal.days);
     this.prodStamp = shiftCounts.map((n) => new Int32Array(n));
     this.waitStamp = shiftCounts.map((n) => new Int32Array(n));
     this.waitList = shiftCounts.map((n) => new Int32Array(n));
@@ -191,7 +194,7 @@ export class WorkContext implements WorkSink {
   }
 
   private pause(start: number, end: number, reason: "weather" | "closed"): void {
-    this.pauses!.push({ op: this.op.id, packet: this.packet, crew: this.crew, start, end, reason });
+    this.pauses!.push({ op: this.op.id, stage: this.op.stageId, packet: this.packet, crew: this.crew, start, end, reason });
   }
 
   private segment(a: number, b: number): void {
@@ -212,26 +215,6 @@ export class WorkContext implements WorkSink {
     this.segStarts[lane][n] = a;
     this.segEnds[lane][n] = b;
     this.segCount[lane] = n + 1;
-  }
-
-  /** Union of work and mobilization time per closure and day (closureOut[c · days + d]). */
-  closureHours(): { hours: Float64Array; first: number; last: number } {
-    const days = this.cal.days;
-    const out = this.closureOut;
-    if (this.outLast >= this.outFirst)
-      for (let c = 0; c < this.nClosures; c++) out.fill(0, c * days + this.outFirst, c * days + this.outLast + 1);
-    const range = this.range;
-    range[0] = days;
-    range[1] = -1;
-    const u = this.closureSegments();
-    for (let c = 0; c < this.nClosures; c++) {
-      const st = u.starts[c];
-      const en = u.ends[c];
-      for (let j = 0; j < u.counts[c]; j++) addHoursByDay(st[j], en[j], out, c * days, days, range);
-    }
-    this.outFirst = range[0];
-    this.outLast = range[1];
-    return { hours: out, first: range[0], last: range[1] };
   }
 
   /**

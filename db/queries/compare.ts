@@ -13,7 +13,10 @@ export interface CompareSlice {
   cdf: { date: string; p: number }[];
   target: { date: string; probability: number } | null;
   weatherLostShifts: { p50: number; p80: number };
+  /** Crew closure hours of runs stored before the closure timeline. */
   totalByClosure: Record<string, number> | null;
+  /** Lane-closed hours, P50 (runs with the closure timeline). */
+  laneClosedP50: number | null;
   delay: { vehicleHours: { p50: number | null; p80: number | null } } | null;
   cost: { roadUser: { p50: number | null; p80: number | null } | null; contract: { p50: number | null; p80: number | null } | null; valueOfTimeYear?: number } | null;
 }
@@ -42,6 +45,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
         'target', ${r} -> 'target',
         'weatherLostShifts', ${r} -> 'weatherLostShifts',
         'totalByClosure', ${r} -> 'closureHours' -> 'totalByClosure',
+        'laneClosedP50', ${r} -> 'laneClosedHours' -> 'total' -> 'p50',
         'delay', ${r} -> 'delay',
         'cost', ${r} -> 'cost')`.as("slice"),
     })

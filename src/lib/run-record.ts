@@ -11,12 +11,13 @@ export interface RunHeadline {
   finish: { p10: string; p50: string; p80: string; p90: string };
   targetDate: string | null;
   targetProbability: number | null;
+  /** Lane-closed hours, P50 (the closure timeline). */
   closureHoursTotal: number;
   weatherLostShiftsP50: number;
 }
 
 export function headlineOf(s: RunSummary): RunHeadline & Record<string, unknown> {
-  const closureHoursTotal = Object.values(s.closureHours?.totalByClosure ?? {}).reduce((a: number, b) => a + Number(b), 0);
+  const closureHoursTotal = s.laneClosedHours.total.p50;
   return {
     iterations: s.iterations,
     finish: { p10: s.finish.p10, p50: s.finish.p50, p80: s.finish.p80, p90: s.finish.p90 },

@@ -54,7 +54,7 @@ export function templateScenario(name: string, deck: ProjectDeck, startDate: str
     ...extra,
   });
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     name,
     description: "",
     startDate,
@@ -101,6 +101,8 @@ export function templateScenario(name: string, deck: ProjectDeck, startDate: str
       { from: "placement", to: "cure", lagFt: 0, lagHours: 0 },
       { from: "cure", to: "restriping", lagFt: 0, lagHours: 0 },
     ],
+    // One stage over every lane with no standing closure: lanes close only under the operations' closures.
+    stages: [{ id: "whole-deck", name: "Whole deck", lanes, standingLanesClosed: [] }],
     weather: { mode: "stochastic", monthly: TEMPLATE_CLIMATE },
   };
 }

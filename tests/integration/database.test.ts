@@ -5,6 +5,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import postgres from "postgres";
 import { runMigrations } from "../../db/migrate";
 import { seed, DEMO_SCENARIO_FILES } from "../../scripts/seed";
+import { readFileSync } from "node:fs";
+import { parseScenario } from "../../sim/validate";
+import { upgradeScenario } from "../../sim/upgrade";
 
 const url = process.env.TEST_DATABASE_URL;
 if (!url) throw new Error("TEST_DATABASE_URL is not set: run through `npm test`.");
@@ -59,6 +62,11 @@ describe("migrations", () => {
     // The engine job queue's own tables and its queue (pg-boss), installed by the same step.
     const queues = await sql`SELECT name FROM pgboss.queue`;
     expect(queues.map((q) => q.name)).toContain("engine");
+    // Owned by the role the app connects as (not a superuser), so the web server and the workers may use it.
+    const [owner] = await sql`SELECT pg_get_userbyid(n.nspowner) AS schema_owner, current_user AS me, (SELECT rolsuper FROM pg_roles WHERE rolname = current_user) AS superuser,
+      (SELECT count(*)::int FROM pg_class c WHERE c.relnamespace = n.oid AND c.relkind IN ('r', 'p') AND pg_get_userbyid(c.relowner) <> current_user) AS foreign_tables
+      FROM pg_namespace n WHERE n.nspname = 'pgboss'`;
+    expect(owner).toMatchObject({ schema_owner: owner.me, superuser: false, foreign_tables: 0 });
   });
 
   it("are idempotent: applying them again changes nothing", async () => {
@@ -104,5 +112,32 @@ describe("seed", () => {
   it("stores passwords only as argon2id hashes", async () => {
     const rows = await sql`SELECT password_hash FROM users`;
     for (const r of rows) expect(r.password_hash).toMatch(/^\$argon2id\$/);
+  });
+});
+
+describe("migration 0005: stored scenarios upgraded to version 2", () => {
+  const v1 = JSON.parse(readFileSync(new URL("../fixtures/saved-v1-kestrel-two-season.json", import.meta.url), "utf8"));
+  const updates = readFileSync(new URL("../../db/migrations/0005_upgrade-scenarios-v2.sql", import.meta.url), "utf8")
+    .split("--> statement-breakpoint")
+    .map((x) => x.trim())
+    .filter((x) => x.startsWith("UPDATE"));
+
+  it("rewrites a saved version-1 definition and its revisions as upgradeScenario does, loses nothing and leaves version 2 alone", async () => {
+    const [row] = await sql`SELECT id, definition FROM scenarios ORDER BY name LIMIT 1`;
+    const current = row.definition;
+    await sql`UPDATE scenarios SET definition = ${sql.json(v1)} WHERE id = ${row.id}`;
+    await sql`UPDATE scenario_revisions SET definition = ${sql.json(v1)} WHERE scenario_id = ${row.id}`;
+    expect(updates).toHaveLength(2);
+    for (const u of updates) await sql.unsafe(u);
+    const [after] = await sql`SELECT definition FROM scenarios WHERE id = ${row.id}`;
+    expect(after.definition).toEqual(upgradeScenario(v1));
+    expect(parseScenario(after.definition).ok).toBe(true);
+    const revisions = await sql`SELECT definition FROM scenario_revisions WHERE scenario_id = ${row.id}`;
+    for (const r of revisions) expect(r.definition).toEqual(upgradeScenario(v1));
+    // A version-2 row is untouched by a second pass.
+    await sql`UPDATE scenarios SET definition = ${sql.json(current)} WHERE id = ${row.id}`;
+    for (const u of updates) await sql.unsafe(u);
+    const [again] = await sql`SELECT definition FROM scenarios WHERE id = ${row.id}`;
+    expect(again.definition).toEqual(current);
   });
 });

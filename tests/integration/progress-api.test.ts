@@ -38,7 +38,7 @@ describe("progress entries", () => {
 
     const again = await post(s.id, milling({ workDate: day(2), fromStationFt: "2+00", toStationFt: "4+00" }));
     expect(again.status).toBe(400);
-    expect(again.body.fields).toEqual([{ path: "fromStationFt", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
+    expect(again.body.fields).toEqual([{ path: "fromStationFt", label: "From station", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
     const letters = await post(s.id, milling({ workDate: day(2), fromStationFt: "3a0", toStationFt: 400 }));
     expect(letters.status).toBe(400);
     expect(letters.body.fields[0]).toMatchObject({ path: "fromStationFt", message: expect.stringContaining("“3a0” is neither") });

@@ -33,7 +33,7 @@ export type Input = ScenarioInput & {
 /** 1,000 ft from STA 10+00, one day shift 07:00–17:00, a weekday window 08:00–16:00, Monday–Friday. */
 export function baseInput(): Input {
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     name: "Oracle test deck",
     startDate: "2027-06-07", // a Monday
     deck: { startStationFt: 1000, lengthFt: 1000, packetFt: 100, lanes: ["L1", "L2"] },
@@ -56,6 +56,7 @@ export function baseInput(): Input {
     },
     operations: [],
     links: [],
+    stages: [{ id: "whole-deck", name: "Whole deck", lanes: ["L1", "L2"], standingLanesClosed: [] }],
     weather: { mode: "fixed", monthly: climate() },
   };
 }
@@ -360,3 +361,82 @@ export function stochasticInput(): Input {
     ];
   });
 }
+
+/** The base deck with three lanes (closures re-aimed at them), for staged fixtures. */
+function threeLanes(x: Input): void {
+  x.deck.lanes = ["L1", "L2", "L3"];
+  x.calendar.closures = [
+    { id: "one-lane", name: "One lane", lanesClosed: ["L2"] },
+    { id: "two-lane", name: "Two lanes", lanesClosed: ["L2", "L3"] },
+  ];
+}
+
+/** Staged deterministic scenarios (MODEL.md "Stages" and "Closures that stand"), boundaries on quarter hours. */
+export const stagedCases: Array<{ name: string; input: Input }> = [
+  { name: "two stages on a three-lane deck: L1 then L2-L3 following the restored front", input: input((x) => {
+    threeLanes(x);
+    x.calendar.workDays = [1, 2, 3, 4, 5, 6];
+    x.operations = [
+      crewOp("milling", 50, { closure: undefined, mobilizationHours: 2 }), // behind the stage's barrier: shifts alone
+      { id: "cure", name: "Cure", kind: "wait", durationHours: { type: "fixed", value: 10 } },
+      crewOp("striping", 100, { shifts: ["night"], closure: "two-lane", mobilizationHours: 1 }),
+    ];
+    x.links = [
+      { from: "milling", to: "cure" },
+      { from: "cure", to: "striping", lagFt: 100 },
+    ];
+    x.stages = [
+      { id: "s1", name: "Stage 1", lanes: ["L1"], standingLanesClosed: ["L1"], operations: ["milling", "cure"] },
+      { id: "s2", name: "Stage 2", lanes: ["L2", "L3"], fromStationFt: 1300, toStationFt: 2000, standingLanesClosed: ["L2", "L3"],
+        after: { stage: "s1", when: "restoredAhead", lagFt: 200, lagHours: 2 } },
+    ];
+    x.calendar.closures = [{ id: "two-lane", name: "Night L1", lanesClosed: ["L1"] }];
+    x.calendar.closureWindows = [{ closure: "two-lane", dayTypes: ["weekday", "saturday", "sunday"], startHour: 21, endHour: 5 }];
+  }) },
+  { name: "stage done, fleet rule and a lag between stages", input: input((x) => {
+    threeLanes(x);
+    x.deck.lengthFt = 600;
+    x.operations = [crewOp("milling", 50, { mobilizationHours: 1.5, crews: 2 }), crewOp("cleanup", 100, { mobilizationHours: 0.5 })];
+    x.links = [{ from: "milling", to: "cleanup", lagFt: 100 }];
+    x.stages = [
+      { id: "a", name: "A", lanes: ["L1"] },
+      { id: "b", name: "B", lanes: ["L2"], after: { stage: "a", when: "stageDone", lagFt: 0, lagHours: 5.25 } },
+      { id: "c", name: "C", lanes: ["L3"], standingLanesClosed: [], operations: ["cleanup"] },
+    ];
+  }) },
+  { name: "short-term closure with 1 h set-up and 0.5 h take-down", input: input((x) => {
+    x.calendar.closures[0] = { id: "one-lane", name: "One lane", lanesClosed: ["L1"], setupHours: 1, takedownHours: 0.5 };
+    x.calendar.closures[1] = { id: "two-lane", name: "Two lanes", lanesClosed: ["L1", "L2"], setupHours: 0.75, takedownHours: 1.25 };
+    x.operations = [
+      crewOp("milling", 50, { mobilizationHours: 2 }),
+      crewOp("striping", 100, { shifts: ["night"], closure: "two-lane", mobilizationHours: 1 }),
+    ];
+    x.links = [{ from: "milling", to: "striping", lagHours: 0.5 }];
+    x.traffic = undefined;
+  }) },
+  { name: "two-season plan restores traffic before the winter", input: input((x) => {
+    x.startDate = "2027-11-01";
+    x.calendar.holidays.observeFederal = false;
+    x.calendar.season = {
+      plan: "two", winterStart: "12-15", winterEnd: "03-15", demobilizeHours: 6, remobilizeHours: 2,
+      cutoffDate: "2027-11-08", cutoffStationFt: 1500,
+    };
+    x.operations = [
+      crewOp("milling", 25, { closure: undefined, mobilizationHours: 2 }),
+      { id: "cure", name: "Cure", kind: "wait", durationHours: { type: "fixed", value: 6 } },
+      crewOp("cleanup", 50, { mobilizationHours: 1 }),
+    ];
+    x.links = [{ from: "milling", to: "cure" }, { from: "cure", to: "cleanup" }];
+    x.stages = [{ id: "whole", name: "Whole deck", lanes: ["L2"], standingLanesClosed: ["L2"] }];
+  }) },
+  { name: "two-season plan whose started packet is not restored keeps its barrier over the winter", input: input((x) => {
+    x.startDate = "2027-11-01";
+    x.calendar.holidays.observeFederal = false;
+    x.calendar.season = {
+      plan: "two", winterStart: "12-15", winterEnd: "03-15", demobilizeHours: 6, remobilizeHours: 2, cutoffDate: "2027-11-05",
+    };
+    x.operations = [crewOp("milling", 10, { closure: undefined }), crewOp("cleanup", 50)];
+    x.links = [{ from: "milling", to: "cleanup" }];
+    x.stages = [{ id: "whole", name: "Whole deck", lanes: ["L1"], standingLanesClosed: ["L1"] }];
+  }) },
+];

@@ -10,6 +10,12 @@
  * errors do not pile up packet after packet. Operations are processed in precedence order within a step,
  * so a predecessor's finish inside the step is known before its successor looks at it.
  *
+ * Stages (MODEL.md, "Stages"): the work is a list of stage operations (stage × operation), each working its
+ * stage's packets with its own crews, linked by the scenario's links inside the stage, the fleet rule and the
+ * stage's `after` link. The closure timeline ("Closures that stand") is rebuilt afterwards from what the crews
+ * did: their use of each short-term closure (work and mobilization, recorded as it happens) and the starts and
+ * finishes of every packet; `lanesClosedAt(result, t)` answers which lanes are closed at an instant.
+ *
  * Interpretations of MODEL.md that the text leaves open (kept deliberately simple, see the test report):
  * - a crew's first packet ever takes `mobilizationHours`, even when it comes after a winter; later packets
  *   take `remobilizeHours` by MODEL.md's "after a winter" rule, decided at the first open step (1–3) the
@@ -30,15 +36,34 @@ import type { IterationSamples } from "../../sim/samples";
 
 export interface RefPacket {
   op: string;
+  stage: string;
   packet: number;
   crew: number; // −1 for wait operations
   start: number;
   finish: number;
 }
+export interface RefPeriod {
+  closure: string;
+  kind: "short" | "standing";
+  lanes: string[];
+  start: number;
+  end: number;
+}
 export interface RefResult {
   packets: RefPacket[];
   finish: number;
   unfinished: boolean;
+  /** The closure timeline (MODEL.md, "Closures that stand"). */
+  periods: RefPeriod[];
+  /** Per stage id: its restoration (last packet finish). */
+  stageFinish: Record<string, number>;
+}
+
+/** Lanes closed at instant t: the union of the lanes of the periods covering t (half-open). */
+export function lanesClosedAt(r: RefResult, t: number): string[] {
+  const out = new Set<string>();
+  for (const p of r.periods) if (t >= p.start && t < p.end) for (const l of p.lanes) out.add(l);
+  return [...out].sort();
 }
 
 const EPS = 1e-9;
@@ -52,8 +77,11 @@ interface RefCalendar {
   holidays: Set<number>; // day numbers whose day type is "holiday"
   blocked: Array<[number, number]>; // [from, to) in hours
   winters: Array<{ start: number; end: number }>;
+  firstWinterStart: number;
   firstWinterEnd: number;
   cutoffOffsetFt: number;
+  /** Per short-term closure id: its window intervals (maximal intervals of the union of window instances). */
+  windowIntervals: Map<string, Array<[number, number]>>;
 }
 
 function monthDay(md: string): [number, number] {
@@ -102,13 +130,39 @@ export function buildReferenceCalendar(s: Scenario, horizonDays: number): RefCal
     season.plan === "two" && season.cutoffStationFt !== undefined
       ? season.cutoffStationFt - s.deck.startStationFt
       : Infinity;
-  return { day0, holidays, blocked, winters, firstWinterEnd: first ? first.end : Infinity, cutoffOffsetFt };
+  // Window instances by the day type of the day they start on (days before startDate never count), merged.
+  const windowIntervals = new Map<string, Array<[number, number]>>();
+  for (const c of cal.closures) {
+    const inst: Array<[number, number]> = [];
+    for (let d = 0; d <= horizonDays; d++) {
+      const dn = day0 + d;
+      const type: DayType = holidays.has(dn) ? "holiday" : weekdayOfDayNumber(dn) === 0 ? "sunday" : weekdayOfDayNumber(dn) === 6 ? "saturday" : "weekday";
+      for (const w of cal.closureWindows) {
+        if (w.closure !== c.id || !w.dayTypes.includes(type)) continue;
+        inst.push([d * 24 + w.startHour, w.endHour <= w.startHour ? d * 24 + 24 + w.endHour : d * 24 + w.endHour]);
+      }
+    }
+    inst.sort((a, b) => a[0] - b[0]);
+    const merged: Array<[number, number]> = [];
+    for (const [a, b] of inst) {
+      const last = merged[merged.length - 1];
+      if (last && a <= last[1]) last[1] = Math.max(last[1], b);
+      else merged.push([a, b]);
+    }
+    windowIntervals.set(c.id, merged);
+  }
+  return {
+    day0, holidays, blocked, winters,
+    firstWinterStart: first ? first.start : Infinity,
+    firstWinterEnd: first ? first.end : Infinity,
+    cutoffOffsetFt, windowIntervals,
+  };
 }
 
-function dayType(cal: RefCalendar, dayNum: number): DayType {
-  if (cal.holidays.has(dayNum)) return "holiday";
-  const w = weekdayOfDayNumber(dayNum);
-  return w === 0 ? "sunday" : w === 6 ? "saturday" : "weekday";
+/** The window interval of closure `id` holding t, or null. */
+function windowIntervalAt(cal: RefCalendar, id: string, t: number): [number, number] | null {
+  for (const iv of cal.windowIntervals.get(id) ?? []) if (t >= iv[0] && t < iv[1]) return iv;
+  return null;
 }
 
 /** Conditions 1–3 of MODEL.md "open time" at instant `t`, straight from the wording. */
@@ -126,17 +180,12 @@ export function isOpenByCalendar(s: Scenario, cal: RefCalendar, op: CrewOperatio
     }
   }
   if (!inShift) return false;
-  let inWindow = false;
-  for (let dd = Math.max(0, d - 2); dd <= d && !inWindow; dd++) {
-    const type = dayType(cal, cal.day0 + dd);
-    for (const w of s.calendar.closureWindows) {
-      if (w.closure !== op.closure || !w.dayTypes.includes(type)) continue;
-      const a = dd * 24 + w.startHour;
-      const b = w.endHour <= w.startHour ? dd * 24 + 24 + w.endHour : dd * 24 + w.endHour;
-      if (t >= a && t < b) inWindow = true;
-    }
+  if (op.closure !== undefined) {
+    // Condition 2: inside the usable part [a + set-up, b − take-down) of a window interval of the closure.
+    const c = s.calendar.closures.find((x) => x.id === op.closure)!;
+    const iv = windowIntervalAt(cal, c.id, t);
+    if (!iv || t < iv[0] + c.setupHours || t >= iv[1] - c.takedownHours) return false;
   }
-  if (!inWindow) return false;
   for (const [a, b] of cal.blocked) if (t >= a && t < b) return false;
   return true;
 }
@@ -209,12 +258,21 @@ interface Crew {
   tau: number;
   lastStart: number; // production start of the crew's previous packet, NaN before its first
   mobLeft: number; // NaN: not decided yet for this packet
+  mobStart: number; // NaN unless the crew mobilized for this packet
   workLeft: number;
   start: number; // NaN until production starts
   committedFinish: number; // continuous: NaN until a start is chosen
 }
 const FREE = -1;
 const DONE = -2;
+
+/** A stage operation as MODEL.md "Stages" defines it, resolved here from the scenario text. */
+interface StageOp {
+  stage: number;
+  op: number;
+  lo: number;
+  hi: number;
+}
 
 export function referenceSimulate(
   s: Scenario,
@@ -231,32 +289,86 @@ export function referenceSimulate(
   const pEnd = (i: number) => Math.min((i + 1) * pf, L);
   const ops = s.operations;
   const idx = new Map(ops.map((o, i) => [o.id, i]));
-  const incoming = ops.map((o) => s.links.filter((l) => l.to === o.id));
-  const finish = ops.map(() => new Float64Array(P).fill(NaN));
-  const packets: RefPacket[] = [];
 
-  // Precedence order (Kahn); validation guarantees there is no cycle.
+  // Stages: packets whose start offset lies in [from, to); operations listed (default all, scenario order).
+  const stages = s.stages.map((st, si) => {
+    const from = (st.fromStationFt ?? s.deck.startStationFt) - s.deck.startStationFt;
+    const to = (st.toStationFt ?? s.deck.startStationFt + L) - s.deck.startStationFt;
+    const inRange: number[] = [];
+    for (let i = 0; i < P; i++) if (pStart(i) >= from && pStart(i) < to) inRange.push(i);
+    const opList = ops.map((_, oi) => oi).filter((oi) => !st.operations || st.operations.includes(ops[oi].id));
+    const afterStage = st.after ? s.stages.findIndex((x) => x.id === st.after!.stage) : si - 1;
+    const after = si === 0 ? null : { stage: afterStage, when: st.after?.when ?? "stageDone", lagFt: st.after?.lagFt ?? 0, lagHours: st.after?.lagHours ?? 0 };
+    return { id: st.id, lo: inRange[0] ?? 0, hi: inRange.length ? inRange[inRange.length - 1] + 1 : 0, ops: opList, after, standing: st.standingLanesClosed };
+  });
+  const units: StageOp[] = [];
+  const unitOf = (stage: number, op: number) => units.findIndex((u) => u.stage === stage && u.op === op);
+  stages.forEach((st, si) => st.ops.forEach((oi) => units.push({ stage: si, op: oi, lo: st.lo, hi: st.hi })));
+  const inStageLinks = (si: number) => s.links.filter((l) => stages[si].ops.includes(idx.get(l.from)!) && stages[si].ops.includes(idx.get(l.to)!));
+  const isSource = (si: number, oi: number) => !inStageLinks(si).some((l) => idx.get(l.to) === oi);
+  const isSink = (si: number, oi: number) => !inStageLinks(si).some((l) => idx.get(l.from) === oi);
+  const finish = units.map(() => new Float64Array(P).fill(NaN));
+  const started = units.map(() => new Float64Array(P).fill(NaN)); // mobilization or production start (crews)
+  const packets: RefPacket[] = [];
+  const uses = new Map<string, Array<[number, number]>>(s.calendar.closures.map((c) => [c.id, []]));
+
+  // What each stage operation waits for, as (from unit, kind) pairs; used for the ready time and the order.
+  type Dep = { from: number; lagHours: number; lagFt: number; kind: "packets" | "whole" };
+  const deps: Dep[][] = units.map((u) => {
+    const out: Dep[] = [];
+    for (const l of inStageLinks(u.stage)) if (idx.get(l.to) === u.op) out.push({ from: unitOf(u.stage, idx.get(l.from)!), lagHours: l.lagHours, lagFt: l.lagFt, kind: "packets" });
+    for (let e = u.stage - 1; e >= 0; e--) {
+      const prev = unitOf(e, u.op);
+      if (prev >= 0) {
+        out.push({ from: prev, lagHours: 0, lagFt: 0, kind: "whole" }); // fleet rule
+        break;
+      }
+    }
+    const a = stages[u.stage].after;
+    if (a && isSource(u.stage, u.op)) {
+      for (const oi of stages[a.stage].ops) {
+        if (a.when === "stageDone") out.push({ from: unitOf(a.stage, oi), lagHours: a.lagHours, lagFt: 0, kind: "whole" });
+        else if (isSink(a.stage, oi)) out.push({ from: unitOf(a.stage, oi), lagHours: a.lagHours, lagFt: a.lagFt, kind: "packets" });
+      }
+    }
+    return out;
+  });
+
+  // Precedence order (Kahn) over stage operations; validation guarantees there is no cycle.
   const order: number[] = [];
-  const indeg = ops.map((_, i) => incoming[i].length);
-  const queue = ops.map((_, i) => i).filter((i) => indeg[i] === 0);
+  const indeg = units.map((_, u) => deps[u].length);
+  const queue = units.map((_, u) => u).filter((u) => indeg[u] === 0);
   while (queue.length) {
-    const i = queue.shift()!;
-    order.push(i);
-    for (const l of s.links) if (l.from === ops[i].id && --indeg[idx.get(l.to)!] === 0) queue.push(idx.get(l.to)!);
+    const u = queue.shift()!;
+    order.push(u);
+    units.forEach((_, v) => deps[v].forEach((d) => d.from === u && --indeg[v] === 0 && queue.push(v)));
   }
 
-  const ready = (o: number, i: number): number => {
+  const ready = (u: number, i: number): number => {
     let r = 0;
-    for (const l of incoming[o]) {
-      const fa = finish[idx.get(l.from)!];
-      if (Number.isNaN(fa[i])) return NaN;
-      r = Math.max(r, fa[i] + l.lagHours);
-      for (let k = 0; k < P && pStart(k) < pEnd(i) + l.lagFt; k++) {
+    for (const d of deps[u]) {
+      const fa = finish[d.from];
+      const A = units[d.from];
+      if (d.kind === "whole") {
+        let m = -Infinity;
+        for (let k = A.lo; k < A.hi; k++) {
+          if (Number.isNaN(fa[k])) return NaN;
+          m = Math.max(m, fa[k]);
+        }
+        r = Math.max(r, m + d.lagHours);
+        continue;
+      }
+      // "A's same packet" counts only when it is one of A's; A's packets outside nothing.
+      if (i >= A.lo && i < A.hi) {
+        if (Number.isNaN(fa[i])) return NaN;
+        r = Math.max(r, fa[i] + d.lagHours);
+      }
+      for (let k = A.lo; k < A.hi && pStart(k) < pEnd(i) + d.lagFt; k++) {
         if (Number.isNaN(fa[k])) return NaN;
         r = Math.max(r, fa[k]);
       }
     }
-    if (ops[o].kind === "crew" && pStart(i) >= cal.cutoffOffsetFt - EPS) r = Math.max(r, cal.firstWinterEnd);
+    if (ops[units[u].op].kind === "crew" && pStart(i) >= cal.cutoffOffsetFt - EPS) r = Math.max(r, cal.firstWinterEnd);
     return r;
   };
 
@@ -307,42 +419,39 @@ export function referenceSimulate(
     return true;
   };
 
-  const crews: Crew[][] = ops.map((o) =>
-    Array.from({ length: o.kind === "crew" ? o.crews : 0 }, () => ({
-      packet: FREE,
-      tau: 0,
-      lastStart: NaN,
-      mobLeft: NaN,
-      workLeft: NaN,
-      start: NaN,
-      committedFinish: NaN,
+  const crews: Crew[][] = units.map((u) =>
+    Array.from({ length: ops[u.op].kind === "crew" ? (ops[u.op] as CrewOperation).crews : 0 }, () => ({
+      packet: FREE, tau: 0, lastStart: NaN, mobLeft: NaN, mobStart: NaN, workLeft: NaN, start: NaN, committedFinish: NaN,
     })),
   );
-  const nextClaim = ops.map(() => 0);
-  let remaining = ops.length * P;
+  const nextClaim = units.map((u) => u.lo);
+  let remaining = units.reduce((n, u) => n + (u.hi - u.lo), 0);
   const steps = Math.round((horizonDays * 24) / dt);
 
   for (let n = 0; n < steps && remaining > 0; n++) {
     const T = n * dt;
     const E = (n + 1) * dt;
     const snap = (x: number) => (Math.abs(x - E) < EPS ? E : x);
-    for (const o of order) {
+    for (const u of order) {
+      const o = units[u].op;
       const op = ops[o];
+      const stageId = stages[units[u].stage].id;
       if (op.kind === "wait") {
-        for (let i = 0; i < P; i++) {
-          if (!Number.isNaN(finish[o][i])) continue;
-          const r = ready(o, i);
+        for (let i = units[u].lo; i < units[u].hi; i++) {
+          if (!Number.isNaN(finish[u][i])) continue;
+          const r = ready(u, i);
           if (Number.isNaN(r)) continue;
-          finish[o][i] =
+          finish[u][i] =
             op.countAboveF === undefined
               ? r + samples.waitHours[o]
               : warmWaitFinish(samples, op.countAboveF, r, samples.waitHours[o], horizonDays * 24);
-          packets.push({ op: op.id, packet: i, crew: -1, start: r, finish: finish[o][i] });
-          if (finish[o][i] < Infinity) remaining--; // a cure that never ends leaves the run unfinished
+          packets.push({ op: op.id, stage: stageId, packet: i, crew: -1, start: r, finish: finish[u][i] });
+          if (finish[u][i] < Infinity) remaining--; // a cure that never ends leaves the run unfinished
         }
         continue;
       }
-      const cs = crews[o];
+      const use = op.closure !== undefined ? uses.get(op.closure)! : null;
+      const cs = crews[u];
       for (;;) {
         let c = -1; // the crew with the earliest clock moves next (lower index on ties)
         for (let j = 0; j < cs.length; j++)
@@ -350,22 +459,24 @@ export function referenceSimulate(
         if (c < 0) break;
         const cr = cs[c];
         if (cr.packet === FREE) {
-          if (nextClaim[o] >= P) {
+          if (nextClaim[u] >= units[u].hi) {
             cr.packet = DONE;
             continue;
           }
-          const i = nextClaim[o]++;
+          const i = nextClaim[u]++;
           cr.packet = i;
           cr.workLeft = (pEnd(i) - pStart(i)) / samples.rateFtPerHour[o] + (samples.discoveredExtraHours[o]?.[i] ?? 0);
           cr.start = NaN;
           cr.committedFinish = NaN;
           cr.mobLeft = NaN;
+          cr.mobStart = NaN;
           continue;
         }
         const i = cr.packet;
         const done = (t: number) => {
-          finish[o][i] = t;
-          packets.push({ op: op.id, packet: i, crew: c, start: cr.start, finish: t });
+          finish[u][i] = t;
+          started[u][i] = Number.isNaN(cr.mobStart) ? cr.start : cr.mobStart;
+          packets.push({ op: op.id, stage: stageId, packet: i, crew: c, start: cr.start, finish: t });
           remaining--;
           cr.packet = FREE;
           cr.lastStart = cr.start;
@@ -376,7 +487,7 @@ export function referenceSimulate(
           else cr.tau = E;
           continue;
         }
-        const r = ready(o, i);
+        const r = ready(u, i);
         if (Number.isNaN(r) || r >= E - EPS) {
           cr.tau = E;
           continue;
@@ -397,13 +508,16 @@ export function referenceSimulate(
           if (Number.isNaN(prev)) cr.mobLeft = op.mobilizationHours;
           else if (cal.winters.some((w) => w.start > prev && w.end <= q + EPS)) cr.mobLeft = s.calendar.season.remobilizeHours;
           else cr.mobLeft = 0;
+          if (cr.mobLeft > EPS) cr.mobStart = q;
         }
         if (cr.mobLeft > EPS) {
           if (!open13(o, n)) cr.tau = E;
           else if (cr.mobLeft <= E - cr.tau + EPS) {
+            use?.push([cr.tau, cr.tau + cr.mobLeft]);
             cr.tau = snap(cr.tau + cr.mobLeft);
             cr.mobLeft = 0;
           } else {
+            use?.push([cr.tau, E]);
             cr.mobLeft -= E - cr.tau;
             cr.tau = E;
           }
@@ -414,6 +528,7 @@ export function referenceSimulate(
           if (cr.tau <= T + EPS && candidate && fits(o, n, cr.workLeft)) {
             cr.start = T;
             cr.committedFinish = T + cr.workLeft;
+            use?.push([T, T + cr.workLeft]);
             cr.tau = T;
           } else cr.tau = E;
           continue;
@@ -423,8 +538,11 @@ export function referenceSimulate(
           continue;
         }
         if (Number.isNaN(cr.start)) cr.start = cr.tau;
-        if (cr.workLeft <= E - cr.tau + EPS) done(cr.tau + cr.workLeft);
-        else {
+        if (cr.workLeft <= E - cr.tau + EPS) {
+          use?.push([cr.tau, cr.tau + cr.workLeft]);
+          done(cr.tau + cr.workLeft);
+        } else {
+          use?.push([cr.tau, E]);
           cr.workLeft -= E - cr.tau;
           cr.tau = E;
         }
@@ -433,5 +551,65 @@ export function referenceSimulate(
   }
   let last = 0;
   for (const f of finish) for (const x of f) if (x > last) last = x;
-  return { packets, finish: last, unfinished: remaining > 0 };
+  const stageFinish: Record<string, number> = {};
+  stages.forEach((st, si) => {
+    let m = -Infinity;
+    units.forEach((u, k) => {
+      if (u.stage === si) for (let i = u.lo; i < u.hi; i++) m = Math.max(m, Number.isNaN(finish[k][i]) ? Infinity : finish[k][i]);
+    });
+    stageFinish[st.id] = m;
+  });
+  const periods = timelineOf(s, cal, stages, units, finish, started, uses, stageFinish, horizonDays);
+  return { packets, finish: last, unfinished: remaining > 0, periods, stageFinish };
+}
+
+/**
+ * MODEL.md "Closures that stand": short-term periods per window interval from first use − set-up to last use +
+ * take-down; standing periods from a stage's first crew start to its restoration, lifted over the first winter
+ * of a two-season plan when every started packet is restored by then.
+ */
+function timelineOf(
+  s: Scenario, cal: RefCalendar,
+  stages: { id: string; ops: number[]; lo: number; hi: number; standing: string[] }[],
+  units: StageOp[], finish: Float64Array[], started: Float64Array[],
+  uses: Map<string, Array<[number, number]>>, stageFinish: Record<string, number>, horizonDays: number,
+): RefPeriod[] {
+  const out: RefPeriod[] = [];
+  for (const c of s.calendar.closures) {
+    const byInterval = new Map<number, [number, number]>();
+    for (const [a, b] of uses.get(c.id)!) {
+      if (!(b > a)) continue;
+      const iv = cal.windowIntervals.get(c.id)!.findIndex(([x, y]) => a >= x && a < y);
+      const cur = byInterval.get(iv);
+      byInterval.set(iv, cur ? [Math.min(cur[0], a), Math.max(cur[1], b)] : [a, b]);
+    }
+    for (const [a, b] of byInterval.values())
+      out.push({ closure: c.id, kind: "short", lanes: c.lanesClosed, start: a - c.setupHours, end: b + c.takedownHours });
+  }
+  const W = cal.firstWinterStart;
+  stages.forEach((st, si) => {
+    if (st.standing.length === 0) return;
+    const crewUnits = units.map((u, k) => ({ u, k })).filter(({ u }) => u.stage === si && s.operations[u.op].kind === "crew");
+    const allUnits = units.map((u, k) => ({ u, k })).filter(({ u }) => u.stage === si);
+    const starts = crewUnits.flatMap(({ k, u }) => Array.from(started[k].subarray(u.lo, u.hi)).filter((x) => !Number.isNaN(x)));
+    const S = Math.min(...starts);
+    const R = Math.min(stageFinish[st.id], horizonDays * 24);
+    if (!(S < R)) return;
+    const push = (a: number, b: number) => out.push({ closure: `stage:${st.id}`, kind: "standing", lanes: st.standing, start: a, end: b });
+    if (s.calendar.season.plan === "two" && S < W && R > W) {
+      let restored = true;
+      for (let i = st.lo; i < st.hi; i++) {
+        const begun = crewUnits.some(({ k }) => started[k][i] < W);
+        if (begun && !allUnits.every(({ k }) => finish[k][i] <= W)) restored = false;
+      }
+      if (restored) {
+        push(S, W);
+        const S2 = Math.min(...starts.filter((x) => x >= W));
+        if (S2 < R) push(S2, R);
+        return;
+      }
+    }
+    push(S, R);
+  });
+  return out;
 }

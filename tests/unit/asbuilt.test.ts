@@ -36,7 +36,8 @@ describe("re-forecast with no progress", () => {
       expect(Array.from(b.season1End)).toEqual(Array.from(a.season1End));
       expect(Array.from(b.weatherLostShifts)).toEqual(Array.from(a.weatherLostShifts));
       expect(Array.from(b.discoveredHours)).toEqual(Array.from(a.discoveredHours));
-      expect(Array.from(b.closureMicroHours)).toEqual(Array.from(a.closureMicroHours));
+      expect(Array.from(b.laneClosedHours)).toEqual(Array.from(a.laneClosedHours));
+      expect(Array.from(b.laneClosedByClosure)).toEqual(Array.from(a.laneClosedByClosure));
       expect(JSON.stringify(summarizeRun(re, b))).toBe(JSON.stringify(summarizeRun(plan, a)));
     });
   }
@@ -224,7 +225,7 @@ describe("curing at the data date", () => {
     // Apr 16 17:00. Data date Apr 13 → curing; data date Apr 16 (24:00) → cured, not listed.
     const rec: ProgressRecord[] = [{ workDate: "2027-04-12", shift: "day", operationId: "placement", fromStationFt: 1200, toStationFt: 1300 }];
     const since = 7 * 24 + 17;
-    expect(buildAsBuilt(kestrel, rec, "2027-04-13").curing).toEqual([{ op: "cure", packet: 0, since, nominalFinish: since + 96 }]);
+    expect(buildAsBuilt(kestrel, rec, "2027-04-13").curing).toEqual([{ op: "cure", stage: "whole-deck", packet: 0, since, nominalFinish: since + 96 }]);
     expect(buildAsBuilt(kestrel, rec, "2027-04-16").curing).toEqual([]);
   });
 });

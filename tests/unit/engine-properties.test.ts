@@ -155,5 +155,5 @@ describe("engine laws on generated scenarios", () => {
 });
 
 function strip(r: SimResult) {
-  return { ...r, closureDayHours: Array.from(r.closureDayHours), opFinish: Array.from(r.opFinish) };
+  return { ...r, laneClosedByClosure: Array.from(r.laneClosedByClosure), stageFinish: Array.from(r.stageFinish), opFinish: Array.from(r.opFinish) };
 }

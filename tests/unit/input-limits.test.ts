@@ -33,7 +33,11 @@ describe("length limits of the scenario format", () => {
     const cases: [string, (s: ScenarioInput, n: number) => void, number][] = [
       ["deck.lanes", (s, n) => (s.deck.lanes = Array.from({ length: n }, (_, i) => `L${i}`)), LIMITS.lanes],
       ["calendar.shifts", (s, n) => (s.calendar.shifts = Array.from({ length: n }, (_, i) => ({ id: `s${i}`, name: "S", startHour: 7, lengthHours: 8 }))), LIMITS.calendarItems],
-      ["calendar.closures", (s, n) => (s.calendar.closures = Array.from({ length: n }, (_, i) => ({ id: `c${i}`, name: "C", lanesClosed: ["L1"] }))), LIMITS.calendarItems],
+      ["calendar.closures", (s, n) => (s.calendar.closures = Array.from({ length: n }, (_, i) => ({ id: `c${i}`, name: "C", lanesClosed: ["L1"] }))), LIMITS.closures],
+      ["stages", (s, n) => (s.stages = Array.from({ length: n }, (_, i) => ({ id: `st${i}`, name: "S", lanes: ["L1"] }))), LIMITS.stages],
+      ["stages[0].lanes", (s, n) => (s.stages[0].lanes = Array.from({ length: n }, () => "L1")), LIMITS.lanes],
+      ["stages[0].standingLanesClosed", (s, n) => (s.stages[0].standingLanesClosed = Array.from({ length: n }, () => "L1")), LIMITS.lanes],
+      ["stages[0].operations", (s, n) => (s.stages[0].operations = Array.from({ length: n }, () => "milling")), LIMITS.operations],
       ["calendar.closureWindows", (s, n) => (s.calendar.closureWindows = Array.from({ length: n }, () => ({ closure: "one-lane", dayTypes: ["weekday" as const], startHour: 7, endHour: 17 }))), LIMITS.calendarItems],
       ["calendar.holidays.blackoutDates", (s, n) => (s.calendar.holidays.blackoutDates = Array.from({ length: n }, () => "2027-07-01")), LIMITS.dates],
       ["weather.fixedWetDates", (s, n) => (s.weather.fixedWetDates = Array.from({ length: n }, () => "2027-07-01")), LIMITS.dates],
@@ -54,7 +58,7 @@ describe("length limits of the scenario format", () => {
   });
 
   it("the shipped scenarios fit every limit", () => {
-    for (const f of ["kestrel-two-season.json", "kestrel-single-season.json", "kestrel-holiday-work.json", "kestrel-two-placement-crews.json", "small-deterministic.json"]) {
+    for (const f of ["kestrel-two-season.json", "kestrel-single-season.json", "kestrel-holiday-work.json", "kestrel-two-placement-crews.json", "kestrel-staged-three-lane.json", "small-deterministic.json"]) {
       expect(parseScenario(loadScenario(f)).ok, f).toBe(true);
     }
   });
@@ -108,6 +112,9 @@ describe("control characters", () => {
     expect(problemAt(small((s) => (s.name = "Deck\u0000")), "name")?.message).toBe("must not contain control characters (found U+0000)");
     expect(problemAt(small((s) => (s.deck.lanes = ["L\u00001"])), "deck.lanes[0]")?.message).toMatch(/U\+0000/);
     expect(problemAt(small((s) => (s.calendar.closures[0].name = "One\u0007lane")), "calendar.closures[0].name")?.message).toMatch(/U\+0007/);
+    expect(problemAt(small((s) => (s.stages[0].name = "Stage\u0000")), "stages[0].name")?.message).toBe("must not contain control characters (found U+0000)");
+    expect(problemAt(small((s) => (s.stages[0].name = "x".repeat(121))), "stages[0].name")?.message).toBe("must be at most 120 characters (got 121)");
+    expect(problemAt(small((s) => (s.stages[0].standingLanesClosed = ["L\u00001"])), "stages[0].standingLanesClosed[0]")?.message).toMatch(/U\+0000/);
   });
 
   it("a description may have tabs and new lines but no other control characters", () => {
@@ -135,6 +142,8 @@ describe("the run body", () => {
 describe("field labels", () => {
   it("turn paths into words, items counted from 1", () => {
     expect(fieldLabel("operations[3].closure")).toBe("Operation 4 › Closure");
+    expect(fieldLabel("definition.stages[1].standingLanesClosed[0]")).toBe("Stage 2 › Lane behind barrier 1");
+    expect(fieldLabel("calendar.closures[0].setupHours")).toBe("Calendar › Closure 1 › Set-up hours");
     expect(fieldLabel("definition.calendar.holidays.blackoutDates[199999]")).toBe("Calendar › Holidays › Blackout date 200000");
     expect(fieldLabel("discovered[0].toStationFt")).toBe("Discovered condition 1 › To station");
     expect(fieldLabel("weather.monthly[1].tmaxMeanF")).toBe("Weather › February › Mean daily high");

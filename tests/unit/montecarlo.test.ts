@@ -85,7 +85,7 @@ describe("Monte Carlo runs", () => {
     expect(rep.finishHours).toBe(partial.finish[rep.iteration]);
     expect(rep.trace.packets.length).toBe(2 * compiled.packets);
     expect(JSON.parse(JSON.stringify(s))).toEqual(s);
-    expect(s.closureHours.totalByClosure["one-lane"]).toBeGreaterThan(0);
+    expect(s.laneClosedHours.byClosure.find((c) => c.closure === "one-lane")!.p50).toBeGreaterThan(0);
   });
 
   it("agrees with simple-statistics quantileRankSorted: the nearest rank is the first value whose rank reaches p", () => {

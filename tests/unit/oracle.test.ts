@@ -8,10 +8,11 @@ import fc from "fast-check";
 import { compileScenario, drawSamples, parseScenario, simulate, type Scenario } from "../../sim/index";
 import type { IterationSamples } from "../../sim/samples";
 import { scenarioSchema } from "../../sim/schema";
-import { referenceSimulate, type RefResult } from "../oracle/reference-sim";
+import { lanesClosedAt, referenceSimulate, type RefResult } from "../oracle/reference-sim";
 import {
-  at, baseInput, climate, crewOp, deterministicCases, fixedSamples, scenario, stochasticInput, type Input,
+  at, baseInput, climate, crewOp, deterministicCases, fixedSamples, scenario, stagedCases, stochasticInput, type Input,
 } from "../oracle/fixtures";
+import type { CompiledScenario } from "../../sim/engine";
 
 const DT = 0.25;
 const byKey = (r: RefResult) => new Map(r.packets.map((p) => [`${p.op}#${p.packet}`, p]));
@@ -166,7 +167,7 @@ function parsed(input: unknown): Scenario {
   return r.scenario;
 }
 
-interface EnginePacket { op: string; packet: number; crew: number; start: number; finish: number }
+interface EnginePacket { op: string; stage?: string; packet: number; crew: number; start: number; finish: number }
 
 /**
  * Every packet the reference finished by `untilHours` must match the engine's (op, packet, crew, start,
@@ -175,12 +176,12 @@ interface EnginePacket { op: string; packet: number; crew: number; start: number
  */
 function disagreements(s: Scenario, ref: RefResult, engPackets: EnginePacket[], tol: number, untilHours: number): string[] {
   const crewOp = new Set(s.operations.filter((o) => o.kind === "crew").map((o) => o.id));
-  const eng = new Map(engPackets.map((p) => [`${p.op}#${p.packet}`, p]));
+  const eng = new Map(engPackets.map((p) => [`${p.stage}/${p.op}#${p.packet}`, p]));
   const refKeys = new Set<string>();
   const out: string[] = [];
   for (const r of ref.packets) {
     if (r.finish > untilHours) continue;
-    const key = `${r.op}#${r.packet}`;
+    const key = `${r.stage}/${r.op}#${r.packet}`;
     refKeys.add(key);
     const e = eng.get(key);
     if (!e) {
@@ -192,14 +193,44 @@ function disagreements(s: Scenario, ref: RefResult, engPackets: EnginePacket[], 
     if (bad) out.push(`${key}: reference crew ${r.crew} ${r.start}→${r.finish}, engine crew ${e.crew} ${e.start}→${e.finish}`);
   }
   for (const e of engPackets)
-    if (e.finish <= untilHours - tol && !refKeys.has(`${e.op}#${e.packet}`))
+    if (e.finish <= untilHours - tol && !refKeys.has(`${e.stage}/${e.op}#${e.packet}`))
       out.push(`${e.op}#${e.packet}: engine ${e.start}→${e.finish}, reference did not finish it by ${untilHours} h`);
   return out;
 }
 
 function runEngine(s: Scenario, samples: IterationSamples) {
-  const r = simulate(compileScenario(s), samples, { trace: true });
-  return { finish: r.finish, unfinished: r.unfinished, packets: r.trace!.packets as EnginePacket[] };
+  const c = compileScenario(s);
+  const r = simulate(c, samples, { trace: true });
+  return { finish: r.finish, unfinished: r.unfinished, packets: r.trace!.packets as EnginePacket[], compiled: c, result: r };
+}
+
+/** Lanes closed at t in the engine's timeline (the periods `simulate` just built on `c`). */
+function engineLanesAt(c: CompiledScenario, t: number): string {
+  const tl = c.timeline;
+  const out = new Set<string>();
+  tl.closures.forEach((cl, j) => {
+    for (let k = 0; k < tl.periods.counts[j]; k++) if (t >= tl.periods.starts[j][k] && t < tl.periods.ends[j][k]) cl.lanes.forEach((l) => out.add(l));
+  });
+  return [...out].sort().join(",");
+}
+
+/** Step midpoints (quarter hours) up to `until` where the two timelines close different lanes. */
+function timelineDisagreements(c: CompiledScenario, ref: RefResult, until: number): string[] {
+  const out: string[] = [];
+  for (let t = DT / 2; t < until; t += DT) {
+    const a = lanesClosedAt(ref, t).join(",");
+    const b = engineLanesAt(c, t);
+    if (a !== b) out.push(`t = ${t}: reference closes [${a}], engine [${b}]`);
+    if (out.length >= 4) break;
+  }
+  return out;
+}
+
+/** ∫ |lanes closed| dt of the reference timeline, step by step (exact when every boundary is on a quarter hour). */
+function referenceLaneHours(ref: RefResult, until: number): number {
+  let h = 0;
+  for (let t = DT / 2; t < until; t += DT) h += lanesClosedAt(ref, t).length * DT;
+  return h;
 }
 
 describe("reference vs engine, deterministic scenarios (exact on quarter hours)", () => {
@@ -222,6 +253,58 @@ describe("reference vs engine, deterministic scenarios (exact on quarter hours)"
       expect(Array.from(drawn.waitHours)).toEqual(Array.from(mine.waitHours));
     });
   }
+});
+
+describe("reference vs engine, staged scenarios: every packet and the closure timeline hour by hour", () => {
+  for (const c of stagedCases) {
+    it(c.name, () => {
+      const s = parsed(c.input);
+      const ref = referenceSimulate(s, fixedSamples(s), DT, 400);
+      const eng = runEngine(s, fixedSamples(s));
+      expect(ref.unfinished).toBe(false);
+      expect(eng.unfinished).toBe(false);
+      expect(eng.packets).toHaveLength(ref.packets.length);
+      expect(disagreements(s, ref, eng.packets, 1e-6, Infinity)).toEqual([]);
+      expect(eng.finish).toBeCloseTo(ref.finish, 6);
+      for (const st of eng.compiled.stages) expect(eng.result.stageFinish[st.index]).toBeCloseTo(ref.stageFinish[st.id], 6);
+      const until = ref.finish + 48;
+      expect(timelineDisagreements(eng.compiled, ref, until)).toEqual([]);
+      expect(eng.result.laneClosedHours).toBeCloseTo(referenceLaneHours(ref, until), 6);
+    });
+  }
+
+  it("hand-worked: set-up 1 h and take-down 0.5 h around Monday's use of the 08–16 window", () => {
+    // MODEL.md "Closures that stand": window interval 08:00–16:00, usable 09:00–15:30. Milling (shift 07–17,
+    // 50 ft/h → 2 h a packet) mobilizes 09–11, p0 11–13, p1 13–15, p2 15:00–15:30 then Tuesday 09:00–10:30.
+    // Monday's period: first use 09:00 − 1 h = 08:00 to last use 15:30 + 0.5 h = 16:00, one lane (L1).
+    const s = parsed(stagedCases.find((x) => x.name.startsWith("short-term closure"))!.input);
+    const ref = referenceSimulate(s, fixedSamples(s), DT, 60);
+    const key = new Map(ref.packets.map((p) => [`${p.op}#${p.packet}`, p]));
+    expect(key.get("milling#0")).toMatchObject({ start: 11, finish: 13 });
+    expect(key.get("milling#2")).toMatchObject({ start: 15, finish: 24 + 10.5 });
+    expect(ref.periods.filter((p) => p.closure === "one-lane" && p.start < 24)).toEqual([
+      { closure: "one-lane", kind: "short", lanes: ["L1"], start: 8, end: 16 },
+    ]);
+    const eng = runEngine(s, fixedSamples(s));
+    const j = eng.compiled.timelineClosures.findIndex((c) => c.id === "one-lane");
+    expect([eng.compiled.timeline.periods.starts[j][0], eng.compiled.timeline.periods.ends[j][0]]).toEqual([8, 16]);
+  });
+
+  it("two-season plans: the barrier is lifted over the first winter only when every started packet is restored", () => {
+    const lifted = parsed(stagedCases.find((x) => x.name.startsWith("two-season plan restores"))!.input);
+    const kept = parsed(stagedCases.find((x) => x.name.startsWith("two-season plan whose"))!.input);
+    const a = referenceSimulate(lifted, fixedSamples(lifted), DT, 400);
+    const b = referenceSimulate(kept, fixedSamples(kept), DT, 400);
+    // Lifted: two standing periods, the first ending at the cut-off date 2027-11-08 00:00 (168 h).
+    const standingA = a.periods.filter((p) => p.kind === "standing");
+    expect(standingA).toHaveLength(2);
+    expect(standingA[0].end).toBe(at(lifted, "2027-11-08"));
+    expect(standingA[1].start).toBeGreaterThanOrEqual(at(lifted, "2028-03-15"));
+    expect(runEngine(lifted, fixedSamples(lifted)).result.winterStanding).toBe(false);
+    // Kept: milling at 10 ft/h leaves a packet half done at the cut-off, so one period spans the winter.
+    expect(b.periods.filter((p) => p.kind === "standing")).toHaveLength(1);
+    expect(runEngine(kept, fixedSamples(kept)).result.winterStanding).toBe(true);
+  });
 });
 
 describe("reference vs engine, seeded stochastic scenarios", () => {
@@ -280,6 +363,21 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
       twoSeason: fc.option(fc.record({ cutoffDay: fc.integer({ min: 10, max: 90 }), cutoffFt: fc.integer({ min: 0, max: 24 }).map((n) => n * 25) }), { nil: undefined }),
       demob: quarter(0, 8),
       remob: quarter(0, 4),
+      // Closure set-up and take-down, and an optional second stage over part of the deck (MODEL.md "Stages").
+      setup: fc.array(quarter(0, 1.5), { minLength: 2, maxLength: 2 }),
+      takedown: fc.array(quarter(0, 1.5), { minLength: 2, maxLength: 2 }),
+      stage2: fc.option(
+        fc.record({
+          fromFt: fc.integer({ min: 0, max: 20 }).map((n) => n * 25),
+          when: fc.constantFrom("stageDone" as const, "restoredAhead" as const),
+          lagFt: fc.integer({ min: 0, max: 4 }).map((n) => n * 50),
+          lagHours: quarter(0, 6),
+          standing1: fc.boolean(),
+          standing2: fc.boolean(),
+          dropFirstOp: fc.boolean(),
+        }),
+        { nil: undefined },
+      ),
       ops: fc.array(
         fc.record({
           wait: fc.integer({ min: 0, max: 4 }).map((n) => n === 0), // about one operation in five
@@ -352,6 +450,22 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
             },
       );
       x.links = g.ops.slice(1).map((o, i) => ({ from: `op${i}`, to: `op${i + 1}`, lagFt: o.lagFt, lagHours: o.lagHours }));
+      x.calendar.closures = x.calendar.closures.map((c, i) => ({ ...c, setupHours: g.setup[i], takedownHours: g.takedown[i] }));
+      const st = g.stage2;
+      if (st) {
+        const ids = x.operations.map((o) => o.id);
+        x.stages = [
+          { id: "s1", name: "Stage 1", lanes: ["L1"], standingLanesClosed: st.standing1 ? ["L1"] : [] },
+          {
+            // A packet boundary inside the deck, so the stage always holds a packet.
+            id: "s2", name: "Stage 2", lanes: ["L2"],
+            fromStationFt: x.deck.startStationFt + Math.min(st.fromFt / 25, Math.ceil(g.lengthFt / g.packetFt) - 1) * g.packetFt,
+            standingLanesClosed: st.standing2 ? ["L2"] : [],
+            operations: st.dropFirstOp && ids.length > 1 ? ids.slice(1) : ids,
+            after: { stage: "s1", when: st.when, lagFt: st.lagFt, lagHours: st.lagHours },
+          },
+        ];
+      }
       return x;
     });
 
@@ -373,6 +487,9 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
         const eng = runEngine(s, fixedSamples(s));
         compared++;
         const bad = disagreements(s, ref, eng.packets, 1e-6, HORIZON * 24);
+        // The closure timeline hour by hour, when the reference finished inside its horizon (so that both know
+        // every restoration); short-term periods and standing closures alike.
+        if (!ref.unfinished) bad.push(...timelineDisagreements(eng.compiled, ref, ref.finish + 48));
         if (bad.length) throw new Error(`${bad.slice(0, 4).join("\n")}\nscenario: ${JSON.stringify(input)}`);
         return true;
       }),

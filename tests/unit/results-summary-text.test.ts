@@ -19,10 +19,12 @@ function summary(over: Partial<RunSummary> = {}): RunSummary {
     target: null,
     weatherLostShifts: { p50: 3, p80: 5 },
     discoveredHours: { p50: 0, p80: 0 },
-    closureHours: { byClosure: [], totalByClosure: {} },
+    stages: [],
+    laneClosedHours: { total: { p50: 0, p80: 0 }, byClosure: [], byDay: [] },
+    winterStandingShare: 0,
     convergenceDays: 0.5,
     season1End: null,
-    representative: { iteration: 0, finish: "2027-10-03T12:00", finishHours: 0, trace: { packets: [], pauses: [] } },
+    representative: { iteration: 0, finish: "2027-10-03T12:00", finishHours: 0, trace: { packets: [], pauses: [] }, closureTimeline: [] },
     ...over,
   };
 }

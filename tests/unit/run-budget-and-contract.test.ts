@@ -14,13 +14,24 @@ const parsed = (input: unknown): Scenario => {
   if (!r.ok) throw new Error(JSON.stringify(r.problems));
   return r.scenario;
 };
-const DEMOS = ["kestrel-two-season.json", "kestrel-single-season.json", "kestrel-holiday-work.json", "kestrel-two-placement-crews.json", "small-deterministic.json"];
+const DEMOS = ["kestrel-two-season.json", "kestrel-single-season.json", "kestrel-holiday-work.json", "kestrel-two-placement-crews.json", "kestrel-staged-three-lane.json", "small-deterministic.json"];
 
 describe("work budget", () => {
   it("counts packets × operations × (links + 1) + weather days, per iteration", () => {
     const s = parsed(loadScenario("kestrel-two-season.json"));
     // 8,400 ft in 100 ft packets, seven operations, six links.
     expect(runWork(s, 10)).toEqual({ packets: 84, operations: 7, links: 6, perIteration: 84 * 7 * 7 + HORIZON_DAYS, total: 10 * (84 * 7 * 7 + HORIZON_DAYS) });
+  });
+
+  it("counts each operation once per stage it works in", () => {
+    const one = parsed(small());
+    const ops = one.operations.length;
+    const twelve = parsed(small((s) => (s.stages = Array.from({ length: 12 }, (_, i) => ({ id: `st${i}`, name: `Stage ${i + 1}`, lanes: ["L1", "L2"], standingLanesClosed: [] })))));
+    expect(runWork(one, 1).operations).toBe(ops);
+    expect(runWork(twelve, 1).operations).toBe(12 * ops);
+    const some = parsed(small((s) => (s.stages = [{ id: "a", name: "A", lanes: ["L1"], operations: [s.operations[0].id] }, { id: "b", name: "B", lanes: ["L2"] }])));
+    expect(runWork(some, 1).operations).toBe(1 + ops);
+    expect(runWork(twelve, 1).perIteration - HORIZON_DAYS).toBe(12 * (runWork(one, 1).perIteration - HORIZON_DAYS));
   });
 
   it("every demo scenario may run 20,000 iterations in the browser and the server's maximum on the server", () => {
@@ -66,7 +77,7 @@ describe("work budget", () => {
 
 describe("run-summary contract", () => {
   it("what the engine produces passes the strict schema after a JSON round trip, unchanged", () => {
-    for (const f of ["kestrel-two-season.json", "small-deterministic.json"]) {
+    for (const f of ["kestrel-two-season.json", "kestrel-staged-three-lane.json", "small-deterministic.json"]) {
       const summary = runScenario(parsed(loadScenario(f)), { iterations: 20, seed: "contract" });
       const wire = JSON.parse(JSON.stringify(summary));
       const r = runSummarySchema.safeParse(wire);

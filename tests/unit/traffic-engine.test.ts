@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import { compileScenario, parseScenario, runScenario, type Scenario } from "../../sim/index";
 import { parseIsoDate } from "../../sim/dates";
 import { compileTraffic, newQueueDetail, queueDelay, DEMAND_KINDS } from "../../sim/traffic";
+import { capacityOf } from "../../sim/traffic-capacity";
 import type { ScenarioInput } from "../../sim/schema";
 import { loadScenario, small } from "./engine-fixtures";
 
@@ -43,7 +44,7 @@ describe("traffic in a run", () => {
       ["2027-04-06", 24000, 4000, "2027-04-06T19:00"],
       ["2027-04-07", 960, 800, "2027-04-07T09:24"],
     ]);
-    expect(days[0].closureHours).toEqual({ "one-lane": 10 });
+    expect(days[0].laneClosedHours).toEqual({ "one-lane": 10 }); // one lane × 10 h
     expect(s.traffic!.maxQueue).toEqual({ miles: 10.53, vehicles: 4000, date: "2027-04-05" });
     // Road-user cost with the default value of time (cars only): 48,960 veh-h × $21.15 = $1,035,504.
     expect(s.cost!.roadUser!.p50).toBe(1035504);
@@ -115,13 +116,10 @@ describe("traffic in a run", () => {
     const dir = t.directions[0];
     const d = parseIsoDate("2027-05-31") - c.calendar.startDay;
     const ci = c.closures.indexOf("day-1l");
-    const seg = { starts: c.closures.map(() => new Float64Array(1)), ends: c.closures.map(() => new Float64Array(1)), counts: new Int32Array(c.closures.length) };
-    // The whole day window, 09:00–15:30, as the closure's only segment.
-    seg.starts[ci][0] = 24 * d + 9;
-    seg.ends[ci][0] = 24 * d + 15.5;
-    seg.counts[ci] = 1;
+    // The whole day window, 09:00–15:30, as the closure's only period.
+    const pieces = { starts: Float64Array.of(24 * d + 9), ends: Float64Array.of(24 * d + 15.5), caps: Float64Array.of(capacityOf(t, dir, 1 << ci)), n: 1 };
     const detail = newQueueDetail(t.days);
-    queueDelay(t, dir, seg, detail);
+    queueDelay(t, dir, pieces, detail);
     const miles = (detail.peakQueue[d] * dir.pcPerVeh) / (t.jamDensity * dir.storageLanes);
     expect(miles).toBeGreaterThanOrEqual(5);
     expect(miles).toBeLessThanOrEqual(10);

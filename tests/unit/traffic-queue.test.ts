@@ -4,30 +4,42 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { hcm6WorkZone, heavyVehicleFactor, krammesLopezCapacity, newQueueDetail, queueDelay, queueMiles, type ClosureSegments, type CompiledDirection, type TrafficModel } from "../../sim/traffic";
+import { hcm6WorkZone, heavyVehicleFactor, krammesLopezCapacity, newQueueDetail, queueDelay, queueMiles, type CapacityPieces, type CompiledDirection, type TrafficModel } from "../../sim/traffic";
 
-/** A direction with a given per-hour demand (padded with `rest`), closure capacities and open-road capacity. */
-function model(demand: number[], caps: number[], open: number, days = 4, rest = 0): { m: TrafficModel; dir: CompiledDirection } {
+type Segments = [number, number][][];
+
+/**
+ * A direction with a given per-hour demand (padded with `rest`) and open-road capacity; `on(lists)` turns
+ * closure segments (list i at capacity caps[i]) into the capacity pieces `queueDelay` walks, the lowest
+ * capacity holding where segments overlap (what the closure timeline gives for stacked closures).
+ */
+function model(demand: number[], caps: number[], open: number, days = 4, rest = 0): { m: TrafficModel; dir: CompiledDirection; on: (lists: Segments) => CapacityPieces } {
   const hourDemand = new Float64Array(24 * days).fill(rest);
   hourDemand.set(demand);
   const dir: CompiledDirection = {
-    id: "d", name: "d", demand: new Float64Array(120), hourDemand,
-    narrowing: Int32Array.from(caps.map((_, i) => i)), heavyShare: 0, pcPerVeh: 1, storageLanes: 1,
-    openCapacity: open, closureCapacity: Float64Array.from(caps),
+    id: "d", name: "d", demand: new Float64Array(120), hourDemand, heavyShare: 0, pcPerVeh: 1, storageLanes: 1,
+    openCapacity: open, laneMask: 1, fHv: 1, select: 1, capBySet: new Map(), nextOver: new Map(),
   };
-  const m: TrafficModel = {
-    days, dayKind: new Uint8Array(days + 1), directions: [dir], jamDensity: 190,
-    scratch: { starts: new Float64Array(4), ends: new Float64Array(4), caps: new Float64Array(4), pos: new Int32Array(caps.length) },
+  const scratch: CapacityPieces = { starts: new Float64Array(4), ends: new Float64Array(4), caps: new Float64Array(4), n: 0 };
+  const m = { days, dayKind: new Uint8Array(days + 1), directions: [dir], jamDensity: 190, closures: [], traffic: {}, scratch } as unknown as TrafficModel;
+  const on = (lists: Segments): CapacityPieces => {
+    const cuts = [...new Set(lists.flat().flat())].sort((a, b) => a - b);
+    const starts: number[] = [];
+    const ends: number[] = [];
+    const cs: number[] = [];
+    for (let k = 0; k + 1 < cuts.length; k++) {
+      const mid = (cuts[k] + cuts[k + 1]) / 2;
+      let mu = Infinity;
+      lists.forEach((l, i) => l.forEach(([a, b]) => (a <= mid && mid < b ? (mu = Math.min(mu, caps[i])) : 0)));
+      if (mu < Infinity) {
+        starts.push(cuts[k]);
+        ends.push(cuts[k + 1]);
+        cs.push(mu);
+      }
+    }
+    return { starts: Float64Array.from(starts), ends: Float64Array.from(ends), caps: Float64Array.from(cs), n: starts.length };
   };
-  return { m, dir };
-}
-
-function segments(lists: [number, number][][]): ClosureSegments {
-  return {
-    starts: lists.map((l) => Float64Array.from(l.map((p) => p[0]))),
-    ends: lists.map((l) => Float64Array.from(l.map((p) => p[1]))),
-    counts: Int32Array.from(lists.map((l) => l.length)),
-  };
+  return { m, dir, on };
 }
 
 describe("D/D/1 queuing over closure segments", () => {
@@ -36,9 +48,9 @@ describe("D/D/1 queuing over closure segments", () => {
     // the queue grows at 1,800 − 1,400 = 400 veh/h for 2 h → 800 veh; it then shrinks at 1,400 − 900 = 500 veh/h,
     // so it clears 800 / 500 = 1.6 h after demand drops (t = 3.6 h). Delay = area between the cumulative
     // arrival and departure curves = triangle ½ · 800 veh · 3.6 h = 1,440 veh-h.
-    const { m, dir } = model([1800, 1800], [1400], 10_000, 4, 900);
+    const { m, dir, on } = model([1800, 1800], [1400], 10_000, 4, 900);
     const detail = newQueueDetail(4);
-    const delay = queueDelay(m, dir, segments([[[0, 10]]]), detail);
+    const delay = queueDelay(m, dir, on([[[0, 10]]]), detail);
     expect(delay).toBeCloseTo(1440, 9);
     expect(detail.peakQueue[0]).toBeCloseTo(800, 9);
     expect(detail.clearsAt[0]).toBeCloseTo(3.6, 9);
@@ -49,9 +61,9 @@ describe("D/D/1 queuing over closure segments", () => {
     // service until 30 are queued (t = 5 min: a first closure with capacity 0), then service 4/min (a second
     // closure) while arrivals stay 6/min to t = 15 (queue 30 + 2·10 = 50), then 2/min: the queue falls at
     // 2/min and clears at 15 + 50/2 = 40 min. Area: ½·30·5 + (30 + 50)/2·10 + ½·50·25 = 75 + 400 + 625 = 1,100.
-    const { m, dir } = model(new Array(15).fill(6), [0, 4], 1_000, 4, 2);
+    const { m, dir, on } = model(new Array(15).fill(6), [0, 4], 1_000, 4, 2);
     const detail = newQueueDetail(4);
-    const delay = queueDelay(m, dir, segments([[[0, 5]], [[5, 90]]]), detail);
+    const delay = queueDelay(m, dir, on([[[0, 5]], [[5, 90]]]), detail);
     expect(delay).toBeCloseTo(1100, 9);
     expect(detail.peakQueue[0]).toBeCloseTo(50, 9);
     expect(detail.clearsAt[0]).toBeCloseTo(40, 9);
@@ -60,18 +72,18 @@ describe("D/D/1 queuing over closure segments", () => {
   it("a queue left when the closure ends discharges at the open-road capacity", () => {
     // 2,000 veh/h against 1,600 from 0 to 3 h → 1,200 veh; then 4,000 − 2,000 = 2,000 veh/h → clears 0.6 h
     // later. Delay = ½·1,200·3 + ½·1,200·0.6 = 1,800 + 360 = 2,160 veh-h (worked by hand).
-    const { m, dir } = model([], [1600], 4000, 4, 2000);
+    const { m, dir, on } = model([], [1600], 4000, 4, 2000);
     const detail = newQueueDetail(4);
-    expect(queueDelay(m, dir, segments([[[0, 3]]]), detail)).toBeCloseTo(2160, 9);
+    expect(queueDelay(m, dir, on([[[0, 3]]]), detail)).toBeCloseTo(2160, 9);
     expect(detail.clearsAt[0]).toBeCloseTo(3.6, 9);
   });
 
   it("overlapping closures: the lower capacity holds", () => {
     // [0, 2) at 1,500 and [1, 3) at 1,000 with 1,800 veh/h: 300·1 h, then 800·2 h → 1,900 veh at 3 h;
     // open road 3,800: clears 1,900 / 2,000 = 0.95 h later. Area: ½·300·1 + (300 + 1,900)/2·2 + ½·1,900·0.95.
-    const { m, dir } = model([], [1500, 1000], 3800, 4, 1800);
+    const { m, dir, on } = model([], [1500, 1000], 3800, 4, 1800);
     const expected = 0.5 * 300 + 1100 * 2 + 0.5 * 1900 * 0.95;
-    expect(queueDelay(m, dir, segments([[[0, 2]], [[1, 3]]]), null)).toBeCloseTo(expected, 9);
+    expect(queueDelay(m, dir, on([[[0, 2]], [[1, 3]]]), null)).toBeCloseTo(expected, 9);
   });
 });
 
@@ -120,8 +132,8 @@ describe("properties of the walk", () => {
   it("no closure ⇒ no delay, whatever the demand", () => {
     fc.assert(
       fc.property(demandArb, (demand) => {
-        const { m, dir } = model(demand, [1000], 1500, 6);
-        return queueDelay(m, dir, segments([[]]), null) === 0;
+        const { m, dir, on } = model(demand, [1000], 1500, 6);
+        return queueDelay(m, dir, on([[]]), null) === 0;
       }),
     );
   });
@@ -131,8 +143,7 @@ describe("properties of the walk", () => {
       fc.property(demandArb, segArb, fc.integer({ min: 500, max: 3000 }), fc.integer({ min: 1, max: 1500 }), (demand, segs, cap, extra) => {
         const a = model(demand, [cap], 4500, 6);
         const b = model(demand, [cap + extra], 4500 + extra, 6);
-        const s = segments([segs]);
-        return queueDelay(b.m, b.dir, s, null) <= queueDelay(a.m, a.dir, s, null) + 1e-6;
+        return queueDelay(b.m, b.dir, b.on([segs]), null) <= queueDelay(a.m, a.dir, a.on([segs]), null) + 1e-6;
       }),
     );
   });
@@ -152,9 +163,9 @@ describe("properties of the walk", () => {
           const a = 24 * (quietDay - 1);
           kept = segs.flatMap(([s, e]): [number, number][] => (e <= a || s >= a + 24 ? [[s, e]] : [s < a ? [s, a] : null, e > a + 24 ? [a + 24, e] : null].filter((x): x is [number, number] => x !== null)));
         }
-        const { m, dir } = model(d, [1000], 4500, 6);
+        const { m, dir, on } = model(d, [1000], 4500, 6);
         const detail = newQueueDetail(6);
-        queueDelay(m, dir, segments([kept]), detail);
+        queueDelay(m, dir, on([kept]), detail);
         return detail.delay[quietDay] === 0 && detail.peakQueue[quietDay] === 0;
       }),
       { numRuns: 300 },

@@ -6,6 +6,7 @@
  * (from `parseScenario` or the server) to react-hook-form names and to the editor section that shows them.
  */
 import { scenarioSchema, type ScenarioInput } from "@sim/schema";
+import { upgradeScenario } from "@sim/upgrade";
 
 export interface LinkLike {
   from: string;
@@ -158,8 +159,9 @@ export function sectionOf(problemPath: string): SectionId {
 
 /** Fills the schema's defaults in so the form has every field and two versions compare like for like. */
 export function normalizeDefinition(definition: unknown): ScenarioInput {
-  const parsed = scenarioSchema.safeParse(definition);
-  return (parsed.success ? parsed.data : definition) as ScenarioInput;
+  const current = upgradeScenario(definition);
+  const parsed = scenarioSchema.safeParse(current);
+  return (parsed.success ? parsed.data : current) as ScenarioInput;
 }
 
 /** A fresh, lower-case id not yet used, derived from a name. */

@@ -123,7 +123,7 @@ export const COMPARE_METRICS: CompareMetric[] = [
   },
   {
     id: "closureHours",
-    label: "Closure hours (mean, all closures)",
+    label: "Lane-closed hours (P50)",
     text: (r) => `${Math.round(r.closureHoursTotal).toLocaleString("en-US")} h`,
     diff: (a, b) => signed(b.closureHoursTotal - a.closureHoursTotal, "h"),
   },

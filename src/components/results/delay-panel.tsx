@@ -60,7 +60,7 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
   const data = t.days.map((d) => ({
     date: d.date,
     short: formatIsoDate(d.date),
-    hours: Math.round(Object.values(d.closureHours).reduce((a, b) => a + b, 0) * 10) / 10,
+    hours: Math.round(Object.values(d.laneClosedHours ?? {}).reduce((a, b) => a + b, 0) * 10) / 10,
     miles: d.peakQueueMiles,
   }));
   const max = t.maxQueue;

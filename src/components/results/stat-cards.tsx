@@ -14,7 +14,7 @@ function Stat({ title, children, note }: { title: string; children: React.ReactN
 }
 
 export function StatCards({ summary }: { summary: RunSummary }) {
-  const closures = summary.closureHours.byClosure.map((c) => ({ id: c.closure, name: c.name, hours: summary.closureHours.totalByClosure[c.closure] ?? 0 }));
+  const closures = (summary.laneClosedHours?.byClosure ?? []).map((c) => ({ id: c.closure, name: c.name, hours: c.p50 }));
   return (
     <div className="grid gap-3 sm:grid-cols-3" data-testid="run-stats">
       <Stat title="Weather-lost shifts" note="Shifts with a ready crew and an open calendar but no production because of weather.">
@@ -31,7 +31,7 @@ export function StatCards({ summary }: { summary: RunSummary }) {
           <span className="text-xl font-semibold">{num(summary.discoveredHours.p80, 1)} h</span> <span className="text-sm">P80</span>
         </p>
       </Stat>
-      <Stat title="Closure hours by closure" note="Mean over iterations: hours a closure is in place for work or mobilization.">
+      <Stat title="Lane-closed hours by closure" note="P50 over iterations: lanes closed × hours the closure stands (set-up and take-down included).">
         {closures.length === 0 ? (
           <p className="text-sm text-muted">No closure was used.</p>
         ) : (

@@ -112,7 +112,7 @@ export function InputsSummary({ definition }: { definition: unknown }) {
                     </td>
                     <td className="table-cell">
                       {op.shifts.map((id) => shiftName.get(id) ?? id).join(", ")}
-                      <span className="block text-xs text-muted">{closureName.get(op.closure) ?? op.closure}</span>
+                      <span className="block text-xs text-muted">{op.closure ? (closureName.get(op.closure) ?? op.closure) : "stage's standing closure only"}</span>
                     </td>
                     <td className="table-cell">{gatesText(op)}</td>
                   </>

@@ -9,6 +9,7 @@ export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: st
     { href: base, label: "Outlook" },
     { href: `${base}/plan`, label: "Plan" },
     { href: `${base}/progress`, label: "Field log" },
+    { href: `${base}/look-ahead`, label: "Week ahead" },
     { href: `${base}/search`, label: "Plan search" },
     ...(canEdit ? [{ href: `${base}/data`, label: "Field data" }] : []),
     ...(canShare ? [{ href: `${base}/share`, label: "Share" }] : []),

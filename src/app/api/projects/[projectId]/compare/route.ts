@@ -44,7 +44,8 @@ export const GET = handler(async (req: Request, ctx: { params: Promise<{ project
               cdf: s.cdf ?? [],
               target: s.target ?? null,
               weatherLostShifts: s.weatherLostShifts,
-              closureHoursTotal: Object.values(s.totalByClosure ?? {}).reduce((a, b) => a + Number(b), 0),
+              // Lane-closed hours (P50); runs stored before the closure timeline carry crew closure hours instead.
+              closureHoursTotal: s.laneClosedP50 ?? Object.values(s.totalByClosure ?? {}).reduce((a, b) => a + Number(b), 0),
               delay: s.delay ?? null,
               cost: s.cost ?? null,
             }
