@@ -227,6 +227,20 @@ export const API_ROWS: Record<string, ApiRow> = {
   },
 
   // ---- sharing ----
+  // The week ahead: every member reads the board; the daily notice is a sharing act; the location belongs to
+  // the project's administrator and engineer. The location is written back unchanged (the seeded demo point).
+  "GET /api/scenarios/[scenarioId]/look-ahead": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "GET /api/scenarios/[scenarioId]/look-ahead/notice": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "PUT /api/scenarios/[scenarioId]/look-ahead/notice": {
+    need: { kind: "scenario", action: "shareScenario" },
+    ok: 200,
+    request: async (w) => ({ params: scen(w), body: { enabled: false, hour: 6, recipients: ["field-team@marrin-dot.example"] } }),
+  },
+  "PUT /api/projects/[projectId]/location": {
+    need: { kind: "project", action: "setLocation" },
+    ok: 200,
+    request: async (w) => ({ params: proj(w), body: { latitude: 30.25, longitude: -88.1 } }),
+  },
   "GET /api/scenarios/[scenarioId]/share-links": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "POST /api/scenarios/[scenarioId]/share-links": { need: { kind: "scenario", action: "shareScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { expiresInDays: 7 } }) },
   "DELETE /api/share-links/[linkId]": {

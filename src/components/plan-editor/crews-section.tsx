@@ -14,7 +14,7 @@ export function CrewsSection() {
   const crew = operations.map((op, i) => ({ op, i })).filter((x) => x.op.kind === "crew");
   const wait = operations.map((op, i) => ({ op, i })).filter((x) => x.op.kind === "wait");
   const shiftOptions = shifts.map((s) => ({ value: s.id, label: s.name || s.id }));
-  const closureOptions = closures.map((c) => ({ value: c.id, label: c.name || c.id }));
+  const closureOptions = [{ value: "", label: "None (stage barrier only)" }, ...closures.map((c) => ({ value: c.id, label: c.name || c.id }))];
 
   return (
     <div className="space-y-5">
@@ -79,7 +79,7 @@ export function CrewsSection() {
                     <td className="table-cell">
                       <div className="space-y-2">
                         <CheckboxGroup name={`${p}.shifts`} legend={`${who} — shifts`} options={shiftOptions} />
-                        <SelectField name={`${p}.closure`} srPrefix={`${who} — `} label="closure" className="w-44" options={closureOptions} />
+                        <SelectField name={`${p}.closure`} srPrefix={`${who} — `} label="short-term closure" className="w-44" options={closureOptions} optional />
                       </div>
                     </td>
                     <td className="table-cell">

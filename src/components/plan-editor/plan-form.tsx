@@ -1,7 +1,7 @@
 "use client";
 /**
  * The plan editor: one react-hook-form form over the whole scenario definition (validated by the engine's zod
- * schema), five sections switched client-side so edits survive, an explicit save that runs `parseScenario`
+ * schema), six sections switched client-side so edits survive, an explicit save that runs `parseScenario`
  * first, server field problems shown the same way, and a conflict screen on 409. Nothing saves on its own.
  */
 import { useEffect, useState } from "react";
@@ -21,6 +21,7 @@ import { n } from "./fields";
 import { sectionOf, toFormPath, toFormValues, type SectionId } from "./plan-logic";
 import { SaveBar } from "./save-bar";
 import { SequenceSection } from "./sequence-section";
+import { StagesSection } from "./stages-section";
 import type { ScenarioRecord, ScenarioResponse } from "./types";
 import { TrafficSection } from "./traffic-section";
 import { WeatherSection } from "./weather-section";
@@ -28,6 +29,7 @@ import { useLeaveGuard } from "./use-leave-guard";
 
 const SECTIONS: { id: SectionId; label: string; hint: string }[] = [
   { id: "sequence", label: "Sequence", hint: "Operations and links" },
+  { id: "stages", label: "Stages", hint: "Lanes, stretches, barrier" },
   { id: "crews", label: "Crews and rates", hint: "Rates, crews, gates" },
   { id: "calendar", label: "Calendar and closures", hint: "Shifts, closures, seasons" },
   { id: "weather", label: "Weather", hint: "Climate profile" },
@@ -192,6 +194,7 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
             <fieldset disabled={readOnly} className="min-w-0">
               <legend className="sr-only">{SECTIONS.find((s) => s.id === section)?.label}</legend>
               {section === "sequence" && <SequenceSection readOnly={readOnly} />}
+              {section === "stages" && <StagesSection readOnly={readOnly} />}
               {section === "crews" && <CrewsSection />}
               {section === "calendar" && <CalendarSection readOnly={readOnly} />}
               {section === "weather" && <WeatherSection />}

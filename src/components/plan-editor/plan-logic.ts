@@ -7,6 +7,7 @@
  */
 import { scenarioSchema, type ScenarioInput } from "@sim/schema";
 import { upgradeScenario } from "@sim/upgrade";
+import { stageFormValues } from "./stages-logic";
 
 export interface LinkLike {
   from: string;
@@ -140,13 +141,14 @@ export function toFormPath(problemPath: string): string {
   return problemPath.replace(/^definition\.?/, "").replace(/\[(\d+)\]/g, ".$1").replace(/^\./, "");
 }
 
-export type SectionId = "sequence" | "crews" | "calendar" | "weather" | "traffic";
+export type SectionId = "sequence" | "stages" | "crews" | "calendar" | "weather" | "traffic";
 
 const SEQUENCE_OP_FIELDS = new Set(["id", "name", "kind"]);
 
 export function sectionOf(problemPath: string): SectionId {
   const p = toFormPath(problemPath).split(".");
   if (p[0] === "weather") return "weather";
+  if (p[0] === "stages") return "stages";
   if (p[0] === "traffic" || p[0] === "costs") return "traffic";
   if (p[0] === "calendar" || p[0] === "startDate" || p[0] === "targetDate" || p[0] === "deck" || p[0] === "timeZone") return "calendar";
   if (p[0] === "operations") {
@@ -196,6 +198,7 @@ const GATE_KEYS = ["minTempF", "maxTempF", "noRainHoursAfter", "maxWindMph", "ma
 export function toFormValues(definition: unknown): ScenarioInput {
   const v = structuredClone(normalizeDefinition(definition)) as ScenarioInput;
   if (!Array.isArray(v.operations)) return v;
+  if (Array.isArray(v.stages)) v.stages = stageFormValues(v.stages);
   v.targetDate = v.targetDate ?? undefined;
   if (v.calendar?.season) {
     v.calendar.season.cutoffDate = v.calendar.season.cutoffDate ?? undefined;

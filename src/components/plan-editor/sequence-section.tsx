@@ -11,6 +11,7 @@ import { Background, Controls, MarkerType, Position, ReactFlow, applyNodeChanges
 import type { Link, Operation, ScenarioInput } from "@sim/schema";
 import { NumberField, TextField, n } from "./fields";
 import { freshId, layoutByDepth, proposeLink } from "./plan-logic";
+import { withoutOperation } from "./stages-logic";
 
 type OpIn = ScenarioInput["operations"][number];
 type LinkIn = ScenarioInput["links"][number];
@@ -100,6 +101,7 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
       (getValues("operations") ?? []).filter((o) => o.id !== id),
       (getValues("links") ?? []).filter((l) => l.from !== id && l.to !== id),
     );
+    setValue("stages", withoutOperation(getValues("stages") ?? [], id), { shouldDirty: true, shouldValidate: true });
     setNotice({ bad: false, text: `Removed ${label(id)} and its links.` });
   };
 

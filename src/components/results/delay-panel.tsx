@@ -1,7 +1,7 @@
 "use client";
 /**
  * What a run costs the public and the owner: delay and cost totals (P50/P80 over iterations) and, for the
- * representative iteration, a day-by-day chart of closure hours (bars) and the day's longest queue in miles
+ * representative iteration, a day-by-day chart of lane-closed hours (bars) and the day's longest queue in miles
  * (line), with the same figures as a table for screen readers. Reads only `summary.delay`, `summary.cost`
  * and `summary.traffic` (absent when the scenario has no traffic or costs section: the panel says so).
  */
@@ -33,7 +33,7 @@ export function DelayTotals({ summary }: { summary: RunSummary }) {
         <div className="mt-1">
           <Pair q={summary.delay?.vehicleHours} format={(v) => num(v)} unit=" veh-h" />
         </div>
-        <p className="mt-1 text-xs text-muted">Vehicle-hours spent in work-zone queues (D/D/1 queuing over the closure hours).</p>
+        <p className="mt-1 text-xs text-muted">Vehicle-hours spent in work-zone queues (D/D/1 queuing over the hours lanes are closed).</p>
       </div>
       <div className="rounded-md border border-line bg-paper/60 px-4 py-3" data-testid="cost-road-user">
         <h3 className="text-sm font-semibold text-muted">Road-user cost</h3>
@@ -64,7 +64,7 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
     miles: d.peakQueueMiles,
   }));
   const max = t.maxQueue;
-  const aria = `Day-by-day chart for the representative iteration (${data.length} days with a closure or a queue): bars are closure hours, the line is the day’s longest queue in miles${max ? `; the longest is ${max.miles} miles on ${formatIsoDate(max.date)}` : ""}. The same figures are in the table that follows.`;
+  const aria = `Day-by-day chart for the representative iteration (${data.length} days with a closure or a queue): bars are lane-closed hours, the line is the day’s longest queue in miles${max ? `; the longest is ${max.miles} miles on ${formatIsoDate(max.date)}` : ""}. The same figures are in the table that follows.`;
   return (
     <figure aria-label={aria} className="m-0" data-testid="delay-chart">
       <div aria-hidden="true">
@@ -72,22 +72,22 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
           <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 8 }} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
             <XAxis dataKey="short" tick={AXIS_TICK} interval="preserveStartEnd" minTickGap={32} label={{ value: "Date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }} />
-            <YAxis yAxisId="h" tick={AXIS_TICK} width={48} label={{ value: "Closure hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
+            <YAxis yAxisId="h" tick={AXIS_TICK} width={48} label={{ value: "Lane-closed hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
             <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={48} label={{ value: "Longest queue (mi)", angle: 90, position: "insideRight", dy: -50, fill: "var(--color-ink)", fontSize: 12 }} />
             <Tooltip />
             <Legend verticalAlign="top" height={28} />
-            <Bar yAxisId="h" dataKey="hours" name="Closure hours" fill="var(--color-s2)" isAnimationActive={false} />
+            <Bar yAxisId="h" dataKey="hours" name="Lane-closed hours" fill="var(--color-s2)" isAnimationActive={false} />
             <Line yAxisId="mi" dataKey="miles" name="Longest queue (mi)" stroke="var(--color-s6)" strokeWidth={2} dot={false} isAnimationActive={false} />
           </ComposedChart>
         </ResponsiveContainer>
       </div>
       <div className="sr-only">
         <table>
-          <caption>Closure hours and longest queue by day, representative iteration</caption>
+          <caption>Lane-closed hours and longest queue by day, representative iteration</caption>
           <thead>
             <tr>
               <th scope="col">Date</th>
-              <th scope="col">Closure hours</th>
+              <th scope="col">Lane-closed hours</th>
               <th scope="col">Longest queue (mi)</th>
               <th scope="col">Delay (veh-h)</th>
               <th scope="col">Queue cleared</th>

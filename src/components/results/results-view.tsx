@@ -65,6 +65,18 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
         <p className="mt-1 text-sm" data-testid="p80-meaning">{p80Meaning(summary)}</p>
         <p className="mt-1 text-sm text-muted">{text.percentiles}</p>
         {text.season1 && <p className="mt-1 text-sm">{text.season1}</p>}
+        {text.stages.length > 0 && (
+          <ul className="mt-2 space-y-0.5 text-sm" data-testid="stage-finishes" aria-label="Finish by stage">
+            {text.stages.map((line) => (
+              <li key={line}>{line}</li>
+            ))}
+          </ul>
+        )}
+        {text.laneClosed && (
+          <p className="mt-1 text-sm" data-testid="lane-closed-hours">
+            {text.laneClosed}
+          </p>
+        )}
         {plan && winterCarryover(summary, plan) && (
           <p className="mt-1 text-sm" data-testid="winter-carryover">
             {winterCarryover(summary, plan)}
@@ -100,7 +112,7 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
       <Section
         title="Time–distance"
         id={`${idp}-td`}
-        description={`The iteration whose finish is nearest the P50 (finish ${summary.representative ? quantileText(summary.representative.finish) : "—"}): where each operation is on the deck over time.`}
+        description={`The iteration whose finish is nearest the P50 (finish ${summary.representative ? quantileText(summary.representative.finish) : "—"}): where each operation is on the deck over time${(summary.stages?.length ?? 0) > 1 ? ", stage by stage" : ""}, and what is closed.`}
       >
         <div data-testid="time-distance-chart">
           {allUnfinished && summary.representative?.trace?.packets?.length === 0 ? (
@@ -114,7 +126,7 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
       <Section
         title="Delay and cost"
         id={`${idp}-delay`}
-        description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, closure hours and the longest queue of each day."
+        description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, lane-closed hours and the longest queue of each day."
       >
         <DelayPanel summary={summary} />
       </Section>
@@ -125,8 +137,8 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
         </Section>
       )}
 
-      <Section title="Finish by operation" id={`${idp}-ops`}>
-        <OperationsTable operations={summary.operations} />
+      <Section title={(summary.stages?.length ?? 0) > 1 ? "Finish by stage and operation" : "Finish by operation"} id={`${idp}-ops`}>
+        <OperationsTable operations={summary.operations} stages={summary.stages} />
       </Section>
     </div>
   );

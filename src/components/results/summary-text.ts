@@ -6,6 +6,7 @@
 import type { RunSummary } from "@sim/summary";
 import type { Scenario } from "@sim/schema";
 import { formatIsoDate, formatPercent } from "@/lib/format";
+import { stageLabel } from "@/lib/stage-text";
 
 /**
  * A run is called stable when the P80 of its two halves differs by at most this many days. Our own
@@ -33,6 +34,10 @@ export interface PlainSummary {
   season1: string | null;
   unfinished: string | null;
   convergence: { stable: boolean | null; text: string };
+  /** One line per stage when there are several: "Stage 1: North lane (L1): restored P50 … · P80 …". */
+  stages: string[];
+  /** Lane-closed hours over the whole job, or null for runs stored before the closure timeline. */
+  laneClosed: string | null;
 }
 
 export function daysText(d: number): string {
@@ -63,7 +68,15 @@ export function plainSummary(s: RunSummary): PlainSummary {
       stable: false,
       text: `P80 moved ${daysText(s.convergenceDays)} between the two halves of the run — run more iterations for a steadier P80.`,
     };
-  return { p80: quantileText(s.finish.p80), targetClause, percentiles, season1, unfinished, convergence };
+  const stages =
+    (s.stages?.length ?? 0) > 1
+      ? s.stages.map((st, i) => `${stageLabel(st.name, i)} (${st.lanes.join(", ")}): restored P50 ${quantileText(st.finish.p50)} · P80 ${quantileText(st.finish.p80)}`)
+      : [];
+  const hours = (x: number) => Math.round(x).toLocaleString("en-US");
+  const laneClosed = s.laneClosedHours
+    ? `Lane-closed hours: ${hours(s.laneClosedHours.total.p50)} P50 · ${hours(s.laneClosedHours.total.p80)} P80 (each closed lane counted every hour it is closed, nights and weekends behind barrier included).`
+    : null;
+  return { p80: quantileText(s.finish.p80), targetClause, percentiles, season1, unfinished, convergence, stages, laneClosed };
 }
 
 /** What P80 means, for a reader who does not schedule: one sentence under the headline. */

@@ -1,7 +1,10 @@
 /**
- * The planned lane closures of a scenario, read off the representative iteration's trace: for each closure
- * type, the union of the time its crews work or mobilize (packet spans minus their pauses), merged where the
- * gap is under half an hour. That is the plan the public is told about; later iterations may differ.
+ * The planned lane closures of a scenario: the representative iteration's closure timeline
+ * (RunSummary.representative.closureTimeline, MODEL.md "Closures that stand") — each period of a stage's
+ * standing closure and of each short-term closure, set-up and take-down included — in time order. That is the
+ * plan the public is told about; later iterations may differ. Runs stored before the timeline existed fall back
+ * to the trace: for each closure, the union of the time its crews work or mobilize (packet spans minus their
+ * pauses), merged where the gap is under half an hour.
  */
 import type { RunSummary } from "@sim/index";
 import { formatHours, parseIsoDate } from "@sim/dates";
@@ -10,6 +13,8 @@ export interface PlannedClosure {
   closureId: string;
   name: string;
   lanes: string[];
+  /** "standing": a stage's lanes behind barrier, round the clock; "short": while a crew works. */
+  kind: "standing" | "short";
   /** Hours since 00:00 of the scenario's start date, local time. */
   start: number;
   end: number;
@@ -39,7 +44,26 @@ function subtract(span: [number, number], holes: [number, number][]): [number, n
   return parts;
 }
 
+/** Local `YYYY-MM-DDTHH:mm` → hours since 00:00 of `day0` (a day number). */
+function hoursOf(iso: string, day0: number): number {
+  const t = /T(\d{2}):(\d{2})/.exec(iso);
+  return (parseIsoDate(iso.slice(0, 10)) - day0) * 24 + (t ? Number(t[1]) + Number(t[2]) / 60 : 0);
+}
+
 export function plannedClosures(summary: RunSummary, definition: DefinitionLike): PlannedClosure[] {
+  const timeline = summary.representative.closureTimeline;
+  if (timeline) {
+    const day0 = parseIsoDate(definition.startDate);
+    return timeline
+      .map((p) => ({ closureId: p.closure, name: p.name, lanes: p.lanes, kind: p.kind, start: hoursOf(p.start, day0), end: hoursOf(p.end, day0) }))
+      .filter((c) => c.end > c.start)
+      .sort((a, b) => a.start - b.start || a.closureId.localeCompare(b.closureId));
+  }
+  return crewClosures(summary, definition);
+}
+
+/** Runs stored before the closure timeline: closures read off the crews' working time. */
+function crewClosures(summary: RunSummary, definition: DefinitionLike): PlannedClosure[] {
   const closureOfOp = new Map(definition.operations.filter((o) => o.kind === "crew" && o.closure).map((o) => [o.id, o.closure!]));
   const pausesBy = new Map<string, [number, number][]>();
   for (const p of summary.representative.trace.pauses) {
@@ -62,11 +86,11 @@ export function plannedClosures(summary: RunSummary, definition: DefinitionLike)
     for (const [s, e] of list) {
       if (cur && s <= cur[1] + MERGE_GAP_HOURS) cur[1] = Math.max(cur[1], e);
       else {
-        if (cur) out.push({ closureId: c.id, name: c.name, lanes: c.lanesClosed, start: cur[0], end: cur[1] });
+        if (cur) out.push({ closureId: c.id, name: c.name, lanes: c.lanesClosed, kind: "short", start: cur[0], end: cur[1] });
         cur = [s, e];
       }
     }
-    if (cur) out.push({ closureId: c.id, name: c.name, lanes: c.lanesClosed, start: cur[0], end: cur[1] });
+    if (cur) out.push({ closureId: c.id, name: c.name, lanes: c.lanesClosed, kind: "short", start: cur[0], end: cur[1] });
   }
   return out.sort((a, b) => a.start - b.start || a.closureId.localeCompare(b.closureId));
 }

@@ -5,6 +5,7 @@
  */
 import { parseScenario } from "@sim/validate";
 import type { Distribution, Scenario } from "@sim/schema";
+import { stageSentence } from "@/lib/stage-text";
 import { formatIsoDate, formatStation } from "@/lib/format";
 
 const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
@@ -132,6 +133,15 @@ export function InputsSummary({ definition }: { definition: unknown }) {
         </table>
       </div>
 
+      <div>
+        <h3>Stages</h3>
+        <ul className="mt-1 list-disc space-y-0.5 pl-5" data-testid="inputs-stages">
+          {s.stages.map((_, i) => (
+            <li key={i}>{stageSentence(s, i)}</li>
+          ))}
+        </ul>
+      </div>
+
       <div className="grid gap-5 md:grid-cols-2">
         <div>
           <h3>Calendar</h3>
@@ -149,7 +159,8 @@ export function InputsSummary({ definition }: { definition: unknown }) {
               const windows = cal.closureWindows.filter((w) => w.closure === c.id);
               return (
                 <li key={c.id}>
-                  {c.name} (closes {c.lanesClosed.join(", ")}):{" "}
+                  {c.name} (closes {c.lanesClosed.join(", ")}
+                  {c.setupHours || c.takedownHours ? `; ${n(c.setupHours)} h set-up, ${n(c.takedownHours)} h take-down` : ""}):{" "}
                   {windows.length
                     ? windows.map((w) => `${w.dayTypes.join("/")} ${clock(w.startHour)}–${clock(w.endHour)}${w.endHour <= w.startHour ? " (overnight)" : ""}`).join("; ")
                     : "no windows"}

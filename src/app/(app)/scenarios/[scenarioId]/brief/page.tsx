@@ -7,6 +7,7 @@ import type { RunSummary } from "@sim/index";
 import { ResultsView } from "@/components/results";
 import { SafetyNote } from "@/components/safety-note";
 import { formatDateTime, formatIsoDate, formatPercent, formatStation } from "@/lib/format";
+import { stageSentence } from "@/lib/stage-text";
 import { PrintButton } from "./print-button";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
@@ -86,11 +87,14 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
             .
           </li>
           <li>Work days: {d.calendar.workDays.map((w) => DAYS[w]).join(", ")}; shifts: {d.calendar.shifts.map((sh) => `${sh.name} ${hour(sh.startHour)} for ${sh.lengthHours} h`).join("; ")}.</li>
+          {d.stages.map((_, i) => (
+            <li key={`stage-${i}`}>{stageSentence(d, i)}</li>
+          ))}
           <li>
-            Lane closures:{" "}
+            Short-term lane closures (while a crew works):{" "}
             {d.calendar.closures
-              .map((c) => `${c.name} (${c.lanesClosed.join(", ")}) ${d.calendar.closureWindows.filter((w) => w.closure === c.id).map((w) => `${w.dayTypes.join("/")} ${hour(w.startHour)}–${hour(w.endHour)}`).join(", ")}`)
-              .join("; ")}
+              .map((c) => `${c.name} (${c.lanesClosed.join(", ")}${c.setupHours || c.takedownHours ? `; ${c.setupHours} h set-up, ${c.takedownHours} h take-down` : ""}) ${d.calendar.closureWindows.filter((w) => w.closure === c.id).map((w) => `${w.dayTypes.join("/")} ${hour(w.startHour)}–${hour(w.endHour)}`).join(", ")}`)
+              .join("; ") || "none"}
             .
           </li>
           {d.operations.map((o) =>
