@@ -25,6 +25,8 @@ const PAGE_ROWS: Record<string, PageNeed> = {
   "/scenarios/[scenarioId]/progress": { kind: "scenario", action: "read" },
   "/scenarios/[scenarioId]/data": { kind: "scenario", action: "editScenario" },
   "/scenarios/[scenarioId]/share": { kind: "scenario", action: "shareScenario" },
+  // The week ahead: every member reads the board (the notice settings are shown only to those who may share).
+  "/scenarios/[scenarioId]/look-ahead": { kind: "scenario", action: "read" },
   // Plan search: everyone who reads the scenario sees its searches (the form only for those who may run it).
   "/scenarios/[scenarioId]/search": { kind: "scenario", action: "read" },
   "/scenarios/[scenarioId]/search/[searchId]": { kind: "scenario", action: "read" },
