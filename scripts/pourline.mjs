@@ -252,6 +252,29 @@ async function startFakeSmtp(port, mailboxDir, env) {
 }
 
 /**
+ * The engine worker beside the web server (`npm run worker` does the same by hand). Like a service manager,
+ * it is started again if it dies (a crash, or a test's `kill -9`), and stopped with everything else.
+ * `logFile`: its output also goes there, beside the app's (the tests read one log for both).
+ */
+function superviseWorker(env, logFile) {
+  let restarts = 0;
+  let stopped = false;
+  const launch = () => {
+    const child = spawnChild(join(root, "node_modules", ".bin", "tsx"), ["--conditions=react-server", join("workers", "server", "worker.ts")], env, logFile);
+    const started = Date.now();
+    child.on("exit", (code, signal) => {
+      if (stopped || shuttingDown) return;
+      restarts = Date.now() - started > 60_000 ? 0 : restarts + 1;
+      if (restarts > 5) return say("the engine worker keeps stopping; not starting it again (see the messages above).");
+      say(`the engine worker stopped (${signal ?? `exit ${code}`}); starting it again …`);
+      setTimeout(launch, 1_000);
+    });
+  };
+  launch();
+  return () => (stopped = true);
+}
+
+/**
  * The local stand-in for the weather service (scripts/fake-forecast.ts), unless FORECAST_BASE_URL already
  * points somewhere (the real service: FORECAST_BASE_URL=https://api.weather.gov).
  */
@@ -294,6 +317,7 @@ async function startMode() {
   if (ownDatabase || process.env.POURLINE_SEED_DEMO === "1") tsx("scripts/seed.ts", env, "demo seed");
   const host = process.env.HOST || "127.0.0.1";
   if (mode === "dev") {
+    superviseWorker(env);
     const dev = spawnChild(join(root, "node_modules", ".bin", "next"), ["dev", "-H", host, "-p", String(appPort)], env);
     await new Promise((res) => dev.on("exit", res));
     return;
@@ -313,6 +337,7 @@ async function startMode() {
     // The same machine under its other loopback name is the app's own origin too.
     POURLINE_ALLOWED_ORIGINS: process.env.POURLINE_ALLOWED_ORIGINS ?? (process.env.APP_BASE_URL ? "" : `http://127.0.0.1:${appPort}`),
   });
+  superviseWorker({ ...env, ...mailEnv, APP_BASE_URL: baseUrl, NODE_ENV: "production" });
   await waitForHttp(`http://${host === "0.0.0.0" || host === "::" ? "127.0.0.1" : host.includes(":") ? `[${host}]` : host}:${appPort}/signin`, 60_000);
   say(`Pourline is running at ${baseUrl}  (Ctrl-C stops the app and PostgreSQL)`);
   if (ownDatabase) say(`demo sign-ins:\n${demoSignIns()}`);
@@ -361,16 +386,20 @@ async function testMode() {
   // Short waits so the failure paths of the weather service are tested in seconds, and a quick notice pace.
   Object.assign(env, await startFakeForecast(await freePort(2750), env), { FORECAST_TIMEOUT_MS: "1500", FORECAST_RETRY_BASE_MS: "100", POURLINE_NOTICE_INTERVAL_MS: "2000" });
   serveApp({ ...env, PORT: String(appPort) }, appLog);
+  superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
   const extra = process.argv.slice(3);
-  // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) meanwhile.
+  // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) and
+  // restart the engine worker if a test (or a crash) stops it, meanwhile.
   const vitest = spawn(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
   const [code] = await new Promise((res) => vitest.on("exit", (...a) => res(a)));
   return code ?? 1;
 }
 
+let shuttingDown = false;
 async function shutdown(code) {
+  shuttingDown = true;
   for (const c of children) c.kill("SIGTERM");
   await new Promise((r) => setTimeout(r, children.size ? 500 : 0));
   try {

@@ -9,6 +9,7 @@ import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn as signedInAs } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+import { waitForJob } from "../helpers/jobs";
 
 let browser: Browser;
 let scenarioId: string;
@@ -19,7 +20,9 @@ beforeAll(async () => {
   const scheduler = await signInAs("scheduler");
   const projectId = (await kestrelProject(scheduler)).id;
   scenarioId = (await createPastScenario(scheduler, projectId, "E2E field log")).id;
-  expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: scheduler, body: { seed: "plan", iterations: 50 } })).status).toBe(201);
+  const planRun = await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: scheduler, body: { seed: "plan", iterations: 50 } });
+  expect(planRun.status).toBe(202);
+  expect((await waitForJob(planRun.body.job.id, scheduler)).status).toBe("completed");
 });
 afterAll(async () => {
   await browser?.close();

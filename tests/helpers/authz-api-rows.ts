@@ -16,6 +16,7 @@ import {
   newShareLink,
   newSubscriber,
   millingShift,
+  SMALL_SEARCH,
   tokenOf,
   uniq,
   unknownToken,
@@ -181,12 +182,49 @@ export const API_ROWS: Record<string, ApiRow> = {
   },
   "POST /api/scenarios/[scenarioId]/variants": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { name: uniq("variant") } }) },
   "GET /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
-  "POST /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "runScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { seed: "matrix", iterations: 10 } }) },
+  // Without a summary a run is an engine job (202); the same computation asked again is the same job.
+  "POST /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "runScenario" }, ok: 202, request: async (w) => ({ params: scen(w), body: { seed: "matrix", iterations: 10 } }) },
   "GET /api/runs/[runId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { runId: w.runId } }) },
   "GET /api/scenarios/[scenarioId]/exports/results.csv": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "GET /api/scenarios/[scenarioId]/exports/closures.ics": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "GET /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "POST /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: surveyForm() }) },
+
+  // ---- engine jobs and plan searches ----
+  "GET /api/jobs/[jobId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { jobId: w.jobId } }) },
+  // A cancel needs runScenario and being the job's owner, or a project administrator. The admin starts each
+  // victim, so for everyone else it is someone else's job: only an administrator may cancel it (the owner's
+  // own cancel is in tests/integration/jobs.test.ts). A fresh job per caller, big enough to be still queued or
+  // running when the cancel comes; whatever the answer, it is cancelled afterwards so no worker stays busy.
+  "DELETE /api/jobs/[jobId]": {
+    need: { kind: "scenario", action: "manageMembers" },
+    ok: 200,
+    request: async (w) => {
+      const queued = must(await call(`/api/scenarios/${w.target.id}/runs`, { method: "POST", cookie: admin(w), body: { seed: uniq("cancel"), iterations: 2_000 } }), 202, "job to cancel");
+      const path = `/api/jobs/${queued.job.id}`;
+      return {
+        params: { jobId: queued.job.id },
+        survives: async () => {
+          const alive = must(await call(path, { cookie: admin(w) }), 200, "job after cancel").job.status !== "cancelled";
+          if (alive) await call(path, { method: "DELETE", cookie: admin(w) });
+          return alive;
+        },
+      };
+    },
+  },
+  "GET /api/scenarios/[scenarioId]/searches": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "POST /api/scenarios/[scenarioId]/searches": {
+    need: { kind: "scenario", action: "runScenario" },
+    ok: 202,
+    request: async (w) => ({ params: scen(w), body: { name: uniq("search"), spec: SMALL_SEARCH } }),
+  },
+  "GET /api/searches/[searchId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { searchId: w.searchId } }) },
+  // Saving a variant as a scenario is an ordinary scenario save (the variant's choice exists from the start).
+  "POST /api/searches/[searchId]/scenarios": {
+    need: { kind: "scenario", action: "editScenario" },
+    ok: 201,
+    request: async (w) => ({ params: { searchId: w.searchId }, body: { idx: 1, name: uniq("from search") } }),
+  },
 
   // ---- sharing ----
   // The week ahead: every member reads the board; the daily notice is a sharing act; the location belongs to
@@ -250,7 +288,7 @@ export const API_ROWS: Record<string, ApiRow> = {
   "GET /api/scenarios/[scenarioId]/reforecast": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { scenarioId: w.field.id } }) },
   "POST /api/scenarios/[scenarioId]/reforecast": {
     need: { kind: "scenario", action: "runScenario" },
-    ok: 201,
+    ok: 202,
     request: async (w) => ({ params: { scenarioId: w.field.id }, body: { dataDate: isoDaysFromToday(-1), seed: "matrix", iterations: 10 } }),
   },
 };

@@ -26,6 +26,11 @@ const PAGE_ROWS: Record<string, PageNeed> = {
   "/scenarios/[scenarioId]/progress": { kind: "scenario", action: "read" },
   "/scenarios/[scenarioId]/data": { kind: "scenario", action: "editScenario" },
   "/scenarios/[scenarioId]/share": { kind: "scenario", action: "shareScenario" },
+  // The week ahead: every member reads the board (the notice settings are shown only to those who may share).
+  "/scenarios/[scenarioId]/look-ahead": { kind: "scenario", action: "read" },
+  // Plan search: everyone who reads the scenario sees its searches (the form only for those who may run it).
+  "/scenarios/[scenarioId]/search": { kind: "scenario", action: "read" },
+  "/scenarios/[scenarioId]/search/[searchId]": { kind: "scenario", action: "read" },
   // The local mail catcher: whether it is switched on is the machine owner's choice, but it never shows anyone
   // mail addressed to someone else (checked below).
   "/dev/mailbox": { kind: "mailbox" },
@@ -70,7 +75,7 @@ describe("the page table covers the app", () => {
 describe.each(pages.filter((p) => p in PAGE_ROWS))("page %s", (template) => {
   it.each(CALLERS)("as %s", async (caller) => {
     const want = expectedPage(PAGE_ROWS[template], caller);
-    const url = fillPath(template, { projectId: w.projectId, scenarioId: w.target.id });
+    const url = fillPath(template, { projectId: w.projectId, scenarioId: w.target.id, searchId: w.searchId });
     const [path, opts] = present(w, caller, url);
     const res = await call(path, opts);
     const where = `${url} as ${caller}: ${res.status} ${res.headers.get("location") ?? ""}`;

@@ -6,6 +6,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import ICAL from "ical.js";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { findMail } from "../../src/lib/server/mailbox";
+import { serverRunDone } from "../helpers/jobs";
 
 let engineer: string;
 let projectId: string;
@@ -48,7 +49,7 @@ describe("closure notices", () => {
   });
 
   it("publishing notifies every subscriber with the first closures and a calendar feed that parses and can be revoked", async () => {
-    expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: engineer, body: { seed: "notice", iterations: 20 } })).status).toBe(201);
+    expect((await serverRunDone(scenarioId, engineer, { seed: "notice", iterations: 20 })).status).toBe("completed");
     // The confirmation first shows what will be sent; publishing sends exactly that, with the new calendar link.
     const preview = await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer });
     expect(preview.status).toBe(200);

@@ -12,6 +12,7 @@ import { PrintButton } from "./print-button";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
 import { iterationsStatement } from "@/components/results/summary-text";
+import { VerificationBadge } from "@/components/results/verification-badge";
 
 export const metadata: Metadata = { title: "Owner brief" };
 
@@ -61,11 +62,11 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
               <p className="mt-1 text-xl font-semibold">{s.target ? `${formatPercent(s.target.probability)} chance` : "no target set"}</p>
             </div>
           </section>
-          {run.scenarioVersion !== scenario.version && (
+          {run.stale && (
             <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This forecast was computed from version {run.scenarioVersion}; the plan has changed since.</p>
           )}
           <p className="text-sm" data-testid="brief-iterations">
-            {iterationsStatement(s).text} Monte Carlo forecast, seed “{run.seed}”, computed {formatDateTime(run.createdAt)}. P80 means 80 % of the simulated outcomes
+            <VerificationBadge verification={run.verification} /> {iterationsStatement(s).text} Monte Carlo forecast, seed “{run.seed}”, computed {formatDateTime(run.createdAt)}. P80 means 80 % of the simulated outcomes
             finished on or before that date, given the assumptions below.
           </p>
           {iterationsStatement(s).warning && (
