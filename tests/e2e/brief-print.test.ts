@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { getDocument } from "pdfjs-dist/legacy/build/pdf.mjs";
 import { call, kestrelProject, signInAs } from "../helpers/app";
+import { serverRunDone } from "../helpers/jobs";
 import { launch } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
@@ -32,7 +33,7 @@ beforeAll(async () => {
   const variant = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: "E2E brief print" } });
   scenarioId = variant.body.id;
   // A small run (the server computes it): few enough iterations that the brief must warn.
-  expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie, body: { seed: "brief", iterations: 200 } })).status).toBe(201);
+  expect((await serverRunDone(scenarioId, cookie, { seed: "brief", iterations: 200 })).status).toBe("completed");
 }, 180_000);
 afterAll(async () => {
   await browser?.close();

@@ -1,15 +1,16 @@
 /**
  * A week-ahead fixture: the field-log deck (started three weeks ago, every day a work day, windows on every
- * day type) with holidays worked through and its one-day winter moved a month ahead, so no day of the board
- * is ever closed by the calendar; overlay placement gated at 45 °F and rising, no rain.
+ * day type) with holidays worked through and a one-day winter on New Year's Eve, so no day of the board is
+ * closed by the calendar outside the last week of December; overlay placement gated at 45 °F and rising, no rain.
  */
 import { call } from "./app";
-import { isoDaysFromToday, pastDefinition } from "./progress-fixture";
+import { pastDefinition } from "./progress-fixture";
 
 export function lookAheadDefinition(name: string): Record<string, any> {
   const def = pastDefinition(name);
-  const md = (n: number) => isoDaysFromToday(n).slice(5);
-  def.calendar.season = { plan: "single", winterStart: md(30), winterEnd: md(31) };
+  // A winter must run across the new year (MM-DD end before start), so the shortest one is New Year's Eve
+  // alone; it touches the board only when the tests run in the last week of December.
+  def.calendar.season = { plan: "single", winterStart: "12-31", winterEnd: "01-01" };
   def.calendar.holidays = { policy: "workThrough", observeFederal: true };
   def.timeZone = "America/Chicago";
   const overlay = def.operations.find((o: { id: string }) => o.id === "overlay");
