@@ -6,36 +6,57 @@ import { getLatestRun } from "@db/queries/runs";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { createShareLink } from "@db/queries/shares";
 import type { RunSummary } from "@sim/index";
-import { closureLocalTimes, plannedClosures } from "@/lib/exports/closures";
+import { closureLocalTimes } from "@/lib/exports/closures";
 import { AppError } from "./errors";
+import { closuresOfRun } from "./exports";
 import { enqueueMail } from "./mail/outbox";
 import { closureNoticeMail } from "./closure-notice-mail";
 import { validateDefinition } from "./scenario-input";
 import { newShareToken } from "./share-token";
 
 const FEED_DAYS = 365;
+/** The notice lists this many closures; the feed and the advisory carry them all. */
+const NOTICE_LINES = 12;
 
-/**
- * Publishing a closure plan: a read-only calendar feed (a share link of its own, so it can be revoked like any
- * other), the publication record and one notice per subscriber — all in one transaction, so either everyone is
- * told about a recorded publication or nothing happened.
- */
-export async function publishClosurePlan({ scenario, userId, baseUrl }: { scenario: ScenarioDetail; userId: string; baseUrl: string }) {
+/** What a publication of the latest (current) run would send: the same text the preview shows and the outbox gets. */
+async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: string; advisoryUrl: string }) {
   const run = await getLatestRun({ scenarioId: scenario.id });
   if (!run) throw new AppError("conflict", "Run the scenario before publishing its closures.");
   if (run.scenarioVersion !== scenario.version) throw new AppError("conflict", "The latest run is stale (the plan changed since). Run it again before publishing closures.");
   const definition = validateDefinition(scenario.definition);
-  const closures = plannedClosures(run.results as unknown as RunSummary, definition);
+  const closures = closuresOfRun(run.results as unknown as RunSummary);
   const [project, subscribers] = await Promise.all([getProject({ id: scenario.projectId }), listClosureSubscribers({ projectId: scenario.projectId })]);
+  const upcoming = closures.slice(0, NOTICE_LINES).map((c) => ({ ...closureLocalTimes(c, definition.startDate), name: c.name, lanes: c.lanes, kind: c.kind }));
+  const mail = (to: string) => closureNoticeMail({ to, structure: project?.structureName ?? scenario.name, timeZone: definition.timeZone, count: closures.length, upcoming, ...links });
+  return { run, closures, subscribers, mail };
+}
+
+/**
+ * What publishing would send, without sending it: the recipients, the notice as they would read it (the links
+ * are placeholders until the feed exists) and the run it comes from. Publishing must name that run, so what
+ * was previewed is what goes out.
+ */
+export async function previewClosurePlan({ scenario }: { scenario: ScenarioDetail }) {
+  const d = await draftPublication(scenario, { feedUrl: "(calendar feed link, made when you publish)", advisoryUrl: "(travel advisory link, made when you publish)" });
+  const m = d.mail("(each subscriber)");
+  return { runId: d.run.id, closureCount: d.closures.length, recipients: d.subscribers.map((s) => s.email), subject: m.subject, text: m.text };
+}
+
+/**
+ * Publishing a closure plan: a read-only calendar feed and travel advisory (a share link of their own, so they
+ * can be revoked like any other), the publication record and one notice per subscriber — all in one
+ * transaction, so either everyone is told about a recorded publication or nothing happened. `runId` is the run
+ * the user previewed; a newer run since then is refused rather than sent unseen.
+ */
+export async function publishClosurePlan({ scenario, userId, baseUrl, runId }: { scenario: ScenarioDetail; userId: string; baseUrl: string; runId?: string }) {
   const { token, tokenHash } = newShareToken();
-  const feedUrl = `${baseUrl}/api/shared/${token}/closures.ics`;
-  const upcoming = closures.slice(0, 12).map((c) => ({ ...closureLocalTimes(c, definition.startDate), name: c.name, lanes: c.lanes }));
+  const links = { feedUrl: `${baseUrl}/api/shared/${token}/closures.ics`, advisoryUrl: `${baseUrl}/advisory/${token}` };
+  const d = await draftPublication(scenario, links);
+  if (runId !== undefined && runId !== d.run.id) throw new AppError("conflict", "The plan was run again after your preview. Look at the new preview before publishing.");
   return getDb().transaction(async (tx) => {
-    const link = await createShareLink({ tx, scenarioId: scenario.id, tokenHash, label: "Closure calendar feed", userId, expiresAt: new Date(Date.now() + FEED_DAYS * 86_400_000) });
-    const publication = await insertClosurePublication({ tx, scenarioId: scenario.id, runId: run.id, shareLinkId: link.id, closureCount: closures.length, notified: subscribers.length, userId });
-    for (const s of subscribers) {
-      await enqueueMail(tx, closureNoticeMail({ to: s.email, structure: project?.structureName ?? scenario.name, timeZone: definition.timeZone, count: closures.length, upcoming, feedUrl }));
-    }
-    return { id: publication.id, publishedAt: publication.publishedAt, closureCount: closures.length, notified: subscribers.length, feedUrl };
+    const link = await createShareLink({ tx, scenarioId: scenario.id, tokenHash, label: "Closure calendar feed and travel advisory", userId, expiresAt: new Date(Date.now() + FEED_DAYS * 86_400_000) });
+    const publication = await insertClosurePublication({ tx, scenarioId: scenario.id, runId: d.run.id, shareLinkId: link.id, closureCount: d.closures.length, notified: d.subscribers.length, userId });
+    for (const s of d.subscribers) await enqueueMail(tx, d.mail(s.email));
+    return { id: publication.id, publishedAt: publication.publishedAt, closureCount: d.closures.length, notified: d.subscribers.length, ...links };
   });
 }

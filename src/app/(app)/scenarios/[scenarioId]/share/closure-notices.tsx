@@ -3,6 +3,7 @@ import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
 import { formatDateTime } from "@/lib/format";
+import { PublishPreviewDialog, type PublicationPreview } from "./publish-preview-dialog";
 
 interface Subscriber {
   id: string;
@@ -31,9 +32,10 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
     onSuccess: () => (setEmail(""), setLabel(""), qc.invalidateQueries({ queryKey: subsKey })),
   });
   const remove = useMutation({ mutationFn: (id: string) => api(`/api/projects/${projectId}/closure-subscribers/${id}`, { method: "DELETE" }), onSuccess: () => qc.invalidateQueries({ queryKey: subsKey }) });
+  const preview = useMutation({ mutationFn: () => api<PublicationPreview>(`/api/scenarios/${scenarioId}/closure-publications/preview`) });
   const publish = useMutation({
-    mutationFn: () => api<{ closureCount: number; notified: number; feedUrl: string }>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST" }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: pubsKey }),
+    mutationFn: (runId: string) => api<{ closureCount: number; notified: number; feedUrl: string; advisoryUrl: string }>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", body: { runId } }),
+    onSuccess: () => (preview.reset(), qc.invalidateQueries({ queryKey: pubsKey })),
   });
   const emailProblem = add.error instanceof ApiError ? add.error.fields.find((f) => f.path === "email")?.message : undefined;
 
@@ -98,19 +100,32 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
         </div>
         <div>
           <h3>Publish</h3>
-          <button type="button" className="btn-primary mt-2" disabled={publish.isPending} onClick={() => publish.mutate()} data-testid="publish-closures">
-            {publish.isPending ? "Publishing…" : `Publish closures and notify ${subs.data?.length ?? 0}`}
+          <button type="button" className="btn-primary mt-2" disabled={preview.isPending || publish.isPending} onClick={() => (publish.reset(), preview.mutate())} data-testid="publish-closures">
+            {preview.isPending ? "Preparing the preview…" : `Preview the notice to ${subs.data?.length ?? 0}…`}
           </button>
-          {publish.isError && (
+          {preview.isError && (
             <p role="alert" className="field-error">
-              {publish.error.message}
+              {preview.error.message}
             </p>
+          )}
+          {preview.data && (
+            <PublishPreviewDialog
+              preview={preview.data}
+              busy={publish.isPending}
+              error={publish.isError ? publish.error.message : null}
+              onConfirm={() => publish.mutate(preview.data!.runId)}
+              onCancel={() => (preview.reset(), publish.reset())}
+            />
           )}
           {publish.isSuccess && (
             <p role="status" className="mt-2 text-sm">
               Published {publish.data.closureCount} closures; {publish.data.notified} notice{publish.data.notified === 1 ? "" : "s"} queued. Calendar feed:{" "}
               <a className="break-all text-brand-700 underline" href={publish.data.feedUrl}>
                 {publish.data.feedUrl}
+              </a>
+              . Travel advisory:{" "}
+              <a className="break-all text-brand-700 underline" href={publish.data.advisoryUrl} data-testid="advisory-link">
+                {publish.data.advisoryUrl}
               </a>
             </p>
           )}
