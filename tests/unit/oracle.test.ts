@@ -360,8 +360,8 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
       demob: quarter(0, 8),
       remob: quarter(0, 4),
       // Closure set-up and take-down, and an optional second stage over part of the deck (MODEL.md "Stages").
-      setup: fc.array(quarter(0, 2), { minLength: 2, maxLength: 2 }),
-      takedown: fc.array(quarter(0, 2), { minLength: 2, maxLength: 2 }),
+      setup: fc.array(quarter(0, 1.5), { minLength: 2, maxLength: 2 }),
+      takedown: fc.array(quarter(0, 1.5), { minLength: 2, maxLength: 2 }),
       stage2: fc.option(
         fc.record({
           fromFt: fc.integer({ min: 0, max: 20 }).map((n) => n * 25),
@@ -443,7 +443,9 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
         x.stages = [
           { id: "s1", name: "Stage 1", lanes: ["L1"], standingLanesClosed: st.standing1 ? ["L1"] : [] },
           {
-            id: "s2", name: "Stage 2", lanes: ["L2"], fromStationFt: x.deck.startStationFt + Math.min(st.fromFt, g.lengthFt - 25),
+            // A packet boundary inside the deck, so the stage always holds a packet.
+            id: "s2", name: "Stage 2", lanes: ["L2"],
+            fromStationFt: x.deck.startStationFt + Math.min(st.fromFt / 25, Math.ceil(g.lengthFt / g.packetFt) - 1) * g.packetFt,
             standingLanesClosed: st.standing2 ? ["L2"] : [],
             operations: st.dropFirstOp && ids.length > 1 ? ids.slice(1) : ids,
             after: { stage: "s1", when: st.when, lagFt: st.lagFt, lagHours: st.lagHours },
