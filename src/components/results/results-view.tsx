@@ -9,6 +9,7 @@ import { parseScenario } from "@sim/validate";
 import type { RunSummary } from "@sim/summary";
 import { ConfidencePanel } from "./confidence-panel";
 import { DelayPanel } from "./delay-panel";
+import { QueueBreachDays } from "./queue-breach-days";
 import { FinishHistogram } from "./finish-histogram";
 import { OperationsTable } from "./operations-table";
 import { StatCards } from "./stat-cards";
@@ -111,6 +112,7 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
         description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, closure hours and the longest queue of each day."
       >
         <DelayPanel summary={summary} />
+        <QueueBreachDays summary={summary} />
       </Section>
 
       {plan && (
