@@ -6,7 +6,11 @@
 import { createEvents, type EventAttributes } from "ics";
 import { closureLabel, closureLocalTimes, localToUtc, type PlannedClosure } from "./closures";
 
-export function closuresToIcs(opts: { closures: PlannedClosure[]; startDate: string; timeZone: string; structure: string; scenario: string; uidSeed: string }): string {
+/**
+ * `advisoryUrl` (a published plan's feed) links each event to the public travel advisory; `note(c)` adds a line
+ * to an event's description (the expected longest backup while it stands).
+ */
+export function closuresToIcs(opts: { closures: PlannedClosure[]; startDate: string; timeZone: string; structure: string; scenario: string; uidSeed: string; advisoryUrl?: string; note?: (c: PlannedClosure) => string }): string {
   const events: EventAttributes[] = opts.closures.map((c, i) => {
     const local = closureLocalTimes(c, opts.startDate);
     const s = localToUtc(local.start, opts.timeZone);
@@ -24,7 +28,8 @@ export function closuresToIcs(opts: { closures: PlannedClosure[]; startDate: str
       endInputType: "utc",
       endOutputType: "utc",
       title: `${opts.structure}: ${closureLabel(c)}`,
-      description: `${what} Planned from scenario “${opts.scenario}”; times are planning estimates (local ${local.start} to ${local.end}, ${opts.timeZone}) and may change with weather and progress.`,
+      description: `${what} Planned from scenario “${opts.scenario}”; times are planning estimates (local ${local.start} to ${local.end}, ${opts.timeZone}) and may change with weather and progress.${opts.note ? ` ${opts.note(c)}` : ""}${opts.advisoryUrl ? ` Travel advisory: ${opts.advisoryUrl}` : ""}`,
+      ...(opts.advisoryUrl ? { url: opts.advisoryUrl } : {}),
       location: opts.structure,
       categories: [c.kind === "standing" ? "Long-term lane closure" : "Lane closure", c.closureId],
       status: "TENTATIVE",
