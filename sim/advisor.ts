@@ -32,8 +32,12 @@ export const DEFAULT_QUEUE_LIMIT: QueueLimit = { miles: 1 };
 /** The demand kind of the day after (an overnight window runs into it). */
 export const NEXT_KIND: Record<DemandKind, DemandKind> = { weekday: "weekday", friday: "saturday", saturday: "sunday", sunday: "weekday", holidayPeak: "holidayPeak" };
 
-/** Which calendar day types of a closure window fall on a day of each demand kind. */
-const WINDOW_DAY_TYPE: Record<DemandKind, DayType> = { weekday: "weekday", friday: "weekday", saturday: "saturday", sunday: "sunday", holidayPeak: "holiday" };
+/**
+ * Which calendar day types of a closure window can fall on a day of each demand kind. A holiday-peak day is
+ * the holiday (day type `holiday`) or its weekend, or the getaway weekday before it — where a `weekday` window
+ * meets holiday traffic — so both are checked against that demand.
+ */
+const WINDOW_DAY_TYPES: Record<DemandKind, DayType[]> = { weekday: ["weekday"], friday: ["weekday"], saturday: ["saturday"], sunday: ["sunday"], holidayPeak: ["holiday", "weekday"] };
 
 export interface HourAdvice {
   hour: number;
@@ -147,9 +151,9 @@ function closureSets(s: Scenario): { set: number; closure: string; withStage: st
 
 /** Window hours of a closure on a day kind: `[start, start + length)`, hours of the day. */
 function windowsOn(s: Scenario, closure: string, kind: DemandKind): { start: number; end: number; length: number }[] {
-  const dayType = WINDOW_DAY_TYPE[kind];
+  const dayTypes = WINDOW_DAY_TYPES[kind];
   return s.calendar.closureWindows
-    .filter((w) => w.closure === closure && w.dayTypes.includes(dayType))
+    .filter((w) => w.closure === closure && w.dayTypes.some((t) => dayTypes.includes(t)))
     .map((w) => ({ start: w.startHour, end: w.endHour, length: w.endHour > w.startHour ? w.endHour - w.startHour : 24 - w.startHour + w.endHour }));
 }
 

@@ -35,3 +35,9 @@ export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
     .limit(1);
   return row ?? null;
 }
+
+/** Whether a share link was made by a closure publication (it opens the feed and the advisory, not the scenario). */
+export async function isPublicationLink({ shareLinkId }: { shareLinkId: string }): Promise<boolean> {
+  const rows = await getDb().select({ id: closurePublications.id }).from(closurePublications).where(eq(closurePublications.shareLinkId, shareLinkId)).limit(1);
+  return rows.length > 0;
+}

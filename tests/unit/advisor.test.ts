@@ -82,10 +82,10 @@ describe("closure-hours advisor, hand-worked", () => {
     expect(weekday.hours.slice(6, 9).map((h) => h.longestClosureFrom)).toEqual([1, 1, 23]);
   });
 
-  it("day kinds without a window of the closure carry no planned check", () => {
+  it("day kinds without a window of the closure carry no planned check; a weekday window meets holiday-peak demand on the getaway day", () => {
     const advice = closureHoursAdvice(scenarioWith([{ startHour: 9, endHour: 15 }], WEEKDAY));
     expect(advice.map((a) => a.dayKind)).toEqual(["weekday", "friday", "saturday", "sunday", "holidayPeak"]);
-    expect(advice.filter((a) => a.planned).map((a) => a.dayKind)).toEqual(["weekday", "friday"]);
+    expect(advice.filter((a) => a.planned).map((a) => a.dayKind)).toEqual(["weekday", "friday", "holidayPeak"]);
   });
 });
 

@@ -2,6 +2,7 @@ import "server-only";
 import { getProject } from "@db/queries/projects";
 import { getLatestRun } from "@db/queries/runs";
 import { getScenario } from "@db/queries/scenarios";
+import { isPublicationLink } from "@db/queries/published-plans";
 import { findLiveShareLink } from "@db/queries/shares";
 import { AppError } from "./errors";
 import { hashShareToken } from "./share-token";
@@ -23,6 +24,8 @@ export async function sharedScenarioDetail(token: string) {
 
 export async function loadSharedScenario(token: string) {
   const link = await liveLink(token);
+  // A closure publication's token opens its calendar feed and travel advisory only, never the plan itself.
+  if (await isPublicationLink({ shareLinkId: link.id })) throw new AppError("not_found", GONE);
   const scenario = await getScenario({ id: link.scenarioId });
   if (!scenario) throw new AppError("not_found", GONE);
   const [project, run] = await Promise.all([getProject({ id: scenario.projectId }), getLatestRun({ scenarioId: scenario.id })]);
