@@ -121,7 +121,10 @@ if (json) {
     ...(s.cost ? [`Cost (${s.cost.valueOfTimeYear} $): road-user P50 ${money(s.cost.roadUser?.p50 ?? null)}, P80 ${money(s.cost.roadUser?.p80 ?? null)}; contract P50 ${money(s.cost.contract?.p50 ?? null)}, P80 ${money(s.cost.contract?.p80 ?? null)}`] : []),
     ...(trade
       ? [
-          `Holiday trade-off: working through holidays finishes ${trade.daysGained.p50 ?? "n/a"} days sooner at P50 (${trade.daysGained.p80 ?? "n/a"} at P80) for ${vh(trade.extraDelayVehHours.p50)} more delay (${money(trade.extraRoadUserCost.p50)}) at P50`,
+          `Holiday trade-off: working through holidays finishes ${trade.daysGained.p50 ?? "n/a"} days sooner at P50 (${trade.daysGained.p80 ?? "n/a"} at P80) for ${vh(trade.extraDelayVehHours.p50)} more delay (${money(trade.extraRoadUserCost.p50)}) at P50` +
+            `${trade.targetProbabilityChange !== null ? `; chance of meeting the target ${Math.round((trade.standDown.targetProbability ?? 0) * 100)} % → ${Math.round((trade.workThrough.targetProbability ?? 0) * 100)} %` : ""}` +
+            `${trade.workThrough.holidayBackupMiles ? `; longest holiday backup (P50) ${trade.standDown.holidayBackupMiles?.p50 ?? 0} → ${trade.workThrough.holidayBackupMiles.p50} mi` : ""}` +
+            `${trade.extraContractCost.p50 !== null ? `; contract cost ${trade.extraContractCost.p50 >= 0 ? "+" : "−"}${money(Math.abs(trade.extraContractCost.p50))}` : ""}`,
         ]
       : []),
   ];

@@ -39,3 +39,33 @@ export function queueBreachCounter(c: CompiledScenario, limitMiles: number) {
   };
   return { read, quantiles };
 }
+
+/**
+ * The longest queue on holiday-peak days (MODEL.md, "Traffic": demand kind `holidayPeak`), miles, per
+ * iteration — for the holiday trade-off's "longest holiday backup". Same reading rules as `queueBreachCounter`.
+ */
+export function holidayBackupReader(c: CompiledScenario) {
+  const m = impactModel(c);
+  const longest: number[] = [];
+  const read = (_k: number, r: SimResult) => {
+    if (!m?.traffic) return;
+    const t = m.traffic;
+    const detail: ImpactDetail = { perDirection: [] };
+    iterationImpact(c, m, r, detail);
+    let best = 0;
+    for (let d = 0; d < t.days; d++) {
+      if (t.dayKind[d] !== 4) continue;
+      t.directions.forEach((dir, i) => {
+        const mi = (detail.perDirection[i].peakQueue[d] * dir.pcPerVeh) / (t.jamDensity * dir.storageLanes);
+        if (mi > best) best = mi;
+      });
+    }
+    longest.push(best);
+  };
+  const quantiles = (): { p50: number; p80: number } | null => {
+    if (!m?.traffic || longest.length === 0) return null;
+    const sorted = sortedCopy(Float64Array.from(longest));
+    return { p50: Math.round(nearestRank(sorted, 0.5) * 100) / 100, p80: Math.round(nearestRank(sorted, 0.8) * 100) / 100 };
+  };
+  return { read, quantiles };
+}

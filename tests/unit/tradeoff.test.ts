@@ -1,4 +1,5 @@
 /** The holiday trade-off (sim/tradeoff.ts): same seeds, policy flipped. */
+import { tradeoffRows } from "../../src/components/results/tradeoff-table";
 import { describe, expect, it } from "vitest";
 import { holidayTradeoff, parseScenario, runScenario, withHolidayPolicy } from "../../sim/index";
 import type { ScenarioInput } from "../../sim/schema";
@@ -68,5 +69,35 @@ describe("holiday trade-off", () => {
     expect(t.workThrough.finish).toEqual({ p50: work.finish.p50, p80: work.finish.p80 });
     expect(t.standDown.delayVehHours).toEqual({ p50: stand.delay!.vehicleHours.p50, p80: stand.delay!.vehicleHours.p80 });
     expect(t.workThrough.roadUserCost).toEqual({ p50: work.cost!.roadUser!.p50, p80: work.cost!.roadUser!.p80 });
+    // Everything in one place: the chance of meeting the target, contract cost and their changes.
+    expect(t.standDown.targetProbability).toBe(stand.target!.probability);
+    expect(t.workThrough.targetProbability).toBe(work.target!.probability);
+    expect(t.targetProbabilityChange).toBeCloseTo(work.target!.probability - stand.target!.probability, 4);
+    expect(t.workThrough.contractCost).toEqual({ p50: work.cost!.contract!.p50, p80: work.cost!.contract!.p80 });
+    expect(t.extraContractCost.p50).toBe(work.cost!.contract!.p50! - stand.cost!.contract!.p50!);
+    // …and the results table says all of it in one place.
+    const rows = tradeoffRows(t);
+    expect(rows.map((r) => r.label)).toEqual([
+      "Finish (P50 / P80)",
+      "Chance of meeting the target",
+      "Delay to drivers, vehicle-hours (P50 / P80)",
+      "Longest holiday backup (P50 / P80)",
+      "Road-user cost (P50 / P80)",
+      "Contract cost (P50 / P80)",
+    ]);
+    expect(rows[1].standDown).toBe(`${(stand.target!.probability * 100).toFixed(0)} %`);
+    expect(rows[0].change).toBe(`${t.daysGained.p50} / ${t.daysGained.p80} days sooner`);
+  });
+
+  it("the longest holiday backup is the longest queue on a holiday-peak day, iteration by iteration", () => {
+    // One iteration: its longest holiday-peak queue is the largest day peak of the representative (the only
+    // iteration) on a holiday-peak day. Memorial Day 2027 is Mon 31 May; its peak days are Fri 28 – Mon 31.
+    const demo = parsed(loadScenario("kestrel-two-season.json"));
+    const t = holidayTradeoff(demo, "hol", 1);
+    const stand = runScenario(withHolidayPolicy(demo, "standDown"), { iterations: 1, seed: "hol" });
+    const memorial = stand.traffic!.days.filter((d) => d.date >= "2027-05-28" && d.date <= "2027-05-31").map((d) => d.peakQueueMiles);
+    expect(t.standDown.holidayBackupMiles!.p50).toBeGreaterThanOrEqual(Math.max(0, ...memorial) - 0.01);
+    const allDays = Math.max(...stand.traffic!.days.map((d) => d.peakQueueMiles));
+    expect(t.standDown.holidayBackupMiles!.p50).toBeLessThanOrEqual(allDays + 0.01);
   });
 });
