@@ -22,6 +22,9 @@ import { ClosureTimeline, type TimelineClosure } from "./timeline";
 /** A link into a stage operation: `need[i]` = last packet of `from` (deck index) B's packet i waits for, −1 none. */
 export interface CompiledPred {
   from: number;
+  /** `from`'s packet range [lo, hi): B's same packet counts only inside it. */
+  lo: number;
+  hi: number;
   lagHours: number;
   need: Int32Array;
 }
@@ -194,7 +197,7 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
       const a = mine.get(index.get(l.from)!);
       const b = mine.get(index.get(l.to)!);
       if (a === undefined || b === undefined) continue;
-      ops[b].preds.push({ from: a, lagHours: l.lagHours, need: need(ops[a], l.lagFt) });
+      ops[b].preds.push({ from: a, lo: ops[a].lo, hi: ops[a].hi, lagHours: l.lagHours, need: need(ops[a], l.lagFt) });
     }
     // Fleet rule: the same operation's previous stage operation, whole.
     for (const [oi, b] of mine) {
@@ -217,7 +220,7 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
     } else {
       const hasSucc = inStage(earlier, "from");
       const sinks = earlier.ops.filter((oi) => !hasSucc.has(oi)).map((oi) => at[earlier.index].get(oi)!);
-      for (const b of sources) for (const a of sinks) ops[b].preds.push({ from: a, lagHours: st.after.lagHours, need: need(ops[a], st.after.lagFt) });
+      for (const b of sources) for (const a of sinks) ops[b].preds.push({ from: a, lo: ops[a].lo, hi: ops[a].hi, lagHours: st.after.lagHours, need: need(ops[a], st.after.lagFt) });
     }
   }
 
@@ -289,8 +292,7 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
       let r = wholeReady;
       for (const pr of op.preds) {
         const fb = pr.from * P;
-        const from = c.ops[pr.from];
-        if (i >= from.lo && i < from.hi) {
+        if (i >= pr.lo && i < pr.hi) {
           const a = finish[fb + i] + pr.lagHours;
           if (a > r) r = a;
         }

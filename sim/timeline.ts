@@ -165,8 +165,18 @@ export class ClosureTimeline {
       for (let k = 0; k < p.counts[j]; k++) h += p.ends[j][k] - p.starts[j][k];
       this.byClosure[j] = h * popcount(this.masks[j]);
     }
-    const pc = this.pieces(-1);
-    for (let k = 0; k < pc.n; k++) total += (pc.ends[k] - pc.starts[k]) * popcount(this.unionMask(pc.sets[k]));
+    let used = 0;
+    let only = -1;
+    for (let j = 0; j < this.closures.length; j++)
+      if (p.counts[j] > 0 && this.masks[j] !== 0) {
+        used++;
+        only = j;
+      }
+    if (used === 1) total = this.byClosure[only]; // one closure: nothing overlaps
+    else if (used > 1) {
+      const pc = this.pieces(-1);
+      for (let k = 0; k < pc.n; k++) total += (pc.ends[k] - pc.starts[k]) * popcount(this.unionMask(pc.sets[k]));
+    }
     return { total, byClosure: this.byClosure, winterStanding };
   }
 

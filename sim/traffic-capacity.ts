@@ -102,8 +102,13 @@ export function timelineCapacityPieces(m: TrafficModel, dir: CompiledDirection, 
     out.caps = new Float64Array(size);
   }
   let n = 0;
+  let lastSet = -1;
+  let cap = Infinity;
   for (let k = 0; k < pc.n; k++) {
-    const cap = capacityOf(m, dir, pc.sets[k]);
+    if (pc.sets[k] !== lastSet) {
+      lastSet = pc.sets[k];
+      cap = capacityOf(m, dir, lastSet);
+    }
     if (cap === Infinity) continue;
     if (n > 0 && out.ends[n - 1] === pc.starts[k] && out.caps[n - 1] === cap) out.ends[n - 1] = pc.ends[k];
     else {

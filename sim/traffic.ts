@@ -303,12 +303,20 @@ function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number
 
 /** The `nextOver` table of a piece's capacity: that of a narrowing closure with exactly this capacity. */
 /** The `nextOver` table of a capacity, built the first time it is met. */
+let lastDir: CompiledDirection | null = null;
+let lastMu = NaN;
+let lastTable: Int32Array | null = null;
+
 function overTable(dir: CompiledDirection, mu: number): Int32Array {
+  if (dir === lastDir && mu === lastMu) return lastTable!;
   let t = dir.nextOver.get(mu);
   if (!t) {
     t = nextHourOver(dir.hourDemand, mu);
     dir.nextOver.set(mu, t);
   }
+  lastDir = dir;
+  lastMu = mu;
+  lastTable = t;
   return t;
 }
 
