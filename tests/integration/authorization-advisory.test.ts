@@ -95,7 +95,8 @@ describe("the public travel advisory: no sign-in, scoped to one published plan",
     expect(String(page.body)).toContain("lane closures and expected delays");
     const feed = await call(`/api/shared/${token}/closures.ics`);
     expect(feed.status).toBe(200);
-    expect(String(feed.body)).toContain(`/advisory/${token}`);
+    // iCalendar folds long lines (RFC 5545 §3.1): unfold before looking for the advisory link.
+    expect(String(feed.body).replace(/\r\n[ \t]/g, "")).toContain(`/advisory/${token}`);
   });
 
   it("the publication's token opens nothing else: not the shared scenario page or its JSON", async () => {

@@ -47,7 +47,7 @@ export function PublishPreviewDialog({ preview, busy, error, onConfirm, onCancel
           </ul>
         )}
         <h3 className="mt-4">Subject: {preview.subject}</h3>
-        <pre className="mt-2 max-h-72 overflow-auto whitespace-pre-wrap rounded-md border border-line bg-paper p-3 text-xs" data-testid="publish-text">
+        <pre tabIndex={0} aria-label="The notice as it will be sent" className="mt-2 max-h-72 overflow-auto whitespace-pre-wrap rounded-md border border-line bg-paper p-3 text-xs" data-testid="publish-text">
           {preview.text}
         </pre>
         {error && (
