@@ -65,7 +65,7 @@ export function ClosureHoursAdvisor() {
       {warnings.length > 0 ? (
         <div className="mt-4 rounded-md border border-bad bg-bad-bg p-3" data-testid="closure-advisor-warnings">
           <h3 className="text-bad">
-            {warnings.length} planned window{warnings.length === 1 ? "" : "s"} let the queue pass {describeLimit(limit)}
+            {warnings.length === 1 ? "1 planned window lets" : `${warnings.length} planned windows let`} the queue pass {describeLimit(limit)}
           </h3>
           <ul className="mt-2 list-disc space-y-1 pl-5 text-sm">
             {warnings.map((w) => (
