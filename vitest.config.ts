@@ -18,7 +18,8 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", include: ["tests/unit/**/*.test.ts", "sim/**/*.test.ts"], environment: "node" },
+        // Engine properties over the demos run whole Monte Carlo iterations: a guard against hangs, not a speed check.
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts", "sim/**/*.test.ts"], environment: "node", testTimeout: 60_000 },
       },
       {
         extends: true,

@@ -5,6 +5,10 @@
 import { drizzle, type PostgresJsDatabase } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 import * as schema from "./schema";
+import { installSafeDatabaseErrors } from "./safe-errors";
+
+// Query values never reach an error message (and so never a log): see db/safe-errors.ts.
+installSafeDatabaseErrors();
 
 export type Database = PostgresJsDatabase<typeof schema>;
 

@@ -7,6 +7,10 @@ export async function runMigrations(url: string): Promise<void> {
   const pool = createPool(url, 1);
   try {
     await migrate(pool.db, { migrationsFolder: fileURLToPath(new URL("./migrations", import.meta.url)) });
+    const [role] = await pool.sql`SELECT current_user AS name, rolsuper AS superuser FROM pg_roles WHERE rolname = current_user`;
+    if (role?.superuser) {
+      console.warn(`[pourline] warning: the database role "${role.name}" is a superuser. Connect the app as a role that owns its schema and nothing more (README, "Deploying safely").`);
+    }
   } finally {
     await pool.sql.end({ timeout: 5 });
   }

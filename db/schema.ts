@@ -38,12 +38,15 @@ export const users = pgTable("users", {
 });
 export type User = InferSelectModel<typeof users>;
 
+/** `id` is the SHA-256 of the cookie's token (src/lib/server/auth.ts); the token itself is never stored. */
 export const sessions = pgTable("sessions", {
   id: text("id").primaryKey(),
   userId: text("user_id")
     .notNull()
     .references(() => users.id, { onDelete: "cascade" }),
   expiresAt: ts("expires_at").notNull(),
+  /** Sign-in time: a session ends SESSION_ABSOLUTE_MS after it however often it is renewed. */
+  createdAt: ts("created_at").notNull().defaultNow(),
 });
 
 /** Failed sign-ins per key ("account:<email>" or "address:<ip>") in a sliding window. */
@@ -151,10 +154,16 @@ export const simulationRuns = pgTable(
 );
 export type SimulationRun = InferSelectModel<typeof simulationRuns>;
 
+/** What a share-link token opens: the read-only scenario page and its JSON, or only the closure calendar feed. */
+export const SHARE_SCOPES = ["scenario", "closure-feed"] as const;
+export type ShareScope = (typeof SHARE_SCOPES)[number];
+export const shareScopeEnum = pgEnum("share_scope", SHARE_SCOPES);
+
 export const shareLinks = pgTable(
   "share_links",
   {
     id: uuid("id").primaryKey().defaultRandom(),
+    scope: shareScopeEnum("scope").notNull().default("scenario"),
     scenarioId: uuid("scenario_id")
       .notNull()
       .references(() => scenarios.id, { onDelete: "cascade" }),
@@ -235,6 +244,9 @@ export const emailOutbox = pgTable(
   "email_outbox",
   {
     id: uuid("id").primaryKey().defaultRandom(),
+    /** Who caused the e-mail and on which project: what the sending quotas count (null for password resets). */
+    requestedById: text("requested_by").references(() => users.id, { onDelete: "set null" }),
+    projectId: uuid("project_id").references(() => projects.id, { onDelete: "set null" }),
     toAddress: text("to_address").notNull(),
     subject: text("subject").notNull(),
     textBody: text("text_body").notNull(),
@@ -246,7 +258,11 @@ export const emailOutbox = pgTable(
     createdAt: ts("created_at").notNull().defaultNow(),
     sentAt: ts("sent_at"),
   },
-  (t) => [index("outbox_pending_idx").on(t.status, t.nextAttemptAt)],
+  (t) => [
+    index("outbox_pending_idx").on(t.status, t.nextAttemptAt),
+    index("outbox_requested_by_idx").on(t.requestedById, t.createdAt),
+    index("outbox_project_idx").on(t.projectId, t.createdAt),
+  ],
 );
 
 export type NewScenario = InferInsertModel<typeof scenarios>;

@@ -170,12 +170,18 @@ export function buildAsBuilt(s: Scenario, records: ReadonlyArray<ProgressRecord>
   let inspected = 0;
   let found = 0;
   for (let i = 0; i < P; i++) {
-    const done = stageOps.some(({ op }, k) => op.kind === "crew" && op.discovers && ops[k].remaining[i] === 0);
-    if (!done) continue;
-    inspected++;
     const a = s0 + pStart(i);
     const b = s0 + pEnd(i);
-    if (items.some((it) => Math.min(b, it.toStationFt) - Math.max(a, it.fromStationFt) > EPS)) found++;
+    // Every stage-operation pair that discovers (a packet outside a pair's stage reads remaining 1).
+    const discovering = stageOps.map(({ op }, k) => (op.kind === "crew" && op.discovers ? ops[k].remaining[i] : 1));
+    const done = discovering.some((r) => r === 0);
+    const worked = discovering.some((r) => r < 1);
+    const hasItem = items.some((it) => Math.min(b, it.toStationFt) - Math.max(a, it.fromStationFt) > EPS);
+    // A packet partly worked by a discovering operation with a condition recorded in it has shown what it
+    // holds: it counts as inspected, so "found" never exceeds "inspected" (MODEL.md, "Re-forecast").
+    if (!done && !(worked && hasItem)) continue;
+    inspected++;
+    if (hasItem) found++;
   }
   const n0 = DISCOVERY_PRIOR_PACKETS;
   const updated = inspected === 0 ? prior.slice() : prior.map((p) => (n0 * p + found) / (n0 + inspected));

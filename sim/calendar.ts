@@ -206,8 +206,12 @@ function monthDayOf(md: string): [number, number] {
   return [Number(md.slice(0, 2)), Number(md.slice(3, 5))];
 }
 
-/** Holiday stand-down blocks: each holiday day extended over adjacent weekend days (and Thu → Fri). */
-function holidayBlocks(holidayDays: ReadonlyArray<number>, startDay: number): Pairs {
+/**
+ * Holiday stand-down blocks: each holiday day extended over adjacent weekend days (and Thu → Fri), with
+ * `throughMonday` also the Monday after a block ending on a weekend day; blocked from `startHour` of the
+ * day before the block to 24:00 of its last day.
+ */
+function holidayBlocks(holidayDays: ReadonlyArray<number>, startDay: number, startHour: number, throughMonday: boolean): Pairs {
   const out: Pairs = [];
   const isWeekend = (z: number) => {
     const w = weekdayOfDayNumber(z);
@@ -219,7 +223,8 @@ function holidayBlocks(holidayDays: ReadonlyArray<number>, startDay: number): Pa
     while (isWeekend(first - 1)) first--;
     if (weekdayOfDayNumber(h) === 4) last = h + 1;
     while (isWeekend(last + 1)) last++;
-    out.push(24 * (first - 1 - startDay) + 15, 24 * (last + 1 - startDay));
+    if (throughMonday && isWeekend(last)) last++;
+    out.push(24 * (first - 1 - startDay) + startHour, 24 * (last + 1 - startDay));
   }
   return out;
 }
@@ -247,7 +252,7 @@ export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS):
   }
 
   const blocked: Pairs = [];
-  if (cal.holidays.policy === "standDown") blocked.push(...holidayBlocks(holidayDays, startDay));
+  if (cal.holidays.policy === "standDown") blocked.push(...holidayBlocks(holidayDays, startDay, cal.holidays.standDownStartHour, cal.holidays.standDownThroughMonday));
   const [wsM, wsD] = monthDayOf(cal.season.winterStart);
   const [weM, weD] = monthDayOf(cal.season.winterEnd);
   const winterStarts: number[] = [];

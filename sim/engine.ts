@@ -49,6 +49,11 @@ export interface CompiledOp {
   profile: number; // gate profile index, -1 when no per-slot gate
   risingFirst: boolean;
   noRainAfter: number;
+  /** Protection window after a continuous packet: air ≥ protectMinF for protectHours (0 = none). */
+  protectMinF: number;
+  protectHours: number;
+  /** Wait operations: count only hours at or above this temperature (NaN = every hour counts). */
+  countAboveF: number;
   /** Any weather gate at all (per-slot, rising or no-rain-after). */
   gated: boolean;
   /** Packet links (the scenario's links inside the stage, and `restoredAhead` stage links). */
@@ -151,7 +156,10 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
       at[st.index].set(oi, ops.length);
       const common = { index: ops.length, op: oi, stage: st.index, id: op.id, stageId: st.id, lo: st.lo, hi: st.hi, preds: [] as CompiledPred[], whole: [] as CompiledOp["whole"] };
       if (op.kind === "wait") {
-        ops.push({ ...common, kind: "wait", crews: 0, continuous: false, mobilizationHours: 0, closure: -1, profile: -1, risingFirst: false, noRainAfter: 0, gated: false });
+        ops.push({
+          ...common, kind: "wait", crews: 0, continuous: false, mobilizationHours: 0, closure: -1, profile: -1,
+          risingFirst: false, noRainAfter: 0, protectMinF: -Infinity, protectHours: 0, countAboveF: op.countAboveF ?? NaN, gated: false,
+        });
         continue;
       }
       const prof = gateProfileOf(op);
@@ -164,6 +172,8 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
         }
         profile = profileIds.get(key)!;
       }
+      const pa = op.gates.protectAfter;
+      const protect = op.continuous && pa?.minTempF !== undefined && pa.hours !== undefined && pa.hours > 0;
       ops.push({
         ...common,
         kind: "crew",
@@ -174,7 +184,10 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
         profile,
         risingFirst: op.continuous && op.gates.rising === true,
         noRainAfter: op.continuous ? (op.gates.noRainHoursAfter ?? 0) : 0,
-        gated: profile >= 0 || (op.continuous && ((op.gates.noRainHoursAfter ?? 0) > 0 || op.gates.rising === true)),
+        protectMinF: protect ? pa!.minTempF! : -Infinity,
+        protectHours: protect ? pa!.hours! : 0,
+        countAboveF: NaN,
+        gated: profile >= 0 || protect || (op.continuous && ((op.gates.noRainHoursAfter ?? 0) > 0 || op.gates.rising === true)),
       });
     }
   }
@@ -307,10 +320,12 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
     }
     if (op.kind === "wait") {
       const dur = samples.waitHours[oi];
+      const above = op.countAboveF;
       for (let i = lo; i < hi; i++) {
-        finish[base + i] = ready[i] + dur;
+        const f = above === above ? w.warmCure(ready[i], dur, above) : ready[i] + dur;
+        finish[base + i] = f;
         started[base + i] = Infinity;
-        if (trace) trace.packets.push({ op: op.id, stage: op.stageId, packet: i, crew: -1, start: ready[i], finish: ready[i] + dur });
+        if (trace) trace.packets.push({ op: op.id, stage: op.stageId, packet: i, crew: -1, start: ready[i], finish: f });
       }
     } else {
       const rate = samples.rateFtPerHour[oi];
@@ -343,7 +358,6 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
         if (!crewMobilized[crew]) mob = op.mobilizationHours;
         else if (season > crewSeason[crew]) mob = c.scenario.calendar.season.remobilizeHours;
         crewMobilized[crew] = 1;
-        crewSeason[crew] = season;
         const m = mob > 0 ? w.mobilize(t0, mob, crew) : s;
         const ex = extra.length ? extra[i] : 0;
         discoveredHours += ex;
@@ -352,6 +366,9 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
         const f = op.continuous ? w.pour(m, hours, i, crew) : w.produce(m, hours, i, crew);
         finish[base + i] = f;
         started[base + i] = mob > 0 ? t0 : w.lastStart;
+        // "After a winter" counts from this packet's production start (MODEL.md, "Work"): a packet that waited
+        // through a winter and started after it leaves the crew in the new season, not the one it was claimed in.
+        crewSeason[crew] = w.lastStart < Infinity ? seasonAt(cal, w.lastStart) : season;
         queue.push(f, crew, crew);
         if (trace) {
           const tp: TracePacket = { op: op.id, stage: op.stageId, packet: i, crew, start: w.lastStart, finish: f };

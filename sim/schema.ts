@@ -5,9 +5,18 @@
  * Units: feet, hours (0–24 local clock), °F, mph, lb/ft²/h; dates are local `YYYY-MM-DD`.
  */
 import { z } from "zod";
+import { LIMITS } from "./limits";
+import { isKnownTimeZone, plainText, realIsoDate } from "./text";
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD");
-const monthDay = z.string().regex(/^\d{2}-\d{2}$/, "must be a month-day MM-DD");
+const isoDate = realIsoDate();
+const monthDay = z.string().max(5, { abort: true, error: "must be a month-day MM-DD" }).regex(/^\d{2}-\d{2}$/, "must be a month-day MM-DD");
+const count = (n: number) => n.toLocaleString("en-US");
+/** An array of at most `max` items; the message says how many were sent. */
+const upTo = <T extends z.ZodType>(item: T, max: number, what: string) =>
+  z.array(item).max(max, { error: (iss) => `at most ${count(max)} ${what} (got ${count((iss.input as unknown[]).length)})` });
+/** A one-line name: not empty, no control characters. */
+const name = (max: number = LIMITS.name) => plainText(max).min(1, "must not be empty");
+const laneName = name(LIMITS.laneName);
 const id = z
   .string()
   .min(1, "must not be empty")
@@ -39,7 +48,7 @@ export type DayType = z.infer<typeof dayTypeSchema>;
 
 export const shiftSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   startHour: hourOfDay,
   lengthHours: z.number().gt(0, "must be > 0").max(24, "a shift cannot be longer than 24 h"),
 });
@@ -50,8 +59,8 @@ export const shiftSchema = z.object({
  */
 export const closureSchema = z.object({
   id,
-  name: z.string().min(1).max(80),
-  lanesClosed: z.array(z.string().min(1)).min(1, "must close at least one lane"),
+  name: name(),
+  lanesClosed: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must close at least one lane"),
   /** Hours to set the closure up (signs, cones, crossover gates) before work can start; lanes count as closed. */
   setupHours: nonNeg.max(12, "must be ≤ 12 h").default(0),
   /** Hours to take it down after work stops; lanes count as closed. */
@@ -60,15 +69,20 @@ export const closureSchema = z.object({
 
 export const closureWindowSchema = z.object({
   closure: id,
-  dayTypes: z.array(dayTypeSchema).min(1, "must list at least one day type"),
+  dayTypes: upTo(dayTypeSchema, 4, "day types").min(1, "must list at least one day type"),
   startHour: hourOfDay,
   /** `endHour ≤ startHour` runs overnight into the next day. */
   endHour: hourOfDay,
 });
 
+const airTempF = z.number().min(-40, "must be ≥ −40 °F").max(140, "must be ≤ 140 °F");
+
 export const gatesSchema = z
   .object({
-    minTempF: z.number().min(-40).max(120).optional(),
+    minTempF: airTempF.optional(),
+    /** Maximum air temperature, °F (hot-weather limit). */
+    maxTempF: airTempF.optional(),
+    /** Not falling: T(k+1) ≥ T(k), judged from the hourly temperature (MODEL.md, "Weather"). */
     rising: z.boolean().optional(),
     noRain: z.boolean().optional(),
     noRainHoursAfter: nonNeg.max(72).optional(),
@@ -77,17 +91,36 @@ export const gatesSchema = z
     maxEvaporation: positive.optional(),
     /** Concrete temperature above air temperature for the evaporation estimate, °F. */
     concreteDeltaF: z.number().min(-20).max(40).optional(),
+    /**
+     * Continuous operations: after a packet's finish the air stays at or above `minTempF` for `hours`
+     * (no pour into a hard-freeze night). Both or neither: a half-filled pair is refused, an empty one is none.
+     */
+    protectAfter: z
+      .object({ minTempF: airTempF.optional(), hours: nonNeg.max(72, "must be ≤ 72 h").optional() })
+      .superRefine((p, ctx) => {
+        if (p.minTempF !== undefined && p.hours === undefined)
+          ctx.addIssue({ code: "custom", path: ["hours"], message: "set how many hours the protection lasts (or clear its temperature)" });
+        if (p.hours !== undefined && p.minTempF === undefined)
+          ctx.addIssue({ code: "custom", path: ["minTempF"], message: "set the temperature to protect above (or clear its hours)" });
+      })
+      // An empty pair (a form with both fields blank) is no protection, and parses to none.
+      .transform((p) => (p.minTempF === undefined && p.hours === undefined ? undefined : p))
+      .optional(),
+  })
+  .superRefine((g, ctx) => {
+    if (g.minTempF !== undefined && g.maxTempF !== undefined && g.maxTempF < g.minTempF)
+      ctx.addIssue({ code: "custom", path: ["maxTempF"], message: "must be ≥ the minimum temperature" });
   })
   .default({});
 export type Gates = z.infer<typeof gatesSchema>;
 
 const crewOperationSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   kind: z.literal("crew"),
   rate: z.object({ unit: z.enum(["ftPerHour", "ftPerShift"]), dist: distributionSchema }),
   crews: z.number().int("must be a whole number").min(1, "must be ≥ 1").max(10),
-  shifts: z.array(id).min(1, "must list at least one shift"),
+  shifts: upTo(id, LIMITS.calendarItems, "shifts").min(1, "must list at least one shift"),
   /** The short-term closure the crew needs on top of its stage's standing closure; absent = the standing closure alone. */
   closure: id.optional(),
   mobilizationHours: nonNeg.max(240).default(0),
@@ -98,9 +131,11 @@ const crewOperationSchema = z.object({
 
 const waitOperationSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   kind: z.literal("wait"),
   durationHours: distributionSchema,
+  /** Count only hours with the air at or above this temperature, °F (cure counted in warm hours). */
+  countAboveF: airTempF.optional(),
 });
 
 export const operationSchema = z.discriminatedUnion("kind", [crewOperationSchema, waitOperationSchema]);
@@ -134,13 +169,13 @@ export type StageAfter = z.infer<typeof stageAfterSchema>;
 export const stageSchema = z
   .object({
     id,
-    name: z.string().min(1).max(80),
-    lanes: z.array(z.string().min(1)).min(1, "must rehabilitate at least one lane"),
+    name: name(),
+    lanes: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must rehabilitate at least one lane"),
     /** Absolute stations, [from, to); default the whole deck. */
     fromStationFt: nonNeg.optional(),
     toStationFt: nonNeg.optional(),
-    standingLanesClosed: z.array(z.string().min(1)).optional(),
-    operations: z.array(id).min(1, "must list at least one operation").optional(),
+    standingLanesClosed: upTo(laneName, LIMITS.lanes, "lanes").optional(),
+    operations: upTo(id, LIMITS.operations, "operations").min(1, "must list at least one operation").optional(),
     /** Absent: after the previous stage when it is done (the first stage has none). */
     after: stageAfterSchema.optional(),
     /** Override: veh/h for each direction the standing closure narrows (e.g. traffic shifted to a crossover). */
@@ -175,7 +210,7 @@ export const weatherSchema = z.object({
   serialCorrelation: z.number().min(0).max(0.95).default(0.6),
   rainHoursMean: z.number().min(1).max(24).default(6),
   /** Deterministic wet dates (rain all day), for tests and what-ifs in fixed mode. */
-  fixedWetDates: z.array(isoDate).default([]),
+  fixedWetDates: upTo(isoDate, LIMITS.dates, "dates").default([]),
 });
 export type Weather = z.infer<typeof weatherSchema>;
 
@@ -191,9 +226,9 @@ const hourlyVolumes = z.array(z.number().min(0, "must be ≥ 0").max(20_000, "mu
 /** Traffic of one direction over the deck (./traffic). Day types of demand differ from closure day types. */
 export const trafficDirectionSchema = z.object({
   id,
-  name: z.string().min(1).max(60),
+  name: name(),
   /** Deck lanes this direction uses (names from deck.lanes); the queue stores in all of them. */
-  lanes: z.array(z.string().min(1)).min(1, "must use at least one lane"),
+  lanes: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must use at least one lane"),
   /** Share of heavy vehicles (trucks, buses) in the volumes, 0–1. */
   heavyVehicleShare: z.number().min(0).max(1).default(0.1),
   /** veh/h by hour. `friday` is Friday; `holidayPeak` the days around each federal holiday (MODEL.md, "Traffic"). */
@@ -231,8 +266,8 @@ export const trafficSchema = z.object({
   /** Rate at which a queue discharges once every lane is open again, pc/h/ln. */
   openRoadPcPerHourPerLane: z.number().min(500).max(2_800).default(2_000),
   jamDensityPcPerMiPerLane: z.number().min(100).max(300).default(190),
-  directions: z.array(trafficDirectionSchema).max(4),
-  closures: z.array(trafficClosureSchema).default([]),
+  directions: upTo(trafficDirectionSchema, 4, "directions"),
+  closures: upTo(trafficClosureSchema, LIMITS.closures, "closures").default([]),
 });
 export type Traffic = z.infer<typeof trafficSchema>;
 
@@ -260,31 +295,39 @@ export type Costs = z.infer<typeof costsSchema>;
 export const scenarioSchema = z.object({
   /** Version 1 input is upgraded by `upgradeScenario` (./upgrade) before it is parsed. */
   schemaVersion: z.literal(2, "must be 2 (version 1 scenarios are upgraded on reading)"),
-  name: z.string().min(1, "must not be empty").max(120),
-  description: z.string().max(2000).default(""),
+  name: name(),
+  description: plainText(LIMITS.description, { multiline: true }).default(""),
   startDate: isoDate,
   targetDate: isoDate.optional(),
-  timeZone: z.string().min(1).default("America/Chicago"),
+  timeZone: z
+    .string()
+    .max(LIMITS.timeZone, { abort: true, error: (iss) => `must be an IANA time zone such as America/Chicago (got ${count(String(iss.input).length)} characters)` })
+    .refine(isKnownTimeZone, { error: (iss) => `"${String(iss.input)}" is not an IANA time zone (e.g. America/Chicago)` })
+    .default("America/Chicago"),
   deck: z.object({
     startStationFt: nonNeg,
     lengthFt: z.number().gt(0, "must be > 0").max(50_000),
     packetFt: z.number().min(10, "must be ≥ 10").max(1_000).default(100),
-    lanes: z.array(z.string().min(1)).min(1, "must name at least one lane").max(16, "at most 16 lanes"),
-    survey: z.array(surveyRangeSchema).default([]),
+    lanes: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must name at least one lane"),
+    survey: upTo(surveyRangeSchema, LIMITS.surveyRanges, "survey ranges").default([]),
   }),
   discovered: z
     .object({ defaultProbability: z.number().min(0).max(1), extraHours: distributionSchema })
     .default({ defaultProbability: 0, extraHours: { type: "fixed", value: 0 } }),
   calendar: z.object({
-    shifts: z.array(shiftSchema).min(1, "must define at least one shift"),
-    workDays: z.array(z.number().int().min(0).max(6)).min(1, "must list at least one work day"),
+    shifts: upTo(shiftSchema, LIMITS.calendarItems, "shifts").min(1, "must define at least one shift"),
+    workDays: upTo(z.number().int().min(0).max(6), 7, "work days").min(1, "must list at least one work day"),
     /** Short-term closures; a plan may have none (its stages' standing closures alone). */
-    closures: z.array(closureSchema).max(18, "at most 18 closures"),
-    closureWindows: z.array(closureWindowSchema),
+    closures: upTo(closureSchema, LIMITS.closures, "closures"),
+    closureWindows: upTo(closureWindowSchema, LIMITS.calendarItems, "closure windows"),
     holidays: z.object({
       policy: z.enum(["standDown", "workThrough"]),
       observeFederal: z.boolean().default(true),
-      blackoutDates: z.array(isoDate).default([]),
+      blackoutDates: upTo(isoDate, LIMITS.dates, "dates").default([]),
+      /** Stand-down starts at this hour of the day before the holiday block (0 = the whole day before). */
+      standDownStartHour: hourOfDay.default(15),
+      /** Also stand down the Monday after a block that ends on a Saturday or Sunday. */
+      standDownThroughMonday: z.boolean().default(false),
     }),
     season: z.object({
       plan: z.enum(["single", "two"]),
@@ -296,10 +339,10 @@ export const scenarioSchema = z.object({
       cutoffStationFt: nonNeg.optional(),
     }),
   }),
-  operations: z.array(operationSchema).min(1, "must have at least one operation").max(30),
+  operations: upTo(operationSchema, LIMITS.operations, "operations").min(1, "must have at least one operation"),
   /** The work in stages, in the order they are built (MODEL.md, "Stages"); one stage over all lanes is the simple plan. */
-  stages: z.array(stageSchema).min(1, "must have at least one stage").max(12, "at most 12 stages"),
-  links: z.array(linkSchema),
+  stages: upTo(stageSchema, LIMITS.stages, "stages").min(1, "must have at least one stage"),
+  links: upTo(linkSchema, LIMITS.links, "links"),
   weather: weatherSchema,
   /** Optional: demand and capacity for queues and delay (absent = no traffic model, results unchanged). */
   traffic: trafficSchema.optional(),

@@ -8,32 +8,10 @@ import { formatDayNumber, formatHours } from "./dates";
 import type { CompiledScenario } from "./engine";
 import type { PartialRun } from "./montecarlo";
 import { nearestRank, sortedCopy } from "./percentiles";
+import type { ClosurePeriodSummary, LaneClosedDay, LaneClosedHours } from "./run-summary-schema";
 
-export interface ClosurePeriodSummary {
-  /** Short-term closure id, or `stage:<stage id>` for a stage's standing closure. */
-  closure: string;
-  name: string;
-  kind: "short" | "standing";
-  lanes: string[];
-  /** Local ISO date-times `YYYY-MM-DDTHH:mm`, [start, end). */
-  start: string;
-  end: string;
-}
-
-export interface LaneClosedDay {
-  date: string;
-  /** Lane-hours closed that day: ∫ |lanes closed| (overlapping closures count each lane once). */
-  total: number;
-  /** Per closure id: |lanes| · hours standing that day. */
-  byClosure: Record<string, number>;
-}
-
-export interface LaneClosedHours {
-  total: { p50: number; p80: number };
-  byClosure: { closure: string; name: string; kind: "short" | "standing"; lanes: string[]; p50: number; p80: number }[];
-  /** The representative iteration, day by day (days with a lane closed), ascending. */
-  byDay: LaneClosedDay[];
-}
+// The shapes are the run-result contract's (./run-summary-schema), so the two cannot drift apart.
+export type { ClosurePeriodSummary, LaneClosedDay, LaneClosedHours } from "./run-summary-schema";
 
 const round = (x: number, digits: number) => {
   const f = 10 ** digits;

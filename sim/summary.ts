@@ -6,7 +6,8 @@
  * chart only draws. The representative iteration is re-simulated with its trace.
  * With a traffic or costs section: `delay`, `cost` (P50/P80; null where the input is missing or a
  * percentile is reached only by unfinished iterations) and `traffic` (the representative day by day).
- * Without them these keys are absent, so such summaries are unchanged.
+ * Without them these keys are absent, so such summaries are unchanged. The type and its strict check are
+ * `./run-summary-schema` (the run-result contract).
  */
 import { impactModel, iterationImpact, type ImpactDetail, type ImpactModel } from "./cost";
 import { formatDayNumber, formatHours, parseIsoDate } from "./dates";
@@ -14,70 +15,15 @@ import { simulate, type CompiledScenario, type Trace } from "./engine";
 import type { PartialRun } from "./montecarlo";
 import { nearestRank, sortedCopy } from "./percentiles";
 import { drawSamples } from "./samples";
-import { laneClosedSummary, representativeClosures, type ClosurePeriodSummary, type LaneClosedHours } from "./summary-closures";
+import { laneClosedSummary, representativeClosures } from "./summary-closures";
+import type { DateQuantiles, NumberQuantiles, RunSummary, TrafficDay, TrafficDetail } from "./run-summary-schema";
 
-export type DateQuantiles = { p10: string; p50: string; p80: string; p90: string };
+export type { RunSummary, DateQuantiles, NumberQuantiles, TrafficDay, TrafficDetail } from "./run-summary-schema";
 
-export interface RunSummary {
-  scenarioName: string;
-  seed: string;
-  iterations: number;
-  unfinishedIterations: number;
-  startDate: string;
-  finish: DateQuantiles;
-  finishAt: DateQuantiles;
-  operations: { id: string; name: string; finish: DateQuantiles }[];
-  /** Each stage's restoration, in stage order. */
-  stages: { id: string; name: string; lanes: string[]; finish: DateQuantiles }[];
-  histogram: { from: string; to: string; count: number }[];
-  cdf: { date: string; p: number }[];
-  target: { date: string; probability: number } | null;
-  weatherLostShifts: { p50: number; p80: number };
-  discoveredHours: { p50: number; p80: number };
-  /** Lane-closed hours of the closure timeline: P50/P80 over iterations; by day for the representative. */
-  laneClosedHours: LaneClosedHours;
-  /** Share of iterations in which a stage's standing closure stood in a winter. */
-  winterStandingShare: number;
-  /** |P80(first half) − P80(second half)| in days; null when it cannot be computed. */
-  convergenceDays: number | null;
-  season1End: { p50: string } | null;
-  /** The iteration whose finish is nearest the P50 (lowest index on ties), re-simulated with its trace. */
-  representative: { iteration: number; finish: string; finishHours: number; trace: Trace; closureTimeline: ClosurePeriodSummary[] };
-  /** Work-zone delay over all directions, veh-h (present with a traffic model). */
-  delay?: { vehicleHours: NumberQuantiles };
-  /** $ in the dollars of `valueOfTimeYear` (present with a traffic model or a costs section). */
-  cost?: { roadUser: NumberQuantiles | null; contract: NumberQuantiles | null; valueOfTimeYear: number };
-  /** The representative iteration's traffic, day by day (present with a traffic model). */
-  traffic?: TrafficDetail;
-}
-
-/** null = reached only by unfinished iterations. */
-export type NumberQuantiles = { p50: number | null; p80: number | null; mean: number | null };
-
-export interface TrafficDay {
-  date: string;
-  /** Lane-hours closed per closure id that day (the closure timeline). */
-  laneClosedHours: Record<string, number>;
-  delayVehHours: number;
-  /** The longest queue of the day over the directions: vehicles, miles and its direction. */
-  peakQueueVeh: number;
-  peakQueueMiles: number;
-  direction: string | null;
-  /** When the day's longest queue cleared (local date-time), null if no queue or still standing at the horizon. */
-  clearsAt: string | null;
-}
-
-export interface TrafficDetail {
-  iteration: number;
-  delayVehHours: number;
-  roadUserCost: number | null;
-  contractCost: number | null;
-  workingDays: number;
-  jamDensityPcPerMiPerLane: number;
-  maxQueue: { miles: number; vehicles: number; date: string } | null;
-  /** Days with a lane closed or delay, ascending. */
-  days: TrafficDay[];
-}
+// Compile-time guard: the engine's trace and the contract's trace are the same shape.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+const traceMatchesContract: Same<Trace, RunSummary["representative"]["trace"]> = true;
+void traceMatchesContract;
 
 const UNFINISHED = "unfinished";
 
@@ -285,7 +231,7 @@ function representativeIndex(p: PartialRun, p50: number): number {
   return best;
 }
 
-function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): { representative: RunSummary["representative"]; byDay: LaneClosedHours["byDay"] } {
+function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): { representative: RunSummary["representative"]; byDay: RunSummary["laneClosedHours"]["byDay"] } {
   const k = p.from + representativeIndex(p, p50);
   const r = simulate(c, drawSamples(c.scenario, p.seed, k), { trace: true });
   const cl = representativeClosures(c);

@@ -5,16 +5,13 @@
  * - "stand down": `holidays.policy = "standDown"`, windows unchanged;
  * - "work through": `holidays.policy = "workThrough"`, and every closure window that opens on weekdays also
  *   opens on holidays (as the demo's holiday-work variant does) — otherwise holiday days would stay closed.
- * Days gained = calendar days between the finish percentiles (stand down − work through); extra delay,
- * road-user and contract cost = work through − stand down, at the same percentile; the chance of meeting the
- * target under each policy and its change; the longest queue on holiday-peak days (P50/P80 over iterations of
- * each iteration's longest, ./queue-breaches).
+ * Days gained = calendar days between the finish percentiles (stand down − work through); extra delay and
+ * road-user cost = work through − stand down, at the same percentile.
  */
-import { formatDayNumber } from "./dates";
+import { formatDayNumber, parseIsoDate } from "./dates";
 import { compileScenario } from "./engine";
 import { runIterations } from "./montecarlo";
 import { holidayBackupReader } from "./queue-breaches";
-import { parseIsoDate } from "./dates";
 import { nearestRank, sortedCopy } from "./percentiles";
 import type { Scenario } from "./schema";
 
@@ -36,15 +33,17 @@ export interface PolicyOutcome {
   /** Percentile values; null = reached only by unfinished iterations or no traffic model. */
   delayVehHours: { p50: number | null; p80: number | null };
   roadUserCost: { p50: number | null; p80: number | null };
-  contractCost: { p50: number | null; p80: number | null };
-  /** Share of iterations finished by the target date (null without one). */
+  /** Share of iterations finished by 24:00 of the target date; null without a target. */
   targetProbability: number | null;
-  /** Longest queue on holiday-peak days, miles, P50/P80 over iterations (null without traffic). */
+  /** Contract cost percentiles ($); null without a costs section. */
+  contractCost: { p50: number | null; p80: number | null };
+  /** Longest queue on holiday-peak days, miles, P50/P80 over iterations of each one's longest (null without traffic). */
   holidayBackupMiles: { p50: number; p80: number } | null;
 }
 
 export interface HolidayTradeoff {
   seed: string;
+  targetDate: string | null;
   iterations: number;
   hasTraffic: boolean;
   standDown: PolicyOutcome;
@@ -53,9 +52,10 @@ export interface HolidayTradeoff {
   daysGained: { p50: number | null; p80: number | null };
   extraDelayVehHours: { p50: number | null; p80: number | null };
   extraRoadUserCost: { p50: number | null; p80: number | null };
-  extraContractCost: { p50: number | null; p80: number | null };
-  /** Work through − stand down, in probability (e.g. 0.12 = twelve points more likely); null without a target. */
+  /** Change in the chance of meeting the target by working through (share, e.g. 0.12); null without a target. */
   targetProbabilityChange: number | null;
+  /** Extra contract cost of working through ($, P50 and P80); null without costs. */
+  extraContractCost: { p50: number | null; p80: number | null };
 }
 
 function outcome(s: Scenario, policy: HolidayPolicy, seed: string, iterations: number): { out: PolicyOutcome; finishDay: { p50: number; p80: number } } {
@@ -66,18 +66,15 @@ function outcome(s: Scenario, policy: HolidayPolicy, seed: string, iterations: n
   const fin = sortedCopy(run.finish);
   const delay = sortedCopy(run.delayVehHours);
   const ruc = sortedCopy(run.roadUserCost);
-  const contract = sortedCopy(run.contractCost);
-  const hasCosts = !Number.isNaN(run.contractCost[0]);
-  const money = (x: number) => (hasCosts && Number.isFinite(x) ? Math.round(x) : null);
-  let targetProbability: number | null = null;
-  if (s.targetDate) {
-    const limit = 24 * (parseIsoDate(s.targetDate) - day0 + 1);
-    targetProbability = run.finish.filter((f) => f <= limit).length / run.finish.length;
-  }
   const hasTraffic = !Number.isNaN(run.roadUserCost[0]);
   const val = (x: number, digits: number) => (hasTraffic && Number.isFinite(x) ? Math.round(x * 10 ** digits) / 10 ** digits : null);
   const day = (h: number) => (h < Infinity ? Math.floor(h / 24) : Infinity);
   const date = (h: number) => (h < Infinity ? formatDayNumber(day0 + day(h)) : "unfinished");
+  const contract = sortedCopy(run.contractCost);
+  const hasContract = run.contractCost.length > 0 && !Number.isNaN(run.contractCost[0]);
+  const money = (x: number) => (hasContract && Number.isFinite(x) ? Math.round(x) : null);
+  const limit = s.targetDate ? 24 * (parseIsoDate(s.targetDate) - day0 + 1) : null;
+  const targetProbability = limit === null ? null : run.finish.reduce((n, f) => n + (f <= limit ? 1 : 0), 0) / run.finish.length;
   const f50 = nearestRank(fin, 0.5);
   const f80 = nearestRank(fin, 0.8);
   return {
@@ -86,8 +83,8 @@ function outcome(s: Scenario, policy: HolidayPolicy, seed: string, iterations: n
       finish: { p50: date(f50), p80: date(f80) },
       delayVehHours: { p50: val(nearestRank(delay, 0.5), 1), p80: val(nearestRank(delay, 0.8), 1) },
       roadUserCost: { p50: val(nearestRank(ruc, 0.5), 0), p80: val(nearestRank(ruc, 0.8), 0) },
-      contractCost: { p50: money(nearestRank(contract, 0.5)), p80: money(nearestRank(contract, 0.8)) },
       targetProbability,
+      contractCost: { p50: money(nearestRank(contract, 0.5)), p80: money(nearestRank(contract, 0.8)) },
       holidayBackupMiles: backups.quantiles(),
     },
     finishDay: { p50: day(f50), p80: day(f80) },
@@ -103,6 +100,7 @@ export function holidayTradeoff(s: Scenario, seed: string, iterations: number): 
   const gained = (a: number, b: number) => (Number.isFinite(a) && Number.isFinite(b) ? a - b : null);
   return {
     seed,
+    targetDate: s.targetDate ?? null,
     iterations,
     hasTraffic: stand.out.delayVehHours.p50 !== null || work.out.delayVehHours.p50 !== null,
     standDown: stand.out,
@@ -116,10 +114,10 @@ export function holidayTradeoff(s: Scenario, seed: string, iterations: number): 
       p50: minus(work.out.roadUserCost.p50, stand.out.roadUserCost.p50, 0),
       p80: minus(work.out.roadUserCost.p80, stand.out.roadUserCost.p80, 0),
     },
+    targetProbabilityChange: minus(work.out.targetProbability, stand.out.targetProbability, 6),
     extraContractCost: {
       p50: minus(work.out.contractCost.p50, stand.out.contractCost.p50, 0),
       p80: minus(work.out.contractCost.p80, stand.out.contractCost.p80, 0),
     },
-    targetProbabilityChange: minus(work.out.targetProbability, stand.out.targetProbability, 4),
   };
 }

@@ -194,15 +194,11 @@ function calendarProblems(s: Scenario): FieldProblem[] {
       });
       return;
     }
-    const rising = op.gates.rising === true;
-    if (rising && !op.continuous && !anyRisingOpen(a) && !anyRisingOpen(b)) {
-      out.push({ path: `operations[${i}].gates.rising`, message: `"${op.id}" is never open between 06:00 and 15:00, so the rising gate never passes` });
-      return;
-    }
+    // `rising` is judged from the weather (MODEL.md), not the clock: a warm night can rise, so it limits no hour here.
     if (!op.continuous) return;
     const maxRate = distributionBounds(op.rate.dist).max * (op.rate.unit === "ftPerShift" ? 1 / shifts[0].lengthHours : 1);
     const hours = Math.min(s.deck.packetFt, s.deck.lengthFt) / maxRate;
-    const best = Math.max(longestFit(a, hours, rising), longestFit(b, hours, rising));
+    const best = Math.max(longestInterval(a), longestInterval(b));
     if (best < hours - 1e-9) {
       out.push({
         path: `operations[${i}]`,
@@ -215,26 +211,9 @@ function calendarProblems(s: Scenario): FieldProblem[] {
 
 const round = (x: number) => Math.round(x * 100) / 100;
 
-function anyRisingOpen(p: number[]): boolean {
-  for (let i = 0; i < p.length; i += 2) {
-    for (let k = Math.floor(p[i]); k < p[i + 1]; k++) if (k % 24 >= 6 && k % 24 < 15) return true;
-  }
-  return false;
-}
-
-/** Longest time available after a candidate start (interval start or whole hour; rising if required). */
-function longestFit(p: number[], hours: number, rising: boolean): number {
+/** Longest open interval: a continuous packet starts at its beginning at the earliest. */
+function longestInterval(p: number[]): number {
   let best = 0;
-  for (let i = 0; i < p.length; i += 2) {
-    const [a, b] = [p[i], p[i + 1]];
-    if (!rising) {
-      best = Math.max(best, b - a);
-      continue;
-    }
-    for (let t = a; t < b; t = t === a && !Number.isInteger(a) ? Math.ceil(a) : t + 1) {
-      if (Math.floor(t) % 24 >= 6 && Math.floor(t) % 24 < 15) best = Math.max(best, b - t);
-      if (best >= hours) return best;
-    }
-  }
+  for (let i = 0; i < p.length; i += 2) best = Math.max(best, p[i + 1] - p[i]);
   return best;
 }

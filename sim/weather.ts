@@ -24,6 +24,10 @@
  * - `hourlyTempF`: minimum tmin at 06:00, maximum tmax at 15:00, half-cosine rise between them and
  *   half-cosine fall from 15:00 to 06:00 of the next day (continuous at midnight). Before 06:00 of day 0,
  *   day 0's own tmax stands in for the missing previous afternoon.
+ * - `hourlyRhPct(series, k)`: the day's dew point holds the day's RH at the daily mean temperature
+ *   (tmax + tmin)/2; RH(k) = 100·e_s(T_d)/e_s(T(k)) = rh_day·e_s(T_mean)/e_s(T(k)), at most 100, with the
+ *   Magnus formula (`saturationVaporPressureHpa`). The day is that of hour k.
+ * - `hourlyWindMph(series, k)`: W_day·(1 + 0.3·cos(2π(h − 15)/24)), h the clock hour of k (`WIND_FACTOR`).
  * Per generated day nothing is allocated and no Date object is used.
  */
 import type { Weather } from "./schema";
@@ -256,22 +260,30 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
 const RISE_HOURS = 9; // 06:00 → 15:00
 const FALL_HOURS = 15; // 15:00 → 06:00 next day
 
+// The half-cosine weights at whole hours, (1 ∓ cos)/2, computed with the very expression used for
+// fractional hours: halving is exact, so a table value gives the same bits as the inline formula.
+const RISE_W = Float64Array.from({ length: RISE_HOURS + 1 }, (_, i) => (1 - Math.cos((Math.PI * i) / RISE_HOURS)) / 2);
+const FALL_W = Float64Array.from({ length: FALL_HOURS + 1 }, (_, i) => (1 + Math.cos((Math.PI * i) / FALL_HOURS)) / 2);
+
 /** Air temperature at `hour` (hours since 00:00 of day 0, may be fractional). */
 export function hourlyTempF(series: WeatherSeries, hour: number): number {
   if (hour < 0) hour = 0; // no weather before day 0
   const d = Math.floor(hour / 24);
   if (d + 1 >= series.length) series.ensure(d + 2);
   const h = hour - d * 24;
+  const whole = h === Math.floor(h);
   if (h >= 6 && h <= 15) {
     const lo = series.tminF[d];
-    return lo + ((series.tmaxF[d] - lo) * (1 - Math.cos((Math.PI * (h - 6)) / RISE_HOURS))) / 2;
+    const w = whole ? RISE_W[h - 6] : (1 - Math.cos((Math.PI * (h - 6)) / RISE_HOURS)) / 2;
+    return lo + (series.tmaxF[d] - lo) * w;
   }
   // Falling branch from the afternoon of day `from` to 06:00 of day `from + 1`.
   const from = h > 15 ? d : d - 1;
   const since = h > 15 ? h - 15 : h + 9;
   const hi = from >= 0 ? series.tmaxF[from] : series.tmaxF[0];
   const lo = series.tminF[from + 1];
-  return lo + ((hi - lo) * (1 + Math.cos((Math.PI * since) / FALL_HOURS))) / 2;
+  const w = whole ? FALL_W[since] : (1 + Math.cos((Math.PI * since) / FALL_HOURS)) / 2;
+  return lo + (hi - lo) * w;
 }
 
 /** True when rain falls in the hour slot [k, k + 1); k counts hours since 00:00 of day 0. */
@@ -291,4 +303,49 @@ export function isRainHour(series: WeatherSeries, hourSlot: number): boolean {
     if (h + 24 < end) return true;
   }
   return false;
+}
+
+/**
+ * Saturation vapour pressure over water, hPa, at `tC` °C: the Magnus form e_s = 6.1094·exp(17.625·T/(T + 243.04))
+ * (Alduchov & Eskridge 1996, "Improved Magnus form approximation of saturation vapor pressure", J. Appl.
+ * Meteor. 35(4), 601–609; their recommended coefficients).
+ */
+export function saturationVaporPressureHpa(tC: number): number {
+  return 6.1094 * Math.exp((17.625 * tC) / (tC + 243.04));
+}
+
+const fToC = (f: number) => ((f - 32) * 5) / 9;
+
+/** e_s at the day's dew point: rh_day/100 · e_s(daily mean temperature), hPa. */
+export function dewPointVaporHpa(series: WeatherSeries, day: number): number {
+  return (series.rhPct[day] / 100) * saturationVaporPressureHpa(fToC((series.tmaxF[day] + series.tminF[day]) / 2));
+}
+
+/** RH (%) at air temperature `airF` with a dew-point vapour pressure `vaporHpa`, capped at 100. */
+export function rhFromVapor(vaporHpa: number, airF: number): number {
+  const rh = (100 * vaporHpa) / saturationVaporPressureHpa(fToC(airF));
+  return rh > 100 ? 100 : rh;
+}
+
+/** Relative humidity (%) at the whole hour `k` (MODEL.md, "Weather"). */
+export function hourlyRhPct(series: WeatherSeries, k: number): number {
+  const d = Math.floor(k / 24);
+  if (d + 1 >= series.length) series.ensure(d + 2);
+  return rhFromVapor(dewPointVaporHpa(series, d), hourlyTempF(series, k));
+}
+
+/**
+ * Diurnal wind factor by clock hour: 1 + 0.3·cos(2π(h − 15)/24), strongest at 15:00 (1.3), weakest at 03:00
+ * (0.7), mean 1 over the day. The 30 % amplitude is common practice, no published source.
+ */
+export const WIND_FACTOR: Float64Array = Float64Array.from({ length: 24 }, (_, h) => 1 + 0.3 * Math.cos((2 * Math.PI * (h - 15)) / 24));
+export const WIND_FACTOR_MIN = Math.min(...WIND_FACTOR);
+export const WIND_FACTOR_MAX = Math.max(...WIND_FACTOR);
+
+/** Wind (mph) in the hour slot starting at the whole hour `k`. */
+export function hourlyWindMph(series: WeatherSeries, k: number): number {
+  const h = Math.floor(k);
+  const d = Math.floor(h / 24);
+  if (d >= series.length) series.ensure(d + 1);
+  return series.windMph[d] * WIND_FACTOR[h - 24 * d];
 }

@@ -8,7 +8,8 @@
  */
 import { firstIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
 import type { CompiledOp, PauseRecord } from "./engine";
-import { GateCache, pour, produce, type WorkSink } from "./gates";
+import type { GateCache } from "./gates";
+import { pour, produce, warmCureFinish, type WorkSink } from "./production";
 import type { WeatherSeries } from "./weather";
 import { EventQueue } from "./queue";
 import type { ClosurePeriods as ClosureSegments } from "./timeline";
@@ -165,8 +166,12 @@ export class WorkContext implements WorkSink {
     this.packet = packet;
     this.crew = crew;
     const iv = this.opCal.open;
-    const op = this.op;
-    return pour(iv, firstIntervalAfter(iv, from), this.gates, op.profile, op.risingFirst, op.noRainAfter, from, hours, this);
+    return pour(iv, firstIntervalAfter(iv, from), this.gates, this.op, from, hours, this);
+  }
+
+  /** A wait of `hours` from `ready` counted only in slots at or above `aboveF` (MODEL.md, warm-hour cure). */
+  warmCure(ready: number, hours: number, aboveF: number): number {
+    return warmCureFinish(this.gates, aboveF, ready, hours, this.cal.horizonHours);
   }
 
   production(a: number, b: number): void {

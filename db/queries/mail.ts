@@ -5,7 +5,7 @@ import "server-only";
  * `next_attempt_at` pushed forward by a lease, so a process that dies mid-send leaves the row to be
  * retried once the lease runs out instead of losing it.
  */
-import { and, asc, desc, eq, inArray, lte } from "drizzle-orm";
+import { and, asc, count, desc, eq, gte, inArray, lte, sql } from "drizzle-orm";
 import { getDb, type Database } from "../client";
 import { emailOutbox } from "../schema";
 
@@ -18,12 +18,26 @@ export function inTransaction<T>(fn: (tx: DbTx) => Promise<T>): Promise<T> {
   return getDb().transaction(fn);
 }
 
-export async function insertOutboxMessage({ tx, to, subject, text, html }: { tx: Executor; to: string; subject: string; text: string; html?: string | null }) {
+export async function insertOutboxMessage({ tx, to, subject, text, html, requestedById = null, projectId = null }: { tx: Executor; to: string; subject: string; text: string; html?: string | null; requestedById?: string | null; projectId?: string | null }) {
   const [row] = await tx
     .insert(emailOutbox)
-    .values({ toAddress: to, subject, textBody: text, htmlBody: html ?? null })
+    .values({ toAddress: to, subject, textBody: text, htmlBody: html ?? null, requestedById, projectId })
     .returning({ id: emailOutbox.id });
   return row;
+}
+
+/**
+ * E-mails queued since `since` by a user and on a project, counted after taking a transaction-scoped lock per
+ * user and per project (always in that order, so two senders cannot deadlock). The locks are held until the
+ * caller's transaction ends, so a concurrent sender waits and then counts this transaction's rows too: the
+ * quota cannot be overshot by requests arriving at once.
+ */
+export async function lockAndCountRecentMail({ tx, userId, projectId, since }: { tx: DbTx; userId: string; projectId: string | null; since: Date }) {
+  await tx.execute(sql`SELECT pg_advisory_xact_lock(hashtext(${`mail-quota:user:${userId}`}))`);
+  if (projectId) await tx.execute(sql`SELECT pg_advisory_xact_lock(hashtext(${`mail-quota:project:${projectId}`}))`);
+  const [byUser] = await tx.select({ n: count() }).from(emailOutbox).where(and(eq(emailOutbox.requestedById, userId), gte(emailOutbox.createdAt, since)));
+  const [byProject] = projectId ? await tx.select({ n: count() }).from(emailOutbox).where(and(eq(emailOutbox.projectId, projectId), gte(emailOutbox.createdAt, since))) : [{ n: 0 }];
+  return { byUser: byUser.n, byProject: byProject.n };
 }
 
 /**
@@ -68,7 +82,8 @@ export async function getOutboxMessage({ db = getDb(), id }: { db?: Database; id
   return row ?? null;
 }
 
-export async function listOutbox({ limit = 50 }: { limit?: number } = {}) {
+/** Outbox rows addressed to one person (the dev mailbox shows nobody anyone else's mail). */
+export async function listOutbox({ toAddress, limit = 50 }: { toAddress: string; limit?: number }) {
   return getDb()
     .select({
       id: emailOutbox.id,
@@ -82,6 +97,7 @@ export async function listOutbox({ limit = 50 }: { limit?: number } = {}) {
       sentAt: emailOutbox.sentAt,
     })
     .from(emailOutbox)
+    .where(eq(sql`lower(${emailOutbox.toAddress})`, toAddress.trim().toLowerCase()))
     .orderBy(desc(emailOutbox.createdAt))
     .limit(limit);
 }

@@ -43,25 +43,30 @@ export async function listMembers({ projectId }: { projectId: string }) {
     .orderBy(asc(users.name));
 }
 
-export async function upsertMember({ projectId, userId, role }: { projectId: string; userId: string; role: Role }) {
-  await getDb()
-    .insert(projectMembers)
-    .values({ projectId, userId, role })
-    .onConflictDoUpdate({ target: [projectMembers.projectId, projectMembers.userId], set: { role } });
-}
+export type MembershipChange = { ok: true } | { ok: false; reason: "not_member" | "last_admin" };
 
-export async function removeMember({ projectId, userId }: { projectId: string; userId: string }) {
-  const rows = await getDb()
-    .delete(projectMembers)
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, userId)))
-    .returning({ userId: projectMembers.userId });
-  return rows.length > 0;
-}
-
-export async function countAdmins({ projectId }: { projectId: string }) {
-  const rows = await getDb()
-    .select({ userId: projectMembers.userId })
-    .from(projectMembers)
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.role, "admin")));
-  return rows.length;
+/**
+ * The one way a role changes: `role` sets (adding the person if needed), `null` removes. In one transaction
+ * that first locks the project row, so concurrent changes to the same project's members run one after the
+ * other; a change that would leave the project without an administrator is refused ("last_admin") and
+ * nothing is written.
+ */
+export async function changeMembership({ projectId, userId, role }: { projectId: string; userId: string; role: Role | null }): Promise<MembershipChange> {
+  return getDb().transaction(async (tx) => {
+    await tx.select({ id: projects.id }).from(projects).where(eq(projects.id, projectId)).for("update");
+    const members = await tx.select({ userId: projectMembers.userId, role: projectMembers.role }).from(projectMembers).where(eq(projectMembers.projectId, projectId));
+    const current = members.find((m) => m.userId === userId)?.role ?? null;
+    if (role === null && current === null) return { ok: false, reason: "not_member" };
+    const adminsAfter = members.filter((m) => m.role === "admin" && m.userId !== userId).length + (role === "admin" ? 1 : 0);
+    if (adminsAfter === 0 && members.some((m) => m.role === "admin")) return { ok: false, reason: "last_admin" };
+    if (role === null) {
+      await tx.delete(projectMembers).where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, userId)));
+    } else {
+      await tx
+        .insert(projectMembers)
+        .values({ projectId, userId, role })
+        .onConflictDoUpdate({ target: [projectMembers.projectId, projectMembers.userId], set: { role } });
+    }
+    return { ok: true };
+  });
 }

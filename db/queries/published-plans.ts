@@ -30,14 +30,8 @@ export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
     .innerJoin(scenarios, eq(scenarios.id, shareLinks.scenarioId))
     .innerJoin(projects, eq(projects.id, scenarios.projectId))
     .innerJoin(scenarioRevisions, and(eq(scenarioRevisions.scenarioId, simulationRuns.scenarioId), eq(scenarioRevisions.version, simulationRuns.scenarioVersion)))
-    .where(and(eq(shareLinks.tokenHash, tokenHash), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())))
+    .where(and(eq(shareLinks.tokenHash, tokenHash), eq(shareLinks.scope, "closure-feed"), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())))
     .orderBy(desc(closurePublications.publishedAt))
     .limit(1);
   return row ?? null;
-}
-
-/** Whether a share link was made by a closure publication (it opens the feed and the advisory, not the scenario). */
-export async function isPublicationLink({ shareLinkId }: { shareLinkId: string }): Promise<boolean> {
-  const rows = await getDb().select({ id: closurePublications.id }).from(closurePublications).where(eq(closurePublications.shareLinkId, shareLinkId)).limit(1);
-  return rows.length > 0;
 }

@@ -1,15 +1,19 @@
 import "server-only";
-import { and, desc, eq, gt, isNull } from "drizzle-orm";
+import { and, desc, eq, gt, inArray, isNull } from "drizzle-orm";
 import { getDb } from "../client";
-import { shareLinks, users } from "../schema";
+import { shareLinks, users, type ShareScope } from "../schema";
 import type { Executor } from "./mail";
 
-/** `tx` lets the caller write the link in its own transaction (e.g. with the e-mails that carry it). */
-export async function createShareLink(input: { scenarioId: string; tokenHash: string; label: string; userId: string; expiresAt: Date; tx?: Executor }) {
+/**
+ * `scope` is what the token will open: "scenario" (the read-only page and its JSON, and the feed) or
+ * "closure-feed" (the calendar feed only). `tx` lets the caller write the link in its own transaction
+ * (e.g. with the e-mails that carry it).
+ */
+export async function createShareLink(input: { scenarioId: string; tokenHash: string; label: string; userId: string; expiresAt: Date; scope: ShareScope; tx?: Executor }) {
   const [row] = await (input.tx ?? getDb())
     .insert(shareLinks)
-    .values({ scenarioId: input.scenarioId, tokenHash: input.tokenHash, label: input.label, createdById: input.userId, expiresAt: input.expiresAt })
-    .returning({ id: shareLinks.id, expiresAt: shareLinks.expiresAt, createdAt: shareLinks.createdAt });
+    .values({ scenarioId: input.scenarioId, tokenHash: input.tokenHash, label: input.label, createdById: input.userId, expiresAt: input.expiresAt, scope: input.scope })
+    .returning({ id: shareLinks.id, scope: shareLinks.scope, expiresAt: shareLinks.expiresAt, createdAt: shareLinks.createdAt });
   return row;
 }
 
@@ -18,6 +22,7 @@ export async function listShareLinks({ scenarioId }: { scenarioId: string }) {
     .select({
       id: shareLinks.id,
       label: shareLinks.label,
+      scope: shareLinks.scope,
       expiresAt: shareLinks.expiresAt,
       revokedAt: shareLinks.revokedAt,
       createdAt: shareLinks.createdAt,
@@ -38,11 +43,14 @@ export async function revokeShareLink({ id }: { id: string }) {
   await getDb().update(shareLinks).set({ revokedAt: new Date() }).where(and(eq(shareLinks.id, id), isNull(shareLinks.revokedAt)));
 }
 
-/** A link that is revoked or expired is treated exactly like one that never existed. */
-export async function findLiveShareLink({ tokenHash }: { tokenHash: string }) {
+/**
+ * A live link of one of the `scopes`. A link that is revoked, expired or of another scope is treated exactly
+ * like one that never existed.
+ */
+export async function findLiveShareLink({ tokenHash, scopes }: { tokenHash: string; scopes: readonly ShareScope[] }) {
   const [row] = await getDb()
     .select()
     .from(shareLinks)
-    .where(and(eq(shareLinks.tokenHash, tokenHash), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())));
+    .where(and(eq(shareLinks.tokenHash, tokenHash), inArray(shareLinks.scope, [...scopes]), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())));
   return row ?? null;
 }

@@ -20,31 +20,36 @@ export async function createUser(u: { id: string; email: string; name: string; t
 }
 
 /**
- * Records one failed sign-in for `key` and returns the failures inside the current window.
- * The window restarts when it is older than `windowMs`; done in one statement so concurrent
- * attempts cannot both slip under the limit.
+ * Reserves one attempt for `key` before the attempt is made: in one statement, counts it if fewer than `max`
+ * were counted in the current window (a window older than `windowMs` starts again at 1) and returns the new
+ * count, or null when the limit is already reached. Concurrent callers queue on the row lock, so no more than
+ * `max` of them can ever get a reservation in one window — the check and the count cannot drift apart.
  */
-export async function recordFailedSignIn({ key, windowMs }: { key: string; windowMs: number }): Promise<number> {
+export async function reserveAttempt({ key, windowMs, max }: { key: string; windowMs: number; max: number }): Promise<number | null> {
   // Passed as text with a cast: the driver does not serialise a Date inside a raw SQL fragment.
   const windowStart = sql`${new Date(Date.now() - windowMs).toISOString()}::timestamptz`;
+  const expired = sql`${signInAttempts.windowStart} < ${windowStart}`;
   const [row] = await getDb()
     .insert(signInAttempts)
     .values({ key, failures: 1, windowStart: new Date() })
     .onConflictDoUpdate({
       target: signInAttempts.key,
       set: {
-        failures: sql`CASE WHEN ${signInAttempts.windowStart} < ${windowStart} THEN 1 ELSE ${signInAttempts.failures} + 1 END`,
-        windowStart: sql`CASE WHEN ${signInAttempts.windowStart} < ${windowStart} THEN now() ELSE ${signInAttempts.windowStart} END`,
+        failures: sql`CASE WHEN ${expired} THEN 1 ELSE ${signInAttempts.failures} + 1 END`,
+        windowStart: sql`CASE WHEN ${expired} THEN now() ELSE ${signInAttempts.windowStart} END`,
       },
+      setWhere: sql`${expired} OR ${signInAttempts.failures} < ${max}`,
     })
     .returning({ failures: signInAttempts.failures });
-  return row.failures;
+  return row ? row.failures : null;
 }
 
-export async function getFailedSignIns({ key, windowMs }: { key: string; windowMs: number }): Promise<number> {
-  const [row] = await getDb().select().from(signInAttempts).where(eq(signInAttempts.key, key));
-  if (!row || row.windowStart.getTime() < Date.now() - windowMs) return 0;
-  return row.failures;
+/** Gives back one reservation (an attempt that turned out to be a success). */
+export async function releaseAttempt({ key }: { key: string }) {
+  await getDb()
+    .update(signInAttempts)
+    .set({ failures: sql`greatest(${signInAttempts.failures} - 1, 0)` })
+    .where(eq(signInAttempts.key, key));
 }
 
 export async function clearFailedSignIns({ key }: { key: string }) {

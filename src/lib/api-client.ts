@@ -1,6 +1,8 @@
 /** The browser's side of the API: JSON in and out, errors as one typed class carrying the field problems. */
+/** One refused field as every 400/413 answer lists it: `label` is the path in words ("Deck › Survey ranges"). */
 export interface FieldProblem {
   path: string;
+  label?: string;
   message: string;
 }
 

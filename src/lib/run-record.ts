@@ -2,6 +2,8 @@
  * What is stored about a run besides its full summary: the headline figures lists and compare need, and the
  * hash of the inputs that produced it (so a stored run can be matched to the scenario version it belongs to).
  */
+import { buildAsBuilt, compileScenario, runIterations, summarizeRun, type AsBuiltState, type ProgressRecord } from "@sim/index";
+import type { Scenario } from "@sim/schema";
 import type { RunSummary } from "@sim/summary";
 
 export interface RunHeadline {
@@ -63,4 +65,67 @@ export function resultsRunOf(
   currentVersion: number,
 ) {
   return { id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale: run.scenarioVersion !== currentVersion };
+}
+
+/** What a re-forecast stores about its as-built state beside the run summary. */
+export function asBuiltDigest(plan: Scenario, st: AsBuiltState) {
+  const mean = (a: number[]) => (a.length ? a.reduce((x, y) => x + y, 0) / a.length : 0);
+  return {
+    dataDate: st.dataDate,
+    entriesUsed: st.entriesUsed,
+    operations: st.ops.map((o, i) => ({
+      id: o.id,
+      name: plan.operations[i].name,
+      donePackets: o.remaining.filter((r) => r === 0).length,
+      partPackets: o.remaining.filter((r) => r > 0 && r < 1).length,
+      packets: o.remaining.length,
+    })),
+    curingPackets: st.curing.length,
+    discovered: st.discovered,
+    discovery: { priorPackets: st.discovery.priorPackets, inspected: st.discovery.inspected, found: st.discovery.found, planMean: mean(st.discovery.prior), updatedMean: mean(st.discovery.updated) },
+  };
+}
+
+/** The columns of a stored plan run (no data date), computed here so the app and the demo seed store alike. */
+export function planRunRecord(args: { plan: Scenario; definition: unknown; seed: string; iterations: number }) {
+  const started = Date.now();
+  const compiled = compileScenario(args.plan);
+  const summary = summarizeRun(compiled, runIterations(compiled, args.seed, 0, args.iterations));
+  return storedRun({ definition: args.definition, seed: args.seed, iterations: args.iterations, summary, durationMs: Date.now() - started });
+}
+
+/** A stored run's columns from a summary (the browser's, checked, or the server's own). */
+export function storedRun(args: { definition: unknown; seed: string; iterations: number; summary: RunSummary; durationMs: number }) {
+  return {
+    inputsHash: inputsHash(args.definition, args.seed, args.iterations),
+    seed: args.seed,
+    iterations: args.iterations,
+    summary: headlineOf(args.summary),
+    results: args.summary as unknown as Record<string, unknown>,
+    durationMs: args.durationMs,
+  };
+}
+
+/**
+ * The columns of a stored re-forecast: the engine from the as-built state at the data date (records dated
+ * after it are ignored). The app's re-forecast handler and the demo seed both store exactly this.
+ */
+export function reforecastRunRecord(args: { plan: Scenario; definition: unknown; records: ReadonlyArray<ProgressRecord>; dataDate: string; seed: string; iterations: number }) {
+  const started = Date.now();
+  const asBuilt = buildAsBuilt(args.plan, args.records, args.dataDate);
+  const compiled = compileScenario(args.plan, { asBuilt });
+  const summary = summarizeRun(compiled, runIterations(compiled, args.seed, 0, args.iterations));
+  const reforecast = asBuiltDigest(args.plan, asBuilt);
+  const used = args.records.filter((r) => r.workDate <= args.dataDate);
+  return {
+    inputsHash: inputsHash({ definition: args.definition, progress: used, dataDate: args.dataDate }, args.seed, args.iterations),
+    seed: args.seed,
+    iterations: args.iterations,
+    dataDate: args.dataDate,
+    summary: { ...headlineOf(summary), dataDate: args.dataDate } as Record<string, unknown>,
+    results: { ...(summary as unknown as Record<string, unknown>), reforecast } as Record<string, unknown>,
+    durationMs: Date.now() - started,
+    headline: headlineOf(summary),
+    reforecast,
+  };
 }

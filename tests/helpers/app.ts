@@ -17,15 +17,26 @@ export interface Reply {
   headers: Headers;
 }
 
-export async function call(path: string, opts: { method?: string; body?: unknown; cookie?: string | null; origin?: string | null } = {}): Promise<Reply> {
-  const headers: Record<string, string> = {};
-  if (opts.body !== undefined) headers["content-type"] = "application/json";
+export interface CallOptions {
+  method?: string;
+  /** JSON (encoded here), a string sent as is, or a FormData sent as multipart. */
+  body?: unknown;
+  cookie?: string | null;
+  origin?: string | null;
+  /** Extra request headers (e.g. an Authorization header a token holder might try). */
+  headers?: Record<string, string>;
+}
+
+export async function call(path: string, opts: CallOptions = {}): Promise<Reply> {
+  const headers: Record<string, string> = { ...opts.headers };
+  const isForm = opts.body instanceof FormData;
+  if (opts.body !== undefined && !isForm) headers["content-type"] ??= "application/json";
   if (opts.cookie) headers.cookie = opts.cookie;
   if (opts.origin !== null) headers.origin = opts.origin ?? APP_URL;
   const res = await fetch(`${APP_URL}${path}`, {
     method: opts.method ?? "GET",
     headers,
-    body: opts.body === undefined ? undefined : typeof opts.body === "string" ? opts.body : JSON.stringify(opts.body),
+    body: opts.body === undefined ? undefined : isForm || typeof opts.body === "string" ? (opts.body as BodyInit) : JSON.stringify(opts.body),
     redirect: "manual",
   });
   const text = await res.text();

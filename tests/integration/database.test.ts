@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import postgres from "postgres";
 import { runMigrations } from "../../db/migrate";
-import { seed, DEMO_SCENARIO_FILES } from "../../db/seed";
+import { seed, DEMO_SCENARIO_FILES } from "../../scripts/seed";
 import { readFileSync } from "node:fs";
 import { parseScenario } from "../../sim/validate";
 import { upgradeScenario } from "../../sim/upgrade";
@@ -19,7 +19,9 @@ async function counts() {
     (SELECT count(*)::int FROM projects) AS projects,
     (SELECT count(*)::int FROM project_members) AS members,
     (SELECT count(*)::int FROM scenarios) AS scenarios,
-    (SELECT count(*)::int FROM simulation_runs) AS runs`;
+    (SELECT count(*)::int FROM simulation_runs) AS runs,
+    (SELECT count(*)::int FROM simulation_runs WHERE data_date IS NOT NULL) AS reforecasts,
+    (SELECT count(*)::int FROM progress_entries) AS entries`;
   return row;
 }
 
@@ -65,13 +67,22 @@ describe("migrations", () => {
 
 describe("seed", () => {
   it("fills an empty database with every role, two projects and the demo scenarios with runs", async () => {
-    expect(await seed(url)).toBe("seeded");
+    // The clock is pinned: seeded on 2 December 2026, the demo's first season (2026) is over, the second ahead.
+    expect(await seed(url, { now: new Date("2026-12-02T18:00:00Z") })).toBe("seeded");
     const c = await counts();
     expect(c.users).toBe(5);
     expect(c.projects).toBe(2);
     expect(c.scenarios).toBe(DEMO_SCENARIO_FILES.length);
     expect(c.scenarios).toBeGreaterThanOrEqual(3);
-    expect(c.runs).toBe(DEMO_SCENARIO_FILES.length);
+    expect(c.reforecasts).toBeGreaterThanOrEqual(3);
+    expect(c.runs).toBe(DEMO_SCENARIO_FILES.length + c.reforecasts);
+    expect(c.entries).toBeGreaterThan(100);
+    const [span] = await sql`SELECT min(work_date)::text AS first, max(work_date)::text AS last FROM progress_entries`;
+    expect(span.first >= "2026-04-06" && span.last < "2026-12-02").toBe(true);
+    const starts = await sql`SELECT DISTINCT definition->>'startDate' AS d FROM scenarios`;
+    expect(starts.map((r) => r.d)).toEqual(["2026-04-06"]);
+    const [late] = await sql`SELECT count(*)::int AS n FROM simulation_runs WHERE data_date >= '2026-12-02'`;
+    expect(late.n).toBe(0);
     const roles = await sql`SELECT DISTINCT role::text FROM project_members ORDER BY 1`;
     expect(roles.map((r) => r.role)).toEqual(["admin", "engineer", "inspector", "scheduler", "viewer"]);
   });
@@ -91,9 +102,9 @@ describe("seed", () => {
   });
 });
 
-describe("migration 0004: stored scenarios upgraded to version 2", () => {
+describe("migration 0005: stored scenarios upgraded to version 2", () => {
   const v1 = JSON.parse(readFileSync(new URL("../fixtures/saved-v1-kestrel-two-season.json", import.meta.url), "utf8"));
-  const updates = readFileSync(new URL("../../db/migrations/0004_upgrade-scenarios-v2.sql", import.meta.url), "utf8")
+  const updates = readFileSync(new URL("../../db/migrations/0005_upgrade-scenarios-v2.sql", import.meta.url), "utf8")
     .split("--> statement-breakpoint")
     .map((x) => x.trim())
     .filter((x) => x.startsWith("UPDATE"));

@@ -228,19 +228,3 @@ describe("share links by e-mail", () => {
     expect((await appDb`SELECT count(*)::int AS n FROM email_outbox WHERE subject LIKE 'Scenario shared%' AND text_body LIKE ${"%" + label + "%"}`)[0].n).toBe(0);
   });
 });
-
-describe("dev mailbox page", () => {
-  it("shows caught messages and outbox rows to a project administrator, and is 404 for anyone else", async () => {
-    const admin = await signInAs("admin");
-    const email = `mailbox.${randomUUID().slice(0, 8)}@marrin-dot.example`;
-    const projectId = (await kestrelProject(admin)).id;
-    expect((await call(`/api/projects/${projectId}/invitations`, { method: "POST", cookie: admin, body: { email, role: "viewer" } })).status).toBe(201);
-    await waitForMail(email, "invited");
-    const page = await call("/dev/mailbox", { cookie: admin });
-    expect(page.status).toBe(200);
-    expect(page.body).toContain(email);
-    expect(page.body).toMatch(/href="http:\/\/[^"]+\/invite\//);
-    expect(page.body).toContain('data-testid="outbox-table"');
-    expect((await call("/dev/mailbox", { cookie: await signInAs("scheduler") })).status).toBe(404);
-  });
-});

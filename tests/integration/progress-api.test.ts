@@ -35,9 +35,16 @@ describe("progress entries", () => {
     expect(list.body.entries).toHaveLength(1);
     expect(list.body.entries[0]).toMatchObject({ operationId: "milling", fromStationFt: 0, toStationFt: 300, enteredByName: "Rosa Tenney" });
 
+    const again = await post(s.id, milling({ workDate: day(2), fromStationFt: "2+00", toStationFt: "4+00" }));
+    expect(again.status).toBe(400);
+    expect(again.body.fields).toEqual([{ path: "fromStationFt", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
+    const letters = await post(s.id, milling({ workDate: day(2), fromStationFt: "3a0", toStationFt: 400 }));
+    expect(letters.status).toBe(400);
+    expect(letters.body.fields[0]).toMatchObject({ path: "fromStationFt", message: expect.stringContaining("“3a0” is neither") });
+
     const outside = await post(s.id, milling({ fromStationFt: 900, toStationFt: 1100 }));
     expect(outside.status).toBe(400);
-    expect(outside.body.fields).toEqual([{ path: "toStationFt", message: "To station must be inside the deck (STA 0+00 to STA 10+00)" }]);
+    expect(outside.body.fields).toEqual([{ path: "toStationFt", label: "To station", message: "To station must be inside the deck (STA 0+00 to STA 10+00)" }]);
 
     const future = await post(s.id, milling({ workDate: isoDaysFromToday(1) }));
     expect(future.status).toBe(400);
@@ -46,7 +53,7 @@ describe("progress entries", () => {
 
     const ahead = await post(s.id, { ...milling({ operationId: "overlay", fromStationFt: 200, toStationFt: 400 }) });
     expect(ahead.status).toBe(400);
-    expect(ahead.body.fields).toEqual([{ path: "toStationFt", message: "Overlay placement cannot be recorded ahead of Mechanical milling: Mechanical milling has no progress recorded by this shift at STA 3+00" }]);
+    expect(ahead.body.fields).toEqual([{ path: "toStationFt", label: "To station", message: "Overlay placement cannot be recorded ahead of Mechanical milling: Mechanical milling has no progress recorded by this shift at STA 3+00" }]);
 
     const schema = await post(s.id, milling({ lostHours: 25, discovered: [{ kind: "bottom-mat", fromStationFt: 100, toStationFt: 90, areaSqFt: 0 }] }));
     expect(schema.status).toBe(400);
@@ -55,7 +62,7 @@ describe("progress entries", () => {
 
     const outsideItem = await post(s.id, milling({ fromStationFt: 300, toStationFt: 400, discovered: [{ kind: "full-depth", fromStationFt: 390, toStationFt: 420, areaSqFt: 12 }] }));
     expect(outsideItem.status).toBe(400);
-    expect(outsideItem.body.fields).toEqual([{ path: "discovered[0].toStationFt", message: "Condition to station must be inside this shift's range (STA 3+00 to STA 4+00)" }]);
+    expect(outsideItem.body.fields).toEqual([{ path: "discovered[0].toStationFt", label: "Discovered condition 1 › To station", message: "Condition to station must be inside this shift's range (STA 3+00 to STA 4+00)" }]);
     expect((await call(`/api/scenarios/${s.id}/progress`, { cookie: viewer })).body.entries).toHaveLength(1);
   });
 
@@ -112,6 +119,10 @@ describe("re-forecast", () => {
     const bad = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: day(-3), seed: "r", iterations: 20 } });
     expect(bad.status).toBe(400);
     expect(bad.body.fields[0].path).toBe("dataDate");
+    // A data date after today is refused in words: nothing can have been recorded for it yet.
+    const future = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: isoDaysFromToday(2), seed: "r", iterations: 20 } });
+    expect(future.status).toBe(400);
+    expect(future.body.fields[0]).toMatchObject({ path: "dataDate", message: expect.stringMatching(/must not be in the future/) });
     const re = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: day(2), seed: "r", iterations: 20 } });
     expect(re.status).toBe(201);
     expect(re.body.reforecast.operations[0]).toMatchObject({ id: "milling", donePackets: 10 });
@@ -124,5 +135,29 @@ describe("re-forecast", () => {
     expect(drift.status).toBe(200);
     expect(drift.body.plan.summary.finish.p50).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(drift.body.runs.map((r: { dataDate: string }) => r.dataDate)).toEqual([day(2)]);
+  });
+});
+
+describe("the seeded demo is a job under way", () => {
+  it("has a field log and drift history before today, and the inspector can log today's shift", async () => {
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: viewer });
+    const demo = list.body.scenarios.find((x: { name: string }) => x.name === "Kestrel Bay Causeway — two seasons");
+    const def = (await call(`/api/scenarios/${demo.id}`, { cookie: viewer })).body.scenario.definition;
+    const today = isoDaysFromToday(0, def.timeZone);
+    expect(def.startDate < today).toBe(true);
+    const entries = (await call(`/api/scenarios/${demo.id}/progress`, { cookie: viewer })).body.entries as { workDate: string; operationId: string; toStationFt: number }[];
+    expect(entries.length).toBeGreaterThan(0);
+    expect(entries.every((e) => e.workDate < today)).toBe(true);
+    const drift = await call(`/api/scenarios/${demo.id}/reforecast`, { cookie: viewer });
+    expect(drift.body.runs.length).toBeGreaterThan(0);
+    // Today's setup shift continues where the log stops.
+    const reached = Math.max(...entries.filter((e) => e.operationId === "setup").map((e) => e.toStationFt));
+    const end = def.deck.startStationFt + def.deck.lengthFt;
+    const next = { workDate: today, shift: "night", operationId: "setup", fromStationFt: reached, toStationFt: Math.min(end, reached + 100), crew: "Traffic control crew" };
+    if (reached < end) {
+      const logged = await post(demo.id, next);
+      expect(logged.status).toBe(201);
+      expect((await call(`/api/progress/${logged.body.id}`, { method: "DELETE", cookie: inspector })).status).toBe(200);
+    }
   });
 });

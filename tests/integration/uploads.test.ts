@@ -48,7 +48,7 @@ describe("uploads", () => {
     const before = await uploadsNow();
     const res = await upload(weatherFields, history(100, 41), "one-bad-row.csv");
     expect(res.status).toBe(400);
-    expect(res.body.fields).toEqual([{ path: "row 43 · tmax", message: '"warm" is not a number' }]);
+    expect(res.body.fields).toEqual([{ path: "row 43 · daily maximum temperature", label: "Row 43 · daily maximum temperature", message: '"warm" is not a number' }]);
     expect(res.body.error).toMatch(/nothing was imported/);
     expect(await uploadsNow()).toBe(before);
   });
@@ -74,13 +74,17 @@ describe("uploads", () => {
     expect(await uploadsNow()).toBe(before);
   });
 
-  it("a deck survey gives per-range probabilities; a missing unit field is named", async () => {
+  it("a deck survey gives per-range probabilities; units default to the file's and a bad unit is named", async () => {
     const survey = await upload({ kind: "survey" }, "from_station,to_station,condition_rating\n12+00,40+00,6\n40+00,96+00,4\n", "survey.csv");
     expect(survey.status).toBe(201);
     expect(survey.body.preview.ranges).toHaveLength(2);
+    // Units left out are read from the file: the answer says how each column was read.
     const noUnits = await upload({ kind: "weather" }, history(10), "w.csv");
-    expect(noUnits.status).toBe(400);
-    expect(noUnits.body.fields.map((f: { path: string }) => f.path)).toEqual(expect.arrayContaining(["temperature", "precipitation"]));
+    expect(noUnits.status).toBe(201);
+    expect(noUnits.body.preview.columns.map((c: { header: string; unitFrom: string | null }) => c.unitFrom)).toEqual([null, "guessed", "guessed", "guessed", "guessed"]);
+    const badUnit = await upload({ kind: "weather", temperature: "K", precipitation: "mm" }, history(10), "w.csv");
+    expect(badUnit.status).toBe(400);
+    expect(badUnit.body.fields).toEqual([expect.objectContaining({ path: "temperature", message: expect.stringMatching(/°F, °C or read from the file/) })]);
   });
 
   it("a viewer may not upload", async () => {

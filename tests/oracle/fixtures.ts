@@ -255,7 +255,63 @@ export const deterministicCases: Array<{ name: string; input: Input }> = [
     ];
     x.links = [{ from: "milling", to: "placement" }];
   }) },
+  ...weatherRuleCases(),
 ];
+
+/**
+ * The weather and stand-down rules of MODEL.md written as specifications write them (issue: weather rules).
+ * Each case is worked by hand in tests/unit/weather-rules.test.ts; here they also join the engine-vs-reference
+ * comparison packet by packet.
+ */
+function weatherRuleCases(): Array<{ name: string; input: Input }> {
+  const nightPour = (x: Input) => {
+    x.startDate = "2027-06-28";
+    x.deck.lengthFt = 300;
+    x.operations = [crewOp("placement", 50, { shifts: ["night"], closure: "two-lane", continuous: true, gates: { rising: true } })];
+  };
+  return [
+    { name: "rising: a warm night pour (June nights fall, 30 June into 1 July rises)", input: input((x) => {
+      nightPour(x);
+      // June: 50–60 °F; July: 70–90 °F. The night of 30 June falls from 60 °F at 15:00 to July's 70 °F minimum.
+      x.weather.monthly = climate({ tminF: 50, tmaxF: 60 }).map((m, i) => (i === 6 ? { ...m, tminMeanF: 70, tmaxMeanF: 90 } : m));
+    }) },
+    { name: "protectAfter: 12 h at or above 40 °F after each pour (cold nights)", input: input((x) => {
+      x.weather.monthly = climate({ tminF: 30, tmaxF: 60 });
+      x.operations = [crewOp("placement", 50, { continuous: true, gates: { protectAfter: { minTempF: 40, hours: 12 } } })];
+    }) },
+    { name: "cure counted in hours at or above 45 °F", input: input((x) => {
+      x.weather.monthly = climate({ tminF: 30, tmaxF: 60 });
+      x.deck.lengthFt = 200;
+      x.operations = [
+        crewOp("placement", 12.5, { continuous: true }),
+        { id: "cure", name: "Cure", kind: "wait", durationHours: { type: "fixed", value: 24 }, countAboveF: 45 },
+        crewOp("striping", 100),
+      ];
+      x.links = [{ from: "placement", to: "cure" }, { from: "cure", to: "striping" }];
+    }) },
+    { name: "maxTempF 85 °F on 60–90 °F days", input: input((x) => {
+      x.weather.monthly = climate({ tminF: 60, tmaxF: 90 });
+      x.operations = [crewOp("milling", 50, { gates: { maxTempF: 85 } })];
+    }) },
+    { name: "stand-down from 06:00 the day before, through the Monday (4 July 2026 observed Friday 3 July)", input: input((x) => {
+      x.startDate = "2026-06-29";
+      x.deck.lengthFt = 2000;
+      x.calendar.holidays = { policy: "standDown", observeFederal: true, blackoutDates: [], standDownStartHour: 6, standDownThroughMonday: true };
+      x.operations = [crewOp("milling", 50)];
+    }) },
+    { name: "hourly wind and humidity in the evaporation and wind gates", input: input((x) => {
+      x.weather.monthly = climate({ tminF: 66, tmaxF: 86, wind: 8, rh: 68 });
+      x.deck.lengthFt = 600;
+      x.calendar.shifts.push({ id: "long", name: "Long", startHour: 6, lengthHours: 18 });
+      x.calendar.closureWindows.push({ closure: "one-lane", dayTypes: ["weekday"], startHour: 6, endHour: 24 });
+      x.operations = [
+        crewOp("placement", 50, { shifts: ["long"], continuous: true, gates: { maxEvaporation: 0.15, concreteDeltaF: 3 } }),
+        crewOp("sweep", 100, { shifts: ["long"], gates: { maxWindMph: 9 } }),
+      ];
+      x.links = [{ from: "placement", to: "sweep" }];
+    }) },
+  ];
+}
 
 /** An invented monthly climate with cold winters, warm summers and some rain (January first). */
 export function seasonalClimate() {

@@ -22,7 +22,10 @@
  *   crew reaches with its packet ready;
  * - `winterEnd` is in the next year when its MM-DD is ≤ `winterStart`'s, else in the same year;
  * - "open interval" = maximal run of open time (adjacent shifts/windows merge);
- * - a discovering continuous operation fits base + extra hours in one interval.
+ * - a discovering continuous operation fits base + extra hours in one interval;
+ * - hourly humidity and wind are computed here from MODEL.md's formulas (Magnus, dew point of the daily
+ *   mean, 30 % diurnal wind), not taken from the engine's weather helpers; only the hourly temperature curve
+ *   and the rain hours are shared (`hourlyTempF`, `isRainHour`), as they were before.
  */
 import type { CrewOperation, DayType, Scenario } from "../../sim/schema";
 import { civilFromDays, daysFromCivil, parseIsoDate, weekdayOfDayNumber } from "../../sim/dates";
@@ -104,7 +107,9 @@ export function buildReferenceCalendar(s: Scenario, horizonDays: number): RefCal
       let last = weekdayOfDayNumber(h) === 4 ? h + 1 : h; // Thursday: the Friday after joins the block
       while (isWeekend(first - 1)) first--;
       while (isWeekend(last + 1)) last++;
-      blocked.push([hourOf(first - 1) + 15, hourOf(last + 1)]);
+      const lastWd = weekdayOfDayNumber(last);
+      if (cal.holidays.standDownThroughMonday && (lastWd === 6 || lastWd === 0)) last = lastWd === 6 ? last + 2 : last + 1;
+      blocked.push([hourOf(first - 1) + cal.holidays.standDownStartHour, hourOf(last + 1)]);
     }
   }
 
@@ -185,27 +190,68 @@ export function isOpenByCalendar(s: Scenario, cal: RefCalendar, op: CrewOperatio
   return true;
 }
 
+/** Magnus saturation vapour pressure, hPa, of a temperature in °F (MODEL.md; Alduchov & Eskridge 1996). */
+const magnusHpa = (f: number) => {
+  const c = ((f - 32) * 5) / 9;
+  return 6.1094 * Math.exp((17.625 * c) / (c + 243.04));
+};
+
+/** RH (%) at whole hour k: the day's RH holds at its mean temperature, the dew point is the day's. */
+export function refHourlyRh(samples: IterationSamples, k: number): number {
+  const w = samples.weather;
+  const day = Math.floor(k / 24);
+  w.ensure(day + 2);
+  const vapor = (w.rhPct[day] / 100) * magnusHpa((w.tmaxF[day] + w.tminF[day]) / 2);
+  return Math.min(100, (100 * vapor) / magnusHpa(hourlyTempF(w, k)));
+}
+
+/** Wind (mph) of slot [k, k+1): the day's wind, 30 % stronger at 15:00 and weaker at 03:00. */
+export function refHourlyWind(samples: IterationSamples, k: number): number {
+  const w = samples.weather;
+  const day = Math.floor(k / 24);
+  w.ensure(day + 2);
+  const h = k - 24 * day;
+  return w.windMph[day] * (1 + 0.3 * Math.cos((2 * Math.PI * (h - 15)) / 24));
+}
+
+/** Both ends of slot [k, k+1) at or above `c` °F. */
+const warmSlot = (samples: IterationSamples, c: number, k: number) =>
+  hourlyTempF(samples.weather, k) >= c && hourlyTempF(samples.weather, k + 1) >= c;
+
 /** Weather gates of slot [k, k+1) except `rising` (whose scope depends on `continuous`). */
 export function slotPassesGates(op: CrewOperation, samples: IterationSamples, k: number): boolean {
   const g = op.gates;
   const w = samples.weather;
   const day = Math.floor(k / 24);
   w.ensure(day + 2);
-  if (g.minTempF !== undefined && (hourlyTempF(w, k) < g.minTempF || hourlyTempF(w, k + 1) < g.minTempF)) return false;
+  const t0 = hourlyTempF(w, k);
+  const t1 = hourlyTempF(w, k + 1);
+  if (g.minTempF !== undefined && (t0 < g.minTempF || t1 < g.minTempF)) return false;
+  if (g.maxTempF !== undefined && (t0 > g.maxTempF || t1 > g.maxTempF)) return false;
   if (g.noRain && isRainHour(w, k)) return false;
-  if (g.maxWindMph !== undefined && w.windMph[day] > g.maxWindMph) return false;
+  if (g.maxWindMph !== undefined && refHourlyWind(samples, k) > g.maxWindMph) return false;
   if (g.maxEvaporation !== undefined) {
-    const air = hourlyTempF(w, k);
-    if (evaporationLbFt2h(air + (g.concreteDeltaF ?? 0), air, w.rhPct[day], w.windMph[day]) > g.maxEvaporation)
-      return false;
+    const e = evaporationLbFt2h(t0 + (g.concreteDeltaF ?? 0), t0, refHourlyRh(samples, k), refHourlyWind(samples, k));
+    if (e > g.maxEvaporation) return false;
   }
   return true;
 }
 
-const isRisingSlot = (k: number) => {
-  const h = ((k % 24) + 24) % 24;
-  return h >= 6 && h < 15;
-};
+/** "Rising", judged from the temperature: slot [k, k+1) is not falling. */
+const isRisingSlot = (samples: IterationSamples, k: number) => hourlyTempF(samples.weather, k + 1) >= hourlyTempF(samples.weather, k);
+
+/** A wait counted only in slots with both ends ≥ `c`, stepped hour by hour from `ready`. */
+function warmWaitFinish(samples: IterationSamples, c: number, ready: number, hours: number, horizonHours: number): number {
+  let left = hours;
+  if (left <= 0) return ready;
+  for (let k = Math.floor(ready); k < horizonHours; k++) {
+    if (!warmSlot(samples, c, k)) continue;
+    const from = Math.max(k, ready);
+    if (k + 1 - from >= left - EPS) return from + left;
+    left -= k + 1 - from;
+  }
+  return Infinity;
+}
 
 interface Crew {
   packet: number; // FREE, DONE or the claimed packet
@@ -348,13 +394,13 @@ export function referenceSimulate(
   };
   const slotOf = (n: number) => Math.floor(n * dt + EPS);
   const open14 = (o: number, n: number, withRising: boolean): boolean =>
-    open13(o, n) && gate(o, slotOf(n)) && (!withRising || isRisingSlot(slotOf(n)));
+    open13(o, n) && gate(o, slotOf(n)) && (!withRising || isRisingSlot(samples, slotOf(n)));
 
   /** Continuous: does [T, T+h) fit in open time, with the rain-free tail after it? */
   const fits = (o: number, n: number, h: number): boolean => {
     const op = ops[o] as CrewOperation;
     const T = n * dt;
-    if (op.gates.rising && !isRisingSlot(slotOf(n))) return false;
+    if (op.gates.rising && !isRisingSlot(samples, slotOf(n))) return false;
     const lastStep = Math.ceil((T + h) / dt - EPS) - 1;
     for (let m = n; m <= lastStep; m++) if (!open14(o, m, false)) return false;
     const after = op.gates.noRainHoursAfter ?? 0;
@@ -363,6 +409,12 @@ export function referenceSimulate(
       const k1 = Math.ceil(T + h + after - EPS) - 1;
       w.ensure(Math.floor(k1 / 24) + 2);
       for (let k = Math.floor(T + h + EPS); k <= k1; k++) if (isRainHour(w, k)) return false;
+    }
+    const protect = op.gates.protectAfter;
+    if (protect?.minTempF !== undefined && protect.hours !== undefined && protect.hours > 0) {
+      // Every slot touching [finish, finish + hours] warm at both ends (the same "touching" as the rain tail).
+      const k1 = Math.ceil(T + h + protect.hours - EPS) - 1;
+      for (let k = Math.floor(T + h + EPS); k <= k1; k++) if (!warmSlot(samples, protect.minTempF, k)) return false;
     }
     return true;
   };
@@ -389,9 +441,12 @@ export function referenceSimulate(
           if (!Number.isNaN(finish[u][i])) continue;
           const r = ready(u, i);
           if (Number.isNaN(r)) continue;
-          finish[u][i] = r + samples.waitHours[o];
+          finish[u][i] =
+            op.countAboveF === undefined
+              ? r + samples.waitHours[o]
+              : warmWaitFinish(samples, op.countAboveF, r, samples.waitHours[o], horizonDays * 24);
           packets.push({ op: op.id, stage: stageId, packet: i, crew: -1, start: r, finish: finish[u][i] });
-          remaining--;
+          if (finish[u][i] < Infinity) remaining--; // a cure that never ends leaves the run unfinished
         }
         continue;
       }

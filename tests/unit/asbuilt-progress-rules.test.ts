@@ -1,14 +1,10 @@
 /**
- * The field-progress rules (`src/lib/progress-schema.ts`) on the Kestrel demo plan: stations inside the deck,
- * not ahead of the predecessor (with its lag, through a cure), not in the future, discovered items inside the
- * entry; every problem names its field path and the field in words. The demo week passes them all and its
- * re-forecast schedules none of the recorded work again.
+ * The field-progress rules (`sim/progress-rules.ts`, re-exported by `src/lib/progress-schema.ts`) on the
+ * Kestrel demo plan: stations inside the deck, not ahead of the predecessor (with its lag, through a cure), not
+ * in the future, discovered items inside the entry; every problem names its field path and the field in words.
+ * The seeded demo's field log is checked in tests/unit/demo-job.test.ts.
  */
 import { describe, expect, it } from "vitest";
-import { demoProgressEntries, DEMO_PROGRESS_TODAY } from "../../db/demo-progress";
-import { buildAsBuilt } from "../../sim/asbuilt";
-import { compileScenario, simulate } from "../../sim/engine";
-import { drawSamples } from "../../sim/samples";
 import { parseScenario } from "../../sim/validate";
 import { checkDependents, checkProgressEntry, crewPredecessors, progressEntrySchema, todayIn, type RuleEntry } from "../../src/lib/progress-schema";
 import { loadScenario } from "./engine-fixtures";
@@ -84,18 +80,22 @@ describe("progress entry rules", () => {
   });
 });
 
-describe("the demo week", () => {
-  it("passes every rule in order and its re-forecast never schedules the recorded work", () => {
-    const entries = demoProgressEntries(plan);
-    expect(entries.length).toBeGreaterThanOrEqual(8);
-    expect(entries.every((e) => e.workDate <= DEMO_PROGRESS_TODAY)).toBe(true);
-    const st = buildAsBuilt(plan, entries, DEMO_PROGRESS_TODAY);
-    const setup = st.ops.find((o) => o.id === "setup")!;
-    // Setup covered STA 12+00–29+50: packets 0–16 done, packet 17 (STA 29+00–30+00) half done.
-    expect(setup.remaining.slice(0, 18)).toEqual([...new Array(17).fill(0), 0.5]);
-    const c = compileScenario(plan, { asBuilt: st });
-    const r = simulate(c, drawSamples(c.scenario, "demo", 0), { trace: true });
-    expect(r.trace!.packets.filter((p) => p.op === "setup").map((p) => p.packet)[0]).toBe(17);
-    for (const p of r.trace!.packets) if (p.crew >= 0) expect(p.start).toBeGreaterThanOrEqual(st.dataTime);
+describe("stations as people type them", () => {
+  it("accepts feet or 12+50 and refuses letters instead of dropping them", () => {
+    expect(progressEntrySchema.parse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: "12+00", toStationFt: "STA 16+50.5" })).toMatchObject({ fromStationFt: 1200, toStationFt: 1650.5 });
+    expect(progressEntrySchema.parse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: "1,200", toStationFt: 1600 }).fromStationFt).toBe(1200);
+    const bad = progressEntrySchema.safeParse({ workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: "12a0", toStationFt: 1600 });
+    expect(bad.success).toBe(false);
+    expect(bad.error!.issues[0]).toMatchObject({ path: ["fromStationFt"], message: "From station must be in feet (1250) or a station (12+50); “12a0” is neither" });
+  });
+});
+
+describe("a stretch is recorded once per operation", () => {
+  it("refuses setup over STA 15+00–16+00 again, names the earlier entry, and lets an edit of that entry through", () => {
+    const p = check({ fromStationFt: 1500, toStationFt: 1700 }, [setupDone]);
+    expect(p).toEqual([{ path: "fromStationFt", message: expect.stringMatching(/^Work-zone setup is already recorded over STA 12\+00–STA 20\+00 \(2027-04-06, night shift\)/) }]);
+    // Touching end to end is not an overlap; editing the entry itself is not a second record.
+    expect(check({ fromStationFt: 2000, toStationFt: 2300 }, [setupDone])).toEqual([]);
+    expect(checkProgressEntry({ scenario: plan, entry: entry({ fromStationFt: 1200, toStationFt: 2100 }), others: [setupDone], today: "2027-05-01", id: "a" })).toEqual([]);
   });
 });

@@ -196,6 +196,29 @@ describe("discovered-condition rate update (beta-binomial, pooled over the deck)
   });
 });
 
+describe("inspected packets when a condition is logged in a packet not yet finished", () => {
+  it("counts the opened packet, so a logged condition is never '0 of 0 inspected'", () => {
+    // Hydrodemolition has worked STA 12+00–12+40 of packet 0 (12+00–13+00) and found bottom-mat exposure at
+    // 12+15–12+25: the packet is opened, so it is inspected and found (1 of 1). Posterior (20·0.12 + 1)/(20 + 1).
+    const rec: ProgressRecord[] = [
+      { workDate: "2027-04-06", shift: "night", operationId: "setup", fromStationFt: 1200, toStationFt: 1700 },
+      { workDate: "2027-04-06", shift: "night", operationId: "milling", fromStationFt: 1200, toStationFt: 1600 },
+      {
+        workDate: "2027-04-07", shift: "night", operationId: "hydrodemolition", fromStationFt: 1200, toStationFt: 1240,
+        discovered: [{ kind: "bottom-mat", fromStationFt: 1215, toStationFt: 1225, areaSqFt: 38 }],
+      },
+    ];
+    const st = buildAsBuilt(kestrel, rec, "2027-04-07");
+    expect(st.discovery.inspected).toBe(1);
+    expect(st.discovery.found).toBe(1);
+    expect(st.discovery.updated[1]).toBeCloseTo((20 * 0.12 + 1) / 21, 12);
+    // The same partial packet without a logged condition is not yet inspected: nothing is known about it.
+    const plain = buildAsBuilt(kestrel, [rec[0], rec[1], { ...rec[2], discovered: [] }], "2027-04-07");
+    expect(plain.discovery.inspected).toBe(0);
+    expect(plain.discovery.updated).toEqual(plain.discovery.prior);
+  });
+});
+
 describe("curing at the data date", () => {
   it("a placed packet cures for its nominal duration after placement (96 h here)", () => {
     // Placement day shift 07–17 on Apr 12 over packet 0 → cure since Apr 12 17:00 (+0 h lag), nominal end

@@ -354,6 +354,10 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
         { minLength: 2, maxLength: 4 },
       ),
       policy: fc.constantFrom("standDown" as const, "workThrough" as const),
+      standDownStartHour: quarter(0, 24),
+      throughMonday: fc.boolean(),
+      // A warm month next to a cool one: nights that rise at the month's turn, cold protection windows.
+      warmMonth: fc.option(fc.integer({ min: 3, max: 8 }), { nil: undefined }),
       blackouts: fc.array(fc.integer({ min: 0, max: 60 }), { maxLength: 2 }), // days after the start
       wetDays: fc.array(fc.integer({ min: 0, max: 60 }), { maxLength: 3 }),
       twoSeason: fc.option(fc.record({ cutoffDay: fc.integer({ min: 10, max: 90 }), cutoffFt: fc.integer({ min: 0, max: 24 }).map((n) => n * 25) }), { nil: undefined }),
@@ -387,6 +391,9 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
           continuous: fc.integer({ min: 0, max: 2 }).map((n) => n === 0),
           minTempF: fc.option(fc.integer({ min: 55, max: 75 }), { nil: undefined }),
           rising: fc.integer({ min: 0, max: 3 }).map((n) => n === 0),
+          maxTempF: fc.option(fc.integer({ min: 70, max: 90 }), { nil: undefined }),
+          protectAfter: fc.option(fc.record({ minTempF: fc.integer({ min: 45, max: 70 }), hours: quarter(0, 16) }), { nil: undefined }),
+          countAboveF: fc.option(fc.integer({ min: 50, max: 75 }), { nil: undefined }),
           noRain: fc.boolean(),
           noRainHoursAfter: quarter(0, 4),
           lagFt: fc.integer({ min: 0, max: 4 }).map((n) => n * 25),
@@ -410,7 +417,10 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
         endHour: (w.startHour + w.lengthHours) % 24,
       }));
       const withWindows = [...new Set(g.windows.map((w) => w.closure))];
-      x.calendar.holidays = { policy: g.policy, observeFederal: true, blackoutDates: g.blackouts.map((d) => iso(g.startDay + d)) };
+      x.calendar.holidays = {
+        policy: g.policy, observeFederal: true, blackoutDates: g.blackouts.map((d) => iso(g.startDay + d)),
+        standDownStartHour: g.standDownStartHour, standDownThroughMonday: g.throughMonday,
+      };
       x.calendar.season = { plan: "single", winterStart: "12-01", winterEnd: "03-01", demobilizeHours: g.demob, remobilizeHours: g.remob };
       if (g.twoSeason)
         x.calendar.season = {
@@ -419,10 +429,11 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
           cutoffDate: iso(g.startDay + g.twoSeason.cutoffDay),
           cutoffStationFt: x.deck.startStationFt + Math.min(g.twoSeason.cutoffFt, g.lengthFt),
         };
-      x.weather = { mode: "fixed", monthly: climate({ tminF: 50, tmaxF: 80 }), fixedWetDates: g.wetDays.map((d) => iso(g.startDay + d)) };
+      const monthly = climate({ tminF: 50, tmaxF: 80 }).map((m, i) => (i === g.warmMonth ? { ...m, tminMeanF: 82, tmaxMeanF: 95 } : m));
+      x.weather = { mode: "fixed", monthly, fixedWetDates: g.wetDays.map((d) => iso(g.startDay + d)) };
       x.operations = g.ops.map((o, i) =>
         o.wait
-          ? { id: `op${i}`, name: `Op ${i}`, kind: "wait" as const, durationHours: { type: "fixed" as const, value: o.waitHours } }
+          ? { id: `op${i}`, name: `Op ${i}`, kind: "wait" as const, durationHours: { type: "fixed" as const, value: o.waitHours }, countAboveF: o.countAboveF }
           : {
               ...crewOp(`op${i}`, o.rate, {
                 crews: o.crews,
@@ -430,7 +441,10 @@ describe("reference vs engine, generated small scenarios (fast-check)", () => {
                 closure: withWindows.includes(o.closure) ? o.closure : withWindows[0],
                 mobilizationHours: o.mob,
                 continuous: o.continuous,
-                gates: { minTempF: o.minTempF, rising: o.rising, noRain: o.noRain, noRainHoursAfter: o.noRainHoursAfter },
+                gates: {
+                  minTempF: o.minTempF, maxTempF: o.maxTempF === undefined ? undefined : Math.max(o.maxTempF, o.minTempF ?? 0),
+                  rising: o.rising, noRain: o.noRain, noRainHoursAfter: o.noRainHoursAfter, protectAfter: o.protectAfter,
+                },
               }),
               rate: { unit: o.perShift ? ("ftPerShift" as const) : ("ftPerHour" as const), dist: { type: "fixed" as const, value: o.rate * (o.perShift ? 8 : 1) } },
             },

@@ -136,8 +136,9 @@ describe("convertDist and toFormValues", () => {
     const v = toFormValues(base);
     const op = v.operations[1];
     expect(op.kind === "crew" && Object.keys(op.gates ?? {}).sort()).toEqual(
-      ["concreteDeltaF", "maxEvaporation", "maxWindMph", "minTempF", "noRain", "noRainHoursAfter", "rising"],
+      ["concreteDeltaF", "maxEvaporation", "maxTempF", "maxWindMph", "minTempF", "noRain", "noRainHoursAfter", "protectAfter", "rising"],
     );
+    expect(op.kind === "crew" && op.gates?.protectAfter).toEqual({ minTempF: undefined, hours: undefined });
     expect(op.kind === "crew" && op.gates?.minTempF).toBe(45);
     const a = parseScenario(base);
     const b = parseScenario(JSON.parse(JSON.stringify(v)));

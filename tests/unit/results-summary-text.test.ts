@@ -1,7 +1,8 @@
 // The plain-language sentence of a run: target clause, unfinished iterations, convergence verdict.
 import { describe, expect, it } from "vitest";
 import type { RunSummary } from "@sim/summary";
-import { plainSummary, quantileText, STABLE_DAYS } from "@/components/results/summary-text";
+import { p80Meaning, plainSummary, quantileText, STABLE_DAYS, winterCarryover } from "@/components/results/summary-text";
+import type { Scenario } from "@sim/schema";
 
 function summary(over: Partial<RunSummary> = {}): RunSummary {
   return {
@@ -63,5 +64,20 @@ describe("plainSummary", () => {
     expect(some.p80).not.toMatch(/\d/);
     const all = plainSummary(summary({ unfinishedIterations: 1000 }));
     expect(all.unfinished).toMatch(/^None of the 1,000 iterations finished/);
+  });
+});
+
+describe("plain words for an executive", () => {
+  it("says what P80 means in one sentence", () => {
+    expect(p80Meaning(summary())).toBe("P80 means 8 in 10 of the 1,000 simulated outcomes (weather, production rates, deterioration found) finish by 14 Oct 2027; 1 in 5 finish later.");
+  });
+
+  it("a single-season plan says what share of iterations carries work over winter", () => {
+    const plan = { startDate: "2027-04-05", calendar: { season: { plan: "single", winterStart: "11-15", winterEnd: "03-31" } } } as unknown as Scenario;
+    // 72 % finished on 14 Nov (the last curve point before the 15 Nov stand-down): 28 % carry over.
+    const s = summary({ cdf: [{ date: "2027-10-01", p: 0.4 }, { date: "2027-11-14", p: 0.72 }, { date: "2028-05-01", p: 1 }] });
+    expect(winterCarryover(s, plan)).toBe("In 28 % of the iterations the work is not finished by the winter stand-down (15 Nov 2027) and carries over to the next season.");
+    const two = { ...plan, calendar: { season: { ...plan.calendar.season, plan: "two" } } } as unknown as Scenario;
+    expect(winterCarryover(s, two)).toBeNull();
   });
 });

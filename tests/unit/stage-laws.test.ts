@@ -238,14 +238,20 @@ describe("laws of stages and the closure timeline", () => {
   });
 
   it("one stage over all lanes with no standing closure reproduces the single-pass engine's results", () => {
-    // Golden values computed by the engine before stages existed (commit 40da1ef, `npm run sim -- <file>
-    // --iterations 60 --seed single-pass --json`), on the same demos then stored as version 1: the model did
-    // not change for them, so neither may the finishes nor the delay.
-    const golden: Record<string, { p50: string; p90: string; delayP50: number | null }> = {
-      "kestrel-two-season.json": { p50: "2028-07-02T20:27", p90: "2028-07-14T20:34", delayP50: 479628.7 },
-      "kestrel-single-season.json": { p50: "2027-10-31T20:30", p90: "2028-04-16T20:56", delayP50: 456489.4 },
-      "kestrel-two-placement-crews.json": { p50: "2028-06-11T21:12", p90: "2028-06-20T20:57", delayP50: 403447.2 },
-      "kestrel-holiday-work.json": { p50: "2028-06-27T20:26", p90: "2028-07-10T20:25", delayP50: 502538.9 },
+    // Golden values computed by the single-pass engine (no stages) with the hourly weather rules, commit
+    // 6540506 on main (`npm run sim -- <file> --iterations 60 --seed single-pass --json`), on the same demos then
+    // stored as version 1 (upgraded, they equal these files). The values recorded before the weather rules
+    // (commit 40da1ef) no longer apply: the weather model changed, stages did not change it.
+    // `delayFloor`: holiday-work's median iteration has a 2 h weather pause of the night restriping crew inside
+    // a closure window (21:00–23:00). The single-pass engine counted the lanes open during it; the closure
+    // timeline keeps a short-term closure standing from first to last use in a window interval (MODEL.md,
+    // "Closures that stand"), so the finish is the same and the delay can only be higher.
+    type Golden = { p50: string; p90: string } & ({ delayP50: number | null } | { delayFloor: number });
+    const golden: Record<string, Golden> = {
+      "kestrel-two-season.json": { p50: "2028-09-29T20:29", p90: "2029-06-24T20:28", delayP50: 467058.6 },
+      "kestrel-single-season.json": { p50: "2028-09-15T20:33", p90: "2029-06-03T20:33", delayP50: 452833 },
+      "kestrel-two-placement-crews.json": { p50: "2028-07-07T20:57", p90: "2028-08-21T20:30", delayP50: 385541.2 },
+      "kestrel-holiday-work.json": { p50: "2028-09-17T20:35", p90: "2029-06-11T20:28", delayFloor: 490079.3 },
       "small-deterministic.json": { p50: "2027-04-07T09:00", p90: "2027-04-07T09:00", delayP50: null },
     };
     for (const [file, want] of Object.entries(golden)) {
@@ -254,7 +260,15 @@ describe("laws of stages and the closure timeline", () => {
       const s = tryParse(file.startsWith("kestrel-") ? JSON.parse(readFileSync(new URL(`../fixtures/before-closure-advice/${file}`, import.meta.url), "utf8")) : loadScenario(file))!;
       expect(s.stages).toEqual([{ id: "whole-deck", name: "Whole deck", lanes: s.deck.lanes, standingLanesClosed: [] }]);
       const sum = runScenario(s, { iterations: 60, seed: "single-pass" });
-      expect([file, sum.finishAt.p50, sum.finishAt.p90, sum.delay?.vehicleHours.p50 ?? null]).toEqual([file, want.p50, want.p90, want.delayP50]);
+      expect([file, sum.finishAt.p50, sum.finishAt.p90]).toEqual([file, want.p50, want.p90]);
+      const delay = sum.delay?.vehicleHours.p50 ?? null;
+      if ("delayP50" in want) expect([file, delay]).toEqual([file, want.delayP50]);
+      else {
+        expect(delay).not.toBeNull();
+        expect(delay!).toBeGreaterThan(want.delayFloor);
+        // One 2 h night pause: the difference stays under 1 % (the same iteration, the same finish).
+        expect(delay! - want.delayFloor).toBeLessThan(0.01 * want.delayFloor);
+      }
     }
   }, 120_000);
 });

@@ -90,14 +90,42 @@ describe("parseScenario", () => {
     expect(parseScenario(ok).ok).toBe(true);
   });
 
-  it("counts only rising starts for a continuous operation with the rising gate", () => {
-    // Open 14:00–17:00 only; the one rising candidate is 14:00 (slot 14–15), leaving 3 h < 4 h needed.
+  it("does not limit a rising gate to clock hours: a warm night can rise (MODEL.md, rising judged from temperature)", () => {
+    // Open 17:00–22:00 only, 4 h packets. "Rising" is T(k+1) ≥ T(k) from the weather, so an evening start is
+    // possible when the next morning's minimum is above the afternoon's maximum: nothing to refuse here.
     const s = small((s) => {
-      s.calendar.closureWindows[0].startHour = 14;
+      s.calendar.closureWindows[0].startHour = 17;
+      s.calendar.closureWindows[0].endHour = 22;
+      s.calendar.shifts[0].startHour = 17;
+      s.calendar.shifts[0].lengthHours = 5;
       crew(s, 1).gates = { rising: true };
       crew(s, 1).rate = { unit: "ftPerHour", dist: { type: "fixed", value: 25 } }; // 4 h per packet
+      crew(s, 0).gates = { rising: true }; // non-continuous, never open 06–15
     });
-    expect(problemsOf(s).find((p) => p.path === "operations[1]")?.message).toMatch(/longest usable interval is 3 h/);
+    expect(parseScenario(s).ok).toBe(true);
+    // The fit check itself still holds: 6 h packets do not fit the 5 h interval.
+    const tight = small((s) => {
+      s.calendar.closureWindows[0].startHour = 17;
+      s.calendar.closureWindows[0].endHour = 22;
+      s.calendar.shifts[0].startHour = 17;
+      s.calendar.shifts[0].lengthHours = 5;
+      crew(s, 1).gates = { rising: true };
+      crew(s, 1).rate = { unit: "ftPerHour", dist: { type: "fixed", value: 100 / 6 } };
+    });
+    expect(problemsOf(tight).find((p) => p.path === "operations[1]")?.message).toMatch(/longest usable interval is 5 h/);
+  });
+
+  it("refuses a maximum temperature below the minimum and a half-filled protection window, naming the field", () => {
+    const s = small((s) => {
+      crew(s, 1).gates = { minTempF: 50, maxTempF: 40, protectAfter: { minTempF: 35 } };
+    });
+    const problems = problemsOf(s);
+    expect(problems).toContainEqual({ path: "operations[1].gates.maxTempF", message: "must be ≥ the minimum temperature" });
+    expect(problems.find((p) => p.path === "operations[1].gates.protectAfter.hours")?.message).toMatch(/how many hours/);
+    const ok = small((s) => {
+      crew(s, 1).gates = { minTempF: 50, maxTempF: 90, protectAfter: { minTempF: 35, hours: 12 } };
+    });
+    expect(parseScenario(ok).ok).toBe(true);
   });
 
   it("rejects a zero rate and a cut-off date after the first winter", () => {

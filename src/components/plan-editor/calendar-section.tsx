@@ -181,11 +181,24 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
             name="calendar.holidays.policy"
             label="Holiday policy"
             options={[
-              { value: "standDown", label: "Stand down (no work from 15:00 the day before)" },
+              { value: "standDown", label: "Stand down (from the hour below, the day before)" },
               { value: "workThrough", label: "Work through" },
             ]}
           />
           <CheckboxField name="calendar.holidays.observeFederal" label="Observe federal holidays" className="pt-7" />
+          <NumberField
+            name="calendar.holidays.standDownStartHour"
+            label="Stand-down starts at (hour of the day before)"
+            hint="15 = 15:00; 12 = noon; 0 = the whole day before."
+            min={0}
+            max={24}
+            step="0.5"
+          />
+          <CheckboxField
+            name="calendar.holidays.standDownThroughMonday"
+            label="Also stand down the Monday after a holiday weekend"
+            className="pt-7"
+          />
         </div>
         <fieldset className="mt-4">
           <legend className="field-label">Blackout dates (treated as holidays)</legend>

@@ -24,7 +24,9 @@ export function CrewsSection() {
           <h2 id="crew-ops-heading">Crew operations</h2>
           <p className="mt-1 text-sm text-muted">
             Rates are sampled once per iteration. Weather limits marked <span aria-hidden="true">*</span>
-            <span className="sr-only">with an asterisk</span> (minimum temperature, evaporation) are planning inputs: set them per your local specification.
+            <span className="sr-only">with an asterisk</span> (temperatures, evaporation) are planning inputs: set them per your local specification.
+            Temperature limits hold at both ends of each hour; &ldquo;rising&rdquo; means the air is not cooling that hour (warm nights can qualify).
+            Protection applies to continuous work: after each packet the air must stay at or above that temperature for that many hours.
           </p>
         </div>
         {crew.length === 0 ? (
@@ -89,12 +91,15 @@ export function CrewsSection() {
                     <td className="table-cell">
                       <div className="grid grid-cols-3 gap-2">
                         <NumberField name={`${p}.gates.minTempF`} srPrefix={`${who} — `} label="min °F *" optional />
+                        <NumberField name={`${p}.gates.maxTempF`} srPrefix={`${who} — `} label="max °F *" optional />
                         <NumberField name={`${p}.gates.maxWindMph`} srPrefix={`${who} — `} label="max wind mph" optional min={0} />
                         <NumberField name={`${p}.gates.maxEvaporation`} srPrefix={`${who} — `} label="max evap. lb/ft²/h *" optional min={0} step="0.01" />
                         <NumberField name={`${p}.gates.noRainHoursAfter`} srPrefix={`${who} — `} label="no rain h after" optional min={0} />
                         <NumberField name={`${p}.gates.concreteDeltaF`} srPrefix={`${who} — `} label="concrete − air °F" optional />
+                        <NumberField name={`${p}.gates.protectAfter.minTempF`} srPrefix={`${who} — `} label="protect ≥ °F after *" optional />
+                        <NumberField name={`${p}.gates.protectAfter.hours`} srPrefix={`${who} — `} label="protect for h" optional min={0} max={72} />
                         <div className="space-y-1 pt-4">
-                          <CheckboxField name={`${p}.gates.rising`} label={`Rising temp.`} />
+                          <CheckboxField name={`${p}.gates.rising`} label="Rising temp. (not cooling)" />
                           <CheckboxField name={`${p}.gates.noRain`} label="No rain" />
                         </div>
                       </div>
@@ -110,7 +115,10 @@ export function CrewsSection() {
       <section className="card overflow-x-auto p-0" aria-labelledby="wait-ops-heading">
         <div className="px-5 py-4">
           <h2 id="wait-ops-heading">Wait operations</h2>
-          <p className="mt-1 text-sm text-muted">No crew and no calendar: a packet waits this long (e.g. cure) once it is ready.</p>
+          <p className="mt-1 text-sm text-muted">
+            No crew and no calendar: a packet waits this long (e.g. cure) once it is ready. With a temperature set, only hours with the air at or
+            above it count, so a cure takes longer in cold weather (as cure clauses in agency specifications are written).
+          </p>
         </div>
         {wait.length === 0 ? (
           <p className="px-5 pb-5 text-sm text-muted">No wait operations.</p>
@@ -120,6 +128,7 @@ export function CrewsSection() {
               <tr>
                 <th scope="col" className="table-head">Operation</th>
                 <th scope="col" className="table-head">Duration (hours)</th>
+                <th scope="col" className="table-head">Counted hours</th>
               </tr>
             </thead>
             <tbody>
@@ -131,6 +140,16 @@ export function CrewsSection() {
                   </th>
                   <td className="table-cell">
                     <DistributionFields base={`operations.${i}.durationHours`} who={`${op.name || op.id} duration`} unit="h" />
+                  </td>
+                  <td className="table-cell">
+                    <NumberField
+                      name={`operations.${i}.countAboveF`}
+                      srPrefix={`${op.name || op.id} — `}
+                      label="only at or above °F *"
+                      hint="Blank: every hour counts."
+                      optional
+                      className="w-44"
+                    />
                   </td>
                 </tr>
               ))}

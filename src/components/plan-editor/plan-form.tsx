@@ -11,6 +11,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
 import { scenarioSchema, type FieldProblem, type Scenario, type ScenarioInput } from "@sim/schema";
 import { parseScenario } from "@sim/validate";
+import { fieldLabel } from "@sim/field-labels";
 import { api, ApiError } from "@/lib/api-client";
 import { can, ROLE_LABELS } from "@/lib/permissions";
 import { CalendarSection } from "./calendar-section";
@@ -181,7 +182,7 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
                   {problems.list.map((p, i) => (
                     <li key={`${p.path}-${i}`}>
                       <button type="button" className="text-left hover:underline" onClick={() => jumpTo(p.path)}>
-                        <code className="font-semibold text-ink">{p.path.replace(/^definition\./, "")}</code> — {p.message}
+                        <span className="font-semibold text-ink">{fieldLabel(p.path)}</span> <code className="text-muted">{p.path.replace(/^definition\./, "")}</code> — {p.message}
                       </button>
                     </li>
                   ))}

@@ -186,7 +186,7 @@ export function convertDist(d: Dist, type: Dist["type"]): Dist {
   return { type, min: r(centre * 0.8), mode: centre, max: r(centre * 1.25) };
 }
 
-const GATE_KEYS = ["minTempF", "noRainHoursAfter", "maxWindMph", "maxEvaporation", "concreteDeltaF"] as const;
+const GATE_KEYS = ["minTempF", "maxTempF", "noRainHoursAfter", "maxWindMph", "maxEvaporation", "concreteDeltaF"] as const;
 
 /**
  * The form's starting values: schema defaults filled, and every optional field present (unset optional
@@ -202,11 +202,18 @@ export function toFormValues(definition: unknown): ScenarioInput {
     v.calendar.season.cutoffStationFt = v.calendar.season.cutoffStationFt ?? undefined;
   }
   for (const op of v.operations) {
+    if (op.kind === "wait") {
+      op.countAboveF = op.countAboveF ?? undefined;
+      continue;
+    }
     if (op.kind !== "crew") continue;
     const g: Record<string, unknown> = { ...(op.gates ?? {}) };
     for (const k of GATE_KEYS) g[k] = g[k] ?? undefined;
     g.rising = g.rising ?? false;
     g.noRain = g.noRain ?? false;
+    // Both halves present (blank = undefined): an empty pair parses to "no protection".
+    const pa = (g.protectAfter ?? {}) as { minTempF?: number; hours?: number };
+    g.protectAfter = { minTempF: pa.minTempF ?? undefined, hours: pa.hours ?? undefined };
     op.gates = g as typeof op.gates;
   }
   return v;

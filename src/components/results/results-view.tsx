@@ -13,7 +13,7 @@ import { QueueBreachDays } from "./queue-breach-days";
 import { FinishHistogram } from "./finish-histogram";
 import { OperationsTable } from "./operations-table";
 import { StatCards } from "./stat-cards";
-import { plainSummary, quantileText } from "./summary-text";
+import { p80Meaning, plainSummary, quantileText, winterCarryover } from "./summary-text";
 import { TimeDistanceChart } from "./time-distance-chart";
 import { TradeoffPanel } from "./tradeoff-panel";
 
@@ -63,8 +63,14 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
           P80 finish <strong data-testid="p80-date">{text.p80}</strong>
           {text.targetClause}.
         </p>
+        <p className="mt-1 text-sm" data-testid="p80-meaning">{p80Meaning(summary)}</p>
         <p className="mt-1 text-sm text-muted">{text.percentiles}</p>
         {text.season1 && <p className="mt-1 text-sm">{text.season1}</p>}
+        {plan && winterCarryover(summary, plan) && (
+          <p className="mt-1 text-sm" data-testid="winter-carryover">
+            {winterCarryover(summary, plan)}
+          </p>
+        )}
         {text.unfinished && (
           <p className="mt-3 rounded-md border border-warn/30 bg-warn-bg px-3 py-2 text-sm" role="status" data-testid="unfinished-warning">
             <span className="font-semibold text-warn">Unfinished iterations: </span>

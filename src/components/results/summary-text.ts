@@ -4,6 +4,7 @@
  * ("unfinished") is said in words, never shown as a date.
  */
 import type { RunSummary } from "@sim/summary";
+import type { Scenario } from "@sim/schema";
 import { formatIsoDate, formatPercent } from "@/lib/format";
 
 /**
@@ -63,4 +64,27 @@ export function plainSummary(s: RunSummary): PlainSummary {
       text: `P80 moved ${daysText(s.convergenceDays)} between the two halves of the run — run more iterations for a steadier P80.`,
     };
   return { p80: quantileText(s.finish.p80), targetClause, percentiles, season1, unfinished, convergence };
+}
+
+/** What P80 means, for a reader who does not schedule: one sentence under the headline. */
+export function p80Meaning(s: RunSummary): string {
+  if (isUnfinished(s.finish.p80)) return "P80 is the date by which 8 in 10 simulated outcomes finish; here fewer than 8 in 10 finish at all.";
+  return `P80 means 8 in 10 of the ${s.iterations.toLocaleString("en-US")} simulated outcomes (weather, production rates, deterioration found) finish by ${formatIsoDate(s.finish.p80)}; 1 in 5 finish later.`;
+}
+
+/**
+ * A single-season plan in words: the share of iterations that carry work over the first winter, read off the
+ * confidence curve at the first winter's start. Null for a two-season plan (the winter is planned there).
+ */
+export function winterCarryover(s: RunSummary, plan: Scenario): string | null {
+  if (plan.calendar.season.plan !== "single" || s.cdf.length === 0) return null;
+  const y = Number(plan.startDate.slice(0, 4));
+  const start = `${y}-${plan.calendar.season.winterStart}`;
+  const winter = start > plan.startDate ? start : `${y + 1}-${plan.calendar.season.winterStart}`;
+  // The curve's last point at or before the day before winter starts: the share finished before the stand-down.
+  let done = 0;
+  for (const pt of s.cdf) if (pt.date < winter) done = pt.p;
+  const carried = 1 - done;
+  if (carried < 0.005) return `Almost every iteration finishes before the winter stand-down of ${formatIsoDate(winter)}.`;
+  return `In ${formatPercent(carried)} of the iterations the work is not finished by the winter stand-down (${formatIsoDate(winter)}) and carries over to the next season.`;
 }

@@ -30,12 +30,32 @@ export function tradeoffSentence(t: HolidayTradeoff): string {
   const when = g50 > 0 ? `finishes ${dayWord(g50)} sooner at P50` : g50 < 0 ? `finishes ${dayWord(g50)} later at P50` : "finishes on the same day at P50";
   const p80 = g80 > 0 ? `${dayWord(g80)} sooner at P80` : g80 < 0 ? `${dayWord(g80)} later at P80` : "the same day at P80";
   const head = `Working through holidays ${when} (${p80}; P50 ${dateText(t.workThrough.finish.p50)} instead of ${dateText(t.standDown.finish.p50)})`;
-  if (!t.hasTraffic) return `${head}. The plan has no traffic profile, so its cost to drivers is not estimated.`;
+  const tail = [targetClause(t), contractClause(t)].filter(Boolean).join(" ");
+  const end = tail ? ` ${tail}` : "";
+  if (!t.hasTraffic) return `${head}. The plan has no traffic profile, so its cost to drivers is not estimated.${end}`;
   const d = t.extraDelayVehHours.p50;
   const c = t.extraRoadUserCost.p50;
-  if (d === null) return `${head}.`;
+  if (d === null) return `${head}.${end}`;
   const more = d >= 0 ? `${vh(d)} more delay` : `${vh(-d)} less delay`;
-  return `${head}, for ${more} to drivers at P50 (${money(c)} of road-user cost ${d >= 0 ? "added" : "saved"}).`;
+  return `${head}, for ${more} to drivers at P50 (${money(c)} of road-user cost ${d >= 0 ? "added" : "saved"}).${end}`;
+}
+
+/** "The chance of meeting the 30 Jun 2027 target rises from 48 % to 61 %." (empty without a target) */
+function targetClause(t: HolidayTradeoff): string {
+  const a = t.standDown.targetProbability;
+  const b = t.workThrough.targetProbability;
+  if (a === null || b === null || t.targetDate === null) return "";
+  const pct = (x: number) => `${Math.round(x * 100)} %`;
+  const verb = b > a ? "rises" : b < a ? "falls" : "stays";
+  return b === a ? `The chance of meeting the ${formatIsoDate(t.targetDate)} target stays at ${pct(a)}.` : `The chance of meeting the ${formatIsoDate(t.targetDate)} target ${verb} from ${pct(a)} to ${pct(b)}.`;
+}
+
+/** "The contract costs $41,000 more at P50." (empty without a costs section) */
+function contractClause(t: HolidayTradeoff): string {
+  const c = t.extraContractCost.p50;
+  if (c === null) return "";
+  if (c === 0) return "The contract cost is the same at P50.";
+  return `The contract costs ${money(c)} ${c > 0 ? "more" : "less"} at P50.`;
 }
 
 type State = { phase: "idle" } | { phase: "running" } | { phase: "done"; result: HolidayTradeoff; iterations: number } | { phase: "failed"; message: string };

@@ -1,6 +1,8 @@
 "use client";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useMemo, useState } from "react";
+import { budgetProblem } from "@sim/budget";
+import { parseScenario } from "@sim/validate";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { useEnginePool } from "./use-engine-pool";
@@ -15,12 +17,15 @@ function formatSeconds(s: number | null) {
 }
 
 /** Start a Monte Carlo run in the browser's workers, watch it, cancel it, and store the result with the scenario. */
-export function RunPanel({ scenarioId, version, definition, canRun }: { scenarioId: string; version: number; definition: unknown; canRun: boolean }) {
+export function RunPanel({ scenarioId, version, definition, canRun, blockers = [] }: { scenarioId: string; version: number; definition: unknown; canRun: boolean; blockers?: string[] }) {
   const router = useRouter();
   const qc = useQueryClient();
   const pool = useEnginePool();
   const [iterations, setIterations] = useState(2_000);
   const [seed, setSeed] = useState("pourline");
+  // The same budget the server checks when the run is saved: refuse here instead of computing in vain.
+  const plan = useMemo(() => parseScenario(definition), [definition]);
+  const overBudget = plan.ok ? budgetProblem(plan.scenario, iterations, "browser") : null;
   const save = useMutation({
     mutationFn: (body: unknown) => api<{ id: string }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
     onSuccess: () => {
@@ -35,6 +40,7 @@ export function RunPanel({ scenarioId, version, definition, canRun }: { scenario
   const pct = progress ? Math.floor((progress.done / progress.total) * 100) : pool.state.phase === "done" ? 100 : 0;
 
   async function start() {
+    if (overBudget) return;
     save.reset();
     const result = await pool.start(definition, iterations, seed);
     if (result) save.mutate({ seed, iterations, scenarioVersion: version, summary: result.summary, durationMs: result.durationMs });
@@ -69,11 +75,21 @@ export function RunPanel({ scenarioId, version, definition, canRun }: { scenario
             Cancel
           </button>
         ) : (
-          <button type="button" className="btn-primary" onClick={start} disabled={!seed.trim() || save.isPending} data-testid="start-run">
+          <button type="button" className="btn-primary" onClick={start} disabled={!seed.trim() || save.isPending || blockers.length > 0 || overBudget !== null} data-testid="start-run">
             Run {iterations.toLocaleString("en-US")} iterations
           </button>
         )}
       </div>
+      {blockers.length > 0 && (
+        <div role="alert" className="mt-4 rounded-md border border-bad/40 bg-bad-bg px-3 py-2 text-sm" data-testid="run-blockers">
+          <p className="font-medium text-bad">This plan can never finish, so a run would only wait for the six-year horizon:</p>
+          <ul className="mt-1 list-disc pl-5">
+            {blockers.map((b) => (
+              <li key={b}>{b}</li>
+            ))}
+          </ul>
+        </div>
+      )}
       {(running || pool.state.phase === "done") && (
         <div className="mt-4">
           <div
@@ -95,6 +111,11 @@ export function RunPanel({ scenarioId, version, definition, canRun }: { scenario
                 : ""}
           </p>
         </div>
+      )}
+      {overBudget && (
+        <p role="alert" className="mt-3 text-sm text-bad" data-testid="run-over-budget">
+          Too large to run: {overBudget.message}
+        </p>
       )}
       {pool.state.phase === "cancelled" && <p className="mt-3 text-sm text-muted">Run cancelled; nothing was saved.</p>}
       {pool.state.phase === "failed" && (

@@ -46,6 +46,17 @@ export function readCsv(text: string, required: string[], optional: string[] = [
   return { headers, rows, problems };
 }
 
+/** The header as written and every data row's cells by position (for files whose columns are found by name). */
+export function readCsvRows(text: string): { headers: string[]; rows: { line: number; cells: string[] }[]; problems: RowProblem[] } {
+  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ""), { skipEmptyLines: "greedy" });
+  const problems: RowProblem[] = parsed.errors.map((e) => ({ row: (e.row ?? 0) + 1, field: "(row)", message: e.message }));
+  const [headerRow, ...data] = parsed.data;
+  if (!headerRow) return { headers: [], rows: [], problems: [{ row: 1, field: "(file)", message: "the file is empty" }] };
+  const rows = data.map((cells, i) => ({ line: i + 2, cells }));
+  if (rows.length === 0 && problems.length === 0) problems.push({ row: 2, field: "(file)", message: "the file has a header but no data rows" });
+  return { headers: headerRow, rows, problems };
+}
+
 export function numberCell(raw: string | undefined, line: number, field: string, problems: RowProblem[], opts: { min?: number; max?: number; optional?: boolean } = {}): number | undefined {
   if (raw === undefined || raw === "") {
     if (!opts.optional) problems.push({ row: line, field, message: "is empty" });

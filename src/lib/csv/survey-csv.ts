@@ -17,13 +17,9 @@ export interface SurveyRange {
  */
 export const RATING_TO_PROBABILITY: Record<number, number> = { 9: 0.01, 8: 0.01, 7: 0.03, 6: 0.06, 5: 0.12, 4: 0.25, 3: 0.45, 2: 0.7, 1: 0.9, 0: 0.95 };
 
-export function parseStation(raw: string): number | null {
-  const s = raw.trim().replace(/^sta\.?\s*/i, "");
-  const m = /^(\d+)\+(\d{1,2}(?:\.\d+)?)$/.exec(s);
-  if (m) return Number(m[1]) * 100 + Number(m[2]);
-  if (/^\d+(\.\d+)?$/.test(s)) return Number(s);
-  return null;
-}
+// One station reader for the survey, the field log and the editor: feet or 12+50.
+export { parseStation } from "@sim/progress-rules";
+import { parseStation } from "@sim/progress-rules";
 
 export function parseSurveyCsv(text: string, deck: { startStationFt: number; lengthFt: number }): { ranges: SurveyRange[]; problems: RowProblem[] } {
   const table = readCsv(text, ["from_station", "to_station"], ["repair_share", "condition_rating"]);

@@ -1,5 +1,5 @@
-/** A run as CSV, written by papaparse: percentiles overall and per operation, or the representative trace. */
-import Papa from "papaparse";
+/** A run as CSV (through ./csv, which neutralises formula-like text): percentiles overall and per operation, or the representative trace. */
+import { toCsv } from "./csv";
 import type { RunSummary } from "@sim/index";
 import { formatHours, parseIsoDate } from "@sim/dates";
 
@@ -8,7 +8,7 @@ export function percentilesCsv(s: RunSummary): string {
     { item: "overall", name: "Whole job", p10: s.finish.p10, p50: s.finish.p50, p80: s.finish.p80, p90: s.finish.p90 },
     ...s.operations.map((o) => ({ item: o.id, name: o.name, ...o.finish })),
   ];
-  return Papa.unparse(rows, { columns: ["item", "name", "p10", "p50", "p80", "p90"] });
+  return toCsv(rows, { columns: ["item", "name", "p10", "p50", "p80", "p90"] });
 }
 
 export function traceCsv(s: RunSummary, definition: { startDate: string; deck: { startStationFt: number; packetFt: number; lengthFt: number } }): string {
@@ -25,5 +25,5 @@ export function traceCsv(s: RunSummary, definition: { startDate: string; deck: {
     finish: formatHours(day0, t.finish),
     paused_hours: s.representative.trace.pauses.filter((p) => p.op === t.op && p.packet === t.packet && p.crew === t.crew).reduce((a, p) => a + (p.end - p.start), 0).toFixed(2),
   }));
-  return Papa.unparse(rows);
+  return toCsv(rows);
 }

@@ -9,7 +9,7 @@ import type { RunSummary } from "@sim/index";
 import { closureLocalTimes } from "@/lib/exports/closures";
 import { AppError } from "./errors";
 import { closuresOfRun } from "./exports";
-import { enqueueMail } from "./mail/outbox";
+import { enqueueMailsFor } from "./mail/outbox";
 import { closureNoticeMail } from "./closure-notice-mail";
 import { validateDefinition } from "./scenario-input";
 import { newShareToken } from "./share-token";
@@ -54,9 +54,13 @@ export async function publishClosurePlan({ scenario, userId, baseUrl, runId }: {
   const d = await draftPublication(scenario, links);
   if (runId !== undefined && runId !== d.run.id) throw new AppError("conflict", "The plan was run again after your preview. Look at the new preview before publishing.");
   return getDb().transaction(async (tx) => {
-    const link = await createShareLink({ tx, scenarioId: scenario.id, tokenHash, label: "Closure calendar feed", userId, expiresAt: new Date(Date.now() + FEED_DAYS * 86_400_000) });
+    const link = await createShareLink({ tx, scenarioId: scenario.id, tokenHash, label: "Closure calendar feed", scope: "closure-feed", userId, expiresAt: new Date(Date.now() + FEED_DAYS * 86_400_000) });
     const publication = await insertClosurePublication({ tx, scenarioId: scenario.id, runId: d.run.id, shareLinkId: link.id, closureCount: d.closures.length, notified: d.subscribers.length, userId });
-    for (const s of d.subscribers) await enqueueMail(tx, d.mail(s.email));
+    await enqueueMailsFor(
+      tx,
+      { userId, projectId: scenario.projectId },
+      d.subscribers.map((s) => d.mail(s.email)),
+    );
     return { id: publication.id, publishedAt: publication.publishedAt, closureCount: d.closures.length, notified: d.subscribers.length, ...links };
   });
 }

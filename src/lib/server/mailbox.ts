@@ -16,6 +16,21 @@ export interface CaughtMessage {
   html: string | null;
 }
 
+/**
+ * The /dev/mailbox page exists only when the machine's owner switched it on for local use: POURLINE_DEV_MAILBOX=1
+ * (set by `npm start` / `npm test` for their own local mail catcher, never by default) and mail going to the
+ * local catcher (POURLINE_FAKE_SMTP=1). Even then it shows a signed-in person only mail addressed to them.
+ */
+export function mailCatcherPageEnabled(env: Record<string, string | undefined> = process.env): boolean {
+  return env.POURLINE_DEV_MAILBOX === "1" && env.POURLINE_FAKE_SMTP === "1";
+}
+
+/** Caught messages addressed to `email` (case-insensitive), newest first: what its owner may read. */
+export function listMailboxFor(email: string, { dir = mailboxDir() }: { dir?: string } = {}): CaughtMessage[] {
+  const want = email.trim().toLowerCase();
+  return listMailbox({ dir }).filter((m) => m.to.some((t) => t.trim().toLowerCase() === want));
+}
+
 export function mailboxDir(): string {
   return resolve(process.env.POURLINE_MAILBOX_DIR || ".data/mailbox");
 }

@@ -3,15 +3,16 @@ import "server-only";
  * Field progress on the server: entry validation against the plan and the other entries (field paths from
  * `@/lib/progress-schema`), and re-forecasts computed here from the as-built state at a data date.
  */
-import { buildAsBuilt, compileScenario, runIterations, summarizeRun, type AsBuiltState, type ProgressRecord } from "@sim/index";
+import type { ProgressRecord } from "@sim/index";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
 import { HORIZON_DAYS } from "@sim/calendar";
+import { budgetProblem } from "@sim/budget";
 import type { Scenario } from "@sim/schema";
 import type { z } from "zod";
 import { listProgress, saveReforecastRun, type ProgressFields, type ProgressRow } from "@db/queries/progress";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { checkDependents, checkProgressEntry, todayIn, type ProgressEntry, type reforecastSchema, type RuleEntry } from "@/lib/progress-schema";
-import { headlineOf, inputsHash } from "@/lib/run-record";
+import { reforecastRunRecord } from "@/lib/run-record";
 import { badRequest } from "./errors";
 import { validateDefinition } from "./scenario-input";
 
@@ -44,52 +45,23 @@ export async function validateDelete({ scenario, id }: { scenario: ScenarioDetai
   if (problems.length) throw badRequest(problems, "Deleting this entry would leave later work ahead of it; nothing was deleted.");
 }
 
-/** What a re-forecast stores about its as-built state beside the run summary. */
-export function asBuiltDigest(plan: Scenario, st: AsBuiltState) {
-  const mean = (a: number[]) => (a.length ? a.reduce((x, y) => x + y, 0) / a.length : 0);
-  return {
-    dataDate: st.dataDate,
-    entriesUsed: st.entriesUsed,
-    operations: st.ops.map((o, i) => ({
-      id: o.id,
-      name: plan.operations[i].name,
-      donePackets: o.remaining.filter((r) => r === 0).length,
-      partPackets: o.remaining.filter((r) => r > 0 && r < 1).length,
-      packets: o.remaining.length,
-    })),
-    curingPackets: st.curing.length,
-    discovered: st.discovered,
-    discovery: { priorPackets: st.discovery.priorPackets, inspected: st.discovery.inspected, found: st.discovery.found, planMean: mean(st.discovery.prior), updatedMean: mean(st.discovery.updated) },
-  };
-}
-
 type ReforecastBody = z.output<typeof reforecastSchema>;
 
-export async function runReforecast({ scenario, body, userId }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string }) {
+export async function runReforecast({ scenario, body, userId, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; now?: Date }) {
   const plan = validateDefinition(scenario.definition);
   const last = formatDayNumber(parseIsoDate(plan.startDate) + HORIZON_DAYS - 1);
   if (body.dataDate < plan.startDate || body.dataDate > last) {
     throw badRequest([{ path: "dataDate", message: `Data date must be between the plan's start (${plan.startDate}) and ${last}` }]);
   }
+  // Progress after today cannot have been recorded, so a later data date would forecast from a deck that
+  // pretends the days in between passed with no work.
+  const today = todayIn(plan.timeZone, now);
+  if (body.dataDate > today) throw badRequest([{ path: "dataDate", message: `Data date must not be in the future (today is ${today})` }]);
+  const overBudget = budgetProblem(plan, body.iterations, "server");
+  if (overBudget) throw badRequest([overBudget], "The re-forecast is larger than the server's work budget; nothing was run or saved.");
   const rows = await listProgress({ scenarioId: scenario.id });
-  const records = rows.map(toRecord);
-  const started = Date.now();
-  const asBuilt = buildAsBuilt(plan, records, body.dataDate);
-  const compiled = compileScenario(plan, { asBuilt });
-  const summary = summarizeRun(compiled, runIterations(compiled, body.seed, 0, body.iterations));
-  const reforecast = asBuiltDigest(plan, asBuilt);
-  const used = records.filter((r) => r.workDate <= body.dataDate);
-  const row = await saveReforecastRun({
-    scenarioId: scenario.id,
-    scenarioVersion: scenario.version,
-    inputsHash: inputsHash({ definition: scenario.definition, progress: used, dataDate: body.dataDate }, body.seed, body.iterations),
-    seed: body.seed,
-    iterations: body.iterations,
-    dataDate: body.dataDate,
-    summary: { ...headlineOf(summary), dataDate: body.dataDate },
-    results: { ...(summary as unknown as Record<string, unknown>), reforecast },
-    durationMs: Date.now() - started,
-    userId,
-  });
-  return { id: row.id, createdAt: row.createdAt, dataDate: body.dataDate, scenarioVersion: scenario.version, headline: headlineOf(summary), reforecast };
+  const record = reforecastRunRecord({ plan, definition: scenario.definition, records: rows.map(toRecord), dataDate: body.dataDate, seed: body.seed, iterations: body.iterations });
+  const { headline, reforecast, ...columns } = record;
+  const row = await saveReforecastRun({ scenarioId: scenario.id, scenarioVersion: scenario.version, ...columns, userId });
+  return { id: row.id, createdAt: row.createdAt, dataDate: body.dataDate, scenarioVersion: scenario.version, headline, reforecast };
 }

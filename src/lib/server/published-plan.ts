@@ -7,7 +7,7 @@ import { AppError } from "./errors";
 import { closuresCalendar, closuresOfRun } from "./exports";
 import { hashShareToken } from "./share-token";
 import { hourlyQueues, type HourlyQueues } from "@sim/hourly-queue";
-import { sharedScenarioDetail } from "./shared";
+import { sharedClosureFeedScenario } from "./shared";
 
 const GONE = "This link does not exist, has expired or was revoked.";
 
@@ -57,7 +57,7 @@ export async function sharedClosureCalendar(token: string, baseUrl: string): Pro
     });
     return { name: plan.scenarioName, ics };
   }
-  const scenario = await sharedScenarioDetail(token);
+  const scenario = await sharedClosureFeedScenario(token);
   return { name: scenario.name, ics: await closuresCalendar(scenario) };
 }
 

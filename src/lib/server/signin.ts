@@ -1,6 +1,8 @@
 import "server-only";
-import { clearFailedSignIns, getFailedSignIns, getUserByEmail, recordFailedSignIn } from "@db/queries/users";
+import { clearFailedSignIns, getUserByEmail, releaseAttempt, reserveAttempt } from "@db/queries/users";
 import { verifyPassword } from "./password";
+
+export { clientAddress } from "@/lib/http/trusted-proxy";
 
 const WINDOW_MS = 15 * 60 * 1000;
 export const MAX_ACCOUNT_FAILURES = 5;
@@ -12,30 +14,29 @@ export const SIGN_IN_LOCKED = "Too many failed sign-ins. Wait 15 minutes and try
 export type SignInResult = { ok: true; userId: string } | { ok: false; status: 401 | 429; message: string };
 
 /**
- * Unknown account and wrong password give the same message and take the same time. Failures count per
- * account and per address; past either limit, sign-in is refused for the rest of the window even with the
- * right password.
+ * Unknown account and wrong password give the same message and take the same time. Every attempt first
+ * reserves a slot per account and per client address (each counted atomically in the database); only an
+ * attempt that got both has its password checked, so in one window no more than MAX_ACCOUNT_FAILURES
+ * passwords are ever tried against an account, however many requests arrive at once — and the account's
+ * count in sign_in_attempts is exactly the number tried. A success gives its slots back (the account's count
+ * starts again); a failure keeps them.
  */
 export async function attemptSignIn({ email, password, address }: { email: string; password: string; address: string }): Promise<SignInResult> {
   const accountKey = `account:${email.trim().toLowerCase()}`;
   const addressKey = `address:${address}`;
-  const [accountFails, addressFails] = await Promise.all([
-    getFailedSignIns({ key: accountKey, windowMs: WINDOW_MS }),
-    getFailedSignIns({ key: addressKey, windowMs: WINDOW_MS }),
-  ]);
-  if (accountFails >= MAX_ACCOUNT_FAILURES || addressFails >= MAX_ADDRESS_FAILURES) {
-    return { ok: false, status: 429, message: SIGN_IN_LOCKED };
+  if ((await reserveAttempt({ key: accountKey, windowMs: WINDOW_MS, max: MAX_ACCOUNT_FAILURES })) === null) return locked();
+  if ((await reserveAttempt({ key: addressKey, windowMs: WINDOW_MS, max: MAX_ADDRESS_FAILURES })) === null) {
+    // No password was checked, so the account's slot goes back: its count stays the number of passwords tried.
+    await releaseAttempt({ key: accountKey });
+    return locked();
   }
   const user = await getUserByEmail({ email });
   const ok = await verifyPassword(user?.passwordHash ?? null, password);
-  if (!ok || !user) {
-    await Promise.all([recordFailedSignIn({ key: accountKey, windowMs: WINDOW_MS }), recordFailedSignIn({ key: addressKey, windowMs: WINDOW_MS })]);
-    return { ok: false, status: 401, message: SIGN_IN_FAILED };
-  }
-  await clearFailedSignIns({ key: accountKey });
+  if (!ok || !user) return { ok: false, status: 401, message: SIGN_IN_FAILED };
+  await Promise.all([clearFailedSignIns({ key: accountKey }), releaseAttempt({ key: addressKey })]);
   return { ok: true, userId: user.id };
 }
 
-export function clientAddress(headers: Headers): string {
-  return headers.get("x-forwarded-for")?.split(",")[0]?.trim() || headers.get("x-real-ip") || "local";
+function locked(): SignInResult {
+  return { ok: false, status: 429, message: SIGN_IN_LOCKED };
 }

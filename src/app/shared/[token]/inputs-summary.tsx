@@ -42,6 +42,8 @@ function gatesText(g: Scenario["operations"][number] & { kind: "crew" }): string
   if (x.noRainHoursAfter) parts.push(`dry ${x.noRainHoursAfter} h after`);
   if (x.maxWindMph !== undefined) parts.push(`wind ≤ ${x.maxWindMph} mph`);
   if (x.maxEvaporation !== undefined) parts.push(`evaporation ≤ ${x.maxEvaporation} lb/ft²/h`);
+  if (x.maxTempF !== undefined) parts.push(`≤ ${x.maxTempF} °F`);
+  if (x.protectAfter?.minTempF !== undefined && x.protectAfter.hours) parts.push(`air ≥ ${x.protectAfter.minTempF} °F for ${x.protectAfter.hours} h after`);
   return parts.length ? parts.join(", ") : "none";
 }
 
@@ -116,7 +118,9 @@ export function InputsSummary({ definition }: { definition: unknown }) {
                   </>
                 ) : (
                   <>
-                    <td className="table-cell">{dist(op.durationHours, "h")} per packet</td>
+                    <td className="table-cell">
+                      {dist(op.durationHours, "h")} per packet{op.countAboveF !== undefined ? `, counting only hours at or above ${op.countAboveF} °F` : ""}
+                    </td>
                     <td className="table-cell text-muted">no crew</td>
                     <td className="table-cell text-muted">any time</td>
                     <td className="table-cell text-muted">—</td>
@@ -165,7 +169,9 @@ export function InputsSummary({ definition }: { definition: unknown }) {
           </p>
           <h3 className="mt-3">Holidays</h3>
           <p className="mt-1">
-            {cal.holidays.policy === "standDown" ? "Crews stand down over holidays (from 15:00 the day before, with adjoining weekends)" : "Crews work through holidays"}
+            {cal.holidays.policy === "standDown"
+              ? `Crews stand down over holidays (from ${clock(cal.holidays.standDownStartHour)} the day before, with adjoining weekends${cal.holidays.standDownThroughMonday ? " and the Monday after" : ""})`
+              : "Crews work through holidays"}
             {cal.holidays.observeFederal ? "; federal holidays observed" : "; federal holidays not observed"}
             {cal.holidays.blackoutDates.length ? `; ${cal.holidays.blackoutDates.length} blackout dates` : ""}.
           </p>

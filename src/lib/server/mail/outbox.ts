@@ -6,7 +6,8 @@ import "server-only";
  * before the next try; after MAX_ATTEMPTS the row is `failed` and stays visible on the dev mailbox page.
  */
 import type { Database } from "@db/client";
-import { claimDueMail, insertOutboxMessage, markMailFailed, markMailSent, type Executor } from "@db/queries/mail";
+import { claimDueMail, insertOutboxMessage, lockAndCountRecentMail, markMailFailed, markMailSent, type DbTx, type Executor } from "@db/queries/mail";
+import { AppError } from "../errors";
 import { mailFrom, mailTransport } from "./transport";
 
 export interface MailMessage {
@@ -27,8 +28,43 @@ export function retryDelayMs(attempts: number): number {
   return Math.min(MAX_DELAY_MS, BASE_DELAY_MS * 2 ** Math.max(0, attempts - 1));
 }
 
+/** Mail not caused by a signed-in person (password resets, which have limits of their own). */
 export async function enqueueMail(tx: Executor, message: MailMessage) {
   return insertOutboxMessage({ tx, to: message.to, subject: message.subject, text: message.text, html: message.html });
+}
+
+/** Outgoing e-mail a person may cause in an hour, and a project may cause in an hour (all its members together). */
+export const MAIL_QUOTA = { perUserPerHour: 50, perProjectPerHour: 200 } as const;
+const QUOTA_WINDOW_MS = 60 * 60 * 1000;
+
+/**
+ * Queues e-mails a signed-in person caused on a project, all or none: inside the caller's transaction it
+ * counts what this person and this project queued in the last hour (serialised per person and per project,
+ * see lockAndCountRecentMail) and refuses with a 429 naming the quota when the batch would go past it —
+ * before anything is written, so the caller's transaction rolls back whole.
+ */
+export async function enqueueMailsFor(tx: DbTx, sender: { userId: string; projectId: string }, messages: MailMessage[]) {
+  if (messages.length === 0) return;
+  const { byUser, byProject } = await lockAndCountRecentMail({ tx, userId: sender.userId, projectId: sender.projectId, since: new Date(Date.now() - QUOTA_WINDOW_MS) });
+  if (byUser + messages.length > MAIL_QUOTA.perUserPerHour) {
+    throw new AppError(
+      "too_many",
+      `E-mail quota reached: you may send ${MAIL_QUOTA.perUserPerHour} e-mails per hour and have sent ${byUser} in the last hour, so these ${messages.length} cannot go out now. Try again later or send to fewer people.`,
+      [],
+      { quota: "per-user-per-hour", limit: MAIL_QUOTA.perUserPerHour, used: byUser },
+    );
+  }
+  if (byProject + messages.length > MAIL_QUOTA.perProjectPerHour) {
+    throw new AppError(
+      "too_many",
+      `E-mail quota reached: a project may send ${MAIL_QUOTA.perProjectPerHour} e-mails per hour and this one has sent ${byProject} in the last hour, so these ${messages.length} cannot go out now. Try again later.`,
+      [],
+      { quota: "per-project-per-hour", limit: MAIL_QUOTA.perProjectPerHour, used: byProject },
+    );
+  }
+  for (const m of messages) {
+    await insertOutboxMessage({ tx, to: m.to, subject: m.subject, text: m.text, html: m.html, requestedById: sender.userId, projectId: sender.projectId });
+  }
 }
 
 export interface OutboxReport {

@@ -5,6 +5,7 @@ import "server-only";
  * if register() runs twice.
  */
 import { processOutbox } from "./outbox";
+import { describeError } from "../log";
 
 const state = globalThis as unknown as { __pourlineOutboxTimer?: ReturnType<typeof setInterval> };
 
@@ -21,7 +22,7 @@ export function startOutboxPoller() {
       lastError = "";
     } catch (e) {
       // The database may be briefly away; say so once per distinct error rather than every tick.
-      const msg = e instanceof Error ? e.message : String(e);
+      const msg = describeError(e);
       if (msg !== lastError) console.error(`[pourline] outbox pass failed: ${msg}`);
       lastError = msg;
     } finally {

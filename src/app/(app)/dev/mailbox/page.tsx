@@ -1,10 +1,9 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { connection } from "next/server";
-import { listProjectsForUser } from "@db/queries/projects";
 import { listOutbox } from "@db/queries/mail";
 import { requireUser } from "@/lib/server/access";
-import { listMailbox } from "@/lib/server/mailbox";
+import { listMailboxFor, mailCatcherPageEnabled } from "@/lib/server/mailbox";
 import { formatDateTime } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Dev mailbox" };
@@ -35,21 +34,20 @@ const STATUS_TONE: Record<string, string> = {
 };
 
 /**
- * What the local mail catcher received and what the outbox holds. Exists only with POURLINE_FAKE_SMTP=1
- * (npm start / npm test) and only for administrators of some project; anyone else gets a 404.
+ * The signed-in person's own mail, as caught by the local mail catcher, and the outbox rows addressed to them.
+ * Exists only when switched on for local use (mailCatcherPageEnabled); otherwise, and when signed out, a 404.
+ * Nobody sees mail addressed to anyone else: reset and invitation links are bearer secrets.
  */
 export default async function DevMailboxPage() {
   await connection();
-  if (process.env.POURLINE_FAKE_SMTP !== "1") notFound();
+  if (!mailCatcherPageEnabled()) notFound();
   const { user } = await requireUser().catch(() => notFound());
-  const projects = await listProjectsForUser({ userId: user.id });
-  if (!projects.some((p) => p.role === "admin")) notFound();
-  const [messages, outbox] = [listMailbox().slice(0, 100), await listOutbox({ limit: 100 })];
+  const [messages, outbox] = [listMailboxFor(user.email).slice(0, 100), await listOutbox({ toAddress: user.email, limit: 100 })];
   return (
     <div className="space-y-6">
       <div>
         <h1>Dev mailbox</h1>
-        <p className="mt-1 text-sm text-muted">E-mails caught by the local fake SMTP server, newest first, and the outbox that sends them. Nothing here leaves this machine.</p>
+        <p className="mt-1 text-sm text-muted">E-mails to you ({user.email}) caught by the local fake SMTP server, newest first, and their place in the outbox. Nothing here leaves this machine; nobody sees anyone else’s mail.</p>
       </div>
       <section className="card overflow-x-auto p-0" aria-labelledby="outbox-heading">
         <h2 id="outbox-heading" className="px-5 pt-4">

@@ -9,6 +9,8 @@ import { RunPanel } from "@/components/run/run-panel";
 import { SafetyNote } from "@/components/safety-note";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
+import { parseScenario } from "@sim/validate";
+import { weatherFeasibility } from "@sim/feasibility";
 
 export const metadata: Metadata = { title: "Outlook" };
 
@@ -17,9 +19,12 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
   const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
   const run = await getLatestRun({ scenarioId });
   const stale = !!run && run.scenarioVersion !== scenario.version;
+  const parsed = parseScenario(scenario.definition);
+  // A plan the weather never lets finish is said in words here, before anyone starts a run.
+  const blockers = parsed.ok ? weatherFeasibility(parsed.scenario).map((p) => p.message) : [];
   return (
     <div className="space-y-5">
-      <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario")} />
+      <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario")} blockers={blockers} />
       {run ? (
         <>
           {stale && (

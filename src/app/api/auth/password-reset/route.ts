@@ -9,7 +9,7 @@ import { appBaseUrl } from "@/lib/server/mail/links";
 import { insertPasswordReset } from "@db/queries/invitations";
 import { inTransaction } from "@db/queries/mail";
 import { MAX_RESETS_PER_ACCOUNT, MAX_RESETS_PER_ADDRESS, RESET_LINK_MS, RESET_REQUESTED, RESET_TOO_MANY, RESET_WINDOW_MS } from "@/lib/server/mail/reset";
-import { getFailedSignIns, getUserByEmail, recordFailedSignIn } from "@db/queries/users";
+import { getUserByEmail, reserveAttempt } from "@db/queries/users";
 
 /**
  * Always the same 200 answer whether or not the account exists; an e-mail is queued only for a real account.
@@ -19,14 +19,9 @@ export const POST = handler(async (req: Request) => {
   const { email } = await readJson(req, passwordResetRequestSchema);
   const accountKey = `reset:account:${email.trim().toLowerCase()}`;
   const addressKey = `reset:address:${clientAddress(req.headers)}`;
-  const [byAccount, byAddress] = await Promise.all([
-    getFailedSignIns({ key: accountKey, windowMs: RESET_WINDOW_MS }),
-    getFailedSignIns({ key: addressKey, windowMs: RESET_WINDOW_MS }),
-  ]);
-  if (byAccount >= MAX_RESETS_PER_ACCOUNT || byAddress >= MAX_RESETS_PER_ADDRESS) {
-    throw new AppError("too_many", RESET_TOO_MANY);
-  }
-  await Promise.all([recordFailedSignIn({ key: accountKey, windowMs: RESET_WINDOW_MS }), recordFailedSignIn({ key: addressKey, windowMs: RESET_WINDOW_MS })]);
+  // Each request reserves its place before anything else happens, so parallel requests cannot exceed the limits.
+  if ((await reserveAttempt({ key: addressKey, windowMs: RESET_WINDOW_MS, max: MAX_RESETS_PER_ADDRESS })) === null) throw new AppError("too_many", RESET_TOO_MANY);
+  if ((await reserveAttempt({ key: accountKey, windowMs: RESET_WINDOW_MS, max: MAX_RESETS_PER_ACCOUNT })) === null) throw new AppError("too_many", RESET_TOO_MANY);
   const user = await getUserByEmail({ email });
   if (user) {
     const { token, tokenHash } = newShareToken();

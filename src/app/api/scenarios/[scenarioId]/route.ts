@@ -18,13 +18,14 @@ export const PUT = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { user } = await requireScenario(scenarioId, "editScenario");
   const body = await readJson(req, scenarioUpdateSchema);
-  validateDefinition(body.definition);
+  // The parse output is stored, not the body: unknown keys are dropped and defaults written out.
+  const definition = validateDefinition(body.definition);
   const result = await updateScenario({
     id: scenarioId,
     expectedVersion: body.version,
     name: body.name,
     description: body.description,
-    definition: body.definition,
+    definition,
     userId: user.id,
     changeNote: body.changeNote || "Edited",
   });

@@ -77,7 +77,13 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
             {d.calendar.season.cutoffDate ? `, season 1 stops ${formatIsoDate(d.calendar.season.cutoffDate)}` : ""}
             {d.calendar.season.cutoffStationFt !== undefined ? `, season 1 stops at ${formatStation(d.calendar.season.cutoffStationFt)}` : ""}.
           </li>
-          <li>Holidays: {d.calendar.holidays.policy === "standDown" ? "crews stand down from the afternoon before each federal holiday through the holiday weekend" : "work continues through holidays"}.</li>
+          <li>
+            Holidays:{" "}
+            {d.calendar.holidays.policy === "standDown"
+              ? `crews stand down from ${hour(d.calendar.holidays.standDownStartHour)} the day before each federal holiday through the holiday weekend${d.calendar.holidays.standDownThroughMonday ? " and the Monday after" : ""}`
+              : "work continues through holidays"}
+            .
+          </li>
           <li>Work days: {d.calendar.workDays.map((w) => DAYS[w]).join(", ")}; shifts: {d.calendar.shifts.map((sh) => `${sh.name} ${hour(sh.startHour)} for ${sh.lengthHours} h`).join("; ")}.</li>
           <li>
             Lane closures:{" "}
@@ -94,10 +100,15 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
                 {o.gates.minTempF !== undefined ? `, needs ≥ ${o.gates.minTempF} °F${o.gates.rising ? " and rising" : ""}` : ""}
                 {o.gates.noRain ? ", no rain" : ""}
                 {o.gates.noRainHoursAfter ? ` and ${o.gates.noRainHoursAfter} h dry after` : ""}
-                {o.gates.maxEvaporation !== undefined ? `, evaporation ≤ ${o.gates.maxEvaporation} lb/ft²/h` : ""}.
+                {o.gates.maxEvaporation !== undefined ? `, evaporation ≤ ${o.gates.maxEvaporation} lb/ft²/h` : ""}
+                {o.gates.maxTempF !== undefined ? `, at most ${o.gates.maxTempF} °F` : ""}
+                {o.gates.protectAfter?.minTempF !== undefined && o.gates.protectAfter.hours ? `, air ≥ ${o.gates.protectAfter.minTempF} °F for ${o.gates.protectAfter.hours} h after` : ""}.
               </li>
             ) : (
-              <li key={o.id}>{o.name}: a timed wait ({o.durationHours.type === "fixed" ? `${o.durationHours.value} h` : "a distribution of hours"}).</li>
+              <li key={o.id}>
+                {o.name}: a timed wait ({o.durationHours.type === "fixed" ? `${o.durationHours.value} h` : "a distribution of hours"}
+                {o.countAboveF !== undefined ? `, counting only hours at or above ${o.countAboveF} °F` : ""}).
+              </li>
             ),
           )}
           <li>

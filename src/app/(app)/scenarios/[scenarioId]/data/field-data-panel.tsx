@@ -5,14 +5,10 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError, type FieldProblem } from "@/lib/api-client";
 import { applyClimateFit, applySurvey } from "@/lib/csv/apply";
 import { formatDateTime, formatStation, formatPercent } from "@/lib/format";
-import type { ClimateFit } from "@sim/weather-fit";
 import type { SurveyRange } from "@/lib/csv/survey-csv";
+import { WeatherPreview, type WeatherPreviewData } from "./weather-preview";
 
-const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
-
-type Preview =
-  | { kind: "weather"; fit: ClimateFit; current: { monthly: Record<string, number>[] }; days: number; from: string; to: string }
-  | { kind: "survey"; ranges: SurveyRange[]; current: SurveyRange[] };
+type Preview = WeatherPreviewData | { kind: "survey"; ranges: SurveyRange[]; current: SurveyRange[] };
 
 interface UploadReply {
   upload: { id: string; filename: string; rowCount: number };
@@ -78,60 +74,6 @@ function ApplyButton({ scenarioId, label, build }: { scenarioId: string; label: 
   );
 }
 
-function WeatherPreview({ p }: { p: Extract<Preview, { kind: "weather" }> }) {
-  const cell = (cur: number, fit: number | null | undefined, digits = 1) => (
-    <td className="table-cell whitespace-nowrap">
-      {cur.toFixed(digits)} <span className="text-muted">→</span> <span className="font-semibold">{fit == null ? "—" : fit.toFixed(digits)}</span>
-    </td>
-  );
-  return (
-    <div className="mt-4 overflow-x-auto">
-      <p className="text-sm">
-        {p.days.toLocaleString("en-US")} days from {p.from} to {p.to}. Current value → fitted value (means of dry days, °F; wet-day chances per day).
-      </p>
-      {p.fit.problems.length > 0 && (
-        <ul className="mt-2 list-disc pl-5 text-sm text-warn">
-          {p.fit.problems.slice(0, 12).map((m) => (
-            <li key={m}>{m}</li>
-          ))}
-        </ul>
-      )}
-      <table className="mt-3 w-full min-w-[640px] border-collapse" data-testid="weather-fit-table">
-        <thead>
-          <tr>
-            <th className="table-head">Month</th>
-            <th className="table-head">Max °F</th>
-            <th className="table-head">Min °F</th>
-            <th className="table-head">P(wet | dry)</th>
-            <th className="table-head">P(wet | wet)</th>
-            <th className="table-head">Wind mph</th>
-            <th className="table-head">Days</th>
-          </tr>
-        </thead>
-        <tbody>
-          {MONTHS.map((m, i) => {
-            const cur = p.current.monthly[i];
-            const f = p.fit.monthly[i];
-            return (
-              <tr key={m}>
-                <th scope="row" className="table-cell text-left font-medium">
-                  {m}
-                </th>
-                {cell(cur.tmaxMeanF, f?.tmaxMeanF)}
-                {cell(cur.tminMeanF, f?.tminMeanF)}
-                {cell(cur.pWetAfterDry, f?.pWetAfterDry, 2)}
-                {cell(cur.pWetAfterWet, f?.pWetAfterWet, 2)}
-                {cell(cur.windMeanMph, f?.windMeanMph)}
-                <td className="table-cell">{f?.counts.days ?? 0}</td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
-  );
-}
-
 function SurveyPreview({ p }: { p: Extract<Preview, { kind: "survey" }> }) {
   return (
     <div className="mt-4 overflow-x-auto">
@@ -162,7 +104,7 @@ function SurveyPreview({ p }: { p: Extract<Preview, { kind: "survey" }> }) {
 
 function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" | "survey" }) {
   const [file, setFile] = useState<File | null>(null);
-  const [units, setUnits] = useState({ temperature: "F", precipitation: "in", wind: "mph" });
+  const [units, setUnits] = useState({ temperature: "auto", precipitation: "auto", wind: "auto" });
   const qc = useQueryClient();
   const check = useMutation({
     mutationFn: () => {
@@ -181,8 +123,11 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
       <p className="mt-1 text-sm text-muted">
         {kind === "weather" ? (
           <>
-            A CSV with the columns <code>date, tmax, tmin, precip</code> and optionally <code>wind</code>, one row a day (a nearby station&apos;s record, several
-            years if you have them). Pourline fits the monthly climate profile and shows it beside the current one before anything changes.
+            A station&apos;s daily record as CSV, one row a day (several years if you have them): a date, the maximum and minimum temperature,
+            precipitation and optionally wind. Common column names are understood — <code>TMAX</code>, <code>temp_max</code>, <code>Max Temp (°F)</code>,{" "}
+            <code>PRCP</code>, <code>precipitation</code>, <code>AWND</code> … — and other columns are ignored; days with a value missing are skipped. Units
+            are read from the headers unless you choose them. Pourline shows which column it read as what, checks that the months look like a real
+            climate, and fits the monthly profile beside the current one before anything changes.
           </>
         ) : (
           <>
@@ -212,6 +157,7 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
                 Temperatures in
               </label>
               <select id="unit-temperature" className="field-input" value={units.temperature} onChange={(e) => setUnits({ ...units, temperature: e.target.value })}>
+                <option value="auto">as the file says</option>
                 <option value="F">°F</option>
                 <option value="C">°C</option>
               </select>
@@ -221,6 +167,7 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
                 Precipitation in
               </label>
               <select id="unit-precipitation" className="field-input" value={units.precipitation} onChange={(e) => setUnits({ ...units, precipitation: e.target.value })}>
+                <option value="auto">as the file says</option>
                 <option value="in">inches</option>
                 <option value="mm">millimetres</option>
               </select>
@@ -230,8 +177,10 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
                 Wind in
               </label>
               <select id="unit-wind" className="field-input" value={units.wind} onChange={(e) => setUnits({ ...units, wind: e.target.value })}>
+                <option value="auto">as the file says</option>
                 <option value="mph">mph</option>
                 <option value="kmh">km/h</option>
+                <option value="ms">m/s</option>
               </select>
             </div>
           </>

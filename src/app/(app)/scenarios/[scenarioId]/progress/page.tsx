@@ -93,7 +93,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           simulates the rest. The discovered-condition rate seen so far updates the risk for the rest of the deck (a beta-binomial update: the survey counts as much
           as 20 inspected packets).
         </p>
-        {canRun && <ReforecastPanel scenarioId={scenario.id} defaultDate={lastDate || plan.startDate} minDate={plan.startDate} />}
+        {canRun && <ReforecastPanel scenarioId={scenario.id} defaultDate={lastDate || plan.startDate} minDate={plan.startDate} maxDate={facts.today} />}
         {digest && (
           <p className="text-sm" data-testid="reforecast-digest">
             Latest re-forecast from {formatIsoDate(latestRe!.dataDate)}: {digest.entriesUsed} shifts used; {digest.discovery.found} of {digest.discovery.inspected} inspected

@@ -135,16 +135,16 @@ export function ProgressForm({
         </div>
         <div>
           <label className="field-label" htmlFor={`${idp}fromStationFt`}>
-            From station (ft)
+            From station (ft or 12+50)
           </label>
-          <input type="number" step="any" className="field-input" {...aria("fromStationFt")} {...register("fromStationFt", num)} />
+          <input type="text" inputMode="decimal" className="field-input" placeholder="1250 or 12+50" {...aria("fromStationFt")} {...register("fromStationFt")} />
           {err("fromStationFt")}
         </div>
         <div>
           <label className="field-label" htmlFor={`${idp}toStationFt`}>
-            To station (ft)
+            To station (ft or 12+50)
           </label>
-          <input type="number" step="any" className="field-input" {...aria("toStationFt")} {...register("toStationFt", num)} />
+          <input type="text" inputMode="decimal" className="field-input" placeholder="1250 or 12+50" {...aria("toStationFt")} {...register("toStationFt")} />
           {err("toStationFt")}
         </div>
         <div>
@@ -203,14 +203,14 @@ export function ProgressForm({
               <label className="field-label" htmlFor={`${idp}discovered.${i}.fromStationFt`}>
                 From (ft)
               </label>
-              <input type="number" step="any" className="field-input" {...aria(`discovered.${i}.fromStationFt`)} {...register(`discovered.${i}.fromStationFt`, num)} />
+              <input type="text" inputMode="decimal" className="field-input" placeholder="12+50" {...aria(`discovered.${i}.fromStationFt`)} {...register(`discovered.${i}.fromStationFt`)} />
               {err(`discovered.${i}.fromStationFt`)}
             </div>
             <div>
               <label className="field-label" htmlFor={`${idp}discovered.${i}.toStationFt`}>
                 To (ft)
               </label>
-              <input type="number" step="any" className="field-input" {...aria(`discovered.${i}.toStationFt`)} {...register(`discovered.${i}.toStationFt`, num)} />
+              <input type="text" inputMode="decimal" className="field-input" placeholder="12+50" {...aria(`discovered.${i}.toStationFt`)} {...register(`discovered.${i}.toStationFt`)} />
               {err(`discovered.${i}.toStationFt`)}
             </div>
             <div>

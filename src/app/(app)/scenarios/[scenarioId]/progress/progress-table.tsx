@@ -62,10 +62,16 @@ function History({ entryId }: { entryId: string }) {
   );
 }
 
+const PAGE = 30;
+
 export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: { scenarioId: string; entries: EntryView[]; facts: PlanFacts; canRecord: boolean; names: Record<string, string> }) {
   const router = useRouter();
   const [open, setOpen] = useState<{ id: string; mode: "edit" | "history" } | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
+  // A season's log runs to hundreds of shifts: the latest come first, the rest on request.
+  const [showAll, setShowAll] = useState(false);
+  const newestFirst = [...entries].reverse();
+  const shown = showAll ? newestFirst : newestFirst.slice(0, PAGE);
   const shiftName = (id: string) => facts.shifts.find((s) => s.id === id)?.name ?? id;
 
   async function remove(e: EntryView) {
@@ -95,7 +101,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
       )}
       <div className="overflow-x-auto">
         <table className="w-full text-sm" data-testid="progress-table">
-          <caption className="sr-only">Recorded shifts, oldest first</caption>
+          <caption className="sr-only">Recorded shifts, newest first</caption>
           <thead>
             <tr className="border-b border-line text-left">
               <th scope="col" className="py-2 pr-3">Date</th>
@@ -113,7 +119,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
             </tr>
           </thead>
           <tbody>
-            {entries.map((e) => (
+            {shown.map((e) => (
               <Fragment key={e.id}>
                 <tr className="border-b border-line/60 align-top" data-testid="progress-row">
                   <td className="py-2 pr-3 whitespace-nowrap">{formatIsoDate(e.workDate)}</td>
@@ -177,6 +183,14 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
           </tbody>
         </table>
       </div>
+      {entries.length > PAGE && (
+        <p className="mt-3 text-sm">
+          {showAll ? `All ${entries.length} shifts shown.` : `The latest ${PAGE} of ${entries.length} shifts.`}{" "}
+          <button type="button" className="btn-secondary ml-2" onClick={() => setShowAll(!showAll)}>
+            {showAll ? `Show the latest ${PAGE}` : `Show all ${entries.length}`}
+          </button>
+        </p>
+      )}
     </div>
   );
 }

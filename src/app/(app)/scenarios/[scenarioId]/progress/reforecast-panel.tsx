@@ -1,7 +1,7 @@
 "use client";
 /**
  * "Re-forecast from <data date>": the server re-runs the engine from the as-built state at the data date
- * (at most 5,000 iterations) and stores it; the page then shows the new point on the drift chart.
+ * (at most 5,000 iterations) and stores it; a data date after today is refused (nothing can be recorded yet); the page then shows the new point on the drift chart.
  */
 import { useRouter } from "next/navigation";
 import { useState } from "react";
@@ -11,7 +11,7 @@ import { formatIsoDate } from "@/lib/format";
 
 const ITERATIONS = [500, 1_000, 2_000, 5_000];
 
-export function ReforecastPanel({ scenarioId, defaultDate, minDate }: { scenarioId: string; defaultDate: string; minDate: string }) {
+export function ReforecastPanel({ scenarioId, defaultDate, minDate, maxDate }: { scenarioId: string; defaultDate: string; minDate: string; maxDate: string }) {
   const router = useRouter();
   const [dataDate, setDataDate] = useState(defaultDate);
   const [iterations, setIterations] = useState(1_000);
@@ -27,7 +27,7 @@ export function ReforecastPanel({ scenarioId, defaultDate, minDate }: { scenario
         <label htmlFor="reforecast-date" className="field-label">
           Data date
         </label>
-        <input id="reforecast-date" type="date" className="field-input" min={minDate} value={dataDate} onChange={(e) => setDataDate(e.target.value)} />
+        <input id="reforecast-date" type="date" className="field-input" min={minDate} max={maxDate} value={dataDate} onChange={(e) => setDataDate(e.target.value)} />
       </div>
       <div>
         <label htmlFor="reforecast-iterations" className="field-label">

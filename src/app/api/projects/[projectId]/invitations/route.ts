@@ -3,7 +3,7 @@ import { AppError, handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { invitationSchema } from "@/lib/server/mail/schemas";
 import { newShareToken } from "@/lib/server/share-token";
-import { enqueueMail } from "@/lib/server/mail/outbox";
+import { enqueueMailsFor } from "@/lib/server/mail/outbox";
 import { invitationMail } from "@/lib/server/mail/templates";
 import { appBaseUrl } from "@/lib/server/mail/links";
 import { insertInvitation, listPendingInvitations } from "@db/queries/invitations";
@@ -37,7 +37,7 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   const link = `${appBaseUrl(req)}/invite/${token}`;
   const row = await inTransaction(async (tx) => {
     const inv = await insertInvitation({ tx, projectId, email, role: body.role, tokenHash, invitedById: user.id, expiresAt });
-    await enqueueMail(tx, invitationMail({ to: email, projectName: project.name, role: body.role, inviterName: user.name, link, expiresAt }));
+    await enqueueMailsFor(tx, { userId: user.id, projectId }, [invitationMail({ to: email, projectName: project.name, role: body.role, inviterName: user.name, link, expiresAt })]);
     return inv;
   });
   return NextResponse.json(row, { status: 201 });

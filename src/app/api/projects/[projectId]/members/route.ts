@@ -2,7 +2,8 @@ import { NextResponse } from "next/server";
 import { AppError, handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { memberSchema } from "@/lib/schemas";
-import { listMembers, upsertMember } from "@db/queries/projects";
+import { changeMembership, listMembers } from "@db/queries/projects";
+import { LAST_ADMIN } from "@/lib/server/membership";
 import { getUserByEmail } from "@db/queries/users";
 
 type Ctx = { params: Promise<{ projectId: string }> };
@@ -20,6 +21,7 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   const body = await readJson(req, memberSchema);
   const user = await getUserByEmail({ email: body.email });
   if (!user) throw new AppError("bad_request", "No Pourline user has that e-mail.", [{ path: "email", message: "is not a Pourline user" }]);
-  await upsertMember({ projectId, userId: user.id, role: body.role });
+  const change = await changeMembership({ projectId, userId: user.id, role: body.role });
+  if (!change.ok) throw new AppError("conflict", LAST_ADMIN, [{ path: "role", message: "would leave the project without an administrator" }]);
   return NextResponse.json({ ok: true }, { status: 201 });
 });

@@ -17,7 +17,8 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
   const { user } = await requireProject(projectId, "editScenario");
   const body = await readJson(req, scenarioWriteSchema);
-  validateDefinition(body.definition);
-  const row = await createScenario({ projectId, name: body.name, description: body.description, definition: body.definition, userId: user.id, changeNote: body.changeNote || "Created" });
+  // The parse output is stored, not the body: unknown keys are dropped and defaults written out.
+  const definition = validateDefinition(body.definition);
+  const row = await createScenario({ projectId, name: body.name, description: body.description, definition, userId: user.id, changeNote: body.changeNote || "Created" });
   return NextResponse.json(row, { status: 201 });
 });

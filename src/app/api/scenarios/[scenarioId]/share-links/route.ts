@@ -5,7 +5,7 @@ import { shareLinkSchema } from "@/lib/schemas";
 import { createShareLink, listShareLinks } from "@db/queries/shares";
 import { inTransaction } from "@db/queries/mail";
 import { newShareToken } from "@/lib/server/share-token";
-import { enqueueMail } from "@/lib/server/mail/outbox";
+import { enqueueMailsFor } from "@/lib/server/mail/outbox";
 import { shareLinkMail } from "@/lib/server/mail/templates";
 import { appBaseUrl } from "@/lib/server/mail/links";
 
@@ -30,10 +30,12 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   const path = `/shared/${token}`;
   const recipients = [...new Set(body.emailTo.map((e) => e.trim().toLowerCase()))];
   const row = await inTransaction(async (tx) => {
-    const link = await createShareLink({ scenarioId, tokenHash, label: body.label, userId: user.id, expiresAt, tx });
-    for (const to of recipients) {
-      await enqueueMail(tx, shareLinkMail({ to, scenarioName: scenario.name, senderName: user.name, label: body.label, link: `${appBaseUrl(req)}${path}`, expiresAt }));
-    }
+    const link = await createShareLink({ scenarioId, tokenHash, label: body.label, userId: user.id, expiresAt, scope: "scenario", tx });
+    await enqueueMailsFor(
+      tx,
+      { userId: user.id, projectId: scenario.projectId },
+      recipients.map((to) => shareLinkMail({ to, scenarioName: scenario.name, senderName: user.name, label: body.label, link: `${appBaseUrl(req)}${path}`, expiresAt })),
+    );
     return link;
   });
   return NextResponse.json({ ...row, token, path, emailedTo: recipients }, { status: 201 });

@@ -8,11 +8,23 @@ import { looksLikeText, MAX_UPLOAD_BYTES, type RowProblem } from "@/lib/csv/comm
 import { parseWeatherCsv } from "@/lib/csv/weather-csv";
 import { parseSurveyCsv } from "@/lib/csv/survey-csv";
 import { fitClimateProfile } from "@sim/weather-fit";
+import { controlCharacterIn } from "@sim/text";
+import { LIMITS } from "@sim/limits";
+import { readBodyBytes } from "@/lib/server/json-body";
+
+/** The file plus the form's other fields and multipart framing. */
+const MAX_UPLOAD_BODY_BYTES = MAX_UPLOAD_BYTES + 64 * 1024;
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
 const uploadFields = z.discriminatedUnion("kind", [
-  z.object({ kind: z.literal("weather"), temperature: z.enum(["F", "C"]), precipitation: z.enum(["in", "mm"]), wind: z.enum(["mph", "kmh"]).default("mph") }),
+  z.object({
+    kind: z.literal("weather"),
+    // "auto": the unit the column's header states, else guessed from the values (the answer says which).
+    temperature: z.enum(["auto", "F", "C"], { error: "Temperature unit must be °F, °C or read from the file" }).default("auto"),
+    precipitation: z.enum(["auto", "in", "mm"], { error: "Precipitation unit must be inches, millimetres or read from the file" }).default("auto"),
+    wind: z.enum(["auto", "mph", "kmh", "ms"], { error: "Wind unit must be mph, km/h, m/s or read from the file" }).default("auto"),
+  }),
   z.object({ kind: z.literal("survey") }),
 ]);
 
@@ -24,12 +36,14 @@ export const GET = handler(async (_req: Request, ctx: Ctx) => {
   return NextResponse.json({ uploads: await listUploads({ scenarioId }) });
 });
 
-function rowErrors(problems: RowProblem[]) {
-  const shown = problems.slice(0, 200);
+function rowErrors(problems: RowProblem[], read?: { columns: { header: string; readAs: string; unit: string | null }[]; ignored: string[] }) {
+  // A unit question (row 1, "… unit") is about the whole file, not a row.
+  const where = (p: RowProblem) => (p.field.endsWith(" unit") ? p.field : `row ${p.row}${p.field.startsWith("(") ? "" : ` · ${p.field}`}`);
+  const howRead = read?.columns.length ? ` Read as: ${read.columns.map((c) => `“${c.header}” = ${c.readAs}${c.unit ? ` in ${c.unit}` : ""}`).join("; ")}.` : "";
   return new AppError(
     "bad_request",
-    `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix the rows and upload again.`,
-    shown.map((p) => ({ path: `row ${p.row}${p.field.startsWith("(") ? "" : ` · ${p.field}`}`, message: p.message })),
+    `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix them and upload again.${howRead}`,
+    problems.map((p) => ({ path: where(p), message: p.message })),
   );
 }
 
@@ -37,9 +51,14 @@ function rowErrors(problems: RowProblem[]) {
 export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario, user } = await requireScenario(scenarioId, "editScenario");
+  // The body is read under a byte limit first (Content-Length and counted), so a huge upload is refused early.
+  const bytes = await readBodyBytes(req, MAX_UPLOAD_BODY_BYTES);
+  if (bytes === "too_large") {
+    throw new AppError("too_large", `The upload is too large: the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB for a file. Nothing was imported.`, [{ path: "file", message: `must be at most ${MAX_UPLOAD_BYTES / 1024 / 1024} MB` }]);
+  }
   let form: FormData;
   try {
-    form = await req.formData();
+    form = await new Response(bytes as BodyInit, { headers: { "content-type": req.headers.get("content-type") ?? "" } }).formData();
   } catch {
     throw new AppError("bad_request", "Send the file as a form upload (multipart/form-data).", [{ path: "file", message: "is missing" }]);
   }
@@ -50,25 +69,34 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   if (file.size > MAX_UPLOAD_BYTES) {
     throw new AppError("too_large", `The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the limit is ${MAX_UPLOAD_BYTES / 1024 / 1024} MB.`, [{ path: "file", message: "is larger than 5 MB" }]);
   }
-  const bytes = new Uint8Array(await file.arrayBuffer());
+  if (file.name.length > 200 || controlCharacterIn(file.name)) {
+    throw new AppError("bad_request", "The file name is too long or contains control characters; rename the file and upload it again.", [{ path: "file", message: "has a file name longer than 200 characters or with control characters" }]);
+  }
+  const content = new Uint8Array(await file.arrayBuffer());
   const nameOk = /\.(csv|txt)$/i.test(file.name);
-  if (!nameOk || !CSV_TYPES.has(file.type) || !looksLikeText(bytes)) {
+  if (!nameOk || !CSV_TYPES.has(file.type) || !looksLikeText(content)) {
     throw new AppError("unsupported", `“${file.name}” is not a CSV file. Export the sheet as CSV (comma-separated values) and upload that.`, [{ path: "file", message: "is not a CSV file" }]);
   }
-  const text = new TextDecoder("utf-8", { fatal: false }).decode(bytes);
+  const text = new TextDecoder("utf-8", { fatal: false }).decode(content);
   const definition = validateDefinition(scenario.definition);
 
   let preview: Record<string, unknown>;
   let rowCount: number;
   if (fields.data.kind === "weather") {
-    const { observations, problems } = parseWeatherCsv(text, { temperature: fields.data.temperature, precipitation: fields.data.precipitation, wind: fields.data.wind });
-    if (problems.length) throw rowErrors(problems);
+    const { observations, problems, columns, ignored, skipped } = parseWeatherCsv(text, { temperature: fields.data.temperature, precipitation: fields.data.precipitation, wind: fields.data.wind });
+    if (problems.length) throw rowErrors(problems, { columns, ignored });
     const fit = fitClimateProfile(observations);
     rowCount = observations.length;
-    preview = { kind: "weather", fit, current: definition.weather, days: observations.length, from: observations[0]?.date, to: observations.at(-1)?.date };
+    preview = { kind: "weather", fit, current: definition.weather, days: observations.length, from: observations[0]?.date, to: observations.at(-1)?.date, columns, ignored, skipped };
   } else {
     const { ranges, problems } = parseSurveyCsv(text, definition.deck);
     if (problems.length) throw rowErrors(problems);
+    // Refused here rather than when the plan is saved: a scenario holds at most LIMITS.surveyRanges ranges.
+    if (ranges.length > LIMITS.surveyRanges) {
+      throw new AppError("bad_request", `The survey has ${ranges.length.toLocaleString("en-US")} ranges; a scenario holds at most ${LIMITS.surveyRanges}. Merge neighbouring ranges and upload again.`, [
+        { path: "file", message: `at most ${LIMITS.surveyRanges} survey ranges (got ${ranges.length.toLocaleString("en-US")})` },
+      ]);
+    }
     rowCount = ranges.length;
     preview = { kind: "survey", ranges, current: definition.deck.survey };
   }
@@ -78,7 +106,7 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
     kind: fields.data.kind,
     filename: file.name,
     contentType: file.type || "text/csv",
-    content: Buffer.from(bytes),
+    content: Buffer.from(content),
     rowCount,
     userId: user.id,
   });

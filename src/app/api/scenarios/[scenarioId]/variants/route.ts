@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { handler, readJson } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
+import { validateDefinition } from "@/lib/server/scenario-input";
 import { variantSchema } from "@/lib/schemas";
 import { createScenario } from "@db/queries/scenarios";
 
@@ -9,7 +10,8 @@ export const POST = handler(async (req: Request, ctx: { params: Promise<{ scenar
   const { scenarioId } = await ctx.params;
   const { user, scenario } = await requireScenario(scenarioId, "editScenario");
   const body = await readJson(req, variantSchema);
-  const definition = { ...scenario.definition, name: body.name };
+  // Re-parsed, so a copy of a row stored before parse outputs were stored carries no unknown keys either.
+  const definition = validateDefinition({ ...scenario.definition, name: body.name });
   const row = await createScenario({
     projectId: scenario.projectId,
     name: body.name,

@@ -1,19 +1,24 @@
 /**
  * Seeds the invented demo — the Kestrel Bay Causeway (fictional State Route 19, Marrin County) — with users of
- * every role and saved scenarios, each with a stored run. Runs only on an empty database, in one transaction,
- * so a second `npm start` keeps what users saved and a failed seed leaves nothing half-written.
+ * every role and saved scenarios, each with a stored run. The demo is a job in progress on the seeding day
+ * (`now`, injected so tests pin the clock; see scripts/demo-job.ts): its dates are moved so the first season
+ * has started before today, the main scenario carries the field log up to yesterday, and re-forecasts at
+ * several data dates give the forecast drift. Runs are stored with the same record builders the app uses
+ * (`src/lib/run-record.ts`). Runs only on an empty database, in one transaction, so a second `npm start`
+ * keeps what users saved and a failed seed leaves nothing half-written.
  */
 import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { createHash, randomUUID } from "node:crypto";
 import { sql } from "drizzle-orm";
-import { createPool, databaseUrl } from "./client";
-import { closureSubscribers, projectMembers, projects, scenarioRevisions, scenarios, simulationRuns, users, type Role } from "./schema";
+import { createPool, databaseUrl } from "../db/client";
+import { closureSubscribers, progressEntries, progressHistory, projectMembers, projects, scenarioRevisions, scenarios, simulationRuns, users, type Role } from "../db/schema";
 import { hashPassword } from "../src/lib/server/password";
+import { todayIn } from "../src/lib/progress-schema";
+import { planRunRecord, reforecastRunRecord } from "../src/lib/run-record";
 import { parseScenario } from "../sim/validate";
-import { compileScenario, runIterations, summarizeRun } from "../sim/index";
-import { headlineOf, inputsHash } from "../src/lib/run-record";
-import { insertDemoProgress } from "./demo-progress";
+import { parseIsoDate, formatDayNumber } from "../sim/dates";
+import { demoDataDates, demoDayShift, demoFieldLog, shiftDates } from "./demo-job";
 
 export const DEMO_SCENARIO_FILES = [
   "kestrel-two-season.json",
@@ -34,26 +39,32 @@ interface DemoUser {
 
 const readJson = (rel: string) => JSON.parse(readFileSync(fileURLToPath(new URL(rel, import.meta.url)), "utf8"));
 
-export async function seed(url: string): Promise<"seeded" | "skipped"> {
+/** Noon UTC of a day number: a stored time for a run made that day. */
+const noonOf = (day: number) => new Date(`${formatDayNumber(day)}T12:00:00Z`);
+
+export async function seed(url: string, { now = new Date() }: { now?: Date } = {}): Promise<"seeded" | "skipped"> {
   const pool = createPool(url, 2);
   try {
     const [{ n }] = await pool.db.select({ n: sql<number>`count(*)::int` }).from(users);
     if (n > 0) return "skipped";
 
-    const demoUsers = readJson("./demo-users.json") as DemoUser[];
-    const definitions = DEMO_SCENARIO_FILES.map((f) => {
-      const parsed = parseScenario(readJson(`../scenarios/${f}`));
-      if (!parsed.ok) throw new Error(`scenarios/${f} is invalid: ${parsed.problems.map((p) => `${p.path}: ${p.message}`).join("; ")}`);
-      return { file: f, raw: readJson(`../scenarios/${f}`) as Record<string, unknown>, scenario: parsed.scenario };
+    const demoUsers = readJson("../db/demo-users.json") as DemoUser[];
+    const files = DEMO_SCENARIO_FILES.map((f) => ({ file: f, raw: readJson(`../scenarios/${f}`) as Record<string, unknown> & { startDate: string; timeZone?: string } }));
+    const today = todayIn(files[0].raw.timeZone ?? "America/Chicago", now);
+    const shift = demoDayShift(files[0].raw.startDate, today);
+    const definitions = files.map(({ file, raw: original }) => {
+      const raw = shiftDates(original, shift);
+      const parsed = parseScenario(raw);
+      if (!parsed.ok) throw new Error(`scenarios/${file} is invalid: ${parsed.problems.map((p) => `${p.path}: ${p.message}`).join("; ")}`);
+      return { file, raw, scenario: parsed.scenario };
     });
     // The engine runs before the transaction opens, so the transaction is short.
-    const runs = definitions.map(({ scenario }) => {
-      const started = Date.now();
-      const compiled = compileScenario(scenario);
-      const partial = runIterations(compiled, DEMO_SEED, 0, DEMO_ITERATIONS);
-      const summary = summarizeRun(compiled, partial);
-      return { summary, durationMs: Date.now() - started };
-    });
+    const runs = definitions.map(({ raw, scenario }) => planRunRecord({ plan: scenario, definition: raw, seed: DEMO_SEED, iterations: DEMO_ITERATIONS }));
+    const main = definitions[0];
+    const fieldLog = demoFieldLog(main.scenario, today);
+    const reforecasts = demoDataDates(main.scenario, fieldLog, today).map((dataDate) =>
+      reforecastRunRecord({ plan: main.scenario, definition: main.raw, records: fieldLog, dataDate, seed: DEMO_SEED, iterations: DEMO_ITERATIONS }),
+    );
     const hashes = await Promise.all(demoUsers.map((u) => hashPassword(u.password)));
 
     await pool.db.transaction(async (tx) => {
@@ -108,20 +119,20 @@ export async function seed(url: string): Promise<"seeded" | "skipped"> {
           })
           .returning({ id: scenarios.id, version: scenarios.version });
         await tx.insert(scenarioRevisions).values({ scenarioId: row.id, version: row.version, definition: raw, savedById: ownerId, changeNote: "Demo scenario" });
-        // The main demo carries an illustrative first week of field progress (see db/demo-progress.ts).
-        if (k === 0) await insertDemoProgress(tx, { projectId: kestrel.id, scenarioId: row.id, userId: ids[demoUsers.findIndex((u) => u.role === "inspector")], scenario });
-        const { summary, durationMs } = runs[k];
-        await tx.insert(simulationRuns).values({
-          scenarioId: row.id,
-          scenarioVersion: row.version,
-          inputsHash: inputsHash(raw, DEMO_SEED, DEMO_ITERATIONS),
-          seed: DEMO_SEED,
-          iterations: DEMO_ITERATIONS,
-          summary: headlineOf(summary),
-          results: summary as unknown as Record<string, unknown>,
-          durationMs,
-          createdById: ownerId,
-        });
+        // The plan run is the baseline, made the week before work began.
+        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...runs[k], createdById: ownerId, createdAt: noonOf(parseIsoDate(scenario.startDate) - 7) });
+        if (k !== 0) continue;
+        // The main demo is under way: the inspector's field log up to yesterday, and the engineer's
+        // re-forecasts the day after each data date (the drift history).
+        const inspectorId = ids[demoUsers.findIndex((u) => u.role === "inspector")];
+        const inserted = await tx
+          .insert(progressEntries)
+          .values(fieldLog.map((e) => ({ projectId: kestrel.id, scenarioId: row.id, ...e, enteredById: inspectorId, createdAt: noonOf(parseIsoDate(e.workDate) + 1) })))
+          .returning({ id: progressEntries.id });
+        await tx.insert(progressHistory).values(inserted.map((r, i) => ({ entryId: r.id, changedById: inspectorId, before: null, after: fieldLog[i], changedAt: noonOf(parseIsoDate(fieldLog[i].workDate) + 1) })));
+        for (const { headline: _h, reforecast: _r, ...columns } of reforecasts) {
+          await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1) });
+        }
       }
     });
     return "seeded";

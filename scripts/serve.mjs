@@ -1,0 +1,38 @@
+#!/usr/bin/env node
+// Serves the built app, like `next start -H $HOST -p $PORT`, plus one thing `next start` does not give the
+// app: the address of the connected peer, written into the x-pourline-peer header after dropping any copy a
+// client sent. The app needs it to know whether a request came through a trusted proxy (TRUSTED_PROXY), the
+// only case in which X-Forwarded-For is believed. Binds to 127.0.0.1 unless HOST says otherwise.
+import { createServer } from "node:http";
+import { dirname, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import next from "next";
+
+const PEER_HEADER = "x-pourline-peer";
+const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+const port = Number(process.env.PORT || 3000);
+const host = process.env.HOST || "127.0.0.1";
+
+const app = next({ dev: false, dir: root, hostname: host, port });
+const handle = app.getRequestHandler();
+await app.prepare();
+
+const server = createServer((req, res) => {
+  req.headers[PEER_HEADER] = req.socket.remoteAddress ?? "";
+  handle(req, res).catch((e) => {
+    console.error(`[pourline] request failed: ${e?.name ?? "Error"}`);
+    if (!res.headersSent) res.writeHead(500).end();
+  });
+});
+// Longer than a proxy's or an HTTP client's idle keep-alive, so the server is never the side closing a
+// connection the other end is about to reuse (a reset request) — Node's own default is 5 s.
+server.keepAliveTimeout = 65_000;
+server.headersTimeout = 66_000;
+server.listen(port, host, () => console.log(`[pourline] serving on http://${host.includes(":") ? `[${host}]` : host}:${port}`));
+
+for (const sig of ["SIGINT", "SIGTERM"]) {
+  process.on(sig, () => {
+    server.close(() => process.exit(0));
+    setTimeout(() => process.exit(0), 3_000).unref();
+  });
+}

@@ -1,0 +1,244 @@
+/**
+ * The expectations table of the API authorization matrix: one row per "METHOD /api/path/[param]". A row says what
+ * the route needs (a permission of src/lib/permissions.ts, any session, a token of some scope, or nothing) and
+ * the answer when that need is met; `expectedStatus` derives every other cell from the role table, so no cell is
+ * typed in by hand. `request` builds the call for one caller; rows that destroy something make a fresh victim.
+ */
+import { can, type Action } from "@/lib/permissions";
+import { call, demoEmail, DEMO_PASSWORD, type DemoRole } from "./app";
+import { isoDaysFromToday } from "./progress-fixture";
+import {
+  isRole,
+  must,
+  newAccount,
+  newFieldScenario,
+  newScenario,
+  newShareLink,
+  newSubscriber,
+  millingShift,
+  tokenOf,
+  uniq,
+  unknownToken,
+  type Caller,
+  type World,
+} from "./authz-world";
+import { createPastScenario } from "./progress-fixture";
+
+export type Need =
+  | { kind: "public"; status: number }
+  | { kind: "session" }
+  | { kind: "project"; action: Action }
+  | { kind: "scenario"; action: Action }
+  | { kind: "token"; scopes: ("share" | "feed")[] };
+
+export interface Prepared {
+  params: Record<string, string>;
+  query?: string;
+  body?: unknown;
+  /** Overrides the caller's usual cookie (a fresh session for sign-out, which would end the shared one). */
+  cookie?: string;
+  /** For destructive rows: is the victim still there? Must be false exactly when the call was allowed. */
+  survives?: () => Promise<boolean>;
+}
+
+export interface ApiRow {
+  need: Need;
+  ok: number;
+  request: (w: World, c: Caller) => Promise<Prepared>;
+}
+
+const signedIn = (c: Caller) => isRole(c) || c === "otherProjectAdmin";
+
+/** The answer a caller must get, from the row's need and the role table. */
+export function expectedStatus(row: ApiRow, c: Caller): number {
+  const need = row.need;
+  switch (need.kind) {
+    case "public":
+      return need.status;
+    case "session":
+      return signedIn(c) ? row.ok : 401;
+    case "project":
+    case "scenario":
+      if (!signedIn(c)) return 401;
+      if (!isRole(c)) return 404; // an administrator of another project is nobody here
+      return can(c, need.action) ? row.ok : 403;
+    case "token": {
+      const scope = c === "shareLink" ? "share" : c === "feedToken" ? "feed" : null;
+      return scope && need.scopes.includes(scope) ? row.ok : 404;
+    }
+  }
+}
+
+const proj = (w: World) => ({ projectId: w.projectId });
+const scen = (w: World) => ({ scenarioId: w.target.id });
+const admin = (w: World) => w.cookies.admin;
+
+/** A brand-new session for a signed-in caller (sign-out must not end the session other cells share). */
+async function freshSession(w: World, c: Caller): Promise<string | undefined> {
+  if (!signedIn(c)) return undefined;
+  const email = c === "otherProjectAdmin" ? w.strangerEmail : demoEmail(c as DemoRole);
+  const res = await call("/api/auth/signin", { method: "POST", body: { email, password: DEMO_PASSWORD } });
+  must(res, 200, "fresh session");
+  return res.headers.get("set-cookie")!.split(";")[0];
+}
+
+async function listed(path: string, cookie: string, key: string, id: string): Promise<boolean> {
+  const body = must(await call(path, { cookie }), 200, `list ${path}`);
+  return (body[key] as { id?: string; userId?: string }[]).some((x) => (x.id ?? x.userId) === id);
+}
+
+function surveyForm(): FormData {
+  const form = new FormData();
+  form.set("kind", "survey");
+  form.set("file", new Blob(["from_station,to_station,repair_share\n1200,1800,0.2\n1800,2400,0.05\n"], { type: "text/csv" }), "survey.csv");
+  return form;
+}
+
+export const API_ROWS: Record<string, ApiRow> = {
+  // ---- accounts: no permission, the same answer for everyone ----
+  "POST /api/auth/signin": {
+    need: { kind: "public", status: 200 },
+    ok: 200,
+    request: async (w) => ({ params: {}, body: { email: (await newAccount(w.db, "signin")).email, password: DEMO_PASSWORD } }),
+  },
+  "POST /api/auth/signout": { need: { kind: "public", status: 200 }, ok: 200, request: async (w, c) => ({ params: {}, cookie: await freshSession(w, c) }) },
+  "GET /api/auth/session": { need: { kind: "session" }, ok: 200, request: async () => ({ params: {} }) },
+  // Counted per client address (20 per 15 min): one request per caller, for an address nobody has.
+  "POST /api/auth/password-reset": { need: { kind: "public", status: 200 }, ok: 200, request: async () => ({ params: {}, body: { email: `${uniq("nobody")}@authz.example` } }) },
+  // A share or feed token is not a reset token: the caller's own token (or an unknown one) opens nothing.
+  "POST /api/auth/password-reset/confirm": {
+    need: { kind: "public", status: 404 },
+    ok: 404,
+    request: async (w, c) => ({ params: {}, body: { token: tokenOf(w, c) ?? unknownToken(), password: "a-brand-new-password" } }),
+  },
+
+  // ---- projects ----
+  "GET /api/projects": { need: { kind: "session" }, ok: 200, request: async () => ({ params: {} }) },
+  "GET /api/projects/[projectId]": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
+  "GET /api/projects/[projectId]/scenarios": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
+  "POST /api/projects/[projectId]/scenarios": {
+    need: { kind: "project", action: "editScenario" },
+    ok: 201,
+    request: async (w) => {
+      const name = uniq("created");
+      return { params: proj(w), body: { name, definition: { ...w.base, name } } };
+    },
+  },
+  "GET /api/projects/[projectId]/compare": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w), query: `ids=${w.target.id}` }) },
+  "GET /api/projects/[projectId]/members": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
+  "POST /api/projects/[projectId]/members": {
+    need: { kind: "project", action: "manageMembers" },
+    ok: 201,
+    request: async (w) => ({ params: proj(w), body: { email: (await newAccount(w.db, "added")).email, role: "viewer" } }),
+  },
+  "DELETE /api/projects/[projectId]/members/[userId]": {
+    need: { kind: "project", action: "manageMembers" },
+    ok: 200,
+    request: async (w) => {
+      const victim = await newAccount(w.db, "removed");
+      must(await call(`/api/projects/${w.projectId}/members`, { method: "POST", cookie: admin(w), body: { email: victim.email, role: "viewer" } }), 201, "member to remove");
+      return { params: { ...proj(w), userId: victim.id }, survives: () => listed(`/api/projects/${w.projectId}/members`, admin(w), "members", victim.id) };
+    },
+  },
+  "GET /api/projects/[projectId]/invitations": { need: { kind: "project", action: "manageMembers" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
+  "POST /api/projects/[projectId]/invitations": {
+    need: { kind: "project", action: "manageMembers" },
+    ok: 201,
+    request: async (w) => ({ params: proj(w), body: { email: `${uniq("invitee")}@authz.example`, role: "viewer" } }),
+  },
+  "GET /api/projects/[projectId]/closure-subscribers": { need: { kind: "project", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
+  "POST /api/projects/[projectId]/closure-subscribers": {
+    need: { kind: "project", action: "shareScenario" },
+    ok: 201,
+    request: async (w) => ({ params: proj(w), body: { email: `${uniq("subscriber")}@authz.example`, label: "matrix" } }),
+  },
+  "DELETE /api/projects/[projectId]/closure-subscribers/[subscriberId]": {
+    need: { kind: "project", action: "shareScenario" },
+    ok: 200,
+    request: async (w) => {
+      const id = await newSubscriber(w.projectId, admin(w));
+      return { params: { ...proj(w), subscriberId: id }, survives: () => listed(`/api/projects/${w.projectId}/closure-subscribers`, admin(w), "subscribers", id) };
+    },
+  },
+
+  // ---- scenarios ----
+  "GET /api/scenarios/[scenarioId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "PUT /api/scenarios/[scenarioId]": {
+    need: { kind: "scenario", action: "editScenario" },
+    ok: 200,
+    request: async (w) => {
+      const s = await newScenario(w, w.projectId, admin(w), "to update");
+      return { params: { scenarioId: s.id }, body: { name: "updated", definition: { ...w.base, name: "updated" }, version: s.version } };
+    },
+  },
+  "DELETE /api/scenarios/[scenarioId]": {
+    need: { kind: "scenario", action: "editScenario" },
+    ok: 200,
+    request: async (w) => {
+      const s = await newScenario(w, w.projectId, admin(w), "to delete");
+      return { params: { scenarioId: s.id }, survives: async () => (await call(`/api/scenarios/${s.id}`, { cookie: admin(w) })).status === 200 };
+    },
+  },
+  "POST /api/scenarios/[scenarioId]/variants": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { name: uniq("variant") } }) },
+  "GET /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "POST /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "runScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { seed: "matrix", iterations: 10 } }) },
+  "GET /api/runs/[runId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { runId: w.runId } }) },
+  "GET /api/scenarios/[scenarioId]/exports/results.csv": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "GET /api/scenarios/[scenarioId]/exports/closures.ics": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "GET /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "POST /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: surveyForm() }) },
+
+  // ---- sharing ----
+  "GET /api/scenarios/[scenarioId]/share-links": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "POST /api/scenarios/[scenarioId]/share-links": { need: { kind: "scenario", action: "shareScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { expiresInDays: 7 } }) },
+  "DELETE /api/share-links/[linkId]": {
+    need: { kind: "scenario", action: "shareScenario" },
+    ok: 200,
+    request: async (w) => {
+      const link = await newShareLink(w.target.id, admin(w));
+      return { params: { linkId: link.id }, survives: async () => (await call(`/api/shared/${link.token}`)).status === 200 };
+    },
+  },
+  "GET /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "POST /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 201, request: async (w) => ({ params: scen(w) }) },
+  // What publishing would send (sends nothing): the same permission as publishing.
+  "GET /api/scenarios/[scenarioId]/closure-publications/preview": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  // The token in the path is the only credential: a share link opens the shared view, a calendar-feed token only the feed.
+  "GET /api/shared/[token]": { need: { kind: "token", scopes: ["share"] }, ok: 200, request: async (w, c) => ({ params: { token: tokenOf(w, c) ?? unknownToken() } }) },
+  "GET /api/shared/[token]/closures.ics": {
+    need: { kind: "token", scopes: ["share", "feed"] },
+    ok: 200,
+    request: async (w, c) => ({ params: { token: tokenOf(w, c) ?? unknownToken() } }),
+  },
+
+  // ---- field log (the inspector's permission) ----
+  "GET /api/scenarios/[scenarioId]/progress": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { scenarioId: w.field.id } }) },
+  "POST /api/scenarios/[scenarioId]/progress": {
+    need: { kind: "scenario", action: "recordProgress" },
+    ok: 201,
+    request: async (w) => ({ params: { scenarioId: (await createPastScenario(admin(w), w.projectId, uniq("field log"))).id }, body: millingShift() }),
+  },
+  "GET /api/progress/[entryId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { entryId: w.field.entryId } }) },
+  "PUT /api/progress/[entryId]": {
+    need: { kind: "scenario", action: "recordProgress" },
+    ok: 200,
+    request: async (w) => {
+      const f = await newFieldScenario(w.projectId, admin(w));
+      return { params: { entryId: f.entryId }, body: { ...millingShift({ toStationFt: 350 }), version: f.entryVersion } };
+    },
+  },
+  "DELETE /api/progress/[entryId]": {
+    need: { kind: "scenario", action: "recordProgress" },
+    ok: 200,
+    request: async (w) => {
+      const f = await newFieldScenario(w.projectId, admin(w));
+      return { params: { entryId: f.entryId }, survives: async () => (await call(`/api/progress/${f.entryId}`, { cookie: admin(w) })).status === 200 };
+    },
+  },
+  "GET /api/scenarios/[scenarioId]/reforecast": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { scenarioId: w.field.id } }) },
+  "POST /api/scenarios/[scenarioId]/reforecast": {
+    need: { kind: "scenario", action: "runScenario" },
+    ok: 201,
+    request: async (w) => ({ params: { scenarioId: w.field.id }, body: { dataDate: isoDaysFromToday(-1), seed: "matrix", iterations: 10 } }),
+  },
+};
