@@ -1,12 +1,14 @@
 import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
-  // Native argon2 binding and the database driver stay on the server, loaded by Node at run time.
-  serverExternalPackages: ["@node-rs/argon2", "postgres"],
+  // Native argon2 binding, the database driver and the job queue (with its own driver) stay on the server, loaded by Node at run time.
+  serverExternalPackages: ["@node-rs/argon2", "postgres", "pg-boss", "pg"],
   poweredByHeader: false,
   // `npm test` builds into its own folder, so a test run never disturbs the app `npm start` serves.
   distDir: process.env.POURLINE_DIST_DIR ?? ".next",
   typedRoutes: false,
+  // forbidden(): a member whose role may not open a page gets 403 and the role-refusal page, not "not found".
+  experimental: { authInterrupts: true },
 };
 
 export default nextConfig;

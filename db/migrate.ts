@@ -2,6 +2,7 @@
 import { migrate } from "drizzle-orm/postgres-js/migrator";
 import { fileURLToPath } from "node:url";
 import { createPool, databaseUrl } from "./client";
+import { installQueue } from "../workers/server/boss";
 
 export async function runMigrations(url: string): Promise<void> {
   const pool = createPool(url, 1);
@@ -14,6 +15,8 @@ export async function runMigrations(url: string): Promise<void> {
   } finally {
     await pool.sql.end({ timeout: 5 });
   }
+  // The engine job queue's own tables (pg-boss), created by the same owner as ours.
+  await installQueue(url);
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {

@@ -20,6 +20,9 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { ROLES } from "./schema-enums";
+import type { SearchSpec } from "../sim/search";
+import type { PlanOutcome } from "../sim/frontier";
+import type { RunSummary } from "../sim/run-summary-schema";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 const ts = (name: string) => timestamp(name, { withTimezone: true, mode: "date" });
@@ -66,6 +69,9 @@ export const projects = pgTable("projects", {
   startStationFt: doublePrecision("start_station_ft").notNull(),
   lanes: jsonb("lanes").$type<string[]>().notNull(),
   description: text("description").notNull().default(""),
+  /** Where the structure is, for the weather forecast (set by an admin or engineer; null = not set). */
+  latitude: doublePrecision("latitude"),
+  longitude: doublePrecision("longitude"),
   createdAt: ts("created_at").notNull().defaultNow(),
 });
 export type Project = InferSelectModel<typeof projects>;
@@ -142,17 +148,30 @@ export const simulationRuns = pgTable(
     iterations: integer("iterations").notNull(),
     /** Small headline figures (P50/P80/P90 …) for lists and compare. */
     summary: jsonb("summary").$type<Record<string, unknown>>().notNull(),
-    /** The full run summary: histogram, curve, per-operation table, representative trace. */
-    results: jsonb("results").$type<Record<string, unknown>>().notNull(),
+    /**
+     * The full run summary (the run-result contract, sim/run-summary-schema.ts): histogram, curve, per-operation
+     * table, representative trace; a re-forecast adds the digest of its as-built state.
+     */
+    results: jsonb("results").$type<StoredRunResults>().notNull(),
     durationMs: integer("duration_ms").notNull().default(0),
     /** Set for a re-forecast: the run started from the as-built state at this data date (null = the plan). */
     dataDate: date("data_date"),
     createdById: text("created_by").references(() => users.id),
     createdAt: ts("created_at").notNull().defaultNow(),
+    /**
+     * `server`: computed by an engine job; `pending`: computed in a browser, not yet reproduced by the server;
+     * `verified`: reproduced exactly; `rejected`: the server got a different summary (never shown as a forecast).
+     */
+    verification: text("verification").$type<RunVerification>().notNull().default("pending"),
+    /** scenario:version:seed:iterations:kind:data date (+ as-built hash): the same computation is stored once. */
+    resultKey: text("result_key"),
   },
-  (t) => [index("runs_scenario_idx").on(t.scenarioId, t.createdAt)],
+  (t) => [index("runs_scenario_idx").on(t.scenarioId, t.createdAt), uniqueIndex("runs_result_key_idx").on(t.resultKey)],
 );
 export type SimulationRun = InferSelectModel<typeof simulationRuns>;
+/** What `simulation_runs.results` holds. Over JSON an unfinished representative's finishHours reads back as null. */
+export type StoredRunResults = RunSummary & { reforecast?: Record<string, unknown> };
+export type RunVerification = "server" | "pending" | "verified" | "rejected";
 
 /** What a share-link token opens: the read-only scenario page and its JSON, or only the closure calendar feed. */
 export const SHARE_SCOPES = ["scenario", "closure-feed"] as const;
@@ -343,4 +362,150 @@ export const closurePublications = pgTable("closure_publications", {
     .notNull()
     .references(() => users.id),
   publishedAt: ts("published_at").notNull().defaultNow(),
+});
+
+/** Which of a search's inputs a stored plan search varied, and how its variants were built. */
+export const planSearches = pgTable(
+  "plan_searches",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    scenarioId: uuid("scenario_id")
+      .notNull()
+      .references(() => scenarios.id, { onDelete: "cascade" }),
+    scenarioVersion: integer("scenario_version").notNull(),
+    name: text("name").notNull(),
+    /** A `searchSpecSchema` value (sim/search). */
+    spec: jsonb("spec").$type<SearchSpec>().notNull(),
+    method: text("method").$type<"grid" | "sample">().notNull(),
+    gridSize: integer("grid_size").notNull(),
+    createdById: text("created_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: ts("created_at").notNull().defaultNow(),
+  },
+  (t) => [index("plan_searches_scenario_idx").on(t.scenarioId, t.createdAt)],
+);
+
+/** One plan of a search: index 0 is the scenario as saved, 1… the variants. */
+export const planSearchVariants = pgTable(
+  "plan_search_variants",
+  {
+    searchId: uuid("search_id")
+      .notNull()
+      .references(() => planSearches.id, { onDelete: "cascade" }),
+    idx: integer("idx").notNull(),
+    /** Level index per dimension; null for the scenario as saved. */
+    choice: jsonb("choice").$type<number[] | null>(),
+    label: text("label").notNull(),
+    status: text("status").$type<"pending" | "done" | "infeasible" | "failed">().notNull().default("pending"),
+    outcome: jsonb("outcome").$type<PlanOutcome | null>(),
+    /** Why the variant could not be run (an invalid plan, or the engine failed). */
+    problem: text("problem"),
+    bossJobId: uuid("boss_job_id").notNull(),
+    finishedAt: ts("finished_at"),
+  },
+  (t) => [primaryKey({ columns: [t.searchId, t.idx] })],
+);
+
+/**
+ * Engine work the web server asked for: runs, re-forecasts, verifications of browser runs and plan searches.
+ * pg-boss carries the work to a worker; this row is what people see (status, progress, result) and what a
+ * worker checks before it starts, so a cancelled or finished job is never computed again.
+ */
+export const engineJobs = pgTable(
+  "engine_jobs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    kind: text("kind").$type<EngineJobKind>().notNull(),
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    scenarioId: uuid("scenario_id")
+      .notNull()
+      .references(() => scenarios.id, { onDelete: "cascade" }),
+    scenarioVersion: integer("scenario_version").notNull(),
+    seed: text("seed").notNull(),
+    iterations: integer("iterations").notNull(),
+    dataDate: date("data_date"),
+    /** verify: the run to check; run / reforecast: the stored result once done. */
+    runId: uuid("run_id").references(() => simulationRuns.id, { onDelete: "set null" }),
+    searchId: uuid("search_id").references(() => planSearches.id, { onDelete: "cascade" }),
+    /** The pg-boss job (one per job; a search has one per variant, on plan_search_variants). */
+    bossJobId: uuid("boss_job_id"),
+    singletonKey: text("singleton_key").notNull(),
+    status: text("status").$type<EngineJobStatus>().notNull().default("queued"),
+    doneUnits: integer("done_units").notNull().default(0),
+    totalUnits: integer("total_units").notNull(),
+    timeLimitSeconds: integer("time_limit_seconds").notNull(),
+    error: text("error"),
+    createdById: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: ts("created_at").notNull().defaultNow(),
+    startedAt: ts("started_at"),
+    finishedAt: ts("finished_at"),
+  },
+  (t) => [
+    // Idempotent enqueue: one live or finished job per computation; a failed or cancelled one may be asked for again.
+    uniqueIndex("engine_jobs_singleton_idx").on(t.singletonKey).where(sql`status in ('queued', 'running', 'completed')`),
+    index("engine_jobs_scenario_idx").on(t.scenarioId, t.createdAt),
+  ],
+);
+export type EngineJobKind = "run" | "reforecast" | "verify" | "search";
+export type EngineJobStatus = "queued" | "running" | "completed" | "failed" | "cancelled";
+
+/** Worker processes alive now (each refreshes its row every few seconds). */
+export const engineWorkers = pgTable("engine_workers", {
+  id: uuid("id").primaryKey(),
+  host: text("host").notNull(),
+  pid: integer("pid").notNull(),
+  threads: integer("threads").notNull(),
+  startedAt: ts("started_at").notNull().defaultNow(),
+  heartbeatAt: ts("heartbeat_at").notNull().defaultNow(),
+});
+
+/** The pg-boss jobs a worker process holds; when its heartbeat stops, another worker hands them back to the queue. */
+export const engineLeases = pgTable("engine_leases", {
+  bossJobId: uuid("boss_job_id").primaryKey(),
+  workerId: uuid("worker_id")
+    .notNull()
+    .references(() => engineWorkers.id, { onDelete: "cascade" }),
+  startedAt: ts("started_at").notNull().defaultNow(),
+});
+
+/**
+ * The last hourly forecast fetched for a project, shared by everyone who reads it (src/lib/server/forecast/
+ * cache.ts): at most one fetch per project per hour. `data` keeps the last good forecast when a later
+ * attempt fails, so the board can still show it with its age.
+ */
+export const projectForecasts = pgTable("project_forecasts", {
+  projectId: uuid("project_id")
+    .primaryKey()
+    .references(() => projects.id, { onDelete: "cascade" }),
+  /** The location the forecast is for: a changed location makes it stale at once. */
+  latitude: doublePrecision("latitude").notNull(),
+  longitude: doublePrecision("longitude").notNull(),
+  data: jsonb("data").$type<Record<string, unknown>>(),
+  fetchedAt: ts("fetched_at"),
+  lastAttemptAt: ts("last_attempt_at"),
+  lastError: text("last_error"),
+});
+
+/** The daily look-ahead e-mail of a scenario: to whom, at which local hour, and what was sent last. */
+export const lookAheadNotices = pgTable("look_ahead_notices", {
+  scenarioId: uuid("scenario_id")
+    .primaryKey()
+    .references(() => scenarios.id, { onDelete: "cascade" }),
+  enabled: boolean("enabled").notNull().default(true),
+  recipients: jsonb("recipients").$type<string[]>().notNull(),
+  /** Local hour of the scenario's time zone, 0–23. */
+  hour: integer("hour").notNull(),
+  lastSentOn: date("last_sent_on"),
+  /** The compact board of the last notice, to say what changed. */
+  lastBoard: jsonb("last_board").$type<Record<string, unknown>>(),
+  updatedById: text("updated_by")
+    .notNull()
+    .references(() => users.id),
+  updatedAt: ts("updated_at").notNull().defaultNow(),
 });

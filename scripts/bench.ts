@@ -1,5 +1,5 @@
 /**
- * Engine benchmark: `npm run bench [-- --json] [--iterations N]`. One thread, the demo scenarios in
+ * Engine benchmark: `npm run bench [-- --json] [--iterations N]` (`-- --search`: the plan-search benchmark). One thread, the demo scenarios in
  * scenarios/. For each: iterations per second of `runIterations`, and the floor — the time to draw the same
  * samples alone (drawSamples plus the same days of weather the engine read) — so `floorRatio` = engine
  * time ÷ floor time says how much the engine costs beyond generating its inputs. Targets (brief): ≥ 5,000
@@ -22,6 +22,13 @@ const json = args.includes("--json");
 const itIdx = args.indexOf("--iterations");
 const iterations = itIdx >= 0 ? Number(args[itIdx + 1]) : 3000;
 const SEED = "bench";
+
+// `--search`: the plan-search benchmark on the worker's thread pool instead (scripts/bench-search.ts).
+if (args.includes("--search")) {
+  const { benchSearch } = await import("./bench-search");
+  await benchSearch(json);
+  process.exit(0);
+}
 
 function best<T>(rounds: number, f: () => T): { ms: number; wallMs: number; value: T } {
   let ms = Infinity;

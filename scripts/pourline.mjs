@@ -46,7 +46,8 @@ function ensureNodeModules() {
   const lock = join(root, "package-lock.json");
   if (existsSync(marker) && statSync(marker).mtimeMs >= statSync(lock).mtimeMs) return;
   say("installing npm dependencies (npm ci) …");
-  const r = run("npm", ["ci", "--no-audit", "--no-fund"], { allowFail: true, what: "npm ci" });
+  // --loglevel=error: npm's notices (install scripts it has not been told to allow, funding) are not for a newcomer.
+  const r = run("npm", ["ci", "--no-audit", "--no-fund", "--loglevel=error"], { allowFail: true, what: "npm ci" });
   if (r.status !== 0) fail("npm could not install the dependencies. Check the network to the npm registry and run `npm start` again.");
 }
 
@@ -189,18 +190,24 @@ function buildApp(env) {
     say("the app build is up to date.");
     return;
   }
-  say("building the app (next build) …");
-  run(join(root, "node_modules", ".bin", "next"), ["build"], { env, what: "next build" });
+  say("building the app (next build; a few minutes the first time) …");
+  // Quiet: the route table and bundler notes are for contributors; a failed build prints its last lines.
+  run(join(root, "node_modules", ".bin", "next"), ["build"], { env, what: "next build", quiet: true });
 }
 
-/** `logFile`: also append the child's output there (the tests read the app's log through it). */
-function spawnChild(cmd, args, env, logFile) {
-  const child = spawn(cmd, args, { cwd: root, env, stdio: logFile ? ["ignore", "pipe", "pipe"] : "inherit" });
-  if (logFile) {
+// Start-up chatter of the children that `npm start` already says better in its own lines.
+const CHATTER = [/^fake SMTP listening on \d+$/, /Running next\.config\.ts took/, /^\[pourline\] serving on /];
+
+/** `logFile`: also append the child's output there (the tests read the app's log through it). `quiet`: drop CHATTER. */
+function spawnChild(cmd, args, env, logFile, { quiet = false } = {}) {
+  const piped = Boolean(logFile) || quiet;
+  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : "inherit" });
+  if (piped) {
     for (const [from, to] of [[child.stdout, process.stdout], [child.stderr, process.stderr]]) {
       from.on("data", (chunk) => {
-        to.write(chunk);
-        appendFileSync(logFile, chunk);
+        const text = quiet ? String(chunk).split("\n").filter((l) => !CHATTER.some((re) => re.test(l.replace(/\x1b\[[0-9;]*m/g, "").trim()))).join("\n") : chunk;
+        if (String(text).trim()) to.write(text);
+        if (logFile) appendFileSync(logFile, chunk);
       });
     }
   }
@@ -224,7 +231,8 @@ async function waitForHttp(url, ms) {
 function demoSignIns() {
   try {
     const users = JSON.parse(readFileSync(join(root, "db", "demo-users.json"), "utf8"));
-    return users.map((u) => `    ${u.role.padEnd(10)} ${u.email.padEnd(28)} password: ${u.password}`).join("\n");
+    const wide = Math.max(...users.map((u) => u.email.length));
+    return users.map((u) => `    ${u.role.padEnd(10)} ${u.email.padEnd(wide)}  password: ${u.password}`).join("\n");
   } catch {
     return "    (see db/demo-users.json)";
   }
@@ -238,14 +246,50 @@ async function startFakeSmtp(port, mailboxDir, env) {
   mkdirSync(mailboxDir, { recursive: true });
   // POURLINE_DEV_MAILBOX switches on the /dev/mailbox page: only here, for the local catcher this script runs.
   const mailEnv = { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(port), POURLINE_MAILBOX_DIR: mailboxDir, POURLINE_FAKE_SMTP: "1", POURLINE_DEV_MAILBOX: "1" };
-  spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, ...mailEnv });
+  spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, ...mailEnv }, null, { quiet: true });
   for (let i = 0; i < 100 && (await portFree(port)); i++) await new Promise((r) => setTimeout(r, 100));
   return mailEnv;
 }
 
+/**
+ * The engine worker beside the web server (`npm run worker` does the same by hand). Like a service manager,
+ * it is started again if it dies (a crash, or a test's `kill -9`), and stopped with everything else.
+ * `logFile`: its output also goes there, beside the app's (the tests read one log for both).
+ */
+function superviseWorker(env, logFile) {
+  let restarts = 0;
+  let stopped = false;
+  const launch = () => {
+    const child = spawnChild(join(root, "node_modules", ".bin", "tsx"), ["--conditions=react-server", join("workers", "server", "worker.ts")], env, logFile);
+    const started = Date.now();
+    child.on("exit", (code, signal) => {
+      if (stopped || shuttingDown) return;
+      restarts = Date.now() - started > 60_000 ? 0 : restarts + 1;
+      if (restarts > 5) return say("the engine worker keeps stopping; not starting it again (see the messages above).");
+      say(`the engine worker stopped (${signal ?? `exit ${code}`}); starting it again …`);
+      setTimeout(launch, 1_000);
+    });
+  };
+  launch();
+  return () => (stopped = true);
+}
+
+/**
+ * The local stand-in for the weather service (scripts/fake-forecast.ts), unless FORECAST_BASE_URL already
+ * points somewhere (the real service: FORECAST_BASE_URL=https://api.weather.gov).
+ */
+async function startFakeForecast(port, env) {
+  const script = join(root, "scripts", "fake-forecast.ts");
+  if (process.env.FORECAST_BASE_URL || !existsSync(script)) return {};
+  if (!(await portFree(port))) fail(`port ${port} (the local weather-service fake) is taken by another program. Choose another: FORECAST_FAKE_PORT=2701 npm ${mode}`);
+  spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, FORECAST_FAKE_PORT: String(port) });
+  for (let i = 0; i < 100 && (await portFree(port)); i++) await new Promise((r) => setTimeout(r, 100));
+  return { FORECAST_BASE_URL: `http://127.0.0.1:${port}`, FORECAST_FAKE: "1" };
+}
+
 /** The app server: scripts/serve.mjs (next start plus the peer address), on loopback unless HOST says otherwise. */
 function serveApp(env, logFile) {
-  return spawnChild(process.execPath, [join(root, "scripts", "serve.mjs")], { HOST: "127.0.0.1", ...env, NODE_ENV: "production" }, logFile);
+  return spawnChild(process.execPath, [join(root, "scripts", "serve.mjs")], { HOST: "127.0.0.1", ...env, NODE_ENV: "production" }, logFile, { quiet: !logFile });
 }
 
 async function startMode() {
@@ -273,6 +317,7 @@ async function startMode() {
   if (ownDatabase || process.env.POURLINE_SEED_DEMO === "1") tsx("scripts/seed.ts", env, "demo seed");
   const host = process.env.HOST || "127.0.0.1";
   if (mode === "dev") {
+    superviseWorker(env);
     const dev = spawnChild(join(root, "node_modules", ".bin", "next"), ["dev", "-H", host, "-p", String(appPort)], env);
     await new Promise((res) => dev.on("exit", res));
     return;
@@ -281,15 +326,18 @@ async function startMode() {
   buildApp(env);
   const mailEnv = await startFakeSmtp(Number(process.env.SMTP_PORT ?? 2525), join(root, ".data", "mailbox"), env);
   const baseUrl = process.env.APP_BASE_URL ?? `http://localhost:${appPort}`;
+  const forecastEnv = await startFakeForecast(Number(process.env.FORECAST_FAKE_PORT ?? 2700), env);
   const server = serveApp({
     ...env,
     ...mailEnv,
+    ...forecastEnv,
     HOST: host,
     PORT: String(appPort),
     APP_BASE_URL: baseUrl,
     // The same machine under its other loopback name is the app's own origin too.
     POURLINE_ALLOWED_ORIGINS: process.env.POURLINE_ALLOWED_ORIGINS ?? (process.env.APP_BASE_URL ? "" : `http://127.0.0.1:${appPort}`),
   });
+  superviseWorker({ ...env, ...mailEnv, APP_BASE_URL: baseUrl, NODE_ENV: "production" });
   await waitForHttp(`http://${host === "0.0.0.0" || host === "::" ? "127.0.0.1" : host.includes(":") ? `[${host}]` : host}:${appPort}/signin`, 60_000);
   say(`Pourline is running at ${baseUrl}  (Ctrl-C stops the app and PostgreSQL)`);
   if (ownDatabase) say(`demo sign-ins:\n${demoSignIns()}`);
@@ -314,7 +362,8 @@ async function testMode() {
     ensureDatabase(bin, port, db);
     return ensureAppRole(bin, port, db, appPassword);
   });
-  const appPort = await freePort(3100);
+  // TEST_APP_PORT: where to start looking, for machines where several test runs share the ports.
+  const appPort = await freePort(Number(process.env.TEST_APP_PORT ?? 3100));
   const appLog = join(dirname(dataDir), "app.log");
   writeFileSync(appLog, "");
   const env = {
@@ -334,17 +383,23 @@ async function testMode() {
   buildApp(env);
   const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
   Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });
+  // Short waits so the failure paths of the weather service are tested in seconds, and a quick notice pace.
+  Object.assign(env, await startFakeForecast(await freePort(2750), env), { FORECAST_TIMEOUT_MS: "1500", FORECAST_RETRY_BASE_MS: "100", POURLINE_NOTICE_INTERVAL_MS: "2000" });
   serveApp({ ...env, PORT: String(appPort) }, appLog);
+  superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
   const extra = process.argv.slice(3);
-  // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) meanwhile.
+  // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) and
+  // restart the engine worker if a test (or a crash) stops it, meanwhile.
   const vitest = spawn(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
   const [code] = await new Promise((res) => vitest.on("exit", (...a) => res(a)));
   return code ?? 1;
 }
 
+let shuttingDown = false;
 async function shutdown(code) {
+  shuttingDown = true;
   for (const c of children) c.kill("SIGTERM");
   await new Promise((r) => setTimeout(r, children.size ? 500 : 0));
   try {

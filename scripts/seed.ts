@@ -80,6 +80,9 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           startStationFt: definitions[0].scenario.deck.startStationFt,
           lanes: definitions[0].scenario.deck.lanes,
           description: "Hydrodemolition and latex-modified concrete overlay of the eastbound causeway deck, under traffic.",
+          // An invented point; the local weather-service fake (scripts/fake-forecast.ts) serves a week for it.
+          latitude: 30.25,
+          longitude: -88.1,
         })
         .returning({ id: projects.id });
       // A second project the demo scheduler does not belong to: it must stay invisible to them.
@@ -119,8 +122,9 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           })
           .returning({ id: scenarios.id, version: scenarios.version });
         await tx.insert(scenarioRevisions).values({ scenarioId: row.id, version: row.version, definition: raw, savedById: ownerId, changeNote: "Demo scenario" });
-        // The plan run is the baseline, made the week before work began.
-        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...runs[k], createdById: ownerId, createdAt: noonOf(parseIsoDate(scenario.startDate) - 7) });
+        // The plan run is the baseline, made the week before work began. The seed's runs are computed here by
+        // the engine on the server side, not sent by a browser: nothing to verify.
+        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...runs[k], createdById: ownerId, createdAt: noonOf(parseIsoDate(scenario.startDate) - 7), verification: "server" });
         if (k !== 0) continue;
         // The main demo is under way: the inspector's field log up to yesterday, and the engineer's
         // re-forecasts the day after each data date (the drift history).
@@ -131,7 +135,7 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           .returning({ id: progressEntries.id });
         await tx.insert(progressHistory).values(inserted.map((r, i) => ({ entryId: r.id, changedById: inspectorId, before: null, after: fieldLog[i], changedAt: noonOf(parseIsoDate(fieldLog[i].workDate) + 1) })));
         for (const { headline: _h, reforecast: _r, ...columns } of reforecasts) {
-          await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1) });
+          await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server" });
         }
       }
     });

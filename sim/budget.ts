@@ -1,6 +1,7 @@
 /**
  * The work budget of one run, checked before any run starts (server run, re-forecast, a browser run and its
- * save), so that no single scenario can occupy a machine for minutes.
+ * save, each variant of a plan search), so that no single scenario can occupy a machine for minutes. The time
+ * limit of an engine job on the queue follows from the same units.
  *
  * Work units per iteration = packets × operations × (links + 1) + HORIZON_DAYS, where operations counts each
  * operation once per stage it works in (the engine schedules every stage operation over the stage's packets;
@@ -15,12 +16,17 @@
  * core on the 2-core reference machine (from a measured 1.3 ms per demo iteration).
  */
 import { HORIZON_DAYS } from "./calendar";
-import type { FieldProblem, Scenario } from "./schema";
+import type { FieldProblem } from "./schema";
 
 /** A run computed in the user's browser (its workers), and its save. */
 export const BROWSER_WORK_BUDGET = 150_000_000;
-/** A run or re-forecast the web server computes itself. */
+/** A run, re-forecast or search variant the server's engine workers compute. */
 export const SERVER_WORK_BUDGET = 40_000_000;
+/**
+ * A whole plan search (every variant and the plan as saved): about ten minutes of one core at the measured
+ * 4.8 million units a second, spread over every worker thread. Common practice, no published source.
+ */
+export const SEARCH_WORK_BUDGET = 3_000_000_000;
 
 export type RunPlace = "browser" | "server";
 
@@ -50,13 +56,19 @@ export function runWork(s: WorkInput, iterations: number): RunWork {
 }
 
 const n = (x: number) => Math.round(x).toLocaleString("en-US");
+const budgetOf = (place: RunPlace) => (place === "server" ? SERVER_WORK_BUDGET : BROWSER_WORK_BUDGET);
+
+/** The most iterations of this scenario that fit the budget of `place`. */
+export function iterationsThatFit(s: WorkInput, place: RunPlace): number {
+  return Math.floor(budgetOf(place) / runWork(s, 1).perIteration);
+}
 
 /** null when the run fits its budget; otherwise a problem on `iterations` saying which limit and by how much. */
-export function budgetProblem(s: Pick<Scenario, "deck" | "operations" | "links" | "stages">, iterations: number, place: RunPlace): FieldProblem | null {
-  const budget = place === "server" ? SERVER_WORK_BUDGET : BROWSER_WORK_BUDGET;
+export function budgetProblem(s: WorkInput, iterations: number, place: RunPlace): FieldProblem | null {
+  const budget = budgetOf(place);
   const w = runWork(s, iterations);
   if (w.total <= budget) return null;
-  const fits = Math.floor(budget / w.perIteration);
+  const fits = iterationsThatFit(s, place);
   const where = place === "server" ? "a run the server computes" : "a run in the browser";
   return {
     path: "iterations",
@@ -65,4 +77,35 @@ export function budgetProblem(s: Pick<Scenario, "deck" | "operations" | "links" 
       `× ${n(iterations)} iterations): ${(w.total / budget).toFixed(1)} times the limit of ${n(budget)} for ${where}. ` +
       (fits >= 10 ? `At most ${n(fits)} iterations fit; or use longer packets, fewer operations or fewer links.` : "Use longer packets, fewer operations or fewer links."),
   };
+}
+
+/**
+ * null when a plan search of `plans` plans (its variants and the plan as saved) at `iterations` each fits: every
+ * plan within the server's budget of one run, and all of them within the search budget. Otherwise a problem
+ * on `spec.iterations`.
+ */
+export function searchBudgetProblem(s: WorkInput, iterations: number, plans: number): FieldProblem | null {
+  const one = budgetProblem(s, iterations, "server");
+  if (one) return { path: "spec.iterations", message: `each plan of the search is one run: ${one.message}` };
+  const total = runWork(s, iterations).total * plans;
+  if (total <= SEARCH_WORK_BUDGET) return null;
+  return {
+    path: "spec.iterations",
+    message:
+      `${n(plans)} plans × ${n(iterations)} iterations need ${n(total)} work units: ${(total / SEARCH_WORK_BUDGET).toFixed(1)} times the limit of ` +
+      `${n(SEARCH_WORK_BUDGET)} for one search. Use fewer variants or fewer iterations.`,
+  };
+}
+
+/**
+ * The time limit of an engine job of `units` work units: the units at a deliberately slow rate (a twentieth
+ * of the measured 4.8 million a second), so a busy shared machine does not cut a legitimate job short while a
+ * runaway one still ends. Between one and fifteen minutes. Common practice, no published source.
+ */
+const SLOW_UNITS_PER_SECOND = 240_000;
+const MIN_TIME_LIMIT_SECONDS = 60;
+const MAX_TIME_LIMIT_SECONDS = 900;
+
+export function timeLimitSeconds(units: number): number {
+  return Math.min(MAX_TIME_LIMIT_SECONDS, Math.max(MIN_TIME_LIMIT_SECONDS, Math.ceil(60 + units / SLOW_UNITS_PER_SECOND)));
 }

@@ -2,6 +2,7 @@ import "server-only";
 import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { scenarios, simulationRuns } from "../schema";
+import { isForecast } from "./runs";
 
 /** The part of a stored RunSummary that comparing needs (not the trace, histogram or per-day closures). */
 export interface CompareSlice {
@@ -34,6 +35,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       runVersion: simulationRuns.scenarioVersion,
       iterations: simulationRuns.iterations,
       runAt: simulationRuns.createdAt,
+      runVerification: simulationRuns.verification,
       slice: sql<CompareSlice>`jsonb_build_object(
         'startDate', ${r} -> 'startDate',
         'unfinishedIterations', ${r} -> 'unfinishedIterations',
@@ -48,7 +50,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
         'cost', ${r} -> 'cost')`.as("slice"),
     })
     .from(simulationRuns)
-    .where(and(inArray(simulationRuns.scenarioId, ids), isNull(simulationRuns.dataDate)))
+    .where(and(inArray(simulationRuns.scenarioId, ids), isNull(simulationRuns.dataDate), isForecast))
     .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
     .as("latest_run");
   return getDb()
@@ -60,6 +62,8 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       runVersion: latest.runVersion,
       iterations: latest.iterations,
       runAt: latest.runAt,
+      runVerification: latest.runVerification,
+      runStale: sql<boolean | null>`(${latest.runVersion} <> ${scenarios.version})`,
       slice: latest.slice,
     })
     .from(scenarios)

@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { progressEntries, progressHistory, simulationRuns, users } from "../schema";
+import { isForecast } from "./runs";
 
 /** The fields a person records about one shift (what history stores before and after a change). */
 export interface ProgressFields {
@@ -115,26 +116,6 @@ export async function deleteProgressEntry({ id }: { id: string }) {
   return rows.length > 0;
 }
 
-/** A re-forecast is a run with a data date; the summary and results have the same shape as a plan run's. */
-export async function saveReforecastRun(input: {
-  scenarioId: string;
-  scenarioVersion: number;
-  inputsHash: string;
-  seed: string;
-  iterations: number;
-  dataDate: string;
-  summary: Record<string, unknown>;
-  results: Record<string, unknown>;
-  durationMs: number;
-  userId: string;
-}) {
-  const [row] = await getDb()
-    .insert(simulationRuns)
-    .values({ ...input, createdById: input.userId })
-    .returning({ id: simulationRuns.id, createdAt: simulationRuns.createdAt });
-  return row;
-}
-
 /** Re-forecast runs of a scenario, oldest data date first (the drift chart's order), headline figures only. */
 export async function listReforecastRuns({ scenarioId }: { scenarioId: string }) {
   return getDb()
@@ -159,7 +140,7 @@ export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
     .select({ id: simulationRuns.id, scenarioVersion: simulationRuns.scenarioVersion, seed: simulationRuns.seed, iterations: simulationRuns.iterations, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
     .from(simulationRuns)
-    .where(and(eq(simulationRuns.scenarioId, scenarioId), sql`${simulationRuns.dataDate} is null`))
+    .where(and(eq(simulationRuns.scenarioId, scenarioId), sql`${simulationRuns.dataDate} is null`, isForecast))
     .orderBy(desc(simulationRuns.createdAt))
     .limit(1);
   return row ?? null;

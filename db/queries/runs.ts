@@ -1,29 +1,85 @@
 import "server-only";
-import { and, desc, eq, isNull } from "drizzle-orm";
+import { and, desc, eq, gt, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
-import { simulationRuns, users } from "../schema";
+import { scenarios, simulationRuns, users, type RunVerification, type StoredRunResults } from "../schema";
 
-export async function saveRun(input: {
+/** Runs a person may see as a scenario's forecast: computed by the server, or reproduced by it exactly. */
+export const FORECAST_VERIFICATIONS: RunVerification[] = ["server", "verified"];
+export const isForecast = inArray(simulationRuns.verification, FORECAST_VERIFICATIONS);
+
+export interface NewRun {
   scenarioId: string;
   scenarioVersion: number;
   inputsHash: string;
   seed: string;
   iterations: number;
+  dataDate?: string | null;
   summary: Record<string, unknown>;
-  results: Record<string, unknown>;
+  results: StoredRunResults;
   durationMs: number;
   userId: string | null;
-}) {
+  verification: "server" | "pending";
+  resultKey: string;
+}
+
+/**
+ * Stores a run once per computation (`resultKey`). When the same computation is already stored, that row is
+ * the answer — except a rejected browser run, which is removed so the new result (a server run, or a browser
+ * run that will be verified afresh) takes its place. Rejected runs are never a forecast, so nothing refers to them.
+ */
+export async function saveRun(input: NewRun) {
+  const { userId, ...values } = input;
+  const returning = { id: simulationRuns.id, createdAt: simulationRuns.createdAt, verification: simulationRuns.verification };
+  const insert = () => getDb().insert(simulationRuns).values({ ...values, createdById: userId }).onConflictDoNothing({ target: simulationRuns.resultKey }).returning(returning);
+  let [row] = await insert();
+  if (!row) {
+    const removed = await getDb()
+      .delete(simulationRuns)
+      .where(and(eq(simulationRuns.resultKey, input.resultKey), eq(simulationRuns.verification, "rejected")))
+      .returning({ id: simulationRuns.id });
+    if (removed.length) [row] = await insert();
+  }
+  if (row) return { ...row, created: true };
+  const [existing] = await getDb().select(returning).from(simulationRuns).where(eq(simulationRuns.resultKey, input.resultKey));
+  return { ...existing, created: false };
+}
+
+/** The outcome of a verification; only a pending run changes. */
+export async function setRunVerification({ id, verification }: { id: string; verification: "verified" | "rejected" }) {
   const [row] = await getDb()
-    .insert(simulationRuns)
-    .values({ ...input, createdById: input.userId })
-    .returning({ id: simulationRuns.id, createdAt: simulationRuns.createdAt });
-  return row;
+    .update(simulationRuns)
+    .set({ verification })
+    .where(and(eq(simulationRuns.id, id), eq(simulationRuns.verification, "pending")))
+    .returning({ id: simulationRuns.id });
+  return !!row;
+}
+
+/** Browser runs waiting for the server that no verify job was ever asked for (a worker sweeps these up). */
+export async function listUncheckedRuns({ limit = 50 }: { limit?: number } = {}) {
+  return getDb()
+    .select({ id: simulationRuns.id, scenarioId: simulationRuns.scenarioId, scenarioVersion: simulationRuns.scenarioVersion, seed: simulationRuns.seed, iterations: simulationRuns.iterations, projectId: scenarios.projectId, createdById: simulationRuns.createdById })
+    .from(simulationRuns)
+    .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
+    .where(and(eq(simulationRuns.verification, "pending"), sql`not exists (select 1 from engine_jobs j where j.kind = 'verify' and j.run_id = ${simulationRuns.id})`))
+    .orderBy(simulationRuns.createdAt)
+    .limit(limit);
+}
+
+export async function getRunForCheck({ id }: { id: string }) {
+  const [row] = await getDb()
+    .select({ id: simulationRuns.id, scenarioId: simulationRuns.scenarioId, scenarioVersion: simulationRuns.scenarioVersion, seed: simulationRuns.seed, iterations: simulationRuns.iterations, dataDate: simulationRuns.dataDate, verification: simulationRuns.verification, results: simulationRuns.results })
+    .from(simulationRuns)
+    .where(eq(simulationRuns.id, id));
+  return row ?? null;
 }
 
 /** Runs of the plan itself; re-forecasts (with a data date) are listed with the field log instead. */
 const planRunsOf = (scenarioId: string) => and(eq(simulationRuns.scenarioId, scenarioId), isNull(simulationRuns.dataDate));
 
+/**
+ * What every reader of a run gets. "Stale" (computed from an older version than the scenario's) and "plan
+ * run" (no data date) are decided here, once, rather than by each page.
+ */
 const listColumns = {
   id: simulationRuns.id,
   scenarioId: simulationRuns.scenarioId,
@@ -35,34 +91,47 @@ const listColumns = {
   durationMs: simulationRuns.durationMs,
   createdAt: simulationRuns.createdAt,
   createdByName: users.name,
+  dataDate: simulationRuns.dataDate,
+  verification: simulationRuns.verification,
+  stale: sql<boolean>`(${simulationRuns.scenarioVersion} <> ${scenarios.version})`.as("stale"),
+  planRun: sql<boolean>`(${simulationRuns.dataDate} is null)`.as("plan_run"),
 };
 
-export async function listRuns({ scenarioId, limit = 20 }: { scenarioId: string; limit?: number }) {
+function runsQuery(where: SQL | undefined, withResults: boolean) {
   return getDb()
-    .select(listColumns)
+    .select(withResults ? { ...listColumns, results: simulationRuns.results } : { ...listColumns, results: sql<Record<string, unknown> | null>`null` })
     .from(simulationRuns)
+    .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
     .leftJoin(users, eq(users.id, simulationRuns.createdById))
-    .where(planRunsOf(scenarioId))
-    .orderBy(desc(simulationRuns.createdAt))
-    .limit(limit);
+    .where(where)
+    .orderBy(desc(simulationRuns.createdAt));
+}
+
+/** Plan runs, newest first, each with its verification (pending and rejected included, marked as such). */
+export async function listRuns({ scenarioId, limit = 20 }: { scenarioId: string; limit?: number }) {
+  const rows = await runsQuery(planRunsOf(scenarioId), false).limit(limit);
+  return rows.map(({ results: _r, ...r }) => r);
 }
 
 export async function getRun({ id }: { id: string }) {
-  const [row] = await getDb()
-    .select({ ...listColumns, results: simulationRuns.results })
-    .from(simulationRuns)
-    .leftJoin(users, eq(users.id, simulationRuns.createdById))
-    .where(eq(simulationRuns.id, id));
+  const [row] = await runsQuery(eq(simulationRuns.id, id), true);
+  return row ?? null;
+}
+export type StoredRun = NonNullable<Awaited<ReturnType<typeof getRun>>>;
+
+/** The scenario's forecast: the newest plan run the server computed or verified (never a pending or rejected one). */
+export async function getLatestRun({ scenarioId }: { scenarioId: string }) {
+  const [row] = await runsQuery(and(planRunsOf(scenarioId), isForecast), true).limit(1);
   return row ?? null;
 }
 
-export async function getLatestRun({ scenarioId }: { scenarioId: string }) {
-  const [row] = await getDb()
-    .select({ ...listColumns, results: simulationRuns.results })
-    .from(simulationRuns)
-    .leftJoin(users, eq(users.id, simulationRuns.createdById))
-    .where(planRunsOf(scenarioId))
-    .orderBy(desc(simulationRuns.createdAt))
-    .limit(1);
-  return row ?? null;
+/**
+ * What the outlook shows: the forecast, and separately a newer browser run that is not (or not yet) the
+ * forecast — pending verification, or rejected by it.
+ */
+export async function getOutlookRuns({ scenarioId }: { scenarioId: string }) {
+  const forecast = await getLatestRun({ scenarioId });
+  const newer = forecast ? gt(simulationRuns.createdAt, forecast.createdAt) : undefined;
+  const [unverified] = await runsQuery(and(planRunsOf(scenarioId), inArray(simulationRuns.verification, ["pending", "rejected"]), newer), true).limit(1);
+  return { forecast, unverified: unverified ?? null };
 }

@@ -3,6 +3,7 @@ import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { scenarioRevisions, scenarios, simulationRuns, users } from "../schema";
+import { isForecast } from "./runs";
 
 const owner = alias(users, "owner");
 const editor = alias(users, "editor");
@@ -30,11 +31,19 @@ export async function listProjectScenarios({ projectId }: { projectId: string })
       runVersion: simulationRuns.scenarioVersion,
       runSummary: simulationRuns.summary,
       runAt: simulationRuns.createdAt,
+      runVerification: simulationRuns.verification,
     })
     .from(simulationRuns)
-    .where(isNull(simulationRuns.dataDate))
+    .where(and(isNull(simulationRuns.dataDate), isForecast))
     .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
     .as("latest_run");
+  // A browser run still waiting for the server is not the forecast; the list only says one exists.
+  const pendingRun = getDb()
+    .selectDistinctOn([simulationRuns.scenarioId], { scenarioId: simulationRuns.scenarioId, pendingAt: simulationRuns.createdAt })
+    .from(simulationRuns)
+    .where(and(isNull(simulationRuns.dataDate), eq(simulationRuns.verification, "pending")))
+    .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
+    .as("pending_run");
   return getDb()
     .select({
       ...scenarioColumns,
@@ -42,11 +51,15 @@ export async function listProjectScenarios({ projectId }: { projectId: string })
       runVersion: latestRun.runVersion,
       runSummary: latestRun.runSummary,
       runAt: latestRun.runAt,
+      runVerification: latestRun.runVerification,
+      runStale: sql<boolean | null>`(${latestRun.runVersion} <> ${scenarios.version})`,
+      pendingRunAt: pendingRun.pendingAt,
     })
     .from(scenarios)
     .innerJoin(owner, eq(owner.id, scenarios.ownerId))
     .innerJoin(editor, eq(editor.id, scenarios.updatedById))
     .leftJoin(latestRun, eq(latestRun.scenarioId, scenarios.id))
+    .leftJoin(pendingRun, eq(pendingRun.scenarioId, scenarios.id))
     .where(eq(scenarios.projectId, projectId))
     .orderBy(desc(scenarios.updatedAt));
 }

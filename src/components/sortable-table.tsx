@@ -5,13 +5,20 @@
  */
 import { flexRender, type Table } from "@tanstack/react-table";
 
-export function SortableHead<T>({ table }: { table: Table<T> }) {
+/** `sortable={false}`: plain headers (a printed document has nothing to click). */
+export function SortableHead<T>({ table, sortable = true }: { table: Table<T>; sortable?: boolean }) {
   return (
     <thead>
       {table.getHeaderGroups().map((hg) => (
         <tr key={hg.id}>
           {hg.headers.map((h) => {
             const sorted = h.column.getIsSorted();
+            if (!sortable)
+              return (
+                <th key={h.id} scope="col" className="table-head">
+                  {flexRender(h.column.columnDef.header, h.getContext())}
+                </th>
+              );
             return (
               <th key={h.id} scope="col" className="table-head" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
                 <button type="button" className="inline-flex items-center gap-1 uppercase hover:text-ink" onClick={h.column.getToggleSortingHandler()}>

@@ -1,4 +1,5 @@
 /** Display helpers shared by server and client components. */
+import { format, isValid, parseISO } from "date-fns";
 
 /** 1,250 ft → "STA 12+50" (1 station = 100 ft). */
 export function formatStation(ft: number): string {
@@ -10,18 +11,25 @@ export function formatStation(ft: number): string {
   return `STA ${sign}${sta}+${restText}`;
 }
 
-const dateFmt = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+// Every date label goes through date-fns with one set of patterns, so months read the same everywhere ("Sep",
+// never "Sept" as some locales' Intl data has it).
+export const DATE_PATTERN = "d MMM yyyy";
 
-/** "2027-10-14" → "14 Oct 2027" (a local calendar date, so formatted without shifting time zones). */
+/** "2027-10-14" → "14 Oct 2027" (a local calendar date: parsed and formatted in the same local time). */
 export function formatIsoDate(iso: string | null | undefined): string {
   if (!iso) return "—";
-  const d = new Date(`${iso.slice(0, 10)}T00:00:00Z`);
-  return Number.isNaN(d.getTime()) ? iso : dateFmt.format(d);
+  const d = parseISO(iso.slice(0, 10));
+  return isValid(d) ? format(d, DATE_PATTERN) : iso;
 }
 
 export function formatDateTime(d: Date | string): string {
   const date = typeof d === "string" ? new Date(d) : d;
-  return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" }).format(date);
+  return isValid(date) ? format(date, `${DATE_PATTERN}, HH:mm`) : String(d);
+}
+
+/** Month 1–12 → "Sep" (`long`: "September"). */
+export function monthName(month: number, long = false): string {
+  return format(new Date(2001, month - 1, 1), long ? "MMMM" : "MMM");
 }
 
 export function formatPercent(p: number | null | undefined, digits = 0): string {

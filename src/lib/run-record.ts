@@ -101,31 +101,52 @@ export function storedRun(args: { definition: unknown; seed: string; iterations:
     seed: args.seed,
     iterations: args.iterations,
     summary: headlineOf(args.summary),
-    results: args.summary as unknown as Record<string, unknown>,
+    results: args.summary,
     durationMs: args.durationMs,
+  };
+}
+
+/** The inputs hash of a re-forecast: the definition, the field records up to the data date, the data date. */
+export function reforecastInputsHash(args: { definition: unknown; records: ReadonlyArray<ProgressRecord>; dataDate: string; seed: string; iterations: number }) {
+  const used = args.records.filter((r) => r.workDate <= args.dataDate);
+  return inputsHash({ definition: args.definition, progress: used, dataDate: args.dataDate }, args.seed, args.iterations);
+}
+
+export type AsBuiltDigest = ReturnType<typeof asBuiltDigest>;
+
+/** A stored re-forecast's columns from its summary and as-built digest (the engine worker's or the seed's). */
+export function storedReforecast(args: {
+  definition: unknown;
+  records: ReadonlyArray<ProgressRecord>;
+  dataDate: string;
+  seed: string;
+  iterations: number;
+  summary: RunSummary;
+  reforecast: AsBuiltDigest;
+  durationMs: number;
+}) {
+  const headline = headlineOf(args.summary);
+  return {
+    inputsHash: reforecastInputsHash(args),
+    seed: args.seed,
+    iterations: args.iterations,
+    dataDate: args.dataDate,
+    summary: { ...headline, dataDate: args.dataDate } as Record<string, unknown>,
+    results: { ...args.summary, reforecast: args.reforecast },
+    durationMs: args.durationMs,
+    headline,
+    reforecast: args.reforecast,
   };
 }
 
 /**
  * The columns of a stored re-forecast: the engine from the as-built state at the data date (records dated
- * after it are ignored). The app's re-forecast handler and the demo seed both store exactly this.
+ * after it are ignored). The engine worker and the demo seed both store exactly this.
  */
 export function reforecastRunRecord(args: { plan: Scenario; definition: unknown; records: ReadonlyArray<ProgressRecord>; dataDate: string; seed: string; iterations: number }) {
   const started = Date.now();
   const asBuilt = buildAsBuilt(args.plan, args.records, args.dataDate);
   const compiled = compileScenario(args.plan, { asBuilt });
   const summary = summarizeRun(compiled, runIterations(compiled, args.seed, 0, args.iterations));
-  const reforecast = asBuiltDigest(args.plan, asBuilt);
-  const used = args.records.filter((r) => r.workDate <= args.dataDate);
-  return {
-    inputsHash: inputsHash({ definition: args.definition, progress: used, dataDate: args.dataDate }, args.seed, args.iterations),
-    seed: args.seed,
-    iterations: args.iterations,
-    dataDate: args.dataDate,
-    summary: { ...headlineOf(summary), dataDate: args.dataDate } as Record<string, unknown>,
-    results: { ...(summary as unknown as Record<string, unknown>), reforecast } as Record<string, unknown>,
-    durationMs: Date.now() - started,
-    headline: headlineOf(summary),
-    reforecast,
-  };
+  return storedReforecast({ ...args, summary, reforecast: asBuiltDigest(args.plan, asBuilt), durationMs: Date.now() - started });
 }

@@ -27,7 +27,9 @@ export const scenarioUpdateSchema = scenarioWriteSchema.extend({
 
 export const variantSchema = z.object({ name: line(LIMITS.name).min(1, "must not be empty") });
 
-export const memberSchema = z.object({ email: z.email("must be an e-mail address"), role: z.enum(ROLES) });
+export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
+/** An invitation names a person and a role like adding a member does; the same contract. */
+export const invitationSchema = memberSchema;
 
 export const shareLinkSchema = z.object({
   label: line(120).default(""),
@@ -37,6 +39,7 @@ export const shareLinkSchema = z.object({
 });
 
 export const MAX_BROWSER_ITERATIONS = 50_000;
+/** A run the server's engine workers compute (a run without a summary); the work budget applies as well. */
 export const MAX_SERVER_ITERATIONS = 5_000;
 
 /** Run bodies carry the representative trace (about 100 bytes per packet and operation). */
@@ -48,7 +51,7 @@ export const runWriteSchema = z.object({
   iterations: z.number().int("must be a whole number").min(10, "must be at least 10").max(MAX_BROWSER_ITERATIONS, `must be at most ${MAX_BROWSER_ITERATIONS}`),
   /** The version the run was computed from; a run of an older version is refused rather than mislabelled. */
   scenarioVersion: z.number().int().min(1).optional(),
-  /** A summary computed in the browser's worker pool (the run-result contract); the server re-checks it before storing. */
+  /** A summary computed in the browser's worker pool (the run-result contract): stored as pending, then verified by a server job. */
   summary: runSummarySchema.optional(),
   durationMs: z.number().int().min(0).max(86_400_000).optional(),
 }).strict();

@@ -5,8 +5,11 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { APP_URL, call, demoEmail, kestrelProject, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { APP_URL, call, kestrelProject, signInAs } from "../helpers/app";
+import { serverRunDone } from "../helpers/jobs";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn } from "./pages/sign-in";
+import { ScenarioPage } from "./pages/scenario";
 
 let browser: Browser;
 let scenarioId: string;
@@ -20,7 +23,7 @@ beforeAll(async () => {
   const variant = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: "E2E advisory" } });
   expect(variant.status).toBe(201);
   scenarioId = variant.body.id;
-  expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie, body: { seed: "e2e-advisory", iterations: 20 } })).status).toBe(201);
+  expect((await serverRunDone(scenarioId, cookie, { seed: "e2e-advisory", iterations: 20 })).status).toBe("completed");
 }, 120_000);
 afterAll(async () => {
   await browser?.close();
@@ -30,12 +33,10 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
   let advisoryUrl = "";
 
   it("the Traffic section shows when each closure may stand and warns about holiday-weekend days", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInPage(page, demoEmail("engineer"));
-    await page.waitForURL(`${APP_URL}/projects`);
-    await page.goto(`${APP_URL}/scenarios/${scenarioId}/plan`);
-    await page.getByTestId("section-traffic").click();
+    const { context, page } = await signedIn(browser, "engineer");
+    const scenario = new ScenarioPage(page, scenarioId);
+    await scenario.open("plan");
+    await scenario.openPlanSection("traffic");
     const advisor = page.getByTestId("closure-advisor");
     await advisor.waitFor();
     // The demo's day window meets holiday traffic on getaway days: the queue passes the 1-mile default.
@@ -46,15 +47,13 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
   });
 
   it("publishing shows the notice and its recipients first, and sends only on confirmation", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInPage(page, demoEmail("engineer"));
-    await page.waitForURL(`${APP_URL}/projects`);
-    await page.goto(`${APP_URL}/scenarios/${scenarioId}/share`);
+    const { context, page } = await signedIn(browser, "engineer");
+    await new ScenarioPage(page, scenarioId).open("share");
     await page.getByTestId("publish-closures").click();
-    const dialog = page.getByTestId("publish-preview");
+    const dialog = page.getByTestId("publish-dialog");
     await dialog.waitFor();
-    expect(await page.getByTestId("publish-text").textContent()).toContain("closed");
+    await page.getByTestId("publish-dialog-text").waitFor();
+    expect(await page.getByTestId("publish-dialog-text").textContent()).toContain("closed");
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "publish-preview");
     // Cancel sends nothing: no publication is recorded.
@@ -62,7 +61,7 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
     const none = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: await signInAs("engineer") });
     expect(none.body.publications).toHaveLength(0);
     await page.getByTestId("publish-closures").click();
-    await page.getByTestId("confirm-publish").click();
+    await page.getByTestId("publish-dialog-confirm").click();
     const link = page.getByTestId("advisory-link");
     await link.waitFor();
     advisoryUrl = (await link.getAttribute("href")) ?? "";

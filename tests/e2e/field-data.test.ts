@@ -4,8 +4,10 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { Browser } from "playwright-core";
-import { APP_URL, call, demoEmail, kestrelProject, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { call, kestrelProject, signInAs } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn } from "./pages/sign-in";
+import { ScenarioPage } from "./pages/scenario";
 
 let browser: Browser;
 let scenarioId: string;
@@ -35,11 +37,8 @@ afterAll(async () => {
 
 describe("field data", () => {
   it("a weather history refits the climate profile and a survey sets the deterioration risk, each as a saved version", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInPage(page, demoEmail("engineer"));
-    await page.waitForURL(`${APP_URL}/projects`);
-    await page.goto(`${APP_URL}/scenarios/${scenarioId}/data`);
+    const { context, page } = await signedIn(browser, "engineer");
+    await new ScenarioPage(page, scenarioId).open("data");
     await page.getByTestId("weather-file").setInputFiles(join(dir, "station.csv"));
     await page.getByLabel("Temperatures in").selectOption("C");
     await page.getByLabel("Precipitation in").selectOption("mm");

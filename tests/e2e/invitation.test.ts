@@ -6,7 +6,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { APP_URL, DEMO_PASSWORD, call, demoEmail, kestrelProject, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { SignInPage, signedIn } from "./pages/sign-in";
 import { findMail, linkIn } from "../../src/lib/server/mailbox";
 
 const INVITEE = "new.person@marrin-dot.example";
@@ -24,10 +25,7 @@ describe("invitation by e-mail", () => {
     const projectId = (await kestrelProject(await signInAs("admin"))).id;
 
     // The administrator sends the invitation.
-    const adminContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const adminPage = await adminContext.newPage();
-    await signInPage(adminPage, demoEmail("admin"));
-    await adminPage.waitForURL(`${APP_URL}/projects`);
+    const { context: adminContext, page: adminPage } = await signedIn(browser, "admin");
     await adminPage.goto(`${APP_URL}/projects/${projectId}/members`);
     await adminPage.getByLabel("E-mail to invite").fill(INVITEE);
     await adminPage.getByLabel("Their role").selectOption("inspector");
@@ -88,7 +86,7 @@ describe("invitation by e-mail", () => {
     // And the new password works for a normal sign-in.
     const signInContext = await browser.newContext();
     const signIn = await signInContext.newPage();
-    await signInPage(signIn, INVITEE, "tidewater-2031");
+    await new SignInPage(signIn).signIn(INVITEE, "tidewater-2031");
     await signIn.waitForURL(`${APP_URL}/projects`);
     await signInContext.close();
   });

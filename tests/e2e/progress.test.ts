@@ -4,9 +4,12 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { APP_URL, call, demoEmail, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn as signedInAs } from "./pages/sign-in";
+import { ScenarioPage } from "./pages/scenario";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+import { waitForJob } from "../helpers/jobs";
 
 let browser: Browser;
 let scenarioId: string;
@@ -17,18 +20,16 @@ beforeAll(async () => {
   const scheduler = await signInAs("scheduler");
   const projectId = (await kestrelProject(scheduler)).id;
   scenarioId = (await createPastScenario(scheduler, projectId, "E2E field log")).id;
-  expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: scheduler, body: { seed: "plan", iterations: 50 } })).status).toBe(201);
+  const planRun = await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: scheduler, body: { seed: "plan", iterations: 50 } });
+  expect(planRun.status).toBe(202);
+  expect((await waitForJob(planRun.body.job.id, scheduler)).status).toBe("completed");
 });
 afterAll(async () => {
   await browser?.close();
 });
 
 async function signedIn(role: DemoRole): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await context.newPage();
-  await signInPage(page, demoEmail(role));
-  await page.waitForURL(`${APP_URL}/projects`);
-  return page;
+  return (await signedInAs(browser, role)).page;
 }
 
 async function recordShift(page: Page, s: { date: string; op: string; from: number; to: number; temp?: number }) {
@@ -44,9 +45,10 @@ async function recordShift(page: Page, s: { date: string; op: string; from: numb
 describe("field log", () => {
   it("an inspector logs several shifts; the engineer re-forecasts and sees the drift", async () => {
     const inspector = await signedIn("inspector");
-    await inspector.goto(`${APP_URL}/scenarios/${scenarioId}/progress`);
+    const log = new ScenarioPage(inspector, scenarioId);
+    await log.open("progress");
     await inspector.getByTestId("progress-form").waitFor();
-    await expect.poll(() => inspector.getByRole("link", { name: "Field log" }).getAttribute("aria-current")).toBe("page");
+    await expect.poll(() => log.tab("progress").getAttribute("aria-current")).toBe("page");
 
     await recordShift(inspector, { date: day(1), op: "milling", from: 0, to: 500, temp: 58 });
     await inspector.getByText(`Recorded ${day(1)} (day).`).waitFor();
@@ -65,7 +67,7 @@ describe("field log", () => {
     expect(await seriousA11yViolations(inspector)).toEqual([]);
 
     const engineer = await signedIn("engineer");
-    await engineer.goto(`${APP_URL}/scenarios/${scenarioId}/progress`);
+    await new ScenarioPage(engineer, scenarioId).open("progress");
     await engineer.getByTestId("progress-table").waitFor();
     await engineer.locator("#reforecast-date").fill(day(2));
     await engineer.locator("#reforecast-iterations").selectOption("500");

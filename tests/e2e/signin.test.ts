@@ -2,7 +2,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { APP_URL, demoEmail } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { SignInPage } from "./pages/sign-in";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -16,8 +17,9 @@ describe("sign-in", () => {
   it("a wrong password shows the error and stays on the sign-in page", async () => {
     const context = await browser.newContext();
     const page = await context.newPage();
-    await signInPage(page, demoEmail("scheduler"), "not-the-password");
-    await page.getByRole("alert").filter({ hasText: "do not match an account" }).waitFor();
+    const signIn = new SignInPage(page);
+    await signIn.signIn(demoEmail("scheduler"), "not-the-password");
+    await signIn.error("do not match an account").waitFor();
     expect(new URL(page.url()).pathname).toBe("/signin");
     await screenshot(page, "signin-error");
     expect(await seriousA11yViolations(page)).toEqual([]);
@@ -27,8 +29,7 @@ describe("sign-in", () => {
   it("the demo scheduler signs in, sees the project and opens its scenario list", async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
-    await signInPage(page, demoEmail("scheduler"));
-    await page.waitForURL(`${APP_URL}/projects`);
+    await new SignInPage(page).signInAs("scheduler");
     await expect.poll(() => page.getByTestId("signed-in-name").textContent()).toBe("Marco Ilves");
     await screenshot(page, "projects");
     expect(await seriousA11yViolations(page)).toEqual([]);

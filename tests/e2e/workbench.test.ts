@@ -5,8 +5,10 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { APP_URL, call, demoEmail, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations, signInPage } from "../helpers/browser";
+import { APP_URL, call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn as signedInAs } from "./pages/sign-in";
+import { ScenarioPage } from "./pages/scenario";
 
 let browser: Browser;
 let projectId: string;
@@ -19,13 +21,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signedIn(role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: { width, height: 900 } });
-  const page = await context.newPage();
-  await signInPage(page, demoEmail(role));
-  await page.waitForURL(`${APP_URL}/projects`);
-  return { context, page };
-}
+const signedIn = (role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> => signedInAs(browser, role, width);
 
 /** A fresh copy of the main demo scenario, so each test edits its own. */
 async function freshVariant(name: string): Promise<string> {
@@ -38,8 +34,9 @@ async function freshVariant(name: string): Promise<string> {
 }
 
 async function editPlacementMode(page: Page, value: string) {
-  await page.getByTestId("section-crews").click();
-  const mode = page.locator('[id="operations.4.rate.dist.mode"]');
+  const plan = new ScenarioPage(page, "");
+  await plan.openPlanSection("crews");
+  const mode = plan.field("operations.4.rate.dist.mode");
   await mode.waitFor();
   await mode.fill(value);
 }
@@ -48,19 +45,20 @@ describe("workbench", () => {
   it("a scheduler edits a rate, saves, runs 2,000 iterations and sees the confidence curve and time–distance chart", async () => {
     const id = await freshVariant("E2E rate edit");
     const { context, page } = await signedIn("scheduler");
-    await page.goto(`${APP_URL}/scenarios/${id}/plan`);
+    const scenario = new ScenarioPage(page, id);
+    await scenario.open("plan");
     await page.getByTestId("section-sequence").waitFor();
     await screenshot(page, "plan-sequence");
     expect(await seriousA11yViolations(page)).toEqual([]);
     await editPlacementMode(page, "28");
     await screenshot(page, "plan-crews");
     expect(await seriousA11yViolations(page)).toEqual([]);
-    await page.getByTestId("save-scenario").click();
+    await scenario.save();
     await expect.poll(async () => (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.version, { timeout: 15_000 }).toBe(2);
     const saved = (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.definition;
     expect(saved.operations[4].rate.dist.mode).toBe(28);
 
-    await page.goto(`${APP_URL}/scenarios/${id}`);
+    await scenario.open("outlook");
     await page.getByTestId("no-run").waitFor();
     await page.getByLabel("Iterations").selectOption("2000");
     await page.getByTestId("start-run").click();
@@ -76,6 +74,38 @@ describe("workbench", () => {
     expect(runs.body.runs[0].stale).toBe(false);
     await screenshot(page, "outlook");
     expect(await seriousA11yViolations(page)).toEqual([]);
+    await context.close();
+  });
+
+  it("the sequence graph: a new operation lands clear of the others, every link takes Tab focus, Delete removes the focused one", async () => {
+    const id = await freshVariant("E2E graph keyboard");
+    const { context, page } = await signedIn("scheduler", 1440);
+    await new ScenarioPage(page, id).open("plan");
+    const edges = page.locator("[data-testid=sequence-graph] .react-flow__edge");
+    await expect.poll(() => edges.count()).toBe(6);
+    await page.locator("#new-op-name").fill("Joint repair");
+    await page.locator("#new-op-name").press("Enter");
+    const nodes = page.locator("[data-testid=sequence-graph] .react-flow__node");
+    await expect.poll(() => nodes.count()).toBe(8);
+    const boxes = (await nodes.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().toJSON()))) as DOMRect[];
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        expect(a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top, `operations ${i} and ${j} overlap`).toBe(true);
+      }
+    // Every link is reachable with Tab, and each one says what it is.
+    await page.getByTestId("section-sequence").focus();
+    const reached = new Set<string>();
+    for (let i = 0; i < 80 && reached.size < 6; i++) {
+      await page.keyboard.press("Tab");
+      const label = await page.evaluate(() => (document.activeElement?.classList.contains("react-flow__edge") ? document.activeElement.getAttribute("aria-label") : null));
+      if (label) reached.add(label);
+    }
+    expect(reached.size).toBe(6);
+    await edges.nth(1).focus();
+    await page.keyboard.press("Delete");
+    await expect.poll(() => edges.count()).toBe(5);
+    expect(await page.getByTestId("sequence-notice").textContent()).toMatch(/^Removed the link /);
     await context.close();
   });
 
@@ -96,8 +126,8 @@ describe("workbench", () => {
     const id = await freshVariant("E2E conflict");
     const a = await signedIn("scheduler");
     const b = await signedIn("engineer");
-    await a.page.goto(`${APP_URL}/scenarios/${id}/plan`);
-    await b.page.goto(`${APP_URL}/scenarios/${id}/plan`);
+    await new ScenarioPage(a.page, id).open("plan");
+    await new ScenarioPage(b.page, id).open("plan");
     await editPlacementMode(a.page, "27");
     await editPlacementMode(b.page, "26");
     await a.page.getByTestId("save-scenario").click();
@@ -142,9 +172,10 @@ describe("workbench", () => {
     const { context, page } = await signedIn("scheduler");
     const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("scheduler") });
     const target = list.body.scenarios.find((s: { runId: string | null; name: string }) => s.runId && /single season/i.test(s.name)) ?? list.body.scenarios.find((s: { runId: string | null }) => s.runId);
-    await page.goto(`${APP_URL}/scenarios/${target.id}`);
+    const scenario = new ScenarioPage(page, target.id);
+    await scenario.open("outlook");
     const p80 = (await page.getByTestId("p80-date").first().textContent())!.trim();
-    await page.goto(`${APP_URL}/scenarios/${target.id}/share`);
+    await scenario.open("share");
     await page.getByLabel("Label (who it is for)").fill("Public information office");
     await page.getByTestId("create-share-link").click();
     const url = await page.getByTestId("share-link-url").inputValue();
@@ -166,6 +197,13 @@ describe("workbench", () => {
     expect(shared.status).toBe(200);
 
     await page.getByRole("button", { name: /Revoke link Public information office/ }).click();
+    // One click only asks: the dialog names the link and says what revoking does; nothing is revoked yet.
+    const confirm = page.getByTestId("revoke-dialog");
+    await confirm.waitFor();
+    expect(await confirm.textContent()).toContain("Public information office");
+    expect((await call(`/api/shared/${token}`)).status).toBe(200);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await page.getByTestId("revoke-dialog-confirm").click();
     await expect.poll(async () => (await call(`/api/shared/${token}`)).status, { timeout: 10_000 }).toBe(404);
     const gone = await pub.goto(url);
     expect(gone?.status()).toBe(404);
@@ -177,7 +215,8 @@ describe("workbench", () => {
     const { context, page } = await signedIn("engineer");
     const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("engineer") });
     const main = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons");
-    await page.goto(`${APP_URL}/scenarios/${main.id}`);
+    const scenario = new ScenarioPage(page, main.id);
+    await scenario.open("outlook");
     await page.getByTestId("delay-panel").waitFor();
     expect(await page.getByTestId("delay-vehicle-hours").textContent()).toMatch(/\d/);
     await page.getByTestId("tradeoff-run").click();
@@ -186,7 +225,7 @@ describe("workbench", () => {
     await screenshot(page, "outlook-tradeoff");
     expect(await seriousA11yViolations(page)).toEqual([]);
 
-    await page.goto(`${APP_URL}/scenarios/${main.id}/brief`);
+    await scenario.open("brief");
     const brief = page.getByTestId("owner-brief");
     await brief.waitFor();
     const p80 = (await page.getByTestId("p80-date").first().textContent())!.trim();

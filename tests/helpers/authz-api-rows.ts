@@ -16,6 +16,7 @@ import {
   newShareLink,
   newSubscriber,
   millingShift,
+  SMALL_SEARCH,
   tokenOf,
   uniq,
   unknownToken,
@@ -181,14 +182,65 @@ export const API_ROWS: Record<string, ApiRow> = {
   },
   "POST /api/scenarios/[scenarioId]/variants": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { name: uniq("variant") } }) },
   "GET /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
-  "POST /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "runScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { seed: "matrix", iterations: 10 } }) },
+  // Without a summary a run is an engine job (202); the same computation asked again is the same job.
+  "POST /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "runScenario" }, ok: 202, request: async (w) => ({ params: scen(w), body: { seed: "matrix", iterations: 10 } }) },
   "GET /api/runs/[runId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { runId: w.runId } }) },
   "GET /api/scenarios/[scenarioId]/exports/results.csv": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "GET /api/scenarios/[scenarioId]/exports/closures.ics": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "GET /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "POST /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: surveyForm() }) },
 
+  // ---- engine jobs and plan searches ----
+  "GET /api/jobs/[jobId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { jobId: w.jobId } }) },
+  // A cancel needs runScenario and being the job's owner, or a project administrator. The admin starts each
+  // victim, so for everyone else it is someone else's job: only an administrator may cancel it (the owner's
+  // own cancel is in tests/integration/jobs.test.ts). A fresh job per caller, big enough to be still queued or
+  // running when the cancel comes; whatever the answer, it is cancelled afterwards so no worker stays busy.
+  "DELETE /api/jobs/[jobId]": {
+    need: { kind: "scenario", action: "manageMembers" },
+    ok: 200,
+    request: async (w) => {
+      const queued = must(await call(`/api/scenarios/${w.target.id}/runs`, { method: "POST", cookie: admin(w), body: { seed: uniq("cancel"), iterations: 2_000 } }), 202, "job to cancel");
+      const path = `/api/jobs/${queued.job.id}`;
+      return {
+        params: { jobId: queued.job.id },
+        survives: async () => {
+          const alive = must(await call(path, { cookie: admin(w) }), 200, "job after cancel").job.status !== "cancelled";
+          if (alive) await call(path, { method: "DELETE", cookie: admin(w) });
+          return alive;
+        },
+      };
+    },
+  },
+  "GET /api/scenarios/[scenarioId]/searches": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "POST /api/scenarios/[scenarioId]/searches": {
+    need: { kind: "scenario", action: "runScenario" },
+    ok: 202,
+    request: async (w) => ({ params: scen(w), body: { name: uniq("search"), spec: SMALL_SEARCH } }),
+  },
+  "GET /api/searches/[searchId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { searchId: w.searchId } }) },
+  // Saving a variant as a scenario is an ordinary scenario save (the variant's choice exists from the start).
+  "POST /api/searches/[searchId]/scenarios": {
+    need: { kind: "scenario", action: "editScenario" },
+    ok: 201,
+    request: async (w) => ({ params: { searchId: w.searchId }, body: { idx: 1, name: uniq("from search") } }),
+  },
+
   // ---- sharing ----
+  // The week ahead: every member reads the board; the daily notice is a sharing act; the location belongs to
+  // the project's administrator and engineer. The location is written back unchanged (the seeded demo point).
+  "GET /api/scenarios/[scenarioId]/look-ahead": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "GET /api/scenarios/[scenarioId]/look-ahead/notice": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "PUT /api/scenarios/[scenarioId]/look-ahead/notice": {
+    need: { kind: "scenario", action: "shareScenario" },
+    ok: 200,
+    request: async (w) => ({ params: scen(w), body: { enabled: false, hour: 6, recipients: ["field-team@marrin-dot.example"] } }),
+  },
+  "PUT /api/projects/[projectId]/location": {
+    need: { kind: "project", action: "setLocation" },
+    ok: 200,
+    request: async (w) => ({ params: proj(w), body: { latitude: 30.25, longitude: -88.1 } }),
+  },
   "GET /api/scenarios/[scenarioId]/share-links": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "POST /api/scenarios/[scenarioId]/share-links": { need: { kind: "scenario", action: "shareScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { expiresInDays: 7 } }) },
   "DELETE /api/share-links/[linkId]": {
@@ -199,10 +251,10 @@ export const API_ROWS: Record<string, ApiRow> = {
       return { params: { linkId: link.id }, survives: async () => (await call(`/api/shared/${link.token}`)).status === 200 };
     },
   },
-  "GET /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  // The list of publications and, with ?preview=1, what publishing would send (sends nothing): one handler and
+  // one permission check, exercised here on the preview (it also reads the run publishing would name).
+  "GET /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w), query: "preview=1" }) },
   "POST /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 201, request: async (w) => ({ params: scen(w) }) },
-  // What publishing would send (sends nothing): the same permission as publishing.
-  "GET /api/scenarios/[scenarioId]/closure-publications/preview": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   // The token in the path is the only credential: a share link opens the shared view, a calendar-feed token only the feed.
   "GET /api/shared/[token]": { need: { kind: "token", scopes: ["share"] }, ok: 200, request: async (w, c) => ({ params: { token: tokenOf(w, c) ?? unknownToken() } }) },
   "GET /api/shared/[token]/closures.ics": {
@@ -238,7 +290,7 @@ export const API_ROWS: Record<string, ApiRow> = {
   "GET /api/scenarios/[scenarioId]/reforecast": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { scenarioId: w.field.id } }) },
   "POST /api/scenarios/[scenarioId]/reforecast": {
     need: { kind: "scenario", action: "runScenario" },
-    ok: 201,
+    ok: 202,
     request: async (w) => ({ params: { scenarioId: w.field.id }, body: { dataDate: isoDaysFromToday(-1), seed: "matrix", iterations: 10 } }),
   },
 };

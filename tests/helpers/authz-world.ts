@@ -9,6 +9,7 @@ import postgres from "postgres";
 import { randomBytes, randomUUID } from "node:crypto";
 import { call, demoDefinition, kestrelProject, signIn, signInAs, DEMO_PASSWORD, type CallOptions, type DemoRole, type Reply } from "./app";
 import { createPastScenario, isoDaysFromToday } from "./progress-fixture";
+import { waitForJob } from "./jobs";
 import { hashPassword } from "../../src/lib/server/password";
 
 export const ROLES: DemoRole[] = ["admin", "engineer", "scheduler", "inspector", "viewer"];
@@ -31,16 +32,18 @@ export interface World {
   strangerEmail: string;
   strangerUserId: string;
   base: Record<string, unknown>;
-  /** A Kestrel scenario with a current server run, a share link and a published closure feed. */
+  /** A Kestrel scenario with a current server run (and its engine job), a plan search, a share link and a published closure feed. */
   target: Ref;
   runId: string;
+  jobId: string;
+  searchId: string;
   shareToken: string;
   feedToken: string;
   /** A Kestrel past-dated scenario with one progress entry (the field log needs dates that are not in the future). */
   field: Ref & { entryId: string };
   cookies: Record<DemoRole | "otherProjectAdmin", string>;
   /** Ids that belong to the stranger's project. */
-  stranger: { scenarioId: string; runId: string; entryId: string; shareLinkId: string; subscriberId: string };
+  stranger: { scenarioId: string; runId: string; jobId: string; searchId: string; entryId: string; shareLinkId: string; subscriberId: string };
   /** Ids on the Tern Point project, of which the demo admin is also the administrator. */
   tern: { scenarioId: string; subscriberId: string; shareLinkId: string };
 }
@@ -66,8 +69,19 @@ export async function newScenario(w: Pick<World, "base">, projectId: string, coo
   return must(await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie, body: { name, definition: { ...w.base, name } } }), 201, "scenario");
 }
 
-export async function serverRun(scenarioId: string, cookie: string): Promise<string> {
-  return must(await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie, body: { seed: "matrix", iterations: 10 } }), 201, "run").id;
+/** A run an engine worker computes (202 with its job), waited for: the stored run's id and the job's. */
+export async function serverRun(scenarioId: string, cookie: string): Promise<{ runId: string; jobId: string }> {
+  const queued = must(await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie, body: { seed: "matrix", iterations: 10 } }), 202, "run");
+  const job = await waitForJob(queued.job.id, cookie);
+  if (job.status !== "completed" || !job.runId) throw new Error(`fixture run ${job.status}: ${job.error}`);
+  return { runId: job.runId, jobId: job.id };
+}
+
+/** The smallest plan search: the plan as saved and two variants, 100 iterations each (not waited for). */
+export const SMALL_SEARCH = { dimensions: [{ kind: "holidayPolicy", values: ["standDown", "workThrough"] }], maxVariants: 4, iterations: 100, seed: "matrix" };
+
+export async function newSearch(scenarioId: string, cookie: string): Promise<string> {
+  return must(await call(`/api/scenarios/${scenarioId}/searches`, { method: "POST", cookie, body: { name: uniq("search"), spec: SMALL_SEARCH } }), 202, "search").search.id;
 }
 
 export async function newShareLink(scenarioId: string, cookie: string): Promise<{ id: string; token: string }> {
@@ -108,6 +122,10 @@ export async function buildWorld(): Promise<World> {
   const projects = must(await call("/api/projects", { cookie: admin }), 200, "projects").projects as { id: string; name: string }[];
   const ternProjectId = projects.find((p) => p.name.includes("Tern"))!.id;
   const base = await demoDefinition(admin, projectId);
+  // Earlier test files sent mail as the demo people on this project; the hourly e-mail quota (tested on its own
+  // in token-scopes-and-mail-quota) would otherwise refuse this world's publications depending on file order.
+  // Their mail is moved out of the quota's hour, so each matrix starts with the demo project's quota unused.
+  await db`UPDATE email_outbox SET created_at = created_at - interval '2 hours' WHERE project_id = ${projectId} OR requested_by IN (SELECT user_id FROM project_members WHERE project_id = ${projectId})`;
 
   // The stranger: administrator of a project of their own, never a member of Kestrel.
   const stranger = await newAccount(db, "stranger");
@@ -120,7 +138,8 @@ export async function buildWorld(): Promise<World> {
   const sc = cookies.otherProjectAdmin;
 
   const target = await newScenario({ base }, projectId, admin, "matrix target");
-  const runId = await serverRun(target.id, admin);
+  const { runId, jobId } = await serverRun(target.id, admin);
+  const searchId = await newSearch(target.id, admin);
   const shareToken = (await newShareLink(target.id, admin)).token;
   const published = must(await call(`/api/scenarios/${target.id}/closure-publications`, { method: "POST", cookie: admin }), 201, "closure publication");
   const feedToken = new URL(published.feedUrl).pathname.split("/").at(-2)!;
@@ -128,9 +147,12 @@ export async function buildWorld(): Promise<World> {
 
   const sScenario = await newScenario({ base }, strangerProjectId, sc, "stranger's");
   const sField = await newFieldScenario(strangerProjectId, sc);
+  const strangerRun = await serverRun(sScenario.id, sc);
   const strangerIds = {
     scenarioId: sScenario.id,
-    runId: await serverRun(sScenario.id, sc),
+    runId: strangerRun.runId,
+    jobId: strangerRun.jobId,
+    searchId: await newSearch(sScenario.id, sc),
     entryId: sField.entryId,
     shareLinkId: (await newShareLink(sScenario.id, sc)).id,
     subscriberId: await newSubscriber(strangerProjectId, sc),
@@ -148,6 +170,8 @@ export async function buildWorld(): Promise<World> {
     base,
     target,
     runId,
+    jobId,
+    searchId,
     shareToken,
     feedToken,
     field,

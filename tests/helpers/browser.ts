@@ -3,7 +3,6 @@ import { chromium, type Browser, type Page } from "playwright-core";
 import { mkdirSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import AxeBuilder from "@axe-core/playwright";
-import { APP_URL, DEMO_PASSWORD } from "./app";
 
 export const SCREENSHOTS = fileURLToPath(new URL("../e2e/screenshots/", import.meta.url));
 
@@ -18,13 +17,6 @@ export async function launch(): Promise<Browser> {
 export async function screenshot(page: Page, name: string) {
   mkdirSync(SCREENSHOTS, { recursive: true });
   await page.screenshot({ path: `${SCREENSHOTS}${name}.png`, fullPage: true });
-}
-
-export async function signInPage(page: Page, email: string, password = DEMO_PASSWORD) {
-  await page.goto(`${APP_URL}/signin`);
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(password);
-  await page.getByRole("button", { name: "Sign in" }).click();
 }
 
 /** axe-core's serious and critical findings on the current page, as readable lines. */

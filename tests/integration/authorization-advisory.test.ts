@@ -6,6 +6,7 @@
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import { call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
+import { serverRunDone } from "../helpers/jobs";
 
 let projectId: string;
 let base: Record<string, unknown>;
@@ -14,8 +15,8 @@ async function scenarioWithRun(label: string): Promise<string> {
   const admin = await signInAs("admin");
   const s = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie: admin, body: { name: label, definition: { ...base, name: label } } });
   if (s.status !== 201) throw new Error(`fixture scenario failed: ${s.status}`);
-  const run = await call(`/api/scenarios/${s.body.id}/runs`, { method: "POST", cookie: admin, body: { seed: "advisory", iterations: 10 } });
-  if (run.status !== 201) throw new Error(`fixture run failed: ${run.status}`);
+  const job = await serverRunDone(s.body.id, admin, { seed: "advisory", iterations: 10 });
+  if (job.status !== "completed") throw new Error(`fixture run ${job.status}: ${job.error}`);
   return s.body.id;
 }
 
@@ -38,6 +39,19 @@ describe("publishing names the previewed run", { timeout: 120_000 }, () => {
     expect(bad.status).toBe(400);
     expect(bad.body.fields[0].path).toBe("runId");
     expect((await call(`/api/scenarios/${id}/closure-publications`, { cookie: admin })).body.publications.length).toBe(before);
+  });
+
+  it("a plan run again after the preview is refused with the previewed run's id, and the new preview publishes", async () => {
+    const admin = await signInAs("admin");
+    const id = await scenarioWithRun("re-run after preview");
+    const first = (await call(`/api/scenarios/${id}/closure-publications?preview=1`, { cookie: admin })).body.preview;
+    expect((await serverRunDone(id, admin, { seed: "advisory again", iterations: 10 })).status).toBe("completed");
+    const stale = await call(`/api/scenarios/${id}/closure-publications`, { method: "POST", cookie: admin, body: { runId: first.runId } });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error).toMatch(/run again after your preview/);
+    const second = (await call(`/api/scenarios/${id}/closure-publications?preview=1`, { cookie: admin })).body.preview;
+    expect(second.runId).not.toBe(first.runId);
+    expect((await call(`/api/scenarios/${id}/closure-publications`, { method: "POST", cookie: admin, body: { runId: second.runId } })).status).toBe(201);
   });
 });
 

@@ -23,6 +23,8 @@ const FOREIGN: Record<string, (w: World) => { whose: string; id: string }[]> = {
   projectId: (w) => [{ whose: "a project they are not a member of", id: w.strangerProjectId }],
   scenarioId: (w) => [{ whose: "another project's scenario", id: w.stranger.scenarioId }],
   runId: (w) => [{ whose: "another project's run", id: w.stranger.runId }],
+  jobId: (w) => [{ whose: "another project's engine job", id: w.stranger.jobId }],
+  searchId: (w) => [{ whose: "another project's plan search", id: w.stranger.searchId }],
   entryId: (w) => [{ whose: "another project's progress entry", id: w.stranger.entryId }],
   linkId: (w) => [{ whose: "another project's share link", id: w.stranger.shareLinkId }],
   // Inside Kestrel's own path: the Tern one belongs to a project the admin also runs, and still must not be reachable here.
@@ -82,6 +84,8 @@ describe("foreign ids inside the caller's own project path", () => {
     expect((await call(`/api/scenarios/${w.stranger.scenarioId}`, { cookie: sc })).status).toBe(200);
     expect((await call(`/api/progress/${w.stranger.entryId}`, { cookie: sc })).status).toBe(200);
     expect((await call(`/api/runs/${w.stranger.runId}`, { cookie: sc })).status).toBe(200);
+    expect((await call(`/api/jobs/${w.stranger.jobId}`, { cookie: sc })).body.job?.status).toBe("completed");
+    expect((await call(`/api/searches/${w.stranger.searchId}`, { cookie: sc })).status).toBe(200);
     const links = must(await call(`/api/scenarios/${w.stranger.scenarioId}/share-links`, { cookie: sc }), 200, "links").links;
     expect(links.find((l: { id: string }) => l.id === w.stranger.shareLinkId)?.revokedAt ?? null).toBeNull();
     const subs = must(await call(`/api/projects/${w.strangerProjectId}/closure-subscribers`, { cookie: sc }), 200, "subscribers").subscribers;

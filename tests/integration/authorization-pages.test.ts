@@ -1,7 +1,8 @@
 /**
  * Pages and server actions, for every caller of the API matrix. Every page under src/app/(app) must have a row
  * (found from its page.tsx files); the answer of each cell is derived from the row's need: not signed in → sent
- * to the sign-in page, a project the caller is not in → 404, a role the page is not for → 404, otherwise 200.
+ * to the sign-in page, a project the caller is not in → 404, a role the page is not for → 403 with the page that
+ * says the role cannot do this (a member is not told "not found"), otherwise 200.
  * Server actions are found by their "use server" files and called over HTTP like the framework's client.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -25,12 +26,17 @@ const PAGE_ROWS: Record<string, PageNeed> = {
   "/scenarios/[scenarioId]/progress": { kind: "scenario", action: "read" },
   "/scenarios/[scenarioId]/data": { kind: "scenario", action: "editScenario" },
   "/scenarios/[scenarioId]/share": { kind: "scenario", action: "shareScenario" },
+  // The week ahead: every member reads the board (the notice settings are shown only to those who may share).
+  "/scenarios/[scenarioId]/look-ahead": { kind: "scenario", action: "read" },
+  // Plan search: everyone who reads the scenario sees its searches (the form only for those who may run it).
+  "/scenarios/[scenarioId]/search": { kind: "scenario", action: "read" },
+  "/scenarios/[scenarioId]/search/[searchId]": { kind: "scenario", action: "read" },
   // The local mail catcher: whether it is switched on is the machine owner's choice, but it never shows anyone
   // mail addressed to someone else (checked below).
   "/dev/mailbox": { kind: "mailbox" },
 };
 
-type PageAnswer = "signin" | 200 | 404 | "200 or 404";
+type PageAnswer = "signin" | 200 | 403 | 404 | "200 or 404";
 const signedIn = (c: Caller) => isRole(c) || c === "otherProjectAdmin";
 
 function expectedPage(need: PageNeed, c: Caller): PageAnswer {
@@ -38,7 +44,7 @@ function expectedPage(need: PageNeed, c: Caller): PageAnswer {
   if (need.kind === "session") return 200;
   if (need.kind === "mailbox") return "200 or 404";
   if (!isRole(c)) return 404;
-  return can(c, need.action) ? 200 : 404;
+  return can(c, need.action) ? 200 : 403;
 }
 
 const pages = discoverAppPages();
@@ -69,7 +75,7 @@ describe("the page table covers the app", () => {
 describe.each(pages.filter((p) => p in PAGE_ROWS))("page %s", (template) => {
   it.each(CALLERS)("as %s", async (caller) => {
     const want = expectedPage(PAGE_ROWS[template], caller);
-    const url = fillPath(template, { projectId: w.projectId, scenarioId: w.target.id });
+    const url = fillPath(template, { projectId: w.projectId, scenarioId: w.target.id, searchId: w.searchId });
     const [path, opts] = present(w, caller, url);
     const res = await call(path, opts);
     const where = `${url} as ${caller}: ${res.status} ${res.headers.get("location") ?? ""}`;
@@ -81,6 +87,7 @@ describe.each(pages.filter((p) => p in PAGE_ROWS))("page %s", (template) => {
     } else {
       expect(res.status, where).toBe(want);
     }
+    if (want === 403) expect(String(res.body), `${where}: says the role cannot do this`).toContain("Your role on this project cannot do this");
     if (PAGE_ROWS[template].kind === "mailbox") {
       const html = String(res.body);
       expect(html.includes(probe.email), `${where}: shows mail addressed to someone else`).toBe(false);

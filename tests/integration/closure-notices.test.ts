@@ -6,6 +6,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import ICAL from "ical.js";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { findMail } from "../../src/lib/server/mailbox";
+import { serverRunDone } from "../helpers/jobs";
 
 let engineer: string;
 let projectId: string;
@@ -31,10 +32,11 @@ async function waitForMail(to: string, subject: string, ms = 20_000) {
 }
 
 describe("closure notices", () => {
-  it("refuses to publish before the scenario has a current run", async () => {
+  it("refuses to publish (or preview a publication) before the scenario has a current run", async () => {
     const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatch(/Run the scenario/);
+    expect((await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer })).status).toBe(409);
   });
 
   it("a subscriber's e-mail is validated and a repeat add changes nothing", async () => {
@@ -47,14 +49,25 @@ describe("closure notices", () => {
   });
 
   it("publishing notifies every subscriber with the first closures and a calendar feed that parses and can be revoked", async () => {
-    expect((await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: engineer, body: { seed: "notice", iterations: 20 } })).status).toBe(201);
-    const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer });
+    expect((await serverRunDone(scenarioId, engineer, { seed: "notice", iterations: 20 })).status).toBe("completed");
+    // The confirmation first shows what will be sent; publishing sends exactly that, with the new calendar link.
+    const preview = await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer });
+    expect(preview.status).toBe(200);
+    expect(preview.body.preview.to).toContain(subscriber);
+    // Publishing names the previewed run, as the Share page's confirmation does.
+    const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer, body: { runId: preview.body.preview.runId } });
     expect(res.status).toBe(201);
     expect(res.body.closureCount).toBeGreaterThan(0);
     expect(res.body.notified).toBeGreaterThanOrEqual(1);
 
     const mail = await waitForMail(subscriber, "Lane closures planned");
     expect(mail.text).toContain("closed)");
+    expect(mail.subject).toBe(preview.body.preview.subject);
+    expect(preview.body.preview.closureCount).toBe(res.body.closureCount);
+    expect(preview.body.preview.runId).toMatch(/^[0-9a-f-]{36}$/);
+    expect(mail.text).toBe(
+      preview.body.preview.text.replace("(a new calendar link, created when you publish)", res.body.feedUrl).replace("(a new travel advisory link, created when you publish)", res.body.advisoryUrl),
+    );
     const feedPath = new URL(res.body.feedUrl).pathname;
     expect(mail.text).toContain(feedPath);
 

@@ -52,8 +52,21 @@ describe("migrations", () => {
         "progress_history",
         "email_outbox",
         "sign_in_attempts",
+        "engine_jobs",
+        "engine_workers",
+        "engine_leases",
+        "plan_searches",
+        "plan_search_variants",
       ]),
     );
+    // The engine job queue's own tables and its queue (pg-boss), installed by the same step.
+    const queues = await sql`SELECT name FROM pgboss.queue`;
+    expect(queues.map((q) => q.name)).toContain("engine");
+    // Owned by the role the app connects as (not a superuser), so the web server and the workers may use it.
+    const [owner] = await sql`SELECT pg_get_userbyid(n.nspowner) AS schema_owner, current_user AS me, (SELECT rolsuper FROM pg_roles WHERE rolname = current_user) AS superuser,
+      (SELECT count(*)::int FROM pg_class c WHERE c.relnamespace = n.oid AND c.relkind IN ('r', 'p') AND pg_get_userbyid(c.relowner) <> current_user) AS foreign_tables
+      FROM pg_namespace n WHERE n.nspname = 'pgboss'`;
+    expect(owner).toMatchObject({ schema_owner: owner.me, superuser: false, foreign_tables: 0 });
   });
 
   it("are idempotent: applying them again changes nothing", async () => {

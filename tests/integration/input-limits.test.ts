@@ -192,7 +192,7 @@ describe("the work budget, before any run", () => {
     expect((await call(`/api/scenarios/${s.id}/runs`, { cookie: scheduler })).body.runs).toHaveLength(0);
 
     // Within the budget the same scenario runs.
-    expect((await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "h", iterations: 20 } })).status).toBe(201);
+    expect((await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "h", iterations: 20 } })).status).toBe(202);
   });
 });
 

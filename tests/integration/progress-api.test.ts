@@ -6,6 +6,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { call, kestrelProject, signInAs } from "../helpers/app";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+import { waitForJob } from "../helpers/jobs";
 
 let scheduler: string;
 let inspector: string;
@@ -37,7 +38,7 @@ describe("progress entries", () => {
 
     const again = await post(s.id, milling({ workDate: day(2), fromStationFt: "2+00", toStationFt: "4+00" }));
     expect(again.status).toBe(400);
-    expect(again.body.fields).toEqual([{ path: "fromStationFt", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
+    expect(again.body.fields).toEqual([{ path: "fromStationFt", label: "From station", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) }]);
     const letters = await post(s.id, milling({ workDate: day(2), fromStationFt: "3a0", toStationFt: 400 }));
     expect(letters.status).toBe(400);
     expect(letters.body.fields[0]).toMatchObject({ path: "fromStationFt", message: expect.stringContaining("“3a0” is neither") });
@@ -112,7 +113,9 @@ describe("progress entries", () => {
 describe("re-forecast", () => {
   it("stores a run with its data date that schedules none of the recorded packets, and lists it for the drift chart", async () => {
     const s = await createPastScenario(scheduler, projectId, "Re-forecast");
-    expect((await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "p", iterations: 20 } })).status).toBe(201);
+    const planRun = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "p", iterations: 20 } });
+    expect(planRun.status).toBe(202);
+    expect((await waitForJob(planRun.body.job.id, scheduler)).status).toBe("completed");
     expect((await post(s.id, milling({ fromStationFt: 0, toStationFt: 500 }))).status).toBe(201);
     expect((await post(s.id, milling({ workDate: day(2), fromStationFt: 500, toStationFt: 1000 }))).status).toBe(201);
     expect((await post(s.id, milling({ workDate: day(2), operationId: "overlay", fromStationFt: 0, toStationFt: 250 }))).status).toBe(201);
@@ -124,10 +127,14 @@ describe("re-forecast", () => {
     expect(future.status).toBe(400);
     expect(future.body.fields[0]).toMatchObject({ path: "dataDate", message: expect.stringMatching(/must not be in the future/) });
     const re = await call(`/api/scenarios/${s.id}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: day(2), seed: "r", iterations: 20 } });
-    expect(re.status).toBe(201);
-    expect(re.body.reforecast.operations[0]).toMatchObject({ id: "milling", donePackets: 10 });
-    expect(re.body.reforecast.operations[1]).toMatchObject({ id: "overlay", donePackets: 2, partPackets: 1 });
-    const run = await call(`/api/runs/${re.body.id}`, { cookie: viewer });
+    expect(re.status).toBe(202);
+    const job = await waitForJob(re.body.job.id, engineer);
+    expect(job.status).toBe("completed");
+    const run = await call(`/api/runs/${job.runId}`, { cookie: viewer });
+    expect(run.body.run.dataDate).toBe(day(2));
+    expect(run.body.run.planRun).toBe(false);
+    expect(run.body.run.results.reforecast.operations[0]).toMatchObject({ id: "milling", donePackets: 10 });
+    expect(run.body.run.results.reforecast.operations[1]).toMatchObject({ id: "overlay", donePackets: 2, partPackets: 1 });
     const packets = run.body.run.results.representative.trace.packets as { op: string; packet: number }[];
     expect(packets.filter((p) => p.op === "milling")).toEqual([]);
     expect(packets.filter((p) => p.op === "overlay").map((p) => p.packet)).toEqual([2, 3, 4, 5, 6, 7, 8, 9]);

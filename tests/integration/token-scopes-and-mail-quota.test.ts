@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
 import { appDatabase, freshScenario, freshTeam } from "../helpers/fresh-team";
+import { serverRunDone } from "../helpers/jobs";
 
 const db = appDatabase();
 let definition: Record<string, unknown>;
@@ -20,7 +21,7 @@ describe("token scopes", () => {
     const { projectId, members } = await freshTeam(db, ["engineer"]);
     const cookie = await members[0].cookie();
     const scenario = await freshScenario(cookie, projectId, definition, "Scope test");
-    expect((await call(`/api/scenarios/${scenario.id}/runs`, { method: "POST", cookie, body: { seed: "scope", iterations: 10 } })).status).toBe(201);
+    expect((await serverRunDone(scenario.id, cookie, { seed: "scope", iterations: 10 })).status).toBe("completed");
     const published = await call(`/api/scenarios/${scenario.id}/closure-publications`, { method: "POST", cookie });
     expect(published.status).toBe(201);
     const feedToken = new URL(published.body.feedUrl).pathname.split("/")[3];

@@ -59,16 +59,51 @@ describe("planned closures come from the closure timeline", () => {
   const summary = runScenario(small, { iterations: 3, seed: "x" });
   const closures = plannedClosures(summary)!;
 
-  it("one closure per timeline period, inside the 07:00–17:00 window of its day", () => {
-    expect(closures).toHaveLength(summary.representative.closureTimeline.length);
+  it("are the representative closure timeline, period for period, in time order", () => {
+    // The small deck works one 07:00–17:00 weekday window (fixed weather, no set-up time): each closure
+    // lies inside a window and closures of one kind never overlap.
+    const timeline = summary.representative.closureTimeline;
+    expect(closures.length).toBe(timeline.length);
     expect(closures.length).toBeGreaterThan(0);
-    for (const c of closures) {
-      const { start, end } = closureLocalTimes(c, small.startDate);
-      expect(start.slice(11) >= "07:00").toBe(true);
-      expect(end.slice(11) <= "17:00").toBe(true);
-      expect(start.slice(0, 10)).toBe(end.slice(0, 10));
+    const asText = closures.map((c) => ({ closure: c.closureId, kind: c.kind, lanes: c.lanes, ...closureLocalTimes(c, small.startDate) }));
+    expect(asText).toEqual(expect.arrayContaining(timeline.map((p) => ({ closure: p.closure, kind: p.kind, lanes: p.lanes, start: p.start, end: p.end }))));
+    for (const c of asText) {
+      expect(c.start.slice(11) >= "07:00").toBe(true);
+      expect(c.end.slice(11) <= "17:00").toBe(true);
+      expect(c.start.slice(0, 10)).toBe(c.end.slice(0, 10));
     }
     for (let i = 1; i < closures.length; i++) expect(closures[i].start).toBeGreaterThanOrEqual(closures[i - 1].end);
+    // Every stretch a crew under the closure works or mobilizes lies inside one of its periods.
+    const closureOf = new Map(small.operations.flatMap((o) => (o.kind === "crew" && o.closure ? [[o.id, o.closure] as const] : [])));
+    let checked = 0;
+    for (const t of summary.representative.trace.packets) {
+      const id = closureOf.get(t.op);
+      if (!id) continue;
+      const from = t.mobilizedFrom ?? t.start;
+      const inside = closures.some((c) => c.closureId === id && c.start <= from + 1e-6 && t.finish <= c.end + 1e-6);
+      const paused = summary.representative.trace.pauses.some((p) => p.op === t.op && p.packet === t.packet);
+      // A packet paused overnight spans two periods; its worked pieces are checked through the pause-free ones.
+      if (!paused) {
+        expect(inside).toBe(true);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(0);
+  });
+
+  it("a staged plan exports each stage's round-the-clock closure beside its night closures", () => {
+    const staged = load("kestrel-staged-three-lane.json");
+    const s = runScenario(staged, { iterations: 5, seed: "stages" });
+    const cl = plannedClosures(s)!;
+    const standing = cl.filter((c) => c.kind === "standing");
+    expect(standing.map((c) => c.closureId).sort()).toEqual(["stage:stage-1", "stage:stage-2"]);
+    expect(standing.find((c) => c.closureId === "stage:stage-1")!.lanes).toEqual(["L1"]);
+    // A standing closure stands through nights: one period lasts longer than any night window.
+    expect(Math.max(...standing.map((c) => c.end - c.start))).toBeGreaterThan(24);
+    const text = closuresToIcs({ closures: cl, startDate: staged.startDate, timeZone: staged.timeZone, structure: "Kestrel Bay Causeway", scenario: staged.name, uidSeed: "s" });
+    const titles = new ICAL.Component(ICAL.parse(text)).getAllSubcomponents("vevent").map((v) => new ICAL.Event(v).summary);
+    expect(titles.some((t) => t.endsWith(": L1 closed round the clock"))).toBe(true);
+    expect(titles.some((t) => t.endsWith("Night closure of L2 (mixer trucks) (L2 closed)"))).toBe(true);
   });
 
   it("a run stored before the timeline existed yields null (run it again), not an empty plan", () => {
@@ -124,17 +159,33 @@ describe("results CSV", () => {
   const demo = load("kestrel-two-season.json");
   const s = runScenario(demo, { iterations: 20, seed: "csv" });
 
-  it("percentiles: one row overall and one per operation", () => {
+  it("percentiles: one row overall, one per stage and one per operation, with a stage column", () => {
     const rows = Papa.parse<Record<string, string>>(percentilesCsv(s), { header: true }).data;
-    expect(rows).toHaveLength(1 + demo.operations.length);
-    expect(rows[0]).toMatchObject({ item: "overall", p80: s.finish.p80 });
-    expect(rows.map((r) => r.item).slice(1)).toEqual(demo.operations.map((o) => o.id));
+    expect(rows).toHaveLength(1 + demo.stages.length + demo.operations.length);
+    expect(rows[0]).toMatchObject({ kind: "overall", item: "overall", p80: s.finish.p80 });
+    expect(rows.filter((r) => r.kind === "stage").map((r) => r.stage)).toEqual(demo.stages.map((st) => st.id));
+    expect(rows.filter((r) => r.kind === "operation").map((r) => r.item)).toEqual(demo.operations.map((o) => o.id));
   });
 
-  it("trace: one row per packet of each operation with stations and times", () => {
+  it("trace: one row per packet of each stage operation with its stage, stations and times", () => {
     const rows = Papa.parse<Record<string, string>>(traceCsv(s, demo), { header: true }).data;
     expect(rows).toHaveLength(s.representative.trace.packets.length);
     expect(Number(rows[0].station_from_ft)).toBe(demo.deck.startStationFt + Number(rows[0].packet) * demo.deck.packetFt);
     expect(rows[0].start).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/);
+    expect(rows[0].stage).toBe(demo.stages[0].id);
+  });
+
+  it("staged: stage rows carry each stage's restoration; a packet worked in two stages keeps its pauses apart", () => {
+    const staged = load("kestrel-staged-three-lane.json");
+    const st = runScenario(staged, { iterations: 5, seed: "stages" });
+    const rows = Papa.parse<Record<string, string>>(percentilesCsv(st), { header: true }).data;
+    const stageRows = rows.filter((r) => r.kind === "stage");
+    expect(stageRows.map((r) => [r.stage, r.p50])).toEqual(st.stages.map((x) => [x.id, x.finish.p50]));
+    const trace = Papa.parse<Record<string, string>>(traceCsv(st, staged), { header: true }).data;
+    expect(new Set(trace.map((r) => r.stage))).toEqual(new Set(["stage-1", "stage-2"]));
+    // Paused hours per row = the pauses of that stage's packet only, so the column sums to the trace's pauses.
+    const total = trace.reduce((a, r) => a + Number(r.paused_hours), 0);
+    const pauses = st.representative.trace.pauses.reduce((a, p) => a + (p.end - p.start), 0);
+    expect(total).toBeCloseTo(pauses, 0);
   });
 });

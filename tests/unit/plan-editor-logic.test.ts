@@ -3,12 +3,10 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { parseScenario } from "@sim/validate";
 import {
-  depths,
   convertDist,
   diffDefinitions,
   findPath,
   freshId,
-  layoutByDepth,
   normalizeDefinition,
   proposeLink,
   sectionOf,
@@ -62,22 +60,10 @@ describe("proposeLink", () => {
   });
 });
 
-describe("findPath and layout", () => {
+describe("findPath", () => {
   it("finds the shortest path or null", () => {
     expect(findPath([...chain, { from: "setup", to: "placement" }], "setup", "cure")).toEqual(["setup", "placement", "cure"]);
     expect(findPath(chain, "cure", "setup")).toBeNull();
-  });
-  it("places operations by longest-path depth, left to right", () => {
-    const links = [...chain, { from: "setup", to: "placement" }];
-    const d = depths(ops, links);
-    expect([...d.values()]).toEqual([0, 1, 2, 3, 4]);
-    const pos = layoutByDepth([...ops, "restripe"], [...links, { from: "setup", to: "restripe" }], 200, 100);
-    expect(pos.cure).toEqual({ x: 800, y: 0 });
-    expect(pos.restripe).toEqual({ x: 200, y: 100 }); // second operation at depth 1
-  });
-  it("does not hang on a stored loop", () => {
-    const d = depths(["a", "b"], [{ from: "a", to: "b" }, { from: "b", to: "a" }]);
-    expect(Math.max(...d.values())).toBeLessThan(2);
   });
 });
 
@@ -147,19 +133,5 @@ describe("convertDist and toFormValues", () => {
       // Only the explicit `false` switches differ, and the engine treats them like absent ones (`=== true`).
       expect(diffDefinitions(a.scenario, b.scenario).map((d) => d.after)).toEqual(["false", "false", "false", "false"]);
     }
-  });
-});
-
-describe("layoutByDepth with wrapping", () => {
-  it("folds a long chain into bands of three columns, in order, without overlaps", () => {
-    const ids = ["a", "b", "c", "d", "e", "f", "g"];
-    const links = ids.slice(1).map((to, i) => ({ from: ids[i], to }));
-    const pos = layoutByDepth(ids, links, 200, 100, 3);
-    expect(ids.map((id) => pos[id].x)).toEqual([0, 200, 400, 0, 200, 400, 0]);
-    const bands = ids.map((id) => pos[id].y);
-    expect(bands[0]).toBe(bands[2]);
-    expect(bands[3]).toBeGreaterThan(bands[2]);
-    expect(bands[6]).toBeGreaterThan(bands[3]);
-    expect(new Set(ids.map((id) => `${pos[id].x},${pos[id].y}`)).size).toBe(ids.length);
   });
 });

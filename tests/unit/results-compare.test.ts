@@ -9,6 +9,7 @@ function run(over: Partial<CompareRun> = {}): CompareRun {
     id: "r",
     scenarioVersion: 1,
     stale: false,
+    verification: "server",
     iterations: 500,
     createdAt: "2026-01-01T00:00:00Z",
     startDate: "2027-04-05",

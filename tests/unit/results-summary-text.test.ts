@@ -1,7 +1,7 @@
 // The plain-language sentence of a run: target clause, unfinished iterations, convergence verdict.
 import { describe, expect, it } from "vitest";
 import type { RunSummary } from "@sim/summary";
-import { p80Meaning, plainSummary, quantileText, STABLE_DAYS, winterCarryover } from "@/components/results/summary-text";
+import { BRIEF_MIN_ITERATIONS, iterationsStatement, p80Meaning, plainSummary, quantileText, STABLE_DAYS, winterCarryover } from "@/components/results/summary-text";
 import type { Scenario } from "@sim/schema";
 
 function summary(over: Partial<RunSummary> = {}): RunSummary {
@@ -67,6 +67,30 @@ describe("plainSummary", () => {
   });
 });
 
+describe("stages and lane-closed hours in words", () => {
+  const q = (p50: string, p80: string) => ({ p10: p50, p50, p80, p90: p80 });
+  it("one line per stage with its lanes and restoration; none for a one-stage plan", () => {
+    const two = plainSummary(
+      summary({
+        stages: [
+          { id: "a", name: "North lane", lanes: ["L1"], finish: q("2027-05-19", "2027-05-24") },
+          { id: "b", name: "South lanes", lanes: ["L2", "L3"], finish: q("2027-08-04", "unfinished") },
+        ],
+      }),
+    );
+    expect(two.stages).toEqual([
+      "Stage 1: North lane (L1): restored P50 19 May 2027 · P80 24 May 2027",
+      "Stage 2: South lanes (L2, L3): restored P50 4 Aug 2027 · P80 not reached within the six-year horizon",
+    ]);
+    expect(plainSummary(summary({ stages: [{ id: "a", name: "Whole deck", lanes: ["L1"], finish: q("2027-05-19", "2027-05-24") }] })).stages).toEqual([]);
+  });
+  it("lane-closed hours rounded, P50 and P80; absent for runs stored before the closure timeline", () => {
+    const p = plainSummary(summary({ laneClosedHours: { total: { p50: 4803.6, p80: 5120.2 }, byClosure: [], byDay: [] } }));
+    expect(p.laneClosed).toMatch(/^Lane-closed hours: 4,804 P50 · 5,120 P80 /);
+    expect(plainSummary(summary({ laneClosedHours: undefined as unknown as RunSummary["laneClosedHours"] })).laneClosed).toBeNull();
+  });
+});
+
 describe("plain words for an executive", () => {
   it("says what P80 means in one sentence", () => {
     expect(p80Meaning(summary())).toBe("P80 means 8 in 10 of the 1,000 simulated outcomes (weather, production rates, deterioration found) finish by 14 Oct 2027; 1 in 5 finish later.");
@@ -79,5 +103,20 @@ describe("plain words for an executive", () => {
     expect(winterCarryover(s, plan)).toBe("In 28 % of the iterations the work is not finished by the winter stand-down (15 Nov 2027) and carries over to the next season.");
     const two = { ...plan, calendar: { season: { ...plan.calendar.season, plan: "two" } } } as unknown as Scenario;
     expect(winterCarryover(s, two)).toBeNull();
+  });
+});
+
+describe("iterationsStatement (the owner brief)", () => {
+  it("always states the iteration count, and warns only when too few or not stable", () => {
+    const ok = iterationsStatement(summary({ iterations: 5000, convergenceDays: 0.5 }));
+    expect(ok.text).toBe("This forecast rests on 5,000 simulated outcomes (iterations).");
+    expect(ok.warning).toBeNull();
+    const few = iterationsStatement(summary({ iterations: BRIEF_MIN_ITERATIONS - 500, convergenceDays: 0.5 }));
+    expect(few.text).toContain("500 simulated outcomes");
+    expect(few.warning).toContain("500 iterations are fewer than the 1,000 a brief should rest on");
+    const unsteady = iterationsStatement(summary({ iterations: 500, convergenceDays: STABLE_DAYS + 3 }));
+    expect(unsteady.warning).toContain("fewer than the 1,000");
+    expect(unsteady.warning).toContain(`not yet stable (the P80 moved ${STABLE_DAYS + 3} days`);
+    expect(iterationsStatement(summary({ iterations: 5000, convergenceDays: null })).warning).toContain("could not be measured");
   });
 });

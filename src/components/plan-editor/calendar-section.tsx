@@ -5,6 +5,7 @@ import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
 import type { ScenarioInput } from "@sim/schema";
 import { formatStation } from "@/lib/format";
 import { CheckboxField, CheckboxGroup, NumberField, SelectField, TextField, n } from "./fields";
+import { StationField } from "./station-field";
 import { freshId } from "./plan-logic";
 
 const WEEKDAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"].map((label, value) => ({ value, label }));
@@ -89,21 +90,25 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
 
       <section className="card overflow-x-auto" aria-labelledby="closures-heading">
         <div className="flex items-center justify-between gap-3">
-          <h2 id="closures-heading">Closures</h2>
+          <h2 id="closures-heading">Short-term closures</h2>
           {!readOnly && (
             <button
               type="button"
               className="btn-secondary"
-              onClick={() => closures.append({ id: freshId("closure", (getValues("calendar.closures") ?? []).map((c) => c.id)), name: "New closure", lanesClosed: lanes.slice(0, 1) })}
+              onClick={() => closures.append({ id: freshId("closure", (getValues("calendar.closures") ?? []).map((c) => c.id)), name: "New closure", lanesClosed: lanes.slice(0, 1), setupHours: 0, takedownHours: 0 })}
             >
               Add closure
             </button>
           )}
         </div>
-        <table className="mt-3 w-full min-w-[640px] border-collapse">
+        <p className="mt-1 text-sm text-muted">
+          Closed only while a crew works under them, on top of the stage&apos;s lanes behind barrier (see Stages). Work starts only after set-up; lanes count as
+          closed while switching (set-up and take-down).
+        </p>
+        <table className="mt-3 w-full min-w-[760px] border-collapse">
           <thead>
             <tr>
-              {["Id", "Name", "Lanes closed", ""].map((h, i) => (
+              {["Id", "Name", "Lanes closed", "Set-up (h)", "Take-down (h)", ""].map((h, i) => (
                 <th key={i} scope="col" className="table-head">
                   {h || <span className="sr-only">Actions</span>}
                 </th>
@@ -116,6 +121,8 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
                 <td className="table-cell"><TextField name={`calendar.closures.${i}.id`} label={`Closure ${i + 1} id`} hideLabel /></td>
                 <td className="table-cell"><TextField name={`calendar.closures.${i}.name`} label={`Closure ${i + 1} name`} hideLabel /></td>
                 <td className="table-cell"><CheckboxGroup name={`calendar.closures.${i}.lanesClosed`} legend={`Closure ${i + 1} lanes closed`} hideLegend options={laneOptions} /></td>
+                <td className="table-cell"><NumberField name={`calendar.closures.${i}.setupHours`} label={`Closure ${i + 1} set-up hours`} hideLabel min={0} max={12} /></td>
+                <td className="table-cell"><NumberField name={`calendar.closures.${i}.takedownHours`} label={`Closure ${i + 1} take-down hours`} hideLabel min={0} max={12} /></td>
                 <td className="table-cell">
                   {!readOnly && (
                     <button type="button" className="btn-danger" onClick={() => closures.remove(i)} aria-label={`Remove closure ${i + 1}`}>
@@ -262,12 +269,10 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
         {plan === "two" || cutoffDate || (typeof cutoffFt === "number" && Number.isFinite(cutoffFt)) ? (
           <div className="mt-4 grid gap-4 sm:grid-cols-3">
             <TextField name="calendar.season.cutoffDate" label="Cut-off date (optional)" type="date" optional />
-            <NumberField
+            <StationField
               name="calendar.season.cutoffStationFt"
-              label="Cut-off station (ft, optional)"
-              optional
-              min={0}
-              hint={typeof cutoffFt === "number" && Number.isFinite(cutoffFt) ? formatStation(cutoffFt) : "Packets from here on wait for season 2."}
+              label="Cut-off station (optional)"
+              emptyMeans="No cut-off station: packets from anywhere may wait for season 2."
             />
           </div>
         ) : (

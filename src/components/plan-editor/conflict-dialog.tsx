@@ -7,6 +7,7 @@
 import { useEffect, useMemo, useRef } from "react";
 import { formatDateTime } from "@/lib/format";
 import { diffDefinitions, toFormValues } from "./plan-logic";
+import { describeProblemPath } from "./problem-labels";
 import type { ScenarioRecord } from "./types";
 
 const SHOWN = 60;
@@ -74,11 +75,14 @@ export function ConflictDialog({
         </h3>
         {diffs.length > 0 && (
           <ul className="mt-2 max-h-64 overflow-auto rounded-md border border-line font-mono text-xs" data-testid="conflict-diff">
-            {diffs.slice(0, SHOWN).map((d) => (
-              <li key={d.path} className="border-b border-line px-3 py-1.5 last:border-b-0">
-                <span className="font-semibold">{d.path}</span>: {d.before} → {d.after}
-              </li>
-            ))}
+            {diffs.slice(0, SHOWN).map((d) => {
+              const where = describeProblemPath(d.path, mine);
+              return (
+                <li key={d.path} className="border-b border-line px-3 py-1.5 last:border-b-0">
+                  <span className="font-sans text-muted">{where.sectionLabel}:</span> <span className="font-sans font-semibold">{where.field}</span>: {d.before} → {d.after}
+                </li>
+              );
+            })}
             {diffs.length > SHOWN && <li className="px-3 py-1.5 text-muted">…and {diffs.length - SHOWN} more</li>}
           </ul>
         )}

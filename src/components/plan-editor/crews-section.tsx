@@ -1,5 +1,9 @@
 "use client";
-/** Section 2: one table row per crew operation (rate, crews, calendar, gates) and the durations of wait operations. */
+/**
+ * Section 2: per crew operation one table row (rate, crews, calendar) and under it a full-width row of its
+ * weather gates, so the table fits a 1,440 px screen without hiding the gates; then the durations of waits.
+ */
+import { Fragment } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import type { ScenarioInput } from "@sim/schema";
 import { SafetyNote } from "@/components/safety-note";
@@ -14,7 +18,7 @@ export function CrewsSection() {
   const crew = operations.map((op, i) => ({ op, i })).filter((x) => x.op.kind === "crew");
   const wait = operations.map((op, i) => ({ op, i })).filter((x) => x.op.kind === "wait");
   const shiftOptions = shifts.map((s) => ({ value: s.id, label: s.name || s.id }));
-  const closureOptions = closures.map((c) => ({ value: c.id, label: c.name || c.id }));
+  const closureOptions = [{ value: "", label: "None (stage barrier only)" }, ...closures.map((c) => ({ value: c.id, label: c.name || c.id }))];
 
   return (
     <div className="space-y-5">
@@ -32,7 +36,7 @@ export function CrewsSection() {
         {crew.length === 0 ? (
           <p className="px-5 pb-5 text-sm text-muted">No crew operations yet. Add one in Sequence.</p>
         ) : (
-          <table className="w-full min-w-[1500px] border-collapse" data-testid="crews-table">
+          <table className="w-full min-w-[980px] border-collapse" data-testid="crews-table">
             <thead>
               <tr>
                 <th scope="col" className="table-head">Operation</th>
@@ -40,7 +44,6 @@ export function CrewsSection() {
                 <th scope="col" className="table-head">Crews · mobilization</th>
                 <th scope="col" className="table-head">Shifts · closure</th>
                 <th scope="col" className="table-head">Working</th>
-                <th scope="col" className="table-head">Weather gates</th>
               </tr>
             </thead>
             <tbody>
@@ -50,8 +53,9 @@ export function CrewsSection() {
                 const who = op.name || op.id;
                 const unit = op.rate?.unit === "ftPerShift" ? "ft/shift" : "ft/h";
                 return (
-                  <tr key={`${i}-${op.id}`} className="align-top">
-                    <th scope="row" className="table-cell text-left font-medium">
+                  <Fragment key={`${i}-${op.id}`}>
+                  <tr className="align-top">
+                    <th scope="row" rowSpan={2} className="table-cell text-left font-medium">
                       {who}
                       <span className="block text-xs font-normal text-muted">{op.id}</span>
                     </th>
@@ -79,7 +83,7 @@ export function CrewsSection() {
                     <td className="table-cell">
                       <div className="space-y-2">
                         <CheckboxGroup name={`${p}.shifts`} legend={`${who} — shifts`} options={shiftOptions} />
-                        <SelectField name={`${p}.closure`} srPrefix={`${who} — `} label="closure" className="w-44" options={closureOptions} />
+                        <SelectField name={`${p}.closure`} srPrefix={`${who} — `} label="short-term closure" className="w-44" options={closureOptions} optional />
                       </div>
                     </td>
                     <td className="table-cell">
@@ -88,8 +92,13 @@ export function CrewsSection() {
                         <CheckboxField name={`${p}.discovers`} label="Discovers deeper damage" />
                       </div>
                     </td>
-                    <td className="table-cell">
-                      <div className="grid grid-cols-3 gap-2">
+                  </tr>
+                  <tr className="align-top">
+                    <td className="table-cell border-t-0 pt-0" colSpan={4}>
+                      <p className="mb-1 text-xs font-semibold text-muted">
+                        <span className="sr-only">{who} — </span>Weather gates
+                      </p>
+                      <div className="grid grid-cols-[repeat(auto-fill,minmax(8.5rem,1fr))] gap-2">
                         <NumberField name={`${p}.gates.minTempF`} srPrefix={`${who} — `} label="min °F *" optional />
                         <NumberField name={`${p}.gates.maxTempF`} srPrefix={`${who} — `} label="max °F *" optional />
                         <NumberField name={`${p}.gates.maxWindMph`} srPrefix={`${who} — `} label="max wind mph" optional min={0} />
@@ -105,6 +114,7 @@ export function CrewsSection() {
                       </div>
                     </td>
                   </tr>
+                  </Fragment>
                 );
               })}
             </tbody>

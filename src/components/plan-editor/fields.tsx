@@ -98,7 +98,8 @@ export function TextField({ name, label, hideLabel, hint, className, type = "tex
   );
 }
 
-export function SelectField({ name, label, hideLabel, srPrefix, hint, className, options }: Common & { options: { value: string; label: string }[] }) {
+/** `optional`: the option with value "" stands for "not set" (the field is left out). */
+export function SelectField({ name, label, hideLabel, srPrefix, hint, className, options, optional }: Common & { options: { value: string; label: string }[]; optional?: boolean }) {
   const { register } = useFormContext<ScenarioInput>();
   const error = useFieldError(name);
   return (
@@ -110,7 +111,7 @@ export function SelectField({ name, label, hideLabel, srPrefix, hint, className,
         className="field-input"
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(name, error, hint)}
-        {...register(n(name))}
+        {...register(n(name), optional ? { setValueAs: (v: unknown) => (v === "" || v == null ? undefined : v) } : {})}
       >
         {options.map((o) => (
           <option key={o.value} value={o.value}>
@@ -170,3 +171,4 @@ export function CheckboxGroup<T extends string | number>({ name, legend, options
     </fieldset>
   );
 }
+

@@ -1,7 +1,7 @@
 "use client";
 /**
  * The plan editor: one react-hook-form form over the whole scenario definition (validated by the engine's zod
- * schema), five sections switched client-side so edits survive, an explicit save that runs `parseScenario`
+ * schema), six sections switched client-side so edits survive, an explicit save that runs `parseScenario`
  * first, server field problems shown the same way, and a conflict screen on 409. Nothing saves on its own.
  */
 import { useEffect, useState } from "react";
@@ -11,7 +11,6 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
 import { scenarioSchema, type FieldProblem, type Scenario, type ScenarioInput } from "@sim/schema";
 import { parseScenario } from "@sim/validate";
-import { fieldLabel } from "@sim/field-labels";
 import { api, ApiError } from "@/lib/api-client";
 import { can, ROLE_LABELS } from "@/lib/permissions";
 import { CalendarSection } from "./calendar-section";
@@ -19,8 +18,10 @@ import { ConflictDialog } from "./conflict-dialog";
 import { CrewsSection } from "./crews-section";
 import { n } from "./fields";
 import { sectionOf, toFormPath, toFormValues, type SectionId } from "./plan-logic";
+import { describeProblemPath, plainMessage } from "./problem-labels";
 import { SaveBar } from "./save-bar";
 import { SequenceSection } from "./sequence-section";
+import { StagesSection } from "./stages-section";
 import type { ScenarioRecord, ScenarioResponse } from "./types";
 import { TrafficSection } from "./traffic-section";
 import { WeatherSection } from "./weather-section";
@@ -28,6 +29,7 @@ import { useLeaveGuard } from "./use-leave-guard";
 
 const SECTIONS: { id: SectionId; label: string; hint: string }[] = [
   { id: "sequence", label: "Sequence", hint: "Operations and links" },
+  { id: "stages", label: "Stages", hint: "Lanes, stretches, barrier" },
   { id: "crews", label: "Crews and rates", hint: "Rates, crews, gates" },
   { id: "calendar", label: "Calendar and closures", hint: "Shifts, closures, seasons" },
   { id: "weather", label: "Weather", hint: "Climate profile" },
@@ -83,7 +85,8 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
   const showProblems = (source: "check" | "server", list: FieldProblem[]) => {
     setProblems({ source, list });
     clearErrors();
-    for (const p of list) setError(n(toFormPath(p.path)), { type: source, message: p.message });
+    const values = getValues();
+    for (const p of list) setError(n(toFormPath(p.path)), { type: source, message: plainMessage(p.message, values) });
     if (list[0]) jumpTo(list[0].path);
   };
 
@@ -176,22 +179,27 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
             {problems && problems.list.length > 0 && (
               <section className="card border-bad/40" role="alert" aria-labelledby="problems-heading" data-testid="plan-problems">
                 <h2 id="problems-heading" className="text-bad">
-                  {problems.source === "server" ? "The server refused the save" : "Fix these before saving"}
+                  {problems.source === "server" ? "Not saved: the server found these problems (select one to go to the field)" : "Fix these before saving (select one to go to the field)"}
                 </h2>
                 <ul className="mt-2 space-y-1 text-sm">
-                  {problems.list.map((p, i) => (
-                    <li key={`${p.path}-${i}`}>
-                      <button type="button" className="text-left hover:underline" onClick={() => jumpTo(p.path)}>
-                        <span className="font-semibold text-ink">{fieldLabel(p.path)}</span> <code className="text-muted">{p.path.replace(/^definition\./, "")}</code> — {p.message}
-                      </button>
-                    </li>
-                  ))}
+                  {problems.list.map((p, i) => {
+                    // Named as people see it: section, row and label; the button takes them to the field.
+                    const where = describeProblemPath(p.path, getValues());
+                    return (
+                      <li key={`${p.path}-${i}`}>
+                        <button type="button" className="text-left hover:underline" onClick={() => jumpTo(p.path)} data-problem-path={toFormPath(p.path)}>
+                          <span className="text-muted">{where.sectionLabel}:</span> <span className="font-semibold text-ink">{where.field}</span> — {plainMessage(p.message, getValues())}
+                        </button>
+                      </li>
+                    );
+                  })}
                 </ul>
               </section>
             )}
-            <fieldset disabled={readOnly} className="min-w-0">
+            <fieldset disabled={readOnly} className={readOnly ? "plan-readonly min-w-0" : "min-w-0"}>
               <legend className="sr-only">{SECTIONS.find((s) => s.id === section)?.label}</legend>
               {section === "sequence" && <SequenceSection readOnly={readOnly} />}
+              {section === "stages" && <StagesSection readOnly={readOnly} />}
               {section === "crews" && <CrewsSection />}
               {section === "calendar" && <CalendarSection readOnly={readOnly} />}
               {section === "weather" && <WeatherSection />}

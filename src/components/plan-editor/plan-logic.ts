@@ -1,12 +1,13 @@
 /**
  * Pure helpers of the plan editor (no React, no DOM), unit-tested in tests/unit/plan-editor-logic.test.ts.
- * Contract: `proposeLink` refuses self-links, duplicates and links that would close a loop, naming the loop;
- * `layoutByDepth` places operations left to right by longest-path depth; `diffDefinitions` lists every leaf
+ * Contract: `proposeLink` refuses self-links, duplicates and links that would close a loop, naming the loop
+ * (the graph's layout is graph-layout.ts); `diffDefinitions` lists every leaf
  * that differs between two definitions with a schema-style path; `toFormPath` and `sectionOf` map problem paths
  * (from `parseScenario` or the server) to react-hook-form names and to the editor section that shows them.
  */
 import { scenarioSchema, type ScenarioInput } from "@sim/schema";
 import { upgradeScenario } from "@sim/upgrade";
+import { stageFormValues } from "./stages-logic";
 
 export interface LinkLike {
   from: string;
@@ -52,59 +53,6 @@ export function proposeLink(
   return { ok: true };
 }
 
-/** Longest-path depth of each operation; operations caught in a (stored, invalid) loop keep depth 0. */
-export function depths(ids: readonly string[], links: readonly LinkLike[]): Map<string, number> {
-  const depth = new Map(ids.map((id) => [id, 0]));
-  // Bellman-style relaxation capped at n rounds, so a loop in stored data cannot hang the page.
-  for (let round = 0; round < ids.length; round++) {
-    let changed = false;
-    for (const l of links) {
-      const a = depth.get(l.from);
-      const b = depth.get(l.to);
-      if (a === undefined || b === undefined) continue;
-      if (a + 1 > b && a + 1 < ids.length) {
-        depth.set(l.to, a + 1);
-        changed = true;
-      }
-    }
-    if (!changed) break;
-  }
-  return depth;
-}
-
-/**
- * Left to right by depth; with `wrapAfter`, a long chain folds into bands of that many columns, so the
- * seven-operation chain stays readable in a narrow canvas instead of shrinking to fit one row.
- */
-export function layoutByDepth(
-  ids: readonly string[],
-  links: readonly LinkLike[],
-  dx = 240,
-  dy = 110,
-  wrapAfter = Infinity,
-): Record<string, { x: number; y: number }> {
-  const d = depths(ids, links);
-  const row = new Map<number, number>();
-  const out: Record<string, { x: number; y: number }> = {};
-  let tallest = 1;
-  for (const id of ids) {
-    const col = d.get(id) ?? 0;
-    const r = row.get(col) ?? 0;
-    row.set(col, r + 1);
-    tallest = Math.max(tallest, r + 1);
-  }
-  row.clear();
-  for (const id of ids) {
-    const col = d.get(id) ?? 0;
-    const r = row.get(col) ?? 0;
-    row.set(col, r + 1);
-    const band = Number.isFinite(wrapAfter) ? Math.floor(col / wrapAfter) : 0;
-    const x = Number.isFinite(wrapAfter) ? col % wrapAfter : col;
-    out[id] = { x: x * dx, y: (band * (tallest + 0.6) + r) * dy };
-  }
-  return out;
-}
-
 export interface Difference {
   path: string;
   before: string;
@@ -140,13 +88,14 @@ export function toFormPath(problemPath: string): string {
   return problemPath.replace(/^definition\.?/, "").replace(/\[(\d+)\]/g, ".$1").replace(/^\./, "");
 }
 
-export type SectionId = "sequence" | "crews" | "calendar" | "weather" | "traffic";
+export type SectionId = "sequence" | "stages" | "crews" | "calendar" | "weather" | "traffic";
 
 const SEQUENCE_OP_FIELDS = new Set(["id", "name", "kind"]);
 
 export function sectionOf(problemPath: string): SectionId {
   const p = toFormPath(problemPath).split(".");
   if (p[0] === "weather") return "weather";
+  if (p[0] === "stages") return "stages";
   if (p[0] === "traffic" || p[0] === "costs") return "traffic";
   if (p[0] === "calendar" || p[0] === "startDate" || p[0] === "targetDate" || p[0] === "deck" || p[0] === "timeZone") return "calendar";
   if (p[0] === "operations") {
@@ -196,6 +145,7 @@ const GATE_KEYS = ["minTempF", "maxTempF", "noRainHoursAfter", "maxWindMph", "ma
 export function toFormValues(definition: unknown): ScenarioInput {
   const v = structuredClone(normalizeDefinition(definition)) as ScenarioInput;
   if (!Array.isArray(v.operations)) return v;
+  if (Array.isArray(v.stages)) v.stages = stageFormValues(v.stages);
   v.targetDate = v.targetDate ?? undefined;
   if (v.calendar?.season) {
     v.calendar.season.cutoffDate = v.calendar.season.cutoffDate ?? undefined;

@@ -2,22 +2,26 @@
 /**
  * Section 1: the operations as a graph (drag a handle to link, Delete to remove) with a side panel that does
  * every graph action by keyboard too. A proposed link that would close a loop is refused with the loop named.
- * Node positions are laid out by depth and kept only for this visit (they are not part of the scenario).
+ * Operations are laid out by dagre (graph-layout.ts) afresh whenever operations or links change, and the view
+ * refits, so nothing lands on anything else and links stay on the canvas. Every link takes keyboard focus
+ * (Tab), shows it, and Delete or Backspace on a focused link removes it.
  */
 import "@xyflow/react/dist/style.css";
-import { useEffect, useMemo, useState } from "react";
+import { useEffect, useMemo, useState, type KeyboardEvent } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
-import { Background, Controls, MarkerType, Position, ReactFlow, applyNodeChanges, type Connection, type Edge, type Node, type NodeChange } from "@xyflow/react";
+import { Background, Controls, MarkerType, Position, ReactFlow, applyNodeChanges, type Connection, type Edge, type Node, type NodeChange, type ReactFlowInstance } from "@xyflow/react";
 import type { Link, Operation, ScenarioInput } from "@sim/schema";
 import { NumberField, TextField, n } from "./fields";
-import { freshId, layoutByDepth, proposeLink } from "./plan-logic";
+import { layoutGraph, NODE_HEIGHT, NODE_WIDTH } from "./graph-layout";
+import { freshId, proposeLink } from "./plan-logic";
+import { withoutOperation } from "./stages-logic";
 
 type OpIn = ScenarioInput["operations"][number];
 type LinkIn = ScenarioInput["links"][number];
 
 function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
   const byId = new Map(prev.map((nd) => [nd.id, nd]));
-  const layout = layoutByDepth(ops.map((o) => o.id), links, 220, 90, 3);
+  const layout = layoutGraph(ops.map((o) => o.id), links);
   return ops.map((op) => {
     const old = byId.get(op.id);
     const data = {
@@ -28,8 +32,10 @@ function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
         </span>
       ),
     };
-    if (old) return { ...old, data };
-    return { id: op.id, position: layout[op.id] ?? { x: 0, y: 0 }, data, sourcePosition: Position.Right, targetPosition: Position.Left };
+    const position = layout[op.id] ?? { x: 0, y: 0 };
+    const style = { width: NODE_WIDTH, height: NODE_HEIGHT };
+    if (old) return { ...old, data, position, style };
+    return { id: op.id, position, style, data, sourcePosition: Position.Right, targetPosition: Position.Left };
   });
 }
 
@@ -58,10 +64,18 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
   const [linkFrom, setLinkFrom] = useState("");
   const [linkTo, setLinkTo] = useState("");
 
+  const [flow, setFlow] = useState<ReactFlowInstance | null>(null);
   const opKey = ops.map((o) => `${o.id}\u0000${o.name}\u0000${o.kind}`).join("\u0001");
+  const linkKey = links.map((l) => `${l.from}->${l.to}`).join("\u0001");
   useEffect(() => {
     setNodes((prev) => syncNodes(prev, getValues("operations") ?? [], getValues("links") ?? []));
-  }, [opKey, getValues]);
+  }, [opKey, linkKey, getValues]);
+  // After a new layout, bring the whole graph into view (on the next frame, once React Flow has the new nodes).
+  useEffect(() => {
+    if (!flow) return;
+    const raf = requestAnimationFrame(() => void flow.fitView({ padding: 0.12 }));
+    return () => cancelAnimationFrame(raf);
+  }, [flow, nodes.length, linkKey]);
 
   const label = (id: string) => ops.find((o) => o.id === id)?.name || id;
   const edges: Edge[] = useMemo(
@@ -70,12 +84,16 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
         id: `${l.from}->${l.to}`,
         source: l.from,
         target: l.to,
-        label: `${l.lagFt ?? 0} ft · ${l.lagHours ?? 0} h`,
+        // Only lags that exist are written on the link (the panel lists both); "0 ft · 0 h" on every link is noise.
+        label: [l.lagFt ? `${l.lagFt} ft` : "", l.lagHours ? `${l.lagHours} h` : ""].filter(Boolean).join(" · ") || undefined,
+        ariaLabel: `Link ${label(l.from)} → ${label(l.to)}, lag ${l.lagFt ?? 0} ft and ${l.lagHours ?? 0} h${readOnly ? "" : "; press Delete to remove"}`,
+        focusable: true,
         markerEnd: { type: MarkerType.ArrowClosed },
         labelBgPadding: [6, 3] as [number, number],
         labelStyle: { fontSize: 12 },
       })),
-    [links],
+    // label() reads the operations, which opKey stands for.
+    [links, opKey, readOnly],
   );
 
   const write = (nextOps: OpIn[] | null, nextLinks: LinkIn[] | null) => {
@@ -100,11 +118,28 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
       (getValues("operations") ?? []).filter((o) => o.id !== id),
       (getValues("links") ?? []).filter((l) => l.from !== id && l.to !== id),
     );
+    setValue("stages", withoutOperation(getValues("stages") ?? [], id), { shouldDirty: true, shouldValidate: true });
     setNotice({ bad: false, text: `Removed ${label(id)} and its links.` });
   };
 
   const removeLinks = (keys: string[]) => {
     write(null, (getValues("links") ?? []).filter((l) => !keys.includes(`${l.from}->${l.to}`)));
+    if (keys.length === 1) {
+      const [from, to] = keys[0].split("->");
+      setNotice({ bad: false, text: `Removed the link ${label(from)} → ${label(to)}.` });
+    }
+  };
+
+  // A focused link (Tab reaches each one) goes with Delete or Backspace, without first selecting it.
+  const onGraphKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
+    if (readOnly || (e.key !== "Delete" && e.key !== "Backspace")) return;
+    const edge = (e.target as Element).closest?.(".react-flow__edge");
+    const id = edge?.getAttribute("data-id");
+    if (!id) return;
+    e.preventDefault();
+    e.stopPropagation();
+    removeLinks([id]);
+    document.querySelector<HTMLElement>('[data-testid="sequence-graph"]')?.focus();
   };
 
   const addOperation = () => {
@@ -149,7 +184,8 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
         </div>
       </section>
 
-      <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      {/* The graph takes the full width (a seven-operation chain reads at a useful zoom); the panels sit below. */}
+      <div className="space-y-5">
         <section className="card p-0" aria-labelledby="graph-heading">
           <div className="px-5 pt-4">
             <h2 id="graph-heading">Sequence</h2>
@@ -159,14 +195,16 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
                 : "Drag from an operation's right handle to another's left handle to link them; select a link and press Delete to remove it. Everything here can also be done in the panel."}
             </p>
           </div>
-          <div className="mt-3 h-[26rem] border-t border-line" data-testid="sequence-graph">
+          <div className="sequence-graph mt-3 h-[26rem] border-t border-line" data-testid="sequence-graph" tabIndex={-1} onKeyDownCapture={onGraphKeyDown}>
             <ReactFlow
+              onInit={setFlow}
               nodes={nodes}
               edges={edges}
               onNodesChange={(changes: NodeChange[]) => setNodes((nds) => applyNodeChanges(changes.filter((c) => c.type !== "remove"), nds))}
               onConnect={(c: Connection) => c.source && c.target && addLink(c.source, c.target)}
               onNodesDelete={(deleted) => deleted.forEach((d) => removeOperation(d.id))}
               onEdgesDelete={(deleted) => removeLinks(deleted.map((e) => e.id))}
+              edgesFocusable
               onNodeClick={(_, node) => focusField(`operations.${ops.findIndex((o) => o.id === node.id)}.name`)}
               onEdgeClick={(_, edge) => focusField(`links.${links.findIndex((l) => `${l.from}->${l.to}` === edge.id)}.lagFt`)}
               nodesConnectable={!readOnly}
@@ -187,7 +225,7 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
           </div>
         </section>
 
-        <div className="space-y-5">
+        <div className="grid items-start gap-5 lg:grid-cols-2">
           <section className="card" aria-labelledby="ops-panel-heading">
             <h3 id="ops-panel-heading">Operations</h3>
             <ul className="mt-2 space-y-3">

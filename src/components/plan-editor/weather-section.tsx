@@ -4,8 +4,9 @@ import { useWatch, useFormContext } from "react-hook-form";
 import { Bar, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { ScenarioInput } from "@sim/schema";
 import { NumberField, SelectField } from "./fields";
+import { monthName } from "@/lib/format";
 
-const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
+const MONTHS = Array.from({ length: 12 }, (_, i) => monthName(i + 1, true));
 
 const COLUMNS = [
   { key: "tmaxMeanF", label: "Tmax mean °F" },

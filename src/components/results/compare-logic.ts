@@ -24,6 +24,8 @@ export interface CompareRun {
   id: string;
   scenarioVersion: number;
   stale: boolean;
+  /** "server" or "verified": compare shows forecasts only (the data layer leaves pending and rejected runs out). */
+  verification: "server" | "verified" | "pending" | "rejected";
   iterations: number;
   createdAt: string;
   startDate: string;

@@ -4,7 +4,7 @@
  * `dateTicks` picks calendar-aligned ticks (days, weeks or first-of-month) so labels read as dates people use.
  */
 import { civilFromDays, daysFromCivil, formatDayNumber, parseIsoDate } from "@sim/dates";
-import { formatIsoDate } from "@/lib/format";
+import { formatIsoDate, monthName } from "@/lib/format";
 
 /** "2027-10-14" or "2027-10-14T15:30" → day number (+ fraction); "unfinished" or junk → null. */
 export function isoToDay(iso: string | null | undefined): number | null {
@@ -28,8 +28,6 @@ export function dayToIso(z: number): string {
 export function formatDay(z: number): string {
   return formatIsoDate(dayToIso(z));
 }
-
-const MONTH = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
 export interface Ticks {
   ticks: number[];
@@ -77,7 +75,7 @@ export function dateTicks(lo: number, hi: number, maxTicks = 8): Ticks {
     ticks,
     label: (z) => {
       const c = civilFromDays(Math.floor(z));
-      return `${MONTH[c.m - 1]} ${c.y}`;
+      return `${monthName(c.m)} ${c.y}`;
     },
   };
 }
@@ -86,7 +84,7 @@ function dayLabel(ticks: number[]): (z: number) => string {
   const firstYear = ticks.length ? civilFromDays(ticks[0]).y : 0;
   return (z) => {
     const c = civilFromDays(Math.floor(z));
-    const base = `${c.d} ${MONTH[c.m - 1]}`;
+    const base = `${c.d} ${monthName(c.m)}`;
     return c.y !== firstYear || Math.floor(z) === ticks[0] ? `${base} ${c.y}` : base;
   };
 }

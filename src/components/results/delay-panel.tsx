@@ -1,14 +1,20 @@
 "use client";
 /**
  * What a run costs the public and the owner: delay and cost totals (P50/P80 over iterations) and, for the
- * representative iteration, a day-by-day chart of closure hours (bars) and the day's longest queue in miles
- * (line), with the same figures as a table for screen readers. Reads only `summary.delay`, `summary.cost`
+ * representative iteration, a day-by-day chart of lane-closed hours (bars) and the day's longest queue in miles
+ * (line) on a date axis, so the winter without closures shows as the gap it is, with the same figures as a
+ * table for screen readers. Reads only `summary.delay`, `summary.cost`
  * and `summary.traffic` (absent when the scenario has no traffic or costs section: the panel says so).
  */
-import { Bar, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { Bar, CartesianGrid, ComposedChart, Legend, Line, ReferenceArea, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { parseIsoDate } from "@sim/dates";
 import type { NumberQuantiles, RunSummary } from "@sim/summary";
 import { formatIsoDate } from "@/lib/format";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
+import { dateTicks, formatDay } from "./date-axis";
+
+/** Stretches of more than a month without a closure day (a winter, a long stand-down): shaded and named. */
+const LONG_GAP_DAYS = 30;
 
 const num = (v: number | null | undefined, digits = 0) => (v === null || v === undefined || !Number.isFinite(v) ? "—" : v.toLocaleString("en-US", { maximumFractionDigits: digits }));
 const money = (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? "—" : `$${Math.round(v).toLocaleString("en-US")}`);
@@ -33,7 +39,7 @@ export function DelayTotals({ summary }: { summary: RunSummary }) {
         <div className="mt-1">
           <Pair q={summary.delay?.vehicleHours} format={(v) => num(v)} unit=" veh-h" />
         </div>
-        <p className="mt-1 text-xs text-muted">Vehicle-hours spent in work-zone queues (D/D/1 queuing over the closure hours).</p>
+        <p className="mt-1 text-xs text-muted">Vehicle-hours spent in work-zone queues (D/D/1 queuing over the hours lanes are closed).</p>
       </div>
       <div className="rounded-md border border-line bg-paper/60 px-4 py-3" data-testid="cost-road-user">
         <h3 className="text-sm font-semibold text-muted">Road-user cost</h3>
@@ -59,35 +65,63 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
   if (t.days.length === 0) return <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted">The representative iteration used no closure.</p>;
   const data = t.days.map((d) => ({
     date: d.date,
-    short: formatIsoDate(d.date),
+    day: parseIsoDate(d.date) + 0.5,
     hours: Math.round(Object.values(d.laneClosedHours ?? {}).reduce((a, b) => a + b, 0) * 10) / 10,
     miles: d.peakQueueMiles,
   }));
   const max = t.maxQueue;
-  const aria = `Day-by-day chart for the representative iteration (${data.length} days with a closure or a queue): bars are closure hours, the line is the day’s longest queue in miles${max ? `; the longest is ${max.miles} miles on ${formatIsoDate(max.date)}` : ""}. The same figures are in the table that follows.`;
+  const lo = data[0].day - 0.5;
+  const hi = data[data.length - 1].day + 0.5;
+  const { ticks, label: tickLabel } = dateTicks(lo, hi, 8);
+  const gaps = data.slice(1).flatMap((d, i) => (d.day - data[i].day > LONG_GAP_DAYS ? [{ x1: data[i].day + 0.5, x2: d.day - 0.5 }] : []));
+  // A point with no value in each long gap, so the queue line stops there instead of drawing across the winter.
+  const drawn = [...data, ...gaps.map((g) => ({ date: "", day: (g.x1 + g.x2) / 2, hours: null, miles: null }))].sort((a, b) => a.day - b.day);
+  const aria = `Day-by-day chart for the representative iteration (${data.length} days with a closure or a queue): bars are lane-closed hours, the line is the day’s longest queue in miles${max ? `; the longest is ${max.miles} miles on ${formatIsoDate(max.date)}` : ""}. The same figures are in the table that follows.`;
   return (
     <figure aria-label={aria} className="m-0" data-testid="delay-chart">
       <div aria-hidden="true">
         <ResponsiveContainer width="100%" height={260} initialDimension={{ width: 700, height: 260 }}>
-          <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 8 }} accessibilityLayer={false}>
+          <ComposedChart data={drawn} margin={{ top: 8, right: 8, bottom: 28, left: 8 }} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
-            <XAxis dataKey="short" tick={AXIS_TICK} interval="preserveStartEnd" minTickGap={32} label={{ value: "Date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }} />
-            <YAxis yAxisId="h" tick={AXIS_TICK} width={48} label={{ value: "Closure hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
-            <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={48} label={{ value: "Longest queue (mi)", angle: 90, position: "insideRight", dy: -50, fill: "var(--color-ink)", fontSize: 12 }} />
-            <Tooltip />
-            <Legend verticalAlign="top" height={28} />
-            <Bar yAxisId="h" dataKey="hours" name="Closure hours" fill="var(--color-s2)" isAnimationActive={false} />
-            <Line yAxisId="mi" dataKey="miles" name="Longest queue (mi)" stroke="var(--color-s6)" strokeWidth={2} dot={false} isAnimationActive={false} />
+            {gaps.map((g) => (
+              <ReferenceArea
+                key={g.x1}
+                yAxisId="h"
+                x1={g.x1}
+                x2={g.x2}
+                fill="var(--color-brand-100)"
+                fillOpacity={0.6}
+                stroke="none"
+                label={g.x2 - g.x1 > (hi - lo) / 10 ? { value: "No closures", position: "insideTop", fill: "var(--color-brand-800)", fontSize: 12 } : undefined}
+              />
+            ))}
+            <XAxis
+              dataKey="day"
+              type="number"
+              domain={[lo, hi]}
+              ticks={ticks}
+              tickFormatter={tickLabel}
+              interval={0}
+              tick={AXIS_TICK}
+              label={{ value: "Date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
+            />
+            <YAxis yAxisId="h" tick={AXIS_TICK} width={56} label={{ value: "Lane-closed hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
+            {/* Wide enough for the ticks and the title beside them; the title is centred on the axis, never cut. */}
+            <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={64} label={{ value: "Longest queue (mi)", angle: 90, position: "insideRight", offset: 4, style: { textAnchor: "middle" }, fill: "var(--color-ink)", fontSize: 12 }} />
+            <Tooltip labelFormatter={(v) => (typeof v === "number" ? formatDay(v) : String(v))} />
+            <Legend verticalAlign="top" height={28} wrapperStyle={{ fontSize: 12 }} />
+            <Bar yAxisId="h" dataKey="hours" name="Lane-closed hours" fill="var(--color-s2)" isAnimationActive={false} />
+            <Line yAxisId="mi" dataKey="miles" name="Longest queue (mi)" stroke="var(--color-s6)" strokeWidth={2} dot={false} connectNulls={false} isAnimationActive={false} />
           </ComposedChart>
         </ResponsiveContainer>
       </div>
       <div className="sr-only">
         <table>
-          <caption>Closure hours and longest queue by day, representative iteration</caption>
+          <caption>Lane-closed hours and longest queue by day, representative iteration</caption>
           <thead>
             <tr>
               <th scope="col">Date</th>
-              <th scope="col">Closure hours</th>
+              <th scope="col">Lane-closed hours</th>
               <th scope="col">Longest queue (mi)</th>
               <th scope="col">Delay (veh-h)</th>
               <th scope="col">Queue cleared</th>

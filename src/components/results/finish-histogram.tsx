@@ -1,10 +1,14 @@
 "use client";
-/** Finish-date histogram: the run's bins (summary.histogram, ≤ 60) as bars, with a data table for screen readers. */
+/**
+ * Finish-date histogram: the run's bins (summary.histogram, ≤ 60) as bars on a date axis with calendar-aligned,
+ * evenly spaced ticks (date-axis.ts), with a data table for screen readers.
+ */
 import { Bar, BarChart, CartesianGrid, ResponsiveContainer, XAxis, YAxis } from "recharts";
 import type { RunSummary } from "@sim/summary";
 import { parseIsoDate } from "@sim/dates";
 import { formatIsoDate } from "@/lib/format";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
+import { dateTicks } from "./date-axis";
 
 function binLabel(b: { from: string; to: string }): string {
   return b.from === b.to ? formatIsoDate(b.from) : `${formatIsoDate(b.from)} – ${formatIsoDate(b.to)}`;
@@ -16,9 +20,13 @@ export function FinishHistogram({ summary }: { summary: RunSummary }) {
   if (bins.length === 0) {
     return <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted">No iteration finished, so there is nothing to count.</p>;
   }
-  const data = bins.map((b) => ({ label: binLabel(b), short: formatIsoDate(b.from), count: b.count }));
-  const peak = bins.reduce((m, b) => (b.count > m.count ? b : m), bins[0]);
   const binDays = parseIsoDate(bins[0].to) - parseIsoDate(bins[0].from) + 1;
+  // Each bar sits over its own days: x is the middle of the bin on the day-number axis.
+  const data = bins.map((b) => ({ label: binLabel(b), x: parseIsoDate(b.from) + binDays / 2, count: b.count }));
+  const lo = parseIsoDate(bins[0].from);
+  const hi = parseIsoDate(bins[bins.length - 1].to) + 1;
+  const { ticks, label: tickLabel } = dateTicks(lo, hi, 7);
+  const peak = bins.reduce((m, b) => (b.count > m.count ? b : m), bins[0]);
   const width = binDays === 1 ? "one day per bar" : `${binDays} days per bar`;
   const aria = `Histogram of finish dates for ${finished.toLocaleString("en-US")} finished iterations, ${bins.length} bars (${width}) from ${formatIsoDate(bins[0].from)} to ${formatIsoDate(bins[bins.length - 1].to)}; the most common is ${binLabel(peak)} with ${peak.count} iterations.`;
   return (
@@ -28,11 +36,14 @@ export function FinishHistogram({ summary }: { summary: RunSummary }) {
           <BarChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 8 }} barCategoryGap={1} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
             <XAxis
-              dataKey="short"
+              dataKey="x"
+              type="number"
+              domain={[lo, hi]}
+              ticks={ticks}
+              tickFormatter={tickLabel}
+              interval={0}
               tick={AXIS_TICK}
-              interval="preserveStartEnd"
-              minTickGap={24}
-              label={{ value: "Finish date (first day of each bar)", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
+              label={{ value: `Finish date (${width})`, position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
             />
             <YAxis
               allowDecimals={false}

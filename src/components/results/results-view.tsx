@@ -3,6 +3,8 @@
  * The results of one run, as the Outlook page and the public shared page show them: the plain-language
  * summary, figures, the confidence curve and histogram, the time–distance chart of the representative
  * iteration and the per-operation table. Reads only its props (no fetching), so it renders anywhere.
+ * `document`: the owner brief's layout — one column (charts as wide as the page), and nothing to click (no
+ * sorting, no trade-off button), because it is printed.
  */
 import { useMemo } from "react";
 import { parseScenario } from "@sim/validate";
@@ -36,7 +38,7 @@ function Section({ title, id, children, description }: { title: string; id: stri
   );
 }
 
-export function ResultsView({ summary, definition, run }: { summary: RunSummary; definition: unknown; run: ResultsRun }) {
+export function ResultsView({ summary, definition, run, document = false }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean }) {
   const plan = useMemo(() => {
     const r = parseScenario(definition);
     return r.ok ? r.scenario : null;
@@ -66,6 +68,18 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
         <p className="mt-1 text-sm" data-testid="p80-meaning">{p80Meaning(summary)}</p>
         <p className="mt-1 text-sm text-muted">{text.percentiles}</p>
         {text.season1 && <p className="mt-1 text-sm">{text.season1}</p>}
+        {text.stages.length > 0 && (
+          <ul className="mt-2 space-y-0.5 text-sm" data-testid="stage-finishes" aria-label="Finish by stage">
+            {text.stages.map((line) => (
+              <li key={line}>{line}</li>
+            ))}
+          </ul>
+        )}
+        {text.laneClosed && (
+          <p className="mt-1 text-sm" data-testid="lane-closed-hours">
+            {text.laneClosed}
+          </p>
+        )}
         {plan && winterCarryover(summary, plan) && (
           <p className="mt-1 text-sm" data-testid="winter-carryover">
             {winterCarryover(summary, plan)}
@@ -89,7 +103,7 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
 
       <StatCards summary={summary} />
 
-      <div className="grid gap-5 lg:grid-cols-2">
+      <div className={document ? "grid gap-5" : "grid gap-5 lg:grid-cols-2"}>
         <Section title="Confidence curve" id={`${idp}-curve`} description="Share of iterations finished by each date; dots mark P50, P80 and P90.">
           <ConfidencePanel summary={summary} />
         </Section>
@@ -101,7 +115,7 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
       <Section
         title="Time–distance"
         id={`${idp}-td`}
-        description={`The iteration whose finish is nearest the P50 (finish ${summary.representative ? quantileText(summary.representative.finish) : "—"}): where each operation is on the deck over time.`}
+        description={`The iteration whose finish is nearest the P50 (finish ${summary.representative ? quantileText(summary.representative.finish) : "—"}): where each operation is on the deck over time${(summary.stages?.length ?? 0) > 1 ? ", stage by stage" : ""}, and what is closed.`}
       >
         <div data-testid="time-distance-chart">
           {allUnfinished && summary.representative?.trace?.packets?.length === 0 ? (
@@ -115,20 +129,20 @@ export function ResultsView({ summary, definition, run }: { summary: RunSummary;
       <Section
         title="Delay and cost"
         id={`${idp}-delay`}
-        description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, closure hours and the longest queue of each day."
+        description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, lane-closed hours and the longest queue of each day."
       >
         <DelayPanel summary={summary} />
         <QueueBreachDays summary={summary} />
       </Section>
 
-      {plan && (
+      {plan && !document && (
         <Section title="Holiday trade-off" id={`${idp}-tradeoff`} description="Days gained by working through federal holidays against the extra delay to drivers, on the same seeds.">
           <TradeoffPanel definition={definition} seed={run.seed} iterations={run.iterations} />
         </Section>
       )}
 
-      <Section title="Finish by operation" id={`${idp}-ops`}>
-        <OperationsTable operations={summary.operations} />
+      <Section title={(summary.stages?.length ?? 0) > 1 ? "Finish by stage and operation" : "Finish by operation"} id={`${idp}-ops`}>
+        <OperationsTable operations={summary.operations} stages={summary.stages} sortable={!document} />
       </Section>
     </div>
   );

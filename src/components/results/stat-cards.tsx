@@ -1,4 +1,4 @@
-/** Small figures of a run: weather-lost shifts, discovered-condition hours, mean closure hours by closure. */
+/** Small figures of a run: weather-lost shifts, discovered-condition hours, lane-closed hours by closure. */
 import type { RunSummary } from "@sim/summary";
 
 const num = (v: number, digits = 0) => (Number.isFinite(v) ? v.toLocaleString("en-US", { maximumFractionDigits: digits }) : "—");
@@ -36,6 +36,12 @@ export function StatCards({ summary }: { summary: RunSummary }) {
           <p className="text-sm text-muted">No closure was used.</p>
         ) : (
           <dl className="space-y-0.5 text-sm">
+            {summary.laneClosedHours && (
+              <div className="flex justify-between gap-3 border-b border-line pb-0.5">
+                <dt className="font-medium">All closures (a lane closed twice at once counts once)</dt>
+                <dd className="font-semibold tabular-nums">{num(summary.laneClosedHours.total.p50)} h</dd>
+              </div>
+            )}
             {closures.map((c) => (
               <div key={c.id} className="flex justify-between gap-3">
                 <dt>{c.name}</dt>

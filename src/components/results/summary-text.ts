@@ -6,6 +6,7 @@
 import type { RunSummary } from "@sim/summary";
 import type { Scenario } from "@sim/schema";
 import { formatIsoDate, formatPercent } from "@/lib/format";
+import { stageLabel } from "@/lib/stage-text";
 
 /**
  * A run is called stable when the P80 of its two halves differs by at most this many days. Our own
@@ -33,6 +34,10 @@ export interface PlainSummary {
   season1: string | null;
   unfinished: string | null;
   convergence: { stable: boolean | null; text: string };
+  /** One line per stage when there are several: "Stage 1: North lane (L1): restored P50 … · P80 …". */
+  stages: string[];
+  /** Lane-closed hours over the whole job, or null for runs stored before the closure timeline. */
+  laneClosed: string | null;
 }
 
 export function daysText(d: number): string {
@@ -63,7 +68,15 @@ export function plainSummary(s: RunSummary): PlainSummary {
       stable: false,
       text: `P80 moved ${daysText(s.convergenceDays)} between the two halves of the run — run more iterations for a steadier P80.`,
     };
-  return { p80: quantileText(s.finish.p80), targetClause, percentiles, season1, unfinished, convergence };
+  const stages =
+    (s.stages?.length ?? 0) > 1
+      ? s.stages.map((st, i) => `${stageLabel(st.name, i)} (${st.lanes.join(", ")}): restored P50 ${quantileText(st.finish.p50)} · P80 ${quantileText(st.finish.p80)}`)
+      : [];
+  const hours = (x: number) => Math.round(x).toLocaleString("en-US");
+  const laneClosed = s.laneClosedHours
+    ? `Lane-closed hours: ${hours(s.laneClosedHours.total.p50)} P50 · ${hours(s.laneClosedHours.total.p80)} P80 (each closed lane counted every hour it is closed, nights and weekends behind barrier included).`
+    : null;
+  return { p80: quantileText(s.finish.p80), targetClause, percentiles, season1, unfinished, convergence, stages, laneClosed };
 }
 
 /** What P80 means, for a reader who does not schedule: one sentence under the headline. */
@@ -87,4 +100,23 @@ export function winterCarryover(s: RunSummary, plan: Scenario): string | null {
   const carried = 1 - done;
   if (carried < 0.005) return `Almost every iteration finishes before the winter stand-down of ${formatIsoDate(winter)}.`;
   return `In ${formatPercent(carried)} of the iterations the work is not finished by the winter stand-down (${formatIsoDate(winter)}) and carries over to the next season.`;
+}
+
+/**
+ * The fewest iterations a printed brief should rest on. Our own rule (common practice, no published source):
+ * with 1,000 iterations the 200 slowest outcomes lie beyond the P80; with a few hundred, a few dozen outcomes
+ * decide the date the owner is told.
+ */
+export const BRIEF_MIN_ITERATIONS = 1_000;
+
+/** What the brief says about how much its forecast rests on: the count always, a warning when too few or not stable. */
+export function iterationsStatement(s: RunSummary): { text: string; warning: string | null } {
+  const n = s.iterations.toLocaleString("en-US");
+  const text = `This forecast rests on ${n} simulated outcomes (iterations).`;
+  const c = plainSummary(s).convergence;
+  const problems: string[] = [];
+  if (s.iterations < BRIEF_MIN_ITERATIONS) problems.push(`${n} iterations are fewer than the ${BRIEF_MIN_ITERATIONS.toLocaleString("en-US")} a brief should rest on`);
+  if (c.stable === false) problems.push(`it is not yet stable (the P80 moved ${daysText(s.convergenceDays ?? 0)} between the two halves of the run)`);
+  if (c.stable === null) problems.push("its stability could not be measured");
+  return { text, warning: problems.length ? `Not for decisions yet: ${problems.join(", and ")}. Run it again with more iterations before relying on these dates.` : null };
 }

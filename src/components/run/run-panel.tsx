@@ -6,6 +6,7 @@ import { parseScenario } from "@sim/validate";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { useEnginePool } from "./use-engine-pool";
+import { JobProgress, useJob } from "./job-progress";
 
 const ITERATION_CHOICES = [1_000, 2_000, 5_000, 10_000, 20_000];
 
@@ -27,12 +28,15 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
   const plan = useMemo(() => parseScenario(definition), [definition]);
   const overBudget = plan.ok ? budgetProblem(plan.scenario, iterations, "browser") : null;
   const save = useMutation({
-    mutationFn: (body: unknown) => api<{ id: string }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
+    mutationFn: (body: unknown) => api<{ id: string; verification: string; verifyJobId: string | null }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
     onSuccess: () => {
       qc.invalidateQueries({ queryKey: ["scenarios", scenarioId] });
       router.refresh();
     },
   });
+
+  // The server reproduces the stored run; the page shows it as verified (or not) once that job ends.
+  const verify = useJob(save.data?.verifyJobId ?? null, () => router.refresh());
 
   if (!canRun) return null;
   const running = pool.state.phase === "running";
@@ -107,7 +111,7 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
             {progress
               ? `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSeconds(progress.secondsLeft)} · ${pool.state.phase === "running" ? pool.state.workers : 1} workers`
               : pool.state.phase === "done"
-                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version." : ""}`
+                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version. Not yet verified: the server is reproducing it." : ""}`
                 : ""}
           </p>
         </div>
@@ -116,6 +120,14 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
         <p role="alert" className="mt-3 text-sm text-bad" data-testid="run-over-budget">
           Too large to run: {overBudget.message}
         </p>
+      )}
+      {verify.data && (
+        <div data-testid="verify-progress">
+          <p className="mt-3 text-sm">
+            {verify.data.status === "completed" ? "The server has checked this run." : "The server is reproducing this run to verify it (same version, seed and iterations)."}
+          </p>
+          <JobProgress job={verify.data} label="Verification progress" canCancel={false} />
+        </div>
       )}
       {pool.state.phase === "cancelled" && <p className="mt-3 text-sm text-muted">Run cancelled; nothing was saved.</p>}
       {pool.state.phase === "failed" && (

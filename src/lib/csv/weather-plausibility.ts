@@ -8,8 +8,9 @@
 import type { DailyObservation } from "@sim/weather-fit";
 import type { RowProblem } from "./common";
 import type { PrecipitationUnit, TemperatureUnit, WindUnit } from "./weather-columns";
+import { monthName } from "@/lib/format";
 
-const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
+const MONTHS = Array.from({ length: 12 }, (_, i) => monthName(i + 1, true));
 const fToC = (f: number) => ((f - 32) * 5) / 9;
 const round = (x: number) => Math.round(x);
 

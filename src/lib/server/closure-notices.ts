@@ -18,7 +18,13 @@ const FEED_DAYS = 365;
 /** The notice lists this many closures; the feed and the advisory carry them all. */
 const NOTICE_LINES = 12;
 
-/** What a publication of the latest (current) run would send: the same text the preview shows and the outbox gets. */
+/** Placeholders for the links in a preview: publishing creates them, so the preview names them in words. */
+const PREVIEW_LINKS = { feedUrl: "(a new calendar link, created when you publish)", advisoryUrl: "(a new travel advisory link, created when you publish)" };
+
+/**
+ * What a publication of the latest run would send — the same text the preview shows and the outbox gets.
+ * Refused, like publishing, when there is no run or it is stale.
+ */
 async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: string; advisoryUrl: string }) {
   const run = await getLatestRun({ scenarioId: scenario.id });
   if (!run) throw new AppError("conflict", "Run the scenario before publishing its closures.");
@@ -32,14 +38,13 @@ async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: stri
 }
 
 /**
- * What publishing would send, without sending it: the recipients, the notice as they would read it (the links
- * are placeholders until the feed exists) and the run it comes from. Publishing must name that run, so what
- * was previewed is what goes out.
+ * The notice exactly as publishing would send it, for the confirmation people see first: the run it comes
+ * from, the recipients, subject and text. Publishing names that run, so what was previewed is what goes out.
  */
 export async function previewClosurePlan({ scenario }: { scenario: ScenarioDetail }) {
-  const d = await draftPublication(scenario, { feedUrl: "(calendar feed link, made when you publish)", advisoryUrl: "(travel advisory link, made when you publish)" });
-  const m = d.mail("(each subscriber)");
-  return { runId: d.run.id, closureCount: d.closures.length, recipients: d.subscribers.map((s) => s.email), subject: m.subject, text: m.text };
+  const d = await draftPublication(scenario, PREVIEW_LINKS);
+  const sample = d.mail(d.subscribers[0]?.email ?? "");
+  return { runId: d.run.id, closureCount: d.closures.length, to: d.subscribers.map((s) => s.email), subject: sample.subject, text: sample.text };
 }
 
 /**

@@ -32,21 +32,22 @@ export function listMailboxFor(email: string, { dir = mailboxDir() }: { dir?: st
 }
 
 export function mailboxDir(): string {
-  return resolve(process.env.POURLINE_MAILBOX_DIR || ".data/mailbox");
+  // turbopackIgnore: the folder is chosen at run time; without it the bundler traces the whole project (and warns).
+  return resolve(/*turbopackIgnore: true*/ process.env.POURLINE_MAILBOX_DIR || ".data/mailbox");
 }
 
 /** Every stored message, newest first. A missing folder is an empty mailbox. */
 export function listMailbox({ dir = mailboxDir() }: { dir?: string } = {}): CaughtMessage[] {
   let names: string[];
   try {
-    names = readdirSync(dir).filter((n) => n.endsWith(".json") && !n.startsWith("."));
+    names = readdirSync(/*turbopackIgnore: true*/ dir).filter((n) => n.endsWith(".json") && !n.startsWith("."));
   } catch {
     return [];
   }
   const out: CaughtMessage[] = [];
   for (const n of names) {
     try {
-      out.push(JSON.parse(readFileSync(join(dir, n), "utf8")) as CaughtMessage);
+      out.push(JSON.parse(readFileSync(/*turbopackIgnore: true*/ join(/*turbopackIgnore: true*/ dir, n), "utf8")) as CaughtMessage);
     } catch {
       // A file someone else put there; not ours to show.
     }

@@ -1,18 +1,18 @@
 import "server-only";
 /**
  * Field progress on the server: entry validation against the plan and the other entries (field paths from
- * `@/lib/progress-schema`), and re-forecasts computed here from the as-built state at a data date.
+ * `@/lib/progress-schema`), and queuing re-forecasts from the as-built state at a data date.
  */
 import type { ProgressRecord } from "@sim/index";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
 import { HORIZON_DAYS } from "@sim/calendar";
 import { budgetProblem } from "@sim/budget";
-import type { Scenario } from "@sim/schema";
 import type { z } from "zod";
-import { listProgress, saveReforecastRun, type ProgressFields, type ProgressRow } from "@db/queries/progress";
+import { listProgress, type ProgressFields, type ProgressRow } from "@db/queries/progress";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { checkDependents, checkProgressEntry, todayIn, type ProgressEntry, type reforecastSchema, type RuleEntry } from "@/lib/progress-schema";
-import { reforecastRunRecord } from "@/lib/run-record";
+import { reforecastInputsHash } from "@/lib/run-record";
+import { queueRunJob } from "./jobs";
 import { badRequest } from "./errors";
 import { validateDefinition } from "./scenario-input";
 
@@ -47,7 +47,11 @@ export async function validateDelete({ scenario, id }: { scenario: ScenarioDetai
 
 type ReforecastBody = z.output<typeof reforecastSchema>;
 
-export async function runReforecast({ scenario, body, userId, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; now?: Date }) {
+/**
+ * Queues a re-forecast from the as-built state at `dataDate`; a worker computes it and stores it as a run with
+ * that data date. The job's key includes the field entries it uses, so a new entry means a new computation.
+ */
+export async function queueReforecast({ scenario, body, userId, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; now?: Date }) {
   const plan = validateDefinition(scenario.definition);
   const last = formatDayNumber(parseIsoDate(plan.startDate) + HORIZON_DAYS - 1);
   if (body.dataDate < plan.startDate || body.dataDate > last) {
@@ -60,8 +64,12 @@ export async function runReforecast({ scenario, body, userId, now = new Date() }
   const overBudget = budgetProblem(plan, body.iterations, "server");
   if (overBudget) throw badRequest([overBudget], "The re-forecast is larger than the server's work budget; nothing was run or saved.");
   const rows = await listProgress({ scenarioId: scenario.id });
-  const record = reforecastRunRecord({ plan, definition: scenario.definition, records: rows.map(toRecord), dataDate: body.dataDate, seed: body.seed, iterations: body.iterations });
-  const { headline, reforecast, ...columns } = record;
-  const row = await saveReforecastRun({ scenarioId: scenario.id, scenarioVersion: scenario.version, ...columns, userId });
-  return { id: row.id, createdAt: row.createdAt, dataDate: body.dataDate, scenarioVersion: scenario.version, headline, reforecast };
+  const hash = reforecastInputsHash({ definition: scenario.definition, records: rows.map(toRecord), dataDate: body.dataDate, seed: body.seed, iterations: body.iterations });
+  const { job } = await queueRunJob({
+    plan,
+    projectId: scenario.projectId,
+    computation: { scenarioId: scenario.id, scenarioVersion: scenario.version, seed: body.seed, iterations: body.iterations, reforecast: { dataDate: body.dataDate, inputsHash: hash } },
+    userId,
+  });
+  return job;
 }

@@ -5,7 +5,8 @@
  */
 import { parseScenario } from "@sim/validate";
 import type { Distribution, Scenario } from "@sim/schema";
-import { formatIsoDate, formatStation } from "@/lib/format";
+import { stageSentence } from "@/lib/stage-text";
+import { formatIsoDate, formatStation, monthName } from "@/lib/format";
 
 const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
 const n = (v: number) => v.toLocaleString("en-US", { maximumFractionDigits: 2 });
@@ -23,7 +24,7 @@ function dist(d: Distribution, unit: string): string {
   }
 }
 
-const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+const MONTHS = Array.from({ length: 12 }, (_, i) => monthName(i + 1));
 /** "11-15" → "15 Nov". */
 const monthDay = (md: string) => `${Number(md.slice(3, 5))} ${MONTHS[Number(md.slice(0, 2)) - 1] ?? md}`;
 
@@ -132,6 +133,15 @@ export function InputsSummary({ definition }: { definition: unknown }) {
         </table>
       </div>
 
+      <div>
+        <h3>Stages</h3>
+        <ul className="mt-1 list-disc space-y-0.5 pl-5" data-testid="inputs-stages">
+          {s.stages.map((_, i) => (
+            <li key={i}>{stageSentence(s, i)}</li>
+          ))}
+        </ul>
+      </div>
+
       <div className="grid gap-5 md:grid-cols-2">
         <div>
           <h3>Calendar</h3>
@@ -149,7 +159,8 @@ export function InputsSummary({ definition }: { definition: unknown }) {
               const windows = cal.closureWindows.filter((w) => w.closure === c.id);
               return (
                 <li key={c.id}>
-                  {c.name} (closes {c.lanesClosed.join(", ")}):{" "}
+                  {c.name} (closes {c.lanesClosed.join(", ")}
+                  {c.setupHours || c.takedownHours ? `; ${n(c.setupHours)} h set-up, ${n(c.takedownHours)} h take-down` : ""}):{" "}
                   {windows.length
                     ? windows.map((w) => `${w.dayTypes.join("/")} ${clock(w.startHour)}–${clock(w.endHour)}${w.endHour <= w.startHour ? " (overnight)" : ""}`).join("; ")
                     : "no windows"}

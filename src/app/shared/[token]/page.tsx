@@ -7,6 +7,7 @@ import { SafetyNote } from "@/components/safety-note";
 import { InputsSummary } from "./inputs-summary";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
+import { VerificationBadge } from "@/components/results/verification-badge";
 
 // A share link is a bearer secret: keep it out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Shared forecast", robots: { index: false, follow: false }, referrer: "no-referrer" };
@@ -15,7 +16,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
   const { token } = await params;
   const shared = await orNotFound(loadSharedScenario(token));
   const { link, project, scenario, run } = shared;
-  const stale = !!run && run.scenarioVersion !== scenario.version;
+  const stale = !!run && run.stale;
   return (
     <div className="min-h-screen">
       <header className="border-b border-line bg-white">
@@ -45,7 +46,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
         {run ? (
           <>
             <p className="text-sm text-muted">
-              Latest run: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
+              <VerificationBadge verification={run.verification} /> Forecast: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
               {run.createdByName ? ` by ${run.createdByName}` : ""}
               {stale ? ` — computed from plan version ${run.scenarioVersion}; the plan has changed since.` : "."}
             </p>

@@ -1,11 +1,10 @@
 import "server-only";
 /** Request schemas of the e-mail flows (invitations, password reset). */
 import { z } from "zod";
-import { ROLES } from "@db/schema-enums";
 
 export const MIN_PASSWORD_LENGTH = 10;
 
-export const invitationSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
+export { invitationSchema } from "@/lib/schemas";
 
 export const passwordResetRequestSchema = z.object({ email: z.email("must be an e-mail address").max(200) });
 

@@ -5,6 +5,7 @@ import { RoleBadge } from "@/components/role-badge";
 import { formatStation } from "@/lib/format";
 import { can } from "@/lib/permissions";
 import { ScenarioTable } from "./scenario-table";
+import { LocationForm } from "./location-form";
 import { orNotFound } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Project" };
@@ -44,6 +45,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         </div>
       </header>
       <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario")} />
+      <LocationForm projectId={project.id} latitude={project.latitude} longitude={project.longitude} canEdit={can(role, "setLocation")} />
     </div>
   );
 }

@@ -7,6 +7,7 @@ import { SortableHead, TableRows } from "@/components/sortable-table";
 import { api } from "@/lib/api-client";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
+import { VerificationBadge, type Verification } from "@/components/results/verification-badge";
 
 interface ScenarioListRow {
   id: string;
@@ -21,6 +22,10 @@ interface ScenarioListRow {
   runVersion: number | null;
   runSummary: RunHeadline | null;
   runAt: string | null;
+  runVerification: Verification | null;
+  runStale: boolean | null;
+  /** A newer browser run the server has not verified yet (not the forecast). */
+  pendingRunAt: string | null;
 }
 
 const col = createColumnHelper<ScenarioListRow>();
@@ -52,14 +57,21 @@ export function ScenarioTable({ projectId, canEdit }: { projectId: string; canEd
         header: "Meets target",
         cell: (c) => (c.getValue() < 0 ? "—" : formatPercent(c.getValue())),
       }),
-      col.accessor((r) => (r.runId ? (r.runVersion === r.version ? "current" : "stale") : "none"), {
+      col.accessor((r) => (r.runId ? (r.runStale ? "stale" : "current") : "none"), {
         id: "run",
-        header: "Latest run",
+        header: "Forecast",
         cell: (c) => {
           const v = c.getValue();
-          if (v === "none") return <span className="badge border border-line text-muted">Not run</span>;
-          if (v === "stale") return <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">Stale</span>;
-          return <span className="badge bg-brand-50 text-brand-800">Current</span>;
+          const r = c.row.original;
+          const pending = r.pendingRunAt && (!r.runAt || r.pendingRunAt > r.runAt) ? <VerificationBadge verification="pending" /> : null;
+          if (v === "none") return <span className="flex flex-wrap gap-1">{pending ?? <span className="badge border border-line text-muted">Not run</span>}</span>;
+          return (
+            <span className="flex flex-wrap gap-1">
+              {v === "stale" ? <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">Stale</span> : <span className="badge bg-brand-50 text-brand-800">Current</span>}
+              <VerificationBadge verification={r.runVerification} />
+              {pending}
+            </span>
+          );
         },
       }),
       col.accessor("version", { header: "Version", cell: (c) => `v${c.getValue()}` }),

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { requireScenario } from "@/lib/server/access";
-import { getLatestRun } from "@db/queries/runs";
+import { getOutlookRuns } from "@db/queries/runs";
+import { VerificationBadge } from "@/components/results/verification-badge";
 import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import type { RunSummary } from "@sim/index";
@@ -17,16 +18,31 @@ export const metadata: Metadata = { title: "Outlook" };
 export default async function OutlookPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
-  const run = await getLatestRun({ scenarioId });
-  const stale = !!run && run.scenarioVersion !== scenario.version;
+  const { forecast, unverified } = await getOutlookRuns({ scenarioId });
+  // A newer browser run is shown at once, marked as not verified; a rejected one is never shown as the forecast.
+  const pending = unverified?.verification === "pending" ? unverified : null;
+  const run = pending ?? forecast;
+  const stale = !!run && run.stale;
   const parsed = parseScenario(scenario.definition);
   // A plan the weather never lets finish is said in words here, before anyone starts a run.
   const blockers = parsed.ok ? weatherFeasibility(parsed.scenario).map((p) => p.message) : [];
   return (
     <div className="space-y-5">
       <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario")} blockers={blockers} />
+      {unverified?.verification === "rejected" && (
+        <p className="rounded-md border border-bad/30 bg-bad/10 px-4 py-2 text-sm" role="alert" data-testid="rejected-run">
+          The run of {formatDateTime(unverified.createdAt)} ({unverified.iterations.toLocaleString("en-US")} iterations, seed “{unverified.seed}”) did not match the server’s
+          own computation of the same version and seed, so it is not shown. {forecast ? "Below is the latest forecast the server stands behind." : ""}
+        </p>
+      )}
       {run ? (
         <>
+          {pending && (
+            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="pending-run">
+              Not yet verified: this run was computed in a browser and the server is reproducing it. Until then it is not the scenario’s forecast
+              {forecast ? ` (the last verified one is from ${formatDateTime(forecast.createdAt)})` : ""}.
+            </p>
+          )}
           {stale && (
             <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="stale-run" role="status">
               This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}). Run it again for a current
@@ -49,7 +65,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
             </a>
           </nav>
           <p className="text-sm text-muted">
-            Latest run: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”, {formatDateTime(run.createdAt)}
+            <VerificationBadge verification={run.verification} /> {pending ? "Newest run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”, {formatDateTime(run.createdAt)}
             {run.createdByName ? ` by ${run.createdByName}` : ""}.
           </p>
           <ResultsView

@@ -9,6 +9,8 @@ export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: st
     { href: base, label: "Outlook" },
     { href: `${base}/plan`, label: "Plan" },
     { href: `${base}/progress`, label: "Field log" },
+    { href: `${base}/look-ahead`, label: "Week ahead" },
+    { href: `${base}/search`, label: "Plan search" },
     ...(canEdit ? [{ href: `${base}/data`, label: "Field data" }] : []),
     ...(canShare ? [{ href: `${base}/share`, label: "Share" }] : []),
   ];
@@ -16,7 +18,7 @@ export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: st
     <nav aria-label="Scenario sections" className="border-b border-line">
       <ul className="-mb-px flex gap-1">
         {tabs.map((t) => {
-          const active = path === t.href;
+          const active = path === t.href || (t.label === "Plan search" && path.startsWith(`${t.href}/`));
           return (
             <li key={t.href}>
               <Link

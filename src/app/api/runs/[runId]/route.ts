@@ -8,6 +8,6 @@ export const GET = handler(async (_req: Request, ctx: { params: Promise<{ runId:
   const { runId } = await ctx.params;
   const run = z.uuid().safeParse(runId).success ? await getRun({ id: runId }) : null;
   if (!run) throw new AppError("not_found", "No such run.");
-  const { scenario } = await requireScenario(run.scenarioId, "read");
-  return NextResponse.json({ run: { ...run, stale: run.scenarioVersion !== scenario.version } });
+  await requireScenario(run.scenarioId, "read");
+  return NextResponse.json({ run });
 });

@@ -14,6 +14,7 @@ import { cdfPoints, ConfidenceChart, LineSwatch, seriesStyle, type Curve } from 
 import { compareRows, MAX_COMPARE, type CompareScenario } from "@/components/results/compare-logic";
 import { quantileText } from "@/components/results/summary-text";
 import { VariantForm } from "./variant-form";
+import { VerificationBadge } from "@/components/results/verification-badge";
 
 interface ListRow {
   id: string;
@@ -228,6 +229,7 @@ function CompareResults({
                   <div className="mt-1 flex flex-wrap items-center gap-1.5 font-normal">
                     {i === 0 ? <span className="badge bg-brand-50 text-brand-800">Baseline</span> : null}
                     {s.run?.stale && <span className="badge bg-warn-bg text-warn">Stale run</span>}
+                    {s.run && <VerificationBadge verification={s.run.verification} />}
                     {!s.run && <span className="badge border border-line text-muted">Not run yet</span>}
                     {s.run && s.run.unfinishedIterations > 0 && (
                       <span className="badge bg-warn-bg text-warn">{s.run.unfinishedIterations.toLocaleString("en-US")} unfinished</span>

@@ -2,12 +2,21 @@
 /** "Make a variant": a small inline form asking for the name, then the new scenario's plan editor. */
 import { useId, useState } from "react";
 import { useRouter } from "next/navigation";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { api, ApiError } from "@/lib/api-client";
+import { api } from "@/lib/api-client";
+import { applyServerErrors } from "@/lib/form-errors";
+import { variantSchema } from "@/lib/schemas";
 
 export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioId: string; scenarioName: string; projectId: string }) {
   const [open, setOpen] = useState(false);
-  const [name, setName] = useState(`${scenarioName} — variant`.slice(0, 120));
+  const form = useForm<z.input<typeof variantSchema>, unknown, z.output<typeof variantSchema>>({
+    resolver: zodResolver(variantSchema),
+    defaultValues: { name: `${scenarioName} — variant`.slice(0, 120) },
+  });
+  const [other, setOther] = useState<string | null>(null);
   const router = useRouter();
   const queryClient = useQueryClient();
   const inputId = useId();
@@ -18,6 +27,7 @@ export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioI
       await queryClient.invalidateQueries({ queryKey: ["projects", projectId, "scenarios"] });
       router.push(`/scenarios/${id}/plan`);
     },
+    onError: (e) => setOther(applyServerErrors(e, form.setError, (p) => (p === "name" ? "name" : null))),
   });
 
   if (!open) {
@@ -27,14 +37,16 @@ export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioI
       </button>
     );
   }
-  const error = create.error instanceof ApiError ? (create.error.fields.find((f) => f.path === "name")?.message ?? create.error.message) : create.error?.message;
+  const nameError = form.formState.errors.name?.message;
+  const error = nameError ? `Name ${nameError}` : other;
   return (
     <form
       className="mt-1 space-y-1.5 font-normal normal-case tracking-normal"
-      onSubmit={(e) => {
-        e.preventDefault();
-        if (name.trim()) create.mutate(name.trim());
-      }}
+      noValidate
+      onSubmit={form.handleSubmit((v) => {
+        setOther(null);
+        create.mutate(v.name);
+      })}
       onKeyDown={(e) => {
         if (e.key === "Escape" && !create.isPending) setOpen(false);
       }}
@@ -45,13 +57,11 @@ export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioI
       <input
         id={inputId}
         className="field-input py-1.5"
-        value={name}
         maxLength={120}
-        required
         autoFocus
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? errorId : undefined}
-        onChange={(e) => setName(e.target.value)}
+        {...form.register("name")}
       />
       {error && (
         <p id={errorId} className="field-error text-xs" role="alert">
@@ -59,7 +69,7 @@ export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioI
         </p>
       )}
       <div className="flex gap-2">
-        <button type="submit" className="btn-primary px-2.5 py-1 text-xs" disabled={create.isPending || !name.trim()}>
+        <button type="submit" className="btn-primary px-2.5 py-1 text-xs" disabled={create.isPending}>
           {create.isPending ? "Creating…" : "Create and edit"}
         </button>
         <button type="button" className="btn-secondary px-2.5 py-1 text-xs" disabled={create.isPending} onClick={() => setOpen(false)}>

@@ -1,9 +1,18 @@
 "use client";
+/** Members and invitations: two react-hook-form forms on the shared contract (memberSchema / invitationSchema). */
 import { useState } from "react";
+import { useForm, type UseFormRegisterReturn } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { api, ApiError } from "@/lib/api-client";
+import { api } from "@/lib/api-client";
+import { applyServerErrors } from "@/lib/form-errors";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
+import { invitationSchema, memberSchema } from "@/lib/schemas";
+
+type MemberForm = z.infer<typeof memberSchema>;
+const memberField = (p: string) => (p === "email" || p === "role" ? p : null);
 
 interface Member {
   userId: string;
@@ -22,9 +31,9 @@ const ROLE_HELP: Record<ProjectRole, string> = {
 };
 
 /** A role picker that says what each role may do. */
-function RoleSelect({ id, value, onChange }: { id: string; value: ProjectRole; onChange: (role: ProjectRole) => void }) {
+function RoleSelect({ id, field }: { id: string; field: UseFormRegisterReturn }) {
   return (
-    <select id={id} className="field-input" value={value} onChange={(e) => onChange(e.target.value as ProjectRole)}>
+    <select id={id} className="field-input" {...field}>
       {Object.entries(ROLE_LABELS).map(([r, label]) => (
         <option key={r} value={r}>
           {label} — {ROLE_HELP[r as ProjectRole]}
@@ -38,12 +47,16 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
   const qc = useQueryClient();
   const key = ["projects", projectId, "members"];
   const members = useQuery({ queryKey: key, queryFn: () => api<{ members: Member[] }>(`/api/projects/${projectId}/members`).then((r) => r.members) });
-  const [email, setEmail] = useState("");
-  const [role, setRole] = useState<ProjectRole>("viewer");
+  const form = useForm<MemberForm>({ resolver: zodResolver(memberSchema), defaultValues: { email: "", role: "viewer" } });
+  const [addError, setAddError] = useState<string | null>(null);
   const refresh = () => qc.invalidateQueries({ queryKey: key });
-  const add = useMutation({ mutationFn: (v: { email: string; role: ProjectRole }) => api(`/api/projects/${projectId}/members`, { method: "POST", body: v }), onSuccess: () => (setEmail(""), refresh()) });
+  const add = useMutation({
+    mutationFn: (v: MemberForm) => api(`/api/projects/${projectId}/members`, { method: "POST", body: v }),
+    onSuccess: (_r, v) => (v.email === form.getValues("email") && form.reset({ email: "", role: form.getValues("role") }), refresh()),
+    onError: (e) => setAddError(applyServerErrors(e, form.setError, memberField)),
+  });
   const remove = useMutation({ mutationFn: (userId: string) => api(`/api/projects/${projectId}/members/${userId}`, { method: "DELETE" }), onSuccess: refresh });
-  const addError = add.error instanceof ApiError ? add.error : null;
+  const emailError = form.formState.errors.email?.message;
 
   return (
     <div className="grid gap-5 lg:grid-cols-[minmax(0,1.5fr)_minmax(0,1fr)]">
@@ -114,30 +127,35 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
           <p className="mt-1 text-sm text-muted">Add someone who already has a Pourline account.</p>
           <form
             className="mt-4 space-y-4"
-            onSubmit={(e) => {
-              e.preventDefault();
-              add.mutate({ email, role });
-            }}
+            noValidate
+            onSubmit={form.handleSubmit((v) => {
+              setAddError(null);
+              add.mutate(v);
+            })}
           >
             <div>
               <label htmlFor="member-email" className="field-label">
                 E-mail
               </label>
-              <input id="member-email" type="email" className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} required aria-invalid={!!addError?.fields.find((f) => f.path === "email")} />
-              {addError?.fields.find((f) => f.path === "email") && <p className="field-error">E-mail {addError.fields.find((f) => f.path === "email")!.message}</p>}
+              <input id="member-email" type="email" className="field-input" aria-invalid={!!emailError} aria-describedby={emailError ? "member-email-error" : undefined} {...form.register("email")} />
+              {emailError && (
+                <p id="member-email-error" className="field-error">
+                  E-mail {emailError}
+                </p>
+              )}
             </div>
             <div>
               <label htmlFor="member-role" className="field-label">
                 Role
               </label>
-              <RoleSelect id="member-role" value={role} onChange={setRole} />
+              <RoleSelect id="member-role" field={form.register("role")} />
             </div>
             <button type="submit" className="btn-primary" disabled={add.isPending}>
               Add to project
             </button>
-            {addError && !addError.fields.length && (
+            {addError && (
               <p role="alert" className="field-error">
-                {addError.message}
+                {addError}
               </p>
             )}
           </form>
@@ -161,36 +179,37 @@ function InviteByEmail({ projectId }: { projectId: string }) {
   const qc = useQueryClient();
   const key = ["projects", projectId, "invitations"];
   const pending = useQuery({ queryKey: key, queryFn: () => api<{ invitations: PendingInvitation[] }>(`/api/projects/${projectId}/invitations`).then((r) => r.invitations) });
-  const [email, setEmail] = useState("");
-  const [role, setRole] = useState<ProjectRole>("viewer");
+  const form = useForm<MemberForm>({ resolver: zodResolver(invitationSchema), defaultValues: { email: "", role: "viewer" } });
   const [sentTo, setSentTo] = useState<string | null>(null);
+  const [err, setErr] = useState<string | null>(null);
   const invite = useMutation({
-    mutationFn: (v: { email: string; role: ProjectRole }) => api<{ email: string }>(`/api/projects/${projectId}/invitations`, { method: "POST", body: v }),
+    mutationFn: (v: MemberForm) => api<{ email: string }>(`/api/projects/${projectId}/invitations`, { method: "POST", body: v }),
     onSuccess: (r) => {
       setSentTo(r.email);
-      setEmail("");
+      form.reset({ email: "", role: form.getValues("role") });
       qc.invalidateQueries({ queryKey: key });
     },
+    onError: (e) => setErr(applyServerErrors(e, form.setError, memberField)),
   });
-  const err = invite.error instanceof ApiError ? invite.error : null;
-  const emailError = err?.fields.find((f) => f.path === "email")?.message;
+  const emailError = form.formState.errors.email?.message;
   return (
     <section className="card" aria-labelledby="invite-heading">
       <h2 id="invite-heading">Invite by e-mail</h2>
       <p className="mt-1 text-sm text-muted">For someone new to Pourline (or who should join with their own account). The link works once, for 7 days.</p>
       <form
         className="mt-4 space-y-4"
-        onSubmit={(e) => {
-          e.preventDefault();
+        noValidate
+        onSubmit={form.handleSubmit((v) => {
           setSentTo(null);
-          invite.mutate({ email, role });
-        }}
+          setErr(null);
+          invite.mutate(v);
+        })}
       >
         <div>
           <label htmlFor="invite-email" className="field-label">
             E-mail to invite
           </label>
-          <input id="invite-email" type="email" className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} required aria-invalid={!!emailError} aria-describedby={emailError ? "invite-email-error" : undefined} />
+          <input id="invite-email" type="email" className="field-input" aria-invalid={!!emailError} aria-describedby={emailError ? "invite-email-error" : undefined} {...form.register("email")} />
           {emailError && (
             <p id="invite-email-error" className="field-error">
               E-mail {emailError}
@@ -201,14 +220,14 @@ function InviteByEmail({ projectId }: { projectId: string }) {
           <label htmlFor="invite-role" className="field-label">
             Their role
           </label>
-          <RoleSelect id="invite-role" value={role} onChange={setRole} />
+          <RoleSelect id="invite-role" field={form.register("role")} />
         </div>
         <button type="submit" className="btn-primary" disabled={invite.isPending}>
           {invite.isPending ? "Sending…" : "Send invitation"}
         </button>
-        {err && !emailError && (
+        {err && (
           <p role="alert" className="field-error">
-            {err.message}
+            {err}
           </p>
         )}
         {sentTo && (

@@ -2,13 +2,13 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { requireProject } from "@/lib/server/access";
 import { MembersPanel } from "./members-panel";
-import { orNotFound } from "@/lib/server/page-access";
+import { orRefused } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Members" };
 
 export default async function MembersPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const { project, user } = await orNotFound(requireProject(projectId, "manageMembers"), ["not_found", "forbidden"]);
+  const { project, user } = await orRefused(requireProject(projectId, "manageMembers"));
   return (
     <div className="space-y-5">
       <nav aria-label="Breadcrumb" className="text-sm text-muted">

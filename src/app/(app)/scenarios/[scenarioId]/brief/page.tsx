@@ -7,16 +7,23 @@ import type { RunSummary } from "@sim/index";
 import { ResultsView } from "@/components/results";
 import { SafetyNote } from "@/components/safety-note";
 import { formatDateTime, formatIsoDate, formatPercent, formatStation } from "@/lib/format";
+import { stageSentence } from "@/lib/stage-text";
 import { PrintButton } from "./print-button";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
+import { iterationsStatement } from "@/components/results/summary-text";
+import { VerificationBadge } from "@/components/results/verification-badge";
 
 export const metadata: Metadata = { title: "Owner brief" };
 
 const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
 const hour = (h: number) => `${String(Math.floor(h)).padStart(2, "0")}:${String(Math.round((h % 1) * 60)).padStart(2, "0")}`;
 
-/** A printable one-document summary for the owner: the answer first, then the evidence, then the assumptions. */
+/**
+ * A printable one-document summary for the owner: the answer first, then the evidence, then the assumptions.
+ * Laid out at a fixed width that fits the printable width of both Letter and A4 (globals.css, `.brief`), so the
+ * charts print whole; nothing on it can be clicked. tests/e2e/brief-print.test.ts prints it to PDF and checks it.
+ */
 export default async function BriefPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const { scenario } = await orNotFound(requireScenario(scenarioId, "read"));
@@ -55,14 +62,19 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
               <p className="mt-1 text-xl font-semibold">{s.target ? `${formatPercent(s.target.probability)} chance` : "no target set"}</p>
             </div>
           </section>
-          {run.scenarioVersion !== scenario.version && (
+          {run.stale && (
             <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This forecast was computed from version {run.scenarioVersion}; the plan has changed since.</p>
           )}
-          <p className="text-sm text-muted">
-            Monte Carlo forecast: {run.iterations.toLocaleString("en-US")} iterations (seed “{run.seed}”), computed {formatDateTime(run.createdAt)}. P80 means 80 % of the
-            simulated outcomes finished on or before that date, given the assumptions below.
+          <p className="text-sm" data-testid="brief-iterations">
+            <VerificationBadge verification={run.verification} /> {iterationsStatement(s).text} Monte Carlo forecast, seed “{run.seed}”, computed {formatDateTime(run.createdAt)}. P80 means 80 % of the simulated outcomes
+            finished on or before that date, given the assumptions below.
           </p>
-          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run, scenario.version)} />
+          {iterationsStatement(s).warning && (
+            <p className="rounded-md border-2 border-warn bg-warn-bg px-4 py-2 text-sm font-medium" role="note" data-testid="brief-iterations-warning">
+              {iterationsStatement(s).warning}
+            </p>
+          )}
+          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run, scenario.version)} document />
         </>
       )}
       <section aria-labelledby="assumptions-heading" className="card break-inside-avoid">
@@ -85,11 +97,14 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
             .
           </li>
           <li>Work days: {d.calendar.workDays.map((w) => DAYS[w]).join(", ")}; shifts: {d.calendar.shifts.map((sh) => `${sh.name} ${hour(sh.startHour)} for ${sh.lengthHours} h`).join("; ")}.</li>
+          {d.stages.map((_, i) => (
+            <li key={`stage-${i}`}>{stageSentence(d, i)}</li>
+          ))}
           <li>
-            Lane closures:{" "}
+            Short-term lane closures (while a crew works):{" "}
             {d.calendar.closures
-              .map((c) => `${c.name} (${c.lanesClosed.join(", ")}) ${d.calendar.closureWindows.filter((w) => w.closure === c.id).map((w) => `${w.dayTypes.join("/")} ${hour(w.startHour)}–${hour(w.endHour)}`).join(", ")}`)
-              .join("; ")}
+              .map((c) => `${c.name} (${c.lanesClosed.join(", ")}${c.setupHours || c.takedownHours ? `; ${c.setupHours} h set-up, ${c.takedownHours} h take-down` : ""}) ${d.calendar.closureWindows.filter((w) => w.closure === c.id).map((w) => `${w.dayTypes.join("/")} ${hour(w.startHour)}–${hour(w.endHour)}`).join(", ")}`)
+              .join("; ") || "none"}
             .
           </li>
           {d.operations.map((o) =>

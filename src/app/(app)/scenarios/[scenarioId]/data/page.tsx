@@ -1,12 +1,12 @@
 import type { Metadata } from "next";
 import { requireScenario } from "@/lib/server/access";
 import { FieldDataPanel } from "./field-data-panel";
-import { orNotFound } from "@/lib/server/page-access";
+import { orRefused } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "Field data" };
 
 export default async function FieldDataPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario } = await orNotFound(requireScenario(scenarioId, "editScenario"), ["not_found", "forbidden"]);
+  const { scenario } = await orRefused(requireScenario(scenarioId, "editScenario"));
   return <FieldDataPanel scenarioId={scenario.id} />;
 }

@@ -2,8 +2,9 @@
 /** What a checked weather history would change: how each column was read, then current → fitted per month. */
 import type { ClimateFit } from "@sim/weather-fit";
 import type { ColumnReading } from "@/lib/csv/weather-csv";
+import { monthName } from "@/lib/format";
 
-const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+const MONTHS = Array.from({ length: 12 }, (_, i) => monthName(i + 1));
 const FROM: Record<NonNullable<ColumnReading["unitFrom"]>, string> = { chosen: "as you chose", header: "stated in the header", guessed: "guessed from the values — choose the unit if it is wrong" };
 
 export interface WeatherPreviewData {

@@ -1,9 +1,14 @@
 "use client";
 import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { api, ApiError } from "@/lib/api-client";
+import { ConfirmDialog } from "@/components/confirm-dialog";
+import { api } from "@/lib/api-client";
+import { applyServerErrors } from "@/lib/form-errors";
 import { formatDateTime } from "@/lib/format";
-import { PublishPreviewDialog, type PublicationPreview } from "./publish-preview-dialog";
+import { closureSubscriberSchema } from "@/lib/schemas";
 
 interface Subscriber {
   id: string;
@@ -18,26 +23,56 @@ interface Publication {
   publishedByName: string;
 }
 
-/** Who hears about closures, and the one action that tells them: publish this scenario's planned closures. */
+/** What publishing the latest run would send; publishing names `runId`, so a newer run is refused, not sent unseen. */
+interface NoticePreview {
+  runId: string;
+  closureCount: number;
+  to: string[];
+  subject: string;
+  text: string;
+}
+
+/**
+ * Who hears about closures, and the one action that tells them: publish this scenario's planned closures —
+ * after a confirmation that shows the notice exactly as it will be sent, and to whom.
+ */
 export function ClosureNotices({ projectId, scenarioId }: { projectId: string; scenarioId: string }) {
   const qc = useQueryClient();
   const subsKey = ["projects", projectId, "closure-subscribers"];
   const pubsKey = ["scenarios", scenarioId, "closure-publications"];
   const subs = useQuery({ queryKey: subsKey, queryFn: () => api<{ subscribers: Subscriber[] }>(`/api/projects/${projectId}/closure-subscribers`).then((r) => r.subscribers) });
   const pubs = useQuery({ queryKey: pubsKey, queryFn: () => api<{ publications: Publication[] }>(`/api/scenarios/${scenarioId}/closure-publications`).then((r) => r.publications) });
-  const [email, setEmail] = useState("");
-  const [label, setLabel] = useState("");
+  const form = useForm<z.input<typeof closureSubscriberSchema>, unknown, z.output<typeof closureSubscriberSchema>>({
+    resolver: zodResolver(closureSubscriberSchema),
+    defaultValues: { email: "", label: "" },
+  });
+  const [addError, setAddError] = useState<string | null>(null);
   const add = useMutation({
-    mutationFn: () => api(`/api/projects/${projectId}/closure-subscribers`, { method: "POST", body: { email, label } }),
-    onSuccess: () => (setEmail(""), setLabel(""), qc.invalidateQueries({ queryKey: subsKey })),
+    mutationFn: (body: z.output<typeof closureSubscriberSchema>) => api(`/api/projects/${projectId}/closure-subscribers`, { method: "POST", body }),
+    onSuccess: () => (form.reset(), qc.invalidateQueries({ queryKey: subsKey })),
+    onError: (e) => setAddError(applyServerErrors(e, form.setError, (p) => (p === "email" || p === "label" ? p : null))),
+  });
+  const [confirming, setConfirming] = useState(false);
+  const preview = useQuery({
+    queryKey: [...pubsKey, "preview"],
+    queryFn: () => api<{ preview: NoticePreview }>(`/api/scenarios/${scenarioId}/closure-publications?preview=1`).then((r) => r.preview),
+    enabled: confirming,
+    staleTime: 0,
+    gcTime: 0,
   });
   const remove = useMutation({ mutationFn: (id: string) => api(`/api/projects/${projectId}/closure-subscribers/${id}`, { method: "DELETE" }), onSuccess: () => qc.invalidateQueries({ queryKey: subsKey }) });
-  const preview = useMutation({ mutationFn: () => api<PublicationPreview>(`/api/scenarios/${scenarioId}/closure-publications/preview`) });
   const publish = useMutation({
-    mutationFn: (runId: string) => api<{ closureCount: number; notified: number; feedUrl: string; advisoryUrl: string }>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", body: { runId } }),
-    onSuccess: () => (preview.reset(), qc.invalidateQueries({ queryKey: pubsKey })),
+    mutationFn: (runId: string) =>
+      api<{ closureCount: number; notified: number; feedUrl: string; advisoryUrl: string }>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", body: { runId } }),
+    onSuccess: () => {
+      setConfirming(false);
+      return qc.invalidateQueries({ queryKey: pubsKey });
+    },
+    // Run again since the preview (409): show the new notice in the same dialog, with the refusal above it.
+    onError: () => void preview.refetch(),
   });
-  const emailProblem = add.error instanceof ApiError ? add.error.fields.find((f) => f.path === "email")?.message : undefined;
+  const emailProblem = form.formState.errors.email?.message;
+  const labelProblem = form.formState.errors.label?.message;
 
   return (
     <section className="card" aria-labelledby="notices-heading" data-testid="closure-notices">
@@ -75,47 +110,83 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
           )}
           <form
             className="mt-3 grid gap-2 sm:grid-cols-[1fr_1fr_auto] sm:items-end"
-            onSubmit={(e) => {
-              e.preventDefault();
-              add.mutate();
-            }}
+            noValidate
+            onSubmit={form.handleSubmit((v) => {
+              setAddError(null);
+              add.mutate(v);
+            })}
           >
             <div>
               <label htmlFor="subscriber-email" className="field-label">
                 E-mail
               </label>
-              <input id="subscriber-email" type="email" className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} required aria-invalid={!!emailProblem} />
+              <input id="subscriber-email" type="email" className="field-input" aria-invalid={!!emailProblem} aria-describedby={emailProblem ? "subscriber-email-error" : undefined} {...form.register("email")} />
             </div>
             <div>
               <label htmlFor="subscriber-label" className="field-label">
                 Who (optional)
               </label>
-              <input id="subscriber-label" className="field-input" value={label} onChange={(e) => setLabel(e.target.value)} maxLength={120} />
+              <input id="subscriber-label" className="field-input" maxLength={120} aria-invalid={!!labelProblem} {...form.register("label")} />
             </div>
             <button type="submit" className="btn-secondary" disabled={add.isPending}>
               Add
             </button>
           </form>
-          {emailProblem && <p className="field-error">E-mail {emailProblem}</p>}
+          {emailProblem && (
+            <p id="subscriber-email-error" className="field-error">
+              E-mail {emailProblem}
+            </p>
+          )}
+          {labelProblem && <p className="field-error">Who {labelProblem}</p>}
+          {addError && (
+            <p role="alert" className="field-error">
+              {addError}
+            </p>
+          )}
         </div>
         <div>
           <h3>Publish</h3>
-          <button type="button" className="btn-primary mt-2" disabled={preview.isPending || publish.isPending} onClick={() => (publish.reset(), preview.mutate())} data-testid="publish-closures">
-            {preview.isPending ? "Preparing the preview…" : `Preview the notice to ${subs.data?.length ?? 0}…`}
+          <button type="button" className="btn-primary mt-2" disabled={publish.isPending} onClick={() => (publish.reset(), setConfirming(true))} data-testid="publish-closures">
+            {`Publish closures and notify ${subs.data?.length ?? 0}…`}
           </button>
-          {preview.isError && (
-            <p role="alert" className="field-error">
-              {preview.error.message}
-            </p>
-          )}
-          {preview.data && (
-            <PublishPreviewDialog
-              preview={preview.data}
-              busy={publish.isPending}
-              error={publish.isError ? publish.error.message : null}
-              onConfirm={() => publish.mutate(preview.data!.runId)}
-              onCancel={() => (preview.reset(), publish.reset())}
-            />
+          {confirming && (
+            <ConfirmDialog
+              title="Publish the planned closures?"
+              confirmLabel={preview.data ? `Publish and send ${preview.data.to.length} notice${preview.data.to.length === 1 ? "" : "s"}` : "Publish"}
+              busyLabel="Publishing…"
+              busy={publish.isPending || preview.isFetching}
+              error={preview.isError ? preview.error.message : publish.isError ? publish.error.message : null}
+              onCancel={() => setConfirming(false)}
+              onConfirm={() => preview.data && publish.mutate(preview.data.runId)}
+              testId="publish-dialog"
+            >
+              {preview.isPending ? (
+                <p className="text-muted">Preparing the notice…</p>
+              ) : preview.data ? (
+                <>
+                  <p>
+                    {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} from the latest run go into a new public calendar feed and travel advisory.{" "}
+                    {preview.data.to.length === 0 ? "Nobody is on the list, so no e-mail is sent." : "This e-mail goes to people outside Pourline and cannot be called back:"}
+                  </p>
+                  {preview.data.to.length > 0 && (
+                    <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1">
+                      <dt className="font-medium">To</dt>
+                      <dd data-testid="publish-dialog-to">{preview.data.to.join(", ")}</dd>
+                      <dt className="font-medium">Subject</dt>
+                      <dd>{preview.data.subject}</dd>
+                    </dl>
+                  )}
+                  <pre
+                    tabIndex={0}
+                    aria-label="The notice as it will be sent"
+                    className="max-h-64 overflow-auto whitespace-pre-wrap rounded-md border border-line bg-paper p-3 font-sans text-xs"
+                    data-testid="publish-dialog-text"
+                  >
+                    {preview.data.text}
+                  </pre>
+                </>
+              ) : null}
+            </ConfirmDialog>
           )}
           {publish.isSuccess && (
             <p role="status" className="mt-2 text-sm">

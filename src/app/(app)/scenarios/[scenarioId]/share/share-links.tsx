@@ -1,8 +1,15 @@
 "use client";
+/** Share links: a react-hook-form form on the shared contract (src/lib/schemas.ts) and the list, revoked only after a confirmation. */
 import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { z } from "zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { api, ApiError } from "@/lib/api-client";
+import { ConfirmDialog } from "@/components/confirm-dialog";
+import { api } from "@/lib/api-client";
+import { applyServerErrors } from "@/lib/form-errors";
 import { formatDateTime } from "@/lib/format";
+import { shareLinkSchema } from "@/lib/schemas";
 
 interface LinkRow {
   id: string;
@@ -27,39 +34,61 @@ function splitAddresses(list: string): string[] {
     .filter(Boolean);
 }
 
+/** The form's own reading of the shared contract: the addresses are typed as one line of text. */
+const shareLinkFormSchema = shareLinkSchema.extend({
+  label: z.string().max(120, "must be at most 120 characters"),
+  emailTo: z.string().max(4000).transform(splitAddresses).pipe(shareLinkSchema.shape.emailTo.unwrap()),
+});
+type ShareLinkForm = z.input<typeof shareLinkFormSchema>;
+
+/** An error on the address line: on the whole list, or on one address (then its index says which). */
+function addressProblem(err: unknown, typed: string): string | undefined {
+  if (!err || typeof err !== "object") return undefined;
+  const e = err as Record<string, unknown> & { message?: string };
+  if (typeof e.message === "string") return `The list ${e.message}`;
+  for (const [k, v] of Object.entries(e)) {
+    const m = (v as { message?: unknown } | undefined)?.message;
+    if (/^\d+$/.test(k) && typeof m === "string") return `“${splitAddresses(typed)[Number(k)] ?? ""}” ${m}`;
+  }
+  return undefined;
+}
+
 export function ShareLinks({ scenarioId }: { scenarioId: string }) {
   const qc = useQueryClient();
   const key = ["scenarios", scenarioId, "share-links"];
   const links = useQuery({ queryKey: key, queryFn: () => api<{ links: LinkRow[] }>(`/api/scenarios/${scenarioId}/share-links`).then((r) => r.links) });
-  const [label, setLabel] = useState("");
-  const [days, setDays] = useState(14);
-  const [emailTo, setEmailTo] = useState("");
+  const form = useForm<ShareLinkForm, unknown, z.output<typeof shareLinkFormSchema>>({
+    resolver: zodResolver(shareLinkFormSchema),
+    defaultValues: { label: "", expiresInDays: 14, emailTo: "" },
+  });
+  const { register, handleSubmit, setError, reset, formState, watch } = form;
   const [created, setCreated] = useState<string | null>(null);
   const [emailedTo, setEmailedTo] = useState<string[]>([]);
   const [copied, setCopied] = useState(false);
+  const [formError, setFormError] = useState<string | null>(null);
+  const [revoking, setRevoking] = useState<LinkRow | null>(null);
 
   const create = useMutation({
-    mutationFn: () =>
-      api<{ path: string; emailedTo: string[] }>(`/api/scenarios/${scenarioId}/share-links`, {
-        method: "POST",
-        body: { label, expiresInDays: days, emailTo: splitAddresses(emailTo) },
-      }),
+    mutationFn: (body: z.output<typeof shareLinkFormSchema>) => api<{ path: string; emailedTo: string[] }>(`/api/scenarios/${scenarioId}/share-links`, { method: "POST", body }),
     onSuccess: (r) => {
       setCreated(`${window.location.origin}${r.path}`);
       setEmailedTo(r.emailedTo ?? []);
-      setEmailTo("");
       setCopied(false);
-      setLabel("");
+      reset({ label: "", expiresInDays: formState.defaultValues?.expiresInDays ?? 14, emailTo: "" });
       qc.invalidateQueries({ queryKey: key });
     },
+    onError: (e) => setFormError(applyServerErrors(e, setError, (p) => (p === "label" || p === "expiresInDays" || p === "emailTo" ? p : null))),
   });
   const revoke = useMutation({
     mutationFn: (id: string) => api(`/api/share-links/${id}`, { method: "DELETE" }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: key }),
+    onSuccess: () => {
+      setRevoking(null);
+      return qc.invalidateQueries({ queryKey: key });
+    },
   });
-  const fieldError = (path: string) => (create.error instanceof ApiError ? create.error.fields.find((f) => f.path === path)?.message : undefined);
-  const emailProblem = create.error instanceof ApiError ? create.error.fields.find((f) => f.path.startsWith("emailTo")) : undefined;
-  const badAddress = emailProblem ? /\[(\d+)\]/.exec(emailProblem.path) : null;
+  const daysError = formState.errors.expiresInDays?.message;
+  const labelError = formState.errors.label?.message;
+  const emailProblem = addressProblem(formState.errors.emailTo, watch("emailTo") ?? "");
 
   return (
     <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.4fr)]">
@@ -71,23 +100,29 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
         </p>
         <form
           className="mt-4 space-y-4"
-          onSubmit={(e) => {
-            e.preventDefault();
-            create.mutate();
-          }}
+          noValidate
+          onSubmit={handleSubmit((v) => {
+            setFormError(null);
+            create.mutate(v);
+          })}
         >
           <div>
             <label htmlFor="share-label" className="field-label">
               Label (who it is for)
             </label>
-            <input id="share-label" className="field-input" value={label} maxLength={120} onChange={(e) => setLabel(e.target.value)} placeholder="e.g. County public information office" />
+            <input id="share-label" className="field-input" maxLength={120} placeholder="e.g. County public information office" aria-invalid={!!labelError} {...register("label")} />
+            {labelError && <p className="field-error">Label {labelError}</p>}
           </div>
           <div>
             <label htmlFor="share-days" className="field-label">
               Expires after (days)
             </label>
-            <input id="share-days" type="number" min={1} max={365} className="field-input w-32" value={days} onChange={(e) => setDays(Number(e.target.value))} aria-invalid={!!fieldError("expiresInDays")} />
-            {fieldError("expiresInDays") && <p className="field-error">Expiry {fieldError("expiresInDays")}</p>}
+            <input id="share-days" type="number" min={1} max={365} className="field-input w-32" aria-invalid={!!daysError} aria-describedby={daysError ? "share-days-error" : undefined} {...register("expiresInDays", { valueAsNumber: true })} />
+            {daysError && (
+              <p id="share-days-error" className="field-error">
+                Expiry {daysError}
+              </p>
+            )}
           </div>
           <div>
             <label htmlFor="share-email-to" className="field-label">
@@ -96,24 +131,21 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
             <input
               id="share-email-to"
               className="field-input"
-              value={emailTo}
-              onChange={(e) => setEmailTo(e.target.value)}
               placeholder="e.g. pio@county.example, engineer@firm.example"
               aria-invalid={!!emailProblem}
               aria-describedby="share-email-to-note"
+              {...register("emailTo")}
             />
             <p id="share-email-to-note" className={emailProblem ? "field-error" : "mt-1 text-xs text-muted"}>
-              {emailProblem
-                ? `${badAddress ? `“${splitAddresses(emailTo)[Number(badAddress[1])] ?? ""}” ` : "The list "}${emailProblem.message}`
-                : "Up to 10 addresses, separated by commas. Each gets the link by e-mail."}
+              {emailProblem ?? "Up to 10 addresses, separated by commas. Each gets the link by e-mail."}
             </p>
           </div>
           <button type="submit" className="btn-primary" disabled={create.isPending} data-testid="create-share-link">
             {create.isPending ? "Creating…" : "Create link"}
           </button>
-          {create.isError && !fieldError("expiresInDays") && !emailProblem && (
+          {formError && (
             <p role="alert" className="field-error">
-              {create.error.message}
+              {formError}
             </p>
           )}
         </form>
@@ -137,6 +169,28 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
           </div>
         )}
       </section>
+      {revoking && (
+        <ConfirmDialog
+          title="Revoke this link?"
+          confirmLabel="Revoke the link"
+          busyLabel="Revoking…"
+          danger
+          busy={revoke.isPending}
+          error={revoke.isError ? revoke.error.message : null}
+          onCancel={() => (revoke.reset(), setRevoking(null))}
+          onConfirm={() => revoke.mutate(revoking.id)}
+          testId="revoke-dialog"
+        >
+          <p>
+            <strong>{revoking.label || "(no label)"}</strong> — created {formatDateTime(revoking.createdAt)} by {revoking.createdByName}, live until{" "}
+            {formatDateTime(revoking.expiresAt)}.
+          </p>
+          <p>
+            Anyone who opens it from now on sees “This link is not available”{revoking.label === "Closure calendar feed" ? ", and calendars following the closure feed stop updating" : ""}.
+            Nobody is e-mailed. A revoked link cannot be brought back; create a new one if needed.
+          </p>
+        </ConfirmDialog>
+      )}
       <section className="card overflow-x-auto p-0" aria-labelledby="links-heading">
         <h2 id="links-heading" className="px-5 pt-4">
           Links to this scenario
@@ -178,7 +232,7 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
                     </td>
                     <td className="table-cell text-right">
                       {st.text === "Live" && (
-                        <button type="button" className="btn-danger" disabled={revoke.isPending} onClick={() => revoke.mutate(l.id)} aria-label={`Revoke link ${l.label || "without label"}`}>
+                        <button type="button" className="btn-danger" disabled={revoke.isPending} onClick={() => setRevoking(l)} aria-label={`Revoke link ${l.label || "without label"}`}>
                           Revoke
                         </button>
                       )}

@@ -33,7 +33,8 @@ export const GET = handler(async (req: Request, ctx: { params: Promise<{ project
           ? {
               id: r.runId,
               scenarioVersion: r.runVersion!,
-              stale: r.runVersion !== r.version,
+              stale: !!r.runStale,
+              verification: r.runVerification!,
               iterations: r.iterations!,
               createdAt: new Date(r.runAt!).toISOString(),
               startDate: s.startDate,

@@ -2,15 +2,17 @@ import { NextResponse } from "next/server";
 import { handler, readJson } from "@/lib/server/errors";
 import { closurePublicationSchema } from "@/lib/schemas";
 import { requireScenario } from "@/lib/server/access";
-import { publishClosurePlan } from "@/lib/server/closure-notices";
+import { previewClosurePlan, publishClosurePlan } from "@/lib/server/closure-notices";
 import { appBaseUrl } from "@/lib/server/mail/links";
 import { listClosurePublications } from "@db/queries/closure-notices";
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
-export const GET = handler(async (_req: Request, ctx: Ctx) => {
+/** Earlier publications; with `?preview=1`, what publishing now would send (recipients, subject, text), for the confirmation. */
+export const GET = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
-  await requireScenario(scenarioId, "shareScenario");
+  const { scenario } = await requireScenario(scenarioId, "shareScenario");
+  if (new URL(req.url).searchParams.get("preview") === "1") return NextResponse.json({ preview: await previewClosurePlan({ scenario }) });
   return NextResponse.json({ publications: await listClosurePublications({ scenarioId }) });
 });
 

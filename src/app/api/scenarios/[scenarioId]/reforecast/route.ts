@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { handler, readJson } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
-import { runReforecast } from "@/lib/server/progress";
+import { queueReforecast } from "@/lib/server/progress";
+import { jobView } from "@/lib/server/jobs";
 import { reforecastSchema } from "@/lib/progress-schema";
 import { getLatestPlanRun, listReforecastRuns } from "@db/queries/progress";
 
@@ -12,18 +13,18 @@ export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario } = await requireScenario(scenarioId, "read");
   const [plan, runs] = await Promise.all([getLatestPlanRun({ scenarioId }), listReforecastRuns({ scenarioId })]);
-  const stale = (v: number) => v !== scenario.version;
+  const stale = (v: number) => v !== scenario.version; // the drift series carries headline figures only
   return NextResponse.json({ plan: plan && { ...plan, stale: stale(plan.scenarioVersion) }, runs: runs.map((r) => ({ ...r, stale: stale(r.scenarioVersion) })) });
 });
 
 /**
- * Re-forecasts from the as-built state at `dataDate`: the server computes it (at most 5,000 iterations) and
- * stores it as a run with that data date.
+ * Asks for a re-forecast from the as-built state at `dataDate`: 202 with the engine job; a worker computes it
+ * and stores it as a run with that data date (GET /api/jobs/:id follows it).
  */
 export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario, user } = await requireScenario(scenarioId, "runScenario");
   const body = await readJson(req, reforecastSchema);
-  const saved = await runReforecast({ scenario, body, userId: user.id });
-  return NextResponse.json(saved, { status: 201 });
+  const job = await queueReforecast({ scenario, body, userId: user.id });
+  return NextResponse.json({ job: jobView(job) }, { status: 202 });
 });

@@ -9,20 +9,21 @@ type Ctx = { params: Promise<{ scenarioId: string }> };
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
-  const { scenario } = await requireScenario(scenarioId, "read");
-  const runs = await listRuns({ scenarioId });
-  return NextResponse.json({ runs: runs.map((r) => ({ ...r, stale: r.scenarioVersion !== scenario.version })) });
+  await requireScenario(scenarioId, "read");
+  // Each run carries stale, planRun and verification from the data layer.
+  return NextResponse.json({ runs: await listRuns({ scenarioId }) });
 });
 
 /**
- * Saves a run of the scenario's current version. The browser sends the summary its worker pool computed;
- * without one, the server computes it (capped, so one request cannot occupy the server for long). Either way the
- * run must fit its work budget (@sim/budget), and the body is at most 8 MB with no field outside the contract.
+ * A run of the scenario's current version. With the summary a browser's worker pool computed: stored at once
+ * as "pending" (201) and queued for verification. Without one: 202 with an engine job that computes it (capped,
+ * so one request cannot occupy a worker for long). Either way the run must fit its work budget (@sim/budget),
+ * and the body is at most 8 MB with no field outside the contract.
  */
 export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario, user } = await requireScenario(scenarioId, "runScenario");
   const body = await readJson(req, runWriteSchema, { maxBytes: MAX_RUN_BODY_BYTES });
   const saved = await recordRun({ scenario, body, userId: user.id });
-  return NextResponse.json(saved, { status: 201 });
+  return NextResponse.json(saved.body, { status: saved.status });
 });

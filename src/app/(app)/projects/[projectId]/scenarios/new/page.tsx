@@ -3,13 +3,13 @@ import Link from "next/link";
 import { requireProject } from "@/lib/server/access";
 import { listProjectScenarios } from "@db/queries/scenarios";
 import { NewScenarioForm } from "./new-scenario-form";
-import { orNotFound } from "@/lib/server/page-access";
+import { orRefused } from "@/lib/server/page-access";
 
 export const metadata: Metadata = { title: "New scenario" };
 
 export default async function NewScenarioPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const { project } = await orNotFound(requireProject(projectId, "editScenario"), ["not_found", "forbidden"]);
+  const { project } = await orRefused(requireProject(projectId, "editScenario"));
   const existing = await listProjectScenarios({ projectId });
   return (
     <div className="mx-auto max-w-2xl space-y-5">

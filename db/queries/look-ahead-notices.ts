@@ -1,0 +1,52 @@
+import "server-only";
+/**
+ * The daily look-ahead e-mail of each scenario. `claimNoticeDay` marks a notice sent for a local date only
+ * if it was not already, inside the caller's transaction, so two app processes never send the same day twice.
+ */
+import { and, eq, isNull, lt, or } from "drizzle-orm";
+import { getDb } from "../client";
+import { lookAheadNotices, scenarios } from "../schema";
+import type { Executor } from "./mail";
+
+export async function getLookAheadNotice({ scenarioId }: { scenarioId: string }) {
+  const [row] = await getDb()
+    .select({ enabled: lookAheadNotices.enabled, hour: lookAheadNotices.hour, recipients: lookAheadNotices.recipients, lastSentOn: lookAheadNotices.lastSentOn, updatedAt: lookAheadNotices.updatedAt })
+    .from(lookAheadNotices)
+    .where(eq(lookAheadNotices.scenarioId, scenarioId));
+  return row ?? null;
+}
+
+export async function saveLookAheadNotice(input: { scenarioId: string; enabled: boolean; hour: number; recipients: string[]; userId: string }) {
+  const values = { enabled: input.enabled, hour: input.hour, recipients: input.recipients, updatedById: input.userId, updatedAt: new Date() };
+  await getDb()
+    .insert(lookAheadNotices)
+    .values({ scenarioId: input.scenarioId, ...values })
+    .onConflictDoUpdate({ target: lookAheadNotices.scenarioId, set: values });
+}
+
+/** Enabled notices with what the sender needs of their scenario. */
+export async function listEnabledNotices() {
+  return getDb()
+    .select({
+      scenarioId: lookAheadNotices.scenarioId,
+      hour: lookAheadNotices.hour,
+      recipients: lookAheadNotices.recipients,
+      lastSentOn: lookAheadNotices.lastSentOn,
+      lastBoard: lookAheadNotices.lastBoard,
+      projectId: scenarios.projectId,
+      name: scenarios.name,
+      definition: scenarios.definition,
+    })
+    .from(lookAheadNotices)
+    .innerJoin(scenarios, eq(scenarios.id, lookAheadNotices.scenarioId))
+    .where(eq(lookAheadNotices.enabled, true));
+}
+
+export async function claimNoticeDay({ tx, scenarioId, date, board }: { tx: Executor; scenarioId: string; date: string; board: Record<string, unknown> }): Promise<boolean> {
+  const rows = await tx
+    .update(lookAheadNotices)
+    .set({ lastSentOn: date, lastBoard: board })
+    .where(and(eq(lookAheadNotices.scenarioId, scenarioId), or(isNull(lookAheadNotices.lastSentOn), lt(lookAheadNotices.lastSentOn, date))))
+    .returning({ id: lookAheadNotices.scenarioId });
+  return rows.length > 0;
+}

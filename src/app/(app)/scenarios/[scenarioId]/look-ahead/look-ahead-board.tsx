@@ -1,0 +1,127 @@
+"use client";
+import { useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import { STATUS_MARKS, STATUS_WORDS, cellWhy } from "@/lib/look-ahead-notice";
+import type { LookAheadDay, OperationCell } from "@sim/lookahead";
+import { CellDetail } from "./cell-detail";
+
+interface Board {
+  today: string;
+  timeZone: string;
+  rainRule: string;
+  forecast: { status: "fresh" | "stale" | "none" | "noLocation"; message: string | null; ageMinutes: number | null; place: string | null; office: string | null; firstHour: string | null; lastHour: string | null };
+  days: LookAheadDay[];
+}
+
+const TONE: Record<OperationCell["status"], string> = {
+  go: "border-ok/40 bg-white text-ok",
+  partial: "border-warn/40 bg-warn-bg text-warn",
+  no: "border-bad/40 bg-bad-bg text-bad",
+  unknown: "border-line bg-paper text-muted",
+  closed: "border-line bg-paper text-muted",
+};
+
+function age(min: number | null): string {
+  if (min === null) return "";
+  return min < 90 ? `${min} min ago` : min < 2880 ? `${Math.round(min / 60)} h ago` : `${Math.round(min / 1440)} days ago`;
+}
+
+/** The week ahead as a grid: one row per shift and weather-gated operation, one column per day. */
+export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
+  const q = useQuery({ queryKey: ["scenarios", scenarioId, "look-ahead"], queryFn: () => api<Board>(`/api/scenarios/${scenarioId}/look-ahead`) });
+  const [open, setOpen] = useState<{ date: string; shiftId: string; opId: string } | null>(null);
+  if (q.isPending) return <p className="text-sm text-muted">Loading the week ahead…</p>;
+  if (q.isError) return <p role="alert" className="text-sm text-bad">{q.error.message}</p>;
+  const b = q.data;
+  const rows: { shiftId: string; shiftName: string; opId: string; opName: string }[] = [];
+  for (const d of b.days)
+    for (const s of d.shifts)
+      for (const o of s.operations)
+        if (!rows.some((r) => r.shiftId === s.shiftId && r.opId === o.operationId)) rows.push({ shiftId: s.shiftId, shiftName: s.name, opId: o.operationId, opName: o.name });
+  const find = (date: string, shiftId: string, opId: string) => {
+    const d = b.days.find((x) => x.date === date);
+    const s = d?.shifts.find((x) => x.shiftId === shiftId);
+    return s ? { day: d!, shift: s, cell: s.operations.find((o) => o.operationId === opId) ?? null } : null;
+  };
+  const selected = open && find(open.date, open.shiftId, open.opId);
+  const f = b.forecast;
+  return (
+    <section className="card space-y-4" aria-labelledby="board-heading" data-testid="look-ahead">
+      <div>
+        <h2 id="board-heading">Week ahead from {b.today}</h2>
+        <p className="mt-1 text-sm text-muted">
+          Which shifts may pour, mill or cure, from the hourly weather forecast and this scenario&apos;s gates, shifts and closure windows. Open a cell for the
+          hour-by-hour reasons. {b.rainRule}
+        </p>
+        {f.status === "fresh" && (
+          <p className="mt-1 text-sm text-muted" data-testid="forecast-source">
+            Forecast{f.place ? ` for ${f.place}` : ""} from the National Weather Service, fetched {age(f.ageMinutes)}; hours {f.firstHour?.replace("T", " ")} to {f.lastHour?.replace("T", " ")} ({b.timeZone}).
+          </p>
+        )}
+        {f.message && (
+          <p role="status" className="mt-2 rounded-md border border-warn/40 bg-warn-bg px-3 py-2 text-sm text-warn" data-testid="forecast-message">
+            {f.message}
+          </p>
+        )}
+      </div>
+      {rows.length === 0 ? (
+        <p className="text-sm text-muted">No operation of this scenario has a weather gate, so the weather decides nothing here.</p>
+      ) : (
+        <div className="overflow-x-auto">
+          <table className="w-full border-collapse text-sm" data-testid="look-ahead-grid">
+            <caption className="sr-only">Week ahead: may each operation work each shift</caption>
+            <thead>
+              <tr>
+                <th scope="col" className="table-head">Shift and operation</th>
+                {b.days.map((d) => (
+                  <th key={d.date} scope="col" className="table-head whitespace-nowrap">
+                    {d.weekday.slice(0, 3)} {d.date.slice(5)}
+                  </th>
+                ))}
+              </tr>
+            </thead>
+            <tbody>
+              {rows.map((r) => (
+                <tr key={`${r.shiftId}-${r.opId}`}>
+                  <th scope="row" className="table-cell text-left font-medium">
+                    {r.opName}
+                    <span className="block text-xs font-normal text-muted">{r.shiftName}</span>
+                  </th>
+                  {b.days.map((d) => {
+                    const hit = find(d.date, r.shiftId, r.opId);
+                    const c = hit?.cell;
+                    if (!c) return <td key={d.date} className="table-cell text-muted">—</td>;
+                    const why = cellWhy(c);
+                    const isOpen = open?.date === d.date && open.shiftId === r.shiftId && open.opId === r.opId;
+                    return (
+                      <td key={d.date} className="table-cell p-1 align-top">
+                        <button
+                          type="button"
+                          data-testid={`cell-${d.date}-${r.shiftId}-${r.opId}`}
+                          data-status={c.status}
+                          aria-expanded={isOpen}
+                          aria-label={`${r.opName}, ${r.shiftName}, ${d.weekday} ${d.date}: ${STATUS_WORDS[c.status]}${why ? ` — ${why}` : ""}. Show the reasons.`}
+                          onClick={() => setOpen(isOpen ? null : { date: d.date, shiftId: r.shiftId, opId: r.opId })}
+                          className={`w-full min-w-24 rounded border px-2 py-1 text-left ${TONE[c.status]} ${isOpen ? "ring-2 ring-brand-600" : ""}`}
+                        >
+                          <span aria-hidden="true" className="mr-1 font-bold">{STATUS_MARKS[c.status]}</span>
+                          <span className="font-medium">{STATUS_WORDS[c.status]}</span>
+                          {why && <span className="block truncate text-xs">{why}</span>}
+                        </button>
+                      </td>
+                    );
+                  })}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <p className="mt-2 text-xs text-muted">
+            ✓ may work · ◐ part of the shift · ✗ blocked by the weather · ? the forecast cannot tell · – closed (no work day, holiday, winter or no closure window)
+          </p>
+        </div>
+      )}
+      {selected?.cell && <CellDetail day={selected.day} shift={selected.shift} cell={selected.cell} onClose={() => setOpen(null)} />}
+    </section>
+  );
+}

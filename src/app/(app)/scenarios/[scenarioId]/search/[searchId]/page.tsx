@@ -1,0 +1,19 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { requireScenario } from "@/lib/server/access";
+import { orNotFound } from "@/lib/server/page-access";
+import { can } from "@/lib/permissions";
+import { getSearch } from "@db/queries/searches";
+import { SearchView } from "@/components/search/search-view";
+
+export const metadata: Metadata = { title: "Plan search" };
+
+/** One saved search; its address is the link to share with project members. */
+export default async function SearchResultPage({ params }: { params: Promise<{ scenarioId: string; searchId: string }> }) {
+  const { scenarioId, searchId } = await params;
+  const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
+  const search = /^[0-9a-f-]{36}$/i.test(searchId) ? await getSearch({ id: searchId }) : null;
+  if (!search || search.scenarioId !== scenario.id) notFound();
+  const target = (scenario.definition as { targetDate?: unknown }).targetDate;
+  return <SearchView searchId={search.id} targetDate={typeof target === "string" ? target : null} canRun={can(role, "runScenario")} canEdit={can(role, "editScenario")} />;
+}

@@ -1,0 +1,13 @@
+import { NextResponse } from "next/server";
+import { handler } from "@/lib/server/errors";
+import { requireScenario } from "@/lib/server/access";
+import { scenarioLookAhead } from "@/lib/server/look-ahead";
+
+type Ctx = { params: Promise<{ scenarioId: string }> };
+
+/** The next 7 days × shifts × weather-gated operations: `{days, today, timeZone, rainRule, forecast}`. Every member reads it. */
+export const GET = handler(async (_req: Request, ctx: Ctx) => {
+  const { scenarioId } = await ctx.params;
+  const { scenario } = await requireScenario(scenarioId, "read");
+  return NextResponse.json(await scenarioLookAhead(scenario), { headers: { "cache-control": "no-store" } });
+});

@@ -1,0 +1,78 @@
+/**
+ * The daily look-ahead e-mail's words: the board as lines a person reads in any mail program, and what
+ * changed since the last notice. Pure (no server, no clock), so it is tested directly.
+ */
+import type { CellStatus, LookAheadDay, OperationCell } from "@sim/lookahead";
+
+export const STATUS_WORDS: Record<CellStatus, string> = {
+  go: "may work",
+  partial: "part of the shift",
+  no: "blocked",
+  unknown: "cannot tell",
+  closed: "closed",
+};
+export const STATUS_MARKS: Record<CellStatus, string> = { go: "✓", partial: "◐", no: "✗", unknown: "?", closed: "–" };
+
+/**
+ * Slot start times (`YYYY-MM-DDTHH:mm`, ascending) as runs of consecutive hours: "12-02 07:00–17:00, 12-02 21:00–12-03 05:00".
+ * A run ends at the end of its last slot.
+ */
+export function hourRanges(times: string[]): string {
+  const ms = (t: string) => Date.UTC(+t.slice(0, 4), +t.slice(5, 7) - 1, +t.slice(8, 10), +t.slice(11, 13), +t.slice(14, 16));
+  const label = (m: number, withDate: boolean) => {
+    const d = new Date(m);
+    const p = (n: number) => String(n).padStart(2, "0");
+    return `${withDate ? `${p(d.getUTCMonth() + 1)}-${p(d.getUTCDate())} ` : ""}${p(d.getUTCHours())}:${p(d.getUTCMinutes())}`;
+  };
+  const runs: [number, number][] = [];
+  for (const t of times) {
+    const m = ms(t);
+    const last = runs[runs.length - 1];
+    if (last && m === last[1]) last[1] = m + 3_600_000;
+    else runs.push([m, m + 3_600_000]);
+  }
+  return runs.map(([a, b]) => `${label(a, true)}–${label(b, new Date(a).getUTCDate() !== new Date(b).getUTCDate())}`).join(", ");
+}
+
+/** The board reduced to one status per (date, shift, operation), the part the next notice compares. */
+export type CompactBoard = Record<string, CellStatus>;
+
+const keyOf = (date: string, shiftId: string, opId: string) => `${date}|${shiftId}|${opId}`;
+
+export function compactBoard(days: LookAheadDay[]): CompactBoard {
+  const out: CompactBoard = {};
+  for (const d of days) for (const s of d.shifts) for (const o of s.operations) out[keyOf(d.date, s.shiftId, o.operationId)] = o.status;
+  return out;
+}
+
+export function cellWhy(o: OperationCell): string {
+  if (o.status === "closed") return o.closedReason ?? "";
+  if (o.failing.length === 0) return o.status === "unknown" ? "the forecast does not cover these hours" : "";
+  return o.failing.map((f) => `${f.label.toLowerCase()} from ${f.at[0].slice(11)}`).join("; ");
+}
+
+/** Lines "Thu 2027-04-08, Day shift, Overlay placement: may work → blocked" for cells whose status changed. */
+export function changesSince(previous: CompactBoard | null, days: LookAheadDay[]): string[] {
+  if (!previous) return [];
+  const lines: string[] = [];
+  for (const d of days)
+    for (const s of d.shifts)
+      for (const o of s.operations) {
+        const before = previous[keyOf(d.date, s.shiftId, o.operationId)];
+        if (before && before !== o.status) lines.push(`${d.weekday.slice(0, 3)} ${d.date}, ${s.name}, ${o.name}: ${STATUS_WORDS[before]} → ${STATUS_WORDS[o.status]}`);
+      }
+  return lines;
+}
+
+export function boardLines(days: LookAheadDay[]): string[] {
+  const lines: string[] = [];
+  for (const d of days) {
+    lines.push(`${d.weekday} ${d.date}`);
+    for (const s of d.shifts)
+      for (const o of s.operations) {
+        const why = cellWhy(o);
+        lines.push(`  ${STATUS_MARKS[o.status]} ${s.name} — ${o.name}: ${STATUS_WORDS[o.status]}${why ? ` (${why})` : ""}`);
+      }
+  }
+  return lines;
+}

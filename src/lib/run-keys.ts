@@ -1,0 +1,22 @@
+/**
+ * Names of computations. A result key says what a stored run is the result of, so the same computation is
+ * stored once whoever asks (a browser run and a server run of the same scenario version, seed and iterations
+ * share one); a job key says what an engine job computes, so asking twice gives the same job.
+ */
+export interface Computation {
+  scenarioId: string;
+  scenarioVersion: number;
+  seed: string;
+  iterations: number;
+  /** A re-forecast's data date and a digest of the field entries it used (null for a plan run). */
+  reforecast?: { dataDate: string; inputsHash: string } | null;
+}
+
+export function resultKey(c: Computation): string {
+  const base = `${c.scenarioId}:v${c.scenarioVersion}:${c.iterations}:${JSON.stringify(c.seed)}`;
+  return c.reforecast ? `${base}:reforecast:${c.reforecast.dataDate}:${c.reforecast.inputsHash}` : `${base}:plan`;
+}
+
+export const runJobKey = (c: Computation) => `${c.reforecast ? "reforecast" : "run"}:${resultKey(c)}`;
+export const verifyJobKey = (runId: string) => `verify:${runId}`;
+export const searchJobKey = (searchId: string) => `search:${searchId}`;

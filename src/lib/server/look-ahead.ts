@@ -1,0 +1,78 @@
+import "server-only";
+/**
+ * The look-ahead board of a scenario: today's date on the scenario's clock, the project's cached forecast
+ * (./forecast/cache), and the pure evaluation (sim/lookahead). Works without a forecast: cells are then
+ * "cannot tell" and the message says why.
+ */
+import { lookAhead, DEFAULT_RAIN_POP_PCT, type LookAheadDay } from "@sim/lookahead";
+import { getProject } from "@db/queries/projects";
+import { projectForecast, type ForecastStatus } from "./forecast/cache";
+import { toHourlyArrays } from "./forecast/nws-format";
+import { validateDefinition } from "./scenario-input";
+
+export const RAIN_RULE = `An hour counts as rain when its chance of precipitation is ${DEFAULT_RAIN_POP_PCT} % or more.`;
+
+/** The calendar date at `now` on the clock of `timeZone` (UTC when the name is not one Intl knows). */
+export function localDate(now: Date, timeZone: string): string {
+  const fmt = (tz: string) => new Intl.DateTimeFormat("en-CA", { timeZone: tz, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
+  try {
+    return fmt(timeZone);
+  } catch {
+    return fmt("UTC");
+  }
+}
+
+/** The local hour (0–23) at `now` on the clock of `timeZone`. */
+export function localHour(now: Date, timeZone: string): number {
+  try {
+    return Number(new Intl.DateTimeFormat("en-US", { timeZone, hourCycle: "h23", hour: "2-digit" }).format(now));
+  } catch {
+    return now.getUTCHours();
+  }
+}
+
+export interface LookAheadBoard {
+  today: string;
+  timeZone: string;
+  rainRule: string;
+  forecast: {
+    status: ForecastStatus;
+    message: string | null;
+    fetchedAt: string | null;
+    ageMinutes: number | null;
+    place: string | null;
+    office: string | null;
+    generatedAt: string | null;
+    firstHour: string | null;
+    lastHour: string | null;
+    gaps: Record<string, number> | null;
+  };
+  days: LookAheadDay[];
+}
+
+export async function scenarioLookAhead(scenario: { projectId: string; definition: unknown }, now = new Date()): Promise<LookAheadBoard> {
+  const plan = validateDefinition(scenario.definition);
+  const project = await getProject({ id: scenario.projectId });
+  const state = await projectForecast({ id: scenario.projectId, latitude: project?.latitude ?? null, longitude: project?.longitude ?? null }, now);
+  const today = localDate(now, plan.timeZone);
+  const f = state.forecast;
+  const hours = f?.hours ?? [];
+  return {
+    today,
+    timeZone: plan.timeZone,
+    rainRule: RAIN_RULE,
+    forecast: {
+      status: state.status,
+      message: state.message,
+      fetchedAt: state.fetchedAt?.toISOString() ?? null,
+      ageMinutes: state.ageMinutes === null ? null : Math.round(state.ageMinutes),
+      place: f?.place ?? null,
+      office: f?.office ?? null,
+      generatedAt: f?.generatedAt ?? null,
+      firstHour: hours[0]?.start ?? null,
+      lastHour: hours[hours.length - 1]?.start ?? null,
+      gaps: f?.gaps ?? null,
+    },
+    days: lookAhead(plan, toHourlyArrays(hours), { today }),
+  };
+}

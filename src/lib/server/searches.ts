@@ -1,0 +1,54 @@
+import "server-only";
+/**
+ * Plan searches on the server: checking a spec against the plan and the budget, building the variants
+ * (sim/search) and queuing them, and the view of a search with its frontier (sim/frontier).
+ */
+import { z } from "zod";
+import { buildVariants, searchSpecSchema, specProblems, variantLabel } from "@sim/search";
+import { nonDominated, objectivesOf } from "@sim/frontier";
+import { runWork, searchBudgetProblem, timeLimitSeconds } from "@sim/budget";
+import { weatherFeasibility } from "@sim/feasibility";
+import type { ScenarioDetail } from "@db/queries/scenarios";
+import type { SearchDetail } from "@db/queries/searches";
+import type { listVariants } from "@db/queries/searches";
+import { enqueueSearch } from "@workers/server/enqueue";
+import { searchJobKey } from "@/lib/run-keys";
+import { badRequest } from "./errors";
+import { queue } from "./jobs";
+import { validateDefinition } from "./scenario-input";
+
+export const searchWriteSchema = z.object({
+  name: z.string().trim().min(1, "must not be empty").max(120),
+  spec: searchSpecSchema,
+});
+
+export async function startSearch({ scenario, body, userId }: { scenario: ScenarioDetail; body: z.output<typeof searchWriteSchema>; userId: string }) {
+  const plan = validateDefinition(scenario.definition);
+  const never = weatherFeasibility(plan);
+  if (never.length) throw badRequest(never, "This plan can never finish; no search was started.");
+  const problems = specProblems(plan, body.spec);
+  if (problems.length) throw badRequest(problems, "The search names things this plan does not have.");
+  const built = buildVariants(body.spec);
+  const runs = built.variants.length + 1; // the plan as saved runs too, as the reference point
+  const overBudget = searchBudgetProblem(plan, body.spec.iterations, runs);
+  if (overBudget) throw badRequest([overBudget], "The search is larger than the work budget; nothing was started.");
+  const variants = [{ choice: null, label: "The plan as saved" }, ...built.variants.map((choice) => ({ choice, label: variantLabel(body.spec.dimensions, choice) }))];
+  return enqueueSearch(
+    await queue(),
+    { projectId: scenario.projectId, scenarioId: scenario.id, scenarioVersion: scenario.version, name: body.name, spec: body.spec, method: built.method, gridSize: built.gridSize, userId },
+    variants,
+    { seed: body.spec.seed, iterations: body.spec.iterations, timeLimitSeconds: timeLimitSeconds(runWork(plan, body.spec.iterations).total), singletonKeyOf: searchJobKey },
+  );
+}
+
+/** A search as the page draws it: each finished plan with its objectives and whether it is on the frontier. */
+export function searchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>) {
+  const done = variants.filter((v) => v.status === "done" && v.outcome);
+  const front = nonDominated(done.map((v) => objectivesOf(v.outcome!)));
+  const onFront = new Set(done.filter((_, i) => front[i]).map((v) => v.idx));
+  return {
+    search: { ...search, createdAt: search.createdAt.toISOString(), stale: search.scenarioVersion !== search.currentVersion, variantCount: variants.length - 1 },
+    variants: variants.map((v) => ({ ...v, current: v.idx === 0, onFrontier: onFront.has(v.idx) })),
+  };
+}
+export type SearchView = ReturnType<typeof searchView>;

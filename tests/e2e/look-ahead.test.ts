@@ -1,0 +1,61 @@
+/**
+ * The week ahead in Debian's Chromium: the project sits at the fake weather service's cold-snap point; an
+ * inspector opens the board from the scenario's tabs, sees tomorrow's placement blocked by the cold night and
+ * opens the cell for the hour-by-hour reason.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser } from "playwright-core";
+import { call, kestrelProject, signInAs } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn } from "./pages/sign-in";
+import { ScenarioPage } from "./pages/scenario";
+import { createLookAheadScenario, FAKE_POINTS } from "../helpers/look-ahead-fixture";
+import { isoDaysFromToday } from "../helpers/progress-fixture";
+
+let browser: Browser;
+let scenarioId: string;
+let projectId: string;
+
+beforeAll(async () => {
+  browser = await launch();
+  const engineer = await signInAs("engineer");
+  projectId = (await kestrelProject(engineer)).id;
+  expect((await call(`/api/projects/${projectId}/location`, { method: "PUT", cookie: engineer, body: FAKE_POINTS.coldSnap })).status).toBe(200);
+  scenarioId = (await createLookAheadScenario(await signInAs("scheduler"), projectId, "E2E week ahead")).id;
+});
+afterAll(async () => {
+  await call(`/api/projects/${projectId}/location`, { method: "PUT", cookie: await signInAs("engineer"), body: FAKE_POINTS.kestrelBay });
+  await browser?.close();
+});
+
+describe("week ahead", () => {
+  it("an inspector sees tomorrow's placement blocked by a cold night and opens the reason", async () => {
+    const { context, page } = await signedIn(browser, "inspector");
+    const scenario = new ScenarioPage(page, scenarioId);
+    await scenario.open("outlook");
+    await scenario.tab("lookAhead").click();
+    await page.getByTestId("look-ahead-grid").waitFor({ timeout: 30_000 });
+    await expect.poll(() => scenario.tab("lookAhead").getAttribute("aria-current")).toBe("page");
+    expect(await page.getByTestId("forecast-source").textContent()).toContain("Cold Snap Flats");
+
+    const tomorrow = isoDaysFromToday(1);
+    const cell = page.getByTestId(`cell-${tomorrow}-day-overlay`);
+    expect(await cell.getAttribute("data-status")).toBe("no");
+    // Read at a glance: a mark and words, not colour alone.
+    expect(await cell.textContent()).toMatch(/^✗blocked.*minimum temperature from 07:00/);
+    expect(await cell.getAttribute("aria-label")).toMatch(/Overlay placement, Day shift, \w+ \d{4}-\d{2}-\d{2}: blocked — minimum temperature from 07:00/);
+
+    await cell.click();
+    const detail = page.getByTestId("cell-detail");
+    await detail.waitFor();
+    expect(await detail.getByRole("heading", { level: 3 }).textContent()).toContain(`Overlay placement, Day shift`);
+    expect(await detail.getByTestId("failing-gates").textContent()).toMatch(/Minimum temperature fails \d{2}-\d{2} 07:00–17:00/);
+    const firstHour = detail.getByTestId("hour-reasons").locator("tbody tr").first();
+    expect(await firstHour.textContent()).toMatch(/07:00.*✗ fails.*Minimum temperature: \d+ °F against a minimum of 45 °F/);
+    await screenshot(page, "week-ahead-cold-snap");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    // An inspector reads the board but does not set up the daily e-mail.
+    expect(await page.getByTestId("look-ahead-notice").count()).toBe(0);
+    await context.close();
+  });
+});
