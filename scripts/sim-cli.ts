@@ -2,30 +2,38 @@
  * Command line: `npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff]`.
  * Prints one JSON object with --json (iterations, seed, finish P10–P90 as ISO dates, per-operation P50/P80,
  * weather-lost shifts, convergence, …; with a traffic/costs section `delay: {vehicleHours: {p50, p80}}` and
- * `cost: {roadUser: {p50, p80}, contract: {p50, p80}}`), otherwise a readable summary. `--tradeoff` adds the
+ * `cost: {roadUser: {p50, p80}, contract: {p50, p80}}`, and `queueLimitBreaches: {limitMiles, p50, p80, anyShare}`:
+ * days per iteration whose longest queue exceeded `--queue-limit-miles`, default 1), otherwise a readable summary. `--tradeoff` adds the
  * holiday trade-off (same seeds, stand down vs work through). Exit codes: 0 done; 2 for a bad
  * command line, an unreadable file, invalid JSON or an invalid scenario (each problem as `path: message`).
  */
 import { readFileSync } from "node:fs";
+import { DEFAULT_QUEUE_LIMIT } from "../sim/advisor";
 import { compileScenario, holidayTradeoff, parseScenario, runIterations, summarizeRun } from "../sim/index";
+import { queueBreachCounter } from "../sim/queue-breaches";
 
 function fail(lines: string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
   process.exit(2);
 }
 
-const USAGE = "usage: npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff]";
+const USAGE = "usage: npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff] [--queue-limit-miles X]";
 const argv = process.argv.slice(2);
 let file: string | undefined;
 let iterations = 1000;
 let seed = "pourline";
 let json = false;
 let tradeoff = false;
+let queueLimitMiles = DEFAULT_QUEUE_LIMIT.miles;
 for (let i = 0; i < argv.length; i++) {
   const a = argv[i];
   if (a === "--json") json = true;
   else if (a === "--tradeoff") tradeoff = true;
-  else if (a === "--iterations" || a === "--seed") {
+  else if (a === "--queue-limit-miles") {
+    const v = argv[++i];
+    queueLimitMiles = Number(v);
+    if (v === undefined || !(queueLimitMiles > 0 && queueLimitMiles <= 100)) fail([`--queue-limit-miles must be a number of miles above 0 and at most 100 (got "${v ?? ""}")`, USAGE]);
+  } else if (a === "--iterations" || a === "--seed") {
     const v = argv[++i];
     if (v === undefined) fail([`${a} needs a value`, USAGE]);
     if (a === "--seed") seed = v;
@@ -56,7 +64,9 @@ if (!parsed.ok) fail([`scenario "${file}" is not valid:`, ...parsed.problems.map
 
 const compiled = compileScenario(parsed.scenario);
 const started = performance.now();
-const summary = summarizeRun(compiled, runIterations(compiled, seed, 0, iterations));
+const breaches = queueBreachCounter(compiled, queueLimitMiles);
+const summary = summarizeRun(compiled, runIterations(compiled, seed, 0, iterations, undefined, undefined, breaches.read));
+const queueLimitBreaches = breaches.quantiles();
 const seconds = (performance.now() - started) / 1000;
 const trade = tradeoff ? holidayTradeoff(parsed.scenario, seed, iterations) : null;
 const money = (x: number | null) => (x === null ? "n/a" : `$${Math.round(x).toLocaleString("en-US")}`);
@@ -77,6 +87,7 @@ if (json) {
         }
       : {}),
     ...(traffic ? { maxQueue: traffic.maxQueue } : {}),
+    ...(queueLimitBreaches ? { queueLimitBreaches } : {}),
     ...(trade ? { tradeoff: trade } : {}),
     operations: summary.operations.map((o) => ({ id: o.id, name: o.name, finish: o.finish })),
     stages: stages.map((st) => ({ id: st.id, name: st.name, lanes: st.lanes, finish: { p50: st.finish.p50, p80: st.finish.p80, p90: st.finish.p90 } })),
@@ -106,10 +117,14 @@ if (json) {
     ...(s.winterStandingShare > 0 ? [`A standing closure stays through a winter in ${(s.winterStandingShare * 100).toFixed(1)} % of iterations`] : []),
     `Convergence: P80 of the two halves differ by ${s.convergenceDays === null ? "n/a" : `${s.convergenceDays.toFixed(2)} days`}`,
     ...(s.delay ? [`Delay P50 ${vh(s.delay.vehicleHours.p50)}, P80 ${vh(s.delay.vehicleHours.p80)}${s.traffic?.maxQueue ? `; longest queue (representative) ${s.traffic.maxQueue.miles} mi on ${s.traffic.maxQueue.date}` : ""}`] : []),
+    ...(queueLimitBreaches ? [`Days with a queue over ${queueLimitBreaches.limitMiles} mi: P50 ${queueLimitBreaches.p50}, P80 ${queueLimitBreaches.p80} (at least one in ${(queueLimitBreaches.anyShare * 100).toFixed(1)} % of iterations)`] : []),
     ...(s.cost ? [`Cost (${s.cost.valueOfTimeYear} $): road-user P50 ${money(s.cost.roadUser?.p50 ?? null)}, P80 ${money(s.cost.roadUser?.p80 ?? null)}; contract P50 ${money(s.cost.contract?.p50 ?? null)}, P80 ${money(s.cost.contract?.p80 ?? null)}`] : []),
     ...(trade
       ? [
-          `Holiday trade-off: working through holidays finishes ${trade.daysGained.p50 ?? "n/a"} days sooner at P50 (${trade.daysGained.p80 ?? "n/a"} at P80) for ${vh(trade.extraDelayVehHours.p50)} more delay (${money(trade.extraRoadUserCost.p50)}) at P50`,
+          `Holiday trade-off: working through holidays finishes ${trade.daysGained.p50 ?? "n/a"} days sooner at P50 (${trade.daysGained.p80 ?? "n/a"} at P80) for ${vh(trade.extraDelayVehHours.p50)} more delay (${money(trade.extraRoadUserCost.p50)}) at P50` +
+            `${trade.targetProbabilityChange !== null ? `; chance of meeting the target ${Math.round((trade.standDown.targetProbability ?? 0) * 100)} % → ${Math.round((trade.workThrough.targetProbability ?? 0) * 100)} %` : ""}` +
+            `${trade.workThrough.holidayBackupMiles ? `; longest holiday backup (P50) ${trade.standDown.holidayBackupMiles?.p50 ?? 0} → ${trade.workThrough.holidayBackupMiles.p50} mi` : ""}` +
+            `${trade.extraContractCost.p50 !== null ? `; contract cost ${trade.extraContractCost.p50 >= 0 ? "+" : "−"}${money(Math.abs(trade.extraContractCost.p50))}` : ""}`,
         ]
       : []),
   ];

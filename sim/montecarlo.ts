@@ -7,7 +7,7 @@
  * With a traffic or costs section (./cost) each iteration also records its delay and costs.
  */
 import { impactModel, iterationImpact } from "./cost";
-import { simulate, type CompiledScenario } from "./engine";
+import { simulate, type CompiledScenario, type SimResult } from "./engine";
 import { drawSamples, type IterationSamples } from "./samples";
 
 export interface PartialRun {
@@ -96,6 +96,8 @@ export function runIterations(
   to: number,
   onProgress?: (done: number) => void,
   shouldStop?: () => boolean,
+  /** Optional per-iteration reader (e.g. ./queue-breaches), called right after each `simulate`, while its timeline is valid. */
+  afterIteration?: (k: number, r: SimResult) => void,
 ): PartialRun {
   const out = emptyPartial(compiled, seed, from, to);
   const nOps = out.nOps;
@@ -127,6 +129,7 @@ export function runIterations(
       out.roadUserCost[j] = im.roadUserCost;
       out.contractCost[j] = im.contractCost;
     }
+    if (afterIteration) afterIteration(k, r);
     if (onProgress) onProgress(j + 1);
   }
   return out;

@@ -11,6 +11,7 @@
 import { formatDayNumber, parseIsoDate } from "./dates";
 import { compileScenario } from "./engine";
 import { runIterations } from "./montecarlo";
+import { holidayBackupReader } from "./queue-breaches";
 import { nearestRank, sortedCopy } from "./percentiles";
 import type { Scenario } from "./schema";
 
@@ -36,6 +37,8 @@ export interface PolicyOutcome {
   targetProbability: number | null;
   /** Contract cost percentiles ($); null without a costs section. */
   contractCost: { p50: number | null; p80: number | null };
+  /** Longest queue on holiday-peak days, miles, P50/P80 over iterations of each one's longest (null without traffic). */
+  holidayBackupMiles: { p50: number; p80: number } | null;
 }
 
 export interface HolidayTradeoff {
@@ -57,7 +60,8 @@ export interface HolidayTradeoff {
 
 function outcome(s: Scenario, policy: HolidayPolicy, seed: string, iterations: number): { out: PolicyOutcome; finishDay: { p50: number; p80: number } } {
   const compiled = compileScenario(withHolidayPolicy(s, policy));
-  const run = runIterations(compiled, seed, 0, iterations);
+  const backups = holidayBackupReader(compiled);
+  const run = runIterations(compiled, seed, 0, iterations, undefined, undefined, backups.read);
   const day0 = compiled.calendar.startDay;
   const fin = sortedCopy(run.finish);
   const delay = sortedCopy(run.delayVehHours);
@@ -81,6 +85,7 @@ function outcome(s: Scenario, policy: HolidayPolicy, seed: string, iterations: n
       roadUserCost: { p50: val(nearestRank(ruc, 0.5), 0), p80: val(nearestRank(ruc, 0.8), 0) },
       targetProbability,
       contractCost: { p50: money(nearestRank(contract, 0.5)), p80: money(nearestRank(contract, 0.8)) },
+      holidayBackupMiles: backups.quantiles(),
     },
     finishDay: { p50: day(f50), p80: day(f80) },
   };

@@ -60,3 +60,8 @@ export const closureSubscriberSchema = z.object({
   email: z.email("must be an e-mail address").max(200),
   label: line(120).default(""),
 });
+
+/** Publishing closures: the run the user previewed (optional for scripts; when given, a newer run is refused). */
+export const closurePublicationSchema = z.object({
+  runId: z.uuid("must be the id of the previewed run").optional(),
+});

@@ -251,7 +251,9 @@ export const API_ROWS: Record<string, ApiRow> = {
       return { params: { linkId: link.id }, survives: async () => (await call(`/api/shared/${link.token}`)).status === 200 };
     },
   },
-  "GET /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  // The list of publications and, with ?preview=1, what publishing would send (sends nothing): one handler and
+  // one permission check, exercised here on the preview (it also reads the run publishing would name).
+  "GET /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w), query: "preview=1" }) },
   "POST /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 201, request: async (w) => ({ params: scen(w) }) },
   // The token in the path is the only credential: a share link opens the shared view, a calendar-feed token only the feed.
   "GET /api/shared/[token]": { need: { kind: "token", scopes: ["share"] }, ok: 200, request: async (w, c) => ({ params: { token: tokenOf(w, c) ?? unknownToken() } }) },

@@ -103,3 +103,11 @@ describe("the public shared page", () => {
     expect(res.status, `as ${caller}`).toBe(caller === "shareLink" ? 200 : 404);
   });
 });
+
+describe("the public travel advisory", () => {
+  it.each(CALLERS)("/advisory/<token> as %s: a closure publication's token opens it, nothing else does", async (caller) => {
+    const token = tokenOf(w, caller);
+    const res = await call(`/advisory/${token ?? unknownToken()}`, { cookie: isRole(caller) ? w.cookies[caller] : null });
+    expect(res.status, `as ${caller}`).toBe(caller === "feedToken" ? 200 : 404);
+  });
+});

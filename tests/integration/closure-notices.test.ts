@@ -54,7 +54,8 @@ describe("closure notices", () => {
     const preview = await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer });
     expect(preview.status).toBe(200);
     expect(preview.body.preview.to).toContain(subscriber);
-    const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer });
+    // Publishing names the previewed run, as the Share page's confirmation does.
+    const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer, body: { runId: preview.body.preview.runId } });
     expect(res.status).toBe(201);
     expect(res.body.closureCount).toBeGreaterThan(0);
     expect(res.body.notified).toBeGreaterThanOrEqual(1);
@@ -63,7 +64,10 @@ describe("closure notices", () => {
     expect(mail.text).toContain("closed)");
     expect(mail.subject).toBe(preview.body.preview.subject);
     expect(preview.body.preview.closureCount).toBe(res.body.closureCount);
-    expect(mail.text).toBe(preview.body.preview.text.replace("(a new calendar link, created when you publish)", res.body.feedUrl));
+    expect(preview.body.preview.runId).toMatch(/^[0-9a-f-]{36}$/);
+    expect(mail.text).toBe(
+      preview.body.preview.text.replace("(a new calendar link, created when you publish)", res.body.feedUrl).replace("(a new travel advisory link, created when you publish)", res.body.advisoryUrl),
+    );
     const feedPath = new URL(res.body.feedUrl).pathname;
     expect(mail.text).toContain(feedPath);
 

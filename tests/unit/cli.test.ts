@@ -34,12 +34,15 @@ describe("sim CLI", { timeout: 60_000 }, () => {
     }
     expect(out.delay.vehicleHours.p50).toBeGreaterThan(0);
     expect(out.cost.valueOfTimeYear).toBe(2015);
+    // Days whose longest queue broke the (default 1-mile) limit, P50/P80 over iterations.
+    expect(out.queueLimitBreaches.limitMiles).toBe(1);
+    expect(out.queueLimitBreaches.p80).toBeGreaterThanOrEqual(out.queueLimitBreaches.p50);
     expect(out.tradeoff.iterations).toBe(6);
     expect(out.tradeoff.standDown.policy).toBe("standDown");
     expect(typeof out.tradeoff.daysGained.p50).toBe("number");
     // The small deck has no traffic or costs section: no such keys.
     const plain = JSON.parse(cli("scenarios/small-deterministic.json", "--iterations", "2", "--json").stdout);
-    expect("delay" in plain || "cost" in plain).toBe(false);
+    expect("delay" in plain || "cost" in plain || "queueLimitBreaches" in plain).toBe(false);
   });
 
   it("prints a readable summary without --json", () => {

@@ -7,7 +7,7 @@ import { readFileSync } from "node:fs";
 import ICAL from "ical.js";
 import Papa from "papaparse";
 import { parseScenario, runScenario } from "../../sim/index";
-import { localToUtc, plannedClosures, closureLocalTimes } from "../../src/lib/exports/closures";
+import { closureLocalTimes, hoursSince, localToUtc, plannedClosures } from "../../src/lib/exports/closures";
 import { closuresToIcs } from "../../src/lib/exports/ical";
 import { percentilesCsv, traceCsv } from "../../src/lib/exports/results-csv";
 
@@ -27,10 +27,37 @@ describe("localToUtc", () => {
   });
 });
 
-describe("planned closures", () => {
+/** An event's UTC instant back to local wall-clock time in the calendar's zone, `YYYY-MM-DDTHH:mm`. */
+function localOf(d: Date, timeZone: string): string {
+  const parts = new Intl.DateTimeFormat("en-US", { timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit" }).formatToParts(d);
+  const g = (t: string) => parts.find((p) => p.type === t)!.value;
+  return `${g("year")}-${g("month")}-${g("day")}T${g("hour")}:${g("minute")}`;
+}
+
+/** The ICS parsed with ical.js: each event's closure id (second category) and local start/end. */
+function parsedEvents(text: string, timeZone: string) {
+  const cal = new ICAL.Component(ICAL.parse(text));
+  return cal.getAllSubcomponents("vevent").map((v) => {
+    const e = new ICAL.Event(v);
+    const categories = v.getFirstProperty("categories")!.getValues() as string[];
+    return { uid: e.uid, summary: e.summary, closure: categories[1], start: localOf(e.startDate.toJSDate(), timeZone), end: localOf(e.endDate.toJSDate(), timeZone) };
+  });
+}
+
+/** Per closure id, which quarter hours (since startDate) it stands in, from [start, end) local ISO intervals. */
+function quarterHours(startDate: string, periods: { closure: string; start: string; end: string }[]) {
+  const out = new Map<string, Set<number>>();
+  for (const p of periods) {
+    const set = out.get(p.closure) ?? out.set(p.closure, new Set()).get(p.closure)!;
+    for (let q = Math.round(4 * hoursSince(startDate, p.start)); q < Math.round(4 * hoursSince(startDate, p.end)); q++) set.add(q);
+  }
+  return out;
+}
+
+describe("planned closures come from the closure timeline", () => {
   const small = load("small-deterministic.json");
   const summary = runScenario(small, { iterations: 3, seed: "x" });
-  const closures = plannedClosures(summary, small);
+  const closures = plannedClosures(summary)!;
 
   it("are the representative closure timeline, period for period, in time order", () => {
     // The small deck works one 07:00–17:00 weekday window (fixed weather, no set-up time): each closure
@@ -67,7 +94,7 @@ describe("planned closures", () => {
   it("a staged plan exports each stage's round-the-clock closure beside its night closures", () => {
     const staged = load("kestrel-staged-three-lane.json");
     const s = runScenario(staged, { iterations: 5, seed: "stages" });
-    const cl = plannedClosures(s, staged);
+    const cl = plannedClosures(s)!;
     const standing = cl.filter((c) => c.kind === "standing");
     expect(standing.map((c) => c.closureId).sort()).toEqual(["stage:stage-1", "stage:stage-2"]);
     expect(standing.find((c) => c.closureId === "stage:stage-1")!.lanes).toEqual(["L1"]);
@@ -75,39 +102,57 @@ describe("planned closures", () => {
     expect(Math.max(...standing.map((c) => c.end - c.start))).toBeGreaterThan(24);
     const text = closuresToIcs({ closures: cl, startDate: staged.startDate, timeZone: staged.timeZone, structure: "Kestrel Bay Causeway", scenario: staged.name, uidSeed: "s" });
     const titles = new ICAL.Component(ICAL.parse(text)).getAllSubcomponents("vevent").map((v) => new ICAL.Event(v).summary);
-    expect(titles.some((t) => t.endsWith("— L1 closed round the clock"))).toBe(true);
-    expect(titles.some((t) => t.endsWith("Night closure of L2 (mixer trucks) — L2 closed"))).toBe(true);
+    expect(titles.some((t) => t.endsWith(": L1 closed round the clock"))).toBe(true);
+    expect(titles.some((t) => t.endsWith("Night closure of L2 (mixer trucks) (L2 closed)"))).toBe(true);
   });
 
-  it("a run stored before the closure timeline falls back to the crews' working time", () => {
-    const old = { ...summary, representative: { ...summary.representative, closureTimeline: undefined } } as unknown as typeof summary;
-    const cl = plannedClosures(old, small);
-    expect(cl.length).toBeGreaterThan(0);
-    expect(cl.every((c) => c.kind === "short" && c.closureId === small.calendar.closures[0].id)).toBe(true);
+  it("a run stored before the timeline existed yields null (run it again), not an empty plan", () => {
+    const old = { ...summary, representative: { ...summary.representative, closureTimeline: undefined as never } };
+    expect(plannedClosures(old)).toBeNull();
   });
 
   it("parse as iCalendar with one event per closure, with its lanes and times", () => {
     const text = closuresToIcs({ closures, startDate: small.startDate, timeZone: small.timeZone, structure: "Test Deck", scenario: small.name, uidSeed: "t" });
-    const cal = new ICAL.Component(ICAL.parse(text));
-    const events = cal.getAllSubcomponents("vevent").map((v) => new ICAL.Event(v));
+    const events = parsedEvents(text, small.timeZone);
     expect(events).toHaveLength(closures.length);
-    const first = events[0];
-    expect(first.summary).toContain("L1 closed");
-    const expected = localToUtc(closureLocalTimes(closures[0], small.startDate).start, small.timeZone);
-    expect(first.startDate.toJSDate().toISOString()).toBe(expected.toISOString());
+    expect(events[0].summary).toContain("L1 closed");
+    expect(events[0].start).toBe(summary.representative.closureTimeline[0].start);
     expect(new Set(events.map((e) => e.uid)).size).toBe(events.length);
   });
 
-  it("the main demo exports its night and day closures", () => {
-    const demo = load("kestrel-two-season.json");
-    const s = runScenario(demo, { iterations: 20, seed: "ics" });
-    const cl = plannedClosures(s, demo);
-    const ids = new Set(cl.map((c) => c.closureId));
-    expect(ids.size).toBeGreaterThanOrEqual(2);
-    const text = closuresToIcs({ closures: cl, startDate: demo.startDate, timeZone: demo.timeZone, structure: "Kestrel Bay Causeway", scenario: demo.name, uidSeed: "k" });
-    const events = new ICAL.Component(ICAL.parse(text)).getAllSubcomponents("vevent");
-    expect(events.length).toBe(cl.length);
-  });
+  // The calendar and the delay model must agree: the delay is computed from the closure timeline, so the
+  // calendar, parsed back, must stand exactly when the timeline does, every quarter hour, closure by closure.
+  for (const file of ["kestrel-two-season.json", "kestrel-staged-three-lane.json"]) {
+    it(`${file}: the calendar agrees with the closure timeline hour by hour, and no event outlasts its period`, () => {
+      const demo = load(file);
+      const s = runScenario(demo, { iterations: 12, seed: "ics" });
+      const cl = plannedClosures(s)!;
+      const timeline = s.representative.closureTimeline;
+      expect(cl).toHaveLength(timeline.length);
+      const text = closuresToIcs({ closures: cl, startDate: demo.startDate, timeZone: demo.timeZone, structure: "Kestrel Bay Causeway", scenario: demo.name, uidSeed: "k" });
+      const events = parsedEvents(text, demo.timeZone);
+      expect(events).toHaveLength(timeline.length);
+
+      const fromCalendar = quarterHours(demo.startDate, events);
+      const fromTimeline = quarterHours(demo.startDate, timeline);
+      expect([...fromCalendar.keys()].sort()).toEqual([...fromTimeline.keys()].sort());
+      for (const [id, qs] of fromTimeline) expect(fromCalendar.get(id)).toEqual(qs);
+
+      // Each short-term event lasts no longer than its closure's longest window (a night closure is one night:
+      // set-up and take-down happen inside the window), and no event is longer than its timeline period.
+      const windowHours = (id: string) =>
+        Math.max(...demo.calendar.closureWindows.filter((w) => w.closure === id).map((w) => (w.endHour > w.startHour ? w.endHour - w.startHour : 24 - w.startHour + w.endHour)));
+      const byStart = new Map(timeline.map((p) => [`${p.closure}|${p.start}`, p]));
+      for (const e of events) {
+        const p = byStart.get(`${e.closure}|${e.start}`)!;
+        expect(p, `event ${e.closure} at ${e.start} has a timeline period`).toBeDefined();
+        expect(e.end).toBe(p.end);
+        const hours = hoursSince(demo.startDate, e.end) - hoursSince(demo.startDate, e.start);
+        if (p.kind === "short") expect(hours).toBeLessThanOrEqual(windowHours(e.closure));
+      }
+      if (file === "kestrel-staged-three-lane.json") expect(events.some((e) => e.closure.startsWith("stage:"))).toBe(true);
+    });
+  }
 });
 
 describe("results CSV", () => {

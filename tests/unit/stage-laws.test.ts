@@ -3,6 +3,7 @@
  * "Closures that stand" and "Traffic"; plus worked checks of the long-term capacities and of a D/D/1 queue
  * under a standing closure with a short-term closure stacked on it.
  */
+import { readFileSync } from "node:fs";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { compileScenario, simulate, type CompiledScenario } from "../../sim/engine";
@@ -254,7 +255,9 @@ describe("laws of stages and the closure timeline", () => {
       "small-deterministic.json": { p50: "2027-04-07T09:00", p90: "2027-04-07T09:00", delayP50: null },
     };
     for (const [file, want] of Object.entries(golden)) {
-      const s = tryParse(loadScenario(file))!;
+      // The Kestrel demos' closure hours were later reworked with the closure-hours advisor; the golden values
+      // belong to the demos as they were, kept in tests/fixtures/before-closure-advice/.
+      const s = tryParse(file.startsWith("kestrel-") ? JSON.parse(readFileSync(new URL(`../fixtures/before-closure-advice/${file}`, import.meta.url), "utf8")) : loadScenario(file))!;
       expect(s.stages).toEqual([{ id: "whole-deck", name: "Whole deck", lanes: s.deck.lanes, standingLanesClosed: [] }]);
       const sum = runScenario(s, { iterations: 60, seed: "single-pass" });
       expect([file, sum.finishAt.p50, sum.finishAt.p90]).toEqual([file, want.p50, want.p90]);

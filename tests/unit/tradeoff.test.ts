@@ -1,5 +1,6 @@
 /** The holiday trade-off (sim/tradeoff.ts): same seeds, policy flipped. */
 import { tradeoffSentence } from "../../src/components/results/tradeoff-panel";
+import { tradeoffRows } from "../../src/components/results/tradeoff-table";
 import { describe, expect, it } from "vitest";
 import { holidayTradeoff, parseScenario, runScenario, withHolidayPolicy } from "../../sim/index";
 import type { ScenarioInput } from "../../sim/schema";
@@ -83,5 +84,34 @@ describe("holiday trade-off", () => {
     const text = tradeoffSentence({ ...t, standDown: { ...t.standDown, targetProbability: 0.48 }, workThrough: { ...t.workThrough, targetProbability: 0.61 }, extraContractCost: { p50: 41000, p80: 45000 } });
     expect(text).toContain("The chance of meeting the 30 Jun 2028 target rises from 48 % to 61 %.");
     expect(text).toContain("The contract costs $41,000 more at P50.");
+  });
+
+  it("the results table says it all in one place, the longest holiday backup among it", () => {
+    const demo = parsed(loadScenario("kestrel-two-season.json"));
+    const t = holidayTradeoff(demo, "same", 12);
+    const stand = runScenario(withHolidayPolicy(demo, "standDown"), { iterations: 12, seed: "same" });
+    const rows = tradeoffRows(t);
+    expect(rows.map((r) => r.label)).toEqual([
+      "Finish (P50 / P80)",
+      "Chance of meeting the target",
+      "Delay to drivers, vehicle-hours (P50 / P80)",
+      "Longest holiday backup (P50 / P80)",
+      "Road-user cost (P50 / P80)",
+      "Contract cost (P50 / P80)",
+    ]);
+    expect(rows[1].standDown).toBe(`${(stand.target!.probability * 100).toFixed(0)} %`);
+    expect(rows[0].change).toBe(`${t.daysGained.p50} / ${t.daysGained.p80} days sooner`);
+  });
+
+  it("the longest holiday backup is the longest queue on a holiday-peak day, iteration by iteration", () => {
+    // One iteration: its longest holiday-peak queue is at least the longest queue of Memorial Day 2027's peak
+    // days (Mon 31 May; the peak days are Fri 28 – Mon 31) and at most the longest of any day.
+    const demo = parsed(loadScenario("kestrel-two-season.json"));
+    const t = holidayTradeoff(demo, "hol", 1);
+    const stand = runScenario(withHolidayPolicy(demo, "standDown"), { iterations: 1, seed: "hol" });
+    const memorial = stand.traffic!.days.filter((d) => d.date >= "2027-05-28" && d.date <= "2027-05-31").map((d) => d.peakQueueMiles);
+    expect(t.standDown.holidayBackupMiles!.p50).toBeGreaterThanOrEqual(Math.max(0, ...memorial) - 0.01);
+    const allDays = Math.max(...stand.traffic!.days.map((d) => d.peakQueueMiles));
+    expect(t.standDown.holidayBackupMiles!.p50).toBeLessThanOrEqual(allDays + 0.01);
   });
 });

@@ -8,6 +8,7 @@
 import { useFormContext, useWatch } from "react-hook-form";
 import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { ScenarioInput } from "@sim/schema";
+import { ClosureHoursAdvisor } from "./closure-hours-advisor";
 import { CheckboxField, n, NumberField, SelectField, TextField } from "./fields";
 
 const KINDS = [
@@ -127,6 +128,8 @@ export function TrafficSection({ readOnly }: { readOnly: boolean }) {
           </table>
         </section>
       )}
+
+      {traffic && <ClosureHoursAdvisor />}
 
       <section className="card" aria-labelledby="costs-heading">
         <div className="flex flex-wrap items-center justify-between gap-2">

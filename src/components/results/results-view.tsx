@@ -11,6 +11,7 @@ import { parseScenario } from "@sim/validate";
 import type { RunSummary } from "@sim/summary";
 import { ConfidencePanel } from "./confidence-panel";
 import { DelayPanel } from "./delay-panel";
+import { QueueBreachDays } from "./queue-breach-days";
 import { FinishHistogram } from "./finish-histogram";
 import { OperationsTable } from "./operations-table";
 import { StatCards } from "./stat-cards";
@@ -131,6 +132,7 @@ export function ResultsView({ summary, definition, run, document = false }: { su
         description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, lane-closed hours and the longest queue of each day."
       >
         <DelayPanel summary={summary} />
+        <QueueBreachDays summary={summary} />
       </Section>
 
       {plan && !document && (

@@ -12,6 +12,7 @@ import type { HolidayTradeoff } from "@sim/tradeoff";
 import type { EngineApi } from "@workers/engine-api";
 import { formatIsoDate } from "@/lib/format";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
+import { TradeoffTable } from "./tradeoff-table";
 
 /** Two full runs in one worker: capped so the answer comes in seconds. */
 export const MAX_TRADEOFF_ITERATIONS = 1000;
@@ -106,6 +107,7 @@ export function TradeoffPanel({ definition, seed, iterations }: { definition: un
           </p>
         )}
       </div>
+      {state.phase === "done" && <TradeoffTable t={state.result} />}
       {state.phase === "done" && state.result.hasTraffic && <TradeoffChart t={state.result} />}
     </div>
   );

@@ -1,10 +1,9 @@
 /**
- * The planned lane closures of a scenario: the representative iteration's closure timeline
- * (RunSummary.representative.closureTimeline, MODEL.md "Closures that stand") — each period of a stage's
- * standing closure and of each short-term closure, set-up and take-down included — in time order. That is the
- * plan the public is told about; later iterations may differ. Runs stored before the timeline existed fall back
- * to the trace: for each closure, the union of the time its crews work or mobilize (packet spans minus their
- * pauses), merged where the gap is under half an hour.
+ * The planned lane closures of a run, read off the closure timeline of its representative iteration
+ * (MODEL.md, "Closures that stand"): one entry per period the timeline lists — a short-term closure stands
+ * once per window interval its crews use (a night closure is that night, set-up and take-down included), a
+ * stage's standing closure is one long period. Nothing is merged or stretched: what the delay model counts is
+ * what the public is told. Later iterations may differ; the representative is the plan.
  */
 import type { RunSummary } from "@sim/index";
 import { formatHours, parseIsoDate } from "@sim/dates";
@@ -12,87 +11,30 @@ import { formatHours, parseIsoDate } from "@sim/dates";
 export interface PlannedClosure {
   closureId: string;
   name: string;
+  kind: "short" | "standing";
   lanes: string[];
-  /** "standing": a stage's lanes behind barrier, round the clock; "short": while a crew works. */
-  kind: "standing" | "short";
-  /** Hours since 00:00 of the scenario's start date, local time. */
+  /** Hours since 00:00 of the scenario's start date, local time (every day 24 h, as in the engine). */
   start: number;
   end: number;
 }
 
-interface DefinitionLike {
-  startDate: string;
-  calendar: { closures: { id: string; name: string; lanesClosed: string[] }[] };
-  operations: { id: string; kind: string; closure?: string }[];
+/** `YYYY-MM-DDTHH:mm` (local) → hours since 00:00 of `startDate`. */
+export function hoursSince(startDate: string, localIso: string): number {
+  const days = parseIsoDate(localIso.slice(0, 10)) - parseIsoDate(startDate);
+  return 24 * days + Number(localIso.slice(11, 13)) + Number(localIso.slice(14, 16)) / 60;
 }
 
-const MERGE_GAP_HOURS = 0.5;
-
-function subtract(span: [number, number], holes: [number, number][]): [number, number][] {
-  let parts: [number, number][] = [span];
-  for (const [hs, he] of holes) {
-    const next: [number, number][] = [];
-    for (const [s, e] of parts) {
-      if (he <= s || hs >= e) next.push([s, e]);
-      else {
-        if (hs > s) next.push([s, hs]);
-        if (he < e) next.push([he, e]);
-      }
-    }
-    parts = next;
-  }
-  return parts;
-}
-
-/** Local `YYYY-MM-DDTHH:mm` → hours since 00:00 of `day0` (a day number). */
-function hoursOf(iso: string, day0: number): number {
-  const t = /T(\d{2}):(\d{2})/.exec(iso);
-  return (parseIsoDate(iso.slice(0, 10)) - day0) * 24 + (t ? Number(t[1]) + Number(t[2]) / 60 : 0);
-}
-
-export function plannedClosures(summary: RunSummary, definition: DefinitionLike): PlannedClosure[] {
+/**
+ * The closures of the run, chronological (ties in timeline order), or null when the stored run predates the
+ * closure timeline (it must be run again before anything is published from it).
+ */
+export function plannedClosures(summary: Pick<RunSummary, "startDate" | "representative">): PlannedClosure[] | null {
   const timeline = summary.representative.closureTimeline;
-  if (timeline) {
-    const day0 = parseIsoDate(definition.startDate);
-    return timeline
-      .map((p) => ({ closureId: p.closure, name: p.name, lanes: p.lanes, kind: p.kind, start: hoursOf(p.start, day0), end: hoursOf(p.end, day0) }))
-      .filter((c) => c.end > c.start)
-      .sort((a, b) => a.start - b.start || a.closureId.localeCompare(b.closureId));
-  }
-  return crewClosures(summary, definition);
-}
-
-/** Runs stored before the closure timeline: closures read off the crews' working time. */
-function crewClosures(summary: RunSummary, definition: DefinitionLike): PlannedClosure[] {
-  const closureOfOp = new Map(definition.operations.filter((o) => o.kind === "crew" && o.closure).map((o) => [o.id, o.closure!]));
-  const pausesBy = new Map<string, [number, number][]>();
-  for (const p of summary.representative.trace.pauses) {
-    const key = `${p.op}|${p.packet}|${p.crew}`;
-    (pausesBy.get(key) ?? pausesBy.set(key, []).get(key)!).push([p.start, p.end]);
-  }
-  const spans = new Map<string, [number, number][]>();
-  for (const t of summary.representative.trace.packets) {
-    const closure = closureOfOp.get(t.op);
-    if (!closure) continue;
-    const from = t.mobilizedFrom ?? t.start;
-    if (!(t.finish > from)) continue;
-    const list = spans.get(closure) ?? spans.set(closure, []).get(closure)!;
-    list.push(...subtract([from, t.finish], pausesBy.get(`${t.op}|${t.packet}|${t.crew}`) ?? []));
-  }
-  const out: PlannedClosure[] = [];
-  for (const c of definition.calendar.closures) {
-    const list = (spans.get(c.id) ?? []).sort((a, b) => a[0] - b[0]);
-    let cur: [number, number] | null = null;
-    for (const [s, e] of list) {
-      if (cur && s <= cur[1] + MERGE_GAP_HOURS) cur[1] = Math.max(cur[1], e);
-      else {
-        if (cur) out.push({ closureId: c.id, name: c.name, lanes: c.lanesClosed, kind: "short", start: cur[0], end: cur[1] });
-        cur = [s, e];
-      }
-    }
-    if (cur) out.push({ closureId: c.id, name: c.name, lanes: c.lanesClosed, kind: "short", start: cur[0], end: cur[1] });
-  }
-  return out.sort((a, b) => a.start - b.start || a.closureId.localeCompare(b.closureId));
+  if (!Array.isArray(timeline)) return null;
+  return timeline
+    .map((p) => ({ closureId: p.closure, name: p.name, kind: p.kind, lanes: p.lanes, start: hoursSince(summary.startDate, p.start), end: hoursSince(summary.startDate, p.end) }))
+    .filter((c) => c.end > c.start && c.lanes.length > 0)
+    .sort((a, b) => a.start - b.start);
 }
 
 /** Local wall-clock time → the UTC instant, for a named time zone (DST-correct through Intl). */
@@ -114,4 +56,9 @@ export function localToUtc(localIso: string, timeZone: string): Date {
 export function closureLocalTimes(c: PlannedClosure, startDate: string) {
   const day0 = parseIsoDate(startDate);
   return { start: formatHours(day0, c.start), end: formatHours(day0, c.end) };
+}
+
+/** "Night two-lane closure (L2, L3 closed)" or, for a stage, "… (L1 behind barrier, round the clock)". */
+export function closureLabel(c: Pick<PlannedClosure, "name" | "kind" | "lanes">): string {
+  return c.kind === "standing" ? `${c.name}: ${c.lanes.join(", ")} closed round the clock` : `${c.name} (${c.lanes.join(", ")} closed)`;
 }

@@ -14,12 +14,19 @@ export async function latestSummaryOf(scenario: ScenarioDetail): Promise<RunSumm
   return run.results as unknown as RunSummary;
 }
 
+/** The run's closure timeline as closures, or 409 for a run stored before the engine kept one. */
+export function closuresOfRun(summary: RunSummary) {
+  const closures = plannedClosures(summary);
+  if (!closures) throw new AppError("conflict", "This run was stored before closures were recorded hour by hour. Run the scenario again.");
+  return closures;
+}
+
 export async function closuresCalendar(scenario: ScenarioDetail): Promise<string> {
   const definition = validateDefinition(scenario.definition);
   const summary = await latestSummaryOf(scenario);
   const project = await getProject({ id: scenario.projectId });
   return closuresToIcs({
-    closures: plannedClosures(summary, definition),
+    closures: closuresOfRun(summary),
     startDate: definition.startDate,
     timeZone: definition.timeZone,
     structure: project?.structureName ?? definition.name,

@@ -23,7 +23,9 @@ interface Publication {
   publishedByName: string;
 }
 
+/** What publishing the latest run would send; publishing names `runId`, so a newer run is refused, not sent unseen. */
 interface NoticePreview {
+  runId: string;
   closureCount: number;
   to: string[];
   subject: string;
@@ -60,11 +62,14 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
   });
   const remove = useMutation({ mutationFn: (id: string) => api(`/api/projects/${projectId}/closure-subscribers/${id}`, { method: "DELETE" }), onSuccess: () => qc.invalidateQueries({ queryKey: subsKey }) });
   const publish = useMutation({
-    mutationFn: () => api<{ closureCount: number; notified: number; feedUrl: string }>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST" }),
+    mutationFn: (runId: string) =>
+      api<{ closureCount: number; notified: number; feedUrl: string; advisoryUrl: string }>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", body: { runId } }),
     onSuccess: () => {
       setConfirming(false);
       return qc.invalidateQueries({ queryKey: pubsKey });
     },
+    // Run again since the preview (409): show the new notice in the same dialog, with the refusal above it.
+    onError: () => void preview.refetch(),
   });
   const emailProblem = form.formState.errors.email?.message;
   const labelProblem = form.formState.errors.label?.message;
@@ -149,10 +154,10 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
               title="Publish the planned closures?"
               confirmLabel={preview.data ? `Publish and send ${preview.data.to.length} notice${preview.data.to.length === 1 ? "" : "s"}` : "Publish"}
               busyLabel="Publishing…"
-              busy={publish.isPending || preview.isPending}
+              busy={publish.isPending || preview.isFetching}
               error={preview.isError ? preview.error.message : publish.isError ? publish.error.message : null}
               onCancel={() => setConfirming(false)}
-              onConfirm={() => !preview.isError && publish.mutate()}
+              onConfirm={() => preview.data && publish.mutate(preview.data.runId)}
               testId="publish-dialog"
             >
               {preview.isPending ? (
@@ -160,7 +165,7 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
               ) : preview.data ? (
                 <>
                   <p>
-                    {preview.data.closureCount} planned closure{preview.data.closureCount === 1 ? "" : "s"} from the latest run, with a new calendar feed.{" "}
+                    {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} from the latest run go into a new public calendar feed and travel advisory.{" "}
                     {preview.data.to.length === 0 ? "Nobody is on the list, so no e-mail is sent." : "This e-mail goes to people outside Pourline and cannot be called back:"}
                   </p>
                   {preview.data.to.length > 0 && (
@@ -171,7 +176,12 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
                       <dd>{preview.data.subject}</dd>
                     </dl>
                   )}
-                  <pre className="max-h-64 overflow-auto whitespace-pre-wrap rounded-md border border-line bg-paper p-3 font-sans text-xs" data-testid="publish-dialog-text">
+                  <pre
+                    tabIndex={0}
+                    aria-label="The notice as it will be sent"
+                    className="max-h-64 overflow-auto whitespace-pre-wrap rounded-md border border-line bg-paper p-3 font-sans text-xs"
+                    data-testid="publish-dialog-text"
+                  >
                     {preview.data.text}
                   </pre>
                 </>
@@ -183,6 +193,10 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
               Published {publish.data.closureCount} closures; {publish.data.notified} notice{publish.data.notified === 1 ? "" : "s"} queued. Calendar feed:{" "}
               <a className="break-all text-brand-700 underline" href={publish.data.feedUrl}>
                 {publish.data.feedUrl}
+              </a>
+              . Travel advisory:{" "}
+              <a className="break-all text-brand-700 underline" href={publish.data.advisoryUrl} data-testid="advisory-link">
+                {publish.data.advisoryUrl}
               </a>
             </p>
           )}

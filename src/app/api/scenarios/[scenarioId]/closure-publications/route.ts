@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
-import { handler } from "@/lib/server/errors";
+import { handler, readJson } from "@/lib/server/errors";
+import { closurePublicationSchema } from "@/lib/schemas";
 import { requireScenario } from "@/lib/server/access";
 import { previewClosurePlan, publishClosurePlan } from "@/lib/server/closure-notices";
 import { appBaseUrl } from "@/lib/server/mail/links";
@@ -15,9 +16,14 @@ export const GET = handler(async (req: Request, ctx: Ctx) => {
   return NextResponse.json({ publications: await listClosurePublications({ scenarioId }) });
 });
 
-/** Publishes the planned closures of the latest (current) run and notifies the project's subscribers. */
+/**
+ * Publishes the planned closures of the latest (current) run and notifies the project's subscribers. The body
+ * may name the previewed run (`{runId}`); no body publishes the latest run as it is.
+ */
 export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario, user } = await requireScenario(scenarioId, "shareScenario");
-  return NextResponse.json(await publishClosurePlan({ scenario, userId: user.id, baseUrl: appBaseUrl(req) }), { status: 201 });
+  // Scripts may publish with no body at all; a JSON body goes through the one reader like every route's.
+  const body = req.headers.get("content-type")?.includes("application/json") ? await readJson(req, closurePublicationSchema, { maxBytes: 2_048 }) : {};
+  return NextResponse.json(await publishClosurePlan({ scenario, userId: user.id, baseUrl: appBaseUrl(req), runId: body.runId }), { status: 201 });
 });

@@ -1,0 +1,90 @@
+/**
+ * The traffic engineer and the public, in Debian's Chromium: the plan editor's closure-hours advisor warns
+ * about a window that backs traffic up past the limit; publishing closures shows what will be sent and asks
+ * first; the public travel advisory opens with no session, reads by keyboard and has no serious axe finding.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser } from "playwright-core";
+import { APP_URL, call, kestrelProject, signInAs } from "../helpers/app";
+import { serverRunDone } from "../helpers/jobs";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn } from "./pages/sign-in";
+import { ScenarioPage } from "./pages/scenario";
+
+let browser: Browser;
+let scenarioId: string;
+
+beforeAll(async () => {
+  browser = await launch();
+  const cookie = await signInAs("engineer");
+  const projectId = (await kestrelProject(cookie)).id;
+  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
+  const main = list.body.scenarios.find((s: { name: string }) => /two seasons$/i.test(s.name)) ?? list.body.scenarios[0];
+  const variant = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: "E2E advisory" } });
+  expect(variant.status).toBe(201);
+  scenarioId = variant.body.id;
+  expect((await serverRunDone(scenarioId, cookie, { seed: "e2e-advisory", iterations: 20 })).status).toBe("completed");
+}, 120_000);
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("closure hours, publishing and the public advisory", { timeout: 180_000 }, () => {
+  let advisoryUrl = "";
+
+  it("the Traffic section shows when each closure may stand and warns about holiday-weekend days", async () => {
+    const { context, page } = await signedIn(browser, "engineer");
+    const scenario = new ScenarioPage(page, scenarioId);
+    await scenario.open("plan");
+    await scenario.openPlanSection("traffic");
+    const advisor = page.getByTestId("closure-advisor");
+    await advisor.waitFor();
+    // The demo's day window meets holiday traffic on getaway days: the queue passes the 1-mile default.
+    await expect.poll(async () => (await page.getByTestId("closure-advisor-warnings").textContent()) ?? "").toContain("holiday-weekend days");
+    await screenshot(page, "plan-closure-advisor");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await context.close();
+  });
+
+  it("publishing shows the notice and its recipients first, and sends only on confirmation", async () => {
+    const { context, page } = await signedIn(browser, "engineer");
+    await new ScenarioPage(page, scenarioId).open("share");
+    await page.getByTestId("publish-closures").click();
+    const dialog = page.getByTestId("publish-dialog");
+    await dialog.waitFor();
+    await page.getByTestId("publish-dialog-text").waitFor();
+    expect(await page.getByTestId("publish-dialog-text").textContent()).toContain("closed");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "publish-preview");
+    // Cancel sends nothing: no publication is recorded.
+    await page.getByRole("button", { name: /Cancel/ }).click();
+    const none = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: await signInAs("engineer") });
+    expect(none.body.publications).toHaveLength(0);
+    await page.getByTestId("publish-closures").click();
+    await page.getByTestId("publish-dialog-confirm").click();
+    const link = page.getByTestId("advisory-link");
+    await link.waitFor();
+    advisoryUrl = (await link.getAttribute("href")) ?? "";
+    expect(advisoryUrl).toContain("/advisory/");
+    await context.close();
+  });
+
+  it("the advisory opens without signing in, reads by keyboard and has no serious axe finding", async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    const res = await page.goto(new URL(new URL(advisoryUrl).pathname, APP_URL).toString());
+    expect(res?.status()).toBe(200);
+    await page.getByTestId("advisory-title").waitFor();
+    expect(await page.getByText("do not use your phone or photograph the work zone").count()).toBe(1);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "public-advisory");
+    // Keyboard: Tab reaches the calendar link (the page's one control).
+    let reached = false;
+    for (let i = 0; i < 10 && !reached; i++) {
+      await page.keyboard.press("Tab");
+      reached = await page.evaluate(() => document.activeElement?.textContent?.includes("Add every closure to your calendar") ?? false);
+    }
+    expect(reached).toBe(true);
+    await context.close();
+  });
+});
