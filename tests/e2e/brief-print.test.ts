@@ -11,7 +11,6 @@ import { getDocument } from "pdfjs-dist/legacy/build/pdf.mjs";
 import { call, kestrelProject, signInAs } from "../helpers/app";
 import { serverRunDone } from "../helpers/jobs";
 import { launch } from "../helpers/browser";
-import { serverRunDone } from "../helpers/jobs";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
