@@ -16,7 +16,7 @@ import { timelineCapacityPieces } from "./traffic-capacity";
 /**
  * Value of time defaults, $ per vehicle-hour in 2015 dollars — from memory: USDOT departmental guidance on
  * the value of travel time (2016 revision): all-purpose local travel $14.10 per person-hour × 1.5 occupants
- * for a car; truck drivers $27.20 per hour. REFERENCES.md ("Road-user cost", FHWA-HOP-12-005) gives the
+ * for a car; truck drivers $27.20 per hour. SOURCES.md ("Road-user cost", FHWA-HOP-12-005) gives the
  * method; the user should override with current values.
  */
 export const DEFAULT_VALUE_OF_TIME = { year: 2015, carPerVehHour: 21.15, truckPerVehHour: 27.2 } as const;

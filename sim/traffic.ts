@@ -19,7 +19,7 @@ export type DemandKind = (typeof DEMAND_KINDS)[number];
 
 /**
  * Heavy-vehicle adjustment f_HV = 1 / (1 + P_T (E_T − 1)).
- * Source: Highway Capacity Manual (basic freeway segments), as used by Krammes & Lopez (1994); REFERENCES.md.
+ * Source: Highway Capacity Manual (basic freeway segments), as used by Krammes & Lopez (1994); SOURCES.md.
  */
 export function heavyVehicleFactor(share: number, truckPce: number): number {
   return 1 / (1 + share * (truckPce - 1));
@@ -28,7 +28,7 @@ export function heavyVehicleFactor(share: number, truckPce: number): number {
 /**
  * Short-term work-zone capacity, veh/h: c = (1,600 + I − R) · f_HV · N.
  * Source: Krammes & Lopez (1994), TRR 1442 — base 1,600 pc/h/ln found (HCM 2000), the full formula from
- * memory (REFERENCES.md, "Work-zone capacity and queues"). I = work intensity (±160 pc/h/ln), R = ramp
+ * memory (SOURCES.md, "Work-zone capacity and queues"). I = work intensity (±160 pc/h/ln), R = ramp
  * adjustment (0 here: no ramp inside the zone), N = open lanes.
  */
 export function krammesLopezCapacity(p: { basePcPerHourPerLane?: number; workIntensity: number; ramps?: number; fHv: number; openLanes: number }): number {
@@ -37,7 +37,7 @@ export function krammesLopezCapacity(p: { basePcPerHourPerLane?: number; workInt
 
 /**
  * HCM 6th edition work-zone queue discharge rate and capacity, pc/h/ln (Eqs. 10-7 to 10-9).
- * Source: HCM 6th ed. (NCHRP 03-107; Yeom et al., TRR 2485, 2015), REFERENCES.md:
+ * Source: HCM 6th ed. (NCHRP 03-107; Yeom et al., TRR 2485, 2015), SOURCES.md:
  * LCSI = 1 / (OR · N_open), OR = open / total lanes;
  * QDR = 2,093 − 154·LCSI − 194·f_Br − 179·f_AT + 9·f_LAT − 59·f_DN; c = QDR / (1 − α), α = 0.134.
  */
@@ -49,7 +49,7 @@ export function hcm6WorkZone(p: { openLanes: number; totalLanes: number; cones: 
 
 /**
  * Queue length, miles: vehicles → passenger cars (× (1 + P_T (E_T − 1))) at jam density over the lanes the
- * queue stores in. Source: jam density 190 pc/mi/ln, HCM 7th ed. ch. 25 (REFERENCES.md).
+ * queue stores in. Source: jam density 190 pc/mi/ln, HCM 7th ed. ch. 25 (SOURCES.md).
  */
 export function queueMiles(vehicles: number, jamPcPerMiPerLane: number, storageLanes: number, pcPerVeh = 1): number {
   return (vehicles * pcPerVeh) / (jamPcPerMiPerLane * storageLanes);
@@ -66,7 +66,7 @@ export interface QueuePiece {
 
 /**
  * One D/D/1 piece: arrivals λ and service μ (veh/h) constant for `hours`, starting with `queue` veh.
- * Source: deterministic queuing (REFERENCES.md, "computed"): the queue grows at λ − μ while positive;
+ * Source: deterministic queuing (SOURCES.md, "computed"): the queue grows at λ − μ while positive;
  * delay is the area between the cumulative arrival and departure curves.
  */
 export function queuePiece(queue: number, arrivals: number, service: number, hours: number, out: QueuePiece): QueuePiece {

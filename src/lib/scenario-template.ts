@@ -2,7 +2,7 @@
  * A starting plan for a new scenario on a project: the usual seven-operation overlay chain over the project's
  * deck, with day single-lane and night two-lane closures. Rates and limits are placeholders a planner must
  * replace with the job's own (the values are common practice, no published source; the 45 °F-and-rising
- * placement rule and the 0.1 lb/ft²/h LMC evaporation limit are cited in REFERENCES.md).
+ * placement rule and the 0.1 lb/ft²/h LMC evaporation limit are cited in SOURCES.md).
  */
 import type { ScenarioInput } from "@sim/schema";
 

@@ -24,7 +24,7 @@ function openBetween(c: ReturnType<typeof compiled>, from: string, to: string): 
 
 describe("compileCalendar", () => {
   it("blocks the Independence Day weekend from 15:00 the day before (5 U.S.C. 6103: 4 Jul 2027 is a Sunday, observed Mon 5 Jul)", () => {
-    // Source for the observed date: 5 U.S.C. 6103(b) (Sunday → Monday); REFERENCES.md lists 2027-07-05.
+    // Source for the observed date: 5 U.S.C. 6103(b) (Sunday → Monday); SOURCES.md lists 2027-07-05.
     const c = compiled((s) => {
       s.startDate = "2027-06-28";
     });

@@ -11,19 +11,19 @@ import {
 
 describe("worked values", () => {
   it("Uno at 25 °C concrete and air, 50 % RH, 16 km/h → 0.606 kg/m²/h", () => {
-    // Source: Uno (1998), ACI Materials Journal 95(4); value computed in REFERENCES.md:
+    // Source: Uno (1998), ACI Materials Journal 95(4); value computed in SOURCES.md:
     // 5·(43^2.5·0.5)·20·10⁻⁶ = 5·6062.3·20·10⁻⁶ = 0.606.
     expect(unoEvaporationKgM2h(25, 25, 50, 16)).toBeCloseTo(0.606, 3);
   });
 
   it("inch-pound nomograph form: 77/77 °F, 50 %, 10 mph → 0.130; 85/80 °F → 0.190 lb/ft²/h", () => {
-    // Source: inch-pound form attributed to ACI 305R; values computed in REFERENCES.md.
+    // Source: inch-pound form attributed to ACI 305R; values computed in SOURCES.md.
     expect(aci305EvaporationLbFt2h(77, 77, 50, 10)).toBeCloseTo(0.13, 3);
     expect(aci305EvaporationLbFt2h(85, 80, 50, 10)).toBeCloseTo(0.19, 3);
   });
 
   it("Uno in inch-pound units is the metric formula converted", () => {
-    // Source: REFERENCES.md — exactly 1 kg/m²/h = 0.2048 lb/ft²/h (0.09290304 m²/ft² ÷ 0.45359237 kg/lb).
+    // Source: SOURCES.md — exactly 1 kg/m²/h = 0.2048 lb/ft²/h (0.09290304 m²/ft² ÷ 0.45359237 kg/lb).
     expect(KG_M2_H_TO_LB_FT2_H).toBeCloseTo(0.2048, 4);
     // 77 °F = 25 °C; 10 mph = 16.09344 km/h.
     expect(evaporationLbFt2h(77, 77, 50, 10)).toBeCloseTo(unoEvaporationKgM2h(25, 25, 50, 16.09344) * 0.204816, 5);
@@ -31,7 +31,7 @@ describe("worked values", () => {
 
   it("the ACI 305R precaution threshold 0.2 lb/ft²/h is about 1.0 kg/m²/h; LMC uses 0.1", () => {
     // Source: ACI 305R Fig. 2.1.5 (0.2 lb/ft²/h ≈ 1.0 kg/m²/h); LMC 0.1 lb/ft²/h, "Predicting plastic
-    // shrinkage cracking in LMC overlays", Concrete Construction (REFERENCES.md).
+    // shrinkage cracking in LMC overlays", Concrete Construction (SOURCES.md).
     expect(ACI305_PRECAUTION_LB_FT2_H).toBe(0.2);
     expect(LMC_PRECAUTION_LB_FT2_H).toBe(0.1);
     expect(Math.abs(ACI305_PRECAUTION_LB_FT2_H / KG_M2_H_TO_LB_FT2_H - 1)).toBeLessThan(0.03);
@@ -40,7 +40,7 @@ describe("worked values", () => {
 
 describe("Uno against the inch-pound nomograph form", () => {
   it("agrees within 6 % over ordinary paving weather (Uno runs a few per cent below)", () => {
-    // Source: REFERENCES.md — Uno runs about 4 % below the inch-pound form; compare with ≥ 5 % tolerance.
+    // Source: SOURCES.md — Uno runs about 4 % below the inch-pound form; compare with ≥ 5 % tolerance.
     // Grid: concrete 50–100 °F, air 0–10 °F cooler, RH 10–70 %, wind 0–20 mph, rates ≥ 0.05 lb/ft²/h
     // (below that the relative difference of two small numbers is not meaningful).
     let compared = 0;

@@ -13,7 +13,7 @@ const byName = (year: number, fragment: string) => {
 
 describe("published and computed dates", () => {
   it("2008 Monday and Thursday holidays", () => {
-    // Source: OPM federal holiday schedule for 2008 (REFERENCES.md, "Federal holidays", found).
+    // Source: OPM federal holiday schedule for 2008 (SOURCES.md, "Federal holidays", found).
     expect(byName(2008, "Birthday of Martin").date).toBe("2008-01-21");
     expect(byName(2008, "Washington").date).toBe("2008-02-18");
     expect(byName(2008, "Memorial").date).toBe("2008-05-26");
@@ -23,7 +23,7 @@ describe("published and computed dates", () => {
   });
 
   it("2009: Independence Day observed Friday 3 July; Thanksgiving 26 November", () => {
-    // Source: OPM federal holiday schedule for 2009 (REFERENCES.md, found).
+    // Source: OPM federal holiday schedule for 2009 (SOURCES.md, found).
     const july4 = byName(2009, "Independence");
     expect(july4.date).toBe("2009-07-04");
     expect(july4.observed).toBe("2009-07-03");
@@ -31,7 +31,7 @@ describe("published and computed dates", () => {
   });
 
   it("2026 and 2027 computed dates", () => {
-    // Source: REFERENCES.md, computed from the 5 U.S.C. 6103 rules (4 Jul 2026 is a Saturday; 19 Jun 2027 a
+    // Source: SOURCES.md, computed from the 5 U.S.C. 6103 rules (4 Jul 2026 is a Saturday; 19 Jun 2027 a
     // Saturday, 4 Jul 2027 a Sunday, 25 Dec 2027 a Saturday).
     expect(byName(2026, "Thanksgiving").date).toBe("2026-11-26");
     expect(byName(2026, "Independence").observed).toBe("2026-07-03");

@@ -1,6 +1,6 @@
 /**
  * The demo and the engine against the trade's rules of thumb. These are common practice, no published
- * source (see ../shared/REFERENCES.md, "Latex-modified concrete overlays"); they are sanity checks on the
+ * source (see SOURCES.md, "Latex-modified concrete overlays"); they are sanity checks on the
  * invented demo and on the engine's handling of the placement gate, not tuned values.
  */
 import { describe, expect, it } from "vitest";

@@ -53,7 +53,7 @@ describe("traffic in a run", () => {
 
   it("HCM 6th ed. method: the one open lane of two serves at the queue discharge rate", () => {
     // QDR for 2 → 1 lanes, day, cones, urban, 6 ft: 2,093 − 154·2 − 194 + 54 = 1,645 pc/h/ln (Eq. 10-8 with
-    // LCSI = 2, REFERENCES.md). Mon: +355 veh/h for 10 h → 3,550 veh, drains at 2,000 veh/h in 1.775 h:
+    // LCSI = 2, SOURCES.md). Mon: +355 veh/h for 10 h → 3,550 veh, drains at 2,000 veh/h in 1.775 h:
     // ½·3,550·11.775 = 20,900.6 veh-h; Tue the same; Wed: 710 veh, ½·710·(2 + 0.355) = 836.0 veh-h.
     const s = runScenario(parse(withTraffic((x) => (x.traffic!.method = "hcm6"))), { iterations: 1, seed: "t" });
     const mon = 0.5 * 3550 * (10 + 3550 / 2000);
@@ -108,7 +108,7 @@ describe("traffic in a run", () => {
   });
 
   it("the demo's day single-lane closure held all through a holiday-peak day backs traffic up five to ten miles", () => {
-    // Common practice, no published source (REFERENCES.md): for a long lane closure on a busy crossing over a
+    // Common practice, no published source (SOURCES.md): for a long lane closure on a busy crossing over a
     // holiday weekend, practitioners warn of backups of five to ten miles. A sanity range, not a tuned value.
     const sc = parse(loadScenario("kestrel-holiday-work.json"));
     const c = compileScenario(sc);

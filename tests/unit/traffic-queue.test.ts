@@ -44,7 +44,7 @@ function model(demand: number[], caps: number[], open: number, days = 4, rest = 
 
 describe("D/D/1 queuing over closure segments", () => {
   it("hand-worked bottleneck: 1,800 veh/h against 1,400 for 2 h, then 900 veh/h", () => {
-    // Source: REFERENCES.md "Work-zone capacity and queues" (deterministic queuing, computed):
+    // Source: SOURCES.md "Work-zone capacity and queues" (deterministic queuing, computed):
     // the queue grows at 1,800 − 1,400 = 400 veh/h for 2 h → 800 veh; it then shrinks at 1,400 − 900 = 500 veh/h,
     // so it clears 800 / 500 = 1.6 h after demand drops (t = 3.6 h). Delay = area between the cumulative
     // arrival and departure curves = triangle ½ · 800 veh · 3.6 h = 1,440 veh-h.
@@ -57,7 +57,7 @@ describe("D/D/1 queuing over closure segments", () => {
   });
 
   it("textbook pattern: 6/min then 2/min, service 4/min starting with 30 queued — clears at 40 min, 1,100 veh-min", () => {
-    // Source: REFERENCES.md (textbook pattern). Minutes stand in for hours here. Arrivals 6/min from 0 with no
+    // Source: SOURCES.md (textbook pattern). Minutes stand in for hours here. Arrivals 6/min from 0 with no
     // service until 30 are queued (t = 5 min: a first closure with capacity 0), then service 4/min (a second
     // closure) while arrivals stay 6/min to t = 15 (queue 30 + 2·10 = 50), then 2/min: the queue falls at
     // 2/min and clears at 15 + 50/2 = 40 min. Area: ½·30·5 + (30 + 50)/2·10 + ½·50·25 = 75 + 400 + 625 = 1,100.
@@ -89,14 +89,14 @@ describe("D/D/1 queuing over closure segments", () => {
 
 describe("capacity and queue length against their sources", () => {
   it("Krammes & Lopez: I = −160, 10 % trucks at E_T = 1.5, one open lane → 1,371 veh/h", () => {
-    // Source: Krammes & Lopez (1994), TRR 1442 (formula from memory; base 1,600 from HCM 2000), REFERENCES.md.
+    // Source: Krammes & Lopez (1994), TRR 1442 (formula from memory; base 1,600 from HCM 2000), SOURCES.md.
     const fHv = heavyVehicleFactor(0.1, 1.5);
     expect(fHv).toBeCloseTo(0.952, 3);
     expect(Math.round(krammesLopezCapacity({ workIntensity: -160, fHv, openLanes: 1 }))).toBe(1371);
   });
 
   it("HCM 6th ed.: 3 → 2 lanes at night, cones, urban, 6 ft lateral clearance → QDR 1,778.5, capacity 2,053.7 pc/h/ln", () => {
-    // Source: HCM 6th edition Eqs. 10-7 to 10-9 (NCHRP 03-107), worked value in REFERENCES.md.
+    // Source: HCM 6th edition Eqs. 10-7 to 10-9 (NCHRP 03-107), worked value in SOURCES.md.
     const h = hcm6WorkZone({ openLanes: 2, totalLanes: 3, cones: true, rural: false, lateralClearanceFt: 6, night: true });
     expect(h.lcsi).toBeCloseTo(0.75, 12);
     expect(h.qdr).toBeCloseTo(1778.5, 9);
@@ -106,7 +106,7 @@ describe("capacity and queue length against their sources", () => {
   });
 
   it("800 queued vehicles at 190 pc/mi/ln in one lane → 4.21 mi", () => {
-    // Source: jam density 190 pc/mi/ln, HCM 7th ed. ch. 25 (REFERENCES.md); 800 / 190 = 4.21 mi.
+    // Source: jam density 190 pc/mi/ln, HCM 7th ed. ch. 25 (SOURCES.md); 800 / 190 = 4.21 mi.
     expect(queueMiles(800, 190, 1)).toBeCloseTo(4.21, 2);
     // Trucks take more room: 10 % at E_T = 1.5 → 1.05 pc per vehicle.
     expect(queueMiles(800, 190, 1, 1.05)).toBeCloseTo(4.42, 2);

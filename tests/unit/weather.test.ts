@@ -79,14 +79,14 @@ describe("stochastic generator, 200 years of one month's parameters held constan
   for (let i = 0; i < s.length; i++) (s.wet[i] ? wetIdx : dryIdx).push(i);
 
   it("wet-day frequency is the stationary probability 1/3", () => {
-    // Source: CLIGEN documentation (π formula); REFERENCES.md computed π = 1/3, lag-1 autocorrelation 0.4.
+    // Source: CLIGEN documentation (π formula); SOURCES.md computed π = 1/3, lag-1 autocorrelation 0.4.
     // SE = √(π(1−π)/n · 1.4/0.6) = 0.0027.
     const se = Math.sqrt(((1 / 3) * (2 / 3) * (1.4 / 0.6)) / N);
     expect(Math.abs(wetIdx.length / N - 1 / 3)).toBeLessThan(4 * se);
   });
 
   it("mean wet spell 1/(1 − P(W|W)) = 2.5 d, mean dry spell 1/P(W|D) = 5 d", () => {
-    // Source: REFERENCES.md, "Stochastic daily weather" (computed from the Markov chain). Spell lengths are
+    // Source: SOURCES.md, "Stochastic daily weather" (computed from the Markov chain). Spell lengths are
     // geometric: sd √0.6/0.4 = 1.94 d (wet), √0.8/0.2 = 4.47 d (dry); SE = sd/√(number of spells).
     const wetSpells = spells(s, 1);
     const drySpells = spells(s, 0);

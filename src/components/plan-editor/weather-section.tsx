@@ -21,7 +21,7 @@ const COLUMNS = [
 
 /**
  * Long-run share of wet days of a two-state Markov chain: π = P(W|D) / (1 − P(W|W) + P(W|D)).
- * Source: CLIGEN documentation (Nicks, Lane & Gander 1995), as listed in /work/shared/REFERENCES.md.
+ * Source: CLIGEN documentation (Nicks, Lane & Gander 1995), as listed in SOURCES.md.
  */
 function wetShare(pwd: number, pww: number): number | null {
   const d = 1 - pww + pwd;
