@@ -7,6 +7,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
 import { serverRunDone } from "../helpers/jobs";
+import { forgetRecentMail } from "../helpers/mail-quota";
 
 let projectId: string;
 let base: Record<string, unknown>;
@@ -26,6 +27,7 @@ beforeAll(async () => {
   const admin = await signInAs("admin");
   projectId = (await kestrelProject(admin)).id;
   base = await demoDefinition(admin, projectId);
+  await forgetRecentMail(projectId);
 }, 120_000);
 
 describe("publishing names the previewed run", { timeout: 120_000 }, () => {
@@ -97,6 +99,7 @@ describe("the public travel advisory: no sign-in, scoped to one published plan",
   it("revoking the publication's link closes the advisory and the feed at once", async () => {
     const admin = await signInAs("admin");
     const again = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: admin });
+    expect(again.status, JSON.stringify(again.body).slice(0, 300)).toBe(201);
     const token = tokenOf(again.body.advisoryUrl);
     expect((await call(`/advisory/${token}`)).status).toBe(200);
     const links = (await call(`/api/scenarios/${scenarioId}/share-links`, { cookie: admin })).body.links as { id: string; revokedAt: string | null; createdAt: string }[];
