@@ -10,6 +10,7 @@ import { randomBytes, randomUUID } from "node:crypto";
 import { call, demoDefinition, kestrelProject, signIn, signInAs, DEMO_PASSWORD, type CallOptions, type DemoRole, type Reply } from "./app";
 import { createPastScenario, isoDaysFromToday } from "./progress-fixture";
 import { waitForJob } from "./jobs";
+import { forgetRecentMail } from "./mail-quota";
 import { hashPassword } from "../../src/lib/server/password";
 
 export const ROLES: DemoRole[] = ["admin", "engineer", "scheduler", "inspector", "viewer"];
@@ -122,10 +123,7 @@ export async function buildWorld(): Promise<World> {
   const projects = must(await call("/api/projects", { cookie: admin }), 200, "projects").projects as { id: string; name: string }[];
   const ternProjectId = projects.find((p) => p.name.includes("Tern"))!.id;
   const base = await demoDefinition(admin, projectId);
-  // Earlier test files sent mail as the demo people on this project; the hourly e-mail quota (tested on its own
-  // in token-scopes-and-mail-quota) would otherwise refuse this world's publications depending on file order.
-  // Their mail is moved out of the quota's hour, so each matrix starts with the demo project's quota unused.
-  await db`UPDATE email_outbox SET created_at = created_at - interval '2 hours' WHERE project_id = ${projectId} OR requested_by IN (SELECT user_id FROM project_members WHERE project_id = ${projectId})`;
+  await forgetRecentMail(projectId);
 
   // The stranger: administrator of a project of their own, never a member of Kestrel.
   const stranger = await newAccount(db, "stranger");
