@@ -12,6 +12,7 @@
  * elementary pieces with the set of closures standing in each (for the traffic model and the by-day figures).
  * Buffers are reused: valid until the next `simulate` of the same compiled scenario.
  */
+import { doubledF64, doubledI32 } from "./typed-arrays";
 import { addHoursByDay, firstIntervalAfter, type CompiledCalendar } from "./calendar";
 import type { CompiledAsBuilt } from "./asbuilt";
 import type { CompiledOp } from "./engine";
@@ -86,12 +87,8 @@ export class ClosureTimeline {
     const p = this.periods;
     const n = p.counts[j];
     if (n === p.starts[j].length) {
-      const s = new Float64Array(2 * n);
-      const e = new Float64Array(2 * n);
-      s.set(p.starts[j]);
-      e.set(p.ends[j]);
-      p.starts[j] = s;
-      p.ends[j] = e;
+      p.starts[j] = doubledF64(p.starts[j]);
+      p.ends[j] = doubledF64(p.ends[j]);
     }
     p.starts[j][n] = a;
     p.ends[j][n] = b;
@@ -235,16 +232,9 @@ export class ClosureTimeline {
   }
 
   private grow(out: Pieces): void {
-    const size = 2 * out.starts.length;
-    const s = new Float64Array(size);
-    const e = new Float64Array(size);
-    const x = new Int32Array(size);
-    s.set(out.starts);
-    e.set(out.ends);
-    x.set(out.sets);
-    out.starts = s;
-    out.ends = e;
-    out.sets = x;
+    out.starts = doubledF64(out.starts);
+    out.ends = doubledF64(out.ends);
+    out.sets = doubledI32(out.sets);
   }
 
   /** Lane-closed hours by day (total and per closure) of the timeline just built: for the representative iteration. */

@@ -6,6 +6,7 @@
  * mobilization (`shiftDaysWorked`); both computed only when asked, after the schedule. One instance per
  * compiled scenario, reset by `simulate` for each iteration.
  */
+import { doubledF64 } from "./typed-arrays";
 import { firstIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
 import type { CompiledOp, PauseRecord } from "./engine";
 import type { GateCache } from "./gates";
@@ -205,12 +206,8 @@ export class WorkContext implements WorkSink {
       return;
     }
     if (n === this.segStarts[lane].length) {
-      const s = new Float64Array(2 * n);
-      const e = new Float64Array(2 * n);
-      s.set(this.segStarts[lane]);
-      e.set(this.segEnds[lane]);
-      this.segStarts[lane] = s;
-      this.segEnds[lane] = e;
+      this.segStarts[lane] = doubledF64(this.segStarts[lane]);
+      this.segEnds[lane] = doubledF64(this.segEnds[lane]);
     }
     this.segStarts[lane][n] = a;
     this.segEnds[lane][n] = b;
