@@ -12,9 +12,35 @@ export interface Rng {
   next(): number;
 }
 
+/**
+ * Alea (J. Baagøe) with its four state words in a Float64Array: seedrandom seeds it (its `state()` gives
+ * c, s0, s1, s2) and this class steps it with seedrandom's very arithmetic, so the stream is the same bit for
+ * bit (tests/unit/random.test.ts compares them). Why not call seedrandom's function: its state lives in
+ * object fields and every generator is a fresh closure, so each uniform pays boxed number stores and a call
+ * V8 cannot inline; here one class and unboxed typed-array slots keep the hot loops (weather, samples) tight.
+ */
+class AleaRng implements Rng {
+  private readonly st = new Float64Array(4);
+  constructor(seed: string) {
+    const s = seedrandom.alea(seed, { state: true }).state() as { c: number; s0: number; s1: number; s2: number };
+    this.st[0] = s.s0;
+    this.st[1] = s.s1;
+    this.st[2] = s.s2;
+    this.st[3] = s.c;
+  }
+  next(): number {
+    const st = this.st;
+    const t = 2091639 * st[0] + st[3] * 2.3283064365386963e-10; // 2^-32
+    st[0] = st[1];
+    st[1] = st[2];
+    const c = t | 0;
+    st[3] = c;
+    return (st[2] = t - c);
+  }
+}
+
 export function createRng(seed: string): Rng {
-  const prng = seedrandom.alea(seed);
-  return { next: prng };
+  return new AleaRng(seed);
 }
 
 /*

@@ -159,14 +159,14 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
   let dayOfMonth = start.d;
   let monthLength = daysInMonth(year, month + 1);
 
-  // Generator state: "yesterday" before day 0 is drawn from the stationary law of the first month.
-  let prevWet = false;
-  let chiMax = 0;
-  let chiMin = 0;
+  // Generator state: "yesterday" before day 0 is drawn from the stationary law of the first month. Kept in
+  // a typed array, read into locals per `generate` call: doubles captured by the closure and rewritten every
+  // day would each be boxed.
+  const state = new Float64Array(3); // [previous day wet (0/1), χ of tmax, χ of tmin]
   if (own) {
-    prevWet = own.next() < P.pi[month];
-    chiMax = normal(own);
-    chiMin = normal(own);
+    state[0] = own.next() < P.pi[month] ? 1 : 0;
+    state[1] = normal(own);
+    state[2] = normal(own);
   }
 
   const series: WeatherSeries = {
@@ -211,6 +211,9 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
 
   function generate(from: number, to: number) {
     const { tmaxF, tminF, windMph, rhPct, wet: wetA, rainStartHour, rainHours } = series;
+    let prevWet = state[0] === 1;
+    let chiMax = state[1];
+    let chiMin = state[2];
     for (let i = from; i < to; i++) {
       const mo = month;
       if (own) {
@@ -252,6 +255,9 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
         monthLength = daysInMonth(year, month + 1);
       }
     }
+    state[0] = prevWet ? 1 : 0;
+    state[1] = chiMax;
+    state[2] = chiMin;
   }
 
   return series;
