@@ -18,6 +18,7 @@ import type { IterationSamples } from "./samples";
 import type { Scenario } from "./schema";
 import { resolveStages, type ResolvedStage } from "./stages";
 import { ClosureTimeline, type TimelineClosure } from "./timeline";
+import type { WeatherOverride } from "./forecast-weather"; // forecast override
 
 /** A link into a stage operation: `need[i]` = last packet of `from` (deck index) B's packet i waits for, −1 none. */
 export interface CompiledPred {
@@ -81,11 +82,15 @@ export interface CompiledScenario {
   timeline: ClosureTimeline;
   /** A re-forecast's as-built state (MODEL.md, "Re-forecast"); null for a plan. */
   asBuilt: CompiledAsBuilt | null;
+  /** forecast override: the forecast hours every iteration reads instead of the climate's (MODEL.md); null for none. */
+  weatherOverride: WeatherOverride | null;
 }
 
 export interface CompileOptions {
   /** Start from this as-built state: done packets keep their recorded finish, time starts at the data date. */
   asBuilt?: AsBuiltState;
+  /** forecast override: the days from the weather forecast (sim/forecast-weather.ts `weatherOverride`). */
+  weatherOverride?: WeatherOverride | null;
 }
 
 export interface TracePacket {
@@ -252,7 +257,8 @@ export function compileScenario(plan: Scenario, options: CompileOptions = {}): C
   ];
   const timeline = new ClosureTimeline(scenario, calendar, stages, ops, timelineClosures, packets);
   const asBuilt = options.asBuilt ? compileAsBuilt(scenario, options.asBuilt, calendar, packets, ops) : null;
-  return { scenario, calendar, packets, packetLen, stages, ops, order: topoOrder(ops), closures, timelineClosures, cutoffPacket, work, timeline, asBuilt };
+  const weatherOverride = options.weatherOverride ?? null; // forecast override
+  return { scenario, calendar, packets, packetLen, stages, ops, order: topoOrder(ops), closures, timelineClosures, cutoffPacket, work, timeline, asBuilt, weatherOverride };
 }
 
 function topoOrder(ops: CompiledOp[]): number[] {
@@ -275,7 +281,7 @@ export function simulate(c: CompiledScenario, samples: IterationSamples, opts: {
   const P = c.packets;
   const w = c.work;
   const cal = c.calendar;
-  w.begin(samples.weather);
+  w.begin(samples.weather, samples.weatherOverride ?? null); // forecast override
   const finish = w.finish;
   const prefMax = w.prefMax;
   const ready = w.ready;

@@ -14,12 +14,12 @@
  *   100 on `fixedWetDates`), the forecast for which a re-forecast with an override must equal the plan
  *   re-forecast (the law). Temperature is the engine's `hourlyTempF`; humidity and wind follow MODEL.md
  *   "Weather" (dew point of the daily mean; 30 % daily wind swing peaking at 15:00).
- * Where it plugs into the engine (not done here; sim/engine.ts, sim/gates.ts and sim/weather.ts belong to
- * other work): `drawSamples(…, override)` adds `samples.weatherOverride = { ...override, rain:
- * drawOverrideRain(…) }`; `GateCache.reset(series, override)` and its `tempAt(hour)`, `rainAt(k)` and the
- * hourly wind/humidity reads return the override's value for `fromHour ≤ hour < toHour`, the series'
- * otherwise (so every gate, the protection window and the warm-hour cure read it); `compileScenario(s,
- * { asBuilt, weatherOverride })` carries it; the summary lists `override.dates` as the days from the forecast.
+ * Where it plugs into the engine (each hook marked `// forecast override`): `drawSamples(…, override)` sets
+ * `samples.weatherOverride` (./weather-override-reads `withRain`); `GateCache.reset(series, override)` makes
+ * `tempAt`, the rain mask, the hourly wind and humidity of the evaporation gate, `rising` and the whole-day
+ * temperature bounds (protection window, warm-hour cure) read the override for `fromHour ≤ hour < toHour`, the
+ * series otherwise; `compileScenario(s, { asBuilt, weatherOverride })` carries it; the summary lists
+ * `override.dates` as `forecastDates`.
  */
 import { formatDayNumber, parseIsoDate } from "./dates";
 import { createRng } from "./random";
@@ -77,7 +77,7 @@ export function weatherOverride(scenario: Scenario, forecast: HourlyInput, dataD
 }
 
 /** 1 where iteration k's hour is wet: U < PoP/100, one uniform per hour from the stream `${seed}:${k}:f`. */
-export function drawOverrideRain(o: WeatherOverride, seed: string, k: number, out = new Uint8Array(o.popPct.length)): Uint8Array {
+export function drawOverrideRain(o: WeatherOverride, seed: string, k: number, out: Uint8Array = new Uint8Array(o.popPct.length)): Uint8Array {
   const rng = createRng(`${seed}:${k}:f`);
   for (let i = 0; i < o.popPct.length; i++) out[i] = rng.next() < o.popPct[i] / 100 ? 1 : 0;
   return out;
@@ -92,16 +92,20 @@ export function fixedModeHourly(scenario: Scenario, firstDate: string, days: num
   if (scenario.weather.mode !== "fixed") throw new Error("fixedModeHourly needs a fixed-mode climate profile");
   const firstDay = parseIsoDate(firstDate);
   // A fixed-mode series draws nothing from its generator; the seed is only there to satisfy the signature.
-  // It starts the day before, so the hours before 06:00 fall from the previous afternoon as in the engine.
+  // It starts the day before, so the hours before 06:00 fall from the previous afternoon as in the engine —
+  // except on the scenario's start date, where the engine has no previous afternoon and uses that day's own
+  // maximum (MODEL.md "Weather"): that day reads a series that starts on it.
   const series = createWeatherSeries(scenario.weather, firstDay - 1, createRng("fixed"));
   series.ensure(days + 3);
+  const startDay = parseIsoDate(scenario.startDate);
+  const atStart = createWeatherSeries(scenario.weather, startDay, createRng("fixed"));
   const wet = new Set(scenario.weather.fixedWetDates.map(parseIsoDate));
   const out: HourlyInput = { firstDate, tempF: [], popPct: [], rhPct: [], windMph: [] };
   for (let d = 0; d < days; d++) {
     const tMean = toC((series.tmaxF[d + 1] + series.tminF[d + 1]) / 2);
     const eDew = (series.rhPct[d + 1] / 100) * es(tMean);
     for (let h = 0; h < 24; h++) {
-      const t = hourlyTempF(series, 24 * (d + 1) + h);
+      const t = firstDay + d === startDay ? hourlyTempF(atStart, h) : hourlyTempF(series, 24 * (d + 1) + h);
       out.tempF.push(t);
       out.popPct.push(wet.has(firstDay + d) ? 100 : 0);
       out.rhPct.push(Math.min(100, (100 * eDew) / es(toC(t))));

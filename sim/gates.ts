@@ -13,6 +13,7 @@
 import { evaporationLbFt2h } from "./evaporation";
 import type { CrewOperation } from "./schema";
 import { dewPointVaporHpa, hourlyTempF, rhFromVapor, WIND_FACTOR, WIND_FACTOR_MAX, WIND_FACTOR_MIN, type WeatherSeries } from "./weather";
+import { hourlyHigh, hourlyLow, overrideRainBits, type ActiveOverride } from "./weather-override-reads"; // forecast override
 
 export interface GateProfile {
   minTempF: number; // -Infinity when absent
@@ -53,6 +54,10 @@ const EVAP_ALL_PASS = 8;
 
 export class GateCache {
   private series: WeatherSeries | null = null;
+  // forecast override: its hours [ovFrom, ovTo); +∞…−∞ (empty) without one, so a read costs one failed comparison.
+  private ov: ActiveOverride | null = null;
+  private ovFrom = Infinity;
+  private ovTo = -Infinity;
   private gen = 0;
   private readonly stride: number;
   private readonly stamp: Int32Array;
@@ -88,8 +93,11 @@ export class GateCache {
   }
 
   /** Start a new iteration on `series` (invalidates every cached slot). */
-  reset(series: WeatherSeries): void {
+  reset(series: WeatherSeries, override: ActiveOverride | null = null): void {
     this.series = series;
+    this.ov = override; // forecast override
+    this.ovFrom = override ? override.fromHour : Infinity; // forecast override
+    this.ovTo = override ? override.toHour : -Infinity; // forecast override
     this.gen++;
     this.ensured = 0;
     this.daysUsed = 0;
@@ -108,7 +116,7 @@ export class GateCache {
   tempAt(hour: number): number {
     if (this.tempStamp[hour] === this.gen) return this.temp[hour];
     const s = this.need(Math.floor(hour / 24));
-    const v = hourlyTempF(s, hour);
+    const v = hour >= this.ovFrom && hour < this.ovTo ? this.ov!.tempF[hour - this.ovFrom] : hourlyTempF(s, hour); // forecast override
     this.tempStamp[hour] = this.gen;
     this.temp[hour] = v;
     return v;
@@ -120,7 +128,7 @@ export class GateCache {
    */
   rising(k: number): boolean {
     const h = k - 24 * Math.floor(k / 24);
-    if (h >= 6 && h < 15) return true;
+    if (h >= 6 && h < 15 && !(k + 1 >= this.ovFrom && k < this.ovTo)) return true; // forecast override: read the hours
     return this.tempAt(k + 1) >= this.tempAt(k);
   }
 
@@ -130,6 +138,7 @@ export class GateCache {
    * next morning's minimum, so no slot of it rises: skip to 06:00 at once. Otherwise the next hour.
    */
   nextRisingFrom(k: number): number {
+    if (k + 16 > this.ovFrom && k < this.ovTo) return k + 1; // forecast override: the skip below assumes the climate's curve
     const d = Math.floor(k / 24);
     const h = k - 24 * d;
     if (h >= 6 && h < 15) return k + 1;
@@ -152,11 +161,13 @@ export class GateCache {
    * maximum (a warm night after a cold day can put tmax[d−1] below tmin[d]).
    */
   dayLow(d: number): number {
+    if (24 * d + 25 > this.ovFrom && 24 * d < this.ovTo) return hourlyLow(this, d); // forecast override
     const s = this.need(d);
     return Math.min(s.tminF[d], s.tminF[d + 1], s.tmaxF[d > 0 ? d - 1 : 0], s.tmaxF[d]);
   }
 
   dayHigh(d: number): number {
+    if (24 * d + 25 > this.ovFrom && 24 * d < this.ovTo) return hourlyHigh(this, d); // forecast override
     const s = this.need(d);
     return Math.max(s.tminF[d], s.tminF[d + 1], s.tmaxF[d > 0 ? d - 1 : 0], s.tmaxF[d]);
   }
@@ -180,6 +191,7 @@ export class GateCache {
       const spill = s.rainStartHour[d - 1] + s.rainHours[d - 1] - 24;
       if (spill > 0) bits |= (1 << Math.min(24, spill)) - 1;
     }
+    if (24 * d + 24 > this.ovFrom && 24 * d < this.ovTo) bits = overrideRainBits(this.ov!, d, bits); // forecast override
     this.rainStamp[d] = this.gen;
     this.rainBits[d] = bits;
     return bits;
@@ -212,6 +224,7 @@ export class GateCache {
 
   /** What holds for every slot of day d: whole-day pass or fail of temperature and wind, evaporation pass. */
   private dayBounds(p: GateProfile, d: number): number {
+    if (24 * d + 25 > this.ovFrom && 24 * d < this.ovTo) return p.maxEvaporation === Infinity ? EVAP_ALL_PASS : 0; // forecast override: every slot read
     const s = this.need(d);
     const lo = this.dayLow(d);
     const hi = this.dayHigh(d);
@@ -234,13 +247,14 @@ export class GateCache {
     }
     if (p.risingEverySlot && !this.rising(k)) return false;
     const s = this.series!;
-    const wind = s.windMph[d] * WIND_FACTOR[k - 24 * d];
+    const wind = k >= this.ovFrom && k < this.ovTo ? this.ov!.windMph[k - this.ovFrom] : s.windMph[d] * WIND_FACTOR[k - 24 * d]; // forecast override
     if (!(flags & WIND_ALL_PASS) && wind > p.maxWindMph) return false;
     if (!(flags & EVAP_ALL_PASS)) {
       // Exact, hour by hour: bounds over the day (extreme temperatures, humidities and winds) would cost two
       // more exponentials a day to spare about one, as few slots of a day get this far (measured on the demos).
       const air = this.tempAt(k);
-      if (evaporationLbFt2h(air + p.concreteDeltaF, air, rhFromVapor(this.vaporOf(d), air), wind) > p.maxEvaporation) return false;
+      const rh = k >= this.ovFrom && k < this.ovTo ? this.ov!.rhPct[k - this.ovFrom] : rhFromVapor(this.vaporOf(d), air); // forecast override
+      if (evaporationLbFt2h(air + p.concreteDeltaF, air, rh, wind) > p.maxEvaporation) return false;
     }
     return true;
   }

@@ -111,7 +111,7 @@ export function runIterations(
   for (let k = from; k < to; k++) {
     if (shouldStop && shouldStop()) return truncate(out, k - from);
     const j = k - from;
-    samples = drawSamples(compiled.scenario, seed, k, samples);
+    samples = drawSamples(compiled.scenario, seed, k, samples, compiled.weatherOverride); // forecast override
     const r = simulate(compiled, samples);
     out.finish[j] = r.finish;
     out.opFinish.set(r.opFinish, j * nOps);

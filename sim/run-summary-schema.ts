@@ -123,6 +123,8 @@ export const runSummarySchema = z
     cost: z.object({ roadUser: numberQuantilesSchema.nullable(), contract: numberQuantilesSchema.nullable(), valueOfTimeYear: z.number().int() }).strict().optional(),
     /** The representative iteration's traffic, day by day (present with a traffic model). */
     traffic: trafficDetailSchema.optional(),
+    /** A re-forecast from the weather forecast: the days that came from it (MODEL.md); absent otherwise. */
+    forecastDates: list(day, HORIZON_DAYS).optional(),
   })
   .strict();
 

@@ -15,6 +15,8 @@ import { sampleDistribution } from "./distributions";
 import { createRng } from "./random";
 import type { Scenario } from "./schema";
 import { createWeatherSeries, type WeatherSeries } from "./weather";
+import type { WeatherOverride } from "./forecast-weather"; // forecast override
+import { withRain, type ActiveOverride } from "./weather-override-reads"; // forecast override
 
 export interface IterationSamples {
   /** Per operation index (NaN for wait operations). */
@@ -25,6 +27,8 @@ export interface IterationSamples {
   discoveredExtraHours: Float64Array[];
   /** Lazily extended, with its own stream. */
   weather: WeatherSeries;
+  /** forecast override: a re-forecast's forecast hours with this iteration's rain (stream `${seed}:${k}:f`); null for none. */
+  weatherOverride?: ActiveOverride | null;
 }
 
 interface Prepared {
@@ -72,7 +76,7 @@ function prepare(s: Scenario): Prepared {
 
 const EMPTY = new Float64Array(0);
 
-export function drawSamples(scenario: Scenario, seed: string, iteration: number, reuse?: IterationSamples): IterationSamples {
+export function drawSamples(scenario: Scenario, seed: string, iteration: number, reuse?: IterationSamples, override?: WeatherOverride | null): IterationSamples {
   const prep = prepare(scenario);
   const ops = scenario.operations;
   const rng = createRng(`${seed}:${iteration}`);
@@ -99,5 +103,6 @@ export function drawSamples(scenario: Scenario, seed: string, iteration: number,
     discoveredExtraHours[i] = extra;
   }
   const weather = createWeatherSeries(scenario.weather, prep.startDay, createRng(`${seed}:${iteration}:w`), reuse?.weather);
-  return { rateFtPerHour, waitHours, discoveredExtraHours, weather };
+  const weatherOverride = override ? withRain(override, seed, iteration, reuse?.weatherOverride) : null; // forecast override
+  return { rateFtPerHour, waitHours, discoveredExtraHours, weather, weatherOverride };
 }

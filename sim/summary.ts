@@ -103,6 +103,7 @@ export function summarizeRun(compiled: CompiledScenario, partial: PartialRun): R
     season1End,
     ...traffic,
     representative: rep.representative,
+    ...(compiled.weatherOverride ? { forecastDates: compiled.weatherOverride.dates } : {}), // forecast override
   };
 }
 
@@ -135,7 +136,7 @@ function impactSummary(c: CompiledScenario, p: PartialRun, p50: number, dateTime
 
 function trafficDetail(c: CompiledScenario, m: ImpactModel, p: PartialRun, best: number, dateTime: (h: number) => string): TrafficDetail {
   const k = p.from + best;
-  const r = simulate(c, drawSamples(c.scenario, p.seed, k));
+  const r = simulate(c, drawSamples(c.scenario, p.seed, k, undefined, c.weatherOverride)); // forecast override
   const detail: ImpactDetail = { perDirection: [] };
   const im = iterationImpact(c, m, r, detail);
   const t = m.traffic!;
@@ -233,7 +234,7 @@ function representativeIndex(p: PartialRun, p50: number): number {
 
 function representative(c: CompiledScenario, p: PartialRun, p50: number, dateTime: (h: number) => string): { representative: RunSummary["representative"]; byDay: RunSummary["laneClosedHours"]["byDay"] } {
   const k = p.from + representativeIndex(p, p50);
-  const r = simulate(c, drawSamples(c.scenario, p.seed, k), { trace: true });
+  const r = simulate(c, drawSamples(c.scenario, p.seed, k, undefined, c.weatherOverride), { trace: true }); // forecast override
   const cl = representativeClosures(c);
   return { representative: { iteration: k, finish: dateTime(r.finish), finishHours: r.finish, trace: r.trace!, closureTimeline: cl.timeline }, byDay: cl.byDay };
 }

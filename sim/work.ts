@@ -12,6 +12,7 @@ import type { CompiledOp, PauseRecord } from "./engine";
 import type { GateCache } from "./gates";
 import { pour, produce, warmCureFinish, type WorkSink } from "./production";
 import type { WeatherSeries } from "./weather";
+import type { ActiveOverride } from "./weather-override-reads"; // forecast override
 import { EventQueue } from "./queue";
 import type { ClosurePeriods as ClosureSegments } from "./timeline";
 
@@ -109,8 +110,8 @@ export class WorkContext implements WorkSink {
     this.waitList = shiftCounts.map((n) => new Int32Array(n));
   }
 
-  begin(series: WeatherSeries): void {
-    this.gates.reset(series);
+  begin(series: WeatherSeries, override: ActiveOverride | null = null): void {
+    this.gates.reset(series, override); // forecast override
     this.gen++;
     this.weatherLost = 0;
     this.season1End = NaN;

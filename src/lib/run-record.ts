@@ -4,6 +4,7 @@
  */
 import { buildAsBuilt, compileScenario, runIterations, summarizeRun, type AsBuiltState, type ProgressRecord } from "@sim/index";
 import type { Scenario } from "@sim/schema";
+import { weatherOverride, type HourlyInput } from "@sim/forecast-weather";
 import type { RunSummary } from "@sim/summary";
 
 export interface RunHeadline {
@@ -106,11 +107,25 @@ export function storedRun(args: { definition: unknown; seed: string; iterations:
   };
 }
 
-/** The inputs hash of a re-forecast: the definition, the field records up to the data date, the data date. */
-export function reforecastInputsHash(args: { definition: unknown; records: ReadonlyArray<ProgressRecord>; dataDate: string; seed: string; iterations: number }) {
-  const used = args.records.filter((r) => r.workDate <= args.dataDate);
-  return inputsHash({ definition: args.definition, progress: used, dataDate: args.dataDate }, args.seed, args.iterations);
+/** The weather forecast a re-forecast starts from: its hours, and when it was fetched (which names it). */
+export interface ForecastInput {
+  fetchedAt: string;
+  generatedAt: string | null;
+  hourly: HourlyInput;
 }
+
+/**
+ * The inputs hash of a re-forecast: the definition, the field records up to the data date, the data date and,
+ * when it starts from one, the weather forecast (absent otherwise, so a re-forecast without one keeps its hash).
+ */
+export function reforecastInputsHash(args: { definition: unknown; records: ReadonlyArray<ProgressRecord>; dataDate: string; seed: string; iterations: number; forecast?: ForecastInput | null }) {
+  const used = args.records.filter((r) => r.workDate <= args.dataDate);
+  const forecast = args.forecast ? { forecast: { fetchedAt: args.forecast.fetchedAt, hourly: args.forecast.hourly } } : {};
+  return inputsHash({ definition: args.definition, progress: used, dataDate: args.dataDate, ...forecast }, args.seed, args.iterations);
+}
+
+/** What the stored re-forecast says about its weather forecast (beside `forecastDates` in the summary). */
+export const weatherForecastDigest = (f: ForecastInput) => ({ fetchedAt: f.fetchedAt, generatedAt: f.generatedAt });
 
 export type AsBuiltDigest = ReturnType<typeof asBuiltDigest>;
 
@@ -124,18 +139,20 @@ export function storedReforecast(args: {
   summary: RunSummary;
   reforecast: AsBuiltDigest;
   durationMs: number;
+  forecast?: ForecastInput | null;
 }) {
   const headline = headlineOf(args.summary);
+  const digest = args.forecast ? { ...args.reforecast, weatherForecast: weatherForecastDigest(args.forecast) } : args.reforecast;
   return {
     inputsHash: reforecastInputsHash(args),
     seed: args.seed,
     iterations: args.iterations,
     dataDate: args.dataDate,
     summary: { ...headline, dataDate: args.dataDate } as Record<string, unknown>,
-    results: { ...args.summary, reforecast: args.reforecast },
+    results: { ...args.summary, reforecast: digest },
     durationMs: args.durationMs,
     headline,
-    reforecast: args.reforecast,
+    reforecast: digest,
   };
 }
 
@@ -143,10 +160,11 @@ export function storedReforecast(args: {
  * The columns of a stored re-forecast: the engine from the as-built state at the data date (records dated
  * after it are ignored). The engine worker and the demo seed both store exactly this.
  */
-export function reforecastRunRecord(args: { plan: Scenario; definition: unknown; records: ReadonlyArray<ProgressRecord>; dataDate: string; seed: string; iterations: number }) {
+export function reforecastRunRecord(args: { plan: Scenario; definition: unknown; records: ReadonlyArray<ProgressRecord>; dataDate: string; seed: string; iterations: number; forecast?: ForecastInput | null }) {
   const started = Date.now();
   const asBuilt = buildAsBuilt(args.plan, args.records, args.dataDate);
-  const compiled = compileScenario(args.plan, { asBuilt });
+  const override = args.forecast ? weatherOverride(args.plan, args.forecast.hourly, args.dataDate) : null;
+  const compiled = compileScenario(args.plan, { asBuilt, weatherOverride: override });
   const summary = summarizeRun(compiled, runIterations(compiled, args.seed, 0, args.iterations));
   return storedReforecast({ ...args, summary, reforecast: asBuiltDigest(args.plan, asBuilt), durationMs: Date.now() - started });
 }

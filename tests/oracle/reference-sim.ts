@@ -25,7 +25,11 @@
  * - a discovering continuous operation fits base + extra hours in one interval;
  * - hourly humidity and wind are computed here from MODEL.md's formulas (Magnus, dew point of the daily
  *   mean, 30 % diurnal wind), not taken from the engine's weather helpers; only the hourly temperature curve
- *   and the rain hours are shared (`hourlyTempF`, `isRainHour`), as they were before.
+ *   and the rain hours are shared (`hourlyTempF`, `isRainHour`), as they were before;
+ * - a weather forecast in the samples (`samples.weatherOverride`, MODEL.md "Re-forecast from the weather
+ *   forecast") is read here hour by hour: inside its [fromHour, toHour) every temperature, rain, humidity and
+ *   wind read takes the forecast's value of that whole hour (rain: the iteration's drawn hours), the climate's
+ *   otherwise. No whole-day shortcut exists here, so none can disagree with the forecast.
  */
 import type { CrewOperation, DayType, Scenario } from "../../sim/schema";
 import { civilFromDays, daysFromCivil, parseIsoDate, weekdayOfDayNumber } from "../../sim/dates";
@@ -196,8 +200,28 @@ const magnusHpa = (f: number) => {
   return 6.1094 * Math.exp((17.625 * c) / (c + 243.04));
 };
 
-/** RH (%) at whole hour k: the day's RH holds at its mean temperature, the dew point is the day's. */
+/** Index of whole hour k in the samples' weather forecast, or −1 when the forecast does not cover it. */
+function forecastIndex(samples: IterationSamples, k: number): number {
+  const o = samples.weatherOverride;
+  return o && k >= o.fromHour && k < o.toHour ? k - o.fromHour : -1;
+}
+
+/** Air temperature at whole hour k: the forecast's, else MODEL.md's hourly curve of the climate. */
+export function refTemp(samples: IterationSamples, k: number): number {
+  const i = forecastIndex(samples, k);
+  return i >= 0 ? samples.weatherOverride!.tempF[i] : hourlyTempF(samples.weather, k);
+}
+
+/** Rain in slot [k, k+1): the forecast's drawn hour, else the climate's rain hours. */
+export function refRain(samples: IterationSamples, k: number): boolean {
+  const i = forecastIndex(samples, k);
+  return i >= 0 ? samples.weatherOverride!.rain[i] === 1 : isRainHour(samples.weather, k);
+}
+
+/** RH (%) at whole hour k: the forecast's; else the day's RH holds at its mean temperature, the dew point is the day's. */
 export function refHourlyRh(samples: IterationSamples, k: number): number {
+  const i = forecastIndex(samples, k);
+  if (i >= 0) return samples.weatherOverride!.rhPct[i];
   const w = samples.weather;
   const day = Math.floor(k / 24);
   w.ensure(day + 2);
@@ -207,6 +231,8 @@ export function refHourlyRh(samples: IterationSamples, k: number): number {
 
 /** Wind (mph) of slot [k, k+1): the day's wind, 30 % stronger at 15:00 and weaker at 03:00. */
 export function refHourlyWind(samples: IterationSamples, k: number): number {
+  const i = forecastIndex(samples, k);
+  if (i >= 0) return samples.weatherOverride!.windMph[i];
   const w = samples.weather;
   const day = Math.floor(k / 24);
   w.ensure(day + 2);
@@ -216,7 +242,7 @@ export function refHourlyWind(samples: IterationSamples, k: number): number {
 
 /** Both ends of slot [k, k+1) at or above `c` °F. */
 const warmSlot = (samples: IterationSamples, c: number, k: number) =>
-  hourlyTempF(samples.weather, k) >= c && hourlyTempF(samples.weather, k + 1) >= c;
+  refTemp(samples, k) >= c && refTemp(samples, k + 1) >= c;
 
 /** Weather gates of slot [k, k+1) except `rising` (whose scope depends on `continuous`). */
 export function slotPassesGates(op: CrewOperation, samples: IterationSamples, k: number): boolean {
@@ -224,11 +250,11 @@ export function slotPassesGates(op: CrewOperation, samples: IterationSamples, k:
   const w = samples.weather;
   const day = Math.floor(k / 24);
   w.ensure(day + 2);
-  const t0 = hourlyTempF(w, k);
-  const t1 = hourlyTempF(w, k + 1);
+  const t0 = refTemp(samples, k);
+  const t1 = refTemp(samples, k + 1);
   if (g.minTempF !== undefined && (t0 < g.minTempF || t1 < g.minTempF)) return false;
   if (g.maxTempF !== undefined && (t0 > g.maxTempF || t1 > g.maxTempF)) return false;
-  if (g.noRain && isRainHour(w, k)) return false;
+  if (g.noRain && refRain(samples, k)) return false;
   if (g.maxWindMph !== undefined && refHourlyWind(samples, k) > g.maxWindMph) return false;
   if (g.maxEvaporation !== undefined) {
     const e = evaporationLbFt2h(t0 + (g.concreteDeltaF ?? 0), t0, refHourlyRh(samples, k), refHourlyWind(samples, k));
@@ -238,7 +264,7 @@ export function slotPassesGates(op: CrewOperation, samples: IterationSamples, k:
 }
 
 /** "Rising", judged from the temperature: slot [k, k+1) is not falling. */
-const isRisingSlot = (samples: IterationSamples, k: number) => hourlyTempF(samples.weather, k + 1) >= hourlyTempF(samples.weather, k);
+const isRisingSlot = (samples: IterationSamples, k: number) => refTemp(samples, k + 1) >= refTemp(samples, k);
 
 /** A wait counted only in slots with both ends ≥ `c`, stepped hour by hour from `ready`. */
 function warmWaitFinish(samples: IterationSamples, c: number, ready: number, hours: number, horizonHours: number): number {
@@ -408,7 +434,7 @@ export function referenceSimulate(
       const w = samples.weather;
       const k1 = Math.ceil(T + h + after - EPS) - 1;
       w.ensure(Math.floor(k1 / 24) + 2);
-      for (let k = Math.floor(T + h + EPS); k <= k1; k++) if (isRainHour(w, k)) return false;
+      for (let k = Math.floor(T + h + EPS); k <= k1; k++) if (refRain(samples, k)) return false;
     }
     const protect = op.gates.protectAfter;
     if (protect?.minTempF !== undefined && protect.hours !== undefined && protect.hours > 0) {

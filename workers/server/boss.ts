@@ -6,13 +6,19 @@
  * belongs to the same role the web server and the workers connect as, and no superuser is needed.
  */
 import PgBoss from "pg-boss";
+import type { ForecastInput } from "../../src/lib/run-record";
 
 export const ENGINE_QUEUE = "engine";
 
-/** What pg-boss carries: which engine job, and for a search which of its variants. */
+/**
+ * What pg-boss carries: which engine job, for a search which of its variants, and for a re-forecast from the
+ * weather forecast the forecast itself — the job's key names it (its fetch time and hours), and the cache may
+ * hold a newer one by the time a worker starts, so the forecast travels with the message (and with its retries).
+ */
 export interface EngineMessage {
   jobId: string;
   variant?: number;
+  forecast?: ForecastInput;
 }
 
 /** A crash (kill -9, a lost machine) is retried twice, a few seconds later. */

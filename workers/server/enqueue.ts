@@ -12,12 +12,12 @@ import { ENGINE_QUEUE, type EngineMessage } from "./boss";
 /** pg-boss gives up on a handler at its expiry; ours stops the thread first, with time to record why. */
 export const EXPIRY_MARGIN_SECONDS = 30;
 
-export async function enqueueJob(boss: PgBoss, input: Omit<NewEngineJob, "bossJobId">) {
+export async function enqueueJob(boss: PgBoss, input: Omit<NewEngineJob, "bossJobId">, extra: Omit<EngineMessage, "jobId"> = {}) {
   const bossJobId = randomUUID();
   const { job, created } = await createEngineJob({ ...input, bossJobId });
   if (created) {
     try {
-      const message: EngineMessage = { jobId: job.id };
+      const message: EngineMessage = { ...extra, jobId: job.id };
       await boss.send(ENGINE_QUEUE, message, { id: bossJobId, singletonKey: input.singletonKey, expireInSeconds: input.timeLimitSeconds + EXPIRY_MARGIN_SECONDS });
     } catch (e) {
       await finishEngineJob({ id: job.id, status: "failed", error: "The job could not be queued; ask again." });

@@ -12,7 +12,7 @@ import { applyVariant } from "../../sim/search";
 import { parseScenario } from "../../sim/validate";
 import type { ScenarioInput } from "../../sim/schema";
 import type { ProgressRecord } from "../../sim/index";
-import { reforecastInputsHash, storedReforecast, storedRun } from "../../src/lib/run-record";
+import { reforecastInputsHash, storedReforecast, storedRun, type ForecastInput } from "../../src/lib/run-record";
 import { resultKey, runJobKey } from "../../src/lib/run-keys";
 import type { EngineMessage } from "./boss";
 import type { EngineTask, TaskResult } from "./tasks";
@@ -55,7 +55,7 @@ async function definitionOf(job: EngineJob): Promise<ScenarioInput | null> {
   return parsed.ok ? parsed.scenario : null;
 }
 
-async function handleSingle(pool: ThreadPool, job: EngineJob) {
+async function handleSingle(pool: ThreadPool, job: EngineJob, forecast: ForecastInput | null) {
   const definition = await definitionOf(job);
   if (!definition) return void (await finishEngineJob({ id: job.id, status: "failed", error: "The scenario version no longer exists." }));
   const base = { definition, seed: job.seed, iterations: job.iterations };
@@ -78,12 +78,12 @@ async function handleSingle(pool: ThreadPool, job: EngineJob) {
   if (job.kind === "reforecast" && job.dataDate) {
     const rows = await listProgress({ scenarioId: job.scenarioId });
     records = rows.map((r) => ({ workDate: r.workDate, shift: r.shift, operationId: r.operationId, fromStationFt: r.fromStationFt, toStationFt: r.toStationFt, discovered: r.discovered }));
-    reforecast = { dataDate: job.dataDate, inputsHash: reforecastInputsHash({ definition: raw, records, dataDate: job.dataDate, seed: job.seed, iterations: job.iterations }) };
-    // The job names the field entries it was asked for; if they changed since, this is another computation.
+    reforecast = { dataDate: job.dataDate, inputsHash: reforecastInputsHash({ definition: raw, records, dataDate: job.dataDate, seed: job.seed, iterations: job.iterations, forecast }) };
+    // The job names the field entries (and the weather forecast) it was asked for; if they changed since, this is another computation.
     if (job.singletonKey !== runJobKey({ scenarioId: job.scenarioId, scenarioVersion: job.scenarioVersion, seed: job.seed, iterations: job.iterations, reforecast })) {
       return void (await finishEngineJob({ id: job.id, status: "failed", error: "The field log changed after this re-forecast was asked for; ask for it again." }));
     }
-    task = { kind: "reforecast", ...base, dataDate: job.dataDate, records };
+    task = { kind: "reforecast", ...base, dataDate: job.dataDate, records, forecast: forecast?.hourly ?? null };
   } else task = { kind: "run", ...base };
   const r = await runWatched(pool, job, task, 0);
   if (!r) return;
@@ -93,7 +93,7 @@ async function handleSingle(pool: ThreadPool, job: EngineJob) {
   // The same stored columns as the demo seed's (src/lib/run-record.ts).
   const columns =
     r.kind === "reforecast" && job.dataDate
-      ? (({ headline: _h, reforecast: _r, ...c }) => c)(storedReforecast({ ...common, records, dataDate: job.dataDate, reforecast: r.reforecast }))
+      ? (({ headline: _h, reforecast: _r, ...c }) => c)(storedReforecast({ ...common, records, dataDate: job.dataDate, reforecast: r.reforecast, forecast }))
       : { ...storedRun(common), dataDate: null };
   const saved = await saveRun({
     scenarioId: job.scenarioId,
@@ -130,7 +130,7 @@ export async function handleMessage(pool: ThreadPool, message: EngineMessage) {
   if (!job) return;
   try {
     if (job.kind === "search") await handleVariant(pool, job, message.variant ?? -1);
-    else await handleSingle(pool, job);
+    else await handleSingle(pool, job, message.forecast ?? null);
   } catch (e) {
     // An engine error is deterministic: retrying would fail the same way, so the job fails with the reason.
     const reason = e instanceof Error ? e.message : String(e);

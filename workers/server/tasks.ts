@@ -8,10 +8,11 @@ import { outcomeOf, type PlanOutcome } from "../../sim/frontier";
 import { runSummarySchema } from "../../sim/run-summary-schema";
 import { weatherFeasibility } from "../../sim/feasibility";
 import { asBuiltDigest } from "../../src/lib/run-record";
+import { weatherOverride, type HourlyInput } from "../../sim/forecast-weather";
 
 export type EngineTask =
   | { kind: "run"; definition: unknown; seed: string; iterations: number }
-  | { kind: "reforecast"; definition: unknown; seed: string; iterations: number; dataDate: string; records: ProgressRecord[] }
+  | { kind: "reforecast"; definition: unknown; seed: string; iterations: number; dataDate: string; records: ProgressRecord[]; forecast?: HourlyInput | null }
   | { kind: "verify"; definition: unknown; seed: string; iterations: number; claimed: unknown }
   | { kind: "variant"; definition: unknown; seed: string; iterations: number };
 
@@ -62,7 +63,9 @@ export function runTask(task: EngineTask, onProgress: Progress): TaskResult {
   if (never.length) return { kind: "infeasible", problem: never.map((p) => p.message).join("; ") };
   if (task.kind === "reforecast") {
     const asBuilt = buildAsBuilt(plan, task.records, task.dataDate);
-    const compiled = compileScenario(plan, { asBuilt });
+    // From the weather forecast when the job carries one (MODEL.md, "Re-forecast from the weather forecast").
+    const override = task.forecast ? weatherOverride(plan, task.forecast, task.dataDate) : null;
+    const compiled = compileScenario(plan, { asBuilt, weatherOverride: override });
     const summary = summarizeRun(compiled, runIterations(compiled, task.seed, 0, task.iterations, onProgress));
     return { kind: "reforecast", summary: withinContract(summary), reforecast: asBuiltDigest(plan, asBuilt) };
   }

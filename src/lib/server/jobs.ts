@@ -13,6 +13,7 @@ import { ENGINE_QUEUE, openBoss } from "@workers/server/boss";
 import { enqueueJob } from "@workers/server/enqueue";
 import { queueVerification } from "@workers/server/sweep";
 import { runJobKey, type Computation } from "@/lib/run-keys";
+import type { ForecastInput } from "@/lib/run-record";
 import { databaseUrl } from "@db/client";
 import { badRequest } from "./errors";
 
@@ -35,9 +36,10 @@ function checkServerBudget(plan: Scenario, iterations: number) {
   if (problem) throw badRequest([problem], "The run is larger than the work budget; nothing was run or saved.");
 }
 
-export async function queueRunJob(input: { plan: Scenario; projectId: string; computation: Computation; dataDate?: string; userId: string }) {
+export async function queueRunJob(input: { plan: Scenario; projectId: string; computation: Computation; dataDate?: string; userId: string; forecast?: ForecastInput | null }) {
   const { plan, computation: c } = input;
   checkServerBudget(plan, c.iterations);
+  const extra = input.forecast ? { forecast: input.forecast } : {};
   return enqueueJob(await queue(), {
     kind: c.reforecast ? "reforecast" : "run",
     projectId: input.projectId,
@@ -50,7 +52,7 @@ export async function queueRunJob(input: { plan: Scenario; projectId: string; co
     totalUnits: c.iterations,
     timeLimitSeconds: timeLimitSeconds(runWork(plan, c.iterations).total),
     userId: input.userId,
-  });
+  }, extra);
 }
 
 export async function queueVerifyJob(run: { id: string; projectId: string; scenarioId: string; scenarioVersion: number; seed: string; iterations: number; createdById: string }, plan: Scenario) {

@@ -9,12 +9,14 @@ import { HORIZON_DAYS } from "@sim/calendar";
 import { budgetProblem } from "@sim/budget";
 import type { z } from "zod";
 import { listProgress, type ProgressFields, type ProgressRow } from "@db/queries/progress";
+import { getCachedForecast } from "@db/queries/forecast";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { checkDependents, checkProgressEntry, todayIn, type ProgressEntry, type reforecastSchema, type RuleEntry } from "@/lib/progress-schema";
 import { reforecastInputsHash } from "@/lib/run-record";
 import { queueRunJob } from "./jobs";
 import { badRequest } from "./errors";
 import { validateDefinition } from "./scenario-input";
+import { forecastForReforecast } from "./forecast/reforecast-input";
 
 export const toRule = (r: ProgressRow): RuleEntry => ({ id: r.id, workDate: r.workDate, shift: r.shift, operationId: r.operationId, fromStationFt: r.fromStationFt, toStationFt: r.toStationFt });
 export const toRecord = (r: ProgressRow): ProgressRecord => ({ workDate: r.workDate, shift: r.shift, operationId: r.operationId, fromStationFt: r.fromStationFt, toStationFt: r.toStationFt, discovered: r.discovered });
@@ -50,6 +52,8 @@ type ReforecastBody = z.output<typeof reforecastSchema>;
 /**
  * Queues a re-forecast from the as-built state at `dataDate`; a worker computes it and stores it as a run with
  * that data date. The job's key includes the field entries it uses, so a new entry means a new computation.
+ * When the data date is today and the project's cached forecast is recent, the re-forecast starts from it
+ * (./forecast/reforecast-input); the key names that forecast too, so a newer forecast is a new computation.
  */
 export async function queueReforecast({ scenario, body, userId, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; now?: Date }) {
   const plan = validateDefinition(scenario.definition);
@@ -64,12 +68,15 @@ export async function queueReforecast({ scenario, body, userId, now = new Date()
   const overBudget = budgetProblem(plan, body.iterations, "server");
   if (overBudget) throw badRequest([overBudget], "The re-forecast is larger than the server's work budget; nothing was run or saved.");
   const rows = await listProgress({ scenarioId: scenario.id });
-  const hash = reforecastInputsHash({ definition: scenario.definition, records: rows.map(toRecord), dataDate: body.dataDate, seed: body.seed, iterations: body.iterations });
+  const cached = body.dataDate === today ? await getCachedForecast({ projectId: scenario.projectId }) : null;
+  const forecast = forecastForReforecast({ plan, dataDate: body.dataDate, today, now, cached });
+  const hash = reforecastInputsHash({ definition: scenario.definition, records: rows.map(toRecord), dataDate: body.dataDate, seed: body.seed, iterations: body.iterations, forecast });
   const { job } = await queueRunJob({
     plan,
     projectId: scenario.projectId,
     computation: { scenarioId: scenario.id, scenarioVersion: scenario.version, seed: body.seed, iterations: body.iterations, reforecast: { dataDate: body.dataDate, inputsHash: hash } },
     userId,
+    forecast,
   });
   return job;
 }

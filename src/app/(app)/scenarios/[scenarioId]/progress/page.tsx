@@ -15,6 +15,8 @@ import { ProgressForm, type PlanFacts } from "./progress-form";
 import { ProgressTable, type EntryView } from "./progress-table";
 import { ReforecastPanel } from "./reforecast-panel";
 import { orNotFound } from "@/lib/server/page-access";
+import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
+import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
 
 export const metadata: Metadata = { title: "Field log" };
 
@@ -68,7 +70,9 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
     ...(planRun ? [{ label: "Plan", ...((planRun.summary as { finish: { p50: string; p80: string } }).finish) }] : []),
     ...drift.map((r) => ({ label: formatIsoDate(r.dataDate), ...((r.summary as { finish: { p50: string; p80: string } }).finish) })),
   ];
-  const digest = latestRe ? (latestRe.results as { reforecast?: { entriesUsed: number; discovery: { inspected: number; found: number; planMean: number; updatedMean: number } } }).reforecast : undefined;
+  type Digest = { entriesUsed: number; discovery: { inspected: number; found: number; planMean: number; updatedMean: number }; weatherForecast?: { fetchedAt: string } };
+  const latestResults = latestRe ? (latestRe.results as { reforecast?: Digest; forecastDates?: string[] }) : undefined;
+  const digest = latestResults?.reforecast;
 
   return (
     <div className="space-y-5">
@@ -91,7 +95,8 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
         <p className="text-sm text-muted">
           A re-forecast starts from what is built at the data date — done work keeps its recorded time, cures continue, crews already on site stay mobilized — and
           simulates the rest. The discovered-condition rate seen so far updates the risk for the rest of the deck (a beta-binomial update: the survey counts as much
-          as 20 inspected packets).
+          as 20 inspected packets). When the data date is today and the project has a recent weather forecast (see Week ahead), the first days come from that
+          forecast — each hour&apos;s chance of rain decides, iteration by iteration, whether it rains — and the climate profile takes over after them.
         </p>
         {canRun && <ReforecastPanel scenarioId={scenario.id} defaultDate={lastDate || plan.startDate} minDate={plan.startDate} maxDate={facts.today} />}
         {digest && (
@@ -99,6 +104,11 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
             Latest re-forecast from {formatIsoDate(latestRe!.dataDate)}: {digest.entriesUsed} shifts used; {digest.discovery.found} of {digest.discovery.inspected} inspected
             packets had discovered conditions, so the mean discovery probability moved from {(digest.discovery.planMean * 100).toFixed(1)} % to{" "}
             {(digest.discovery.updatedMean * 100).toFixed(1)} %.
+          </p>
+        )}
+        {digest && (
+          <p className="text-sm" data-testid="reforecast-weather">
+            {forecastSourceSentence({ forecastDates: latestResults?.forecastDates, fetchedAt: digest.weatherForecast?.fetchedAt, timeZone: plan.timeZone, maxAgeHours: MAX_AGE_HOURS })}
           </p>
         )}
         {points.length > 0 ? <DriftChart points={points} /> : <p className="text-sm text-muted">No forecasts yet: run the plan on the Outlook tab, then re-forecast here.</p>}
