@@ -101,7 +101,9 @@ describe("the law: a forecast equal to the fixed-mode climate changes nothing", 
       }),
       { numRuns: 60 },
     );
-    expect(bound).toBeGreaterThan(10);
+    // About a quarter of generated cases read the forecast days (138 of 500 in one long run). At least 4 of 60:
+    // a binomial(60, 0.25) falls that low about once in 10^5 runs, so the guard fails only when the law is idle.
+    expect(bound).toBeGreaterThanOrEqual(4);
   }, 120_000);
 
   it("the full-size demo in fixed mode (stages, traffic, costs, cut-off) under way with its field log: the same summary", () => {
