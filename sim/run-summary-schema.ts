@@ -31,11 +31,16 @@ const closureKind = z.enum(["short", "standing"]);
 const dateQuantilesSchema = z.object({ p10: when, p50: when, p80: when, p90: when }).strict();
 const numberQuantilesSchema = z.object({ p50: num.nullable(), p80: num.nullable(), mean: num.nullable() }).strict();
 
+/**
+ * Hours since the start in a trace: a packet of an unfinished iteration has no start or finish before the
+ * horizon (Infinity), which JSON carries as null; read back as Infinity (the chart leaves such packets out).
+ */
+const traceHours = z.union([num, z.null().transform(() => Infinity)]);
 const tracePacketSchema = z
-  .object({ op: text(40), stage: text(40).optional(), packet: count, crew: z.number().int().min(-1), start: num, finish: num, mobilizedFrom: num.optional() })
+  .object({ op: text(40), stage: text(40).optional(), packet: count, crew: z.number().int().min(-1), start: traceHours, finish: traceHours, mobilizedFrom: traceHours.optional() })
   .strict();
 const pauseRecordSchema = z
-  .object({ op: text(40), stage: text(40).optional(), packet: count, crew: z.number().int().min(-1), start: num, end: num, reason: z.enum(["weather", "closed"]) })
+  .object({ op: text(40), stage: text(40).optional(), packet: count, crew: z.number().int().min(-1), start: traceHours, end: traceHours, reason: z.enum(["weather", "closed"]) })
   .strict();
 const traceSchema = z.object({ packets: list(tracePacketSchema, MAX_TRACE_ITEMS), pauses: list(pauseRecordSchema, MAX_TRACE_ITEMS) }).strict();
 

@@ -104,6 +104,22 @@ describe("run-summary contract", () => {
     expect(paths).toEqual(expect.arrayContaining(["target.probability", "finish.p80"]));
   });
 
+  it("a plan that never finishes (a pour no day allows) round-trips with its unfinished packets as Infinity", () => {
+    // Overlay needs 120 °F air: no hour of the fixed climate reaches it, so every iteration hits the horizon and
+    // the representative trace holds packets with no start or finish (Infinity, null over JSON).
+    const never = parsed(small((s) => {
+      const overlay = (s.operations as { id: string; gates?: Record<string, unknown> }[]).find((o) => o.id === "overlay")!;
+      overlay.gates = { ...overlay.gates, minTempF: 120 };
+    }));
+    const summary = runScenario(never, { iterations: 4, seed: "never" });
+    expect(summary.representative.finishHours).toBe(Infinity);
+    const open = summary.representative.trace.packets.filter((p) => !Number.isFinite(p.finish));
+    expect(open.length).toBeGreaterThan(0);
+    const r = runSummarySchema.safeParse(JSON.parse(JSON.stringify(summary)));
+    expect(r.success, JSON.stringify(r.error?.issues.slice(0, 3))).toBe(true);
+    expect(r.data).toEqual(summary);
+  });
+
   it("reads an unfinished representative (null over JSON) back as Infinity", () => {
     const summary = JSON.parse(JSON.stringify(runScenario(parsed(loadScenario("small-deterministic.json")), { iterations: 10, seed: "x" })));
     summary.representative.finishHours = null;
