@@ -77,8 +77,8 @@ export function SearchForm({ scenarioId, plan }: { scenarioId: string; plan: Pla
             <label className="flex w-64 items-center gap-2">
               <input type="checkbox" checked={crews[o.id]?.on ?? false} onChange={(e) => setCrews({ ...crews, [o.id]: { ...crews[o.id], on: e.target.checked } })} /> {o.name}
             </label>
-            <label>from <input type="number" min={1} max={10} className="field-input w-16" value={crews[o.id]?.from ?? 1} onChange={(e) => setCrews({ ...crews, [o.id]: { ...crews[o.id], from: Number(e.target.value) } })} aria-label={`${o.name}: fewest crews`} /></label>
-            <label>to <input type="number" min={1} max={10} className="field-input w-16" value={crews[o.id]?.to ?? 2} onChange={(e) => setCrews({ ...crews, [o.id]: { ...crews[o.id], to: Number(e.target.value) } })} aria-label={`${o.name}: most crews`} /></label>
+            <label>from <input type="number" min={1} max={10} className="field-input mt-0 ml-1 inline-block w-16" value={crews[o.id]?.from ?? 1} onChange={(e) => setCrews({ ...crews, [o.id]: { ...crews[o.id], from: Number(e.target.value) } })} aria-label={`${o.name}: fewest crews`} /></label>
+            <label>to <input type="number" min={1} max={10} className="field-input mt-0 ml-1 inline-block w-16" value={crews[o.id]?.to ?? 2} onChange={(e) => setCrews({ ...crews, [o.id]: { ...crews[o.id], to: Number(e.target.value) } })} aria-label={`${o.name}: most crews`} /></label>
             {plan.calendar.shifts.length > 1 && (
               <label className="ml-4 flex items-center gap-2">
                 <input type="checkbox" checked={shiftOps[o.id] ?? false} onChange={(e) => setShiftOps({ ...shiftOps, [o.id]: e.target.checked })} /> try each shift alone and all together
@@ -89,20 +89,20 @@ export function SearchForm({ scenarioId, plan }: { scenarioId: string; plan: Pla
       </fieldset>
       <fieldset className="space-y-2 text-sm">
         <legend className="field-label">Calendar</legend>
-        <label className="flex items-center gap-2"><input type="checkbox" checked={holidays} onChange={(e) => setHolidays(e.target.checked)} /> Stand down for holidays, and work through them</label>
+        <label className="flex items-center gap-2"><input type="checkbox" checked={holidays} onChange={(e) => setHolidays(e.target.checked)} /> Holidays: both standing down and working through</label>
         {plan.calendar.closureWindows.length > 1 && (
-          <label className="flex items-center gap-2"><input type="checkbox" checked={windows} onChange={(e) => setWindows(e.target.checked)} /> All closure windows, and each one left out in turn</label>
+          <label className="flex items-center gap-2"><input type="checkbox" checked={windows} onChange={(e) => setWindows(e.target.checked)} /> Closure windows: all of them, and each one left out in turn</label>
         )}
         <div className="flex flex-wrap items-center gap-2">
-          <label className="flex items-center gap-2"><input type="checkbox" checked={season} onChange={(e) => setSeason(e.target.checked)} /> One season, and two seasons with a cut-off on</label>
-          <input type="date" className="field-input" value={cutoffDate} onChange={(e) => setCutoffDate(e.target.value)} aria-label="Cut-off date" />
-          <label>at station (ft) <input type="number" className="field-input w-28" value={cutoffStation} onChange={(e) => setCutoffStation(Number(e.target.value))} /></label>
+          <label className="flex items-center gap-2"><input type="checkbox" checked={season} onChange={(e) => setSeason(e.target.checked)} /> Seasons: one, and two with the first ending on</label>
+          <input type="date" className="field-input mt-0 inline-block w-44" value={cutoffDate} onChange={(e) => setCutoffDate(e.target.value)} aria-label="Cut-off date" />
+          <label>at station (ft) <input type="number" className="field-input mt-0 ml-1 inline-block w-28" value={cutoffStation} onChange={(e) => setCutoffStation(Number(e.target.value))} /></label>
         </div>
         <div className="flex flex-wrap items-center gap-2">
-          <label className="flex items-center gap-2"><input type="checkbox" checked={start.on} onChange={(e) => setStart({ ...start, on: e.target.checked })} /> Start between</label>
-          <input type="date" className="field-input" value={start.from} onChange={(e) => setStart({ ...start, from: e.target.value })} aria-label="Earliest start" />
-          and <input type="date" className="field-input" value={start.to} onChange={(e) => setStart({ ...start, to: e.target.value })} aria-label="Latest start" />
-          <label>every <input type="number" min={1} max={90} className="field-input w-16" value={start.stepDays} onChange={(e) => setStart({ ...start, stepDays: Number(e.target.value) })} /> days</label>
+          <label className="flex items-center gap-2"><input type="checkbox" checked={start.on} onChange={(e) => setStart({ ...start, on: e.target.checked })} /> Start dates: between</label>
+          <input type="date" className="field-input mt-0 inline-block w-44" value={start.from} onChange={(e) => setStart({ ...start, from: e.target.value })} aria-label="Earliest start" />
+          and <input type="date" className="field-input mt-0 inline-block w-44" value={start.to} onChange={(e) => setStart({ ...start, to: e.target.value })} aria-label="Latest start" />
+          <label>every <input type="number" min={1} max={90} className="field-input mt-0 mx-1 inline-block w-16" value={start.stepDays} onChange={(e) => setStart({ ...start, stepDays: Number(e.target.value) })} /> days</label>
         </div>
       </fieldset>
       <div className="flex flex-wrap items-end gap-4">
