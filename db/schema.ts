@@ -25,6 +25,7 @@ import { ROLES } from "./schema-enums";
 import type { SearchSpec } from "../sim/search";
 import type { PlanOutcome } from "../sim/frontier";
 import type { RunSummary } from "../sim/run-summary-schema";
+import type { ProgressEntry } from "../sim/progress-entry";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 const ts = (name: string) => timestamp(name, { withTimezone: true, mode: "date" });
@@ -248,7 +249,7 @@ export const progressEntries = pgTable(
     rain: boolean("rain").notNull().default(false),
     lostHours: doublePrecision("lost_hours").notNull().default(0),
     lostReason: text("lost_reason").notNull().default(""),
-    discovered: jsonb("discovered").$type<{ kind: string; fromStationFt: number; toStationFt: number; areaSqFt: number }[]>().notNull().default(sql`'[]'::jsonb`),
+    discovered: jsonb("discovered").$type<ProgressEntry["discovered"]>().notNull().default(sql`'[]'::jsonb`),
     version: integer("version").notNull().default(1),
     enteredById: text("entered_by")
       .notNull()
