@@ -5,6 +5,8 @@
 import { sql, type InferInsertModel, type InferSelectModel } from "drizzle-orm";
 import {
   boolean,
+  check,
+  type AnyPgColumn,
   customType,
   date,
   doublePrecision,
@@ -23,6 +25,7 @@ import { ROLES } from "./schema-enums";
 import type { SearchSpec } from "../sim/search";
 import type { PlanOutcome } from "../sim/frontier";
 import type { RunSummary } from "../sim/run-summary-schema";
+import type { ProgressEntry } from "../sim/progress-entry";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 const ts = (name: string) => timestamp(name, { withTimezone: true, mode: "date" });
@@ -173,8 +176,11 @@ export type SimulationRun = InferSelectModel<typeof simulationRuns>;
 export type StoredRunResults = RunSummary & { reforecast?: Record<string, unknown> };
 export type RunVerification = "server" | "pending" | "verified" | "rejected";
 
-/** What a share-link token opens: the read-only scenario page and its JSON, or only the closure calendar feed. */
-export const SHARE_SCOPES = ["scenario", "closure-feed"] as const;
+/**
+ * What a share-link token opens: the read-only scenario page and its JSON, only the closure calendar feed, or
+ * one plan search (its frontier and table; `search_id` names it, and only a search link has one).
+ */
+export const SHARE_SCOPES = ["scenario", "closure-feed", "search"] as const;
 export type ShareScope = (typeof SHARE_SCOPES)[number];
 export const shareScopeEnum = pgEnum("share_scope", SHARE_SCOPES);
 
@@ -186,6 +192,8 @@ export const shareLinks = pgTable(
     scenarioId: uuid("scenario_id")
       .notNull()
       .references(() => scenarios.id, { onDelete: "cascade" }),
+    /** The plan search a "search" link opens (a search of `scenario_id`); null for every other scope. */
+    searchId: uuid("search_id").references((): AnyPgColumn => planSearches.id, { onDelete: "cascade" }),
     /** SHA-256 of the token; the token itself is shown once and never stored. */
     tokenHash: text("token_hash").notNull(),
     label: text("label").notNull().default(""),
@@ -196,7 +204,13 @@ export const shareLinks = pgTable(
     revokedAt: ts("revoked_at"),
     createdAt: ts("created_at").notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("share_links_token_idx").on(t.tokenHash)],
+  (t) => [
+    uniqueIndex("share_links_token_idx").on(t.tokenHash),
+    index("share_links_search_idx").on(t.searchId),
+    // A search link names its search and no other link does. Compared as text: a new enum value may not be
+    // used in the transaction that adds it, and migrations run in one.
+    check("share_links_search_scope", sql`(${t.scope}::text = 'search') = (${t.searchId} is not null)`),
+  ],
 );
 
 export const uploads = pgTable("uploads", {
@@ -235,7 +249,7 @@ export const progressEntries = pgTable(
     rain: boolean("rain").notNull().default(false),
     lostHours: doublePrecision("lost_hours").notNull().default(0),
     lostReason: text("lost_reason").notNull().default(""),
-    discovered: jsonb("discovered").$type<{ kind: string; fromStationFt: number; toStationFt: number; areaSqFt: number }[]>().notNull().default(sql`'[]'::jsonb`),
+    discovered: jsonb("discovered").$type<ProgressEntry["discovered"]>().notNull().default(sql`'[]'::jsonb`),
     version: integer("version").notNull().default(1),
     enteredById: text("entered_by")
       .notNull()

@@ -17,6 +17,7 @@ import { formatDayNumber, parseIsoDate, weekdayOfDayNumber, civilFromDays, daysI
 import { hourlyTempF, isRainHour } from "../sim/weather";
 import { checkProgressEntry, type RuleEntry } from "../sim/progress-rules";
 import type { Scenario } from "../sim/schema";
+import type { ProgressEntry } from "../sim/progress-entry";
 
 const ISO = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -41,20 +42,6 @@ export function shiftDates<T>(value: T, days: number): T {
   if (Array.isArray(value)) return value.map((v) => shiftDates(v, days)) as T;
   if (value && typeof value === "object") return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, shiftDates(v, days)])) as T;
   return value;
-}
-
-export interface DemoEntry {
-  workDate: string;
-  shift: string;
-  operationId: string;
-  fromStationFt: number;
-  toStationFt: number;
-  crew: string;
-  tempF: number | null;
-  rain: boolean;
-  lostHours: number;
-  lostReason: string;
-  discovered: { kind: "bottom-mat" | "full-depth"; fromStationFt: number; toStationFt: number; areaSqFt: number }[];
 }
 
 const CREW_NAMES: Record<string, string> = {
@@ -109,7 +96,7 @@ export function harsherWorld(plan: Scenario): Scenario {
   };
 }
 
-export function demoFieldLog(plan: Scenario, today: string): DemoEntry[] {
+export function demoFieldLog(plan: Scenario, today: string): ProgressEntry[] {
   const compiled = compileScenario(harsherWorld(plan));
   const samples = drawSamples(compiled.scenario, AS_BUILT_SEED, 0);
   const trace = simulate(compiled, samples, { trace: true }).trace!;
@@ -155,7 +142,7 @@ export function demoFieldLog(plan: Scenario, today: string): DemoEntry[] {
     const key = `${p.op}|${p.shift}|${p.day}`;
     groups.set(key, [...(groups.get(key) ?? []), p]);
   }
-  const entries: (DemoEntry & { order: number })[] = [];
+  const entries: (ProgressEntry & { order: number })[] = [];
   for (const [key, list] of groups) {
     const { op: oi, shift, day } = list[0];
     const op = plan.operations[oi];

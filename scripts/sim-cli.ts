@@ -2,13 +2,14 @@
  * Command line: `npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff]`.
  * Prints one JSON object with --json (iterations, seed, finish P10–P90 as ISO dates, per-operation P50/P80,
  * weather-lost shifts, convergence, …; with a traffic/costs section `delay: {vehicleHours: {p50, p80}}` and
- * `cost: {roadUser: {p50, p80}, contract: {p50, p80}}`, and `queueLimitBreaches: {limitMiles, p50, p80, anyShare}`:
- * days per iteration whose longest queue exceeded `--queue-limit-miles`, default 1), otherwise a readable summary. `--tradeoff` adds the
+ * `cost: {roadUser: {p50, p80}, contract: {p50, p80}}`, and `queueLimitBreaches: {limit: {unit, value}, p50, p80, anyShare}`:
+ * days per iteration whose longest queue broke the limit — the scenario's `traffic.queueLimit` (sim/queue-limit),
+ * or `--queue-limit-miles X` / `--queue-limit-minutes X` instead), otherwise a readable summary. `--tradeoff` adds the
  * holiday trade-off (same seeds, stand down vs work through). Exit codes: 0 done; 2 for a bad
  * command line, an unreadable file, invalid JSON or an invalid scenario (each problem as `path: message`).
  */
 import { readFileSync } from "node:fs";
-import { DEFAULT_QUEUE_LIMIT } from "../sim/advisor";
+import { describeQueueLimit, queueLimitOf, queueLimitSchema, type QueueLimit } from "../sim/queue-limit";
 import { compileScenario, holidayTradeoff, parseScenario, runIterations, summarizeRun } from "../sim/index";
 import { queueBreachCounter } from "../sim/queue-breaches";
 
@@ -17,22 +18,26 @@ function fail(lines: string[]): never {
   process.exit(2);
 }
 
-const USAGE = "usage: npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff] [--queue-limit-miles X]";
+const USAGE = "usage: npm run sim -- <scenario.json> [--iterations N] [--seed S] [--json] [--tradeoff] [--queue-limit-miles X | --queue-limit-minutes X]";
 const argv = process.argv.slice(2);
 let file: string | undefined;
 let iterations = 1000;
 let seed = "pourline";
 let json = false;
 let tradeoff = false;
-let queueLimitMiles = DEFAULT_QUEUE_LIMIT.miles;
+/** A limit given on the command line replaces the scenario's own. */
+let limitOverride: QueueLimit | null = null;
 for (let i = 0; i < argv.length; i++) {
   const a = argv[i];
   if (a === "--json") json = true;
   else if (a === "--tradeoff") tradeoff = true;
-  else if (a === "--queue-limit-miles") {
+  else if (a === "--queue-limit-miles" || a === "--queue-limit-minutes") {
     const v = argv[++i];
-    queueLimitMiles = Number(v);
-    if (v === undefined || !(queueLimitMiles > 0 && queueLimitMiles <= 100)) fail([`--queue-limit-miles must be a number of miles above 0 and at most 100 (got "${v ?? ""}")`, USAGE]);
+    if (limitOverride) fail([`give one queue limit, in miles or in minutes, not both`, USAGE]);
+    const unit = a === "--queue-limit-miles" ? "miles" : "minutes";
+    const parsed = queueLimitSchema.safeParse({ unit, value: v === undefined || v.trim() === "" ? NaN : Number(v) });
+    if (!parsed.success) fail([`${a} ${parsed.error.issues[0].message} (got "${v ?? ""}")`, USAGE]);
+    limitOverride = parsed.data;
   } else if (a === "--iterations" || a === "--seed") {
     const v = argv[++i];
     if (v === undefined) fail([`${a} needs a value`, USAGE]);
@@ -64,7 +69,7 @@ if (!parsed.ok) fail([`scenario "${file}" is not valid:`, ...parsed.problems.map
 
 const compiled = compileScenario(parsed.scenario);
 const started = performance.now();
-const breaches = queueBreachCounter(compiled, queueLimitMiles);
+const breaches = queueBreachCounter(compiled, limitOverride ?? queueLimitOf(parsed.scenario));
 const summary = summarizeRun(compiled, runIterations(compiled, seed, 0, iterations, undefined, undefined, breaches.read));
 const queueLimitBreaches = breaches.quantiles();
 const seconds = (performance.now() - started) / 1000;
@@ -117,7 +122,7 @@ if (json) {
     ...(s.winterStandingShare > 0 ? [`A standing closure stays through a winter in ${(s.winterStandingShare * 100).toFixed(1)} % of iterations`] : []),
     `Convergence: P80 of the two halves differ by ${s.convergenceDays === null ? "n/a" : `${s.convergenceDays.toFixed(2)} days`}`,
     ...(s.delay ? [`Delay P50 ${vh(s.delay.vehicleHours.p50)}, P80 ${vh(s.delay.vehicleHours.p80)}${s.traffic?.maxQueue ? `; longest queue (representative) ${s.traffic.maxQueue.miles} mi on ${s.traffic.maxQueue.date}` : ""}`] : []),
-    ...(queueLimitBreaches ? [`Days with a queue over ${queueLimitBreaches.limitMiles} mi: P50 ${queueLimitBreaches.p50}, P80 ${queueLimitBreaches.p80} (at least one in ${(queueLimitBreaches.anyShare * 100).toFixed(1)} % of iterations)`] : []),
+    ...(queueLimitBreaches ? [`Days over the queue limit of ${describeQueueLimit(queueLimitBreaches.limit)}: P50 ${queueLimitBreaches.p50}, P80 ${queueLimitBreaches.p80} (at least one in ${(queueLimitBreaches.anyShare * 100).toFixed(1)} % of iterations)`] : []),
     ...(s.cost ? [`Cost (${s.cost.valueOfTimeYear} $): road-user P50 ${money(s.cost.roadUser?.p50 ?? null)}, P80 ${money(s.cost.roadUser?.p80 ?? null)}; contract P50 ${money(s.cost.contract?.p50 ?? null)}, P80 ${money(s.cost.contract?.p80 ?? null)}`] : []),
     ...(trade
       ? [

@@ -3,7 +3,7 @@
  * closure (a short-term closure, alone or on top of the standing closure of a stage it works in, and each
  * stage's standing closure) and each demand day kind, from the hourly demand and the closure's capacity (the
  * capacity rules of ./traffic-capacity, MODEL.md "Traffic"), it says which hours keep the D/D/1 queue under a
- * limit (miles of queue, and/or minutes of delay for the vehicle at its end). Contract:
+ * limit (./queue-limit: miles of queue, or minutes of delay for the vehicle at its end). Contract:
  * - `longestClosureFrom[h]`: the most whole hours a closure set up at h:00 may stand with the queue under the
  *   limit (0–24); hour h is a good start when it is at least 1;
  * - `planned`: the queue of the scenario's own windows of that closure on that day kind (the whole window,
@@ -19,15 +19,8 @@ import type { DayType, Scenario } from "./schema";
 import { resolveStages } from "./stages";
 import { compileTraffic, DEMAND_KINDS, queuePiece, type CompiledDirection, type DemandKind, type QueuePiece, type TrafficModel } from "./traffic";
 import { capacityOf } from "./traffic-capacity";
+import { breaksLimit, lastVehicleDelayMinutes, queueLimitOf, type QueueLimit } from "./queue-limit";
 
-/** A queue limit: a breach when either given bound is exceeded. */
-export interface QueueLimit {
-  miles: number;
-  minutes?: number;
-}
-
-/** Common practice, no published source: many agencies cap a work-zone queue near one mile. */
-export const DEFAULT_QUEUE_LIMIT: QueueLimit = { miles: 1 };
 
 /** The demand kind of the day after (an overnight window runs into it). */
 export const NEXT_KIND: Record<DemandKind, DemandKind> = { weekday: "weekday", friday: "saturday", saturday: "sunday", sunday: "weekday", holidayPeak: "holidayPeak" };
@@ -49,6 +42,8 @@ export interface HourAdvice {
   longestClosureFrom: number;
   /** Queue of the planned windows at the end of this hour (binding direction), miles; 0 outside them. */
   plannedQueueMiles: number;
+  /** Delay of the vehicle at the end of that queue (served at the closure's capacity), minutes. */
+  plannedDelayMinutes: number;
 }
 
 export interface PlannedCheck {
@@ -93,7 +88,7 @@ interface Peak {
 function walkClosure(strip: Float64Array, cap: number, openCap: number, from: number, length: number, o: { startQueue?: number; discharge?: boolean; queueAt?: Float64Array } = {}): Peak & { end: number } {
   const piece: QueuePiece = { queue: 0, delay: 0, clearsAfter: -1 };
   let q = o.startQueue ?? 0;
-  const peak: Peak = { veh: q, minutes: q > 0 ? (cap > 0 ? (60 * q) / cap : Infinity) : 0, hour: Math.floor(from) % 24 };
+  const peak: Peak = { veh: q, minutes: lastVehicleDelayMinutes(q, cap), hour: Math.floor(from) % 24 };
   let t = from;
   const stop = from + length;
   while (t < strip.length && (t < stop || (o.discharge !== false && q > 0))) {
@@ -107,7 +102,7 @@ function walkClosure(strip: Float64Array, cap: number, openCap: number, from: nu
       peak.veh = q;
       peak.hour = (Math.ceil(hb) - 1) % 24;
     }
-    const minutes = q > 0 ? (mu > 0 ? (60 * q) / mu : Infinity) : 0;
+    const minutes = lastVehicleDelayMinutes(q, mu);
     if (minutes > peak.minutes) peak.minutes = minutes;
     if (o.queueAt && closed && hb === Math.ceil(hb)) o.queueAt[(hb - 1) % 24] = Math.max(o.queueAt[(hb - 1) % 24], q);
     if (q0 <= 0 && q <= 0 && !closed) break;
@@ -128,7 +123,7 @@ function strip(dir: CompiledDirection, kind: DemandKind): Float64Array {
 const miles = (m: TrafficModel, dir: CompiledDirection, veh: number) => (veh * dir.pcPerVeh) / (m.jamDensity * dir.storageLanes);
 
 function breaks(m: TrafficModel, dir: CompiledDirection, p: Peak, limit: QueueLimit): boolean {
-  return miles(m, dir, p.veh) > limit.miles + 1e-9 || (limit.minutes !== undefined && p.minutes > limit.minutes + 1e-9);
+  return breaksLimit(limit, { miles: miles(m, dir, p.veh), minutes: p.minutes }) === true;
 }
 
 /** The set of timeline closures (bits) each advice entry stands for, with its labels. */
@@ -157,8 +152,8 @@ function windowsOn(s: Scenario, closure: string, kind: DemandKind): { start: num
     .map((w) => ({ start: w.startHour, end: w.endHour, length: w.endHour > w.startHour ? w.endHour - w.startHour : 24 - w.startHour + w.endHour }));
 }
 
-/** The advice for every closure × demand day kind; [] without a traffic section. */
-export function closureHoursAdvice(s: Scenario, limit: QueueLimit = DEFAULT_QUEUE_LIMIT): ClosureAdvice[] {
+/** The advice for every closure × demand day kind, against the scenario's own queue limit unless another is given; [] without a traffic section. */
+export function closureHoursAdvice(s: Scenario, limit: QueueLimit = queueLimitOf(s)): ClosureAdvice[] {
   const m = compileTraffic(s, parseIsoDate(s.startDate), 1);
   if (!m) return [];
   const out: ClosureAdvice[] = [];
@@ -229,6 +224,7 @@ export function closureHoursAdvice(s: Scenario, limit: QueueLimit = DEFAULT_QUEU
           capacity: bd.cap,
           longestClosureFrom: longest[h],
           plannedQueueMiles: miles(m, bd.dir, bindingQueue[h]),
+          plannedDelayMinutes: lastVehicleDelayMinutes(bindingQueue[h], bd.cap),
         })),
       });
     }

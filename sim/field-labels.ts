@@ -98,6 +98,7 @@ const LABELS: Record<string, string | [string, string]> = {
   traffic: "Traffic",
   directions: ["Directions", "Direction"],
   demand: "Demand",
+  queueLimit: "Queue limit",
   costs: "Costs",
   definition: "Scenario",
   changeNote: "Change note",

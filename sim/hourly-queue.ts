@@ -5,13 +5,15 @@
  * ./traffic-capacity; the queue grows at demand − capacity, a queue left when every lane reopens discharges at
  * the open-road rate, no closure and no queue adds nothing), so each day's largest hourly value equals the
  * day's longest queue of the run summary. Out: per day since startDate, the longest queue (miles, over the
- * directions) within each clock hour. Pure; it reads a stored run and simulates nothing.
+ * directions) within each clock hour, and the longest delay of the vehicle at the end of a queue (minutes,
+ * ./queue-limit: queue / the rate it is served at). Pure; it reads a stored run and simulates nothing.
  */
 import { parseIsoDate } from "./dates";
 import type { Scenario } from "./schema";
 import { resolveStages } from "./stages";
 import { compileTraffic, queuePiece, type QueuePiece } from "./traffic";
 import { capacityOf } from "./traffic-capacity";
+import { lastVehicleDelayMinutes } from "./queue-limit";
 
 export interface StoredPeriod {
   closure: string;
@@ -26,6 +28,8 @@ export interface HourlyQueues {
   miles: Float64Array[];
   /** vehicles[d][h] of the direction with the longest queue that hour. */
   vehicles: Float64Array[];
+  /** minutes[d][h]: longest delay of the last vehicle in a queue in that hour, minutes (max over directions). */
+  minutes: Float64Array[];
 }
 
 const hoursOf = (day0: number, iso: string) => 24 * (parseIsoDate(iso.slice(0, 10)) - day0) + Number(iso.slice(11, 13)) + Number(iso.slice(14, 16)) / 60;
@@ -47,6 +51,7 @@ export function hourlyQueues(s: Scenario, periods: StoredPeriod[]): HourlyQueues
   const nDays = days - firstDay;
   const miles = Array.from({ length: nDays }, () => new Float64Array(24));
   const vehicles = Array.from({ length: nDays }, () => new Float64Array(24));
+  const minutes = Array.from({ length: nDays }, () => new Float64Array(24));
   const piece: QueuePiece = { queue: 0, delay: 0, clearsAfter: -1 };
 
   for (const dir of m.directions) {
@@ -55,10 +60,12 @@ export function hourlyQueues(s: Scenario, periods: StoredPeriod[]): HourlyQueues
     const cuts = [...new Set(mine.flatMap((p) => [p.a, p.b]))].sort((x, y) => x - y);
     const toMiles = (veh: number) => (veh * dir.pcPerVeh) / (m.jamDensity * dir.storageLanes);
     let q = 0;
-    const note = (t: number, veh: number) => {
+    const note = (t: number, veh: number, served: number) => {
       const d = Math.floor(t / 24) - firstDay;
       const h = Math.floor(t) % 24;
       if (d < 0 || d >= nDays) return;
+      const wait = lastVehicleDelayMinutes(veh, served);
+      if (wait > minutes[d][h]) minutes[d][h] = wait;
       const mi = toMiles(veh);
       if (mi > miles[d][h]) {
         miles[d][h] = mi;
@@ -78,12 +85,13 @@ export function hourlyQueues(s: Scenario, periods: StoredPeriod[]): HourlyQueues
         if (!narrowed && q <= 0) break; // open road, no queue: nothing to add until the next closure
         const hb = Math.min(Math.floor(t) + 1, b);
         const q0 = q;
-        queuePiece(q, dir.hourDemand[Math.floor(t)], narrowed ? cap : dir.openCapacity, hb - t, piece);
+        const served = narrowed ? cap : dir.openCapacity;
+        queuePiece(q, dir.hourDemand[Math.floor(t)], served, hb - t, piece);
         q = piece.queue;
-        if (q0 > 0 || q > 0) note(t, Math.max(q0, q));
+        if (q0 > 0 || q > 0) note(t, Math.max(q0, q), served);
         t = hb;
       }
     }
   }
-  return { firstDay, miles, vehicles };
+  return { firstDay, miles, vehicles, minutes };
 }

@@ -1,23 +1,25 @@
 /**
  * Days whose longest queue broke a limit, per iteration (the CLI's `queueLimitBreaches`). Contract:
- * `queueBreachCounter(compiled, limitMiles)` gives a reader to pass to `runIterations` as `afterIteration`:
+ * `queueBreachCounter(compiled, limit)` gives a reader to pass to `runIterations` as `afterIteration`:
  * it walks that iteration's queues again with per-day detail (./cost, ./traffic) and counts the days on which
- * the longest queue of any direction exceeded `limitMiles`; `quantiles()` gives P50/P80 over the iterations
- * read (nearest rank). Kept out of the Monte Carlo columns so runs that do not ask pay nothing.
+ * the longest queue of any direction broke the limit (./queue-limit: miles of queue, or minutes of delay of the
+ * vehicle at its end); `quantiles()` gives P50/P80 over the iterations read (nearest rank). Kept out of the
+ * Monte Carlo columns so runs that do not ask pay nothing.
  */
 import { impactModel, iterationImpact, type ImpactDetail } from "./cost";
 import type { CompiledScenario, SimResult } from "./engine";
 import { nearestRank, sortedCopy } from "./percentiles";
+import { breaksLimit, type QueueLimit } from "./queue-limit";
 
 export interface QueueLimitBreaches {
-  limitMiles: number;
+  limit: QueueLimit;
   p50: number;
   p80: number;
   /** Share of iterations with at least one such day. */
   anyShare: number;
 }
 
-export function queueBreachCounter(c: CompiledScenario, limitMiles: number) {
+export function queueBreachCounter(c: CompiledScenario, limit: QueueLimit) {
   const m = impactModel(c);
   const counts: number[] = [];
   const read = (_k: number, r: SimResult) => {
@@ -27,7 +29,10 @@ export function queueBreachCounter(c: CompiledScenario, limitMiles: number) {
     iterationImpact(c, m, r, detail);
     let n = 0;
     for (let d = 0; d < t.days; d++) {
-      const broke = t.directions.some((dir, i) => (detail.perDirection[i].peakQueue[d] * dir.pcPerVeh) / (t.jamDensity * dir.storageLanes) > limitMiles);
+      const broke = t.directions.some((dir, i) => {
+        const q = detail.perDirection[i];
+        return breaksLimit(limit, { miles: (q.peakQueue[d] * dir.pcPerVeh) / (t.jamDensity * dir.storageLanes), minutes: q.peakDelayMinutes[d] }) === true;
+      });
       if (broke) n++;
     }
     counts.push(n);
@@ -35,7 +40,7 @@ export function queueBreachCounter(c: CompiledScenario, limitMiles: number) {
   const quantiles = (): QueueLimitBreaches | null => {
     if (!m?.traffic || counts.length === 0) return null;
     const sorted = sortedCopy(Float64Array.from(counts));
-    return { limitMiles, p50: nearestRank(sorted, 0.5), p80: nearestRank(sorted, 0.8), anyShare: counts.filter((x) => x > 0).length / counts.length };
+    return { limit, p50: nearestRank(sorted, 0.5), p80: nearestRank(sorted, 0.8), anyShare: counts.filter((x) => x > 0).length / counts.length };
   };
   return { read, quantiles };
 }

@@ -58,6 +58,8 @@ const trafficDaySchema = z
     /** The longest queue of the day over the directions: vehicles, miles and its direction. */
     peakQueueVeh: num,
     peakQueueMiles: num,
+    /** The day's longest delay of the vehicle at the end of a queue, minutes (./queue-limit); absent in runs stored before it was kept. */
+    peakDelayMinutes: num.optional(),
     direction: text(40).nullable(),
     /** When the day's longest queue cleared (local date-time), null if no queue or still standing at the horizon. */
     clearsAt: when.nullable(),

@@ -6,6 +6,7 @@
  */
 import { z } from "zod";
 import { LIMITS } from "./limits";
+import { DEFAULT_QUEUE_LIMIT, queueLimitSchema } from "./queue-limit";
 import { isKnownTimeZone, plainText, realIsoDate } from "./text";
 
 const isoDate = realIsoDate();
@@ -268,6 +269,11 @@ export const trafficSchema = z.object({
   jamDensityPcPerMiPerLane: z.number().min(100).max(300).default(190),
   directions: upTo(trafficDirectionSchema, 4, "directions"),
   closures: upTo(trafficClosureSchema, LIMITS.closures, "closures").default([]),
+  /**
+   * The queue the closures are held to (./queue-limit): miles of queue or minutes of delay. Scenarios saved
+   * before it existed read as the old default of 1 mile.
+   */
+  queueLimit: queueLimitSchema.default(DEFAULT_QUEUE_LIMIT),
 });
 export type Traffic = z.infer<typeof trafficSchema>;
 

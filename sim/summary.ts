@@ -158,11 +158,13 @@ function trafficDetail(c: CompiledScenario, m: ImpactModel, p: PartialRun, best:
     let delay = 0;
     let bestMiles = 0;
     let bestVeh = 0;
+    let bestMinutes = 0;
     let dir: string | null = null;
     let clears = NaN;
     t.directions.forEach((cd, i) => {
       const qd = detail.perDirection[i];
       delay += qd.delay[d];
+      if (qd.peakDelayMinutes[d] > bestMinutes) bestMinutes = qd.peakDelayMinutes[d];
       const miles = (qd.peakQueue[d] * cd.pcPerVeh) / (t.jamDensity * cd.storageLanes);
       if (qd.peakQueue[d] > 0 && miles > bestMiles) {
         bestMiles = miles;
@@ -173,7 +175,7 @@ function trafficDetail(c: CompiledScenario, m: ImpactModel, p: PartialRun, best:
     });
     if (!any && delay <= 0) continue;
     const date = formatDayNumber(day0 + d);
-    days.push({ date, laneClosedHours, delayVehHours: round(delay, 1), peakQueueVeh: Math.round(bestVeh), peakQueueMiles: round(bestMiles, 2), direction: dir, clearsAt: Number.isNaN(clears) ? null : dateTime(clears) });
+    days.push({ date, laneClosedHours, delayVehHours: round(delay, 1), peakQueueVeh: Math.round(bestVeh), peakQueueMiles: round(bestMiles, 2), peakDelayMinutes: round(bestMinutes, 1), direction: dir, clearsAt: Number.isNaN(clears) ? null : dateTime(clears) });
     if (bestMiles > (maxQueue?.miles ?? 0)) maxQueue = { miles: round(bestMiles, 2), vehicles: Math.round(bestVeh), date };
   }
   const fin = (x: number) => (Number.isFinite(x) ? Math.round(x) : null);

@@ -10,6 +10,7 @@
  */
 import { civilFromDays, parseIsoDate, weekdayOfDayNumber } from "./dates";
 import { federalHolidays } from "./holidays";
+import { lastVehicleDelayMinutes } from "./queue-limit";
 import type { Scenario, Traffic } from "./schema";
 import { timelineClosureTraffic, type TimelineClosureTraffic } from "./traffic-capacity";
 
@@ -231,13 +232,15 @@ export function nextHourOver(hourDemand: Float64Array, cap: number): Int32Array 
 export interface QueueDetail {
   delay: Float64Array;
   peakQueue: Float64Array;
+  /** The day's longest delay of the vehicle at the end of the queue, minutes (./queue-limit). */
+  peakDelayMinutes: Float64Array;
   /** When the day's longest queue episode (by the day it began) cleared, h since startDate; NaN if none. */
   clearsAt: Float64Array;
   episodePeak: Float64Array;
 }
 
 export function newQueueDetail(days: number): QueueDetail {
-  return { delay: new Float64Array(days), peakQueue: new Float64Array(days), clearsAt: new Float64Array(days).fill(NaN), episodePeak: new Float64Array(days) };
+  return { delay: new Float64Array(days), peakQueue: new Float64Array(days), peakDelayMinutes: new Float64Array(days), clearsAt: new Float64Array(days).fill(NaN), episodePeak: new Float64Array(days) };
 }
 
 const piece: QueuePiece = { queue: 0, delay: 0, clearsAfter: -1 };
@@ -278,14 +281,15 @@ function walk(dir: CompiledDirection, w: Walk, a: number, b: number, mu: number,
     queuePiece(q0, lam, mu, hb - t, piece);
     w.q = piece.queue;
     w.total += piece.delay;
-    if (detail) record(detail, w, Math.floor(hour / 24), q0, t);
+    if (detail) record(detail, w, Math.floor(hour / 24), q0, t, mu);
     if (untilEmpty && piece.clearsAfter >= 0) return t + piece.clearsAfter;
     t = hb;
   }
   return t;
 }
 
-function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number): void {
+/** Only for the detail of a chosen iteration (the summary's representative, the CLI's breach count): never in the Monte Carlo loop. */
+function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number, mu: number): void {
   const q = w.q;
   if (q0 <= 0 && q > 0) {
     w.episodeDay = day;
@@ -294,6 +298,9 @@ function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number
   detail.delay[day] += piece.delay;
   const peakHere = q > q0 ? q : q0;
   if (peakHere > detail.peakQueue[day]) detail.peakQueue[day] = peakHere;
+  // The queue is served at mu through this piece, so the vehicle at its end waits queue / mu (D/D/1).
+  const minutes = lastVehicleDelayMinutes(peakHere, mu);
+  if (minutes > detail.peakDelayMinutes[day]) detail.peakDelayMinutes[day] = minutes;
   if (peakHere > w.episodePeak) w.episodePeak = peakHere;
   if (piece.clearsAfter >= 0 && w.episodeDay >= 0 && w.episodePeak >= detail.episodePeak[w.episodeDay]) {
     detail.episodePeak[w.episodeDay] = w.episodePeak;

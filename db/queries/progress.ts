@@ -3,21 +3,10 @@ import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { progressEntries, progressHistory, simulationRuns, users } from "../schema";
 import { isForecast } from "./runs";
+import type { ProgressEntry } from "../../sim/progress-entry";
 
-/** The fields a person records about one shift (what history stores before and after a change). */
-export interface ProgressFields {
-  workDate: string;
-  shift: string;
-  operationId: string;
-  fromStationFt: number;
-  toStationFt: number;
-  crew: string;
-  tempF: number | null;
-  rain: boolean;
-  lostHours: number;
-  lostReason: string;
-  discovered: { kind: string; fromStationFt: number; toStationFt: number; areaSqFt: number }[];
-}
+/** The fields a person records about one shift (what history stores before and after a change): the entry contract's output. */
+export type ProgressFields = ProgressEntry;
 
 const entryColumns = {
   id: progressEntries.id,

@@ -8,6 +8,7 @@ import { formatDayNumber, parseIsoDate, weekdayOfDayNumber } from "@sim/dates";
 import { hourlyQueues } from "@sim/hourly-queue";
 import type { RunSummary } from "@sim/summary";
 import type { Scenario } from "@sim/schema";
+import { breaksLimit, queueLimitOf } from "@sim/queue-limit";
 import { compileTraffic } from "@sim/traffic";
 import { clock } from "./closure-advice-text";
 import { hoursSince } from "./exports/closures";
@@ -31,6 +32,10 @@ export interface AdvisoryDay {
   closures: AdvisoryClosure[];
   /** Longest expected backup of the day, miles (0 when none). */
   longestBackupMiles: number;
+  /** Longest expected delay of the day, minutes (the wait of the last vehicle in a queue; 0 when none). */
+  longestDelayMinutes: number;
+  /** Whether the day's backup passes the plan's own queue limit (sim/queue-limit). */
+  overLimit: boolean;
   /** Runs of clock hours whose backup passes AVOID_MILES, e.g. ["15:00–18:00"]. */
   avoid: string[];
 }
@@ -61,6 +66,7 @@ export function buildAdvisory(s: Scenario, summary: Pick<RunSummary, "startDate"
   const from = Math.max(0, parseIsoDate(today) - day0);
   const periods = timeline.map((p) => ({ ...p, a: hoursSince(s.startDate, p.start), b: hoursSince(s.startDate, p.end) })).filter((p) => p.b > p.a && p.lanes.length > 0);
   const queues = hourlyQueues(s, timeline);
+  const limit = queueLimitOf(s);
   const lastDay = Math.ceil(Math.max(0, ...periods.map((p) => p.b)) / 24) + 1;
   const traffic = compileTraffic(s, day0, lastDay + 1);
   const out: AdvisoryDay[] = [];
@@ -70,6 +76,7 @@ export function buildAdvisory(s: Scenario, summary: Pick<RunSummary, "startDate"
       .map((p) => ({ name: p.name, lanes: p.lanes, standing: p.kind === "standing", from: hhmm(Math.max(p.a, 24 * d) - 24 * d), to: hhmm(Math.min(p.b, 24 * (d + 1)) - 24 * d) }));
     const row = queues && d - queues.firstDay >= 0 && d - queues.firstDay < queues.miles.length ? queues.miles[d - queues.firstDay] : null;
     const longest = row ? Math.max(...row) : 0;
+    const longestMinutes = row ? Math.max(...queues!.minutes[d - queues!.firstDay]) : 0;
     if (closures.length === 0 && longest <= 0) continue;
     out.push({
       date: formatDayNumber(day0 + d),
@@ -78,6 +85,8 @@ export function buildAdvisory(s: Scenario, summary: Pick<RunSummary, "startDate"
       holidayWeekend: traffic ? traffic.dayKind[d] === 4 : false,
       closures,
       longestBackupMiles: Math.round(longest * 10) / 10,
+      longestDelayMinutes: Math.round(longestMinutes),
+      overLimit: breaksLimit(limit, { miles: longest, minutes: longestMinutes }) === true,
       avoid: row ? runs(Array.from(row, (x) => x > AVOID_MILES)) : [],
     });
   }

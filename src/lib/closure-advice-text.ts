@@ -2,7 +2,8 @@
  * Plain words for the closure-hours advisor (sim/advisor.ts), shared by the plan editor, the results and the
  * public advisory: clock times, day kinds, the warning a planned window earns and the runs of good start hours.
  */
-import type { ClosureAdvice, QueueLimit } from "@sim/advisor";
+import type { ClosureAdvice } from "@sim/advisor";
+import { describeQueueLimit, type QueueLimit } from "@sim/queue-limit";
 import type { DemandKind } from "@sim/traffic";
 
 export const DAY_KIND_LABEL: Record<DemandKind, string> = {
@@ -31,12 +32,9 @@ export function breachWarning(a: ClosureAdvice, limit: QueueLimit): string | nul
   if (!p || !p.breaks) return null;
   const when = a.kind === "standing" ? "standing round the clock" : `open ${p.windows.map((w) => windowLabel(w)).join(" and ")}`;
   const minutes = Number.isFinite(p.peakDelayMinutes) ? `${Math.round(p.peakDelayMinutes)} minutes of delay` : "no way through";
-  return `${a.name} on ${DAY_KIND_LABEL[a.dayKind]}, ${when}: the queue reaches ${mi(p.peakQueueMiles)} mi (${Math.round(p.peakQueueVeh).toLocaleString("en-US")} vehicles, ${minutes}) around ${clock(p.peakHour)} — over the limit of ${limitWords(limit)}.`;
+  return `${a.name} on ${DAY_KIND_LABEL[a.dayKind]}, ${when}: the queue reaches ${mi(p.peakQueueMiles)} mi (${Math.round(p.peakQueueVeh).toLocaleString("en-US")} vehicles, ${minutes}) around ${clock(p.peakHour)} — over the limit of ${describeQueueLimit(limit)}.`;
 }
 
-export function limitWords(l: QueueLimit): string {
-  return l.minutes !== undefined ? `${l.miles} mi or ${l.minutes} min` : `${l.miles} mi`;
-}
 
 /**
  * Runs of start hours from which a closure of at least `hours` keeps the queue under the limit, e.g.

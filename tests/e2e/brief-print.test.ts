@@ -3,7 +3,9 @@
  * PDF is read back page by page (pdfjs-dist). Before printing, nothing inside the brief may stick out of its
  * print box and nothing clickable may show; in the PDF every chart is there with its last date label (the
  * time–distance chart to the season-2 finish), there are no sort arrows or buttons, and the iteration count is
- * stated, with the warning a 200-iteration forecast deserves.
+ * stated, with the warning a 200-iteration forecast deserves. The traffic section prints whole: the closure
+ * plan, the longest backups (the run's longest queue among them), the days over the plan's queue limit, the
+ * holiday trade-off computed on the run's seed (every row of it), and the work-zone safety caution.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
@@ -73,6 +75,10 @@ describe("the owner brief prints whole", () => {
     await brief.open("brief");
     await page.getByTestId("owner-brief").waitFor();
     await page.getByTestId("time-distance-chart").locator("svg").first().waitFor();
+    // The holiday trade-off is computed in the browser when the brief opens: print once it has arrived.
+    await page.locator("[data-testid=brief-tradeoff][data-state=done]").waitFor({ timeout: 60_000 });
+    const tradeoffRows = await page.locator("[data-testid=brief-tradeoff] [data-testid=tradeoff-table] tbody th").allTextContents();
+    const closureRows = await page.locator("[data-testid=brief-closure-plan] tbody tr").count();
 
     // Laid out as the printer will: print media at the paper's printable width.
     await page.emulateMedia({ media: "print" });
@@ -110,6 +116,29 @@ describe("the owner brief prints whole", () => {
     const tdPage = pages.findIndex((p) => p.includes("Time–distance"));
     expect(pages.slice(tdPage, tdPage + 2).join(" "), `${format}: the time–distance chart printed to its last date label "${lastTick}"`).toContain(lastTick);
     expect(all).toContain(finish);
+
+    // The traffic section: closure plan, backups, the days over the limit, the trade-off, the caution.
+    const traffic = all.slice(all.toLowerCase().indexOf("traffic and closures"));
+    expect(all.toLowerCase(), `${format}: the traffic section printed`).toContain("traffic and closures");
+    expect(closureRows, "a row per closure of the plan").toBeGreaterThanOrEqual(2);
+    for (const text of ["Closure plan", "When it may stand", "Longest expected backups", "Days over the queue limit of 1 mile of queue", "Holiday trade-off", "Work-zone safety"]) {
+      expect(traffic.toLowerCase(), `${format}: "${text}" in the traffic section`).toContain(text.toLowerCase());
+    }
+    // The run's longest queue heads the backups table, with its date.
+    const cookie = await signInAs("engineer");
+    const runs = await call(`/api/scenarios/${scenarioId}/runs`, { cookie });
+    const run = await call(`/api/runs/${runs.body.runs[0].id}`, { cookie });
+    const maxQueue = run.body.run.results.traffic.maxQueue as { miles: number; date: string };
+    expect(maxQueue.miles).toBeGreaterThan(0);
+    expect(await page.locator("[data-testid=brief-backups] tbody tr").first().locator("td").first().textContent()).toBe(maxQueue.miles.toFixed(1));
+    expect(traffic).toContain(maxQueue.miles.toFixed(1));
+    // Every row of the trade-off table reached the paper, with the sentence that states it.
+    expect(tradeoffRows).toEqual(expect.arrayContaining(["Finish (P50 / P80)", "Chance of meeting the target", "Delay to drivers, vehicle-hours (P50 / P80)", "Longest holiday backup (P50 / P80)", "Road-user cost (P50 / P80)", "Contract cost (P50 / P80)"]));
+    // A label wrapped in its cell reads back with a space at the break ("vehicle- hours"): compare without spaces.
+    const squash = (x: string) => x.replace(/\s+/g, "");
+    for (const row of tradeoffRows) expect(squash(traffic), `${format}: trade-off row "${row}" printed`).toContain(squash(row));
+    expect(traffic).toMatch(/Working through holidays finishes/);
+    expect(traffic).not.toContain("Wait for this line");
     expect(all).toContain("This forecast rests on 200 simulated outcomes");
     expect(all).toContain("fewer than the 1,000 a brief should rest on");
     for (const p of pages) {

@@ -30,7 +30,7 @@ export type Need =
   | { kind: "session" }
   | { kind: "project"; action: Action }
   | { kind: "scenario"; action: Action }
-  | { kind: "token"; scopes: ("share" | "feed")[] };
+  | { kind: "token"; scopes: ("share" | "feed" | "search")[] };
 
 export interface Prepared {
   params: Record<string, string>;
@@ -64,7 +64,7 @@ export function expectedStatus(row: ApiRow, c: Caller): number {
       if (!isRole(c)) return 404; // an administrator of another project is nobody here
       return can(c, need.action) ? row.ok : 403;
     case "token": {
-      const scope = c === "shareLink" ? "share" : c === "feedToken" ? "feed" : null;
+      const scope = c === "shareLink" ? "share" : c === "feedToken" ? "feed" : c === "searchLink" ? "search" : null;
       return scope && need.scopes.includes(scope) ? row.ok : 404;
     }
   }
@@ -251,11 +251,20 @@ export const API_ROWS: Record<string, ApiRow> = {
       return { params: { linkId: link.id }, survives: async () => (await call(`/api/shared/${link.token}`)).status === 200 };
     },
   },
+  // Links to one plan search: whoever may share the scenario may share its searches (revoked like any link, above).
+  "GET /api/searches/[searchId]/share-links": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: { searchId: w.searchId } }) },
+  "POST /api/searches/[searchId]/share-links": {
+    need: { kind: "scenario", action: "shareScenario" },
+    ok: 201,
+    request: async (w) => ({ params: { searchId: w.searchId }, body: { expiresInDays: 7, label: uniq("search link") } }),
+  },
   // The list of publications and, with ?preview=1, what publishing would send (sends nothing): one handler and
   // one permission check, exercised here on the preview (it also reads the run publishing would name).
   "GET /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: scen(w), query: "preview=1" }) },
   "POST /api/scenarios/[scenarioId]/closure-publications": { need: { kind: "scenario", action: "shareScenario" }, ok: 201, request: async (w) => ({ params: scen(w) }) },
   // The token in the path is the only credential: a share link opens the shared view, a calendar-feed token only the feed.
+  // A search link opens its search's JSON and nothing else; no other token opens a search.
+  "GET /api/shared-search/[token]": { need: { kind: "token", scopes: ["search"] }, ok: 200, request: async (w, c) => ({ params: { token: tokenOf(w, c) ?? unknownToken() } }) },
   "GET /api/shared/[token]": { need: { kind: "token", scopes: ["share"] }, ok: 200, request: async (w, c) => ({ params: { token: tokenOf(w, c) ?? unknownToken() } }) },
   "GET /api/shared/[token]/closures.ics": {
     need: { kind: "token", scopes: ["share", "feed"] },

@@ -1,7 +1,7 @@
 /**
  * The world the authorization tests run in: the five demo roles on the Kestrel project, a stranger who is the
- * administrator of a project of their own (and no member of Kestrel), a share link and a closure-calendar feed
- * token, plus resources on the stranger's project and on the seeded Tern Point project to use as foreign ids.
+ * administrator of a project of their own (and no member of Kestrel), a share link, a closure-calendar feed
+ * token and a plan search's share link, plus resources on the stranger's project and on the seeded Tern Point project to use as foreign ids.
  * Everything is made through the API as a real user would, except the stranger's account and project: there is
  * no route that creates a project, so those two rows are written straight into the app's database.
  */
@@ -14,10 +14,10 @@ import { forgetRecentMail } from "./mail-quota";
 import { hashPassword } from "../../src/lib/server/password";
 
 export const ROLES: DemoRole[] = ["admin", "engineer", "scheduler", "inspector", "viewer"];
-export type Caller = DemoRole | "signedOut" | "otherProjectAdmin" | "shareLink" | "feedToken";
-export const CALLERS: Caller[] = [...ROLES, "signedOut", "otherProjectAdmin", "shareLink", "feedToken"];
+export type Caller = DemoRole | "signedOut" | "otherProjectAdmin" | "shareLink" | "feedToken" | "searchLink";
+export const CALLERS: Caller[] = [...ROLES, "signedOut", "otherProjectAdmin", "shareLink", "feedToken", "searchLink"];
 export const isRole = (c: Caller): c is DemoRole => (ROLES as string[]).includes(c);
-export const isTokenHolder = (c: Caller): c is "shareLink" | "feedToken" => c === "shareLink" || c === "feedToken";
+export const isTokenHolder = (c: Caller): c is "shareLink" | "feedToken" | "searchLink" => c === "shareLink" || c === "feedToken" || c === "searchLink";
 
 /** A scenario, with what a caller needs to address it. */
 export interface Ref {
@@ -33,13 +33,15 @@ export interface World {
   strangerEmail: string;
   strangerUserId: string;
   base: Record<string, unknown>;
-  /** A Kestrel scenario with a current server run (and its engine job), a plan search, a share link and a published closure feed. */
+  /** A Kestrel scenario with a current server run (and its engine job), a plan search, a share link, a published closure feed and a link to the search. */
   target: Ref;
   runId: string;
   jobId: string;
   searchId: string;
   shareToken: string;
   feedToken: string;
+  /** A share link to `searchId` (scope "search"): it opens that search only. */
+  searchToken: string;
   /** A Kestrel past-dated scenario with one progress entry (the field log needs dates that are not in the future). */
   field: Ref & { entryId: string };
   cookies: Record<DemoRole | "otherProjectAdmin", string>;
@@ -87,6 +89,10 @@ export async function newSearch(scenarioId: string, cookie: string): Promise<str
 
 export async function newShareLink(scenarioId: string, cookie: string): Promise<{ id: string; token: string }> {
   return must(await call(`/api/scenarios/${scenarioId}/share-links`, { method: "POST", cookie, body: { expiresInDays: 7, label: "matrix" } }), 201, "share link");
+}
+
+export async function newSearchLink(searchId: string, cookie: string): Promise<{ id: string; token: string; path: string }> {
+  return must(await call(`/api/searches/${searchId}/share-links`, { method: "POST", cookie, body: { expiresInDays: 7, label: "matrix search" } }), 201, "search link");
 }
 
 export async function newSubscriber(projectId: string, cookie: string): Promise<string> {
@@ -141,6 +147,7 @@ export async function buildWorld(): Promise<World> {
   const shareToken = (await newShareLink(target.id, admin)).token;
   const published = must(await call(`/api/scenarios/${target.id}/closure-publications`, { method: "POST", cookie: admin }), 201, "closure publication");
   const feedToken = new URL(published.feedUrl).pathname.split("/").at(-2)!;
+  const searchToken = (await newSearchLink(searchId, admin)).token;
   const field = await newFieldScenario(projectId, admin);
 
   const sScenario = await newScenario({ base }, strangerProjectId, sc, "stranger's");
@@ -172,6 +179,7 @@ export async function buildWorld(): Promise<World> {
     searchId,
     shareToken,
     feedToken,
+    searchToken,
     field,
     cookies,
     stranger: strangerIds,
@@ -184,7 +192,7 @@ export const unknownToken = () => randomBytes(32).toString("base64url");
 
 /** The token a caller holds, if any. */
 export function tokenOf(w: World, c: Caller): string | null {
-  return c === "shareLink" ? w.shareToken : c === "feedToken" ? w.feedToken : null;
+  return c === "shareLink" ? w.shareToken : c === "feedToken" ? w.feedToken : c === "searchLink" ? w.searchToken : null;
 }
 
 /**

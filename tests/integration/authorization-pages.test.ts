@@ -104,6 +104,14 @@ describe("the public shared page", () => {
   });
 });
 
+describe("the public shared search page", () => {
+  it.each(CALLERS)("/shared-search/<token> as %s: only a link to that search opens it", async (caller) => {
+    const token = tokenOf(w, caller);
+    const res = await call(`/shared-search/${token ?? unknownToken()}`, { cookie: isRole(caller) ? w.cookies[caller] : null });
+    expect(res.status, `as ${caller}`).toBe(caller === "searchLink" ? 200 : 404);
+  });
+});
+
 describe("the public travel advisory", () => {
   it.each(CALLERS)("/advisory/<token> as %s: a closure publication's token opens it, nothing else does", async (caller) => {
     const token = tokenOf(w, caller);

@@ -1,6 +1,6 @@
 /**
  * Fuzzing the write routes: POURLINE_FUZZ_RUNS (default 2,000) generated invalid or extreme bodies per route —
- * scenario create and update, field progress, share links, CSV uploads — sent over HTTP with bounded concurrency.
+ * scenario create and update, field progress, share links (of a scenario and of a plan search), CSV uploads — sent over HTTP with bounded concurrency.
  * Every answer must be below 500, arrive within PER_REQUEST_MS, and a 400 must name its fields. Nothing may be
  * stored except by a 2xx answer: the rows counted after the run must equal the rows before plus the 2xx answers
  * (a generated body can be valid by chance; it then counts as a save, honestly, and is reported).
@@ -10,7 +10,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { APP_URL, call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
 import { createPastScenario } from "../helpers/progress-fixture";
-import { millingShift } from "../helpers/authz-world";
+import { millingShift, newSearch } from "../helpers/authz-world";
 import { bodiesFrom, uploadBodies, type FuzzBody, type FuzzUpload } from "../helpers/fuzz-bodies";
 
 const RUNS = Number(process.env.POURLINE_FUZZ_RUNS ?? 2_000);
@@ -145,6 +145,14 @@ describe(`fuzz: ${RUNS} generated bodies per write route`, () => {
     const before = await count(path, "links");
     const bodies = sample(bodiesFrom(() => ({ label: "Fuzzed link", expiresInDays: 7, emailTo: [] as string[] })), 4);
     const stored = judge("create share link", await sendAll(bodies, json("POST", path)));
+    expect(await count(path, "links")).toBe(before + stored);
+  });
+
+  it("POST /api/searches/:id/share-links", { timeout: ROUTE_TIMEOUT_MS }, async () => {
+    const path = `/api/searches/${await newSearch(target.id, cookie)}/share-links`;
+    const before = await count(path, "links");
+    const bodies = sample(bodiesFrom(() => ({ label: "Fuzzed search link", expiresInDays: 7, emailTo: [] as string[] })), 6);
+    const stored = judge("create search link", await sendAll(bodies, json("POST", path)));
     expect(await count(path, "links")).toBe(before + stored);
   });
 

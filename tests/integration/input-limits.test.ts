@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import postgres from "postgres";
 import { APP_URL, call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+import { newSearch } from "../helpers/authz-world";
 import { parseScenario, runScenario } from "../../sim/index";
 
 const appDb = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
@@ -207,6 +208,7 @@ describe("every JSON route: NUL characters, deep nesting, oversize bodies", () =
       { path: `/api/projects/${projectId}/scenarios`, cookie: () => scheduler, valid: { name: "n", definition: base }, textField: "name" },
       { path: `/api/scenarios/${s.id}/variants`, cookie: () => scheduler, valid: { name: "n" }, textField: "name" },
       { path: `/api/scenarios/${s.id}/share-links`, cookie: () => scheduler, valid: { expiresInDays: 1, label: "l" }, textField: "label" },
+      { path: `/api/searches/${await newSearch(s.id, scheduler)}/share-links`, cookie: () => scheduler, valid: { expiresInDays: 1, label: "l" }, textField: "label" },
       { path: `/api/scenarios/${s.id}/runs`, cookie: () => scheduler, valid: { seed: "s", iterations: 10 }, textField: "seed" },
       { path: `/api/scenarios/${s.id}/reforecast`, cookie: () => scheduler, valid: { dataDate: base.startDate, seed: "s", iterations: 10 }, textField: "seed" },
       { path: `/api/scenarios/${past.id}/progress`, cookie: () => inspector, valid: { workDate: isoDaysFromToday(-20), shift: "day", operationId: "milling", fromStationFt: 0, toStationFt: 100 }, textField: "crew" },

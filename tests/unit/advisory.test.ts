@@ -66,6 +66,28 @@ describe("the travel advisory", () => {
     }
   });
 
+  it("the expected longest delay is the run's longest delay of the day, and days over the plan's limit are flagged in the limit's unit", () => {
+    // The stored timeline is to the minute: a minute at a net inflow of ~2,000 veh/h is ~33 veh, which at a
+    // closure capacity near 1,400 veh/h is ~1.4 min of delay for the last vehicle (queue / discharge rate).
+    let compared = 0;
+    for (const d of days) {
+      const engine = byDate.get(d.date)?.peakDelayMinutes ?? 0;
+      expect(Math.abs(d.longestDelayMinutes - engine)).toBeLessThanOrEqual(2);
+      if (engine > 0) compared++;
+      // The demo's limit is the default 1 mile.
+      const miles = byDate.get(d.date)?.peakQueueMiles ?? 0;
+      if (miles > 1.06) expect(d.overLimit).toBe(true);
+      if (miles < 0.94) expect(d.overLimit).toBe(false);
+    }
+    expect(compared).toBeGreaterThan(0);
+    const inMinutes = { ...s, traffic: { ...s.traffic!, queueLimit: { unit: "minutes" as const, value: 20 } } };
+    for (const d of buildAdvisory(inMinutes, run, s.startDate, 400)!) {
+      const engine = byDate.get(d.date)?.peakDelayMinutes ?? 0;
+      if (engine > 22) expect(d.overLimit).toBe(true);
+      if (engine < 18) expect(d.overLimit).toBe(false);
+    }
+  });
+
   it("flags holiday weekends: Memorial Day 2027 (Mon 31 May) with its weekend and the Friday before", () => {
     // Source: 5 U.S.C. 6103 — Memorial Day is the last Monday in May (31 May 2027). MODEL.md "Traffic": the
     // holiday peak covers the block (with the adjacent weekend) and the day before it.

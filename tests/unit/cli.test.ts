@@ -34,8 +34,8 @@ describe("sim CLI", { timeout: 60_000 }, () => {
     }
     expect(out.delay.vehicleHours.p50).toBeGreaterThan(0);
     expect(out.cost.valueOfTimeYear).toBe(2015);
-    // Days whose longest queue broke the (default 1-mile) limit, P50/P80 over iterations.
-    expect(out.queueLimitBreaches.limitMiles).toBe(1);
+    // Days whose longest queue broke the scenario's limit (the default 1 mile: the file states none), P50/P80 over iterations.
+    expect(out.queueLimitBreaches.limit).toEqual({ unit: "miles", value: 1 });
     expect(out.queueLimitBreaches.p80).toBeGreaterThanOrEqual(out.queueLimitBreaches.p50);
     expect(out.tradeoff.iterations).toBe(6);
     expect(out.tradeoff.standDown.policy).toBe("standDown");
@@ -43,6 +43,31 @@ describe("sim CLI", { timeout: 60_000 }, () => {
     // The small deck has no traffic or costs section: no such keys.
     const plain = JSON.parse(cli("scenarios/small-deterministic.json", "--iterations", "2", "--json").stdout);
     expect("delay" in plain || "cost" in plain || "queueLimitBreaches" in plain).toBe(false);
+  });
+
+  it("a queue limit in minutes of delay from the command line replaces the scenario's; a looser limit never counts more days", () => {
+    const run = (...limit: string[]) => {
+      const r = cli("scenarios/kestrel-two-season.json", "--iterations", "4", "--seed", "cli-limit", "--json", ...limit);
+      expect(r.status, r.stderr).toBe(0);
+      return JSON.parse(r.stdout).queueLimitBreaches;
+    };
+    const tight = run("--queue-limit-minutes", "5");
+    const loose = run("--queue-limit-minutes", "240");
+    expect(tight.limit).toEqual({ unit: "minutes", value: 5 });
+    expect(loose.limit).toEqual({ unit: "minutes", value: 240 });
+    // The same iterations: every day over 240 minutes of delay is also over 5 minutes.
+    expect(tight.p50).toBeGreaterThanOrEqual(loose.p50);
+    expect(tight.p80).toBeGreaterThanOrEqual(loose.p80);
+    expect(tight.p50).toBeGreaterThan(0);
+  });
+
+  it("refuses a queue limit out of range, or one in both units, naming the option", () => {
+    const zero = cli("scenarios/small-deterministic.json", "--queue-limit-minutes", "0");
+    expect(zero.status).toBe(2);
+    expect(zero.stderr).toContain("--queue-limit-minutes must be at least 1 minute");
+    const both = cli("scenarios/small-deterministic.json", "--queue-limit-miles", "1", "--queue-limit-minutes", "15");
+    expect(both.status).toBe(2);
+    expect(both.stderr).toContain("give one queue limit, in miles or in minutes, not both");
   });
 
   it("prints a readable summary without --json", () => {

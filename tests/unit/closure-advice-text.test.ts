@@ -12,7 +12,7 @@ function advice(longest: number[], planned: ClosureAdvice["planned"] = null): Cl
     lanes: ["L2"],
     dayKind: "friday",
     planned,
-    hours: longest.map((l, hour) => ({ hour, demand: 0, capacity: 1000, longestClosureFrom: l, plannedQueueMiles: 0 })),
+    hours: longest.map((l, hour) => ({ hour, demand: 0, capacity: 1000, longestClosureFrom: l, plannedQueueMiles: 0, plannedDelayMinutes: 0 })),
   };
 }
 
@@ -32,9 +32,9 @@ describe("closure advice in words", () => {
 
   it("a planned window over the limit is a warning with the expected queue; within it, none", () => {
     const planned = { windows: [{ start: 9, end: 15.5 }], peakQueueVeh: 3450, peakQueueMiles: 6.29, peakDelayMinutes: 71.2, peakHour: 15, direction: "n", breaks: true };
-    expect(breachWarning(advice(Array(24).fill(0), planned), { miles: 1 })).toBe(
-      "Night closure on Fridays, open 09:00–15:30: the queue reaches 6.3 mi (3,450 vehicles, 71 minutes of delay) around 15:00 — over the limit of 1 mi.",
+    expect(breachWarning(advice(Array(24).fill(0), planned), { unit: "miles", value: 1 })).toBe(
+      "Night closure on Fridays, open 09:00–15:30: the queue reaches 6.3 mi (3,450 vehicles, 71 minutes of delay) around 15:00 — over the limit of 1 mile of queue.",
     );
-    expect(breachWarning(advice(Array(24).fill(0), { ...planned, breaks: false }), { miles: 1 })).toBeNull();
+    expect(breachWarning(advice(Array(24).fill(0), { ...planned, breaks: false }), { unit: "miles", value: 1 })).toBeNull();
   });
 });

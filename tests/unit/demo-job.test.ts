@@ -10,6 +10,7 @@ import { drawSamples } from "../../sim/samples";
 import { parseIsoDate, weekdayOfDayNumber } from "../../sim/dates";
 import { parseScenario } from "../../sim/validate";
 import { demoDataDates, demoDayShift, demoFieldLog, shiftDates } from "../../scripts/demo-job";
+import { progressEntrySchema } from "../../sim/progress-entry";
 import { loadScenario } from "./engine-fixtures";
 
 const raw = loadScenario("kestrel-two-season.json") as Record<string, any>;
@@ -65,6 +66,15 @@ describe("the demo field log", () => {
     expect(log.some((e) => e.discovered.length > 0 && e.operationId === "hydrodemolition")).toBe(true);
     // Lost hours never exceed a shift.
     expect(Math.max(...log.map((e) => e.lostHours))).toBeLessThanOrEqual(10);
+  });
+
+  it("every entry is an ordinary entry: the API's contract reads it back unchanged", () => {
+    expect(log.length).toBeGreaterThan(50);
+    for (const e of log) {
+      const parsed = progressEntrySchema.safeParse(e);
+      expect(parsed.success, JSON.stringify(parsed.error?.issues)).toBe(true);
+      expect(parsed.data).toEqual(e);
+    }
   });
 
   it("re-forecasting from its last data date schedules none of the recorded work again", () => {

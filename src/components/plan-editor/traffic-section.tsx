@@ -8,6 +8,7 @@
 import { useFormContext, useWatch } from "react-hook-form";
 import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { ScenarioInput } from "@sim/schema";
+import { DEFAULT_QUEUE_LIMIT } from "@sim/queue-limit";
 import { ClosureHoursAdvisor } from "./closure-hours-advisor";
 import { CheckboxField, n, NumberField, SelectField, TextField } from "./fields";
 
@@ -35,6 +36,7 @@ function starterTraffic(v: ScenarioInput): NonNullable<ScenarioInput["traffic"]>
     method: "krammesLopez",
     directions: [{ id: "main", name: "Main direction", lanes: [...lanes], heavyVehicleShare: 0.1, demand: starterProfile(1400, lanes.length) }],
     closures: (v.calendar?.closures ?? []).map((c) => ({ closure: c.id, workIntensityPcPerHourPerLane: 0, barrier: "cones" as const, night: false })),
+    queueLimit: { ...DEFAULT_QUEUE_LIMIT },
   };
 }
 

@@ -1,29 +1,31 @@
 "use client";
 /**
- * The days of the representative iteration whose longest queue broke the user's queue limit (miles; the
- * limit is the person's own setting, ../use-queue-limit), with when the queue cleared — the list a traffic
- * engineer checks before signing off the closure plan. Reads only `summary.traffic.days`.
+ * The days of the representative iteration whose longest queue broke the plan's queue limit (miles of queue or
+ * minutes of delay, `traffic.queueLimit`, sim/queue-limit), with when the queue cleared — the list a traffic
+ * engineer checks before signing off the closure plan. Reads only `summary.traffic.days` and the limit.
  */
 import type { RunSummary } from "@sim/summary";
+import { daysOverLimit, describeQueueLimit, type QueueLimit } from "@sim/queue-limit";
 import { formatIsoDate } from "@/lib/format";
-import { useQueueLimit } from "../use-queue-limit";
 
 const SHOWN = 40;
 
-export function QueueBreachDays({ summary }: { summary: RunSummary }) {
-  const [limit] = useQueueLimit();
+export function QueueBreachDays({ summary, limit }: { summary: RunSummary; limit: QueueLimit }) {
   const t = summary.traffic;
   if (!t) return null;
-  const over = t.days.filter((d) => d.peakQueueMiles > limit.miles);
+  const over = daysOverLimit(t.days, limit);
+  const words = describeQueueLimit(limit);
   return (
     <div className="mt-4" data-testid="queue-breach-days">
-      <h3>Days whose longest queue passed {limit.miles} mi</h3>
-      {over.length === 0 ? (
-        <p className="mt-1 text-sm">None: on every day of the iteration nearest the P50 the longest queue stayed within {limit.miles} mi.</p>
+      <h3>Days whose longest queue passed {words}</h3>
+      {over === null ? (
+        <p className="mt-1 text-sm">This run was stored before delay minutes were kept day by day; run the plan again to list the days over a limit in minutes.</p>
+      ) : over.length === 0 ? (
+        <p className="mt-1 text-sm">None: on every day of the iteration nearest the P50 the longest queue stayed within {words}.</p>
       ) : (
         <>
           <p className="mt-1 text-sm">
-            {over.length} day{over.length === 1 ? "" : "s"} in the iteration nearest the P50 (the limit is set in the plan editor&apos;s Traffic section).
+            {over.length} day{over.length === 1 ? "" : "s"} in the iteration nearest the P50 (the limit is part of the plan, in the plan editor&apos;s Traffic section).
           </p>
           <table className="mt-2 w-full max-w-2xl text-sm">
             <thead>
@@ -31,6 +33,7 @@ export function QueueBreachDays({ summary }: { summary: RunSummary }) {
                 <th scope="col">Date</th>
                 <th scope="col">Longest queue (mi)</th>
                 <th scope="col">Vehicles</th>
+                <th scope="col">Longest delay (min)</th>
                 <th scope="col">Queue cleared</th>
               </tr>
             </thead>
@@ -40,6 +43,7 @@ export function QueueBreachDays({ summary }: { summary: RunSummary }) {
                   <th scope="row">{formatIsoDate(d.date)}</th>
                   <td>{d.peakQueueMiles.toFixed(2)}</td>
                   <td>{d.peakQueueVeh.toLocaleString("en-US")}</td>
+                  <td>{d.peakDelayMinutes === undefined ? "—" : Math.round(d.peakDelayMinutes).toLocaleString("en-US")}</td>
                   <td>{d.clearsAt ? d.clearsAt.replace("T", " ") : "—"}</td>
                 </tr>
               ))}

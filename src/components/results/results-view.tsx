@@ -8,6 +8,7 @@
  */
 import { useMemo } from "react";
 import { parseScenario } from "@sim/validate";
+import { queueLimitOf } from "@sim/queue-limit";
 import type { RunSummary } from "@sim/summary";
 import { ConfidencePanel } from "./confidence-panel";
 import { DelayPanel } from "./delay-panel";
@@ -132,7 +133,8 @@ export function ResultsView({ summary, definition, run, document = false }: { su
         description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, lane-closed hours and the longest queue of each day."
       >
         <DelayPanel summary={summary} />
-        <QueueBreachDays summary={summary} />
+        {/* The printed brief lists the days over the limit in its own traffic section. */}
+        {!document && <QueueBreachDays summary={summary} limit={queueLimitOf(plan)} />}
       </Section>
 
       {plan && !document && (

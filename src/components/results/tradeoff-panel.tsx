@@ -1,21 +1,15 @@
 "use client";
 /**
- * The holiday trade-off in one click: a Web Worker runs the plan twice on the run's own seed and iteration
- * count (up to `MAX_TRADEOFF_ITERATIONS`) — standing down over holidays and working through them — and the
- * panel states what working through gains in days against the extra delay and road-user cost, with a small
- * chart of delay under each policy. Nothing is stored; the result lives until the page is left.
+ * The holiday trade-off in one click (./use-tradeoff runs both policies in a Web Worker) — the panel states
+ * what working through gains in days against the extra delay and road-user cost, with a small chart of delay
+ * under each policy.
  */
-import * as Comlink from "comlink";
-import { useEffect, useRef, useState } from "react";
 import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, XAxis, YAxis } from "recharts";
 import type { HolidayTradeoff } from "@sim/tradeoff";
-import type { EngineApi } from "@workers/engine-api";
 import { formatIsoDate } from "@/lib/format";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
 import { TradeoffTable } from "./tradeoff-table";
-
-/** Two full runs in one worker: capped so the answer comes in seconds. */
-export const MAX_TRADEOFF_ITERATIONS = 1000;
+import { useTradeoff } from "./use-tradeoff";
 
 const vh = (v: number | null) => (v === null ? "—" : `${Math.round(v).toLocaleString("en-US")} vehicle-hours`);
 const money = (v: number | null) => (v === null ? "—" : `$${Math.round(Math.abs(v)).toLocaleString("en-US")}`);
@@ -58,31 +52,8 @@ function contractClause(t: HolidayTradeoff): string {
   return `The contract costs ${money(c)} ${c > 0 ? "more" : "less"} at P50.`;
 }
 
-type State = { phase: "idle" } | { phase: "running" } | { phase: "done"; result: HolidayTradeoff; iterations: number } | { phase: "failed"; message: string };
-
 export function TradeoffPanel({ definition, seed, iterations }: { definition: unknown; seed: string; iterations: number }) {
-  const [state, setState] = useState<State>({ phase: "idle" });
-  const worker = useRef<Worker | null>(null);
-  useEffect(() => () => worker.current?.terminate(), []);
-  const n = Math.min(iterations, MAX_TRADEOFF_ITERATIONS);
-
-  const run = async () => {
-    worker.current?.terminate();
-    // The URL must be written out here for the bundler to find and build the worker.
-    const w = new Worker(new URL("../../../workers/engine.worker.ts", import.meta.url), { type: "module" });
-    worker.current = w;
-    setState({ phase: "running" });
-    try {
-      const api = Comlink.wrap<EngineApi>(w);
-      const result = await api.tradeoff(definition, seed, n);
-      if (worker.current === w) setState({ phase: "done", result, iterations: n });
-    } catch (e) {
-      if (worker.current === w) setState({ phase: "failed", message: e instanceof Error ? e.message : String(e) });
-    } finally {
-      w.terminate();
-      if (worker.current === w) worker.current = null;
-    }
-  };
+  const { state, run, n } = useTradeoff(definition, seed, iterations);
 
   return (
     <div className="space-y-3" data-testid="tradeoff-panel">

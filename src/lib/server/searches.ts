@@ -52,3 +52,16 @@ export function searchView(search: SearchDetail, variants: Awaited<ReturnType<ty
   };
 }
 export type SearchView = ReturnType<typeof searchView>;
+
+/**
+ * A search as a share link shows it: the same plans and frontier marks, without ids that lead anywhere (no
+ * job to follow or cancel, no scenario or project id, no variant choices to save as a scenario).
+ */
+export function publicSearchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>) {
+  const view = searchView(search, variants);
+  const s = view.search;
+  return {
+    search: { name: s.name, method: s.method, gridSize: s.gridSize, variantCount: s.variantCount, scenarioVersion: s.scenarioVersion, stale: s.stale, createdAt: s.createdAt, createdByName: s.createdByName, jobStatus: s.jobStatus },
+    variants: view.variants.map((v) => ({ idx: v.idx, label: v.label, status: v.status, outcome: v.outcome, problem: v.problem, current: v.current, onFrontier: v.onFrontier })),
+  };
+}

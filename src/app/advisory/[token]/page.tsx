@@ -4,6 +4,7 @@ import { formatDateTime, formatIsoDate } from "@/lib/format";
 import { orNotFound } from "@/lib/server/page-access";
 import { requirePublishedPlan } from "@/lib/server/published-plan";
 import { DriverAdvice } from "./driver-advice";
+import { describeQueueLimit, queueLimitOf } from "@sim/queue-limit";
 
 // The token is a bearer secret: keep the page out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Travel advisory", robots: { index: false, follow: false }, referrer: "no-referrer" };
@@ -49,7 +50,9 @@ export default async function AdvisoryPage({ params }: { params: Promise<{ token
           <h2 id="days-heading">Day by day</h2>
           {hasTraffic ? (
             <p className="text-sm text-muted">
-              Hours to avoid are the hours in which the backup is expected to pass {AVOID_MILES} mile. Backups are estimates from typical traffic for that kind of day.
+              Hours to avoid are the hours in which the backup is expected to pass {AVOID_MILES} mile. Days marked “Long delays expected” are those whose backup
+              is expected to pass the project&apos;s own limit of {describeQueueLimit(queueLimitOf(s))}. Backups and delays are estimates from typical traffic for
+              that kind of day.
             </p>
           ) : (
             <p className="text-sm text-muted">This plan carries no traffic estimate, so only the closures are listed.</p>
@@ -71,6 +74,11 @@ export default async function AdvisoryPage({ params }: { params: Promise<{ token
                         Holiday weekend: heavy traffic
                       </span>
                     )}
+                    {hasTraffic && d.overLimit && (
+                      <span className="badge bg-bad-bg text-bad" data-testid="long-delay-flag">
+                        Long delays expected
+                      </span>
+                    )}
                   </h3>
                   {d.closures.length > 0 ? (
                     <ul className="mt-2 list-disc pl-5 text-sm">
@@ -89,7 +97,8 @@ export default async function AdvisoryPage({ params }: { params: Promise<{ token
                     <p className="mt-2 text-sm" data-testid="advisory-backup">
                       {d.longestBackupMiles >= 0.1 ? (
                         <>
-                          Expected longest backup: <strong>{d.longestBackupMiles.toLocaleString("en-US")} mile{d.longestBackupMiles === 1 ? "" : "s"}</strong>.{" "}
+                          Expected longest backup: <strong>{d.longestBackupMiles.toLocaleString("en-US")} mile{d.longestBackupMiles === 1 ? "" : "s"}</strong>
+                          {d.longestDelayMinutes >= 1 ? <>, up to about <strong>{d.longestDelayMinutes.toLocaleString("en-US")} minute{d.longestDelayMinutes === 1 ? "" : "s"}</strong> of delay</> : ""}.{" "}
                           {d.avoid.length > 0 ? <>Hours to avoid: <strong>{d.avoid.join(", ")}</strong>.</> : "No hour is expected to back up past a quarter mile."}
                         </>
                       ) : (

@@ -44,6 +44,19 @@ export function passwordResetMail(v: { to: string; name: string; link: string })
   };
 }
 
+export function searchLinkMail(v: { to: string; searchName: string; scenarioName: string; senderName: string; label: string; link: string; expiresAt: Date }): MailMessage {
+  const lines = [
+    `${v.senderName} has shared the Pourline plan search "${v.searchName}" (on the scenario "${v.scenarioName}") with you${v.label ? ` (${v.label})` : ""}.`,
+    `The link shows the plans it compared — finish, delay and cost, and which plans no other beats — read-only, without signing in. It works until ${dateFmt.format(v.expiresAt)}.`,
+  ];
+  return {
+    to: v.to,
+    subject: `Plan search shared with you: ${v.searchName}`,
+    text: `${lines.join("\n\n")}\n\n${v.link}\n`,
+    html: html(lines, v.link, "Open the plan search"),
+  };
+}
+
 export function shareLinkMail(v: { to: string; scenarioName: string; senderName: string; label: string; link: string; expiresAt: Date }): MailMessage {
   const lines = [
     `${v.senderName} has shared the Pourline scenario "${v.scenarioName}" with you${v.label ? ` (${v.label})` : ""}.`,

@@ -5,6 +5,7 @@ import { getLatestRun } from "@db/queries/runs";
 import { getProject } from "@db/queries/projects";
 import type { RunSummary } from "@sim/index";
 import { ResultsView } from "@/components/results";
+import { BriefTraffic } from "@/components/results/brief-traffic";
 import { SafetyNote } from "@/components/safety-note";
 import { formatDateTime, formatIsoDate, formatPercent, formatStation } from "@/lib/format";
 import { stageSentence } from "@/lib/stage-text";
@@ -20,7 +21,8 @@ const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
 const hour = (h: number) => `${String(Math.floor(h)).padStart(2, "0")}:${String(Math.round((h % 1) * 60)).padStart(2, "0")}`;
 
 /**
- * A printable one-document summary for the owner: the answer first, then the evidence, then the assumptions.
+ * A printable one-document summary for the owner: the answer first, then the evidence (with the traffic
+ * section: closure plan, backups, days over the queue limit, the holiday trade-off), then the assumptions.
  * Laid out at a fixed width that fits the printable width of both Letter and A4 (globals.css, `.brief`), so the
  * charts print whole; nothing on it can be clicked. tests/e2e/brief-print.test.ts prints it to PDF and checks it.
  */
@@ -75,6 +77,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
             </p>
           )}
           <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run, scenario.version)} document />
+          <BriefTraffic plan={d} summary={s} seed={run.seed} iterations={run.iterations} />
         </>
       )}
       <section aria-labelledby="assumptions-heading" className="card break-inside-avoid">

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { requireScenario } from "@/lib/server/access";
-import { ShareLinks } from "./share-links";
+import { ShareLinks } from "@/components/share-links";
 import { ClosureNotices } from "./closure-notices";
 import { orRefused } from "@/lib/server/page-access";
 
@@ -11,7 +11,12 @@ export default async function SharePage({ params }: { params: Promise<{ scenario
   const { scenario } = await orRefused(requireScenario(scenarioId, "shareScenario"));
   return (
     <div className="space-y-5">
-      <ShareLinks scenarioId={scenarioId} />
+      <ShareLinks
+        endpoint={`/api/scenarios/${scenarioId}/share-links`}
+        shows="Anyone with the link sees this scenario's inputs and latest results without signing in. They cannot change anything or see other scenarios."
+        listHeading="Links to this scenario and its searches"
+        showOpens
+      />
       <ClosureNotices projectId={scenario.projectId} scenarioId={scenarioId} />
     </div>
   );

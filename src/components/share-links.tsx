@@ -1,5 +1,9 @@
 "use client";
-/** Share links: a react-hook-form form on the shared contract (src/lib/schemas.ts) and the list, revoked only after a confirmation. */
+/**
+ * Read-only links to a scenario or to one of its plan searches: a react-hook-form form on the shared contract
+ * (src/lib/schemas.ts) and the list, revoked only after a confirmation. `endpoint` lists and creates the links
+ * (`/api/scenarios/:id/share-links` or `/api/searches/:id/share-links`); revoking is the same for every link.
+ */
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -14,6 +18,8 @@ import { shareLinkSchema } from "@/lib/schemas";
 interface LinkRow {
   id: string;
   label: string;
+  scope: "scenario" | "closure-feed" | "search";
+  searchName: string | null;
   expiresAt: string;
   revokedAt: string | null;
   createdAt: string;
@@ -53,10 +59,28 @@ function addressProblem(err: unknown, typed: string): string | undefined {
   return undefined;
 }
 
-export function ShareLinks({ scenarioId }: { scenarioId: string }) {
+/** What a link opens, in words. */
+function opensWhat(l: LinkRow): string {
+  if (l.scope === "search") return `Plan search “${l.searchName ?? ""}”`;
+  if (l.scope === "closure-feed") return "Closure calendar and travel advisory";
+  return "This scenario";
+}
+
+export interface ShareLinksProps {
+  /** Lists (GET) and creates (POST) the links. */
+  endpoint: string;
+  /** What anyone with a new link sees, in one sentence. */
+  shows: string;
+  /** Heading of the list, e.g. "Links to this scenario". */
+  listHeading: string;
+  /** Show what each link opens (the scenario's list holds its search links and closure feed too). */
+  showOpens?: boolean;
+}
+
+export function ShareLinks({ endpoint, shows, listHeading, showOpens = false }: ShareLinksProps) {
   const qc = useQueryClient();
-  const key = ["scenarios", scenarioId, "share-links"];
-  const links = useQuery({ queryKey: key, queryFn: () => api<{ links: LinkRow[] }>(`/api/scenarios/${scenarioId}/share-links`).then((r) => r.links) });
+  const key = ["share-links", endpoint];
+  const links = useQuery({ queryKey: key, queryFn: () => api<{ links: LinkRow[] }>(endpoint).then((r) => r.links) });
   const form = useForm<ShareLinkForm, unknown, z.output<typeof shareLinkFormSchema>>({
     resolver: zodResolver(shareLinkFormSchema),
     defaultValues: { label: "", expiresInDays: 14, emailTo: "" },
@@ -69,7 +93,7 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
   const [revoking, setRevoking] = useState<LinkRow | null>(null);
 
   const create = useMutation({
-    mutationFn: (body: z.output<typeof shareLinkFormSchema>) => api<{ path: string; emailedTo: string[] }>(`/api/scenarios/${scenarioId}/share-links`, { method: "POST", body }),
+    mutationFn: (body: z.output<typeof shareLinkFormSchema>) => api<{ path: string; emailedTo: string[] }>(endpoint, { method: "POST", body }),
     onSuccess: (r) => {
       setCreated(`${window.location.origin}${r.path}`);
       setEmailedTo(r.emailedTo ?? []);
@@ -83,7 +107,8 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
     mutationFn: (id: string) => api(`/api/share-links/${id}`, { method: "DELETE" }),
     onSuccess: () => {
       setRevoking(null);
-      return qc.invalidateQueries({ queryKey: key });
+      // A search's link is also listed on its scenario's Share page, and the other way round.
+      return qc.invalidateQueries({ queryKey: ["share-links"] });
     },
   });
   const daysError = formState.errors.expiresInDays?.message;
@@ -94,10 +119,7 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
     <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.4fr)]">
       <section className="card" aria-labelledby="new-link-heading">
         <h2 id="new-link-heading">New read-only link</h2>
-        <p className="mt-1 text-sm text-muted">
-          Anyone with the link sees this scenario&apos;s inputs and latest results without signing in. They cannot change anything or see other
-          scenarios. Revoke it and it stops working at once.
-        </p>
+        <p className="mt-1 text-sm text-muted">{shows} Revoke it and it stops working at once.</p>
         <form
           className="mt-4 space-y-4"
           noValidate
@@ -186,14 +208,14 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
             {formatDateTime(revoking.expiresAt)}.
           </p>
           <p>
-            Anyone who opens it from now on sees “This link is not available”{revoking.label === "Closure calendar feed" ? ", and calendars following the closure feed stop updating" : ""}.
+            Anyone who opens it from now on sees “This link is not available”{revoking.scope === "closure-feed" ? ", and calendars following the closure feed stop updating" : ""}.
             Nobody is e-mailed. A revoked link cannot be brought back; create a new one if needed.
           </p>
         </ConfirmDialog>
       )}
       <section className="card overflow-x-auto p-0" aria-labelledby="links-heading">
         <h2 id="links-heading" className="px-5 pt-4">
-          Links to this scenario
+          {listHeading}
         </h2>
         {links.isPending ? (
           <p className="px-5 py-4 text-sm text-muted">Loading links…</p>
@@ -208,6 +230,7 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
             <thead>
               <tr>
                 <th className="table-head">Label</th>
+                {showOpens && <th className="table-head">Opens</th>}
                 <th className="table-head">Created</th>
                 <th className="table-head">Expires</th>
                 <th className="table-head">Status</th>
@@ -222,6 +245,7 @@ export function ShareLinks({ scenarioId }: { scenarioId: string }) {
                 return (
                   <tr key={l.id}>
                     <td className="table-cell">{l.label || <span className="text-muted">(no label)</span>}</td>
+                    {showOpens && <td className="table-cell">{opensWhat(l)}</td>}
                     <td className="table-cell">
                       {formatDateTime(l.createdAt)}
                       <span className="block text-xs text-muted">{l.createdByName}</span>
