@@ -68,7 +68,7 @@ describe("invitation by e-mail", () => {
     await page.getByRole("button", { name: "Create account and join" }).click();
     await page.waitForURL(`${APP_URL}/projects`);
     await expect.poll(() => page.getByTestId("signed-in-name").textContent()).toBe("Noor Halvorsen");
-    const card = page.getByRole("link", { name: /Kestrel Bay Causeway/ });
+    const card = page.getByRole("link", { name: /Kestrel Bay Causeway — deck overlay/ });
     expect(await card.getByTestId("role-badge").textContent()).toBe("Inspector");
     expect(await page.getByText("Tern Point").count()).toBe(0);
     await screenshot(page, "invite-accepted-projects");

@@ -35,7 +35,7 @@ describe("sign-in", () => {
     expect(await seriousA11yViolations(page)).toEqual([]);
     // The scheduler is not on the Tern Point project: it must not be listed.
     expect(await page.getByText("Tern Point").count()).toBe(0);
-    await page.getByRole("link", { name: /Kestrel Bay Causeway/ }).click();
+    await page.getByRole("link", { name: /Kestrel Bay Causeway — deck overlay/ }).click();
     await page.waitForSelector("[data-testid=scenario-table] tbody tr");
     expect(await page.getByTestId("role-badge").textContent()).toBe("Scheduler");
     const rows = await page.locator("[data-testid=scenario-table] tbody tr").count();

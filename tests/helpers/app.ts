@@ -65,7 +65,7 @@ export const signInAs = (role: DemoRole) => signIn(demoEmail(role));
 
 export async function kestrelProject(cookie: string): Promise<{ id: string }> {
   const res = await call("/api/projects", { cookie });
-  const p = res.body.projects.find((x: { name: string }) => x.name.includes("Kestrel"));
+  const p = res.body.projects.find((x: { name: string }) => x.name.includes("Kestrel Bay Causeway — deck overlay"));
   if (!p) throw new Error("the seeded Kestrel project is missing");
   return p;
 }

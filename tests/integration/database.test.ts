@@ -79,21 +79,22 @@ describe("migrations", () => {
 });
 
 describe("seed", () => {
-  it("fills an empty database with every role, two projects and the demo scenarios with runs", async () => {
+  it("fills an empty database with every role, three projects and the demo scenarios with runs", async () => {
     // The clock is pinned: seeded on 2 December 2026, the demo's first season (2026) is over, the second ahead.
     expect(await seed(url, { now: new Date("2026-12-02T18:00:00Z") })).toBe("seeded");
     const c = await counts();
     expect(c.users).toBe(5);
-    expect(c.projects).toBe(2);
-    expect(c.scenarios).toBe(DEMO_SCENARIO_FILES.length);
+    expect(c.projects).toBe(3); // the causeway under way, the staged south approach for next season, Tern Point
+    expect(c.scenarios).toBe(DEMO_SCENARIO_FILES.length + 1); // + the staged south-approach plan
     expect(c.scenarios).toBeGreaterThanOrEqual(3);
     expect(c.reforecasts).toBeGreaterThanOrEqual(3);
-    expect(c.runs).toBe(DEMO_SCENARIO_FILES.length + c.reforecasts);
+    expect(c.runs).toBe(DEMO_SCENARIO_FILES.length + 1 + c.reforecasts);
     expect(c.entries).toBeGreaterThan(100);
     const [span] = await sql`SELECT min(work_date)::text AS first, max(work_date)::text AS last FROM progress_entries`;
     expect(span.first >= "2026-04-06" && span.last < "2026-12-02").toBe(true);
-    const starts = await sql`SELECT DISTINCT definition->>'startDate' AS d FROM scenarios`;
-    expect(starts.map((r) => r.d)).toEqual(["2026-04-06"]);
+    const starts = await sql`SELECT DISTINCT definition->>'startDate' AS d FROM scenarios ORDER BY 1`;
+    // The causeway began this spring; the staged south approach is planned 52 weeks later.
+    expect(starts.map((r) => r.d)).toEqual(["2026-04-06", "2027-04-05"]);
     const [late] = await sql`SELECT count(*)::int AS n FROM simulation_runs WHERE data_date >= '2026-12-02'`;
     expect(late.n).toBe(0);
     const roles = await sql`SELECT DISTINCT role::text FROM project_members ORDER BY 1`;
