@@ -153,7 +153,8 @@ export async function benchApi(json: boolean, { seconds = 20, connections = 50 }
     }
     await shutdown(0);
   } catch (e) {
-    process.stderr.write(`[bench] ${failureMessage(e)}\n`);
+    const cause = e instanceof Error && e.cause ? ` (${String((e.cause as Error).message ?? e.cause)})` : "";
+    process.stderr.write(`[bench] ${failureMessage(e)}${cause}\n`);
     await shutdown(1);
   }
 }

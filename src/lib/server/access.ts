@@ -1,6 +1,6 @@
 import "server-only";
 import { z } from "zod";
-import { getMembershipRole, getProject } from "@db/queries/projects";
+import { getMembershipRole, getProjectWithRole } from "@db/queries/projects";
 import { getScenario } from "@db/queries/scenarios";
 import { can, type Action, type ProjectRole } from "@/lib/permissions";
 import { currentSession, type SignedIn } from "./auth";
@@ -30,10 +30,11 @@ export function requireRole(role: ProjectRole | null, action: Action, notFound: 
 export async function requireProject(projectId: string, action: Action) {
   const s = await requireUser();
   if (!uuid.safeParse(projectId).success) throw new AppError("not_found", "No such project.");
-  const role = requireRole((await getMembershipRole({ projectId, userId: s.user.id })) as ProjectRole | null, action, "No such project.");
-  const project = await getProject({ id: projectId });
-  if (!project) throw new AppError("not_found", "No such project.");
-  return { ...s, role, project };
+  // One query: the project and the person's membership (the role table decides the rest).
+  const found = await getProjectWithRole({ projectId, userId: s.user.id });
+  if (!found) throw new AppError("not_found", "No such project.");
+  const role = requireRole(found.role as ProjectRole | null, action, "No such project.");
+  return { ...s, role, project: found.project };
 }
 
 export async function requireScenario(scenarioId: string, action: Action) {
