@@ -4,6 +4,7 @@
  */
 import { sql, type InferInsertModel, type InferSelectModel } from "drizzle-orm";
 import {
+  bigint,
   boolean,
   check,
   type AnyPgColumn,
@@ -168,8 +169,24 @@ export const simulationRuns = pgTable(
     verification: text("verification").$type<RunVerification>().notNull().default("pending"),
     /** scenario:version:seed:iterations:kind:data date (+ as-built hash): the same computation is stored once. */
     resultKey: text("result_key"),
+    /**
+     * `results` as its readers are sent it (GET /api/runs/:id), made once when the run is stored
+     * (db/stored-results.ts) so a read never parses or serialises it: the JSON raw-deflated and left open (sync
+     * flush) for the route to wrap in one gzip stream with the run's current marks, the JSON's CRC-32 and byte
+     * length for the gzip trailer, and its SHA-256 (the results' part of the ETag). Null on a row stored before
+     * these columns: filled on its first read.
+     */
+    resultsDeflate: bytea("results_deflate"),
+    resultsCrc32: bigint("results_crc32", { mode: "number" }),
+    resultsLength: integer("results_length"),
+    resultsEtag: text("results_etag"),
   },
-  (t) => [index("runs_scenario_idx").on(t.scenarioId, t.createdAt), uniqueIndex("runs_result_key_idx").on(t.resultKey)],
+  (t) => [
+    index("runs_scenario_idx").on(t.scenarioId, t.createdAt),
+    uniqueIndex("runs_result_key_idx").on(t.resultKey),
+    // The stored copy is whole or absent, never half-written.
+    check("runs_stored_results_whole", sql`num_nonnulls(${t.resultsDeflate}, ${t.resultsCrc32}, ${t.resultsLength}, ${t.resultsEtag}) in (0, 4)`),
+  ],
 );
 export type SimulationRun = InferSelectModel<typeof simulationRuns>;
 /** What `simulation_runs.results` holds. Over JSON an unfinished representative's finishHours reads back as null. */

@@ -1,5 +1,6 @@
 /**
- * Engine benchmark: `npm run bench [-- --json] [--iterations N]` (`-- --search`: the plan-search benchmark). One thread, the demo scenarios in
+ * Engine benchmark: `npm run bench [-- --json] [--iterations N]` (`-- --search`: the plan-search benchmark; `-- --api`:
+ * the read API under load, scripts/bench-api.ts). One thread, the demo scenarios in
  * scenarios/. For each: iterations per second of `runIterations`, and the floor — the time to draw the same
  * samples alone (drawSamples plus the same days of weather the engine read) — so `floorRatio` = engine
  * time ÷ floor time says how much the engine costs beyond generating its inputs. Targets (brief): ≥ 5,000
@@ -22,6 +23,14 @@ const json = args.includes("--json");
 const itIdx = args.indexOf("--iterations");
 const iterations = itIdx >= 0 ? Number(args[itIdx + 1]) : 3000;
 const SEED = "bench";
+
+// `--api`: the read API under load, on the app served from a throwaway database (scripts/bench-api.ts).
+if (args.includes("--api")) {
+  const option = (name: string) => (args.includes(name) ? Number(args[args.indexOf(name) + 1]) : undefined);
+  const { benchApi } = await import("./bench-api");
+  await benchApi(json, { seconds: option("--seconds"), connections: option("--connections") });
+  process.exit(0);
+}
 
 // `--search`: the plan-search benchmark on the worker's thread pool instead (scripts/bench-search.ts).
 if (args.includes("--search")) {

@@ -2,6 +2,7 @@
 // The two commands. `start`: install what is missing, run PostgreSQL on loopback, migrate, seed the demo once,
 // build and serve. `test`: the same on a throwaway cluster, then every test layer in one vitest run.
 // Plain Node with no dependencies, because it runs before `npm ci` has installed anything.
+// Imported (not run), it lends `startThrowawayApp` and `shutdown` to `npm run bench -- --api`.
 import { spawn, spawnSync } from "node:child_process";
 import { appendFileSync, chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync, readdirSync } from "node:fs";
 import { createServer } from "node:net";
@@ -12,13 +13,23 @@ import { createHash } from "node:crypto";
 import { appRolePassword, ensureAppRole as ensureAppRoleWith } from "./app-db-role.mjs";
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
-const mode = process.argv[2] ?? "start";
+const isMain = Boolean(process.argv[1]) && resolve(process.argv[1]) === fileURLToPath(import.meta.url);
+const mode = isMain ? (process.argv[2] ?? "start") : "test";
 const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
 const children = new Set();
 let cleanup = async () => {};
+// Where progress lines and the children's output go: stdout, or stderr when a caller keeps stdout for its own
+// result (a benchmark's --json).
+let out = process.stdout;
+let inheritStdio = "inherit";
+
+export function logToStderr() {
+  out = process.stderr;
+  inheritStdio = ["inherit", 2, 2];
+}
 
 function say(msg) {
-  process.stdout.write(`[pourline] ${msg}\n`);
+  out.write(`[pourline] ${msg}\n`);
 }
 
 class Fatal extends Error {}
@@ -27,7 +38,7 @@ function fail(msg) {
 }
 
 function run(cmd, args, opts = {}) {
-  const r = spawnSync(cmd, args, { stdio: opts.quiet ? "pipe" : "inherit", cwd: root, env: opts.env ?? process.env, encoding: "utf8" });
+  const r = spawnSync(cmd, args, { stdio: opts.quiet ? "pipe" : inheritStdio, cwd: root, env: opts.env ?? process.env, encoding: "utf8" });
   if (r.error) fail(`${opts.what ?? cmd} could not start: ${r.error.message}`);
   if (r.status !== 0 && !opts.allowFail) {
     const detail = opts.quiet ? `\n${(r.stderr || r.stdout || "").trim().split("\n").slice(-15).join("\n")}` : "";
@@ -198,15 +209,18 @@ function buildApp(env) {
 // Start-up chatter of the children that `npm start` already says better in its own lines.
 const CHATTER = [/^fake SMTP listening on \d+$/, /Running next\.config\.ts took/, /^\[pourline\] serving on /];
 
-/** `logFile`: also append the child's output there (the tests read the app's log through it). `quiet`: drop CHATTER. */
-function spawnChild(cmd, args, env, logFile, { quiet = false } = {}) {
+/**
+ * `logFile`: also append the child's output there (the tests read the app's log through it). `quiet`: drop
+ * CHATTER. `echo: false`: the output goes to the log file only.
+ */
+function spawnChild(cmd, args, env, logFile, { quiet = false, echo = true } = {}) {
   const piped = Boolean(logFile) || quiet;
-  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : "inherit" });
+  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : inheritStdio });
   if (piped) {
-    for (const [from, to] of [[child.stdout, process.stdout], [child.stderr, process.stderr]]) {
+    for (const [from, to] of [[child.stdout, out], [child.stderr, process.stderr]]) {
       from.on("data", (chunk) => {
         const text = quiet ? String(chunk).split("\n").filter((l) => !CHATTER.some((re) => re.test(l.replace(/\x1b\[[0-9;]*m/g, "").trim()))).join("\n") : chunk;
-        if (String(text).trim()) to.write(text);
+        if (echo && String(text).trim()) to.write(text);
         if (logFile) appendFileSync(logFile, chunk);
       });
     }
@@ -288,8 +302,8 @@ async function startFakeForecast(port, env) {
 }
 
 /** The app server: scripts/serve.mjs (next start plus the peer address), on loopback unless HOST says otherwise. */
-function serveApp(env, logFile) {
-  return spawnChild(process.execPath, [join(root, "scripts", "serve.mjs")], { HOST: "127.0.0.1", ...env, NODE_ENV: "production" }, logFile, { quiet: !logFile });
+function serveApp(env, logFile, { quiet = false } = {}) {
+  return spawnChild(process.execPath, [join(root, "scripts", "serve.mjs")], { HOST: "127.0.0.1", ...env, NODE_ENV: "production" }, logFile, { quiet: !logFile, echo: !(quiet && logFile) });
 }
 
 async function startMode() {
@@ -345,10 +359,17 @@ async function startMode() {
   await new Promise((res) => server.on("exit", res));
 }
 
-async function testMode() {
+/**
+ * The app on a throwaway cluster (PostgreSQL with fsync off, migrated, demo seeded, built into .next-test,
+ * served on a free loopback port), removed again by `shutdown`. Returns the environment the tests (or a
+ * benchmark) need: APP_URL, DATABASE_URL, TEST_DATABASE_URL, TEST_ADMIN_DATABASE_URL, POURLINE_APP_LOG.
+ * `chromium`: make sure the browser tests can run; `worker`: the engine worker beside the server (runs,
+ * verification); `quietApp`: the app's own output to its log file only.
+ */
+export async function startThrowawayApp({ chromium = true, worker = true, quietApp = false } = {}) {
   ensureNodeModules();
   const bin = ensurePostgresInstalled();
-  ensureChromium();
+  if (chromium) ensureChromium();
   const port = await freePort(Number(process.env.TEST_PGPORT ?? 55432));
   const dataDir = join(dataFolderFor("test"), "cluster");
   let pg = null;
@@ -385,10 +406,15 @@ async function testMode() {
   Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });
   // Short waits so the failure paths of the weather service are tested in seconds, and a quick notice pace.
   Object.assign(env, await startFakeForecast(await freePort(2750), env), { FORECAST_TIMEOUT_MS: "1500", FORECAST_RETRY_BASE_MS: "100", POURLINE_NOTICE_INTERVAL_MS: "2000" });
-  serveApp({ ...env, PORT: String(appPort) }, appLog);
-  superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
+  const server = serveApp({ ...env, PORT: String(appPort) }, appLog, { quiet: quietApp });
+  if (worker) superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
   await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
+  return { env, serverPid: server.pid };
+}
+
+async function testMode() {
+  const { env } = await startThrowawayApp();
   const extra = process.argv.slice(3);
   // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) and
   // restart the engine worker if a test (or a crash) stops it, meanwhile.
@@ -398,7 +424,8 @@ async function testMode() {
 }
 
 let shuttingDown = false;
-async function shutdown(code) {
+/** Stops every child this script started, then PostgreSQL (and removes a throwaway cluster), and exits. */
+export async function shutdown(code) {
   shuttingDown = true;
   for (const c of children) c.kill("SIGTERM");
   await new Promise((r) => setTimeout(r, children.size ? 500 : 0));
@@ -408,19 +435,26 @@ async function shutdown(code) {
   process.exit(code);
 }
 
+// Also when imported: Ctrl-C during a benchmark removes its throwaway cluster and server like `npm test`.
 process.on("SIGINT", () => shutdown(130));
 process.on("SIGTERM", () => shutdown(143));
 
-try {
-  if (mode === "test") {
-    const code = await testMode();
-    await shutdown(code);
-  } else {
-    await startMode();
-    await shutdown(0);
+/** A failure in words for a person (a known failure without its stack). */
+export function failureMessage(e) {
+  return e instanceof Fatal ? e.message : `unexpected error: ${e?.stack ?? e}`;
+}
+
+if (isMain) {
+  try {
+    if (mode === "test") {
+      const code = await testMode();
+      await shutdown(code);
+    } else {
+      await startMode();
+      await shutdown(0);
+    }
+  } catch (e) {
+    process.stderr.write(`[pourline] ${failureMessage(e)}\n`);
+    await shutdown(1);
   }
-} catch (e) {
-  if (e instanceof Fatal) process.stderr.write(`[pourline] ${e.message}\n`);
-  else process.stderr.write(`[pourline] unexpected error: ${e?.stack ?? e}\n`);
-  await shutdown(1);
 }

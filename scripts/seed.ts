@@ -13,6 +13,7 @@ import { fileURLToPath } from "node:url";
 import { createHash, randomUUID } from "node:crypto";
 import { sql } from "drizzle-orm";
 import { createPool, databaseUrl } from "../db/client";
+import { storedResultsOf } from "../db/stored-results";
 import { closureSubscribers, progressEntries, progressHistory, projectMembers, projects, scenarioRevisions, scenarios, simulationRuns, users, type Role } from "../db/schema";
 import { hashPassword } from "../src/lib/server/password";
 import { todayIn } from "../src/lib/progress-schema";
@@ -151,7 +152,7 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
         await tx.insert(scenarioRevisions).values({ scenarioId: row.id, version: row.version, definition: raw, savedById: ownerId, changeNote: "Demo scenario" });
         // The plan run is the baseline, made the week before work began. The seed's runs are computed here by
         // the engine on the server side, not sent by a browser: nothing to verify.
-        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...runs[k], createdById: ownerId, createdAt: noonOf(parseIsoDate(scenario.startDate) - 7), verification: "server" });
+        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...runs[k], ...storedResultsOf(runs[k].results), createdById: ownerId, createdAt: noonOf(parseIsoDate(scenario.startDate) - 7), verification: "server" });
         if (k !== 0) continue;
         // The main demo is under way: the inspector's field log up to yesterday, and the engineer's
         // re-forecasts the day after each data date (the drift history).
@@ -162,7 +163,7 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           .returning({ id: progressEntries.id });
         await tx.insert(progressHistory).values(inserted.map((r, i) => ({ entryId: r.id, changedById: inspectorId, before: null, after: fieldLog[i], changedAt: noonOf(parseIsoDate(fieldLog[i].workDate) + 1) })));
         for (const { headline: _h, reforecast: _r, ...columns } of reforecasts) {
-          await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server" });
+          await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, ...storedResultsOf(columns.results), createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server" });
         }
       }
       {

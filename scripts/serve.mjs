@@ -1,14 +1,22 @@
 #!/usr/bin/env node
-// Serves the built app, like `next start -H $HOST -p $PORT`, plus one thing `next start` does not give the
+// Serves the built app, like `next start -H $HOST -p $PORT`, plus two things `next start` does not give the
 // app: the address of the connected peer, written into the x-pourline-peer header after dropping any copy a
-// client sent. The app needs it to know whether a request came through a trusted proxy (TRUSTED_PROXY), the
-// only case in which X-Forwarded-For is believed. Binds to 127.0.0.1 unless HOST says otherwise.
+// client sent — the app needs it to know whether a request came through a trusted proxy (TRUSTED_PROXY), the
+// only case in which X-Forwarded-For is believed — and the Content-Encoding of a body a route compressed
+// itself (below). Binds to 127.0.0.1 unless HOST says otherwise.
 import { createServer } from "node:http";
 import { dirname, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import next from "next";
 
 const PEER_HEADER = "x-pourline-peer";
+// Next drops Content-Encoding from a route handler's answer (the body might be a fetched one it already decoded),
+// so a route that sends a body it compressed itself — GET /api/runs/:id, from the run's stored gzip copy — names
+// the encoding in this private header, and here it becomes Content-Encoding before the headers go out (which
+// also keeps Next's own compression off that body). POURLINE_OWN_ENCODING tells the routes that this server
+// does it; under `next dev` they send plain JSON instead. Same name in src/lib/server/stored-run-response.ts.
+const OWN_ENCODING_HEADER = "x-pourline-content-encoding";
+process.env.POURLINE_OWN_ENCODING = "1";
 const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
 const port = Number(process.env.PORT || 3000);
 const host = process.env.HOST || "127.0.0.1";
@@ -19,6 +27,8 @@ await app.prepare();
 
 const server = createServer((req, res) => {
   req.headers[PEER_HEADER] = req.socket.remoteAddress ?? "";
+  const setHeader = res.setHeader.bind(res);
+  res.setHeader = (name, value) => setHeader(String(name).toLowerCase() === OWN_ENCODING_HEADER ? "Content-Encoding" : name, value);
   handle(req, res).catch((e) => {
     console.error(`[pourline] request failed: ${e?.name ?? "Error"}`);
     if (!res.headersSent) res.writeHead(500).end();

@@ -26,6 +26,16 @@ export async function getProject({ id }: { id: string }) {
   return row ?? null;
 }
 
+/** The project and the person's role in it (null = not a member) in one query; null when there is no such project. */
+export async function getProjectWithRole({ projectId, userId }: { projectId: string; userId: string }) {
+  const [row] = await getDb()
+    .select({ project: projects, role: projectMembers.role })
+    .from(projects)
+    .leftJoin(projectMembers, and(eq(projectMembers.projectId, projects.id), eq(projectMembers.userId, userId)))
+    .where(eq(projects.id, projectId));
+  return row ?? null;
+}
+
 export async function getMembershipRole({ projectId, userId }: { projectId: string; userId: string }): Promise<Role | null> {
   const [row] = await getDb()
     .select({ role: projectMembers.role })

@@ -1,7 +1,8 @@
 import "server-only";
 import { and, desc, eq, gt, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
-import { scenarios, simulationRuns, users, type RunVerification, type StoredRunResults } from "../schema";
+import { projectMembers, scenarios, simulationRuns, users, type RunVerification, type StoredRunResults } from "../schema";
+import { storedResultsOf, type StoredResults } from "../stored-results";
 
 /** Runs a person may see as a scenario's forecast: computed by the server, or reproduced by it exactly. */
 export const FORECAST_VERIFICATIONS: RunVerification[] = ["server", "verified"];
@@ -30,7 +31,14 @@ export interface NewRun {
 export async function saveRun(input: NewRun) {
   const { userId, ...values } = input;
   const returning = { id: simulationRuns.id, createdAt: simulationRuns.createdAt, verification: simulationRuns.verification };
-  const insert = () => getDb().insert(simulationRuns).values({ ...values, createdById: userId }).onConflictDoNothing({ target: simulationRuns.resultKey }).returning(returning);
+  // What GET /api/runs/:id sends, made here once rather than on every read.
+  const stored = storedResultsOf(input.results);
+  const insert = () =>
+    getDb()
+      .insert(simulationRuns)
+      .values({ ...values, ...stored, createdById: userId })
+      .onConflictDoNothing({ target: simulationRuns.resultKey })
+      .returning(returning);
   let [row] = await insert();
   if (!row) {
     const removed = await getDb()
@@ -118,6 +126,45 @@ export async function getRun({ id }: { id: string }) {
   return row ?? null;
 }
 export type StoredRun = NonNullable<Awaited<ReturnType<typeof getRun>>>;
+
+/**
+ * A run as GET /api/runs/:id sends it, in one query: the fields every reader gets (stale and plan run as
+ * above), the stored copy of its results (null on a row older than that copy: see `fillStoredResults`), and
+ * the asking person's role in the run's project (null = not a member), for the route to check first.
+ */
+export async function getRunToServe({ id, userId }: { id: string; userId: string }) {
+  const [row] = await getDb()
+    .select({
+      ...listColumns,
+      role: projectMembers.role,
+      resultsDeflate: simulationRuns.resultsDeflate,
+      resultsCrc32: simulationRuns.resultsCrc32,
+      resultsLength: simulationRuns.resultsLength,
+      resultsEtag: simulationRuns.resultsEtag,
+    })
+    .from(simulationRuns)
+    .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
+    .leftJoin(users, eq(users.id, simulationRuns.createdById))
+    .leftJoin(projectMembers, and(eq(projectMembers.projectId, scenarios.projectId), eq(projectMembers.userId, userId)))
+    .where(eq(simulationRuns.id, id));
+  if (!row) return null;
+  const { role, resultsDeflate, resultsCrc32, resultsLength, resultsEtag, ...fields } = row;
+  const stored: StoredResults | null =
+    resultsDeflate && resultsCrc32 !== null && resultsLength !== null && resultsEtag ? { resultsDeflate, resultsCrc32, resultsLength, resultsEtag } : null;
+  return { role, fields, stored };
+}
+
+/** Makes and keeps the stored copy of a run stored before there was one (once: a second reader keeps the first's). */
+export async function fillStoredResults({ id }: { id: string }): Promise<StoredResults | null> {
+  const [row] = await getDb().select({ results: simulationRuns.results }).from(simulationRuns).where(eq(simulationRuns.id, id));
+  if (!row) return null;
+  const stored = storedResultsOf(row.results);
+  await getDb()
+    .update(simulationRuns)
+    .set(stored)
+    .where(and(eq(simulationRuns.id, id), isNull(simulationRuns.resultsEtag)));
+  return stored;
+}
 
 /** The scenario's forecast: the newest plan run the server computed or verified (never a pending or rejected one). */
 export async function getLatestRun({ scenarioId }: { scenarioId: string }) {

@@ -2,7 +2,7 @@ import "server-only";
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
-import { scenarioRevisions, scenarios, simulationRuns, users } from "../schema";
+import { scenarioRevisions, scenarios, simulationRuns, users, type RunVerification } from "../schema";
 import { isForecast } from "./runs";
 
 const owner = alias(users, "owner");
@@ -23,26 +23,32 @@ const scenarioColumns = {
   updatedByName: editor.name,
 };
 
+/**
+ * The project's scenarios, each with its latest forecast run's headline and whether a newer browser run waits
+ * for the server. The runs are looked up per scenario (LATERAL, newest first on runs_scenario_idx), so the
+ * cost follows the project's scenarios, not every run of every project; only the small `summary` is read.
+ */
 export async function listProjectScenarios({ projectId }: { projectId: string }) {
   const latestRun = getDb()
-    .selectDistinctOn([simulationRuns.scenarioId], {
-      scenarioId: simulationRuns.scenarioId,
-      runId: simulationRuns.id,
-      runVersion: simulationRuns.scenarioVersion,
-      runSummary: simulationRuns.summary,
-      runAt: simulationRuns.createdAt,
-      runVerification: simulationRuns.verification,
+    .select({
+      runId: sql<string>`${simulationRuns.id}`.as("run_id"),
+      runVersion: sql<number>`${simulationRuns.scenarioVersion}`.as("run_version"),
+      runSummary: sql<Record<string, unknown>>`${simulationRuns.summary}`.as("run_summary"),
+      runAt: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("run_at"),
+      runVerification: sql<RunVerification>`${simulationRuns.verification}`.as("run_verification"),
     })
     .from(simulationRuns)
-    .where(and(isNull(simulationRuns.dataDate), isForecast))
-    .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
+    .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNull(simulationRuns.dataDate), isForecast))
+    .orderBy(desc(simulationRuns.createdAt))
+    .limit(1)
     .as("latest_run");
   // A browser run still waiting for the server is not the forecast; the list only says one exists.
   const pendingRun = getDb()
-    .selectDistinctOn([simulationRuns.scenarioId], { scenarioId: simulationRuns.scenarioId, pendingAt: simulationRuns.createdAt })
+    .select({ pendingAt: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("pending_at") })
     .from(simulationRuns)
-    .where(and(isNull(simulationRuns.dataDate), eq(simulationRuns.verification, "pending")))
-    .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
+    .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNull(simulationRuns.dataDate), eq(simulationRuns.verification, "pending")))
+    .orderBy(desc(simulationRuns.createdAt))
+    .limit(1)
     .as("pending_run");
   return getDb()
     .select({
@@ -58,8 +64,8 @@ export async function listProjectScenarios({ projectId }: { projectId: string })
     .from(scenarios)
     .innerJoin(owner, eq(owner.id, scenarios.ownerId))
     .innerJoin(editor, eq(editor.id, scenarios.updatedById))
-    .leftJoin(latestRun, eq(latestRun.scenarioId, scenarios.id))
-    .leftJoin(pendingRun, eq(pendingRun.scenarioId, scenarios.id))
+    .leftJoinLateral(latestRun, sql`true`)
+    .leftJoinLateral(pendingRun, sql`true`)
     .where(eq(scenarios.projectId, projectId))
     .orderBy(desc(scenarios.updatedAt));
 }

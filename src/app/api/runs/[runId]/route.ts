@@ -1,13 +1,21 @@
-import { NextResponse } from "next/server";
-import { z } from "zod";
 import { AppError, handler } from "@/lib/server/errors";
-import { requireScenario } from "@/lib/server/access";
-import { getRun } from "@db/queries/runs";
+import { isUuid, requireRole, requireUser } from "@/lib/server/access";
+import { storedRunResponse } from "@/lib/server/stored-run-response";
+import type { ProjectRole } from "@/lib/permissions";
+import { fillStoredResults, getRunToServe } from "@db/queries/runs";
 
-export const GET = handler(async (_req: Request, ctx: { params: Promise<{ runId: string }> }) => {
+/**
+ * A run with its full results: the stored copy of the results (never parsed or serialised here), gzip when
+ * the client takes it, an ETag and 304 for a client that already holds this version of the run.
+ */
+export const GET = handler(async (req: Request, ctx: { params: Promise<{ runId: string }> }) => {
   const { runId } = await ctx.params;
-  const run = z.uuid().safeParse(runId).success ? await getRun({ id: runId }) : null;
+  const { user } = await requireUser();
+  const run = isUuid(runId) ? await getRunToServe({ id: runId, userId: user.id }) : null;
   if (!run) throw new AppError("not_found", "No such run.");
-  await requireScenario(run.scenarioId, "read");
-  return NextResponse.json({ run });
+  // Access before anything else, the ETag comparison included: a 304 would tell a stranger the run exists.
+  requireRole(run.role as ProjectRole | null, "read", "No such run.");
+  const stored = run.stored ?? (await fillStoredResults({ id: runId }));
+  if (!stored) throw new AppError("not_found", "No such run.");
+  return storedRunResponse(req, run.fields, stored);
 });

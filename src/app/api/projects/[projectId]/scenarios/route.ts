@@ -1,16 +1,18 @@
 import { NextResponse } from "next/server";
 import { handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
+import { jsonWithEtag } from "@/lib/server/http-cache";
 import { validateDefinition } from "@/lib/server/scenario-input";
 import { scenarioWriteSchema } from "@/lib/schemas";
 import { createScenario, listProjectScenarios } from "@db/queries/scenarios";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
-export const GET = handler(async (_req: Request, ctx: Ctx) => {
+/** With an ETag of the list: a client that already holds it gets 304 (after the membership check). */
+export const GET = handler(async (req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
   await requireProject(projectId, "read");
-  return NextResponse.json({ scenarios: await listProjectScenarios({ projectId }) });
+  return jsonWithEtag(req, { scenarios: await listProjectScenarios({ projectId }) });
 });
 
 export const POST = handler(async (req: Request, ctx: Ctx) => {
