@@ -56,13 +56,15 @@ export function produce(iv: Open, i: number, gates: GateCache, profile: number, 
       continue;
     }
     while (t < b) {
-      const k = Math.floor(t);
+      // An instant within EPS below a whole hour is that hour (MODEL.md, "hour slot"): packet durations summed in
+      // floating point (e.g. thirds of an hour) land a hair short of it, and must not start a sliver in the slot before.
+      const k = Math.floor(t + EPS);
       if (gates.slotOk(profile, k)) {
         const runStart = t;
         if (!started) sink.lastStart = t;
         started = true;
         for (;;) {
-          const slotEnd = Math.min(Math.floor(t) + 1, b);
+          const slotEnd = Math.min(Math.floor(t + EPS) + 1, b);
           if (slotEnd - t >= rem - EPS) {
             sink.production(runStart, t + rem);
             return t + rem;

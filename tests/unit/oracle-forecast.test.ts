@@ -201,7 +201,12 @@ describe("reference vs engine with a weather forecast in the samples", () => {
         if (bad.length) throw new Error(`${bad.slice(0, 4).join("\n")}\nscenario: ${JSON.stringify(x)}\nforecast: ${JSON.stringify(g.forecast)}`);
         return true;
       }),
-      { numRuns: Number(process.env.ORACLE_RUNS ?? 80) },
+      {
+        numRuns: Number(process.env.ORACLE_RUNS ?? 80),
+        // Found by this property: packets of 100 ft at 150 ft/h end at 178.99999999999997 h, and the engine began
+        // the next one in slot 178 for a sliver (MODEL.md: an instant within 1e-9 h below an hour is that hour).
+        examples: [[{ startDay: 0, lengthFt: 350, workDays: [0, 4, 6], wetDays: [], ops: [{ wait: false, waitHours: 1, countAboveF: undefined, crews: 1, rate: 150, continuous: false, minTempF: 62, maxTempF: undefined, rising: true, noRain: false, noRainHoursAfter: 0, maxWindMph: undefined, maxEvaporation: 0.05, concreteDeltaF: 0, protectAfter: undefined }], forecast: { fromDay: 6, days: 2, perDay: [{ lo: 20, span: 0, pop: "mixed", rhPm: 10, windPm: 0 }, { lo: 56, span: 9, pop: "dry", rhPm: 10, windPm: 0 }, { lo: 20, span: 0, pop: "dry", rhPm: 10, windPm: 0 }, { lo: 20, span: 0, pop: "dry", rhPm: 10, windPm: 0 }, { lo: 20, span: 0, pop: "dry", rhPm: 10, windPm: 0 }, { lo: 20, span: 0, pop: "dry", rhPm: 10, windPm: 0 }], wobble: 0 } }]],
+      },
     );
     expect(compared).toBeGreaterThan(40);
   }, 120_000);
