@@ -1,6 +1,10 @@
 #!/usr/bin/env node
 // The two commands. `start`: install what is missing, run PostgreSQL on loopback, migrate, seed the demo once,
 // build and serve. `test`: the same on a throwaway cluster, then every test layer in one vitest run.
+// `with-app [--no-engine-worker] <command> [args…]`: the test set-up (throwaway cluster, seeded demo, built app on
+// free ports), then one command with APP_URL and the database URLs in its environment (the benchmarks use it);
+// everything is stopped and removed when the command ends. Its own messages go to stderr, so the command's
+// stdout stays its own (a benchmark's JSON).
 // Plain Node with no dependencies, because it runs before `npm ci` has installed anything.
 import { spawn, spawnSync } from "node:child_process";
 import { appendFileSync, chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync, readdirSync } from "node:fs";
@@ -16,9 +20,11 @@ const mode = process.argv[2] ?? "start";
 const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
 const children = new Set();
 let cleanup = async () => {};
+// with-app: the command's stdout is the only thing on stdout.
+const chatter = mode === "with-app" ? process.stderr : process.stdout;
 
 function say(msg) {
-  process.stdout.write(`[pourline] ${msg}\n`);
+  chatter.write(`[pourline] ${msg}\n`);
 }
 
 class Fatal extends Error {}
@@ -27,7 +33,7 @@ function fail(msg) {
 }
 
 function run(cmd, args, opts = {}) {
-  const r = spawnSync(cmd, args, { stdio: opts.quiet ? "pipe" : "inherit", cwd: root, env: opts.env ?? process.env, encoding: "utf8" });
+  const r = spawnSync(cmd, args, { stdio: opts.quiet ? "pipe" : ["inherit", chatter === process.stderr ? 2 : "inherit", "inherit"], cwd: root, env: opts.env ?? process.env, encoding: "utf8" });
   if (r.error) fail(`${opts.what ?? cmd} could not start: ${r.error.message}`);
   if (r.status !== 0 && !opts.allowFail) {
     const detail = opts.quiet ? `\n${(r.stderr || r.stdout || "").trim().split("\n").slice(-15).join("\n")}` : "";
@@ -201,9 +207,9 @@ const CHATTER = [/^fake SMTP listening on \d+$/, /Running next\.config\.ts took/
 /** `logFile`: also append the child's output there (the tests read the app's log through it). `quiet`: drop CHATTER. */
 function spawnChild(cmd, args, env, logFile, { quiet = false } = {}) {
   const piped = Boolean(logFile) || quiet;
-  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : "inherit" });
+  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : ["inherit", chatter === process.stderr ? 2 : "inherit", "inherit"] });
   if (piped) {
-    for (const [from, to] of [[child.stdout, process.stdout], [child.stderr, process.stderr]]) {
+    for (const [from, to] of [[child.stdout, chatter], [child.stderr, process.stderr]]) {
       from.on("data", (chunk) => {
         const text = quiet ? String(chunk).split("\n").filter((l) => !CHATTER.some((re) => re.test(l.replace(/\x1b\[[0-9;]*m/g, "").trim()))).join("\n") : chunk;
         if (String(text).trim()) to.write(text);
@@ -345,7 +351,12 @@ async function startMode() {
   await new Promise((res) => server.on("exit", res));
 }
 
-async function testMode() {
+/**
+ * The throwaway set-up `npm test` and `with-app` share: a fresh cluster on a free port, the seeded demo, the
+ * built app (`.next-test`) on a free port with the local mail and weather stand-ins, and (unless `engineWorker`
+ * is false) the engine worker. Returns the environment a command needs to reach it all.
+ */
+async function throwawayApp({ engineWorker = true } = {}) {
   ensureNodeModules();
   const bin = ensurePostgresInstalled();
   ensureChromium();
@@ -362,8 +373,6 @@ async function testMode() {
     ensureDatabase(bin, port, db);
     return ensureAppRole(bin, port, db, appPassword);
   });
-  // TEST_APP_PORT: where to start looking, for machines where several test runs share the ports.
-  const appPort = await freePort(Number(process.env.TEST_APP_PORT ?? 3100));
   const appLog = join(dirname(dataDir), "app.log");
   writeFileSync(appLog, "");
   const env = {
@@ -374,7 +383,6 @@ async function testMode() {
     POURLINE_APP_LOG: appLog,
     // Test requests come from 127.0.0.1; tests that play a reverse proxy connect from 127.0.0.2.
     POURLINE_TRUSTED_PROXIES: "127.0.0.2",
-    APP_URL: `http://localhost:${appPort}`,
     NEXT_TELEMETRY_DISABLED: "1",
     POURLINE_DIST_DIR: ".next-test",
   };
@@ -382,19 +390,60 @@ async function testMode() {
   tsx("scripts/seed.ts", env, "demo seed");
   buildApp(env);
   const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
-  Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });
+  Object.assign(env, mailEnv);
   // Short waits so the failure paths of the weather service are tested in seconds, and a quick notice pace.
   Object.assign(env, await startFakeForecast(await freePort(2750), env), { FORECAST_TIMEOUT_MS: "1500", FORECAST_RETRY_BASE_MS: "100", POURLINE_NOTICE_INTERVAL_MS: "2000" });
-  serveApp({ ...env, PORT: String(appPort) }, appLog);
-  superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
-  await waitForHttp(`${env.APP_URL}/signin`, 60_000);
+  // The app's port is chosen after the build (minutes, on a machine other test runs share) and checked to be
+  // ours: an app that could not listen exits, and the next free port is tried. TEST_APP_PORT: where to start.
+  let appPort = Number(process.env.TEST_APP_PORT ?? 3100);
+  for (let attempt = 1; ; attempt++) {
+    appPort = await freePort(appPort);
+    Object.assign(env, { APP_URL: `http://localhost:${appPort}`, APP_BASE_URL: `http://localhost:${appPort}` });
+    const server = serveApp({ ...env, PORT: String(appPort) }, appLog);
+    // serve.mjs says "serving on" only once its own listen succeeded, so whatever answers next is this app.
+    const listening = await new Promise((res) => {
+      server.stdout.on("data", (chunk) => String(chunk).includes("[pourline] serving on") && res(true));
+      server.once("exit", () => res(false));
+      setTimeout(() => res(null), 120_000).unref();
+    });
+    if (listening === null) fail(`the app did not start listening within 120 s (see ${appLog})`);
+    if (listening) {
+      await waitForHttp(`${env.APP_URL}/signin`, 60_000);
+      break;
+    }
+    if (attempt === 3) fail(`the app stopped before it listened (see ${appLog})`);
+    say(`port ${appPort} was taken meanwhile; trying another …`);
+    appPort++;
+  }
+  if (engineWorker) superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
-  const extra = process.argv.slice(3);
+  return env;
+}
+
+/** Runs one command beside the throwaway app and answers its exit code. */
+async function runBeside(env, cmd, args) {
   // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) and
   // restart the engine worker if a test (or a crash) stops it, meanwhile.
-  const vitest = spawn(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
-  const [code] = await new Promise((res) => vitest.on("exit", (...a) => res(a)));
+  const child = spawn(cmd, args, { cwd: root, env, stdio: "inherit" });
+  children.add(child);
+  const [code] = await new Promise((res) => child.on("exit", (...a) => res(a)));
+  children.delete(child);
   return code ?? 1;
+}
+
+async function testMode() {
+  const env = await throwawayApp();
+  return runBeside(env, join(root, "node_modules", ".bin", "vitest"), ["run", ...process.argv.slice(3)]);
+}
+
+async function withAppMode() {
+  const rest = process.argv.slice(3);
+  // Without the engine worker, a saved browser run's verification job waits in the queue instead of taking a core.
+  const engineWorker = rest[0] !== "--no-engine-worker";
+  const [cmd, ...args] = engineWorker ? rest : rest.slice(1);
+  if (!cmd) fail("with-app needs a command to run, e.g.: node scripts/pourline.mjs with-app npx tsx scripts/bench.ts --browser");
+  const env = await throwawayApp({ engineWorker });
+  return runBeside({ ...env, POURLINE_WITH_APP: "1" }, cmd, args);
 }
 
 let shuttingDown = false;
@@ -412,8 +461,8 @@ process.on("SIGINT", () => shutdown(130));
 process.on("SIGTERM", () => shutdown(143));
 
 try {
-  if (mode === "test") {
-    const code = await testMode();
+  if (mode === "test" || mode === "with-app") {
+    const code = await (mode === "test" ? testMode() : withAppMode());
     await shutdown(code);
   } else {
     await startMode();
