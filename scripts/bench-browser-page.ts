@@ -124,6 +124,8 @@ export interface PageFigures {
   drawnAt: number;
   /** The summary reached the page (the end of the engine and summary, the start of drawing). */
   summaryAt: number | null;
+  /** Every worker's range is back on the page. */
+  rangesDoneAt: number | null;
   savedAt: number | null;
   /** Per worker: ms inside `runIterations` (the engine) and, when reported, ms to make the worker ready. */
   engine: { worker: number; engineMs: number; compileMs?: number }[];
@@ -145,6 +147,7 @@ export const READ_FIGURES = `(() => {
     clickAt: s.clickAt,
     drawnAt: s.drawnAt,
     summaryAt: after(${JSON.stringify(RUN_MARKS.summary)}),
+    rangesDoneAt: after(${JSON.stringify(RUN_MARKS.rangesDone)}),
     savedAt: after(${JSON.stringify(RUN_MARKS.saved)}),
     engine,
     longTasks: window.__benchLongTasks,

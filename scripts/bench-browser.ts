@@ -37,6 +37,8 @@ interface RoundFigures {
   longestTaskMs: number;
   /** Longest main-thread task from the summary's arrival until the page settled. */
   longestDrawingTaskMs: number;
+  /** Click to chart in parts (they add up to it): see `parts` in figuresOf. */
+  parts: { engineMs: number; toWorkersAndBackMs: number; summaryMs: number; drawMs: number } | null;
 }
 
 const root = fileURLToPath(new URL("..", import.meta.url));
@@ -105,7 +107,15 @@ function figuresOf(workers: number, f: PageFigures): RoundFigures {
   const longest = (from: number) => Math.max(0, ...f.longTasks!.filter((t) => t.start + t.duration >= from && t.start <= f.now).map((t) => t.duration));
   const engineMs = f.engine.length ? Math.max(...f.engine.map((e) => e.engineMs)) : null;
   const clickToChartMs = f.drawnAt - f.clickAt;
+  // engine: the slowest worker inside the engine; to workers and back: the rest until every range is back
+  // (click handling, messages, a compile the warm pool did not save, the transfer of the results); summary:
+  // merging and summarising in a worker and the summary's way back; draw: summary to the charts drawn.
+  const parts =
+    engineMs !== null && f.rangesDoneAt !== null && f.summaryAt !== null
+      ? { engineMs: ms(engineMs), toWorkersAndBackMs: ms(f.rangesDoneAt - f.clickAt - engineMs), summaryMs: ms(f.summaryAt - f.rangesDoneAt), drawMs: ms(f.drawnAt - f.summaryAt) }
+      : null;
   return {
+    parts,
     workers,
     clickToChartMs: ms(clickToChartMs),
     engineMs: engineMs === null ? null : ms(engineMs),
@@ -136,12 +146,15 @@ async function measure(browser: Browser, rounds: number, log: (s: string) => voi
       const xs = all.map((a) => a[k]).filter((x): x is number => typeof x === "number");
       return xs.length ? median(xs) : null;
     };
+    const part = (k: keyof NonNullable<RoundFigures["parts"]>) => median(all.flatMap((a) => (a.parts ? [a.parts[k]] : [])));
     runs.push({
       workers,
       clickToChartMs: pick("clickToChartMs")!,
       engineMs: pick("engineMs"),
       overheadMs: pick("overheadMs"),
       longestTaskMs: pick("longestTaskMs")!,
+      // Medians of each part over the rounds (so they need not add up exactly to the median total).
+      overheadParts: { toWorkersAndBackMs: part("toWorkersAndBackMs"), summaryMs: part("summaryMs"), drawMs: part("drawMs") },
       rounds: all.map((a) => a.clickToChartMs),
     });
   }
@@ -177,6 +190,7 @@ export async function benchBrowser(args: string[]): Promise<number> {
       longestTaskMs: headline.longestTaskMs,
       engineMs: headline.engineMs,
       overheadMs: headline.overheadMs,
+      overheadParts: headline.overheadParts,
       engineShare: headline.engineMs === null ? null : Math.round((headline.engineMs / headline.clickToChartMs) * 100) / 100,
       runs,
       drawing: { iterations: DRAWING_ITERATIONS, workers: chosen, clickToChartMs: big.clickToChartMs, longestTaskWhileDrawnMs: big.longestDrawingTaskMs, longestTaskMs: big.longestTaskMs },
@@ -193,7 +207,7 @@ export async function benchBrowser(args: string[]): Promise<number> {
   for (const r of runs)
     console.log(
       `${r.workers} worker(s): click to chart ${r.clickToChartMs} ms (rounds ${r.rounds.join(", ")})` +
-        (r.engineMs === null ? "" : ` = engine ${r.engineMs} ms + the rest ${r.overheadMs} ms`) +
+        (r.engineMs === null ? "" : ` = engine ${r.engineMs} ms + the rest ${r.overheadMs} ms (to the workers and back ${r.overheadParts.toWorkersAndBackMs}, summary ${r.overheadParts.summaryMs}, drawing ${r.overheadParts.drawMs})`) +
         `; longest main-thread task ${r.longestTaskMs} ms`,
     );
   console.log(`page's own pool: ${b.workers} worker(s), click to chart ${b.clickToChartMs} ms (target ≤ ${TARGETS.clickToChartMs})${b.engineShare === null ? "" : `, engine share ${Math.round(b.engineShare * 100)} %`}`);

@@ -9,7 +9,7 @@
 import type { ReactNode } from "react";
 import { useEffect } from "react";
 import type { RunSummary } from "@sim/summary";
-import { useLocalRun, updateLocalRun, type LocalRun } from "../run/local-runs";
+import { chooseShownRun, useLocalRun, updateLocalRun, type LocalRun } from "../run/local-runs";
 import { ResultsView, type ResultsRun } from "./results-view";
 
 export interface ShownRun {
@@ -45,17 +45,16 @@ export function OutlookRun({
   header: ReactNode;
   empty: ReactNode;
 }) {
-  const stored = useLocalRun(scenarioId);
-  const local = stored && stored.key.startsWith(`v${scenarioVersion}:`) && stored.save !== "failed" ? stored : null;
-  const caughtUp = !!local && !!shown && shown.key === local.key;
+  const local = useLocalRun(scenarioId);
+  const { show, sameAsLocal } = chooseShownRun(local, shown?.key ?? null, scenarioVersion);
   // The server's page now shows the saved run: from here on its notices and exports lead.
   useEffect(() => {
-    if (caughtUp && !local.acknowledged) updateLocalRun(scenarioId, local.key, { acknowledged: true });
-  }, [caughtUp, local, scenarioId]);
+    if (sameAsLocal && local && !local.acknowledged) updateLocalRun(scenarioId, local.key, { acknowledged: true });
+  }, [sameAsLocal, local, scenarioId]);
 
-  const showLocal = !!local && !local.acknowledged && !caughtUp;
-  if (!showLocal && !shown) return <>{empty}</>;
-  const summary = showLocal || caughtUp ? local!.summary : shown!.summary;
+  if (show === "none") return <>{empty}</>;
+  const showLocal = show === "local";
+  const summary = showLocal || sameAsLocal ? local!.summary : shown!.summary;
   const run: ResultsRun = showLocal
     ? { id: "local", iterations: local!.iterations, seed: local!.seed, createdAt: local!.computedAt, createdByName: "", stale: false }
     : shown!.run;

@@ -55,3 +55,17 @@ export function useLocalRun(scenarioId: string): LocalRun | null {
     () => null,
   );
 }
+
+/**
+ * What the Outlook shows, given the run this browser computed (if any) and the run the server's page shows:
+ * - "local": a run of the current version whose save is under way or done, which the server's page has not
+ *   shown yet (nor stopped showing: once acknowledged, the server's run leads again);
+ * - "server" with `sameAsLocal`: the server shows the same computation, so its summary is the one already drawn;
+ * - "server": the server's run; "none": nothing to show.
+ */
+export function chooseShownRun(local: LocalRun | null, shownKey: string | null, scenarioVersion: number): { show: "local" | "server" | "none"; sameAsLocal: boolean } {
+  const usable = local && local.key.startsWith(`v${scenarioVersion}:`) && local.save !== "failed" ? local : null;
+  const sameAsLocal = !!usable && shownKey === usable.key;
+  if (usable && !usable.acknowledged && !sameAsLocal) return { show: "local", sameAsLocal };
+  return { show: shownKey === null ? "none" : "server", sameAsLocal };
+}
