@@ -22,10 +22,8 @@ export interface ShownRun {
 function LocalRunHeader({ local }: { local: LocalRun }) {
   return (
     <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="local-run">
-      {local.save === "saving"
-        ? "Computed in this browser just now; saving it with this version…"
-        : "Computed in this browser and saved with this version. Not yet verified: the server is reproducing it."}{" "}
-      {local.iterations.toLocaleString("en-US")} iterations, seed “{local.seed}”.
+      Newest run, computed in this browser just now: {local.iterations.toLocaleString("en-US")} iterations, seed “{local.seed}”.{" "}
+      {local.save === "saving" ? "Being stored with the scenario; not yet verified." : "Stored with the scenario; not yet verified."}
     </p>
   );
 }
