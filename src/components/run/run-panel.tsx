@@ -8,6 +8,7 @@ import { api } from "@/lib/api-client";
 import { mark, RUN_MARKS } from "@workers/run-marks";
 import { planComputationKey } from "@/lib/run-keys";
 import type { RunSummary } from "@sim/summary";
+import { useJsonStable } from "../use-json-stable";
 import { publishLocalRun, updateLocalRun } from "./local-runs";
 import { useEnginePool } from "./use-engine-pool";
 import { JobProgress, useJob } from "./job-progress";
@@ -30,7 +31,9 @@ function formatSeconds(s: number | null) {
 }
 
 /** Start a Monte Carlo run in the browser's workers, watch it, cancel it, and store the result with the scenario. */
-export function RunPanel({ scenarioId, version, definition, canRun, blockers = [] }: { scenarioId: string; version: number; definition: unknown; canRun: boolean; blockers?: string[] }) {
+export function RunPanel({ scenarioId, version, definition: given, canRun, blockers = [] }: { scenarioId: string; version: number; definition: unknown; canRun: boolean; blockers?: string[] }) {
+  // The page's refresh after a save brings the same plan as a new object: keep the one parsed and prepared.
+  const definition = useJsonStable(given);
   const router = useRouter();
   const qc = useQueryClient();
   const [iterations, setIterations] = useState(2_000);
