@@ -1,6 +1,7 @@
 /**
  * Engine benchmark: `npm run bench [-- --json] [--iterations N]` (`-- --search`: the plan-search benchmark; `-- --api`:
- * the read API under load, scripts/bench-api.ts). One thread, the demo scenarios in
+ * the read API under load, scripts/bench-api.ts; `-- --browser`: click to chart in Chromium beside a throwaway app,
+ * scripts/bench-browser.ts). One thread, the demo scenarios in
  * scenarios/. For each: iterations per second of `runIterations`, and the floor — the time to draw the same
  * samples alone (drawSamples plus the same days of weather the engine read) — so `floorRatio` = engine
  * time ÷ floor time says how much the engine costs beyond generating its inputs. Targets (brief): ≥ 5,000
@@ -37,6 +38,12 @@ if (args.includes("--search")) {
   const { benchSearch } = await import("./bench-search");
   await benchSearch(json);
   process.exit(0);
+}
+
+// `--browser`: the run path in Chromium, click to chart (scripts/bench-browser.ts).
+if (args.includes("--browser")) {
+  const { benchBrowser } = await import("./bench-browser");
+  process.exit(await benchBrowser(args));
 }
 
 function best<T>(rounds: number, f: () => T): { ms: number; wallMs: number; value: T } {

@@ -1,6 +1,10 @@
 #!/usr/bin/env node
 // The two commands. `start`: install what is missing, run PostgreSQL on loopback, migrate, seed the demo once,
 // build and serve. `test`: the same on a throwaway cluster, then every test layer in one vitest run.
+// `with-app [--no-engine-worker] <command> [args…]`: the test set-up (throwaway cluster, seeded demo, built app on
+// free ports), then one command with APP_URL and the database URLs in its environment (the benchmarks use it);
+// everything is stopped and removed when the command ends. Its own messages go to stderr, so the command's
+// stdout stays its own (a benchmark's JSON).
 // Plain Node with no dependencies, because it runs before `npm ci` has installed anything.
 // Imported (not run), it lends `startThrowawayApp` and `shutdown` to `npm run bench -- --api`.
 import { spawn, spawnSync } from "node:child_process";
@@ -19,7 +23,7 @@ const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
 const children = new Set();
 let cleanup = async () => {};
 // Where progress lines and the children's output go: stdout, or stderr when a caller keeps stdout for its own
-// result (a benchmark's --json).
+// result (a benchmark's --json, a command run `with-app`).
 let out = process.stdout;
 let inheritStdio = "inherit";
 
@@ -27,6 +31,7 @@ export function logToStderr() {
   out = process.stderr;
   inheritStdio = ["inherit", 2, 2];
 }
+if (mode === "with-app") logToStderr();
 
 function say(msg) {
   out.write(`[pourline] ${msg}\n`);
@@ -360,9 +365,11 @@ async function startMode() {
 }
 
 /**
+/**
  * The app on a throwaway cluster (PostgreSQL with fsync off, migrated, demo seeded, built into .next-test,
- * served on a free loopback port), removed again by `shutdown`. Returns the environment the tests (or a
- * benchmark) need: APP_URL, DATABASE_URL, TEST_DATABASE_URL, TEST_ADMIN_DATABASE_URL, POURLINE_APP_LOG.
+ * served on a free loopback port with the local mail and weather stand-ins), removed again by `shutdown`.
+ * Shared by `npm test`, `with-app` and the benchmarks. Returns the environment the tests (or a benchmark)
+ * need: APP_URL, DATABASE_URL, TEST_DATABASE_URL, TEST_ADMIN_DATABASE_URL, POURLINE_APP_LOG.
  * `chromium`: make sure the browser tests can run; `worker`: the engine worker beside the server (runs,
  * verification); `quietApp`: the app's own output to its log file only.
  */
@@ -383,8 +390,6 @@ export async function startThrowawayApp({ chromium = true, worker = true, quietA
     ensureDatabase(bin, port, db);
     return ensureAppRole(bin, port, db, appPassword);
   });
-  // TEST_APP_PORT: where to start looking, for machines where several test runs share the ports.
-  const appPort = await freePort(Number(process.env.TEST_APP_PORT ?? 3100));
   const appLog = join(dirname(dataDir), "app.log");
   writeFileSync(appLog, "");
   const env = {
@@ -395,7 +400,6 @@ export async function startThrowawayApp({ chromium = true, worker = true, quietA
     POURLINE_APP_LOG: appLog,
     // Test requests come from 127.0.0.1; tests that play a reverse proxy connect from 127.0.0.2.
     POURLINE_TRUSTED_PROXIES: "127.0.0.2",
-    APP_URL: `http://localhost:${appPort}`,
     NEXT_TELEMETRY_DISABLED: "1",
     POURLINE_DIST_DIR: ".next-test",
   };
@@ -403,24 +407,61 @@ export async function startThrowawayApp({ chromium = true, worker = true, quietA
   tsx("scripts/seed.ts", env, "demo seed");
   buildApp(env);
   const mailEnv = await startFakeSmtp(await freePort(2600), join(dirname(dataDir), "mailbox"), env);
-  Object.assign(env, mailEnv, { APP_BASE_URL: env.APP_URL });
+  Object.assign(env, mailEnv);
   // Short waits so the failure paths of the weather service are tested in seconds, and a quick notice pace.
   Object.assign(env, await startFakeForecast(await freePort(2750), env), { FORECAST_TIMEOUT_MS: "1500", FORECAST_RETRY_BASE_MS: "100", POURLINE_NOTICE_INTERVAL_MS: "2000" });
-  const server = serveApp({ ...env, PORT: String(appPort) }, appLog, { quiet: quietApp });
+  // The app's port is chosen after the build (minutes, on a machine other test runs share) and checked to be
+  // ours: an app that could not listen exits, and the next free port is tried. TEST_APP_PORT: where to start.
+  let appPort = Number(process.env.TEST_APP_PORT ?? 3100);
+  let server = null;
+  for (let attempt = 1; ; attempt++) {
+    appPort = await freePort(appPort);
+    Object.assign(env, { APP_URL: `http://localhost:${appPort}`, APP_BASE_URL: `http://localhost:${appPort}` });
+    server = serveApp({ ...env, PORT: String(appPort) }, appLog, { quiet: quietApp });
+    // serve.mjs says "serving on" only once its own listen succeeded, so whatever answers next is this app.
+    const listening = await new Promise((res) => {
+      server.stdout.on("data", (chunk) => String(chunk).includes("[pourline] serving on") && res(true));
+      server.once("exit", () => res(false));
+      setTimeout(() => res(null), 120_000).unref();
+    });
+    if (listening === null) fail(`the app did not start listening within 120 s (see ${appLog})`);
+    if (listening) {
+      await waitForHttp(`${env.APP_URL}/signin`, 60_000);
+      break;
+    }
+    if (attempt === 3) fail(`the app stopped before it listened (see ${appLog})`);
+    say(`port ${appPort} was taken meanwhile; trying another …`);
+    appPort++;
+  }
   if (worker) superviseWorker({ ...env, NODE_ENV: "production" }, appLog);
-  await waitForHttp(`${env.APP_URL}/signin`, 60_000);
   say(`test app at ${env.APP_URL}, throwaway database on port ${port}`);
   return { env, serverPid: server.pid };
 }
 
-async function testMode() {
-  const { env } = await startThrowawayApp();
-  const extra = process.argv.slice(3);
+/** Runs one command beside the throwaway app and answers its exit code. */
+async function runBeside(env, cmd, args) {
   // Not spawnSync: this process must keep reading the app's output (and copying it to POURLINE_APP_LOG) and
   // restart the engine worker if a test (or a crash) stops it, meanwhile.
-  const vitest = spawn(join(root, "node_modules", ".bin", "vitest"), ["run", ...extra], { cwd: root, env, stdio: "inherit" });
-  const [code] = await new Promise((res) => vitest.on("exit", (...a) => res(a)));
+  const child = spawn(cmd, args, { cwd: root, env, stdio: "inherit" });
+  children.add(child);
+  const [code] = await new Promise((res) => child.on("exit", (...a) => res(a)));
+  children.delete(child);
   return code ?? 1;
+}
+
+async function testMode() {
+  const { env } = await startThrowawayApp();
+  return runBeside(env, join(root, "node_modules", ".bin", "vitest"), ["run", ...process.argv.slice(3)]);
+}
+
+async function withAppMode() {
+  const rest = process.argv.slice(3);
+  // Without the engine worker, a saved browser run's verification job waits in the queue instead of taking a core.
+  const engineWorker = rest[0] !== "--no-engine-worker";
+  const [cmd, ...args] = engineWorker ? rest : rest.slice(1);
+  if (!cmd) fail("with-app needs a command to run, e.g.: node scripts/pourline.mjs with-app npx tsx scripts/bench.ts --browser");
+  const { env } = await startThrowawayApp({ chromium: true, worker: engineWorker });
+  return runBeside({ ...env, POURLINE_WITH_APP: "1" }, cmd, args);
 }
 
 let shuttingDown = false;
@@ -446,8 +487,8 @@ export function failureMessage(e) {
 
 if (isMain) {
   try {
-    if (mode === "test") {
-      const code = await testMode();
+    if (mode === "test" || mode === "with-app") {
+      const code = await (mode === "test" ? testMode() : withAppMode());
       await shutdown(code);
     } else {
       await startMode();

@@ -38,6 +38,12 @@ const server = createServer((req, res) => {
 // connection the other end is about to reuse (a reset request) — Node's own default is 5 s.
 server.keepAliveTimeout = 65_000;
 server.headersTimeout = 66_000;
+// A port taken between choosing it and listening (test runs sharing a machine): say so and stop, so whoever
+// started this server tries another port instead of talking to someone else's app.
+server.on("error", (e) => {
+  console.error(`[pourline] cannot listen on ${host}:${port}: ${e.code ?? e.message}`);
+  process.exit(1);
+});
 server.listen(port, host, () => console.log(`[pourline] serving on http://${host.includes(":") ? `[${host}]` : host}:${port}`));
 
 for (const sig of ["SIGINT", "SIGTERM"]) {

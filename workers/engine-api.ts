@@ -1,15 +1,32 @@
 /**
  * What one engine worker offers. The same object runs inside a Web Worker (through comlink) and, in tests,
  * in-process, so the pool logic is tested with the real engine.
+ *
+ * A worker keeps the last scenario it compiled (keyed by the definition's JSON text): `prepare` compiles
+ * ahead of a run (the page warms its pool while the person reads), and `runRange` and `summarize` with the
+ * same definition reuse it instead of parsing and compiling again. Iteration k depends only on the scenario,
+ * the seed and k — a compiled scenario's scratch buffers are reset by each `simulate`, which is what lets one
+ * range run after another on it — so a reused compile gives the same numbers as a fresh one (tested).
  */
-import { compileScenario, holidayTradeoff, mergePartials, runIterations, summarizeRun, type HolidayTradeoff, type PartialRun, type RunSummary } from "../sim/index";
+import { compileScenario, holidayTradeoff, mergePartials, runIterations, summarizeRun, type CompiledScenario, type HolidayTradeoff, type PartialRun, type RunSummary } from "../sim/index";
 import { parseScenario } from "../sim/validate";
 import type { FieldProblem } from "../sim/schema";
 
 export type ProgressFn = (done: number) => void;
 
+/** A range of iterations as the worker returns it, with where its time went (for the page's timeline). */
+export interface RangeResult {
+  partial: PartialRun;
+  /** Milliseconds inside the engine (`runIterations`). */
+  engineMs: number;
+  /** Milliseconds spent parsing and compiling the scenario for this call (0 when prepared before). */
+  compileMs: number;
+}
+
 export interface EngineApi {
-  runRange(input: unknown, seed: string, from: number, to: number, onProgress: ProgressFn): Promise<PartialRun>;
+  /** Parses and compiles the scenario and keeps it for the calls that follow; answers the milliseconds it took. */
+  prepare(input: unknown): Promise<number>;
+  runRange(input: unknown, seed: string, from: number, to: number, onProgress: ProgressFn): Promise<RangeResult>;
   summarize(input: unknown, parts: PartialRun[]): Promise<RunSummary>;
   validate(input: unknown): Promise<FieldProblem[]>;
   /** The holiday trade-off: the same seed and iterations under "stand down" and "work through". */
@@ -18,30 +35,44 @@ export interface EngineApi {
 
 const PROGRESS_EVERY_MS = 150;
 
-function compiledFrom(input: unknown) {
+function compiledFrom(input: unknown): CompiledScenario {
   const parsed = parseScenario(input);
   if (!parsed.ok) throw new Error(`The scenario is not valid: ${parsed.problems.map((p) => `${p.path} ${p.message}`).join("; ")}`);
   return compileScenario(parsed.scenario);
 }
 
 export function createEngineApi(now: () => number = () => Date.now()): EngineApi {
+  // One cached compile per worker: a page runs one scenario at a time.
+  let cached: { key: string; compiled: CompiledScenario } | null = null;
+  const compiled = (input: unknown): { compiled: CompiledScenario; compileMs: number } => {
+    const key = JSON.stringify(input);
+    if (cached?.key === key) return { compiled: cached.compiled, compileMs: 0 };
+    const t0 = now();
+    const c = compiledFrom(input);
+    cached = { key, compiled: c };
+    return { compiled: c, compileMs: now() - t0 };
+  };
   return {
+    async prepare(input) {
+      return compiled(input).compileMs;
+    },
     async runRange(input, seed, from, to, onProgress) {
-      const compiled = compiledFrom(input);
-      let last = now();
-      const partial = runIterations(compiled, seed, from, to, (done: number) => {
+      const { compiled: c, compileMs } = compiled(input);
+      const t0 = now();
+      let last = t0;
+      const partial = runIterations(c, seed, from, to, (done: number) => {
         const t = now();
         if (t - last >= PROGRESS_EVERY_MS) {
           last = t;
           onProgress(done);
         }
       });
+      const engineMs = now() - t0;
       onProgress(to - from);
-      return partial;
+      return { partial, engineMs, compileMs };
     },
     async summarize(input, parts) {
-      const compiled = compiledFrom(input);
-      return summarizeRun(compiled, mergePartials(parts));
+      return summarizeRun(compiled(input).compiled, mergePartials(parts));
     },
     async tradeoff(input, seed, iterations) {
       const parsed = parseScenario(input);
@@ -53,4 +84,12 @@ export function createEngineApi(now: () => number = () => Date.now()): EngineApi
       return parsed.ok ? [] : parsed.problems;
     },
   };
+}
+
+/** The typed arrays' buffers of partial runs, to hand over between threads instead of copying them. */
+export function partialBuffers(parts: PartialRun[]): ArrayBuffer[] {
+  const out = new Set<ArrayBuffer>();
+  for (const p of parts)
+    for (const v of Object.values(p)) if (ArrayBuffer.isView(v) && v.buffer instanceof ArrayBuffer) out.add(v.buffer);
+  return [...out];
 }

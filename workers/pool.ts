@@ -2,10 +2,15 @@
  * Runs a scenario over a pool of engine workers: splits the iterations, reports progress (done, rate, time
  * left), merges the parts in index order and has one worker summarise (histograms and curves are binned there,
  * not in React). Cancel terminates the workers at once; a cancelled run resolves to null.
+ *
+ * Workers either come ready from the caller (`engines`: started and prepared before the click, kept running
+ * after the run for the next one) or are created here and terminated when the run ends. A cancelled run
+ * terminates every worker it used, ready-made ones too: a worker busy in the engine cannot be stopped otherwise.
  */
 import type { PartialRun, RunSummary } from "../sim/index";
-import type { EngineApi } from "./engine-api";
+import { partialBuffers, type EngineApi } from "./engine-api";
 import { splitIterations } from "./ranges";
+import { mark, measureEngine, RUN_MARKS } from "./run-marks";
 
 export interface PoolProgress {
   done: number;
@@ -19,8 +24,16 @@ export interface EngineHandle {
   terminate(): void;
 }
 
+export interface PoolResult {
+  summary: RunSummary;
+  durationMs: number;
+  /** Per worker: milliseconds inside the engine, and spent compiling the scenario during the run (0 if ready). */
+  engineMs: number[];
+  compileMs: number[];
+}
+
 export interface PoolRun {
-  result: Promise<{ summary: RunSummary; durationMs: number } | null>;
+  result: Promise<PoolResult | null>;
   cancel(): void;
 }
 
@@ -30,13 +43,19 @@ export function runInPool(opts: {
   seed: string;
   workers: number;
   createEngine: () => EngineHandle;
+  /** Ready workers to use first (the caller's to keep or terminate, except on cancel). */
+  engines?: EngineHandle[];
   wrapProgress?: (fn: (done: number) => void) => (done: number) => void;
+  /** Marks values whose buffers move to the receiving thread instead of being copied (comlink's `transfer`). */
+  transfer?: <T>(value: T, buffers: ArrayBuffer[]) => T;
   onProgress?: (p: PoolProgress) => void;
   now?: () => number;
 }): PoolRun {
   const now = opts.now ?? (() => performance.now());
   const ranges = splitIterations(opts.iterations, opts.workers);
-  const engines = ranges.map(() => opts.createEngine());
+  const ready = (opts.engines ?? []).slice(0, ranges.length);
+  const own = ranges.slice(ready.length).map(() => opts.createEngine());
+  const engines = [...ready, ...own];
   const done = new Array(ranges.length).fill(0);
   const started = now();
   let cancelled = false;
@@ -50,11 +69,13 @@ export function runInPool(opts: {
     opts.onProgress?.({ done: total, total: opts.iterations, perSecond, secondsLeft: perSecond > 0 ? (opts.iterations - total) / perSecond : null });
   };
   const wrap = opts.wrapProgress ?? ((fn) => fn);
+  const transfer = opts.transfer ?? ((v) => v);
 
   const work = (async () => {
-    const parts: PartialRun[] = await Promise.all(
-      ranges.map((r, i) =>
-        engines[i].api.runRange(
+    const results = await Promise.all(
+      ranges.map(async (r, i) => {
+        const asked = now();
+        const res = await engines[i].api.runRange(
           opts.input,
           opts.seed,
           r.from,
@@ -63,13 +84,17 @@ export function runInPool(opts: {
             done[i] = d;
             report();
           }),
-        ),
-      ),
+        );
+        measureEngine(asked, { worker: i, engineMs: res.engineMs, compileMs: res.compileMs });
+        return res;
+      }),
     );
     if (cancelled) return null;
-    const summary = await engines[0].api.summarize(opts.input, parts);
-    return { summary, durationMs: Math.round(now() - started) };
-  })().finally(() => engines.forEach((e) => e.terminate()));
+    mark(RUN_MARKS.rangesDone);
+    const parts: PartialRun[] = results.map((r) => r.partial);
+    const summary = await engines[0].api.summarize(opts.input, transfer(parts, partialBuffers(parts)));
+    return { summary, durationMs: Math.round(now() - started), engineMs: results.map((r) => r.engineMs), compileMs: results.map((r) => r.compileMs) };
+  })().finally(() => own.forEach((e) => e.terminate()));
 
   return {
     result: Promise.race([work.catch((e) => (cancelled ? null : Promise.reject(e))), cancelledPromise]),

@@ -27,3 +27,20 @@ export function poolSize(hardwareConcurrency: number | undefined): number {
   const cores = hardwareConcurrency && hardwareConcurrency > 0 ? hardwareConcurrency : 2;
   return Math.max(1, Math.min(8, cores - 1 || 1));
 }
+
+/** The most workers a page may be asked for: more than the cores only slows each one down. */
+export const MAX_POOL_SIZE = 8;
+
+/**
+ * A pool size asked for by hand: `?workers=N` in the page's address, else the `pourline.engineWorkers` key in
+ * localStorage (kept for the browser). Used by the browser benchmark to compare 1, 2 and 4 workers, and by
+ * anyone who wants to leave more of the machine free. A whole number 1–8, or null for "choose for this device".
+ */
+export function requestedPoolSize(fromAddress: string | null | undefined, fromStorage: string | null | undefined): number | null {
+  for (const text of [fromAddress, fromStorage]) {
+    if (text == null || text.trim() === "") continue;
+    const n = Number(text);
+    if (Number.isInteger(n) && n >= 1 && n <= MAX_POOL_SIZE) return n;
+  }
+  return null;
+}

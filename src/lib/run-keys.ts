@@ -20,3 +20,10 @@ export function resultKey(c: Computation): string {
 export const runJobKey = (c: Computation) => `${c.reforecast ? "reforecast" : "run"}:${resultKey(c)}`;
 export const verifyJobKey = (runId: string) => `verify:${runId}`;
 export const searchJobKey = (searchId: string) => `search:${searchId}`;
+
+/**
+ * Within one scenario, what a plan run computed: the same version, iterations and seed give the same summary
+ * (the engine is deterministic). The Outlook uses it to tell the run a browser just computed from the run the
+ * server's page shows.
+ */
+export const planComputationKey = (c: { scenarioVersion: number; iterations: number; seed: string }) => `v${c.scenarioVersion}:${c.iterations}:${JSON.stringify(c.seed)}`;

@@ -66,6 +66,10 @@ describe("workbench", () => {
     await bar.waitFor();
     await expect.poll(() => bar.getAttribute("aria-valuenow"), { timeout: 90_000 }).toBe("100");
     await page.getByText("Saved with this version.").waitFor({ timeout: 30_000 });
+    // Drawn from the browser's own summary first, then shown as the server's (pending) run once the save is in.
+    await page.getByTestId("pending-run").waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId("local-run").count()).toBe(0);
+    expect(await page.getByTestId("results-view").getAttribute("data-run-seed")).toBe("pourline");
     await page.getByTestId("confidence-curve").waitFor({ timeout: 30_000 });
     await page.getByTestId("time-distance-chart").waitFor();
     const runs = await call(`/api/scenarios/${id}/runs`, { cookie: await signInAs("scheduler") });

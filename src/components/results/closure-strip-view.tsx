@@ -4,29 +4,74 @@
  * iteration — one row per closure (a stage's barrier standing round the clock drawn solid, short-term
  * closures hatched, and each row named in words, so colour is never the only cue), and a last row with the
  * lanes closed at once. Its plot area is inset like the chart's (left margin + axis width, right margin), so
- * both share one date axis. A table for screen readers gives the same rows in words.
+ * both share one date axis. A table for screen readers gives the same rows in words. Each row is one SVG path
+ * in pixels of the measured strip (hundreds of periods as hundreds of positioned elements made drawing a long
+ * plan slow); a period shorter than a pixel is drawn a pixel wide.
  */
+import { useEffect, useMemo, useRef, useState } from "react";
 import type { ClosurePeriodSummary, LaneClosedHours } from "@sim/summary-closures";
 import { formatIsoDate } from "@/lib/format";
 import { closureRows, lanesClosed } from "./closure-strip";
+import { barsPath } from "./downsample";
 
 /** The time–distance chart's plot inset: LineChart margin.left 16 + YAxis width 84; margin.right 24. */
 const INSET = { left: 100, right: 24 };
 
 const STANDING = "var(--color-brand-700)";
 const SHORT = "repeating-linear-gradient(135deg, var(--color-s6) 0 3px, transparent 3px 6px)";
+const ROW_PX = 14;
+const UNION_PX = 24;
+
+/** The width of the strip's drawing area in pixels, once the browser has laid it out (0 before). */
+function useDrawingWidth() {
+  const ref = useRef<HTMLDivElement>(null);
+  const [width, setWidth] = useState(0);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const read = () => setWidth(Math.max(0, el.getBoundingClientRect().width - INSET.left - INSET.right));
+    read();
+    const ro = new ResizeObserver(read);
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+  return { ref, width };
+}
+
+/** One row of the strip: its periods as rectangles of one fill, `heightOf` 0–1 of the row for each. */
+function StripRow({ bars, width, height, fill, pattern, heightOf }: { bars: { x1: number; x2: number }[]; width: number; height: number; fill: string; pattern?: string; heightOf?: (i: number) => number }) {
+  const d = barsPath(
+    bars.map((b, i) => ({ x1: b.x1 * width, x2: b.x2 * width, y: height * (1 - (heightOf ? heightOf(i) : 1)) })),
+    height,
+  );
+  return (
+    <svg width={width} height={height} className="block">
+      {pattern && (
+        <defs>
+          <pattern id={pattern} patternUnits="userSpaceOnUse" width="6" height="6" patternTransform="rotate(45)">
+            <rect width="3" height="6" fill="var(--color-s6)" />
+          </pattern>
+        </defs>
+      )}
+      <path d={d} fill={pattern ? `url(#${pattern})` : fill} />
+    </svg>
+  );
+}
 const h = (x: number) => `${Math.round(x).toLocaleString("en-US")} lane-h`;
 const when = (iso: string) => `${formatIsoDate(iso)} ${iso.slice(11, 16)}`;
 
 export function ClosureStrip({ timeline, lo, hi, laneClosed }: { timeline: ClosurePeriodSummary[]; lo: number; hi: number; laneClosed?: LaneClosedHours }) {
-  const rows = closureRows(timeline, lo, hi);
-  const union = lanesClosed(timeline, lo, hi);
+  // Computed once per timeline and range: the strip draws again when its width is measured or changes.
+  const rows = useMemo(() => closureRows(timeline, lo, hi), [timeline, lo, hi]);
+  const union = useMemo(() => lanesClosed(timeline, lo, hi), [timeline, lo, hi]);
   const maxLanes = Math.max(1, ...union.map((u) => u.lanes.length));
-  const pos = (x1: number, x2: number) => ({ left: `${((x1 - lo) / (hi - lo)) * 100}%`, width: `max(1px, ${((x2 - x1) / (hi - lo)) * 100}%)` });
+  // Periods as fractions of the strip's width.
+  const frac = (b: { x1: number; x2: number }) => ({ x1: (b.x1 - lo) / (hi - lo), x2: (b.x2 - lo) / (hi - lo) });
   const p50 = new Map((laneClosed?.byClosure ?? []).map((c) => [c.closure, c.p50]));
+  const { ref, width } = useDrawingWidth();
 
   return (
-    <div className="mt-4 border-t border-line pt-3" data-testid="closure-strip">
+    <div className="mt-4 border-t border-line pt-3" data-testid="closure-strip" ref={ref}>
       <p className="text-sm font-medium">What is closed, hour by hour</p>
       <p className="text-xs text-muted">
         Same iteration and dates as the chart. <span className="inline-block h-2.5 w-5 align-middle" style={{ background: STANDING }} aria-hidden="true" /> solid: a
@@ -49,9 +94,7 @@ export function ClosureStrip({ timeline, lo, hi, laneClosed }: { timeline: Closu
                 </span>
               </p>
               <div className="relative h-3.5 rounded-sm bg-paper" style={{ marginLeft: INSET.left, marginRight: INSET.right }}>
-                {r.bars.map((b, k) => (
-                  <span key={k} className="absolute inset-y-0" style={{ ...pos(b.x1, b.x2), background: r.kind === "standing" ? STANDING : SHORT }} />
-                ))}
+                {width > 0 && <StripRow bars={r.bars.map(frac)} width={width} height={ROW_PX} fill={STANDING} pattern={r.kind === "standing" ? undefined : `hatch-${r.closure.replace(/[^a-zA-Z0-9_-]/g, "_")}`} />}
               </div>
             </div>
           ))}
@@ -60,9 +103,7 @@ export function ClosureStrip({ timeline, lo, hi, laneClosed }: { timeline: Closu
               Lanes closed at once <span className="font-normal text-muted">(bar height: 1 to {maxLanes} lanes)</span>
             </p>
             <div className="relative h-6 rounded-sm bg-paper" style={{ marginLeft: INSET.left, marginRight: INSET.right }}>
-              {union.map((u, k) => (
-                <span key={k} className="absolute bottom-0 bg-ink/70" style={{ ...pos(u.x1, u.x2), height: `${(u.lanes.length / maxLanes) * 100}%` }} />
-              ))}
+              {width > 0 && <StripRow bars={union.map(frac)} width={width} height={UNION_PX} fill="color-mix(in srgb, var(--color-ink) 70%, transparent)" heightOf={(k) => union[k].lanes.length / maxLanes} />}
             </div>
           </div>
         </div>

@@ -27,7 +27,7 @@ export function ConfidencePanel({ summary }: { summary: RunSummary }) {
     LEVELS.map((l) => `${l.y} % finish by ${quantileText(summary.finish[l.key])}`).join("; ") +
     (target ? `. Target ${formatIsoDate(target.date)}: ${formatPercent(target.probability)} of iterations finish by the end of that day.` : ".");
   return (
-    <figure aria-label={aria} className="m-0" data-testid="confidence-curve">
+    <figure aria-label={aria} className="m-0" data-testid="confidence-curve" data-drawn-seed={summary.seed}>
       {points.length === 0 ? (
         <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted">No iteration finished, so there is no curve to draw.</p>
       ) : (

@@ -6,17 +6,29 @@
  * table for screen readers. Reads only `summary.delay`, `summary.cost`
  * and `summary.traffic` (absent when the scenario has no traffic or costs section: the panel says so).
  */
-import { Bar, CartesianGrid, ComposedChart, Legend, Line, ReferenceArea, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { CartesianGrid, ComposedChart, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { parseIsoDate } from "@sim/dates";
 import type { NumberQuantiles, RunSummary } from "@sim/summary";
 import { formatIsoDate } from "@/lib/format";
+import { memo } from "react";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
-import { dateTicks, formatDay } from "./date-axis";
+import { BandsLayer, BarsLayer } from "./chart-layers";
+import { ChartPlaceholder } from "./chart-placeholder";
+import { Deferred } from "./deferred";
+import { LineSwatch } from "./legend-swatch";
+import { dateTicks } from "./date-axis";
 
 /** Stretches of more than a month without a closure day (a winter, a long stand-down): shaded and named. */
 const LONG_GAP_DAYS = 30;
 
-const num = (v: number | null | undefined, digits = 0) => (v === null || v === undefined || !Number.isFinite(v) ? "—" : v.toLocaleString("en-US", { maximumFractionDigits: digits }));
+// One formatter per precision: building one per call (toLocaleString with options) costs ~0.1 ms, and the day table calls it hundreds of times.
+const numberFormats = new Map<number, Intl.NumberFormat>();
+const numberFormat = (digits: number) => {
+  let f = numberFormats.get(digits);
+  if (!f) numberFormats.set(digits, (f = new Intl.NumberFormat("en-US", { maximumFractionDigits: digits })));
+  return f;
+};
+const num = (v: number | null | undefined, digits = 0) => (v === null || v === undefined || !Number.isFinite(v) ? "—" : numberFormat(digits).format(v));
 const money = (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? "—" : `$${Math.round(v).toLocaleString("en-US")}`);
 
 function Pair({ q, format, unit = "" }: { q: NumberQuantiles | null | undefined; format: (v: number | null) => string; unit?: string }) {
@@ -59,11 +71,38 @@ export function DelayTotals({ summary }: { summary: RunSummary }) {
   );
 }
 
+interface DayRow {
+  date: string;
+  /** Day number of the day's middle (where its queue point sits). */
+  day: number;
+  hours: number | null;
+  miles: number | null;
+}
+
+/** A round upper end for the hours axis (1, 2 or 5 × a power of ten), so its ticks read as whole numbers. */
+export function niceCeiling(max: number): number {
+  if (!(max > 0)) return 1;
+  const p = 10 ** Math.floor(Math.log10(max));
+  return ([1, 2, 5, 10].find((m) => m * p >= max) ?? 10) * p;
+}
+
+function DayTip({ active, payload }: { active?: boolean; payload?: readonly { payload?: DayRow }[] }) {
+  const row = payload?.[0]?.payload;
+  if (!active || !row || !row.date) return null;
+  return (
+    <div className="rounded-md border border-line bg-white px-2 py-1 text-xs shadow-sm">
+      <p className="font-medium">{formatIsoDate(row.date)}</p>
+      <p>Lane-closed hours: {row.hours ?? "—"}</p>
+      <p>Longest queue: {row.miles ?? "—"} mi</p>
+    </div>
+  );
+}
+
 export function DelayChart({ summary }: { summary: RunSummary }) {
   const t = summary.traffic;
   if (!t) return <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted">This plan has no traffic profile, so there are no queues to draw. Add one in the plan editor’s Traffic section.</p>;
   if (t.days.length === 0) return <p className="rounded-md border border-dashed border-line p-6 text-center text-sm text-muted">The representative iteration used no closure.</p>;
-  const data = t.days.map((d) => ({
+  const data: DayRow[] = t.days.map((d) => ({
     date: d.date,
     day: parseIsoDate(d.date) + 0.5,
     hours: Math.round(Object.values(d.laneClosedHours ?? {}).reduce((a, b) => a + b, 0) * 10) / 10,
@@ -75,26 +114,28 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
   const { ticks, label: tickLabel } = dateTicks(lo, hi, 8);
   const gaps = data.slice(1).flatMap((d, i) => (d.day - data[i].day > LONG_GAP_DAYS ? [{ x1: data[i].day + 0.5, x2: d.day - 0.5 }] : []));
   // A point with no value in each long gap, so the queue line stops there instead of drawing across the winter.
-  const drawn = [...data, ...gaps.map((g) => ({ date: "", day: (g.x1 + g.x2) / 2, hours: null, miles: null }))].sort((a, b) => a.day - b.day);
+  const drawn: DayRow[] = [...data, ...gaps.map((g) => ({ date: "", day: (g.x1 + g.x2) / 2, hours: null, miles: null }))].sort((a, b) => a.day - b.day);
+  // Each day's bar over the middle 80 % of the day, as recharts' own bars had it; drawn as one path.
+  const bars = data.map((d) => ({ x1: d.day - 0.4, x2: d.day + 0.4, value: d.hours ?? 0 }));
+  const hoursTop = niceCeiling(Math.max(...bars.map((b) => b.value)));
   const aria = `Day-by-day chart for the representative iteration (${data.length} days with a closure or a queue): bars are lane-closed hours, the line is the day’s longest queue in miles${max ? `; the longest is ${max.miles} miles on ${formatIsoDate(max.date)}` : ""}. The same figures are in the table that follows.`;
   return (
-    <figure aria-label={aria} className="m-0" data-testid="delay-chart">
+    <figure aria-label={aria} className="m-0" data-testid="delay-chart" data-drawn-seed={summary.seed}>
+      <ul className="flex flex-wrap justify-center gap-x-5 text-xs text-ink" aria-hidden="true">
+        <li className="flex items-center gap-1.5">
+          <span className="inline-block h-3 w-3 rounded-sm" style={{ background: "var(--color-s2)" }} />
+          Lane-closed hours
+        </li>
+        <li className="flex items-center gap-1.5">
+          <LineSwatch stroke="var(--color-s6)" />
+          Longest queue (mi)
+        </li>
+      </ul>
       <div aria-hidden="true">
-        <ResponsiveContainer width="100%" height={260} initialDimension={{ width: 700, height: 260 }}>
+        <ResponsiveContainer width="100%" height={232} initialDimension={{ width: 700, height: 232 }}>
           <ComposedChart data={drawn} margin={{ top: 8, right: 8, bottom: 28, left: 8 }} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
-            {gaps.map((g) => (
-              <ReferenceArea
-                key={g.x1}
-                yAxisId="h"
-                x1={g.x1}
-                x2={g.x2}
-                fill="var(--color-brand-100)"
-                fillOpacity={0.6}
-                stroke="none"
-                label={g.x2 - g.x1 > (hi - lo) / 10 ? { value: "No closures", position: "insideTop", fill: "var(--color-brand-800)", fontSize: 12 } : undefined}
-              />
-            ))}
+            <BandsLayer bands={gaps.map((g) => ({ ...g, fill: "var(--color-brand-100)", fillOpacity: 0.6, label: g.x2 - g.x1 > (hi - lo) / 10 ? "No closures" : undefined }))} />
             <XAxis
               dataKey="day"
               type="number"
@@ -105,16 +146,16 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
               tick={AXIS_TICK}
               label={{ value: "Date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
             />
-            <YAxis yAxisId="h" tick={AXIS_TICK} width={56} label={{ value: "Lane-closed hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
+            <YAxis yAxisId="h" type="number" domain={[0, hoursTop]} allowDataOverflow tick={AXIS_TICK} width={56} label={{ value: "Lane-closed hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
             {/* Wide enough for the ticks and the title beside them; the title is centred on the axis, never cut. */}
             <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={64} label={{ value: "Longest queue (mi)", angle: 90, position: "insideRight", offset: 4, style: { textAnchor: "middle" }, fill: "var(--color-ink)", fontSize: 12 }} />
-            <Tooltip labelFormatter={(v) => (typeof v === "number" ? formatDay(v) : String(v))} />
-            <Legend verticalAlign="top" height={28} wrapperStyle={{ fontSize: 12 }} />
-            <Bar yAxisId="h" dataKey="hours" name="Lane-closed hours" fill="var(--color-s2)" isAnimationActive={false} />
+            <Tooltip content={DayTip} />
+            <BarsLayer bars={bars} yAxisId="h" fill="var(--color-s2)" />
             <Line yAxisId="mi" dataKey="miles" name="Longest queue (mi)" stroke="var(--color-s6)" strokeWidth={2} dot={false} connectNulls={false} isAnimationActive={false} />
           </ComposedChart>
         </ResponsiveContainer>
       </div>
+      <Deferred>
       <div className="sr-only">
         <table>
           <caption>Lane-closed hours and longest queue by day, representative iteration</caption>
@@ -140,12 +181,18 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
           </tbody>
         </table>
       </div>
+      </Deferred>
     </figure>
   );
 }
 
-/** The panel as the results view shows it. */
-export function DelayPanel({ summary }: { summary: RunSummary }) {
+const Chart = memo(DelayChart);
+
+/**
+ * The panel as the results view shows it. `chartOf`: the summary its chart draws — the view hands charts a new
+ * summary one at a time (use-staged.ts), null for a placeholder until then.
+ */
+export function DelayPanel({ summary, chartOf = summary }: { summary: RunSummary; chartOf?: RunSummary | null }) {
   const t = summary.traffic;
   return (
     <div className="space-y-4" data-testid="delay-panel">
@@ -157,7 +204,7 @@ export function DelayPanel({ summary }: { summary: RunSummary }) {
           {num(t.delayVehHours)} vehicle-hours of delay in all. Queue length assumes {t.jamDensityPcPerMiPerLane} passenger cars per lane-mile at a standstill.
         </p>
       )}
-      <DelayChart summary={summary} />
+      {chartOf ? <Chart summary={chartOf} /> : <ChartPlaceholder height={260} />}
     </div>
   );
 }

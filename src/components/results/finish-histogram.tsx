@@ -30,7 +30,7 @@ export function FinishHistogram({ summary }: { summary: RunSummary }) {
   const width = binDays === 1 ? "one day per bar" : `${binDays} days per bar`;
   const aria = `Histogram of finish dates for ${finished.toLocaleString("en-US")} finished iterations, ${bins.length} bars (${width}) from ${formatIsoDate(bins[0].from)} to ${formatIsoDate(bins[bins.length - 1].to)}; the most common is ${binLabel(peak)} with ${peak.count} iterations.`;
   return (
-    <figure aria-label={aria} className="m-0">
+    <figure aria-label={aria} className="m-0" data-testid="finish-histogram" data-drawn-seed={summary.seed}>
       <div aria-hidden="true">
         <ResponsiveContainer width="100%" height={240} initialDimension={{ width: 700, height: 240 }}>
           <BarChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 8 }} barCategoryGap={1} accessibilityLayer={false}>

@@ -6,10 +6,13 @@
  * `document`: the owner brief's layout — one column (charts as wide as the page), and nothing to click (no
  * sorting, no trade-off button), because it is printed.
  */
-import { useMemo } from "react";
+import { memo, useEffect, useMemo } from "react";
+import { mark, RUN_MARKS } from "@workers/run-marks";
 import { parseScenario } from "@sim/validate";
 import { queueLimitOf } from "@sim/queue-limit";
 import type { RunSummary } from "@sim/summary";
+import { useJsonStable } from "../use-json-stable";
+import { ChartPlaceholder } from "./chart-placeholder";
 import { ConfidencePanel } from "./confidence-panel";
 import { DelayPanel } from "./delay-panel";
 import { QueueBreachDays } from "./queue-breach-days";
@@ -19,6 +22,16 @@ import { StatCards } from "./stat-cards";
 import { p80Meaning, plainSummary, quantileText, winterCarryover } from "./summary-text";
 import { TimeDistanceChart } from "./time-distance-chart";
 import { TradeoffPanel } from "./tradeoff-panel";
+import { useStaged } from "./use-staged";
+
+// Redrawn only when their own props change (a summary or plan object they have not drawn yet).
+const Confidence = memo(ConfidencePanel);
+const Histogram = memo(FinishHistogram);
+const TimeDistance = memo(TimeDistanceChart);
+const Delay = memo(DelayPanel);
+const Stats = memo(StatCards);
+const Breaches = memo(QueueBreachDays);
+const Operations = memo(OperationsTable);
 
 export interface ResultsRun {
   id: string;
@@ -39,17 +52,27 @@ function Section({ title, id, children, description }: { title: string; id: stri
   );
 }
 
-export function ResultsView({ summary, definition, run, document = false }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean }) {
+export function ResultsView({ summary, definition: given, run, document = false }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean }) {
+  // A page refresh brings the same plan as a new object: keep the one already parsed and drawn.
+  const definition = useJsonStable(given);
   const plan = useMemo(() => {
     const r = parseScenario(definition);
     return r.ok ? r.scenario : null;
   }, [definition]);
+  // The four charts take a new summary one per task (the printed brief draws them at once).
+  const queueLimit = useMemo(() => queueLimitOf(plan), [plan]);
+  const [curveOf, histogramOf, tdOf, delayOf] = useStaged(summary, 4, !document);
   const text = plainSummary(summary);
   const allUnfinished = summary.unfinishedIterations >= summary.iterations;
   const idp = `run-${run.id}`;
+  // On the page's timeline, for profiles and the browser benchmark: every chart of this summary is committed.
+  const allDrawn = [curveOf, histogramOf, tdOf, delayOf].every((s) => s === summary);
+  useEffect(() => {
+    if (allDrawn) mark(RUN_MARKS.drawn, { seed: run.seed, iterations: summary.iterations });
+  }, [allDrawn, summary, run.seed]);
 
   return (
-    <div className="space-y-5" data-testid="results-view">
+    <div className="space-y-5" data-testid="results-view" data-run-seed={run.seed} data-run-iterations={summary.iterations}>
       <section className="card" aria-labelledby={`${idp}-summary`}>
         <div className="flex flex-wrap items-center gap-2">
           <h2 id={`${idp}-summary`}>Forecast</h2>
@@ -102,14 +125,14 @@ export function ResultsView({ summary, definition, run, document = false }: { su
         </p>
       </section>
 
-      <StatCards summary={summary} />
+      <Stats summary={summary} />
 
       <div className={document ? "grid gap-5" : "grid gap-5 lg:grid-cols-2"}>
         <Section title="Confidence curve" id={`${idp}-curve`} description="Share of iterations finished by each date; dots mark P50, P80 and P90.">
-          <ConfidencePanel summary={summary} />
+          {curveOf ? <Confidence summary={curveOf} /> : <ChartPlaceholder height={300} />}
         </Section>
         <Section title="Finish dates" id={`${idp}-hist`} description="How many iterations finished in each period.">
-          <FinishHistogram summary={summary} />
+          {histogramOf ? <Histogram summary={histogramOf} /> : <ChartPlaceholder height={240} />}
         </Section>
       </div>
 
@@ -122,7 +145,7 @@ export function ResultsView({ summary, definition, run, document = false }: { su
           {allUnfinished && summary.representative?.trace?.packets?.length === 0 ? (
             <p className="text-sm text-muted">No iteration finished, so there is no representative iteration to draw.</p>
           ) : (
-            <TimeDistanceChart summary={summary} plan={plan} stale={run.stale} />
+            tdOf ? <TimeDistance summary={tdOf} plan={plan} stale={run.stale} /> : <ChartPlaceholder height={460} />
           )}
         </div>
       </Section>
@@ -132,9 +155,9 @@ export function ResultsView({ summary, definition, run, document = false }: { su
         id={`${idp}-delay`}
         description="What the plan costs drivers and the owner (P50 and P80 over iterations), and, for the iteration nearest the P50, lane-closed hours and the longest queue of each day."
       >
-        <DelayPanel summary={summary} />
+        <Delay summary={summary} chartOf={delayOf} />
         {/* The printed brief lists the days over the limit in its own traffic section. */}
-        {!document && <QueueBreachDays summary={summary} limit={queueLimitOf(plan)} />}
+        {!document && <Breaches summary={summary} limit={queueLimit} />}
       </Section>
 
       {plan && !document && (
@@ -144,7 +167,7 @@ export function ResultsView({ summary, definition, run, document = false }: { su
       )}
 
       <Section title={(summary.stages?.length ?? 0) > 1 ? "Finish by stage and operation" : "Finish by operation"} id={`${idp}-ops`}>
-        <OperationsTable operations={summary.operations} stages={summary.stages} sortable={!document} />
+        <Operations operations={summary.operations} stages={summary.stages} sortable={!document} />
       </Section>
     </div>
   );

@@ -5,10 +5,11 @@
  * selector shows all of them (each stage's start marked and labelled) or one; an operation keeps its colour
  * and dash in every stage. Under the chart, the closure strip reads the run's closure timeline on the same
  * dates. Stations and shading come from the plan (the definition); the trace from the run. Rendering stays
- * light: no dots, no animation.
+ * light: the lines and the stand-down shading are drawn as a few paths on the chart's scales (./chart-layers,
+ * lines reduced to four points per pixel column), no dots, no animation.
  */
 import { useMemo, useState } from "react";
-import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, XAxis, YAxis } from "recharts";
+import { CartesianGrid, LineChart, ReferenceLine, ResponsiveContainer, XAxis, YAxis } from "recharts";
 import { compileCalendar, HORIZON_DAYS } from "@sim/calendar";
 import type { Scenario } from "@sim/schema";
 import type { RunSummary } from "@sim/summary";
@@ -16,6 +17,7 @@ import { formatStation } from "@/lib/format";
 import { stageLabel } from "@/lib/stage-text";
 import { AXIS_TICK, GRID_STROKE, seriesStyle } from "./chart-style";
 import { dateTicks, formatDay, hoursToDay } from "./date-axis";
+import { BandsLayer, SeriesLayer, type LayerBand, type LayerSeries } from "./chart-layers";
 import { ClosureStrip } from "./closure-strip-view";
 import { AreaSwatch, LineSwatch } from "./legend-swatch";
 import { StageSelector } from "./stage-selector";
@@ -94,6 +96,22 @@ export function TimeDistanceChart({
   // The legend lists each operation once, in the plan's order, with the style it has in every stage.
   const legend = [...new Map(series.map((s) => [s.id, s])).values()].sort((a, b) => a.styleIndex - b.styleIndex);
   const stageStarts = staged ? visible.map((g) => ({ id: g.stage!.id, label: `Stage ${groups.indexOf(g) + 1} starts`, x: Math.min(...g.series.filter((s) => s.firstStart !== null).map((s) => s.firstStart!)) })).filter((m) => Number.isFinite(m.x)) : [];
+  // Holidays in neutral grey: a coloured band would hide the operation line of the same hue.
+  const bandLayer: LayerBand[] = bands.map((b) => ({
+    x1: b.x1,
+    x2: b.x2,
+    fill: b.kind === "winter" ? "var(--color-brand-100)" : "var(--color-muted)",
+    fillOpacity: b.kind === "winter" ? 0.7 : 0.16,
+    label: b.kind === "winter" && b.x2 - b.x1 > (hi - lo) / 12 ? "Winter" : undefined,
+  }));
+  // Recorded progress under the plan's lines: thick and pale, in the operation's colour.
+  const lineLayer: LayerSeries[] = [
+    ...(actuals ?? []).map((a) => {
+      const i = series.find((s) => s.id === a.id)?.styleIndex ?? -1;
+      return { key: `actual-${a.id}`, points: a.points, stroke: i >= 0 ? seriesStyle(i).stroke : "var(--color-muted)", strokeOpacity: 0.4, strokeWidth: 7 };
+    }),
+    ...series.map((s) => ({ key: s.key, points: s.points, ...seriesStyle(s.styleIndex), strokeWidth: 2.5 })),
+  ];
   const yLo = plan.deck.startStationFt;
   const yHi = plan.deck.startStationFt + plan.deck.lengthFt;
   const { ticks, label } = dateTicks(lo, hi, 8);
@@ -107,26 +125,13 @@ export function TimeDistanceChart({
     `Gaps in a line are pauses (nights, weather, stand-downs). Shaded: ${winters} winter and ${holidays} holiday stand-downs. The table below lists each operation${staged ? " of each stage" : ""}.`;
 
   return (
-    <figure aria-label={aria} className="m-0">
+    <figure aria-label={aria} className="m-0" data-drawn-seed={summary.seed}>
       {stale && <p className="mb-2 text-xs text-warn">The plan changed after this run: stations and stand-down shading follow the current plan.</p>}
       {staged && <StageSelector stages={groups.map((g) => g.stage!)} finishes={summary.stages ?? []} value={shown} onChange={setShown} />}
       <div aria-hidden="true">
         <ResponsiveContainer width="100%" height={380} initialDimension={{ width: 700, height: 380 }}>
           <LineChart margin={{ top: stageStarts.length ? 26 : 16, right: 24, bottom: 28, left: 16 }} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
-            {bands.map((b, i) => (
-              <ReferenceArea
-                key={i}
-                x1={b.x1}
-                x2={b.x2}
-                // Holidays in neutral grey: a coloured band would hide the operation line of the same hue.
-                fill={b.kind === "winter" ? "var(--color-brand-100)" : "var(--color-muted)"}
-                fillOpacity={b.kind === "winter" ? 0.7 : 0.16}
-                stroke="none"
-                ifOverflow="hidden"
-                label={b.kind === "winter" && b.x2 - b.x1 > (hi - lo) / 12 ? { value: "Winter", position: "insideTop", fill: "var(--color-brand-800)", fontSize: 12 } : undefined}
-              />
-            ))}
             <XAxis
               type="number"
               dataKey="x"
@@ -140,6 +145,8 @@ export function TimeDistanceChart({
             <YAxis
               type="number"
               domain={[yLo, yHi]}
+              // The deck's ends exactly (the lines are drawn by a layer that gives recharts no data to widen it with).
+              allowDataOverflow
               ticks={stationTicks(yLo, yHi)}
               // A no-break space keeps "STA 40+00" on one line (the axis would wrap it at the space).
               tickFormatter={(v: number) => formatStation(v).replace(" ", "\u00a0")}
@@ -147,47 +154,12 @@ export function TimeDistanceChart({
               width={84}
               label={{ value: "Station (1 STA = 100 ft)", angle: -90, position: "insideLeft", offset: 0, dy: 70, fill: "var(--color-ink)", fontSize: 12 }}
             />
-            {(actuals ?? []).map((a) => {
-              const i = series.find((s) => s.id === a.id)?.styleIndex ?? -1;
-              return (
-                <Line
-                  key={`actual-${a.id}`}
-                  data={a.points}
-                  dataKey="y"
-                  type="linear"
-                  stroke={i >= 0 ? seriesStyle(i).stroke : "var(--color-muted)"}
-                  strokeOpacity={0.4}
-                  strokeWidth={7}
-                  dot={false}
-                  activeDot={false}
-                  connectNulls={false}
-                  isAnimationActive={false}
-                />
-              );
-            })}
+            <BandsLayer bands={bandLayer} />
             {stageStarts.map((m) => (
               <ReferenceLine key={`stage-${m.id}`} x={m.x} stroke="var(--color-ink)" strokeDasharray="2 2" ifOverflow="hidden" label={{ value: `▸ ${m.label}`, position: "top", textAnchor: "start", dx: -4, fontSize: 12, fontWeight: 600, fill: "var(--color-ink)" }} />
             ))}
             {dataDay !== undefined && <ReferenceLine x={dataDay} stroke="var(--color-ink)" strokeDasharray="4 3" ifOverflow="hidden" label={{ value: "Data date", position: "insideTopRight", fontSize: 12, fill: "var(--color-ink)" }} />}
-            {series.map((s) => {
-              const st = seriesStyle(s.styleIndex);
-              return (
-                <Line
-                  key={s.key}
-                  data={s.points}
-                  dataKey="y"
-                  name={s.name}
-                  type="linear"
-                  stroke={st.stroke}
-                  strokeDasharray={st.strokeDasharray || undefined}
-                  strokeWidth={2.5}
-                  dot={false}
-                  activeDot={false}
-                  connectNulls={false}
-                  isAnimationActive={false}
-                />
-              );
-            })}
+            <SeriesLayer series={lineLayer} />
           </LineChart>
         </ResponsiveContainer>
       </div>

@@ -5,8 +5,21 @@ import { budgetProblem } from "@sim/budget";
 import { parseScenario } from "@sim/validate";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { mark, RUN_MARKS } from "@workers/run-marks";
+import { planComputationKey } from "@/lib/run-keys";
+import type { RunSummary } from "@sim/summary";
+import { useJsonStable } from "../use-json-stable";
+import { publishLocalRun, updateLocalRun } from "./local-runs";
 import { useEnginePool } from "./use-engine-pool";
 import { JobProgress, useJob } from "./job-progress";
+
+interface SaveBody {
+  seed: string;
+  iterations: number;
+  scenarioVersion: number;
+  summary: RunSummary;
+  durationMs: number;
+}
 
 const ITERATION_CHOICES = [1_000, 2_000, 5_000, 10_000, 20_000];
 
@@ -18,21 +31,27 @@ function formatSeconds(s: number | null) {
 }
 
 /** Start a Monte Carlo run in the browser's workers, watch it, cancel it, and store the result with the scenario. */
-export function RunPanel({ scenarioId, version, definition, canRun, blockers = [] }: { scenarioId: string; version: number; definition: unknown; canRun: boolean; blockers?: string[] }) {
+export function RunPanel({ scenarioId, version, definition: given, canRun, blockers = [] }: { scenarioId: string; version: number; definition: unknown; canRun: boolean; blockers?: string[] }) {
+  // The page's refresh after a save brings the same plan as a new object: keep the one parsed and prepared.
+  const definition = useJsonStable(given);
   const router = useRouter();
   const qc = useQueryClient();
-  const pool = useEnginePool();
   const [iterations, setIterations] = useState(2_000);
   const [seed, setSeed] = useState("pourline");
   // The same budget the server checks when the run is saved: refuse here instead of computing in vain.
   const plan = useMemo(() => parseScenario(definition), [definition]);
   const overBudget = plan.ok ? budgetProblem(plan.scenario, iterations, "browser") : null;
+  // The workers start and compile the plan while the page is read, when a run is possible at all.
+  const pool = useEnginePool(canRun && plan.ok && blockers.length === 0 ? definition : null);
   const save = useMutation({
-    mutationFn: (body: unknown) => api<{ id: string; verification: string; verifyJobId: string | null }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
-    onSuccess: () => {
+    mutationFn: (body: SaveBody) => api<{ id: string; verification: string; verifyJobId: string | null }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
+    onSuccess: (_, body) => {
+      mark(RUN_MARKS.saved);
+      updateLocalRun(scenarioId, planComputationKey(body), { save: "saved" });
       qc.invalidateQueries({ queryKey: ["scenarios", scenarioId] });
       router.refresh();
     },
+    onError: (_, body) => updateLocalRun(scenarioId, planComputationKey(body), { save: "failed" }),
   });
 
   // The server reproduces the stored run; the page shows it as verified (or not) once that job ends.
@@ -47,7 +66,11 @@ export function RunPanel({ scenarioId, version, definition, canRun, blockers = [
     if (overBudget) return;
     save.reset();
     const result = await pool.start(definition, iterations, seed);
-    if (result) save.mutate({ seed, iterations, scenarioVersion: version, summary: result.summary, durationMs: result.durationMs });
+    if (!result) return;
+    const body = { seed, iterations, scenarioVersion: version, summary: result.summary, durationMs: result.durationMs };
+    // Drawn at once from the workers' summary; the save follows (the Outlook marks the run as being saved).
+    publishLocalRun({ scenarioId, key: planComputationKey(body), iterations, seed, summary: result.summary, computedAt: new Date().toISOString() });
+    save.mutate(body);
   }
 
   return (

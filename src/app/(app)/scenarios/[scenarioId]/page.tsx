@@ -5,7 +5,8 @@ import { VerificationBadge } from "@/components/results/verification-badge";
 import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import type { RunSummary } from "@sim/index";
-import { ResultsView } from "@/components/results";
+import { OutlookRun } from "@/components/results/outlook-run";
+import { planComputationKey } from "@/lib/run-keys";
 import { RunPanel } from "@/components/run/run-panel";
 import { SafetyNote } from "@/components/safety-note";
 import { orNotFound } from "@/lib/server/page-access";
@@ -35,53 +36,58 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
           own computation of the same version and seed, so it is not shown. {forecast ? "Below is the latest forecast the server stands behind." : ""}
         </p>
       )}
-      {run ? (
-        <>
-          {pending && (
-            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="pending-run">
-              Not yet verified: this run was computed in a browser and the server is reproducing it. Until then it is not the scenario’s forecast
-              {forecast ? ` (the last verified one is from ${formatDateTime(forecast.createdAt)})` : ""}.
+      <OutlookRun
+        scenarioId={scenario.id}
+        scenarioVersion={scenario.version}
+        definition={scenario.definition}
+        shown={run ? { key: planComputationKey(run), summary: run.results as unknown as RunSummary, run: resultsRunOf(run, scenario.version) } : null}
+        header={
+          run && (
+            <>
+              {pending && (
+                <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="pending-run">
+                  Not yet verified: this run was computed in a browser and the server is reproducing it. Until then it is not the scenario’s forecast
+                  {forecast ? ` (the last verified one is from ${formatDateTime(forecast.createdAt)})` : ""}.
+                </p>
+              )}
+              {stale && (
+                <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="stale-run" role="status">
+                  This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}). Run it again for a current
+                  forecast.
+                </p>
+              )}
+              <nav aria-label="Exports" className="flex flex-wrap items-center gap-2 text-sm">
+                <span className="text-muted">Take it with you:</span>
+                <a className="btn-secondary" href={`/scenarios/${scenario.id}/brief`}>
+                  Owner brief
+                </a>
+                <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/results.csv`} download>
+                  Percentiles (CSV)
+                </a>
+                <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/results.csv?part=trace`} download>
+                  Time–distance trace (CSV)
+                </a>
+                <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/closures.ics`} download>
+                  Planned closures (calendar)
+                </a>
+              </nav>
+              <p className="text-sm text-muted">
+                <VerificationBadge verification={run.verification} /> {pending ? "Newest run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”,{" "}
+                {formatDateTime(run.createdAt)}
+                {run.createdByName ? ` by ${run.createdByName}` : ""}.
+              </p>
+            </>
+          )
+        }
+        empty={
+          <div className="card text-center" data-testid="no-run">
+            <h2>No forecast yet</h2>
+            <p className="mt-2 text-sm text-muted">
+              {can(role, "runScenario") ? "Run the scenario above to see its finish-date confidence and time–distance chart." : "An engineer or scheduler has not run this scenario yet."}
             </p>
-          )}
-          {stale && (
-            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="stale-run" role="status">
-              This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}). Run it again for a current
-              forecast.
-            </p>
-          )}
-          <nav aria-label="Exports" className="flex flex-wrap items-center gap-2 text-sm">
-            <span className="text-muted">Take it with you:</span>
-            <a className="btn-secondary" href={`/scenarios/${scenario.id}/brief`}>
-              Owner brief
-            </a>
-            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/results.csv`} download>
-              Percentiles (CSV)
-            </a>
-            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/results.csv?part=trace`} download>
-              Time–distance trace (CSV)
-            </a>
-            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/closures.ics`} download>
-              Planned closures (calendar)
-            </a>
-          </nav>
-          <p className="text-sm text-muted">
-            <VerificationBadge verification={run.verification} /> {pending ? "Newest run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”, {formatDateTime(run.createdAt)}
-            {run.createdByName ? ` by ${run.createdByName}` : ""}.
-          </p>
-          <ResultsView
-            summary={run.results as unknown as RunSummary}
-            definition={scenario.definition}
-            run={resultsRunOf(run, scenario.version)}
-          />
-        </>
-      ) : (
-        <div className="card text-center" data-testid="no-run">
-          <h2>No forecast yet</h2>
-          <p className="mt-2 text-sm text-muted">
-            {can(role, "runScenario") ? "Run the scenario above to see its finish-date confidence and time–distance chart." : "An engineer or scheduler has not run this scenario yet."}
-          </p>
-        </div>
-      )}
+          </div>
+        }
+      />
       <SafetyNote />
     </div>
   );
