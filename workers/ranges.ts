@@ -22,10 +22,15 @@ export function splitIterations(iterations: number, workers: number): IterationR
   return out.filter((r) => r.to > r.from);
 }
 
-/** A worker count for this device: all cores but one for the page, at least one, at most eight. */
+/**
+ * A worker count for this device, at most eight. A run is what the person is waiting for, and the page's own
+ * thread is nearly idle meanwhile (a progress line now and then, the charts after), so devices of up to four
+ * cores use them all — on two cores that halves the wait (`npm run bench -- --browser`: 3.7–4.1 s with two
+ * workers against 5.3–7.3 s with one) — and larger ones keep one core for the page and everything else.
+ */
 export function poolSize(hardwareConcurrency: number | undefined): number {
   const cores = hardwareConcurrency && hardwareConcurrency > 0 ? hardwareConcurrency : 2;
-  return Math.max(1, Math.min(8, cores - 1 || 1));
+  return Math.max(1, Math.min(8, cores <= 4 ? cores : cores - 1));
 }
 
 /** The most workers a page may be asked for: more than the cores only slows each one down. */

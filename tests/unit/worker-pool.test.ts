@@ -38,11 +38,12 @@ describe("splitIterations", () => {
     );
   });
 
-  it("leaves a core for the page and stays within 1–8 workers", () => {
-    expect(poolSize(undefined)).toBe(1);
+  it("uses every core up to four, leaves one for the page above that, and stays within 1–8 workers", () => {
+    expect(poolSize(undefined)).toBe(2);
     expect(poolSize(1)).toBe(1);
-    expect(poolSize(2)).toBe(1);
-    expect(poolSize(4)).toBe(3);
+    expect(poolSize(2)).toBe(2);
+    expect(poolSize(4)).toBe(4);
+    expect(poolSize(6)).toBe(5);
     expect(poolSize(64)).toBe(8);
   });
 });

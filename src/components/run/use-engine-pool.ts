@@ -44,7 +44,7 @@ function whenIdle(fn: () => void): () => void {
 }
 
 /**
- * Runs the engine over a pool of Web Workers, one per spare core; the page stays responsive meanwhile.
+ * Runs the engine over a pool of Web Workers, one per core (`poolSize`); the page stays responsive meanwhile.
  * `warmFor`: the definition the next run will use, or null. While it is set the workers are started and
  * compile it once the page is idle, so a click pays for neither; they stay up between runs and are
  * terminated when the page goes (or a run is cancelled).
