@@ -57,6 +57,8 @@ export function hourWeather(week: DayKind[], day: number, hour: number): HourWea
 /** Invented points. The first is the demo project's; the failing ones exist so the failure paths are tested. */
 export const FAKE_LOCATIONS: FakeLocation[] = [
   { latitude: 30.25, longitude: -88.1, name: "Kestrel Bay", office: "KBY", gridX: 40, gridY: 60, week: ["mild", "coldSnap", "mild", "rainy", "mild", "evaporation", "mild", "mild"] },
+  // The seeded south-approach project (scripts/seed.ts), next cell to the causeway's: the same week.
+  { latitude: 30.22, longitude: -88.12, name: "Kestrel Bay south approach", office: "KBY", gridX: 39, gridY: 60, week: ["mild", "coldSnap", "mild", "rainy", "mild", "evaporation", "mild", "mild"] },
   { latitude: 30.3, longitude: -88.2, name: "Cold Snap Flats", office: "KBY", gridX: 41, gridY: 60, week: ["mild", "coldSnap", "coldSnap", "mild", "mild", "mild", "mild", "mild"] },
   { latitude: 30.35, longitude: -88.3, name: "Rainy Point", office: "KBY", gridX: 42, gridY: 60, week: ["mild", "rainy", "rainy", "mild", "mild", "mild", "mild", "mild"] },
   { latitude: 30.4, longitude: -88.4, name: "Dry Wind Mesa", office: "KBY", gridX: 43, gridY: 60, week: ["evaporation", "evaporation", "mild", "mild", "mild", "mild", "mild", "mild"] },
