@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { loadSharedSearch } from "@/lib/server/shared";
 import { formatDateTime, formatIsoDate } from "@/lib/format";
 import { orNotFound } from "@/lib/server/page-access";
-import { SafetyNote } from "@/components/safety-note";
+import { SharedPageFrame } from "@/components/shared-page-frame";
 import { SharedSearchView } from "@/components/search/shared-search-view";
 
 // A share link is a bearer secret: keep it out of search engines and out of Referer headers.
@@ -18,39 +18,23 @@ export default async function SharedSearchPage({ params }: { params: Promise<{ t
   const shared = await orNotFound(loadSharedSearch(token));
   const { link, project, scenario, search, variants } = shared;
   return (
-    <div className="min-h-screen">
-      <header className="border-b border-line bg-white">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center justify-between gap-3 px-5 py-3">
-          <p className="text-lg font-bold tracking-tight text-brand-700">Pourline</p>
-          <p className="badge border border-line text-muted" data-testid="shared-expiry">
-            Read-only link, expires {formatDateTime(link.expiresAt)}
-          </p>
-        </div>
-      </header>
-      <main id="main" className="mx-auto max-w-7xl space-y-5 px-5 py-6">
-        <div>
-          {project && (
-            <p className="text-sm text-muted" data-testid="shared-project">
-              {project.name} · {project.structureName} · {project.region}
-            </p>
-          )}
-          <h1 data-testid="shared-search-title">Plan search on “{scenario.name}”</h1>
-          <p className="mt-1 max-w-3xl text-sm">
-            Which plan to choose: each plan below is the scenario with some choices changed (crews, shifts, closure hours, seasons, holidays or the start
-            date), run many times on the same simulated weather. The chart puts each plan at its P80 finish — the date 80 % of the simulated outcomes
-            met — against the delay it causes drivers; bigger, darker marks cost more. Plans marked “Frontier” are the ones no other plan beats on finish,
-            delay and cost together.
-            {scenario.targetDate ? ` The scenario's target is ${formatIsoDate(scenario.targetDate)}.` : ""}
-          </p>
-          <p className="mt-1 text-xs text-muted">
-            Started {formatDateTime(search.createdAt)}
-            {search.createdByName ? ` by ${search.createdByName}` : ""}
-            {link.label ? ` · shared as “${link.label}”` : ""}
-          </p>
-        </div>
-        <SharedSearchView token={token} initial={{ search, variants }} targetDate={scenario.targetDate} />
-        <SafetyNote />
-      </main>
-    </div>
+    <SharedPageFrame expiresAt={link.expiresAt} project={project}>
+      <div>
+        <h1 data-testid="shared-search-title">Plan search on “{scenario.name}”</h1>
+        <p className="mt-1 max-w-3xl text-sm">
+          Which plan to choose: each plan below is the scenario with some choices changed (crews, shifts, closure hours, seasons, holidays or the start
+          date), run many times on the same simulated weather. The chart puts each plan at its P80 finish — the date 80 % of the simulated outcomes
+          met — against the delay it causes drivers; bigger, darker marks cost more. Plans marked “Frontier” are the ones no other plan beats on finish,
+          delay and cost together.
+          {scenario.targetDate ? ` The scenario's target is ${formatIsoDate(scenario.targetDate)}.` : ""}
+        </p>
+        <p className="mt-1 text-xs text-muted">
+          Started {formatDateTime(search.createdAt)}
+          {search.createdByName ? ` by ${search.createdByName}` : ""}
+          {link.label ? ` · shared as “${link.label}”` : ""}
+        </p>
+      </div>
+      <SharedSearchView token={token} initial={{ search, variants }} targetDate={scenario.targetDate} />
+    </SharedPageFrame>
   );
 }

@@ -3,7 +3,7 @@ import { loadSharedScenario } from "@/lib/server/shared";
 import { formatDateTime } from "@/lib/format";
 import type { RunSummary } from "@sim/summary";
 import { ResultsView } from "@/components/results";
-import { SafetyNote } from "@/components/safety-note";
+import { SharedPageFrame } from "@/components/shared-page-frame";
 import { InputsSummary } from "./inputs-summary";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
@@ -18,64 +18,48 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
   const { link, project, scenario, run } = shared;
   const stale = !!run && run.stale;
   return (
-    <div className="min-h-screen">
-      <header className="border-b border-line bg-white">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center justify-between gap-3 px-5 py-3">
-          <p className="text-lg font-bold tracking-tight text-brand-700">Pourline</p>
-          <p className="badge border border-line text-muted" data-testid="shared-expiry">
-            Read-only link, expires {formatDateTime(link.expiresAt)}
+    <SharedPageFrame expiresAt={link.expiresAt} project={project}>
+      <div>
+        <h1 data-testid="scenario-name">{scenario.name}</h1>
+        {scenario.description && <p className="mt-1 max-w-3xl text-sm">{scenario.description}</p>}
+        <p className="mt-1 text-xs text-muted">
+          Plan version {scenario.version}, last saved {formatDateTime(scenario.updatedAt)}
+          {scenario.updatedByName ? ` by ${scenario.updatedByName}` : ""}
+          {link.label ? ` · shared as “${link.label}”` : ""}
+        </p>
+      </div>
+
+      {run ? (
+        <>
+          <p className="text-sm text-muted">
+            <VerificationBadge verification={run.verification} /> Forecast: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
+            {run.createdByName ? ` by ${run.createdByName}` : ""}
+            {stale ? ` — computed from plan version ${run.scenarioVersion}; the plan has changed since.` : "."}
+          </p>
+          <ResultsView
+            summary={run.results as unknown as RunSummary}
+            definition={scenario.definition}
+            run={resultsRunOf(run, scenario.version)}
+          />
+        </>
+      ) : (
+        <div className="card text-center" data-testid="no-run">
+          <h2>No forecast yet</h2>
+          <p className="mx-auto mt-2 max-w-xl text-sm text-muted">
+            This scenario has not been run yet, so there is no finish-date forecast to show. The inputs below are the plan as it stands; ask the person who shared
+            the link to run it.
           </p>
         </div>
-      </header>
-      <main id="main" className="mx-auto max-w-7xl space-y-5 px-5 py-6">
-        <div>
-          {project && (
-            <p className="text-sm text-muted" data-testid="shared-project">
-              {project.name} · {project.structureName} · {project.region}
-            </p>
-          )}
-          <h1 data-testid="scenario-name">{scenario.name}</h1>
-          {scenario.description && <p className="mt-1 max-w-3xl text-sm">{scenario.description}</p>}
-          <p className="mt-1 text-xs text-muted">
-            Plan version {scenario.version}, last saved {formatDateTime(scenario.updatedAt)}
-            {scenario.updatedByName ? ` by ${scenario.updatedByName}` : ""}
-            {link.label ? ` · shared as “${link.label}”` : ""}
-          </p>
+      )}
+
+      <section className="card" aria-labelledby="inputs-heading">
+        <h2 id="inputs-heading">Inputs</h2>
+        <p className="mt-0.5 text-sm text-muted">The plan the forecast is computed from (current version).</p>
+        <div className="mt-3">
+          <InputsSummary definition={scenario.definition} />
         </div>
+      </section>
 
-        {run ? (
-          <>
-            <p className="text-sm text-muted">
-              <VerificationBadge verification={run.verification} /> Forecast: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
-              {run.createdByName ? ` by ${run.createdByName}` : ""}
-              {stale ? ` — computed from plan version ${run.scenarioVersion}; the plan has changed since.` : "."}
-            </p>
-            <ResultsView
-              summary={run.results as unknown as RunSummary}
-              definition={scenario.definition}
-              run={resultsRunOf(run, scenario.version)}
-            />
-          </>
-        ) : (
-          <div className="card text-center" data-testid="no-run">
-            <h2>No forecast yet</h2>
-            <p className="mx-auto mt-2 max-w-xl text-sm text-muted">
-              This scenario has not been run yet, so there is no finish-date forecast to show. The inputs below are the plan as it stands; ask the person who shared
-              the link to run it.
-            </p>
-          </div>
-        )}
-
-        <section className="card" aria-labelledby="inputs-heading">
-          <h2 id="inputs-heading">Inputs</h2>
-          <p className="mt-0.5 text-sm text-muted">The plan the forecast is computed from (current version).</p>
-          <div className="mt-3">
-            <InputsSummary definition={scenario.definition} />
-          </div>
-        </section>
-
-        <SafetyNote />
-      </main>
-    </div>
+    </SharedPageFrame>
   );
 }
