@@ -1,12 +1,6 @@
+import { SharedLinkUnavailable } from "@/components/shared-link-unavailable";
+
 /** The same answer for unknown, expired and revoked links: nothing hints which it was. */
 export default function SharedNotFound() {
-  return (
-    <main id="main" className="mx-auto max-w-xl px-5 py-16 text-center">
-      <p className="text-lg font-bold tracking-tight text-brand-700">Pourline</p>
-      <div className="card mt-6" data-testid="shared-not-found">
-        <h1>This link is not available</h1>
-        <p className="mt-2 text-sm text-muted">It does not exist, has expired or was revoked. Ask the person who shared it for a new link.</p>
-      </div>
-    </main>
-  );
+  return <SharedLinkUnavailable />;
 }
