@@ -19,6 +19,7 @@ import { hashPassword } from "../src/lib/server/password";
 import { todayIn } from "../src/lib/progress-schema";
 import { planRunRecord, reforecastRunRecord } from "../src/lib/run-record";
 import { parseScenario } from "../sim/validate";
+import type { Scenario } from "../sim/schema";
 import { parseIsoDate, formatDayNumber } from "../sim/dates";
 import { demoDataDates, demoDayShift, demoFieldLog, shiftDates } from "./demo-job";
 
@@ -135,24 +136,23 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
         { projectId: kestrel.id, email: "traffic-ops@marrin-transit.example", label: "Marrin Transit operations (bus detours)", addedById: engineerId },
       ]);
       const ownerId = ids[demoUsers.findIndex((u) => u.role === "scheduler")];
-      for (let k = 0; k < definitions.length; k++) {
-        const { raw, scenario } = definitions[k];
+      /**
+       * A demo scenario, its first revision and its plan run. The seed's runs are computed here by the engine on
+       * the server side, not sent by a browser: nothing to verify.
+       */
+      const insertScenario = async (projectId: string, raw: Record<string, unknown>, scenario: Scenario, run: (typeof runs)[number], runAt: Date) => {
         const [row] = await tx
           .insert(scenarios)
-          .values({
-            projectId: kestrel.id,
-            name: scenario.name,
-            description: scenario.description,
-            definition: raw,
-            ownerId,
-            updatedById: ownerId,
-            changeNote: "Demo scenario",
-          })
+          .values({ projectId, name: scenario.name, description: scenario.description, definition: raw, ownerId, updatedById: ownerId, changeNote: "Demo scenario" })
           .returning({ id: scenarios.id, version: scenarios.version });
         await tx.insert(scenarioRevisions).values({ scenarioId: row.id, version: row.version, definition: raw, savedById: ownerId, changeNote: "Demo scenario" });
-        // The plan run is the baseline, made the week before work began. The seed's runs are computed here by
-        // the engine on the server side, not sent by a browser: nothing to verify.
-        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...runs[k], ...storedResultsOf(runs[k].results), createdById: ownerId, createdAt: noonOf(parseIsoDate(scenario.startDate) - 7), verification: "server" });
+        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...run, ...storedResultsOf(run.results), createdById: ownerId, createdAt: runAt, verification: "server" });
+        return row;
+      };
+      for (let k = 0; k < definitions.length; k++) {
+        const { raw, scenario } = definitions[k];
+        // The plan run is the baseline, made the week before work began.
+        const row = await insertScenario(kestrel.id, raw, scenario, runs[k], noonOf(parseIsoDate(scenario.startDate) - 7));
         if (k !== 0) continue;
         // The main demo is under way: the inspector's field log up to yesterday, and the engineer's
         // re-forecasts the day after each data date (the drift history).
@@ -166,14 +166,8 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, ...storedResultsOf(columns.results), createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server" });
         }
       }
-      {
-        const [row] = await tx
-          .insert(scenarios)
-          .values({ projectId: southApproach.id, name: staged.scenario.name, description: staged.scenario.description, definition: staged.raw, ownerId, updatedById: ownerId, changeNote: "Demo scenario" })
-          .returning({ id: scenarios.id, version: scenarios.version });
-        await tx.insert(scenarioRevisions).values({ scenarioId: row.id, version: row.version, definition: staged.raw, savedById: ownerId, changeNote: "Demo scenario" });
-        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...stagedRun, createdById: ownerId, createdAt: noonOf(parseIsoDate(today)), verification: "server" });
-      }
+      // Next season's plan was run today.
+      await insertScenario(southApproach.id, staged.raw, staged.scenario, stagedRun, noonOf(parseIsoDate(today)));
     });
     return "seeded";
   } finally {

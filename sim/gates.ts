@@ -92,6 +92,11 @@ export class GateCache {
     this.temp = new Float64Array(this.stride * 24 + 1);
   }
 
+  /** forecast override: some hour read for day d's slots (ends 24d … 24d + 24 included) comes from the forecast. */
+  private overrideTouchesDay(d: number): boolean {
+    return 24 * d + 25 > this.ovFrom && 24 * d < this.ovTo;
+  }
+
   /** Start a new iteration on `series` (invalidates every cached slot). */
   reset(series: WeatherSeries, override: ActiveOverride | null = null): void {
     this.series = series;
@@ -161,13 +166,13 @@ export class GateCache {
    * maximum (a warm night after a cold day can put tmax[d−1] below tmin[d]).
    */
   dayLow(d: number): number {
-    if (24 * d + 25 > this.ovFrom && 24 * d < this.ovTo) return hourlyLow(this, d); // forecast override
+    if (this.overrideTouchesDay(d)) return hourlyLow(this, d); // forecast override
     const s = this.need(d);
     return Math.min(s.tminF[d], s.tminF[d + 1], s.tmaxF[d > 0 ? d - 1 : 0], s.tmaxF[d]);
   }
 
   dayHigh(d: number): number {
-    if (24 * d + 25 > this.ovFrom && 24 * d < this.ovTo) return hourlyHigh(this, d); // forecast override
+    if (this.overrideTouchesDay(d)) return hourlyHigh(this, d); // forecast override
     const s = this.need(d);
     return Math.max(s.tminF[d], s.tminF[d + 1], s.tmaxF[d > 0 ? d - 1 : 0], s.tmaxF[d]);
   }
@@ -224,7 +229,7 @@ export class GateCache {
 
   /** What holds for every slot of day d: whole-day pass or fail of temperature and wind, evaporation pass. */
   private dayBounds(p: GateProfile, d: number): number {
-    if (24 * d + 25 > this.ovFrom && 24 * d < this.ovTo) return p.maxEvaporation === Infinity ? EVAP_ALL_PASS : 0; // forecast override: every slot read
+    if (this.overrideTouchesDay(d)) return p.maxEvaporation === Infinity ? EVAP_ALL_PASS : 0; // forecast override: every slot read
     const s = this.need(d);
     const lo = this.dayLow(d);
     const hi = this.dayHigh(d);
