@@ -1,9 +1,9 @@
 /**
  * `npm run bench -- --browser [--json] [--rounds N]`: the run path as a person meets it, in Debian's Chromium.
- * Started by hand it re-starts itself beside a throwaway app (`node scripts/pourline.mjs with-app`: the set-up
- * of `npm test` — fresh PostgreSQL cluster, seeded demo, the built app on free ports — without the engine
- * worker, so a saved run's verification waits in the queue instead of taking a core from the browser); all of
- * it is stopped and removed when the benchmark ends, however it ends.
+ * It starts a throwaway app as the API bench does (`startThrowawayApp` of scripts/pourline.mjs: the set-up of
+ * `npm test` — fresh PostgreSQL cluster, seeded demo, the built app on free ports — without the engine worker,
+ * so a saved run's verification waits in the queue instead of taking a core from the browser); all of it is
+ * stopped and removed when the benchmark ends, however it ends.
  *
  * Beside the app it signs in as the demo scheduler, opens the main demo scenario (Kestrel Bay Causeway — two
  * seasons), and for 1, 2 and 4 engine workers (those navigator.hardwareConcurrency allows; `?workers=N` sets
@@ -15,11 +15,10 @@
  * summary reaching the page until the page has settled). Definitions of click, drawn and long task:
  * scripts/bench-browser-page.ts. Wall-clock figures: a machine busy with other work measures slower.
  */
-import { spawn } from "node:child_process";
 import { loadavg } from "node:os";
-import { fileURLToPath } from "node:url";
 import type { Browser, Page } from "playwright-core";
 import { poolSize } from "../workers/ranges";
+import { failureMessage, logToStderr, shutdown, startThrowawayApp } from "./pourline.mjs";
 import { armWatch, idle, untilPoolReady, UNTIL_DRAWN, UNTIL_SETTLED, WHAT_IS_DRAWN, LONG_TASK_RECORDER, READ_FIGURES, type PageFigures } from "./bench-browser-page";
 
 const ITERATIONS = 10_000;
@@ -39,21 +38,6 @@ interface RoundFigures {
   longestDrawingTaskMs: number;
   /** Click to chart in parts (they add up to it): see `parts` in figuresOf. */
   parts: { engineMs: number; toWorkersAndBackMs: number; summaryMs: number; drawMs: number } | null;
-}
-
-const root = fileURLToPath(new URL("..", import.meta.url));
-
-/** Outside the throwaway app: start it, run this benchmark again beside it, and answer its exit code. */
-function besideApp(args: string[]): Promise<number> {
-  const child = spawn(process.execPath, ["scripts/pourline.mjs", "with-app", "--no-engine-worker", `${root}node_modules/.bin/tsx`, "scripts/bench.ts", ...args], {
-    cwd: root,
-    stdio: "inherit",
-  });
-  // The bootstrap stops the app, PostgreSQL and the cluster's folder on SIGINT/SIGTERM; pass them on.
-  const forward = (sig: NodeJS.Signals) => child.kill(sig);
-  process.on("SIGINT", forward);
-  process.on("SIGTERM", forward);
-  return new Promise((done) => child.on("exit", (code) => done(code ?? 1)));
 }
 
 const median = (xs: number[]) => {
@@ -165,8 +149,21 @@ async function measure(browser: Browser, rounds: number, log: (s: string) => voi
   return { cores, chosen, runs, big };
 }
 
-export async function benchBrowser(args: string[]): Promise<number> {
-  if (!process.env.POURLINE_WITH_APP) return besideApp(args);
+/** Starts the throwaway app, measures beside it, then stops and removes it all (exits the process). */
+export async function benchBrowser(args: string[]): Promise<never> {
+  if (args.includes("--json")) logToStderr();
+  try {
+    const { env } = await startThrowawayApp({ chromium: true, worker: false, quietApp: true });
+    // The page objects and helpers shared with the e2e tests read the app's address from the environment.
+    Object.assign(process.env, env);
+    return await shutdown(await measureAndReport(args));
+  } catch (e) {
+    process.stderr.write(`[bench] ${failureMessage(e)}\n`);
+    return await shutdown(1);
+  }
+}
+
+async function measureAndReport(args: string[]): Promise<number> {
   const json = args.includes("--json");
   const roundsAt = args.indexOf("--rounds");
   const rounds = roundsAt >= 0 ? Math.max(1, Number(args[roundsAt + 1]) || 1) : 3;

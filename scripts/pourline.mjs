@@ -1,10 +1,8 @@
 #!/usr/bin/env node
 // The two commands. `start`: install what is missing, run PostgreSQL on loopback, migrate, seed the demo once,
 // build and serve. `test`: the same on a throwaway cluster, then every test layer in one vitest run.
-// `with-app [--no-engine-worker] <command> [args…]`: the test set-up (throwaway cluster, seeded demo, built app on
-// free ports), then one command with APP_URL and the database URLs in its environment (the benchmarks use it);
-// everything is stopped and removed when the command ends. Its own messages go to stderr, so the command's
-// stdout stays its own (a benchmark's JSON).
+// Imported, `startThrowawayApp` gives the benchmarks the test set-up (throwaway cluster, seeded demo, built app on
+// free ports), stopped and removed by `shutdown`.
 // Plain Node with no dependencies, because it runs before `npm ci` has installed anything.
 // Imported (not run), it lends `startThrowawayApp` and `shutdown` to `npm run bench -- --api`.
 import { spawn, spawnSync } from "node:child_process";
@@ -23,7 +21,7 @@ const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
 const children = new Set();
 let cleanup = async () => {};
 // Where progress lines and the children's output go: stdout, or stderr when a caller keeps stdout for its own
-// result (a benchmark's --json, a command run `with-app`).
+// result (a benchmark's --json).
 let out = process.stdout;
 let inheritStdio = "inherit";
 
@@ -31,7 +29,6 @@ export function logToStderr() {
   out = process.stderr;
   inheritStdio = ["inherit", 2, 2];
 }
-if (mode === "with-app") logToStderr();
 
 function say(msg) {
   out.write(`[pourline] ${msg}\n`);
@@ -368,7 +365,7 @@ async function startMode() {
 /**
  * The app on a throwaway cluster (PostgreSQL with fsync off, migrated, demo seeded, built into .next-test,
  * served on a free loopback port with the local mail and weather stand-ins), removed again by `shutdown`.
- * Shared by `npm test`, `with-app` and the benchmarks. Returns the environment the tests (or a benchmark)
+ * Shared by `npm test` and the benchmarks. Returns the environment the tests (or a benchmark)
  * need: APP_URL, DATABASE_URL, TEST_DATABASE_URL, TEST_ADMIN_DATABASE_URL, POURLINE_APP_LOG.
  * `chromium`: make sure the browser tests can run; `worker`: the engine worker beside the server (runs,
  * verification); `quietApp`: the app's own output to its log file only.
@@ -454,16 +451,6 @@ async function testMode() {
   return runBeside(env, join(root, "node_modules", ".bin", "vitest"), ["run", ...process.argv.slice(3)]);
 }
 
-async function withAppMode() {
-  const rest = process.argv.slice(3);
-  // Without the engine worker, a saved browser run's verification job waits in the queue instead of taking a core.
-  const engineWorker = rest[0] !== "--no-engine-worker";
-  const [cmd, ...args] = engineWorker ? rest : rest.slice(1);
-  if (!cmd) fail("with-app needs a command to run, e.g.: node scripts/pourline.mjs with-app npx tsx scripts/bench.ts --browser");
-  const { env } = await startThrowawayApp({ chromium: true, worker: engineWorker });
-  return runBeside({ ...env, POURLINE_WITH_APP: "1" }, cmd, args);
-}
-
 let shuttingDown = false;
 /** Stops every child this script started, then PostgreSQL (and removes a throwaway cluster), and exits. */
 export async function shutdown(code) {
@@ -487,8 +474,8 @@ export function failureMessage(e) {
 
 if (isMain) {
   try {
-    if (mode === "test" || mode === "with-app") {
-      const code = await (mode === "test" ? testMode() : withAppMode());
+    if (mode === "test") {
+      const code = await testMode();
       await shutdown(code);
     } else {
       await startMode();
