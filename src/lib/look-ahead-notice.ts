@@ -2,7 +2,7 @@
  * The daily look-ahead e-mail's words: the board as lines a person reads in any mail program, and what
  * changed since the last notice. Pure (no server, no clock), so it is tested directly.
  */
-import type { CellStatus, LookAheadDay, OperationCell } from "@sim/lookahead";
+import type { CellStatus, LookAheadDay, NextOpenTime, OperationCell } from "@sim/lookahead";
 
 export const STATUS_WORDS: Record<CellStatus, string> = {
   go: "may work",
@@ -75,4 +75,18 @@ export function boardLines(days: LookAheadDay[]): string[] {
       }
   }
   return lines;
+}
+
+/**
+ * A week in which every cell is closed (winter, a plan not started yet) says so in one sentence, with why and
+ * where the plan's calendar next opens; null when some cell is not closed (the board then speaks for itself).
+ */
+export function allClosedSentence(days: LookAheadDay[], next: NextOpenTime | null): string | null {
+  const cells = days.flatMap((d) => d.shifts.flatMap((s) => s.operations));
+  if (cells.length === 0 || cells.some((c) => c.status !== "closed")) return null;
+  const reasons = [...new Set(cells.map((c) => (c.closedReason ?? "").replace(/\.$/, "").toLowerCase()).filter(Boolean))];
+  const why = `No shift on this board can work this week${reasons.length ? ` (${reasons.join("; ")})` : ""}.`;
+  if (!next) return `${why} The plan's calendar has no open time left for a weather-gated operation.`;
+  const starts = next.planStart ? ` The plan starts on ${next.planStart}.` : "";
+  return `${why}${starts} Its calendar next opens for ${next.operation} on ${next.weekday} ${next.start.replace("T", " at ")}, weather permitting: the board judges that day once it is within the forecast's week.`;
 }

@@ -1,6 +1,6 @@
 /** The daily look-ahead e-mail's words: the board as lines, and what changed since the last notice. */
 import { describe, expect, it } from "vitest";
-import { boardLines, changesSince, compactBoard, hourRanges } from "../../src/lib/look-ahead-notice";
+import { allClosedSentence, boardLines, changesSince, compactBoard, hourRanges } from "../../src/lib/look-ahead-notice";
 import type { LookAheadDay, OperationCell } from "../../sim/lookahead";
 
 const cell = (status: OperationCell["status"], extra: Partial<OperationCell> = {}): OperationCell => ({
@@ -42,5 +42,28 @@ describe("hour ranges", () => {
     expect(hourRanges(["2027-04-08T07:00", "2027-04-08T08:00", "2027-04-08T14:00"])).toBe("04-08 07:00–09:00, 04-08 14:00–15:00");
     expect(hourRanges(["2027-04-08T22:00", "2027-04-08T23:00", "2027-04-09T00:00"])).toBe("04-08 22:00–04-09 01:00");
     expect(hourRanges(["2027-04-08T23:00"])).toBe("04-08 23:00–04-09 00:00");
+  });
+
+  describe("a week with every cell closed", () => {
+    const winter = [
+      day("2026-12-04", "Friday", cell("closed", { closedReason: "Winter shutdown." })),
+      day("2026-12-05", "Saturday", cell("closed", { closedReason: "Not a work day." })),
+      day("2026-12-06", "Sunday", cell("closed", { closedReason: "Winter shutdown." })),
+    ];
+    const next = { start: "2027-04-05T09:30", weekday: "Monday", operationId: "overlay", operation: "Overlay placement", planStart: "2027-04-05" };
+
+    it("says why once per reason, when the plan starts and where its calendar next opens", () => {
+      expect(allClosedSentence(winter, next)).toBe(
+        "No shift on this board can work this week (winter shutdown; not a work day). The plan starts on 2027-04-05. " +
+          "Its calendar next opens for Overlay placement on Monday 2027-04-05 at 09:30, weather permitting: the board judges that day once it is within the forecast's week.",
+      );
+      expect(allClosedSentence(winter, { ...next, planStart: null })).not.toContain("The plan starts");
+      expect(allClosedSentence(winter, null)).toBe("No shift on this board can work this week (winter shutdown; not a work day). The plan's calendar has no open time left for a weather-gated operation.");
+    });
+
+    it("says nothing when some cell is not closed, or when the board has no cell", () => {
+      expect(allClosedSentence([...winter, day("2026-12-07", "Monday", cell("no"))], next)).toBeNull();
+      expect(allClosedSentence([], next)).toBeNull();
+    });
   });
 });

@@ -4,7 +4,7 @@ import "server-only";
  * (./forecast/cache), and the pure evaluation (sim/lookahead). Works without a forecast: cells are then
  * "cannot tell" and the message says why.
  */
-import { lookAhead, DEFAULT_RAIN_POP_PCT, type LookAheadDay } from "@sim/lookahead";
+import { lookAhead, nextOpenAfter, DEFAULT_RAIN_POP_PCT, type LookAheadDay, type NextOpenTime } from "@sim/lookahead";
 import { getProject } from "@db/queries/projects";
 import { projectForecast, type ForecastStatus } from "./forecast/cache";
 import { toHourlyArrays } from "./forecast/nws-format";
@@ -48,6 +48,8 @@ export interface LookAheadBoard {
     gaps: Record<string, number> | null;
   };
   days: LookAheadDay[];
+  /** When every cell of the week is closed (winter, a plan not started yet): the plan's next open time, else null. */
+  nextOpen: NextOpenTime | null;
 }
 
 export async function scenarioLookAhead(scenario: { projectId: string; definition: unknown }, now = new Date()): Promise<LookAheadBoard> {
@@ -57,6 +59,7 @@ export async function scenarioLookAhead(scenario: { projectId: string; definitio
   const today = localDate(now, plan.timeZone);
   const f = state.forecast;
   const hours = f?.hours ?? [];
+  const days = lookAhead(plan, toHourlyArrays(hours), { today });
   return {
     today,
     timeZone: plan.timeZone,
@@ -73,6 +76,7 @@ export async function scenarioLookAhead(scenario: { projectId: string; definitio
       lastHour: hours[hours.length - 1]?.start ?? null,
       gaps: f?.gaps ?? null,
     },
-    days: lookAhead(plan, toHourlyArrays(hours), { today }),
+    days,
+    nextOpen: days.every((d) => d.shifts.every((sh) => sh.operations.every((o) => o.status === "closed"))) ? nextOpenAfter(plan, { today }) : null,
   };
 }

@@ -1,6 +1,6 @@
 import "server-only";
 /** The daily look-ahead e-mail: what changed since the last one first, then the whole board, then the link. */
-import { boardLines, changesSince, type CompactBoard } from "@/lib/look-ahead-notice";
+import { allClosedSentence, boardLines, changesSince, type CompactBoard } from "@/lib/look-ahead-notice";
 import type { LookAheadBoard } from "../look-ahead";
 import type { MailMessage } from "./outbox";
 
@@ -11,6 +11,7 @@ export function lookAheadMail(v: { to: string; scenarioName: string; board: Look
   const head = [
     `The week ahead for "${v.scenarioName}" from ${v.board.today}: which shifts may pour, mill or cure, from the weather forecast.`,
     v.board.forecast.message ?? (v.board.forecast.place ? `Forecast for ${v.board.forecast.place}.` : ""),
+    allClosedSentence(v.board.days, v.board.nextOpen) ?? "",
     v.previous === null ? "This is the first notice." : changes.length === 0 ? "Nothing changed since the last notice." : "Changed since the last notice:",
   ].filter(Boolean);
   const board = boardLines(v.board.days);

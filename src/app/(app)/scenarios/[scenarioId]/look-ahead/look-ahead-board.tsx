@@ -2,8 +2,8 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { STATUS_MARKS, STATUS_WORDS, cellWhy } from "@/lib/look-ahead-notice";
-import type { LookAheadDay, OperationCell } from "@sim/lookahead";
+import { STATUS_MARKS, STATUS_WORDS, allClosedSentence, cellWhy } from "@/lib/look-ahead-notice";
+import type { LookAheadDay, NextOpenTime, OperationCell } from "@sim/lookahead";
 import { CellDetail } from "./cell-detail";
 
 interface Board {
@@ -12,6 +12,7 @@ interface Board {
   rainRule: string;
   forecast: { status: "fresh" | "stale" | "none" | "noLocation"; message: string | null; ageMinutes: number | null; place: string | null; office: string | null; firstHour: string | null; lastHour: string | null };
   days: LookAheadDay[];
+  nextOpen: NextOpenTime | null;
 }
 
 const TONE: Record<OperationCell["status"], string> = {
@@ -46,6 +47,7 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
   };
   const selected = open && find(open.date, open.shiftId, open.opId);
   const f = b.forecast;
+  const allClosed = allClosedSentence(b.days, b.nextOpen);
   return (
     <section className="card space-y-4" aria-labelledby="board-heading" data-testid="look-ahead">
       <div>
@@ -65,6 +67,11 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
           </p>
         )}
       </div>
+      {allClosed && (
+        <p role="status" className="rounded-md border border-line bg-paper px-3 py-2 text-sm" data-testid="board-all-closed">
+          {allClosed}
+        </p>
+      )}
       {rows.length === 0 ? (
         <p className="text-sm text-muted">No operation of this scenario has a weather gate, so the weather decides nothing here.</p>
       ) : (
@@ -125,3 +132,4 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
     </section>
   );
 }
+

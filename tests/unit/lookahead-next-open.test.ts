@@ -1,0 +1,54 @@
+/**
+ * Where a board of closed cells points: the plan's calendar's next open time after the board's week
+ * (`nextOpenAfter`), worked by hand on the two-season demo (scenarios/kestrel-two-season.json):
+ * start Mon 2027-04-05; work days Sunday–Friday; winter 15 Nov – 31 Mar; weather-gated operations are LMC
+ * placement (day shift 07:00 + 10 h, day single-lane window 09:30–15:00 on weekdays) and restriping (night
+ * shift 20:00 + 9 h, night two-lane window 21:00–05:00 on weekdays and Sundays). Dates checked against a
+ * printed calendar (from memory: 5 Apr 2027 is a Monday, 31 Mar 2028 a Friday).
+ */
+import { readFileSync } from "node:fs";
+import { describe, expect, it } from "vitest";
+import { lookAhead, nextOpenAfter } from "../../sim/lookahead";
+import { parseScenario } from "../../sim/validate";
+
+function demo() {
+  const r = parseScenario(JSON.parse(readFileSync(new URL("../../scenarios/kestrel-two-season.json", import.meta.url), "utf8")));
+  if (!r.ok) throw new Error(JSON.stringify(r.problems));
+  return r.scenario;
+}
+
+describe("the next open time after a week of closed cells", () => {
+  it("in the winter before a plan starts, points to the plan's first weekday placement window and names the start date", () => {
+    const s = demo();
+    const board = lookAhead(s, null, { today: "2026-12-02" });
+    // The premise: every cell of the week is closed (winter), so the board has nothing else to say.
+    expect(board.every((d) => d.shifts.every((sh) => sh.operations.every((o) => o.status === "closed")))).toBe(true);
+    // Mon 5 Apr: placement opens at 09:30 under the day window; restriping not before 21:00 the same day.
+    expect(nextOpenAfter(s, { today: "2026-12-02" })).toEqual({
+      start: "2027-04-05T09:30",
+      weekday: "Monday",
+      operationId: "placement",
+      operation: s.operations.find((o) => o.id === "placement")!.name,
+      planStart: "2027-04-05",
+    });
+  });
+
+  it("inside the season, the first open time after the seventh day (the board's own week is not repeated)", () => {
+    // Board Mon 3 May – Sun 9 May 2027; the first instant after it is Mon 10 May 00:00, which falls inside
+    // Sunday night's restriping window (Sun 9 May 21:00 – Mon 05:00): restriping may work from that instant.
+    const next = nextOpenAfter(demo(), { today: "2027-05-03" });
+    expect(next).toMatchObject({ start: "2027-05-10T00:00", weekday: "Monday", operationId: "restriping", planStart: null });
+  });
+
+  it("across the second winter, the first instant after it when it ends inside a night window", () => {
+    // Board 10–16 Nov 2027; the winter is [15 Nov 2027 00:00, 31 Mar 2028 00:00) (MODEL.md: winterEnd is the
+    // first day back). Fri 31 Mar 00:00 lies inside Thursday night's restriping window (Thu 21:00 – Fri 05:00,
+    // a weekday), so restriping may work from that instant; placement's day window opens only at 09:30.
+    const next = nextOpenAfter(demo(), { today: "2027-11-10" });
+    expect(next).toMatchObject({ start: "2028-03-31T00:00", weekday: "Friday", operationId: "restriping", planStart: null });
+  });
+
+  it("is null when no weather-gated operation has open time left before the calendar's horizon", () => {
+    expect(nextOpenAfter(demo(), { today: "2040-01-01" })).toBeNull();
+  });
+});
