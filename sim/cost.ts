@@ -98,16 +98,18 @@ export function iterationImpact(c: CompiledScenario, m: ImpactModel, r: SimResul
   let ruc = NaN;
   if (m.traffic) {
     ruc = 0;
-    m.traffic.directions.forEach((dir, i) => {
+    const t = m.traffic;
+    for (let i = 0; i < t.directions.length; i++) {
+      const dir = t.directions[i];
       let d: QueueDetail | null = null;
       if (detail) {
-        d = newQueueDetail(m.traffic!.days);
+        d = newQueueDetail(t.days);
         detail.perDirection[i] = d;
       }
-      const v = queueDelay(m.traffic!, dir, timelineCapacityPieces(m.traffic!, dir, c.timeline), d);
+      const v = queueDelay(t, dir, timelineCapacityPieces(t, dir, c.timeline), d);
       delay += v;
       ruc += roadUserCost(v, dir.heavyShare, m.carVot, m.truckVot);
-    });
+    }
   }
   let contract = NaN;
   let workingDays = 0;

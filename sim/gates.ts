@@ -46,6 +46,9 @@ export function profileKey(p: GateProfile): string {
   return JSON.stringify([p.minTempF, p.maxTempF, p.noRain, p.maxWindMph, p.maxEvaporation, p.maxEvaporation === Infinity ? 0 : p.concreteDeltaF, p.risingEverySlot]);
 }
 
+/** Days drawn ahead of the one asked for (see `need`). */
+const WEATHER_CHUNK_DAYS = 15;
+
 // Day flags per (profile, day).
 const TEMP_ALL_PASS = 1;
 const DAY_FAILS = 2;
@@ -111,7 +114,9 @@ export class GateCache {
   private need(day: number): WeatherSeries {
     const s = this.series!;
     if (day + 2 > this.ensured) {
-      this.ensured = day + 2;
+      // Days come in chunks: the series' stream is private and drawn in day order, so drawing a few days
+      // ahead changes no value, and one call per chunk instead of one per day saves the call's set-up.
+      this.ensured = day + 2 + WEATHER_CHUNK_DAYS;
       s.ensure(this.ensured);
     }
     if (day + 1 > this.daysUsed) this.daysUsed = day + 1;

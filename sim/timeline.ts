@@ -63,6 +63,8 @@ export class ClosureTimeline {
   private readonly piecesOut: Pieces = { starts: new Float64Array(256), ends: new Float64Array(256), sets: new Int32Array(256), n: 0 };
   private readonly stageOps: CompiledOp[][];
   private readonly twoSeason: boolean;
+  /** The closures (bit set) the last sweep covered, −1 when `piecesOut` holds none of this timeline's. */
+  private swept = -1;
 
   constructor(
     scenario: Scenario,
@@ -98,6 +100,7 @@ export class ClosureTimeline {
   build(w: WorkContext, stageFinish: Float64Array, ab: CompiledAsBuilt | null): { total: number; byClosure: Float64Array; winterStanding: boolean } {
     const p = this.periods;
     p.counts.fill(0);
+    this.swept = -1;
     const horizon = this.cal.horizonHours;
     // Short-term closures: the crews' union of work and mobilization, grouped by window interval.
     const u = w.closureSegments();
@@ -193,6 +196,12 @@ export class ClosureTimeline {
     const out = this.piecesOut;
     const pos = this.pos;
     const nc = this.closures.length;
+    // Closures without periods add nothing to a sweep, so two selections that agree on the rest sweep alike:
+    // the total's sweep and a direction's over every closure are one sweep.
+    let covered = 0;
+    for (let j = 0; j < nc; j++) if ((select >>> j) & 1 && p.counts[j] > 0) covered |= 1 << j;
+    if (covered === this.swept) return out;
+    this.swept = covered;
     for (let j = 0; j < nc; j++) pos[j] = 0;
     let n = 0;
     let t = -Infinity;

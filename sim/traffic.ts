@@ -253,6 +253,8 @@ interface Walk {
   episodePeak: number;
 }
 
+const walkState: Walk = { q: 0, total: 0, episodeDay: -1, episodePeak: 0 };
+
 /**
  * D/D/1 from `a` to `b` at service rate `mu`, one piece per clock hour (demand is constant inside an hour).
  * With `untilEmpty` the walk stops as soon as the queue is gone (the road is open again). `over`, when
@@ -336,7 +338,12 @@ export function queueDelay(m: TrafficModel, dir: CompiledDirection, pieces: Capa
   const { starts, ends, caps, n } = pieces;
   if (n === 0) return 0;
   const horizon = 24 * m.days;
-  const w: Walk = { q: 0, total: 0, episodeDay: -1, episodePeak: 0 };
+  // One walk state for every call (the engine is single-threaded per module instance): no object per iteration.
+  const w = walkState;
+  w.q = 0;
+  w.total = 0;
+  w.episodeDay = -1;
+  w.episodePeak = 0;
   let t = 0;
   for (let i = 0; i < n; i++) {
     const a = starts[i];
