@@ -12,6 +12,9 @@ import { readFileSync } from "node:fs";
 import { describeQueueLimit, queueLimitOf, queueLimitSchema, type QueueLimit } from "../sim/queue-limit";
 import { compileScenario, holidayTradeoff, parseScenario, runIterations, summarizeRun } from "../sim/index";
 import { queueBreachCounter } from "../sim/queue-breaches";
+import { tuneV8ForEngine } from "../workers/server/engine-v8";
+
+tuneV8ForEngine(); // the engine runs in this process, as in the job worker (workers/server/engine-v8.ts)
 
 function fail(lines: string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);

@@ -15,6 +15,10 @@ import { ENGINE_QUEUE, openBoss, type EngineMessage } from "./boss";
 import { handleMessage } from "./handlers";
 import { sweepUncheckedRuns } from "./sweep";
 import { ThreadPool, threadCount } from "./thread-pool";
+import { tuneV8ForEngine } from "./engine-v8";
+
+// Before any engine thread starts: the threads share this process's V8 settings (./engine-v8).
+tuneV8ForEngine();
 
 const HEARTBEAT_MS = 3_000;
 /** A worker silent this long is taken for dead (ten missed heartbeats would be a very busy machine). */
