@@ -1,184 +1,25 @@
 #!/usr/bin/env node
 // The two commands. `start`: install what is missing, run PostgreSQL on loopback, migrate, seed the demo once,
 // build and serve. `test`: the same on a throwaway cluster, then every test layer in one vitest run.
-// Imported, `startThrowawayApp` gives the benchmarks the test set-up (throwaway cluster, seeded demo, built app on
-// free ports), stopped and removed by `shutdown`.
-// Plain Node with no dependencies, because it runs before `npm ci` has installed anything.
-// Imported (not run), it lends `startThrowawayApp` and `shutdown` to `npm run bench -- --api`.
-import { spawn, spawnSync } from "node:child_process";
-import { appendFileSync, chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync, readdirSync } from "node:fs";
-import { createServer } from "node:net";
-import { tmpdir } from "node:os";
+// Imported (not run), it lends `startThrowawayApp` and `shutdown` to the benchmarks: the test set-up (throwaway
+// cluster, seeded demo, built app on free ports), stopped and removed by `shutdown`.
+// Plain Node with no dependencies, because it runs before `npm ci` has installed anything. Its parts are in
+// scripts/bootstrap/: shell.mjs (progress, failures, programs, ports), deps.mjs (what to install), postgres.mjs.
+import { spawn } from "node:child_process";
+import { appendFileSync, existsSync, mkdirSync, readFileSync, rmSync, statSync, writeFileSync, readdirSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { createHash } from "node:crypto";
-import { appRolePassword, ensureAppRole as ensureAppRoleWith } from "./app-db-role.mjs";
+import { appRolePassword } from "./app-db-role.mjs";
+import { ensureChromium, ensureNodeModules, ensurePostgresInstalled } from "./bootstrap/deps.mjs";
+import { dataFolderFor, ensureAppRole, ensureDatabase, startPostgres } from "./bootstrap/postgres.mjs";
+import { childStdio, Fatal, fail, freePort, portFree, progressStream, root, run, say } from "./bootstrap/shell.mjs";
 
-const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+export { logToStderr } from "./bootstrap/shell.mjs";
+
 const isMain = Boolean(process.argv[1]) && resolve(process.argv[1]) === fileURLToPath(import.meta.url);
 const mode = isMain ? (process.argv[2] ?? "start") : "test";
-const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
 const children = new Set();
 let cleanup = async () => {};
-// Where progress lines and the children's output go: stdout, or stderr when a caller keeps stdout for its own
-// result (a benchmark's --json).
-let out = process.stdout;
-let inheritStdio = "inherit";
-
-export function logToStderr() {
-  out = process.stderr;
-  inheritStdio = ["inherit", 2, 2];
-}
-
-function say(msg) {
-  out.write(`[pourline] ${msg}\n`);
-}
-
-class Fatal extends Error {}
-function fail(msg) {
-  throw new Fatal(msg);
-}
-
-function run(cmd, args, opts = {}) {
-  const r = spawnSync(cmd, args, { stdio: opts.quiet ? "pipe" : inheritStdio, cwd: root, env: opts.env ?? process.env, encoding: "utf8" });
-  if (r.error) fail(`${opts.what ?? cmd} could not start: ${r.error.message}`);
-  if (r.status !== 0 && !opts.allowFail) {
-    const detail = opts.quiet ? `\n${(r.stderr || r.stdout || "").trim().split("\n").slice(-15).join("\n")}` : "";
-    fail(`${opts.what ?? `${cmd} ${args.join(" ")}`} failed (exit ${r.status}).${detail}`);
-  }
-  return r;
-}
-
-function asPostgres(cmd, args, opts = {}) {
-  return isRoot ? run("runuser", ["-u", "postgres", "--", cmd, ...args], opts) : run(cmd, args, opts);
-}
-
-// ---------- dependencies ----------
-function ensureNodeModules() {
-  const marker = join(root, "node_modules", ".package-lock.json");
-  const lock = join(root, "package-lock.json");
-  if (existsSync(marker) && statSync(marker).mtimeMs >= statSync(lock).mtimeMs) return;
-  say("installing npm dependencies (npm ci) …");
-  // --loglevel=error: npm's notices (install scripts it has not been told to allow, funding) are not for a newcomer.
-  const r = run("npm", ["ci", "--no-audit", "--no-fund", "--loglevel=error"], { allowFail: true, what: "npm ci" });
-  if (r.status !== 0) fail("npm could not install the dependencies. Check the network to the npm registry and run `npm start` again.");
-}
-
-function pgBinDir() {
-  const base = "/usr/lib/postgresql";
-  if (!existsSync(base)) return null;
-  const versions = readdirSync(base).filter((v) => existsSync(join(base, v, "bin", "initdb"))).sort((a, b) => Number(b) - Number(a));
-  return versions.length ? join(base, versions[0], "bin") : null;
-}
-
-function aptInstall(pkg, what) {
-  if (!isRoot) fail(`${what} is not installed. Install it with: sudo apt-get install -y ${pkg}  (then run this command again)`);
-  say(`installing ${what} from Debian (apt-get install ${pkg}) …`);
-  run("apt-get", ["update", "-qq"], { allowFail: true, quiet: true });
-  const r = run("apt-get", ["install", "-y", "-qq", pkg], { allowFail: true, quiet: true, env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
-  if (r.status !== 0) fail(`apt-get could not install ${pkg}:\n${(r.stderr || "").trim().split("\n").slice(-5).join("\n")}`);
-}
-
-function ensurePostgresInstalled() {
-  let bin = pgBinDir();
-  if (!bin) {
-    aptInstall("postgresql", "PostgreSQL");
-    bin = pgBinDir();
-    if (!bin) fail("PostgreSQL was installed but its programs were not found under /usr/lib/postgresql/*/bin.");
-  }
-  return bin;
-}
-
-function ensureChromium() {
-  if (existsSync("/usr/bin/chromium")) return;
-  aptInstall("chromium", "Chromium (for the browser tests)");
-}
-
-// ---------- ports ----------
-function portFree(port) {
-  return new Promise((res) => {
-    const srv = createServer();
-    srv.once("error", () => res(false));
-    srv.listen(port, "127.0.0.1", () => srv.close(() => res(true)));
-  });
-}
-
-async function freePort(from) {
-  for (let p = from; p < from + 400; p++) if (await portFree(p)) return p;
-  fail(`no free port found from ${from}`);
-}
-
-// ---------- PostgreSQL ----------
-function dataFolderFor(kind) {
-  if (kind === "test") {
-    const dir = mkdtempSync(join(tmpdir(), "pourline-test-pg-"));
-    chmodSync(dir, 0o755); // the postgres user must reach it
-    return dir;
-  }
-  const inRepo = join(root, ".data", "pg");
-  mkdirSync(join(root, ".data"), { recursive: true });
-  if (!isRoot) return inRepo;
-  // The postgres user must reach the folder; a clone under a private home cannot be reached, so fall back
-  // to a per-checkout folder under /var/lib.
-  const probe = run("runuser", ["-u", "postgres", "--", "test", "-x", join(root, ".data")], { allowFail: true, quiet: true });
-  if (probe.status === 0) return inRepo;
-  const alt = join("/var/lib/pourline", createHash("sha1").update(root).digest("hex").slice(0, 12));
-  writeFileSync(join(root, ".data", "PG_DATA_IS_AT"), `${alt}\n`);
-  return alt;
-}
-
-async function startPostgres({ bin, dataDir, port, fresh }) {
-  const pgVersionFile = join(dataDir, "PG_VERSION");
-  if (!existsSync(pgVersionFile)) {
-    say(`creating a database cluster in ${dataDir} …`);
-    mkdirSync(dataDir, { recursive: true });
-    const pwfile = join(dataDir, "..", `.pw-${process.pid}`);
-    writeFileSync(pwfile, "pourline\n", { mode: 0o644 });
-    if (isRoot) run("chown", ["-R", "postgres:postgres", dataDir]);
-    asPostgres(join(bin, "initdb"), ["-D", dataDir, "-U", "pourline", `--pwfile=${pwfile}`, "--auth-host=scram-sha-256", "--auth-local=trust", "-E", "UTF8", "--locale=C.UTF-8"], { quiet: true, what: "initdb" });
-    rmSync(pwfile, { force: true });
-  }
-  const pidFile = join(dataDir, "postmaster.pid");
-  if (existsSync(pidFile)) {
-    const status = asPostgres(join(bin, "pg_ctl"), ["-D", dataDir, "status"], { allowFail: true, quiet: true });
-    if (status.status === 0) {
-      say(`PostgreSQL is already running on this data folder; using it (and leaving it running).`);
-      // Someone else started it (another `npm start`): stopping it on our way out would pull it from under them.
-      return { stop: () => {}, alreadyRunning: true };
-    }
-  }
-  if (!(await portFree(port))) {
-    fail(`port ${port} on 127.0.0.1 is taken by another program. Stop it, or choose another port: PGPORT=54330 npm ${mode}`);
-  }
-  say(`starting PostgreSQL on 127.0.0.1:${port} …`);
-  const log = join(dataDir, "server.log");
-  const opts = `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=${dataDir}` + (fresh ? " -c fsync=off -c synchronous_commit=off -c full_page_writes=off" : "");
-  asPostgres(join(bin, "pg_ctl"), ["-D", dataDir, "-o", opts, "-l", log, "-w", "-t", "60", "start"], {
-    quiet: true,
-    what: "PostgreSQL start",
-  });
-  return { stop: () => stopPostgres(bin, dataDir) };
-}
-
-function stopPostgres(bin, dataDir) {
-  asPostgres(join(bin, "pg_ctl"), ["-D", dataDir, "-m", "fast", "-w", "stop"], { allowFail: true, quiet: true });
-}
-
-function ensureDatabase(bin, port, name) {
-  const env = { ...process.env, PGPASSWORD: "pourline" };
-  const q = run(join(bin, "psql"), ["-h", "127.0.0.1", "-p", String(port), "-U", "pourline", "-d", "postgres", "-tAc", `SELECT 1 FROM pg_database WHERE datname='${name}'`], { quiet: true, env, what: "psql" });
-  if (q.stdout.trim() !== "1") run(join(bin, "createdb"), ["-h", "127.0.0.1", "-p", String(port), "-U", "pourline", name], { quiet: true, env, what: `createdb ${name}` });
-}
-
-// ---------- the app's database role (scripts/app-db-role.mjs) ----------
-function psqlAdmin(bin, port, db, sql) {
-  const env = { ...process.env, PGPASSWORD: "pourline" };
-  return run(join(bin, "psql"), ["-h", "127.0.0.1", "-p", String(port), "-U", "pourline", "-d", db, "-v", "ON_ERROR_STOP=1", "-qtAc", sql], { quiet: true, env, what: `psql (${db})` });
-}
-
-function ensureAppRole(bin, port, db, password) {
-  return ensureAppRoleWith((database, sql) => psqlAdmin(bin, port, database, sql), { port, db, password });
-}
 
 // ---------- app ----------
 function tsx(script, env, what) {
@@ -217,9 +58,9 @@ const CHATTER = [/^fake SMTP listening on \d+$/, /Running next\.config\.ts took/
  */
 function spawnChild(cmd, args, env, logFile, { quiet = false, echo = true } = {}) {
   const piped = Boolean(logFile) || quiet;
-  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : inheritStdio });
+  const child = spawn(cmd, args, { cwd: root, env, stdio: piped ? ["ignore", "pipe", "pipe"] : childStdio() });
   if (piped) {
-    for (const [from, to] of [[child.stdout, out], [child.stderr, process.stderr]]) {
+    for (const [from, to] of [[child.stdout, progressStream()], [child.stderr, process.stderr]]) {
       from.on("data", (chunk) => {
         const text = quiet ? String(chunk).split("\n").filter((l) => !CHATTER.some((re) => re.test(l.replace(/\x1b\[[0-9;]*m/g, "").trim()))).join("\n") : chunk;
         if (echo && String(text).trim()) to.write(text);
@@ -317,7 +158,7 @@ async function startMode() {
   let databaseUrl = process.env.DATABASE_URL;
   if (ownDatabase) {
     const dataDir = dataFolderFor("start");
-    const pg = await startPostgres({ bin, dataDir, port, fresh: false });
+    const pg = await startPostgres({ bin, dataDir, port, fresh: false, command: mode });
     cleanup = async () => {
       if (!pg.alreadyRunning) say("stopping PostgreSQL …");
       pg.stop();
@@ -362,7 +203,6 @@ async function startMode() {
 }
 
 /**
-/**
  * The app on a throwaway cluster (PostgreSQL with fsync off, migrated, demo seeded, built into .next-test,
  * served on a free loopback port with the local mail and weather stand-ins), removed again by `shutdown`.
  * Shared by `npm test` and the benchmarks. Returns the environment the tests (or a benchmark)
@@ -381,7 +221,7 @@ export async function startThrowawayApp({ chromium = true, worker = true, quietA
     pg?.stop();
     rmSync(dirname(dataDir), { recursive: true, force: true });
   };
-  pg = await startPostgres({ bin, dataDir, port, fresh: true });
+  pg = await startPostgres({ bin, dataDir, port, fresh: true, command: mode });
   const appPassword = appRolePassword(null);
   const [appUrl, itUrl] = ["pourline_e2e", "pourline_it"].map((db) => {
     ensureDatabase(bin, port, db);
