@@ -271,45 +271,41 @@ export function lookAhead(scenario: Scenario, forecast: HourlyForecast | null, o
   return out;
 }
 
-/** When the plan's calendar next lets a weather-gated operation work, weather aside (`nextOpenAfter`). */
+/** When the plan's calendar next lets each weather-gated operation work, weather aside (`nextOpenAfter`). */
 export interface NextOpenTime {
-  /** Local `YYYY-MM-DDTHH:mm`. */
-  start: string;
-  weekday: string;
-  operationId: string;
-  operation: string;
+  /** Per weather-gated operation with open time left, earliest first. */
+  operations: { operationId: string; operation: string; /** Local `YYYY-MM-DDTHH:mm`. */ start: string; weekday: string }[];
   /** The plan's start date, when the board's week lies before it (the board then reads the plan as if it started today). */
   planStart: string | null;
 }
 
 /**
- * The first open instant (MODEL.md "When a crew may work", conditions 1–3: shifts, closure windows, work days,
- * holidays, winter) of any weather-gated operation after the board's `days` days, on the plan's own calendar
- * from its own start date — what a board of closed cells should point to. Null when none falls before the
- * calendar's horizon. Weather is not judged: the board judges that day when it comes within the forecast.
+ * For each weather-gated operation, its first open instant (MODEL.md "When a crew may work", conditions 1–3:
+ * shifts, closure windows, work days, holidays, winter) after the board's `days` days, on the plan's own
+ * calendar from its own start date — what a board of closed cells should point to. Each operation on its own:
+ * the calendar does not know the order the work will reach them. Null when none has open time before the
+ * calendar's horizon. Weather is not judged: the board judges a day when it comes within the forecast.
  */
 export function nextOpenAfter(scenario: Scenario, opts: LookAheadOptions): NextOpenTime | null {
   const days = opts.days ?? 7;
+  const today = parseIsoDate(opts.today);
   const planStart = parseIsoDate(scenario.startDate);
-  const from = 24 * Math.max(0, parseIsoDate(opts.today) + days - planStart);
+  const from = 24 * Math.max(0, today + days - planStart);
   const cal = compileCalendar(scenario);
-  let best: { t: number; op: CrewOperation } | null = null;
+  const found: { t: number; op: CrewOperation }[] = [];
   scenario.operations.forEach((op, i) => {
     if (op.kind !== "crew" || !isWeatherGated(op.gates as GateSpec, op.continuous)) return;
     const open = cal.ops[i]!.open;
     const k = firstIntervalAfter(open, from);
-    if (k >= open.length) return;
-    const t = Math.max(open.starts[k], from);
-    if (!best || t < best.t) best = { t, op };
+    if (k < open.length) found.push({ t: Math.max(open.starts[k], from), op });
   });
-  if (!best) return null;
-  const { t, op } = best as { t: number; op: CrewOperation };
-  const start = formatHours(planStart, t);
+  if (found.length === 0) return null;
+  found.sort((a, b) => a.t - b.t);
   return {
-    start,
-    weekday: WEEKDAYS[weekdayOfDayNumber(parseIsoDate(start.slice(0, 10)))],
-    operationId: op.id,
-    operation: op.name,
-    planStart: planStart > parseIsoDate(opts.today) ? scenario.startDate : null,
+    operations: found.map(({ t, op }) => {
+      const start = formatHours(planStart, t);
+      return { operationId: op.id, operation: op.name, start, weekday: WEEKDAYS[weekdayOfDayNumber(parseIsoDate(start.slice(0, 10)))] };
+    }),
+    planStart: planStart > today ? scenario.startDate : null,
   };
 }
