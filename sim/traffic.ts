@@ -136,6 +136,8 @@ export interface TrafficModel {
   traffic: Traffic;
   /** Scratch of the capacity pieces of one direction. */
   scratch: CapacityPieces;
+  /** Scratch of the queue state along one direction's walk (`queueDelay`). */
+  walkState: Walk;
 }
 
 /** Disjoint chronological pieces of narrowed road with their capacity, veh/h. */
@@ -216,7 +218,7 @@ export function compileTraffic(s: Scenario, startDay: number, days: number): Tra
       nextOver: new Map(),
     };
   });
-  return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane, closures, traffic: t, scratch: { starts: new Float64Array(256), ends: new Float64Array(256), caps: new Float64Array(256), n: 0 } };
+  return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane, closures, traffic: t, scratch: { starts: new Float64Array(256), ends: new Float64Array(256), caps: new Float64Array(256), n: 0 }, walkState: { q: 0, total: 0, episodeDay: -1, episodePeak: 0 } };
 }
 
 /** nextOver table of one capacity: the first clock hour ≥ h whose demand exceeds it. */
@@ -252,8 +254,6 @@ interface Walk {
   episodeDay: number;
   episodePeak: number;
 }
-
-const walkState: Walk = { q: 0, total: 0, episodeDay: -1, episodePeak: 0 };
 
 /**
  * D/D/1 from `a` to `b` at service rate `mu`, one piece per clock hour (demand is constant inside an hour).
@@ -338,8 +338,8 @@ export function queueDelay(m: TrafficModel, dir: CompiledDirection, pieces: Capa
   const { starts, ends, caps, n } = pieces;
   if (n === 0) return 0;
   const horizon = 24 * m.days;
-  // One walk state for every call (the engine is single-threaded per module instance): no object per iteration.
-  const w = walkState;
+  // The model's scratch walk state (one `simulate` at a time per compiled scenario): no object per iteration.
+  const w = m.walkState;
   w.q = 0;
   w.total = 0;
   w.episodeDay = -1;

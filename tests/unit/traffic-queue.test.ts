@@ -21,7 +21,7 @@ function model(demand: number[], caps: number[], open: number, days = 4, rest = 
     openCapacity: open, laneMask: 1, fHv: 1, select: 1, capBySet: new Map(), nextOver: new Map(),
   };
   const scratch: CapacityPieces = { starts: new Float64Array(4), ends: new Float64Array(4), caps: new Float64Array(4), n: 0 };
-  const m = { days, dayKind: new Uint8Array(days + 1), directions: [dir], jamDensity: 190, closures: [], traffic: {}, scratch } as unknown as TrafficModel;
+  const m = { days, dayKind: new Uint8Array(days + 1), directions: [dir], jamDensity: 190, closures: [], traffic: {}, scratch, walkState: { q: 0, total: 0, episodeDay: -1, episodePeak: 0 } } as unknown as TrafficModel;
   const on = (lists: Segments): CapacityPieces => {
     const cuts = [...new Set(lists.flat().flat())].sort((a, b) => a - b);
     const starts: number[] = [];
