@@ -111,20 +111,26 @@ export class GateCache {
     this.daysUsed = 0;
   }
 
+  // Hot reads below are split into a small hit path and an out-of-line miss path: V8 inlines a callee only
+  // within a per-function budget of bytecode, and the misses' code would spend it on every caller.
   private need(day: number): WeatherSeries {
-    const s = this.series!;
-    if (day + 2 > this.ensured) {
-      // Days come in chunks: the series' stream is private and drawn in day order, so drawing a few days
-      // ahead changes no value, and one call per chunk instead of one per day saves the call's set-up.
-      this.ensured = day + 2 + WEATHER_CHUNK_DAYS;
-      s.ensure(this.ensured);
-    }
+    if (day + 2 > this.ensured) this.drawAhead(day);
     if (day + 1 > this.daysUsed) this.daysUsed = day + 1;
-    return s;
+    return this.series!;
+  }
+
+  private drawAhead(day: number): void {
+    // Days come in chunks: the series' stream is private and drawn in day order, so drawing a few days
+    // ahead changes no value, and one call per chunk instead of one per day saves the call's set-up.
+    this.ensured = day + 2 + WEATHER_CHUNK_DAYS;
+    this.series!.ensure(this.ensured);
   }
 
   tempAt(hour: number): number {
-    if (this.tempStamp[hour] === this.gen) return this.temp[hour];
+    return this.tempStamp[hour] === this.gen ? this.temp[hour] : this.tempMiss(hour);
+  }
+
+  private tempMiss(hour: number): number {
     const s = this.need(Math.floor(hour / 24));
     const v = hour >= this.ovFrom && hour < this.ovTo ? this.ov!.tempF[hour - this.ovFrom] : hourlyTempF(s, hour); // forecast override
     this.tempStamp[hour] = this.gen;
@@ -189,7 +195,10 @@ export class GateCache {
 
   /** Day d's rain as 24 bits (slot h wet ⇔ bit h), the same rule as `isRainHour`, built once per day. */
   private rainMask(d: number): number {
-    if (this.rainStamp[d] === this.gen) return this.rainBits[d];
+    return this.rainStamp[d] === this.gen ? this.rainBits[d] : this.rainMiss(d);
+  }
+
+  private rainMiss(d: number): number {
     const s = this.need(d);
     let bits = 0;
     if (s.wet[d] === 1) {
@@ -209,7 +218,10 @@ export class GateCache {
 
   /** Day d's dew-point vapour pressure (hPa), once per day. */
   private vaporOf(d: number): number {
-    if (this.vaporStamp[d] === this.gen) return this.vapor[d];
+    return this.vaporStamp[d] === this.gen ? this.vapor[d] : this.vaporMiss(d);
+  }
+
+  private vaporMiss(d: number): number {
     const v = dewPointVaporHpa(this.need(d), d);
     this.vaporStamp[d] = this.gen;
     this.vapor[d] = v;
