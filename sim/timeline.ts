@@ -88,13 +88,16 @@ export class ClosureTimeline {
   private push(j: number, a: number, b: number): void {
     const p = this.periods;
     const n = p.counts[j];
-    if (n === p.starts[j].length) {
-      p.starts[j] = doubledF64(p.starts[j]);
-      p.ends[j] = doubledF64(p.ends[j]);
-    }
+    if (n === p.starts[j].length) this.growPeriods(j); // out of line: see GateCache.need
     p.starts[j][n] = a;
     p.ends[j][n] = b;
     p.counts[j] = n + 1;
+  }
+
+  private growPeriods(j: number): void {
+    const p = this.periods;
+    p.starts[j] = doubledF64(p.starts[j]);
+    p.ends[j] = doubledF64(p.ends[j]);
   }
 
   build(w: WorkContext, stageFinish: Float64Array, ab: CompiledAsBuilt | null): { total: number; byClosure: Float64Array; winterStanding: boolean } {

@@ -95,12 +95,7 @@ export function capacityOf(m: TrafficModel, dir: CompiledDirection, set: number)
 export function timelineCapacityPieces(m: TrafficModel, dir: CompiledDirection, tl: ClosureTimeline): CapacityPieces {
   const out = m.scratch;
   const pc = tl.pieces(dir.select);
-  if (out.starts.length < pc.n) {
-    const size = Math.max(pc.n, 2 * out.starts.length);
-    out.starts = new Float64Array(size);
-    out.ends = new Float64Array(size);
-    out.caps = new Float64Array(size);
-  }
+  if (out.starts.length < pc.n) grow(out, pc.n);
   let n = 0;
   let lastSet = -1;
   let cap = Infinity;
@@ -120,4 +115,12 @@ export function timelineCapacityPieces(m: TrafficModel, dir: CompiledDirection, 
   }
   out.n = n;
   return out;
+}
+
+/** Room for `n` pieces (out of line, so the sweep above stays small enough for V8 to inline its callers). */
+function grow(out: CapacityPieces, n: number): void {
+  const size = Math.max(n, 2 * out.starts.length);
+  out.starts = new Float64Array(size);
+  out.ends = new Float64Array(size);
+  out.caps = new Float64Array(size);
 }

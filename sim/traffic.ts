@@ -317,7 +317,10 @@ let lastMu = NaN;
 let lastTable: Int32Array | null = null;
 
 function overTable(dir: CompiledDirection, mu: number): Int32Array {
-  if (dir === lastDir && mu === lastMu) return lastTable!;
+  return dir === lastDir && mu === lastMu ? lastTable! : overTableMiss(dir, mu);
+}
+
+function overTableMiss(dir: CompiledDirection, mu: number): Int32Array {
   let t = dir.nextOver.get(mu);
   if (!t) {
     t = nextHourOver(dir.hourDemand, mu);

@@ -206,13 +206,15 @@ export class WorkContext implements WorkSink {
       this.segEnds[lane][n - 1] = b;
       return;
     }
-    if (n === this.segStarts[lane].length) {
-      this.segStarts[lane] = doubledF64(this.segStarts[lane]);
-      this.segEnds[lane] = doubledF64(this.segEnds[lane]);
-    }
+    if (n === this.segStarts[lane].length) this.growLane(lane); // out of line: see GateCache.need
     this.segStarts[lane][n] = a;
     this.segEnds[lane][n] = b;
     this.segCount[lane] = n + 1;
+  }
+
+  private growLane(lane: number): void {
+    this.segStarts[lane] = doubledF64(this.segStarts[lane]);
+    this.segEnds[lane] = doubledF64(this.segEnds[lane]);
   }
 
   /**
