@@ -10,12 +10,17 @@ import { fileURLToPath } from "node:url";
 import next from "next";
 
 const PEER_HEADER = "x-pourline-peer";
-// Next drops Content-Encoding from a route handler's answer (the body might be a fetched one it already decoded),
-// so a route that sends a body it compressed itself — GET /api/runs/:id, from the run's stored gzip copy — names
-// the encoding in this private header, and here it becomes Content-Encoding before the headers go out (which
-// also keeps Next's own compression off that body). POURLINE_OWN_ENCODING tells the routes that this server
-// does it; under `next dev` they send plain JSON instead. Same name in src/lib/server/stored-run-response.ts.
-const OWN_ENCODING_HEADER = "x-pourline-content-encoding";
+// Next drops Content-Encoding and Content-Length from a route handler's answer (the body might be a fetched one
+// it already decoded), so a route that sends a body it compressed itself — GET /api/runs/:id from the run's
+// stored gzip copy, and the JSON lists that gzip their small answer in one call (src/lib/server/http-cache.ts)
+// — names the encoding and the length in these private headers, and here they become the real ones before the
+// headers go out (the encoding also keeps Next's own compression off that body; the length spares the chunked
+// framing and the separate write that ends it). POURLINE_OWN_ENCODING tells the routes that this server does
+// it; under `next dev` they send plain JSON instead. Same names in src/lib/server/http-cache.ts.
+const OWN_HEADERS = new Map([
+  ["x-pourline-content-encoding", "Content-Encoding"],
+  ["x-pourline-content-length", "Content-Length"],
+]);
 process.env.POURLINE_OWN_ENCODING = "1";
 const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
 const port = Number(process.env.PORT || 3000);
@@ -25,10 +30,30 @@ const app = next({ dev: false, dir: root, hostname: host, port });
 const handle = app.getRequestHandler();
 await app.prepare();
 
+/**
+ * Next sends an answer's headers on their own (flushHeaders) just before the first chunk of its body, then the
+ * body, then — for a body of unknown length — the end of the chunked encoding: three socket writes for an
+ * answer that is whole in memory, and on this kind of machine each write to a socket costs far more than
+ * the bytes (the peer is woken). Holding the socket corked until the end of this turn of the event loop sends
+ * them as one write; an answer that streams still leaves with its first chunk, only that much later.
+ */
+function holdHeadersForBody(res) {
+  const flushHeaders = res.flushHeaders.bind(res);
+  res.flushHeaders = () => {
+    const socket = res.socket;
+    if (socket && !socket.writableCorked) {
+      socket.cork();
+      setImmediate(() => socket.uncork());
+    }
+    flushHeaders();
+  };
+}
+
 const server = createServer((req, res) => {
   req.headers[PEER_HEADER] = req.socket.remoteAddress ?? "";
   const setHeader = res.setHeader.bind(res);
-  res.setHeader = (name, value) => setHeader(String(name).toLowerCase() === OWN_ENCODING_HEADER ? "Content-Encoding" : name, value);
+  res.setHeader = (name, value) => setHeader(OWN_HEADERS.get(String(name).toLowerCase()) ?? name, value);
+  holdHeadersForBody(res);
   handle(req, res).catch((e) => {
     console.error(`[pourline] request failed: ${e?.name ?? "Error"}`);
     if (!res.headersSent) res.writeHead(500).end();

@@ -1,6 +1,6 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
-import { getDb } from "../client";
+import { and, asc, eq, sql } from "drizzle-orm";
+import { getDb, prepared } from "../client";
 import { projectMembers, projects, users, type Role } from "../schema";
 
 export async function listProjectsForUser({ userId }: { userId: string }) {
@@ -28,11 +28,15 @@ export async function getProject({ id }: { id: string }) {
 
 /** The project and the person's role in it (null = not a member) in one query; null when there is no such project. */
 export async function getProjectWithRole({ projectId, userId }: { projectId: string; userId: string }) {
-  const [row] = await getDb()
-    .select({ project: projects, role: projectMembers.role })
-    .from(projects)
-    .leftJoin(projectMembers, and(eq(projectMembers.projectId, projects.id), eq(projectMembers.userId, userId)))
-    .where(eq(projects.id, projectId));
+  // Prepared: every request to a project's routes asks this first (db/client.ts `prepared`).
+  const [row] = await prepared("project_with_role", (db) =>
+    db
+      .select({ project: projects, role: projectMembers.role })
+      .from(projects)
+      .leftJoin(projectMembers, and(eq(projectMembers.projectId, projects.id), eq(projectMembers.userId, sql.placeholder("userId"))))
+      .where(eq(projects.id, sql.placeholder("projectId")))
+      .prepare("project_with_role"),
+  ).execute({ projectId, userId });
   return row ?? null;
 }
 

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, desc, eq, gt, inArray, isNull, sql, type SQL } from "drizzle-orm";
-import { getDb } from "../client";
+import { getDb, prepared } from "../client";
 import { projectMembers, scenarios, simulationRuns, users, type RunVerification, type StoredRunResults } from "../schema";
 import { storedResultsOf, type StoredResults } from "../stored-results";
 
@@ -128,30 +128,42 @@ export async function getRun({ id }: { id: string }) {
 export type StoredRun = NonNullable<Awaited<ReturnType<typeof getRun>>>;
 
 /**
- * A run as GET /api/runs/:id sends it, in one query: the fields every reader gets (stale and plan run as
- * above), the stored copy of its results (null on a row older than that copy: see `fillStoredResults`), and
- * the asking person's role in the run's project (null = not a member), for the route to check first.
+ * A run as GET /api/runs/:id sends it, in one prepared query (db/client.ts `prepared`): the fields every reader
+ * gets (stale and plan run as above), the tag of its stored results (null on a row older than the stored copy:
+ * see `fillStoredResults`) — not the stored bytes, which never change for a tag and which the route keeps in
+ * memory (src/lib/server/run-results-cache.ts) — and the asking person's role in the run's project (null =
+ * not a member), for the route to check first.
  */
 export async function getRunToServe({ id, userId }: { id: string; userId: string }) {
+  const [row] = await prepared("run_to_serve", (db) =>
+    db
+      .select({ ...listColumns, role: projectMembers.role, resultsEtag: simulationRuns.resultsEtag })
+      .from(simulationRuns)
+      .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
+      .leftJoin(users, eq(users.id, simulationRuns.createdById))
+      .leftJoin(projectMembers, and(eq(projectMembers.projectId, scenarios.projectId), eq(projectMembers.userId, sql.placeholder("userId"))))
+      .where(eq(simulationRuns.id, sql.placeholder("id")))
+      .prepare("run_to_serve"),
+  ).execute({ id, userId });
+  if (!row) return null;
+  const { role, resultsEtag, ...fields } = row;
+  return { role, fields, resultsEtag };
+}
+
+/** The stored copy of a run's results; null when the run is gone or was stored before there was a copy. */
+export async function getStoredResults({ id }: { id: string }): Promise<StoredResults | null> {
   const [row] = await getDb()
     .select({
-      ...listColumns,
-      role: projectMembers.role,
       resultsDeflate: simulationRuns.resultsDeflate,
       resultsCrc32: simulationRuns.resultsCrc32,
       resultsLength: simulationRuns.resultsLength,
       resultsEtag: simulationRuns.resultsEtag,
     })
     .from(simulationRuns)
-    .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
-    .leftJoin(users, eq(users.id, simulationRuns.createdById))
-    .leftJoin(projectMembers, and(eq(projectMembers.projectId, scenarios.projectId), eq(projectMembers.userId, userId)))
     .where(eq(simulationRuns.id, id));
   if (!row) return null;
-  const { role, resultsDeflate, resultsCrc32, resultsLength, resultsEtag, ...fields } = row;
-  const stored: StoredResults | null =
-    resultsDeflate && resultsCrc32 !== null && resultsLength !== null && resultsEtag ? { resultsDeflate, resultsCrc32, resultsLength, resultsEtag } : null;
-  return { role, fields, stored };
+  const { resultsDeflate, resultsCrc32, resultsLength, resultsEtag } = row;
+  return resultsDeflate && resultsCrc32 !== null && resultsLength !== null && resultsEtag ? { resultsDeflate, resultsCrc32, resultsLength, resultsEtag } : null;
 }
 
 /** Makes and keeps the stored copy of a run stored before there was one (once: a second reader keeps the first's). */

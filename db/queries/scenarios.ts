@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import { getDb } from "../client";
+import { getDb, prepared, type Database } from "../client";
 import { scenarioRevisions, scenarios, simulationRuns, users, type RunVerification } from "../schema";
 import { isForecast } from "./runs";
 
@@ -29,7 +29,12 @@ const scenarioColumns = {
  * cost follows the project's scenarios, not every run of every project; only the small `summary` is read.
  */
 export async function listProjectScenarios({ projectId }: { projectId: string }) {
-  const latestRun = getDb()
+  // Prepared: the list is read on every visit to a project (db/client.ts `prepared`).
+  return prepared("project_scenarios", projectScenarios).execute({ projectId });
+}
+
+function projectScenarios(db: Database) {
+  const latestRun = db
     .select({
       runId: sql<string>`${simulationRuns.id}`.as("run_id"),
       runVersion: sql<number>`${simulationRuns.scenarioVersion}`.as("run_version"),
@@ -43,14 +48,14 @@ export async function listProjectScenarios({ projectId }: { projectId: string })
     .limit(1)
     .as("latest_run");
   // A browser run still waiting for the server is not the forecast; the list only says one exists.
-  const pendingRun = getDb()
+  const pendingRun = db
     .select({ pendingAt: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("pending_at") })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNull(simulationRuns.dataDate), eq(simulationRuns.verification, "pending")))
     .orderBy(desc(simulationRuns.createdAt))
     .limit(1)
     .as("pending_run");
-  return getDb()
+  return db
     .select({
       ...scenarioColumns,
       runId: latestRun.runId,
@@ -66,8 +71,9 @@ export async function listProjectScenarios({ projectId }: { projectId: string })
     .innerJoin(editor, eq(editor.id, scenarios.updatedById))
     .leftJoinLateral(latestRun, sql`true`)
     .leftJoinLateral(pendingRun, sql`true`)
-    .where(eq(scenarios.projectId, projectId))
-    .orderBy(desc(scenarios.updatedAt));
+    .where(eq(scenarios.projectId, sql.placeholder("projectId")))
+    .orderBy(desc(scenarios.updatedAt))
+    .prepare("project_scenarios");
 }
 
 export async function getScenario({ id }: { id: string }) {

@@ -3,7 +3,8 @@
  * the results stored with the run; the project's scenario list): a strong ETag and 304 for a client that holds
  * the current version, gzip that decodes to exactly the plain body, a new tag whenever the run's marks change
  * (stale after an edit, verified after the server reproduced it), the copy made on first read for a row stored
- * before it, and access checked before any validator — a stranger never learns a run exists from a 304.
+ * before it, and access checked before any validator — a stranger never learns a run exists from a 304. The
+ * stored copy is also held in the server's memory; that must neither outlive a change of the copy nor of access.
  * Raw HTTP (node:http), so the test sees the bytes and headers as sent, not a decoded body.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -79,6 +80,12 @@ describe("a run's results", () => {
     expect(plain.headers.etag).toBe(String(gz.headers.etag).replace(/-gz"$/, '"'));
     expect(gz.body.length).toBeLessThan(plain.body.length / 3);
     expect(gunzipSync(gz.body).equals(plain.body)).toBe(true);
+    // A known length, not chunked: the whole answer can leave in one write.
+    for (const r of [gz, plain]) {
+      expect(r.headers["content-length"]).toBe(String(r.body.length));
+      expect(r.headers["transfer-encoding"]).toBeUndefined();
+      expect(Object.keys(r.headers).filter((h) => h.startsWith("x-pourline-"))).toEqual([]);
+    }
     // What is sent is what the results column holds.
     const [row] = await db`SELECT results FROM simulation_runs WHERE id = ${runId}`;
     expect(json(plain).run.results).toEqual(row.results);
@@ -151,7 +158,56 @@ describe("a run's results", () => {
   });
 });
 
+describe("a run's results held in the server's memory", () => {
+  it("follow the stored copy: a run whose copy changes in the database is served from the new copy at once", async () => {
+    const a = await scenarioWithServerRun("Memory copy A", "mem-a");
+    const b = await scenarioWithServerRun("Memory copy B", "mem-b");
+    const pathA = `/api/runs/${a.runId}`;
+    const first = await raw(pathA, { cookie: scheduler, "accept-encoding": GZIP });
+    await raw(pathA, { cookie: scheduler, "accept-encoding": GZIP }); // now certainly held in memory
+    // Give run A run B's results and stored copy (a stand-in for any change to a run's results).
+    await db`UPDATE simulation_runs a SET results = b.results, results_deflate = b.results_deflate, results_crc32 = b.results_crc32,
+      results_length = b.results_length, results_etag = b.results_etag FROM simulation_runs b WHERE a.id = ${a.runId} AND b.id = ${b.runId}`;
+    const after = await raw(pathA, { cookie: scheduler, "accept-encoding": GZIP });
+    expect(after.status).toBe(200);
+    expect(after.headers.etag).not.toBe(first.headers.etag);
+    const [row] = await db`SELECT results FROM simulation_runs WHERE id = ${b.runId}`;
+    expect(json(after).run.results).toEqual(row.results);
+    expect(json(after).run.results).not.toEqual(json(first).run.results);
+  });
+
+  it("do not hold access: a member removed from the project gets 404 on the very next read", async () => {
+    const { runId } = await scenarioWithServerRun("Memory copy access");
+    const member = await freshUser(db, "memory-member");
+    await db`INSERT INTO project_members (project_id, user_id, role) VALUES (${projectId}, ${member.id}, 'viewer')`;
+    const cookie = await member.cookie();
+    const path = `/api/runs/${runId}`;
+    expect((await raw(path, { cookie, "accept-encoding": GZIP })).status).toBe(200);
+    expect((await raw(path, { cookie, "accept-encoding": GZIP })).status).toBe(200);
+    await db`DELETE FROM project_members WHERE project_id = ${projectId} AND user_id = ${member.id}`;
+    const refused = await raw(path, { cookie, "accept-encoding": GZIP });
+    expect(refused.status).toBe(404);
+    expect(refused.headers.etag).toBeUndefined();
+  });
+});
+
 describe("the scenario list", () => {
+  it("is gzip-encoded by the route when the client takes it: the same JSON as the plain body, with its length", async () => {
+    const path = `/api/projects/${projectId}/scenarios`;
+    const gz = await raw(path, { cookie: scheduler, "accept-encoding": GZIP });
+    const plain = await raw(path, { cookie: scheduler, "accept-encoding": "identity" });
+    expect(gz.headers["content-encoding"]).toBe("gzip");
+    expect(plain.headers["content-encoding"]).toBeUndefined();
+    expect(gunzipSync(gz.body).equals(plain.body)).toBe(true);
+    // Weak: the two bodies are the same JSON, so one tag stands for both.
+    expect(gz.headers.etag).toBe(plain.headers.etag);
+    for (const r of [gz, plain]) {
+      expect(r.headers["content-length"]).toBe(String(r.body.length));
+      expect(r.headers["transfer-encoding"]).toBeUndefined();
+      expect(Object.keys(r.headers).filter((h) => h.startsWith("x-pourline-"))).toEqual([]);
+    }
+  });
+
   it("has a weak ETag of its content: 304 while nothing changed, 200 with the new run once one is stored", async () => {
     const s = await scenarioWithServerRun("Cache list", "list-1");
     const path = `/api/projects/${projectId}/scenarios`;

@@ -1,11 +1,9 @@
 import "server-only";
-import { DrizzlePostgreSQLAdapter } from "@lucia-auth/adapter-drizzle";
 import { Lucia, TimeSpan, type Cookie, type Session, type User } from "lucia";
 import { cookies } from "next/headers";
 import { cache } from "react";
 import { createHash, randomBytes } from "node:crypto";
-import { getDb } from "@db/client";
-import { sessions, users } from "@db/schema";
+import { sessionStore } from "@db/queries/sessions";
 
 /**
  * Sessions: the cookie carries a 256-bit random token; the database keeps only its SHA-256 as the session id,
@@ -21,7 +19,7 @@ let instance: Lucia<{ createdAt: Date }, { email: string; name: string; title: s
 /** Created on first use: the adapter needs the database, which the build does not have. */
 export function lucia() {
   if (!instance) {
-    instance = new Lucia(new DrizzlePostgreSQLAdapter(getDb(), sessions, users), {
+    instance = new Lucia(sessionStore(), {
       sessionExpiresIn: SESSION_IDLE,
       sessionCookie: {
         name: "pourline_session",

@@ -6,6 +6,28 @@ import "server-only";
  * body. Callers check the person's access first: a 304 is an answer about the resource too.
  */
 import { createHash } from "node:crypto";
+import { gzipSync } from "node:zlib";
+
+/**
+ * Next drops Content-Encoding and Content-Length from a route's answer, so a route that compresses its own body
+ * names the encoding and the length in these private headers and scripts/serve.mjs (which sets
+ * POURLINE_OWN_ENCODING) turns them into the real ones; that also keeps Next's own compression off the body,
+ * and a known length lets the answer go out in one write, unchunked. Under `next dev` there is no such
+ * server, and routes send plain JSON. Same names in scripts/serve.mjs.
+ */
+export const OWN_ENCODING_HEADER = "x-pourline-content-encoding";
+export const OWN_LENGTH_HEADER = "x-pourline-content-length";
+
+/** Whether to answer `request` with a body this route gzipped itself (see OWN_ENCODING_HEADER). */
+export function ownGzip(request: Request): boolean {
+  return process.env.POURLINE_OWN_ENCODING === "1" && acceptsGzip(request.headers.get("accept-encoding"));
+}
+
+/** The private headers naming a body of `length` bytes (gzip or not) for scripts/serve.mjs; none without it. */
+export function ownBodyHeaders(length: number, gzip: boolean): Record<string, string> {
+  if (process.env.POURLINE_OWN_ENCODING !== "1") return {};
+  return { [OWN_LENGTH_HEADER]: String(length), ...(gzip ? { [OWN_ENCODING_HEADER]: "gzip" } : {}) };
+}
 
 export const REVALIDATE_HEADERS = { "cache-control": "private, no-cache", vary: "Accept-Encoding" } as const;
 
@@ -42,12 +64,16 @@ export function notModified(etag: string): Response {
 }
 
 /**
- * A JSON answer with a weak ETag of its text (weak: the server's compression may re-encode the same JSON), or
- * 304 when the client already holds it. For answers computed per request that are small enough to serialise.
+ * A JSON answer with a weak ETag of its text (weak: the plain and the gzip body are the same JSON), or 304 when
+ * the client already holds it. For answers computed per request that are small enough to serialise. Gzipped
+ * here, in one call, when the client takes it: cheaper than Next's streaming compression for a body this size.
  */
 export function jsonWithEtag(request: Request, value: unknown): Response {
-  const text = JSON.stringify(value);
+  const text = Buffer.from(JSON.stringify(value), "utf8");
   const etag = `W/"${digest(text)}"`;
   if (noneMatchHits(request.headers.get("if-none-match"), etag)) return notModified(etag);
-  return new Response(text, { status: 200, headers: { "content-type": "application/json", etag, ...REVALIDATE_HEADERS } });
+  const gzip = ownGzip(request);
+  const body = gzip ? gzipSync(text) : text;
+  const headers = { "content-type": "application/json", etag, ...REVALIDATE_HEADERS, ...ownBodyHeaders(body.length, gzip) };
+  return new Response(new Uint8Array(body.buffer, body.byteOffset, body.length), { status: 200, headers });
 }

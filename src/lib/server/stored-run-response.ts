@@ -15,24 +15,21 @@ import "server-only";
 import { constants, inflateRawSync } from "node:zlib";
 import type { StoredResults } from "@db/stored-results";
 import { gzipAround } from "./gzip-splice";
-import { acceptsGzip, digest, noneMatchHits, notModified, REVALIDATE_HEADERS } from "./http-cache";
-
-export const OWN_ENCODING_HEADER = "x-pourline-content-encoding";
+import { digest, noneMatchHits, notModified, ownBodyHeaders, ownGzip, REVALIDATE_HEADERS } from "./http-cache";
 
 export function storedRunResponse(request: Request, fields: Record<string, unknown>, stored: StoredResults): Response {
   const fieldsJson = JSON.stringify(fields);
   // `{"run":{…fields…,"results":` + stored JSON + `}}`: the fields' closing brace gives way to the results.
   const before = Buffer.from(`{"run":${fieldsJson.slice(0, -1)}${fieldsJson === "{}" ? "" : ","}"results":`, "utf8");
   const after = Buffer.from("}}", "utf8");
-  const gzip = process.env.POURLINE_OWN_ENCODING === "1" && acceptsGzip(request.headers.get("accept-encoding"));
+  const gzip = ownGzip(request);
   const etag = `"${stored.resultsEtag.slice(0, 22)}.${digest(before)}${gzip ? "-gz" : ""}"`;
   if (noneMatchHits(request.headers.get("if-none-match"), etag)) return notModified(etag);
   const chunks = gzip
     ? gzipAround(before, { deflate: stored.resultsDeflate, crc32: stored.resultsCrc32, length: stored.resultsLength }, after)
     : [before, inflateRawSync(stored.resultsDeflate, { finishFlush: constants.Z_SYNC_FLUSH }), after];
   const body = Buffer.concat(chunks);
-  const headers: Record<string, string> = { "content-type": "application/json", etag, ...REVALIDATE_HEADERS };
-  if (gzip) headers[OWN_ENCODING_HEADER] = "gzip";
-  else headers["cache-control"] += ", no-transform";
+  const headers: Record<string, string> = { "content-type": "application/json", etag, ...REVALIDATE_HEADERS, ...ownBodyHeaders(body.length, gzip) };
+  if (!gzip) headers["cache-control"] += ", no-transform";
   return new Response(new Uint8Array(body.buffer, body.byteOffset, body.length), { status: 200, headers });
 }
