@@ -88,10 +88,10 @@ export function allClosedSentence(days: LookAheadDay[], next: NextOpenTime | nul
   const why = `No shift on this board can work this week${reasons.length ? ` (${reasons.join("; ")})` : ""}.`;
   if (!next) return `${why} The plan's calendar has no open time left for a weather-gated operation.`;
   const starts = next.planStart ? ` The plan starts on ${next.planStart}.` : "";
-  const ops = next.operations;
+  const ops = next.operations; // `;` between them: operation names may hold commas
   const sameDay = ops.every((o) => o.start.slice(0, 10) === ops[0].start.slice(0, 10));
   const when = sameDay
-    ? `on ${ops[0].weekday} ${ops[0].start.slice(0, 10)}: ${ops.map((o) => `${o.operation} from ${o.start.slice(11)}`).join(", ")}`
-    : `for ${ops.map((o) => `${o.operation} on ${o.weekday} ${o.start.replace("T", " at ")}`).join(", ")}`;
+    ? `on ${ops[0].weekday} ${ops[0].start.slice(0, 10)}: ${ops.map((o) => `${o.operation} from ${o.start.slice(11)}`).join("; ")}`
+    : `for ${ops.map((o) => `${o.operation} on ${o.weekday} ${o.start.replace("T", " at ")}`).join("; ")}`;
   return `${why}${starts} Its calendar next opens ${when} — weather permitting: the board judges each day once it is within the forecast's week.`;
 }

@@ -61,7 +61,7 @@ describe("hour ranges", () => {
     it("says why once per reason, when the plan starts and when its calendar next opens for each operation", () => {
       expect(allClosedSentence(winter, next)).toBe(
         "No shift on this board can work this week (winter shutdown; not a work day). The plan starts on 2027-04-05. " +
-          "Its calendar next opens on Monday 2027-04-05: Overlay placement from 09:30, Milling from 21:00 — weather permitting: the board judges each day once it is within the forecast's week.",
+          "Its calendar next opens on Monday 2027-04-05: Overlay placement from 09:30; Milling from 21:00 — weather permitting: the board judges each day once it is within the forecast's week.",
       );
       expect(allClosedSentence(winter, { ...next, planStart: null })).not.toContain("The plan starts");
       expect(allClosedSentence(winter, null)).toBe("No shift on this board can work this week (winter shutdown; not a work day). The plan's calendar has no open time left for a weather-gated operation.");
@@ -69,7 +69,7 @@ describe("hour ranges", () => {
 
     it("names each operation's day when they differ", () => {
       const apart = { planStart: null, operations: [next.operations[0], { ...next.operations[1], start: "2027-04-06T21:00", weekday: "Tuesday" }] };
-      expect(allClosedSentence(winter, apart)).toContain("next opens for Overlay placement on Monday 2027-04-05 at 09:30, Milling on Tuesday 2027-04-06 at 21:00 — weather permitting");
+      expect(allClosedSentence(winter, apart)).toContain("next opens for Overlay placement on Monday 2027-04-05 at 09:30; Milling on Tuesday 2027-04-06 at 21:00 — weather permitting");
     });
 
     it("says nothing when some cell is not closed, or when the board has no cell", () => {
