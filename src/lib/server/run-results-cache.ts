@@ -9,17 +9,22 @@ import "server-only";
  */
 import type { StoredResults } from "@db/stored-results";
 import { fillStoredResults, getStoredResults } from "@db/queries/runs";
-import { ByteLru } from "@/lib/byte-lru";
+import { LRUCache } from "lru-cache";
 
 export const RUN_RESULTS_CACHE_BYTES = 48 * 1024 * 1024;
 
-const cache = new ByteLru<StoredResults>(RUN_RESULTS_CACHE_BYTES);
+// Sized by the compressed bytes held; a copy larger than the whole budget is not kept (maxEntrySize).
+const cache = new LRUCache<string, StoredResults>({
+  maxSize: RUN_RESULTS_CACHE_BYTES,
+  maxEntrySize: RUN_RESULTS_CACHE_BYTES,
+  sizeCalculation: (stored) => Math.max(1, stored.resultsDeflate.length),
+});
 
 /** The stored copy of run `runId` whose tag is `resultsEtag` (null: the row has no copy yet — made now, once). */
 export async function storedResultsFor(runId: string, resultsEtag: string | null): Promise<StoredResults | null> {
   const held = resultsEtag ? cache.get(runId) : undefined;
   if (held && held.resultsEtag === resultsEtag) return held;
   const stored = (resultsEtag ? await getStoredResults({ id: runId }) : null) ?? (await fillStoredResults({ id: runId }));
-  if (stored) cache.set(runId, stored, stored.resultsDeflate.length);
+  if (stored) cache.set(runId, stored);
   return stored;
 }
