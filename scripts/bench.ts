@@ -86,11 +86,11 @@ function best<T>(rounds: number, f: () => T): { ms: number; wallMs: number; valu
 }
 
 const scenarios = FILES.map((file) => {
-  const parsed = { scenario: parseFile(file) };
-  const compiled = compileScenario(parsed.scenario);
+  const scenario = parseFile(file);
+  const compiled = compileScenario(scenario);
   runIterations(compiled, SEED, 0, Math.min(500, iterations)); // warm-up
   const engine = best(5, () => runIterations(compiled, SEED, 0, iterations));
-  const bare = compileScenario({ ...parsed.scenario, traffic: undefined, costs: undefined });
+  const bare = compileScenario({ ...scenario, traffic: undefined, costs: undefined });
   runIterations(bare, SEED, 0, Math.min(500, iterations));
   const engineOnly = best(3, () => runIterations(bare, SEED, 0, iterations));
   const delays = Float64Array.from(engine.value.delayVehHours).sort();
@@ -100,7 +100,7 @@ const scenarios = FILES.map((file) => {
     let s: IterationSamples | undefined;
     for (let k = 0; k < iterations; k++) {
       // Buffers recycled as runIterations recycles them, so the floor does not pay allocations the engine avoids.
-      s = drawSamples(parsed.scenario, SEED, k, s);
+      s = drawSamples(scenario, SEED, k, s);
       s.weather.ensure(days[k] + 1);
       sink += s.rateFtPerHour.length;
     }
