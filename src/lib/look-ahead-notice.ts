@@ -77,13 +77,19 @@ export function boardLines(days: LookAheadDay[]): string[] {
   return lines;
 }
 
+/** The board has cells and every one is closed (winter, a plan not started yet): then the board points to the plan's next open time (sim/lookahead `nextOpenAfter`). */
+export function everyCellClosed(days: LookAheadDay[]): boolean {
+  const cells = days.flatMap((d) => d.shifts.flatMap((s) => s.operations));
+  return cells.length > 0 && cells.every((c) => c.status === "closed");
+}
+
 /**
  * A week in which every cell is closed (winter, a plan not started yet) says so in one sentence, with why and
  * where the plan's calendar next opens; null when some cell is not closed (the board then speaks for itself).
  */
 export function allClosedSentence(days: LookAheadDay[], next: NextOpenTime | null): string | null {
+  if (!everyCellClosed(days)) return null;
   const cells = days.flatMap((d) => d.shifts.flatMap((s) => s.operations));
-  if (cells.length === 0 || cells.some((c) => c.status !== "closed")) return null;
   const reasons = [...new Set(cells.map((c) => (c.closedReason ?? "").replace(/\.$/, "").toLowerCase()).filter(Boolean))];
   const why = `No shift on this board can work this week${reasons.length ? ` (${reasons.join("; ")})` : ""}.`;
   if (!next) return `${why} The plan's calendar has no open time left for a weather-gated operation.`;

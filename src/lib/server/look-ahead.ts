@@ -6,6 +6,7 @@ import "server-only";
  */
 import { lookAhead, nextOpenAfter, DEFAULT_RAIN_POP_PCT, type LookAheadDay, type NextOpenTime } from "@sim/lookahead";
 import { getProject } from "@db/queries/projects";
+import { everyCellClosed } from "@/lib/look-ahead-notice";
 import { projectForecast, type ForecastStatus } from "./forecast/cache";
 import { toHourlyArrays } from "./forecast/nws-format";
 import { validateDefinition } from "./scenario-input";
@@ -77,6 +78,6 @@ export async function scenarioLookAhead(scenario: { projectId: string; definitio
       gaps: f?.gaps ?? null,
     },
     days,
-    nextOpen: days.every((d) => d.shifts.every((sh) => sh.operations.every((o) => o.status === "closed"))) ? nextOpenAfter(plan, { today }) : null,
+    nextOpen: everyCellClosed(days) ? nextOpenAfter(plan, { today }) : null,
   };
 }
