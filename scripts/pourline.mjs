@@ -40,13 +40,16 @@ function newestMtime(dir) {
 function buildApp(env) {
   const buildId = join(root, env.POURLINE_DIST_DIR ?? ".next", "BUILD_ID");
   const sources = Math.max(...["src", "sim", "workers", "db", "public"].map((d) => newestMtime(join(root, d))), statSync(join(root, "package-lock.json")).mtimeMs);
-  if (existsSync(buildId) && statSync(buildId).mtimeMs > sources) {
+  const fastReads = join(root, env.POURLINE_DIST_DIR ?? ".next", "pourline-fast-reads.mjs");
+  if (existsSync(buildId) && statSync(buildId).mtimeMs > sources && existsSync(fastReads)) {
     say("the app build is up to date.");
     return;
   }
   say("building the app (next build; a few minutes the first time) …");
   // Quiet: the route table and bundler notes are for contributors; a failed build prints its last lines.
   run(join(root, "node_modules", ".bin", "next"), ["build"], { env, what: "next build", quiet: true });
+  // After next build, which empties its folder: the two reads scripts/serve.mjs answers itself.
+  run(process.execPath, [join(root, "scripts", "build-fast-reads.mjs")], { env, what: "building the fast reads' bundle", quiet: true });
 }
 
 // Start-up chatter of the children that `npm start` already says better in its own lines.

@@ -1,12 +1,13 @@
 #!/usr/bin/env node
-// Serves the built app, like `next start -H $HOST -p $PORT`, plus two things `next start` does not give the
-// app: the address of the connected peer, written into the x-pourline-peer header after dropping any copy a
-// client sent — the app needs it to know whether a request came through a trusted proxy (TRUSTED_PROXY), the
-// only case in which X-Forwarded-For is believed — and the Content-Encoding of a body a route compressed
-// itself (below). Binds to 127.0.0.1 unless HOST says otherwise.
+// Serves the built app, like `next start -H $HOST -p $PORT`, plus three things `next start` does not give the
+// app: the two reads every open page repeats, answered without Next's per-request cost (below); the address of
+// the connected peer, written into the x-pourline-peer header after dropping any copy a client sent — the app
+// needs it to know whether a request came through a trusted proxy (TRUSTED_PROXY), the only case in which
+// X-Forwarded-For is believed — and the Content-Encoding of a body a route compressed itself (below). Binds to
+// 127.0.0.1 unless HOST says otherwise.
 import { createServer } from "node:http";
-import { dirname, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath, pathToFileURL } from "node:url";
 import next from "next";
 
 const PEER_HEADER = "x-pourline-peer";
@@ -29,6 +30,14 @@ const host = process.env.HOST || "127.0.0.1";
 const app = next({ dev: false, dir: root, hostname: host, port });
 const handle = app.getRequestHandler();
 await app.prepare();
+
+// The scenario list and a run's results are answered before Next (src/lib/server/fast-reads.ts, bundled by
+// scripts/build-fast-reads.mjs): the same code and checks as their route handlers, without the framework's
+// per-request cost. POURLINE_FAST_READS=off leaves them to Next.
+const answerFastRead =
+  process.env.POURLINE_FAST_READS === "off"
+    ? null
+    : (await import(pathToFileURL(join(root, process.env.POURLINE_DIST_DIR ?? ".next", "pourline-fast-reads.mjs")).href)).answerFastRead;
 
 /**
  * Next sends an answer's headers on their own (flushHeaders) just before the first chunk of its body, then the
@@ -54,10 +63,13 @@ const server = createServer((req, res) => {
   const setHeader = res.setHeader.bind(res);
   res.setHeader = (name, value) => setHeader(OWN_HEADERS.get(String(name).toLowerCase()) ?? name, value);
   holdHeadersForBody(res);
-  handle(req, res).catch((e) => {
-    console.error(`[pourline] request failed: ${e?.name ?? "Error"}`);
-    if (!res.headersSent) res.writeHead(500).end();
-  });
+  const answered = answerFastRead ? answerFastRead(req, res) : Promise.resolve(false);
+  answered
+    .then((done) => (done ? undefined : handle(req, res)))
+    .catch((e) => {
+      console.error(`[pourline] request failed: ${e?.name ?? "Error"}`);
+      if (!res.headersSent) res.writeHead(500).end();
+    });
 });
 // Longer than a proxy's or an HTTP client's idle keep-alive, so the server is never the side closing a
 // connection the other end is about to reuse (a reset request) — Node's own default is 5 s.

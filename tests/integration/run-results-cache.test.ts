@@ -8,32 +8,13 @@
  * Raw HTTP (node:http), so the test sees the bytes and headers as sent, not a decoded body.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { request } from "node:http";
 import { gunzipSync } from "node:zlib";
 import type postgres from "postgres";
-import { APP_URL, call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
+import { call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
 import { serverRunDone, waitForJob } from "../helpers/jobs";
+import { raw, type RawReply } from "../helpers/raw-http";
 import { appDatabase, freshScenario, freshUser } from "../helpers/fresh-team";
 import { parseScenario, runScenario } from "../../sim/index";
-
-interface RawReply {
-  status: number;
-  headers: Record<string, string | string[] | undefined>;
-  body: Buffer;
-}
-
-function raw(path: string, headers: Record<string, string>): Promise<RawReply> {
-  return new Promise((resolve, reject) => {
-    const req = request(`${APP_URL}${path}`, { headers }, (res) => {
-      const chunks: Buffer[] = [];
-      res.on("data", (c: Buffer) => chunks.push(c));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }));
-      res.on("error", reject);
-    });
-    req.on("error", reject);
-    req.end();
-  });
-}
 
 const GZIP = "gzip, deflate, br, zstd";
 const json = (r: RawReply) => JSON.parse((r.headers["content-encoding"] === "gzip" ? gunzipSync(r.body) : r.body).toString("utf8"));

@@ -9,7 +9,11 @@ import { AppError } from "./errors";
 const uuid = z.uuid();
 
 export async function requireUser(): Promise<SignedIn> {
-  const s = await currentSession();
+  return requireSignedIn(await currentSession());
+}
+
+/** 401 for nobody signed in. */
+export function requireSignedIn(s: SignedIn | null): SignedIn {
   if (!s) throw new AppError("unauthorized", "Sign in to continue.");
   return s;
 }
@@ -28,7 +32,11 @@ export function requireRole(role: ProjectRole | null, action: Action, notFound: 
 
 /** 404 when the project does not exist or the user is not a member (no hint that it exists); 403 when the role may not. */
 export async function requireProject(projectId: string, action: Action) {
-  const s = await requireUser();
+  return requireProjectAs(await requireUser(), projectId, action);
+}
+
+/** requireProject for a person already signed in (the read routes served beside Next decide the session themselves). */
+export async function requireProjectAs(s: SignedIn, projectId: string, action: Action) {
   if (!uuid.safeParse(projectId).success) throw new AppError("not_found", "No such project.");
   // One query: the project and the person's membership (the role table decides the rest).
   const found = await getProjectWithRole({ projectId, userId: s.user.id });

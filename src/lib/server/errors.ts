@@ -70,11 +70,16 @@ export function handler<A extends unknown[]>(fn: (...args: A) => Promise<Respons
     try {
       return await fn(...args);
     } catch (e) {
-      if (e instanceof AppError) return e.toResponse();
-      const ref = logServerError(e);
-      return NextResponse.json({ error: `Something went wrong on the server. Try again; if it keeps happening, quote reference ${ref}.`, code: "server_error", ref, fields: [] }, { status: 500 });
+      return errorResponse(e);
     }
   };
+}
+
+/** The answer to a route's failure (see handler). */
+export function errorResponse(e: unknown): Response {
+  if (e instanceof AppError) return e.toResponse();
+  const ref = logServerError(e);
+  return NextResponse.json({ error: `Something went wrong on the server. Try again; if it keeps happening, quote reference ${ref}.`, code: "server_error", ref, fields: [] }, { status: 500 });
 }
 
 /**

@@ -7,6 +7,7 @@ import "server-only";
  */
 import { createHash } from "node:crypto";
 import { gzipSync } from "node:zlib";
+import { LRUCache } from "lru-cache";
 
 /**
  * Next drops Content-Encoding and Content-Length from a route's answer, so a route that compresses its own body
@@ -19,7 +20,7 @@ export const OWN_ENCODING_HEADER = "x-pourline-content-encoding";
 export const OWN_LENGTH_HEADER = "x-pourline-content-length";
 
 /** Whether to answer `request` with a body this route gzipped itself (see OWN_ENCODING_HEADER). */
-export function ownGzip(request: Request): boolean {
+export function ownGzip(request: ReadRequest): boolean {
   return process.env.POURLINE_OWN_ENCODING === "1" && acceptsGzip(request.headers.get("accept-encoding"));
 }
 
@@ -59,21 +60,49 @@ export function digest(text: string | Buffer): string {
   return createHash("sha256").update(text).digest("base64url").slice(0, 22);
 }
 
-export function notModified(etag: string): Response {
-  return new Response(null, { status: 304, headers: { etag, ...REVALIDATE_HEADERS } });
+/** What an answer needs of its request: its headers (a Request has them; so has the fast path's stand-in). */
+export interface ReadRequest {
+  headers: { get(name: string): string | null };
 }
+
+/**
+ * An answer as status, headers and bytes: what the read answers build. A route handler sends it as a Response
+ * (answerResponse); scripts/serve.mjs writes it to the socket as it is (src/lib/server/fast-reads.ts), without
+ * building a Response and reading its body back.
+ */
+export interface PlainAnswer {
+  status: number;
+  headers: Record<string, string>;
+  body: Buffer<ArrayBuffer> | null;
+}
+
+export function answerResponse(answer: PlainAnswer): Response {
+  const { body } = answer;
+  return new Response(body ? new Uint8Array(body.buffer, body.byteOffset, body.length) : null, { status: answer.status, headers: answer.headers });
+}
+
+export function notModified(etag: string): PlainAnswer {
+  return { status: 304, headers: { etag, ...REVALIDATE_HEADERS }, body: null };
+}
+
+// The gzip of a JSON answer by its tag (the tag is the SHA-256 of the text, so the bytes are the same for
+// whoever asks): a list read again unchanged is not compressed again. Bounded in bytes.
+const gzipByTag = new LRUCache<string, Buffer<ArrayBuffer>>({ maxSize: 4 * 1024 * 1024, maxEntrySize: 1024 * 1024, sizeCalculation: (b) => Math.max(1, b.length) });
 
 /**
  * A JSON answer with a weak ETag of its text (weak: the plain and the gzip body are the same JSON), or 304 when
  * the client already holds it. For answers computed per request that are small enough to serialise. Gzipped
  * here, in one call, when the client takes it: cheaper than Next's streaming compression for a body this size.
  */
-export function jsonWithEtag(request: Request, value: unknown): Response {
+export function jsonWithEtag(request: ReadRequest, value: unknown): PlainAnswer {
   const text = Buffer.from(JSON.stringify(value), "utf8");
   const etag = `W/"${digest(text)}"`;
   if (noneMatchHits(request.headers.get("if-none-match"), etag)) return notModified(etag);
   const gzip = ownGzip(request);
-  const body = gzip ? gzipSync(text) : text;
-  const headers = { "content-type": "application/json", etag, ...REVALIDATE_HEADERS, ...ownBodyHeaders(body.length, gzip) };
-  return new Response(new Uint8Array(body.buffer, body.byteOffset, body.length), { status: 200, headers });
+  let body = text;
+  if (gzip) {
+    body = gzipByTag.get(etag) ?? gzipSync(text);
+    gzipByTag.set(etag, body);
+  }
+  return { status: 200, headers: { "content-type": "application/json", etag, ...REVALIDATE_HEADERS, ...ownBodyHeaders(body.length, gzip) }, body };
 }

@@ -13,12 +13,15 @@ import { LRUCache } from "lru-cache";
 
 export const RUN_RESULTS_CACHE_BYTES = 48 * 1024 * 1024;
 
-// Sized by the compressed bytes held; a copy larger than the whole budget is not kept (maxEntrySize).
-const cache = new LRUCache<string, StoredResults>({
+// Sized by the compressed bytes held; a copy larger than the whole budget is not kept (maxEntrySize). One per
+// process, kept on globalThis: the app's own build and the read routes served beside it (fast-reads.ts, a
+// separate bundle in the same process) share it, so the budget is one budget.
+const holder = globalThis as unknown as { __pourlineRunResults?: LRUCache<string, StoredResults> };
+const cache = (holder.__pourlineRunResults ??= new LRUCache<string, StoredResults>({
   maxSize: RUN_RESULTS_CACHE_BYTES,
   maxEntrySize: RUN_RESULTS_CACHE_BYTES,
   sizeCalculation: (stored) => Math.max(1, stored.resultsDeflate.length),
-});
+}));
 
 /** The stored copy of run `runId` whose tag is `resultsEtag` (null: the row has no copy yet — made now, once). */
 export async function storedResultsFor(runId: string, resultsEtag: string | null): Promise<StoredResults | null> {

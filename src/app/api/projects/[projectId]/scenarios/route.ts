@@ -1,18 +1,18 @@
 import { NextResponse } from "next/server";
 import { handler, readJson } from "@/lib/server/errors";
-import { requireProject } from "@/lib/server/access";
-import { jsonWithEtag } from "@/lib/server/http-cache";
+import { requireProject, requireUser } from "@/lib/server/access";
+import { answerResponse } from "@/lib/server/http-cache";
+import { scenarioListAnswer } from "@/lib/server/read-answers";
 import { validateDefinition } from "@/lib/server/scenario-input";
 import { scenarioWriteSchema } from "@/lib/schemas";
-import { createScenario, listProjectScenarios } from "@db/queries/scenarios";
+import { createScenario } from "@db/queries/scenarios";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
-/** With an ETag of the list: a client that already holds it gets 304 (after the membership check). */
+/** The project's scenarios (src/lib/server/read-answers.ts; served beside Next by scripts/serve.mjs). */
 export const GET = handler(async (req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
-  await requireProject(projectId, "read");
-  return jsonWithEtag(req, { scenarios: await listProjectScenarios({ projectId }) });
+  return answerResponse(await scenarioListAnswer(req, projectId, await requireUser()));
 });
 
 export const POST = handler(async (req: Request, ctx: Ctx) => {

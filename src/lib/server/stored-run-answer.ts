@@ -15,9 +15,9 @@ import "server-only";
 import { constants, inflateRawSync } from "node:zlib";
 import type { StoredResults } from "@db/stored-results";
 import { gzipAround } from "./gzip-splice";
-import { digest, noneMatchHits, notModified, ownBodyHeaders, ownGzip, REVALIDATE_HEADERS } from "./http-cache";
+import { digest, noneMatchHits, notModified, ownBodyHeaders, ownGzip, REVALIDATE_HEADERS, type PlainAnswer, type ReadRequest } from "./http-cache";
 
-export function storedRunResponse(request: Request, fields: Record<string, unknown>, stored: StoredResults): Response {
+export function storedRunAnswer(request: ReadRequest, fields: Record<string, unknown>, stored: StoredResults): PlainAnswer {
   const fieldsJson = JSON.stringify(fields);
   // `{"run":{…fields…,"results":` + stored JSON + `}}`: the fields' closing brace gives way to the results.
   const before = Buffer.from(`{"run":${fieldsJson.slice(0, -1)}${fieldsJson === "{}" ? "" : ","}"results":`, "utf8");
@@ -31,5 +31,5 @@ export function storedRunResponse(request: Request, fields: Record<string, unkno
   const body = Buffer.concat(chunks);
   const headers: Record<string, string> = { "content-type": "application/json", etag, ...REVALIDATE_HEADERS, ...ownBodyHeaders(body.length, gzip) };
   if (!gzip) headers["cache-control"] += ", no-transform";
-  return new Response(new Uint8Array(body.buffer, body.byteOffset, body.length), { status: 200, headers });
+  return { status: 200, headers, body };
 }
