@@ -229,10 +229,14 @@ function holidayBlocks(holidayDays: ReadonlyArray<number>, startDay: number, sta
   return out;
 }
 
-export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS): CompiledCalendar {
+/**
+ * The stand-downs of the calendar — holiday blocks (under the stand-down policy) and winters, merged — and the
+ * holidays: the part of compileCalendar that needs no operation. The time–distance chart shades these
+ * (compileStandDowns) without compiling every operation's work windows over the horizon.
+ */
+function standDownParts(scenario: Scenario, days: number) {
   const cal = scenario.calendar;
   const startDay = parseIsoDate(scenario.startDate);
-  const days = horizonDays;
   const horizonHours = 24 * days;
   const startYear = civilFromDays(startDay).y;
   const endYear = civilFromDays(startDay + days).y;
@@ -243,13 +247,6 @@ export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS):
       for (const h of federalHolidays(y)) holidaySet.add(parseIsoDate(h.observed));
   for (const b of cal.holidays.blackoutDates) holidaySet.add(parseIsoDate(b));
   const holidayDays = [...holidaySet].filter((z) => z >= startDay - 7 && z < startDay + days + 7).sort((a, b) => a - b);
-
-  const dayType = new Uint8Array(days + 1);
-  for (let d = 0; d <= days; d++) {
-    const z = startDay + d;
-    const w = weekdayOfDayNumber(z);
-    dayType[d] = holidaySet.has(z) ? 3 : w === 6 ? 1 : w === 0 ? 2 : 0;
-  }
 
   const blocked: Pairs = [];
   if (cal.holidays.policy === "standDown") blocked.push(...holidayBlocks(holidayDays, startDay, cal.holidays.standDownStartHour, cal.holidays.standDownThroughMonday));
@@ -274,6 +271,27 @@ export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS):
     blocked.push(ws - cal.season.demobilizeHours, we);
   }
   const blockedMerged = sortMerge(blocked);
+  return { startDay, holidaySet, blockedMerged, winterStarts, winterEnds, firstWinterStart, firstWinterEnd };
+}
+
+/** The stand-downs alone (see standDownParts), in compileCalendar's form. */
+export function compileStandDowns(scenario: Scenario, horizonDays = HORIZON_DAYS): Pick<CompiledCalendar, "blocked" | "winterStarts" | "winterEnds"> {
+  const { blockedMerged, winterStarts, winterEnds } = standDownParts(scenario, horizonDays);
+  return { blocked: toIntervals(blockedMerged, horizonDays), winterStarts: Float64Array.from(winterStarts), winterEnds: Float64Array.from(winterEnds) };
+}
+
+export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS): CompiledCalendar {
+  const cal = scenario.calendar;
+  const days = horizonDays;
+  const horizonHours = 24 * days;
+  const { startDay, holidaySet, blockedMerged, winterStarts, winterEnds, firstWinterStart, firstWinterEnd } = standDownParts(scenario, days);
+
+  const dayType = new Uint8Array(days + 1);
+  for (let d = 0; d <= days; d++) {
+    const z = startDay + d;
+    const w = weekdayOfDayNumber(z);
+    dayType[d] = holidaySet.has(z) ? 3 : w === 6 ? 1 : w === 0 ? 2 : 0;
+  }
 
   const pattern: DayPattern = {
     days,

@@ -1,7 +1,7 @@
 // Shaded stand-downs from the compiled calendar: winters (with demobilization) apart from holiday blocks.
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { compileCalendar } from "@sim/calendar";
+import { compileCalendar, compileStandDowns } from "@sim/calendar";
 import { parseScenario } from "@sim/validate";
 import type { Scenario } from "@sim/schema";
 import { standDowns } from "@/components/results/stand-downs";
@@ -41,5 +41,21 @@ describe("standDowns", () => {
     const s = small((raw) => (raw.calendar.holidays.policy = "workThrough"));
     const bands = standDowns(compileCalendar(s, 400), 0, 24 * 300, 24 * 310);
     expect(bands).toEqual([{ kind: "winter", start: 24 * 300, end: 24 * 310 }]);
+  });
+});
+
+describe("compileStandDowns (the chart's stand-downs without the operations' work windows)", () => {
+  const demos = ["kestrel-two-season.json", "kestrel-single-season.json", "kestrel-holiday-work.json", "kestrel-staged-three-lane.json", "kestrel-two-placement-crews.json", "small-deterministic.json"];
+  it.each(demos)("gives %s the same blocks and winters as compileCalendar, for short and long horizons", (file) => {
+    const raw = JSON.parse(readFileSync(new URL(`../../scenarios/${file}`, import.meta.url), "utf8"));
+    const r = parseScenario(raw);
+    if (!r.ok) throw new Error(JSON.stringify(r.problems));
+    for (const days of [1, 40, 400, 900]) {
+      const full = compileCalendar(r.scenario, days);
+      const alone = compileStandDowns(r.scenario, days);
+      expect(alone.blocked).toEqual(full.blocked);
+      expect(alone.winterStarts).toEqual(full.winterStarts);
+      expect(alone.winterEnds).toEqual(full.winterEnds);
+    }
   });
 });

@@ -1,6 +1,6 @@
 /**
  * Where no crew works for calendar reasons, as shaded bands. Contract: from a compiled calendar
- * (sim/calendar `compileCalendar`), winter bands are each winter's `[start − demobilizeHours, end)` (the
+ * (sim/calendar `compileCalendar`, or `compileStandDowns` — the same blocks without the operations), winter bands are each winter's `[start − demobilizeHours, end)` (the
  * first winter's start is the two-season cut-off when one is set) and holiday bands are the remaining
  * blocked intervals (holiday stand-down blocks). Hours since 00:00 of the start date, clipped to [from, to].
  */

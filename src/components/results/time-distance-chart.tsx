@@ -10,7 +10,7 @@
  */
 import { useMemo, useState } from "react";
 import { CartesianGrid, LineChart, ReferenceLine, ResponsiveContainer, XAxis, YAxis } from "recharts";
-import { compileCalendar, HORIZON_DAYS } from "@sim/calendar";
+import { compileStandDowns, HORIZON_DAYS } from "@sim/calendar";
 import type { Scenario } from "@sim/schema";
 import type { RunSummary } from "@sim/summary";
 import { formatStation } from "@/lib/format";
@@ -77,7 +77,7 @@ export function TimeDistanceChart({
     const fromH = (lo - planDay0) * 24;
     const toH = (hi - planDay0) * 24;
     const days = Math.min(HORIZON_DAYS, Math.max(1, Math.ceil(toH / 24) + 2));
-    const bands = toH > 0 ? standDowns(compileCalendar(plan, days), plan.calendar.season.demobilizeHours, Math.max(0, fromH), toH) : [];
+    const bands = toH > 0 ? standDowns(compileStandDowns(plan, days), plan.calendar.season.demobilizeHours, Math.max(0, fromH), toH) : [];
     return { groups, bands: bands.map((b) => ({ kind: b.kind, x1: planDay0 + b.start / 24, x2: planDay0 + b.end / 24 })), lo, hi };
   }, [plan, trace, summary.operations, summary.stages, summary.startDate, actuals]);
 
