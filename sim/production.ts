@@ -110,7 +110,9 @@ export function pour(iv: Open, i: number, gates: GateCache, rules: PourRules, fr
     const a = iv.starts[i];
     const b = iv.ends[i];
     if (b - a < hours - EPS) continue;
-    let t = a >= from ? a : Math.ceil(from);
+    // A ready time within EPS after a candidate is that candidate (MODEL.md, "Continuous"): a sum of packet
+    // durations lands a hair after the whole hour it means.
+    let t = a >= from - EPS ? a : Math.ceil(from - EPS);
     while (t + hours <= b + EPS) {
       const k0 = Math.floor(t);
       if (risingFirst && !gates.rising(k0)) {
