@@ -19,6 +19,7 @@ import { AXIS_TICK, GRID_STROKE, seriesStyle } from "./chart-style";
 import { dateTicks, formatDay, hoursToDay } from "./date-axis";
 import { BandsLayer, SeriesLayer, type LayerBand, type LayerSeries } from "./chart-layers";
 import { ClosureStrip } from "./closure-strip-view";
+import { Deferred } from "./deferred";
 import { AreaSwatch, LineSwatch } from "./legend-swatch";
 import { StageSelector } from "./stage-selector";
 import { seriesByStage } from "./stage-series";
@@ -188,7 +189,12 @@ export function TimeDistanceChart({
         </ul>
         {unfinished > 0 && <p className="mt-1 text-xs text-warn">{unfinished} packets of this iteration did not finish within the horizon and are not drawn.</p>}
       </figcaption>
-      {summary.representative?.closureTimeline && <ClosureStrip timeline={summary.representative.closureTimeline} lo={lo} hi={hi} laneClosed={summary.laneClosedHours} />}
+      {/* A task after the chart: its bars and their sweep would otherwise lengthen the chart's own task. */}
+      {summary.representative?.closureTimeline && (
+        <Deferred>
+          <ClosureStrip timeline={summary.representative.closureTimeline} lo={lo} hi={hi} laneClosed={summary.laneClosedHours} />
+        </Deferred>
+      )}
       <div className="sr-only">
         <table data-testid="time-distance-table">
         <caption>Operations in the representative iteration</caption>
