@@ -19,8 +19,9 @@ export interface Rng {
  * object fields and every generator is a fresh closure, so each uniform pays boxed number stores and a call
  * V8 cannot inline; here one class and unboxed typed-array slots keep the hot loops (weather, samples) tight.
  */
-class AleaRng implements Rng {
-  private readonly st = new Float64Array(4);
+export class AleaRng implements Rng {
+  /** s0, s1, s2, c: hot loops may step the generator on locals and store the state back (./weather-draw). */
+  readonly st = new Float64Array(4);
   constructor(seed: string) {
     const s = seedrandom.alea(seed, { state: true }).state() as { c: number; s0: number; s1: number; s2: number };
     this.st[0] = s.s0;
@@ -39,7 +40,7 @@ class AleaRng implements Rng {
   }
 }
 
-export function createRng(seed: string): Rng {
+export function createRng(seed: string): AleaRng {
   return new AleaRng(seed);
 }
 
@@ -52,11 +53,12 @@ export function createRng(seed: string): Rng {
  * About 99 % of draws cost two uniforms and one multiply; the rest use exp/log. No state is kept between
  * draws, so a draw depends only on the uniforms it consumes.
  */
-const ZIG_LAYERS = 128;
+export const ZIG_LAYERS = 128;
 const ZIG_R = 3.442619855899;
 const ZIG_V = 9.91256303526217e-3;
-const zigX = new Float64Array(ZIG_LAYERS + 1);
-const zigRatio = new Float64Array(ZIG_LAYERS);
+/** Layer edges x_i and the ratios x_{i+1}/x_i (read by the inlined ziggurat of ./weather-draw). */
+export const zigX = new Float64Array(ZIG_LAYERS + 1);
+export const zigRatio = new Float64Array(ZIG_LAYERS);
 {
   const f = Math.exp(-0.5 * ZIG_R * ZIG_R);
   zigX[0] = ZIG_V / f; // the base strip (rectangle plus tail) has the same area V as every layer
@@ -81,7 +83,7 @@ export function normal(rng: Rng): number {
  * rejection. Kept apart from `normal` so that its common path is small enough for V8 to inline into the hot
  * loops; the uniforms consumed, and so every draw, are the same as one loop doing both.
  */
-function normalEdge(rng: Rng, u: number, i: number): number {
+export function normalEdge(rng: Rng, u: number, i: number): number {
   for (;;) {
     if (i === 0) {
       // Tail beyond R (Marsaglia 1964): x = −ln(U₁)/R, accept when −2 ln(U₂) > x².

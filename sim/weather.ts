@@ -32,7 +32,8 @@
  */
 import type { Weather } from "./schema";
 import { civilFromDays, daysInMonth, parseIsoDate } from "./dates";
-import { createRng, gammaCore, normal, type Rng } from "./random";
+import { createRng, normal, type AleaRng, type Rng } from "./random";
+import { drawStochasticDays, type DayColumns, type StochasticConstants } from "./weather-draw";
 
 export interface WeatherSeries {
   readonly startDay: number;
@@ -89,20 +90,10 @@ export function rainHoursRatio(mean: number): number {
 const INITIAL_CAPACITY = 512;
 
 /** Per-profile constants, computed once per `Weather` object (the engine reuses it every iteration). */
-interface Prepared {
-  tmaxMean: Float64Array;
-  tmaxSd: Float64Array;
-  tminMean: Float64Array;
-  tminSd: Float64Array;
-  pWD: Float64Array;
-  pWW: Float64Array;
+interface Prepared extends StochasticConstants {
   pi: Float64Array;
-  windScale: Float64Array;
   windMean: Float64Array;
-  rh: Float64Array;
   fixedWet: Set<number>;
-  /** Truncated-geometric ratio for rain hours: 0 → always 1 h, Infinity → always 24 h. */
-  q: number;
 }
 const prepared = new WeakMap<Weather, Prepared>();
 
@@ -112,6 +103,8 @@ function prepare(weather: Weather): Prepared {
   const m = weather.monthly;
   const col = (f: (x: (typeof m)[number]) => number) => Float64Array.from(m, f);
   const rainMean = weather.rainHoursMean;
+  const q = rainMean <= 1 ? 0 : rainMean >= MAX_RAIN_HOURS ? Infinity : rainHoursRatio(rainMean);
+  const rho = weather.serialCorrelation;
   const p: Prepared = {
     tmaxMean: col((x) => x.tmaxMeanF),
     tmaxSd: col((x) => x.tmaxSdF),
@@ -124,7 +117,15 @@ function prepare(weather: Weather): Prepared {
     windMean: col((x) => x.windMeanMph),
     rh: col((x) => x.rhMean),
     fixedWet: new Set(weather.fixedWetDates.map(parseIsoDate)),
-    q: rainMean <= 1 ? 0 : rainMean >= MAX_RAIN_HOURS ? Infinity : rainHoursRatio(rainMean),
+    rho,
+    innov: Math.sqrt(1 - rho * rho),
+    wetMaxShift: weather.wetTmaxShiftF,
+    wetMinShift: weather.wetTminShiftF,
+    q,
+    lnQ: Math.log(q),
+    oneMinusQ24: 1 - Math.pow(q, MAX_RAIN_HOURS),
+    windD: WIND_D,
+    windC: WIND_C,
   };
   prepared.set(weather, p);
   return p;
@@ -132,41 +133,21 @@ function prepare(weather: Weather): Prepared {
 
 export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng, reuse?: WeatherSeries): WeatherSeries {
   const P = prepare(weather);
-  const { tmaxMean, tmaxSd, tminMean, tminSd, pWD, pWW, windScale, windMean, rh, fixedWet, q } = P;
-  const own: Rng | null =
+  const own: AleaRng | null =
     weather.mode === "stochastic" ? createRng(`wx${(rng.next() * 4294967296) >>> 0}:${(rng.next() * 4294967296) >>> 0}`) : null;
-  const rho = weather.serialCorrelation;
-  const innov = Math.sqrt(1 - rho * rho);
-  const wetMaxShift = weather.wetTmaxShiftF;
-  const wetMinShift = weather.wetTminShiftF;
 
-  // Rain duration by inversion of the truncated geometric: h = 1 + ⌊ln(1 − U(1 − q²⁴)) / ln q⌋.
-  const lnQ = Math.log(q);
-  const oneMinusQ24 = 1 - Math.pow(q, MAX_RAIN_HOURS);
-  const drawRainHours = (r: Rng): number => {
-    if (q === 0) return 1;
-    if (q === Infinity) return MAX_RAIN_HOURS;
-    const u = r.next();
-    if (Math.abs(lnQ) < 1e-12) return 1 + Math.floor(u * MAX_RAIN_HOURS);
-    const h = 1 + Math.floor(Math.log(1 - u * oneMinusQ24) / lnQ);
-    return h < 1 ? 1 : h > MAX_RAIN_HOURS ? MAX_RAIN_HOURS : h;
-  };
-
-  // Calendar position of the next day to generate, stepped day by day (no Date, no allocation).
+  // Calendar position of the next day to generate, stepped day by day (no Date, no allocation):
+  // [year, month 0–11, day of month, month length].
   const start = civilFromDays(startDay);
-  let year = start.y;
-  let month = start.m - 1;
-  let dayOfMonth = start.d;
-  let monthLength = daysInMonth(year, month + 1);
+  const cal = Int32Array.of(start.y, start.m - 1, start.d, daysInMonth(start.y, start.m));
 
   // Generator state: "yesterday" before day 0 is drawn from the stationary law of the first month. Kept in
-  // a typed array, read into locals per `generate` call: doubles captured by the closure and rewritten every
-  // day would each be boxed.
-  const state = new Float64Array(3); // [previous day wet (0/1), χ of tmax, χ of tmin]
+  // a typed array: doubles captured by the closure and rewritten every day would each be boxed.
+  const chain = new Float64Array(3); // [previous day wet (0/1), χ of tmax, χ of tmin]
   if (own) {
-    state[0] = own.next() < P.pi[month] ? 1 : 0;
-    state[1] = normal(own);
-    state[2] = normal(own);
+    chain[0] = own.next() < P.pi[cal[1]] ? 1 : 0;
+    chain[1] = normal(own);
+    chain[2] = normal(own);
   }
 
   const series: WeatherSeries = {
@@ -182,7 +163,8 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
     ensure(days: number) {
       if (days <= series.length) return;
       if (days > series.tmaxF.length) grow(days);
-      generate(series.length, days);
+      if (own) drawStochasticDays(own, P, chain, cal, series, series.length, days);
+      else fixedDays(P, startDay, cal, series, series.length, days);
       series.length = days;
     },
   };
@@ -209,58 +191,31 @@ export function createWeatherSeries(weather: Weather, startDay: number, rng: Rng
     series.rainHours = u(series.rainHours);
   }
 
-  function generate(from: number, to: number) {
-    const { tmaxF, tminF, windMph, rhPct, wet: wetA, rainStartHour, rainHours } = series;
-    let prevWet = state[0] === 1;
-    let chiMax = state[1];
-    let chiMin = state[2];
-    for (let i = from; i < to; i++) {
-      const mo = month;
-      if (own) {
-        const wet = own.next() < (prevWet ? pWW[mo] : pWD[mo]);
-        prevWet = wet;
-        chiMax = rho * chiMax + innov * normal(own);
-        chiMin = rho * chiMin + innov * normal(own);
-        const tmax = tmaxMean[mo] + (wet ? wetMaxShift : 0) + tmaxSd[mo] * chiMax;
-        const tmin = tminMean[mo] + (wet ? wetMinShift : 0) + tminSd[mo] * chiMin;
-        tmaxF[i] = tmax;
-        tminF[i] = tmin > tmax - 1 ? tmax - 1 : tmin;
-        windMph[i] = windScale[mo] > 0 ? gammaCore(own, WIND_D, WIND_C, windScale[mo]) : 0;
-        const r = rh[mo] + (wet ? 10 : 0);
-        rhPct[i] = r > 100 ? 100 : r;
-        wetA[i] = wet ? 1 : 0;
-        if (wet) {
-          rainStartHour[i] = Math.floor(own.next() * 24);
-          rainHours[i] = drawRainHours(own);
-        } else {
-          rainStartHour[i] = 0;
-          rainHours[i] = 0;
-        }
-      } else {
-        const wet = fixedWet.size > 0 && fixedWet.has(startDay + i);
-        tmaxF[i] = tmaxMean[mo];
-        tminF[i] = tminMean[mo];
-        windMph[i] = windMean[mo];
-        rhPct[i] = rh[mo];
-        wetA[i] = wet ? 1 : 0;
-        rainStartHour[i] = 0;
-        rainHours[i] = wet ? 24 : 0;
-      }
-      if (++dayOfMonth > monthLength) {
-        dayOfMonth = 1;
-        if (++month === 12) {
-          month = 0;
-          year++;
-        }
-        monthLength = daysInMonth(year, month + 1);
-      }
-    }
-    state[0] = prevWet ? 1 : 0;
-    state[1] = chiMax;
-    state[2] = chiMin;
-  }
-
   return series;
+}
+
+/** Fixed mode's days [from, to) (MODEL.md): the monthly means, rain only on `fixedWetDates`. */
+function fixedDays(P: Prepared, startDay: number, cal: Int32Array, out: DayColumns, from: number, to: number): void {
+  const { tmaxF, tminF, windMph, rhPct, wet: wetA, rainStartHour, rainHours } = out;
+  for (let i = from; i < to; i++) {
+    const mo = cal[1];
+    const wet = P.fixedWet.size > 0 && P.fixedWet.has(startDay + i);
+    tmaxF[i] = P.tmaxMean[mo];
+    tminF[i] = P.tminMean[mo];
+    windMph[i] = P.windMean[mo];
+    rhPct[i] = P.rh[mo];
+    wetA[i] = wet ? 1 : 0;
+    rainStartHour[i] = 0;
+    rainHours[i] = wet ? 24 : 0;
+    if (++cal[2] > cal[3]) {
+      cal[2] = 1;
+      if (++cal[1] === 12) {
+        cal[1] = 0;
+        cal[0]++;
+      }
+      cal[3] = daysInMonth(cal[0], cal[1] + 1);
+    }
+  }
 }
 
 const RISE_HOURS = 9; // 06:00 → 15:00
