@@ -1,11 +1,11 @@
 /**
  * Seeded randomness for the engine. Contract: `createRng(seed)` gives a reproducible uniform stream in [0, 1)
- * (seedrandom's Alea: fast, 32-bit resolution, identical in every JavaScript runtime); `normal` and `gamma`
+ * (seedrandom's Alea: fast, 32-bit resolution, identical in every JavaScript runtime; seeded and stepped here
+ * with its arithmetic, checked against it); `normal` and `gamma`
  * turn that stream into standard normal and gamma variates. No sampler keeps hidden state (no cached
  * spare variate), so a draw depends only on the uniforms it consumes and a stream stays easy to reason
  * about when code paths change.
  */
-import seedrandom from "seedrandom";
 
 export interface Rng {
   /** Uniform on [0, 1). */
@@ -13,21 +13,38 @@ export interface Rng {
 }
 
 /**
- * Alea (J. Baagøe) with its four state words in a Float64Array: seedrandom seeds it (its `state()` gives
- * c, s0, s1, s2) and this class steps it with seedrandom's very arithmetic, so the stream is the same bit for
- * bit (tests/unit/random.test.ts compares them). Why not call seedrandom's function: its state lives in
- * object fields and every generator is a fresh closure, so each uniform pays boxed number stores and a call
- * V8 cannot inline; here one class and unboxed typed-array slots keep the hot loops (weather, samples) tight.
+ * Alea (J. Baagøe) with its four state words in a Float64Array, seeded and stepped with seedrandom's very
+ * arithmetic, so the stream is the same bit for bit (tests/unit/random.test.ts compares them for any seed).
+ * Why not call seedrandom's function: every generator it makes is a few fresh closures and objects (its Mash,
+ * the generator, a state copy) — about a microsecond each, and an iteration makes three — and its state lives
+ * in object fields, so each uniform pays boxed number stores and a call V8 cannot inline; here one class and
+ * unboxed typed-array slots keep the hot loops (weather, samples) tight.
  */
 export class AleaRng implements Rng {
   /** s0, s1, s2, c: hot loops may step the generator on locals and store the state back (./weather-draw). */
   readonly st = new Float64Array(4);
   constructor(seed: string) {
-    const s = seedrandom.alea(seed, { state: true }).state() as { c: number; s0: number; s1: number; s2: number };
-    this.st[0] = s.s0;
-    this.st[1] = s.s1;
-    this.st[2] = s.s2;
-    this.st[3] = s.c;
+    // seedrandom's Alea(seed): Mash over " " three times gives s0, s1, s2; each then loses Mash(seed), mod 1.
+    let n = 0xefc8249d;
+    n = mash(n, " ");
+    let s0 = mashFraction(n);
+    n = mash(n, " ");
+    let s1 = mashFraction(n);
+    n = mash(n, " ");
+    let s2 = mashFraction(n);
+    n = mash(n, seed);
+    s0 -= mashFraction(n);
+    if (s0 < 0) s0 += 1;
+    n = mash(n, seed);
+    s1 -= mashFraction(n);
+    if (s1 < 0) s1 += 1;
+    n = mash(n, seed);
+    s2 -= mashFraction(n);
+    if (s2 < 0) s2 += 1;
+    this.st[0] = s0;
+    this.st[1] = s1;
+    this.st[2] = s2;
+    this.st[3] = 1;
   }
   next(): number {
     const st = this.st;
@@ -38,6 +55,26 @@ export class AleaRng implements Rng {
     st[3] = c;
     return (st[2] = t - c);
   }
+}
+
+/** Baagøe's Mash, as seedrandom writes it: the hash state `n` after feeding it `data`'s UTF-16 code units. */
+function mash(n: number, data: string): number {
+  for (let i = 0; i < data.length; i++) {
+    n += data.charCodeAt(i);
+    let h = 0.02519603282416938 * n;
+    n = h >>> 0;
+    h -= n;
+    h *= n;
+    n = h >>> 0;
+    h -= n;
+    n += h * 0x100000000; // 2^32
+  }
+  return n;
+}
+
+/** What Mash returns for a state: its low 32 bits as a fraction of 2^32. */
+function mashFraction(n: number): number {
+  return (n >>> 0) * 2.3283064365386963e-10; // 2^-32
 }
 
 export function createRng(seed: string): AleaRng {
