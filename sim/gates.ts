@@ -255,8 +255,21 @@ export class GateCache {
     let flags = 0;
     if (lo >= p.minTempF && hi <= p.maxTempF) flags |= TEMP_ALL_PASS;
     if (w * WIND_FACTOR_MAX <= p.maxWindMph) flags |= WIND_ALL_PASS;
-    if (p.maxEvaporation === Infinity) flags |= EVAP_ALL_PASS;
+    if (p.maxEvaporation === Infinity || this.evaporationPassesAllDay(p, d, hi, w)) flags |= EVAP_ALL_PASS;
     return flags;
+  }
+
+  /**
+   * Every slot of day d passes the evaporation gate. Uno's rate rises with the air temperature (concrete = air
+   * + δ, δ ≥ 0, at a fixed humidity), falls with the humidity — itself falling as the air warms, the dew point
+   * fixed for the day — and rises with the wind; so the day's warmest air, its humidity there and the strongest
+   * wind bound every slot. One exponential a day instead of one per slot; the margin keeps rounding (ulps,
+   * against a 1e-9 relative margin) from passing a slot the exact check would fail, so no result changes.
+   */
+  private evaporationPassesAllDay(p: GateProfile, d: number, hi: number, w: number): boolean {
+    if (p.concreteDeltaF < 0) return false; // cooler concrete: the rate may fall as the air warms
+    const bound = evaporationLbFt2h(hi + p.concreteDeltaF, hi, rhFromVapor(this.vaporOf(d), hi), w * WIND_FACTOR_MAX);
+    return bound <= p.maxEvaporation * (1 - 1e-9);
   }
 
   private evaluate(p: GateProfile, k: number, d: number, flags: number): boolean {
@@ -272,8 +285,7 @@ export class GateCache {
     const wind = k >= this.ovFrom && k < this.ovTo ? this.ov!.windMph[k - this.ovFrom] : s.windMph[d] * WIND_FACTOR[k - 24 * d]; // forecast override
     if (!(flags & WIND_ALL_PASS) && wind > p.maxWindMph) return false;
     if (!(flags & EVAP_ALL_PASS)) {
-      // Exact, hour by hour: bounds over the day (extreme temperatures, humidities and winds) would cost two
-      // more exponentials a day to spare about one, as few slots of a day get this far (measured on the demos).
+      // Exact, hour by hour, on days the whole-day bound (`evaporationPassesAllDay`) did not clear.
       const air = this.tempAt(k);
       const rh = k >= this.ovFrom && k < this.ovTo ? this.ov!.rhPct[k - this.ovFrom] : rhFromVapor(this.vaporOf(d), air); // forecast override
       if (evaporationLbFt2h(air + p.concreteDeltaF, air, rh, wind) > p.maxEvaporation) return false;
