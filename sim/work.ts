@@ -302,10 +302,14 @@ export class WorkContext implements WorkSink {
       const sl = shifts.length;
       const st = this.segStarts[l];
       const en = this.segEnds[l];
+      // The lane's segments are chronological, so the first shift ending after a − 24 only moves forward:
+      // found once by look-up, then advanced (the look-back of a day catches a shift begun the day before).
+      let i0 = firstIntervalAfter(shifts, st[0] - 24);
       for (let j = 0; j < n; j++) {
         const a = st[j];
         const b = en[j];
-        for (let i = firstIntervalAfter(shifts, a - 24); i < sl && ss[i] < b; i++) {
+        while (i0 < sl && se[i0] <= a - 24) i0++;
+        for (let i = i0; i < sl && ss[i] < b; i++) {
           if (se[i] <= a) continue;
           const d = sDay[i];
           if (d < 0 || stamp[d] === gen) continue;
