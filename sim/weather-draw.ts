@@ -34,11 +34,13 @@ export interface StochasticConstants {
   windC: number;
 }
 
+/** A series' day columns, index = day since its start (read through the series: they are replaced when they grow). */
 export interface DayColumns {
   tmaxF: Float64Array;
   tminF: Float64Array;
   windMph: Float64Array;
   rhPct: Float64Array;
+  /** 1 on a wet day. */
   wet: Uint8Array;
   rainStartHour: Uint8Array;
   rainHours: Uint8Array;

@@ -35,18 +35,11 @@ import { civilFromDays, daysInMonth, parseIsoDate } from "./dates";
 import { createRng, normal, type AleaRng, type Rng } from "./random";
 import { drawStochasticDays, type DayColumns, type StochasticConstants } from "./weather-draw";
 
-export interface WeatherSeries {
+/** The day columns (./weather-draw `DayColumns`: tmaxF, tminF, windMph, rhPct, wet = 1 on a wet day, rain start and hours). */
+export interface WeatherSeries extends DayColumns {
   readonly startDay: number;
   /** Days generated so far. */
   length: number;
-  tmaxF: Float64Array;
-  tminF: Float64Array;
-  windMph: Float64Array;
-  rhPct: Float64Array;
-  /** 1 on a wet day. */
-  wet: Uint8Array;
-  rainStartHour: Uint8Array;
-  rainHours: Uint8Array;
   ensure(days: number): void;
 }
 
