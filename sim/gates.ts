@@ -54,6 +54,8 @@ const TEMP_ALL_PASS = 1;
 const DAY_FAILS = 2;
 const WIND_ALL_PASS = 4;
 const EVAP_ALL_PASS = 8;
+const ALL_PASS = TEMP_ALL_PASS | WIND_ALL_PASS | EVAP_ALL_PASS;
+const ALL_SLOTS = 0xffffff; // bits 0–23
 
 export class GateCache {
   private series: WeatherSeries | null = null;
@@ -232,16 +234,30 @@ export class GateCache {
     const d = (k / 24) | 0;
     const bit = 1 << (k - 24 * d);
     const at = profile * this.stride + d;
-    if (this.stamp[at] !== this.gen) {
-      this.stamp[at] = this.gen;
-      this.computed[at] = 0;
-      this.pass[at] = 0;
-      this.dayFlags[at] = this.dayBounds(this.profiles[profile], d);
-    } else if (this.computed[at] & bit) return (this.pass[at] & bit) !== 0;
+    if (this.stamp[at] !== this.gen) this.firstOfDay(profile, d, at);
+    if (this.computed[at] & bit) return (this.pass[at] & bit) !== 0;
     const ok = this.evaluate(this.profiles[profile], k, d, this.dayFlags[at]);
     this.computed[at] |= bit;
     if (ok) this.pass[at] |= bit;
     return ok;
+  }
+
+  /**
+   * The first slot of day d asked for `profile`: its day bounds, and when they pass temperature, wind and
+   * evaporation for the whole day (and no slot must rise), every slot's answer at once — its rain alone decides.
+   */
+  private firstOfDay(profile: number, d: number, at: number): void {
+    const p = this.profiles[profile];
+    const flags = this.dayBounds(p, d);
+    this.stamp[at] = this.gen;
+    this.dayFlags[at] = flags;
+    if ((flags & ALL_PASS) === ALL_PASS && !p.risingEverySlot) {
+      this.computed[at] = ALL_SLOTS;
+      this.pass[at] = p.noRain ? ALL_SLOTS & ~this.rainMask(d) : ALL_SLOTS;
+    } else {
+      this.computed[at] = 0;
+      this.pass[at] = 0;
+    }
   }
 
   /** What holds for every slot of day d: whole-day pass or fail of temperature and wind, evaporation pass. */
