@@ -13,7 +13,7 @@
  * Buffers are reused: valid until the next `simulate` of the same compiled scenario.
  */
 import { doubledF64, doubledI32 } from "./typed-arrays";
-import { addHoursByDay, firstIntervalAfter, type CompiledCalendar } from "./calendar";
+import { addHoursByDay, type CompiledCalendar } from "./calendar";
 import type { CompiledAsBuilt } from "./asbuilt";
 import type { CompiledOp } from "./engine";
 import type { Scenario } from "./schema";
@@ -105,26 +105,12 @@ export class ClosureTimeline {
     p.counts.fill(0);
     this.swept = -1;
     const horizon = this.cal.horizonHours;
-    // Short-term closures: the crews' union of work and mobilization, grouped by window interval.
-    const u = w.closureSegments();
+    // Short-term closures: one period per window interval a crew under the closure used.
+    const use = w.closureUse();
     for (let c = 0; c < this.nShort; c++) {
-      const win = this.cal.closureWindows[c];
       const cl = this.closures[c];
-      const st = u.starts[c];
-      const en = u.ends[c];
-      let group = -1;
-      let a = 0;
-      let b = 0;
-      for (let k = 0; k < u.counts[c]; k++) {
-        const g = firstIntervalAfter(win, st[k]);
-        if (g !== group) {
-          if (group >= 0) this.push(c, a - cl.setupHours, b + cl.takedownHours);
-          group = g;
-          a = st[k];
-        }
-        b = en[k];
-      }
-      if (group >= 0) this.push(c, a - cl.setupHours, b + cl.takedownHours);
+      const u = use[c];
+      for (let g = u.lo; g <= u.hi; g++) if (w.usedWindow(c, g)) this.push(c, u.first[g] - cl.setupHours, u.last[g] + cl.takedownHours);
     }
     // Standing closures, one per stage with lanes behind barrier.
     let winterStanding = false;

@@ -2,7 +2,8 @@
  * Per-iteration bookkeeping for the engine (./engine): finish and start times per stage operation and packet,
  * the crews' event queue, work and mobilization segments per crew, weather-lost shift stamps, season-1 end,
  * pauses for the trace. For the closure timeline (./timeline): the union of crew time per short-term closure as
- * segments (`closureSegments`); for the cost model (./cost): the days on which some crew's shift held work or
+ * the first and last crew instant in each window interval a crew under it used (`closureUse`); for the cost
+ * model (./cost): the days on which some crew's shift held work or
  * mobilization (`shiftDaysWorked`); both computed only when asked, after the schedule. One instance per
  * compiled scenario, reset by `simulate` for each iteration.
  */
@@ -14,7 +15,20 @@ import { pour, produce, warmCureFinish, type WorkSink } from "./production";
 import type { WeatherSeries } from "./weather";
 import type { ActiveOverride } from "./weather-override-reads"; // forecast override
 import { EventQueue } from "./queue";
-import type { ClosurePeriods as ClosureSegments } from "./timeline";
+
+/**
+ * Per short-term closure, the window intervals crews under it used in the iteration: interval g (an index into
+ * the closure's window intervals) was used when stamp[g] is `gen`, from first[g] to last[g]; lo … hi bound the
+ * used indices (hi < lo: none). A closure's periods need nothing finer (./timeline).
+ */
+export interface ClosureUse {
+  stamp: Int32Array;
+  first: Float64Array;
+  last: Float64Array;
+  gen: number;
+  lo: number;
+  hi: number;
+}
 
 /** Per-iteration bookkeeping and scratch: closure segments, weather-lost shift stamps, season-1 end. */
 export class WorkContext implements WorkSink {
@@ -31,19 +45,15 @@ export class WorkContext implements WorkSink {
   lastStart = 0;
   weatherLost = 0;
   season1End = NaN;
-  // Work and mobilization segments per lane (one lane per crew of an operation): chronological per lane,
-  // so the union per closure is a k-way merge, not a sort.
+  // Work and mobilization segments per lane (one lane per crew of an operation), chronological per lane.
   private segStarts: Float64Array[];
   private segEnds: Float64Array[];
   private readonly segCount: Int32Array;
   private readonly laneBase: Int32Array;
   private readonly closureLanes: Int32Array[];
-  private readonly lanePos: Int32Array;
-  private readonly head: Float64Array;
-  private unionGen = -1;
+  private readonly use: ClosureUse[];
   /** Per crew lane: the scenario operation index (its calendar). */
   private readonly laneOp: Int32Array;
-  private readonly unionSeg: ClosureSegments;
   private readonly dayStamp: Int32Array;
   // shiftDay[op][i]: the day shift i of the operation starts on, or -1 outside the horizon (fixed per scenario).
   private readonly shiftDay: Int32Array[];
@@ -84,11 +94,7 @@ export class WorkContext implements WorkSink {
     this.closureLanes = byClosure.map((l) => Int32Array.from(l));
     this.laneOp = new Int32Array(lanes);
     for (const o of ops) for (let k = 0; k < o.crews; k++) this.laneOp[this.laneBase[o.index] + k] = o.op;
-    this.unionSeg = {
-      starts: Array.from({ length: nClosures }, () => new Float64Array(64)),
-      ends: Array.from({ length: nClosures }, () => new Float64Array(64)),
-      counts: new Int32Array(nClosures),
-    };
+    this.use = cal.closureWindows.map((win) => ({ stamp: new Int32Array(win.length), first: new Float64Array(win.length), last: new Float64Array(win.length), gen: 0, lo: 0, hi: -1 }));
     this.dayStamp = new Int32Array(cal.days + 2);
     this.shiftDay = cal.ops.map((oc) => {
       if (!oc) return new Int32Array(0);
@@ -100,8 +106,6 @@ export class WorkContext implements WorkSink {
       }
       return out;
     });
-    this.lanePos = new Int32Array(lanes);
-    this.head = new Float64Array(lanes);
     this.segStarts = Array.from({ length: lanes }, () => new Float64Array(64));
     this.segEnds = Array.from({ length: lanes }, () => new Float64Array(64));
     this.segCount = new Int32Array(lanes);
@@ -218,68 +222,51 @@ export class WorkContext implements WorkSink {
   }
 
   /**
-   * Union of work and mobilization time per closure as chronological disjoint segments (a k-way merge of the
-   * crews' lanes), computed once per iteration. The buffers are reused: valid until the next `simulate`.
+   * Per short-term closure, the window intervals its crews used this iteration (see `ClosureUse`), computed once
+   * per iteration from the crews' segments. A segment lies in one window interval (open time is inside one),
+   * and each lane's segments are chronological, so a lane's window index only moves forward. The buffers are
+   * reused: valid until the next `simulate`.
    */
-  closureSegments(): ClosureSegments {
-    const u = this.unionSeg;
-    if (this.unionGen === this.gen) return u;
-    this.unionGen = this.gen;
-    // head[j]: start of lane j's next segment (Infinity when the lane is spent), so the merge scans one array.
-    const head = this.head;
-    const pos = this.lanePos;
+  closureUse(): ClosureUse[] {
     for (let c = 0; c < this.nClosures; c++) {
+      const u = this.use[c];
+      if (u.gen === this.gen) continue;
+      u.gen = this.gen;
+      u.lo = 0;
+      u.hi = -1;
+      const win = this.cal.closureWindows[c];
+      const wEnds = win.ends;
       const lanes = this.closureLanes[c];
-      const nl = lanes.length;
-      for (let j = 0; j < nl; j++) {
+      for (let j = 0; j < lanes.length; j++) {
         const l = lanes[j];
-        pos[j] = 0;
-        head[j] = this.segCount[l] > 0 ? this.segStarts[l][0] : Infinity;
-      }
-      let n = 0;
-      let curS = 0;
-      let curE = -Infinity;
-      for (;;) {
-        let pick = -1;
-        let best = Infinity;
-        for (let j = 0; j < nl; j++) {
-          if (head[j] < best) {
-            best = head[j];
-            pick = j;
+        const n = this.segCount[l];
+        if (n === 0) continue;
+        const st = this.segStarts[l];
+        const en = this.segEnds[l];
+        let g = firstIntervalAfter(win, st[0]);
+        for (let k = 0; k < n; k++) {
+          const a = st[k];
+          while (g < win.length && wEnds[g] <= a) g++;
+          if (u.stamp[g] !== this.gen) {
+            u.stamp[g] = this.gen;
+            u.first[g] = a;
+            u.last[g] = en[k];
+            if (u.hi < u.lo) u.lo = u.hi = g;
+            else if (g < u.lo) u.lo = g;
+            else if (g > u.hi) u.hi = g;
+          } else {
+            if (a < u.first[g]) u.first[g] = a;
+            if (en[k] > u.last[g]) u.last[g] = en[k];
           }
         }
-        if (pick < 0) break;
-        const l = lanes[pick];
-        const p = pos[pick]++;
-        const e = this.segEnds[l][p];
-        head[pick] = p + 1 < this.segCount[l] ? this.segStarts[l][p + 1] : Infinity;
-        if (best <= curE) {
-          if (e > curE) curE = e;
-        } else {
-          if (curE > curS) n = this.pushUnion(c, n, curS, curE);
-          curS = best;
-          curE = e;
-        }
       }
-      if (curE > curS) n = this.pushUnion(c, n, curS, curE);
-      u.counts[c] = n;
     }
-    return u;
+    return this.use;
   }
 
-  private pushUnion(c: number, n: number, a: number, b: number): number {
-    const u = this.unionSeg;
-    if (n === u.starts[c].length) {
-      const s = new Float64Array(2 * n);
-      const e = new Float64Array(2 * n);
-      s.set(u.starts[c]);
-      e.set(u.ends[c]);
-      u.starts[c] = s;
-      u.ends[c] = e;
-    }
-    u.starts[c][n] = a;
-    u.ends[c][n] = b;
-    return n + 1;
+  /** Whether window interval g of closure c was used this iteration (after `closureUse`). */
+  usedWindow(c: number, g: number): boolean {
+    return this.use[c].stamp[g] === this.gen;
   }
 
   /**
