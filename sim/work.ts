@@ -1,11 +1,10 @@
 /**
  * Per-iteration bookkeeping for the engine (./engine): finish and start times per stage operation and packet,
  * the crews' event queue, work and mobilization segments per crew, weather-lost shift stamps, season-1 end,
- * pauses for the trace. For the closure timeline (./timeline): the union of crew time per short-term closure as
- * the first and last crew instant in each window interval a crew under it used (`closureUse`); for the cost
- * model (./cost): the days on which some crew's shift held work or
- * mobilization (`shiftDaysWorked`); both computed only when asked, after the schedule. One instance per
- * compiled scenario, reset by `simulate` for each iteration.
+ * pauses for the trace. For the closure timeline (./timeline): per short-term closure, the first and last crew
+ * instant in each window interval a crew under it used (`closureUse`); for the cost model (./cost): the days on
+ * which some crew's shift held work or mobilization (`shiftDaysWorked`); both computed only when asked, after
+ * the schedule. One instance per compiled scenario, reset by `simulate` for each iteration.
  */
 import { doubledF64 } from "./typed-arrays";
 import { firstIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
@@ -30,7 +29,7 @@ export interface ClosureUse {
   hi: number;
 }
 
-/** Per-iteration bookkeeping and scratch: closure segments, weather-lost shift stamps, season-1 end. */
+/** Per-iteration bookkeeping and scratch: crew segments, closure use, weather-lost shift stamps, season-1 end. */
 export class WorkContext implements WorkSink {
   readonly finish: Float64Array;
   readonly prefMax: Float64Array;
