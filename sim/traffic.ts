@@ -123,6 +123,9 @@ export interface CompiledDirection {
    * the walk jumps over hours that add no queue. Built when a capacity is first met.
    */
   nextOver: Map<number, Int32Array>;
+  /** The capacity last looked up in `nextOver` and its table: consecutive pieces mostly share one. */
+  lastMu: number;
+  lastOver: Int32Array | null;
 }
 
 export interface TrafficModel {
@@ -216,6 +219,8 @@ export function compileTraffic(s: Scenario, startDay: number, days: number): Tra
       select,
       capBySet: new Map(),
       nextOver: new Map(),
+      lastMu: NaN,
+      lastOver: null,
     };
   });
   return { days, dayKind, directions, jamDensity: t.jamDensityPcPerMiPerLane, closures, traffic: t, scratch: { starts: new Float64Array(256), ends: new Float64Array(256), caps: new Float64Array(256), n: 0 }, walkState: { q: 0, total: 0, episodeDay: -1, episodePeak: 0 } };
@@ -310,14 +315,9 @@ function record(detail: QueueDetail, w: Walk, day: number, q0: number, t: number
   }
 }
 
-/** The `nextOver` table of a piece's capacity: that of a narrowing closure with exactly this capacity. */
-/** The `nextOver` table of a capacity, built the first time it is met. */
-let lastDir: CompiledDirection | null = null;
-let lastMu = NaN;
-let lastTable: Int32Array | null = null;
-
+/** The `nextOver` table of a capacity, built the first time it is met; the direction remembers the last one. */
 function overTable(dir: CompiledDirection, mu: number): Int32Array {
-  return dir === lastDir && mu === lastMu ? lastTable! : overTableMiss(dir, mu);
+  return mu === dir.lastMu ? dir.lastOver! : overTableMiss(dir, mu);
 }
 
 function overTableMiss(dir: CompiledDirection, mu: number): Int32Array {
@@ -326,9 +326,8 @@ function overTableMiss(dir: CompiledDirection, mu: number): Int32Array {
     t = nextHourOver(dir.hourDemand, mu);
     dir.nextOver.set(mu, t);
   }
-  lastDir = dir;
-  lastMu = mu;
-  lastTable = t;
+  dir.lastMu = mu;
+  dir.lastOver = t;
   return t;
 }
 

@@ -18,7 +18,7 @@ function model(demand: number[], caps: number[], open: number, days = 4, rest = 
   hourDemand.set(demand);
   const dir: CompiledDirection = {
     id: "d", name: "d", demand: new Float64Array(120), hourDemand, heavyShare: 0, pcPerVeh: 1, storageLanes: 1,
-    openCapacity: open, laneMask: 1, fHv: 1, select: 1, capBySet: new Map(), nextOver: new Map(),
+    openCapacity: open, laneMask: 1, fHv: 1, select: 1, capBySet: new Map(), nextOver: new Map(), lastMu: NaN, lastOver: null,
   };
   const scratch: CapacityPieces = { starts: new Float64Array(4), ends: new Float64Array(4), caps: new Float64Array(4), n: 0 };
   const m = { days, dayKind: new Uint8Array(days + 1), directions: [dir], jamDensity: 190, closures: [], traffic: {}, scratch, walkState: { q: 0, total: 0, episodeDay: -1, episodePeak: 0 } } as unknown as TrafficModel;
