@@ -132,7 +132,7 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
           </div>
           <p className="mt-2 text-sm text-muted" aria-live="polite">
             {progress
-              ? `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSeconds(progress.secondsLeft)} · ${pool.state.phase === "running" ? pool.state.workers : 1} workers`
+              ? `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSeconds(progress.secondsLeft)} · ${workerCount(pool.state.phase === "running" ? pool.state.workers : 1)}`
               : pool.state.phase === "done"
                 ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version. Not yet verified: the server is reproducing it." : ""}`
                 : ""}
@@ -165,4 +165,9 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
       )}
     </section>
   );
+}
+
+/** How many engine workers run this forecast, in words a scheduler reads: "on 1 browser thread", "on 2 browser threads". */
+function workerCount(n: number): string {
+  return `on ${n} browser ${n === 1 ? "thread" : "threads"}`;
 }
