@@ -245,7 +245,8 @@ export class WorkContext implements WorkSink {
         let g = firstIntervalAfter(win, st[0]);
         for (let k = 0; k < n; k++) {
           const a = st[k];
-          while (g < win.length && wEnds[g] <= a) g++;
+          // Mostly this window or the next; past a gap (a winter, nights the crew did not work) a look-up jumps.
+          if (g < win.length && wEnds[g] <= a) g = g + 1 < win.length && wEnds[g + 1] > a ? g + 1 : firstIntervalAfter(win, a);
           if (u.stamp[g] !== this.gen) {
             u.stamp[g] = this.gen;
             u.first[g] = a;
@@ -288,13 +289,13 @@ export class WorkContext implements WorkSink {
       const sl = shifts.length;
       const st = this.segStarts[l];
       const en = this.segEnds[l];
-      // The lane's segments are chronological, so the first shift ending after a − 24 only moves forward:
-      // found once by look-up, then advanced (the look-back of a day catches a shift begun the day before).
+      // The lane's segments are chronological, so the first shift ending after a − 24 only moves forward: the
+      // next one, or past a gap a look-up (the look-back of a day catches a shift begun the day before).
       let i0 = firstIntervalAfter(shifts, st[0] - 24);
       for (let j = 0; j < n; j++) {
         const a = st[j];
         const b = en[j];
-        while (i0 < sl && se[i0] <= a - 24) i0++;
+        if (i0 < sl && se[i0] <= a - 24) i0 = i0 + 1 < sl && se[i0 + 1] > a - 24 ? i0 + 1 : firstIntervalAfter(shifts, a - 24);
         for (let i = i0; i < sl && ss[i] < b; i++) {
           if (se[i] <= a) continue;
           const d = sDay[i];
