@@ -5,6 +5,7 @@ import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
 import type { ScenarioInput } from "@sim/schema";
 import { formatStation } from "@/lib/format";
 import { CheckboxField, CheckboxGroup, NumberField, SelectField, TextField, n } from "./fields";
+import { EditableTable } from "./editable-table";
 import { StationField } from "./station-field";
 import { freshId } from "./plan-logic";
 
@@ -44,142 +45,78 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
         </div>
       </section>
 
-      <section className="card overflow-x-auto" aria-labelledby="shifts-heading">
-        <div className="flex items-center justify-between gap-3">
-          <h2 id="shifts-heading">Shifts</h2>
-          {!readOnly && (
-            <button
-              type="button"
-              className="btn-secondary"
-              onClick={() => shifts.append({ id: freshId("shift", (getValues("calendar.shifts") ?? []).map((s) => s.id)), name: "New shift", startHour: 7, lengthHours: 10 })}
-            >
-              Add shift
-            </button>
-          )}
-        </div>
-        <p className="mt-1 text-sm text-muted">A shift belongs to the day it starts; a night shift may run past midnight.</p>
-        <table className="mt-3 w-full min-w-[640px] border-collapse">
-          <thead>
-            <tr>
-              {["Id", "Name", "Start hour (0–24)", "Length (h)", ""].map((h, i) => (
-                <th key={i} scope="col" className="table-head">
-                  {h || <span className="sr-only">Actions</span>}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {shifts.fields.map((f, i) => (
-              <tr key={f.key} className="align-top">
-                <td className="table-cell"><TextField name={`calendar.shifts.${i}.id`} label={`Shift ${i + 1} id`} hideLabel /></td>
-                <td className="table-cell"><TextField name={`calendar.shifts.${i}.name`} label={`Shift ${i + 1} name`} hideLabel /></td>
-                <td className="table-cell"><NumberField name={`calendar.shifts.${i}.startHour`} label={`Shift ${i + 1} start hour`} hideLabel min={0} max={24} /></td>
-                <td className="table-cell"><NumberField name={`calendar.shifts.${i}.lengthHours`} label={`Shift ${i + 1} length in hours`} hideLabel min={0} max={24} /></td>
-                <td className="table-cell">
-                  {!readOnly && (
-                    <button type="button" className="btn-danger" onClick={() => shifts.remove(i)} aria-label={`Remove shift ${i + 1}`}>
-                      Remove
-                    </button>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </section>
+      <EditableTable
+        id="shifts-heading"
+        title="Shifts"
+        note="A shift belongs to the day it starts; a night shift may run past midnight."
+        heads={["Id", "Name", "Start hour (0–24)", "Length (h)"]}
+        minWidthClass="min-w-[640px]"
+        readOnly={readOnly}
+        addLabel="Add shift"
+        onAdd={() => shifts.append({ id: freshId("shift", (getValues("calendar.shifts") ?? []).map((s) => s.id)), name: "New shift", startHour: 7, lengthHours: 10 })}
+        rows={shifts.fields.map((f, i) => ({
+          key: f.key,
+          removeLabel: `Remove shift ${i + 1}`,
+          onRemove: () => shifts.remove(i),
+          cells: [
+            <TextField key="id" name={`calendar.shifts.${i}.id`} label={`Shift ${i + 1} id`} hideLabel />,
+            <TextField key="name" name={`calendar.shifts.${i}.name`} label={`Shift ${i + 1} name`} hideLabel />,
+            <NumberField key="start" name={`calendar.shifts.${i}.startHour`} label={`Shift ${i + 1} start hour`} hideLabel min={0} max={24} />,
+            <NumberField key="length" name={`calendar.shifts.${i}.lengthHours`} label={`Shift ${i + 1} length in hours`} hideLabel min={0} max={24} />,
+          ],
+        }))}
+      />
 
-      <section className="card overflow-x-auto" aria-labelledby="closures-heading">
-        <div className="flex items-center justify-between gap-3">
-          <h2 id="closures-heading">Short-term closures</h2>
-          {!readOnly && (
-            <button
-              type="button"
-              className="btn-secondary"
-              onClick={() => closures.append({ id: freshId("closure", (getValues("calendar.closures") ?? []).map((c) => c.id)), name: "New closure", lanesClosed: lanes.slice(0, 1), setupHours: 0, takedownHours: 0 })}
-            >
-              Add closure
-            </button>
-          )}
-        </div>
-        <p className="mt-1 text-sm text-muted">
-          Closed only while a crew works under them, on top of the stage&apos;s lanes behind barrier (see Stages). Work starts only after set-up; lanes count as
-          closed while switching (set-up and take-down).
-        </p>
-        <table className="mt-3 w-full min-w-[760px] border-collapse">
-          <thead>
-            <tr>
-              {["Id", "Name", "Lanes closed", "Set-up (h)", "Take-down (h)", ""].map((h, i) => (
-                <th key={i} scope="col" className="table-head">
-                  {h || <span className="sr-only">Actions</span>}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {closures.fields.map((f, i) => (
-              <tr key={f.key} className="align-top">
-                <td className="table-cell"><TextField name={`calendar.closures.${i}.id`} label={`Closure ${i + 1} id`} hideLabel /></td>
-                <td className="table-cell"><TextField name={`calendar.closures.${i}.name`} label={`Closure ${i + 1} name`} hideLabel /></td>
-                <td className="table-cell"><CheckboxGroup name={`calendar.closures.${i}.lanesClosed`} legend={`Closure ${i + 1} lanes closed`} hideLegend options={laneOptions} /></td>
-                <td className="table-cell"><NumberField name={`calendar.closures.${i}.setupHours`} label={`Closure ${i + 1} set-up hours`} hideLabel min={0} max={12} /></td>
-                <td className="table-cell"><NumberField name={`calendar.closures.${i}.takedownHours`} label={`Closure ${i + 1} take-down hours`} hideLabel min={0} max={12} /></td>
-                <td className="table-cell">
-                  {!readOnly && (
-                    <button type="button" className="btn-danger" onClick={() => closures.remove(i)} aria-label={`Remove closure ${i + 1}`}>
-                      Remove
-                    </button>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </section>
+      <EditableTable
+        id="closures-heading"
+        title="Short-term closures"
+        note={
+          <>
+            Closed only while a crew works under them, on top of the stage&apos;s lanes behind barrier (see Stages). Work starts only after set-up; lanes count as
+            closed while switching (set-up and take-down).
+          </>
+        }
+        heads={["Id", "Name", "Lanes closed", "Set-up (h)", "Take-down (h)"]}
+        minWidthClass="min-w-[760px]"
+        readOnly={readOnly}
+        addLabel="Add closure"
+        onAdd={() => closures.append({ id: freshId("closure", (getValues("calendar.closures") ?? []).map((c) => c.id)), name: "New closure", lanesClosed: lanes.slice(0, 1), setupHours: 0, takedownHours: 0 })}
+        rows={closures.fields.map((f, i) => ({
+          key: f.key,
+          removeLabel: `Remove closure ${i + 1}`,
+          onRemove: () => closures.remove(i),
+          cells: [
+            <TextField key="id" name={`calendar.closures.${i}.id`} label={`Closure ${i + 1} id`} hideLabel />,
+            <TextField key="name" name={`calendar.closures.${i}.name`} label={`Closure ${i + 1} name`} hideLabel />,
+            <CheckboxGroup key="lanes" name={`calendar.closures.${i}.lanesClosed`} legend={`Closure ${i + 1} lanes closed`} hideLegend options={laneOptions} />,
+            <NumberField key="setup" name={`calendar.closures.${i}.setupHours`} label={`Closure ${i + 1} set-up hours`} hideLabel min={0} max={12} />,
+            <NumberField key="takedown" name={`calendar.closures.${i}.takedownHours`} label={`Closure ${i + 1} take-down hours`} hideLabel min={0} max={12} />,
+          ],
+        }))}
+      />
 
-      <section className="card overflow-x-auto" aria-labelledby="windows-heading">
-        <div className="flex items-center justify-between gap-3">
-          <h2 id="windows-heading">Closure windows</h2>
-          {!readOnly && (
-            <button
-              type="button"
-              className="btn-secondary"
-              disabled={closureList.length === 0}
-              onClick={() => windows.append({ closure: closureList[0]?.id ?? "", dayTypes: ["weekday"], startHour: 20, endHour: 6 })}
-            >
-              Add window
-            </button>
-          )}
-        </div>
-        <p className="mt-1 text-sm text-muted">When each closure may be set up. An end hour at or before the start hour runs overnight into the next day.</p>
-        <table className="mt-3 w-full min-w-[760px] border-collapse">
-          <thead>
-            <tr>
-              {["Closure", "Day types", "Start hour", "End hour", ""].map((h, i) => (
-                <th key={i} scope="col" className="table-head">
-                  {h || <span className="sr-only">Actions</span>}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {windows.fields.map((f, i) => (
-              <tr key={f.key} className="align-top">
-                <td className="table-cell"><SelectField name={`calendar.closureWindows.${i}.closure`} label={`Window ${i + 1} closure`} hideLabel options={closureOptions} /></td>
-                <td className="table-cell"><CheckboxGroup name={`calendar.closureWindows.${i}.dayTypes`} legend={`Window ${i + 1} day types`} hideLegend options={DAY_TYPES} /></td>
-                <td className="table-cell"><NumberField name={`calendar.closureWindows.${i}.startHour`} label={`Window ${i + 1} start hour`} hideLabel min={0} max={24} /></td>
-                <td className="table-cell"><WindowEnd i={i} /></td>
-                <td className="table-cell">
-                  {!readOnly && (
-                    <button type="button" className="btn-danger" onClick={() => windows.remove(i)} aria-label={`Remove window ${i + 1}`}>
-                      Remove
-                    </button>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </section>
+      <EditableTable
+        id="windows-heading"
+        title="Closure windows"
+        note="When each closure may be set up. An end hour at or before the start hour runs overnight into the next day."
+        heads={["Closure", "Day types", "Start hour", "End hour"]}
+        minWidthClass="min-w-[760px]"
+        readOnly={readOnly}
+        addLabel="Add window"
+        addDisabled={closureList.length === 0}
+        onAdd={() => windows.append({ closure: closureList[0]?.id ?? "", dayTypes: ["weekday"], startHour: 20, endHour: 6 })}
+        rows={windows.fields.map((f, i) => ({
+          key: f.key,
+          removeLabel: `Remove window ${i + 1}`,
+          onRemove: () => windows.remove(i),
+          cells: [
+            <SelectField key="closure" name={`calendar.closureWindows.${i}.closure`} label={`Window ${i + 1} closure`} hideLabel options={closureOptions} />,
+            <CheckboxGroup key="days" name={`calendar.closureWindows.${i}.dayTypes`} legend={`Window ${i + 1} day types`} hideLegend options={DAY_TYPES} />,
+            <NumberField key="start" name={`calendar.closureWindows.${i}.startHour`} label={`Window ${i + 1} start hour`} hideLabel min={0} max={24} />,
+            <WindowEnd key="end" i={i} />,
+          ],
+        }))}
+      />
 
       <section className="card" aria-labelledby="holidays-heading">
         <h2 id="holidays-heading">Holidays</h2>
