@@ -143,7 +143,7 @@ export function demoFieldLog(plan: Scenario, today: string): ProgressEntry[] {
     groups.set(key, [...(groups.get(key) ?? []), p]);
   }
   const entries: (ProgressEntry & { order: number })[] = [];
-  for (const [key, list] of groups) {
+  for (const list of groups.values()) {
     const { op: oi, shift, day } = list[0];
     const op = plan.operations[oi];
     const sh = shifts.get(shift)!;

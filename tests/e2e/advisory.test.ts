@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { APP_URL, call, kestrelProject, signInAs } from "../helpers/app";
+import { APP_URL, call, mainDemoVariant, signInAs } from "../helpers/app";
 import { serverRunDone } from "../helpers/jobs";
 import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
@@ -17,12 +17,7 @@ let scenarioId: string;
 beforeAll(async () => {
   browser = await launch();
   const cookie = await signInAs("engineer");
-  const projectId = (await kestrelProject(cookie)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
-  const main = list.body.scenarios.find((s: { name: string }) => /two seasons$/i.test(s.name)) ?? list.body.scenarios[0];
-  const variant = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: "E2E advisory" } });
-  expect(variant.status).toBe(201);
-  scenarioId = variant.body.id;
+  scenarioId = await mainDemoVariant(cookie, "E2E advisory");
   expect((await serverRunDone(scenarioId, cookie, { seed: "e2e-advisory", iterations: 20 })).status).toBe("completed");
 }, 120_000);
 afterAll(async () => {

@@ -10,7 +10,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { getDocument } from "pdfjs-dist/legacy/build/pdf.mjs";
-import { call, kestrelProject, signInAs } from "../helpers/app";
+import { call, mainDemoVariant, signInAs } from "../helpers/app";
 import { serverRunDone } from "../helpers/jobs";
 import { launch } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
@@ -29,11 +29,7 @@ const FORMATS = [
 beforeAll(async () => {
   browser = await launch();
   const cookie = await signInAs("engineer");
-  const projectId = (await kestrelProject(cookie)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
-  const main = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons");
-  const variant = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: "E2E brief print" } });
-  scenarioId = variant.body.id;
+  scenarioId = await mainDemoVariant(cookie, "E2E brief print");
   // A small run (the server computes it): few enough iterations that the brief must warn.
   expect((await serverRunDone(scenarioId, cookie, { seed: "brief", iterations: 200 })).status).toBe("completed");
 }, 180_000);

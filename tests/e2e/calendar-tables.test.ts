@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { call, kestrelProject, signInAs } from "../helpers/app";
+import { call, mainDemoVariant, signInAs } from "../helpers/app";
 import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
@@ -16,13 +16,7 @@ let scenarioId: string;
 
 beforeAll(async () => {
   browser = await launch();
-  const cookie = await signInAs("scheduler");
-  const project = await kestrelProject(cookie);
-  const list = await call(`/api/projects/${project.id}/scenarios`, { cookie });
-  const main = list.body.scenarios.find((s: { name: string }) => /two seasons$/i.test(s.name));
-  const res = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: "E2E calendar tables" } });
-  expect(res.status).toBe(201);
-  scenarioId = res.body.id;
+  scenarioId = await mainDemoVariant(await signInAs("scheduler"), "E2E calendar tables");
 });
 afterAll(async () => {
   await browser?.close();

@@ -4,7 +4,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { Browser } from "playwright-core";
-import { call, kestrelProject, signInAs } from "../helpers/app";
+import { call, mainDemoVariant, signInAs } from "../helpers/app";
 import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
@@ -16,11 +16,7 @@ const dir = mkdtempSync(join(tmpdir(), "pourline-csv-"));
 beforeAll(async () => {
   browser = await launch();
   const cookie = await signInAs("engineer");
-  const projectId = (await kestrelProject(cookie)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
-  const main = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons");
-  const variant = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: "E2E recalibrated" } });
-  scenarioId = variant.body.id;
+  scenarioId = await mainDemoVariant(cookie, "E2E recalibrated");
   // Three years of invented daily weather in °C and mm: every April day 20 °C / 8 °C, every fourth day 5 mm.
   const rows = ["date,tmax,tmin,precip"];
   for (let i = 0; i < 3 * 365; i++) {

@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { call, kestrelProject, signInAs } from "../helpers/app";
+import { call, mainDemoVariant, signInAs } from "../helpers/app";
 import { newSearch, uniq } from "../helpers/authz-world";
 import { waitForJob } from "../helpers/jobs";
 import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
@@ -20,12 +20,7 @@ let variants: number;
 beforeAll(async () => {
   browser = await launch();
   const cookie = await signInAs("engineer");
-  const projectId = (await kestrelProject(cookie)).id;
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
-  const main = list.body.scenarios.find((s: { name: string }) => /two seasons$/i.test(s.name)) ?? list.body.scenarios[0];
-  const variant = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name: uniq("E2E search share") } });
-  expect(variant.status).toBe(201);
-  scenarioId = variant.body.id;
+  scenarioId = await mainDemoVariant(cookie, uniq("E2E search share"));
   searchId = await newSearch(scenarioId, cookie);
   const search = await call(`/api/searches/${searchId}`, { cookie });
   expect((await waitForJob(search.body.search.jobId, cookie, { timeoutMs: 180_000 })).status).toBe("completed");

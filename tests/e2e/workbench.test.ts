@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { APP_URL, call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { APP_URL, call, kestrelProject, mainDemoVariant, signInAs, type DemoRole } from "../helpers/app";
 import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn as signedInAs } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
@@ -25,12 +25,7 @@ const signedIn = (role: DemoRole, width = 1280): Promise<{ context: BrowserConte
 
 /** A fresh copy of the main demo scenario, so each test edits its own. */
 async function freshVariant(name: string): Promise<string> {
-  const cookie = await signInAs("scheduler");
-  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
-  const main = list.body.scenarios.find((s: { name: string }) => /two seasons/i.test(s.name)) ?? list.body.scenarios[0];
-  const res = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name } });
-  expect(res.status).toBe(201);
-  return res.body.id;
+  return mainDemoVariant(await signInAs("scheduler"), name);
 }
 
 async function editPlacementMode(page: Page, value: string) {

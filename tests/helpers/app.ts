@@ -70,6 +70,20 @@ export async function kestrelProject(cookie: string): Promise<{ id: string }> {
   return p;
 }
 
+/**
+ * A fresh variant of the seeded main demo ("Kestrel Bay Causeway — two seasons"), made by `cookie`'s member, so
+ * a test edits or runs its own copy; returns its id.
+ */
+export async function mainDemoVariant(cookie: string, name: string): Promise<string> {
+  const project = await kestrelProject(cookie);
+  const list = await call(`/api/projects/${project.id}/scenarios`, { cookie });
+  const main = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons");
+  if (!main) throw new Error("the seeded main demo scenario (two seasons) is missing");
+  const res = await call(`/api/scenarios/${main.id}/variants`, { method: "POST", cookie, body: { name } });
+  if (res.status !== 201) throw new Error(`making the variant "${name}" answered ${res.status}`);
+  return res.body.id;
+}
+
 /** The definition of a seeded demo scenario (other tests add scenarios of their own to the same project). */
 export async function demoDefinition(cookie: string, projectId: string): Promise<Record<string, any>> {
   const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });

@@ -8,7 +8,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { call } from "../helpers/app";
 import { can, type Action } from "@/lib/permissions";
-import { discoverAppPages, discoverServerActions, fillPath } from "../helpers/route-inventory";
+import { discoverAppPages, fillPath } from "../helpers/route-inventory";
 import { buildWorld, CALLERS, isRole, present, tokenOf, unknownToken, type Caller, type World } from "../helpers/authz-world";
 import { findMail } from "../../src/lib/server/mailbox";
 

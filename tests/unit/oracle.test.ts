@@ -333,7 +333,6 @@ describe("reference vs engine, seeded stochastic scenarios", () => {
 
 describe("reference vs engine, generated small scenarios (fast-check)", () => {
   const quarter = (lo: number, hi: number) => fc.integer({ min: lo * 4, max: hi * 4 }).map((q) => q / 4);
-  const nonEmpty = <T,>(xs: readonly T[]) => fc.subarray([...xs], { minLength: 1 });
   const DAY_TYPES = ["weekday", "saturday", "sunday", "holiday"] as const;
 
   const arbInput = fc

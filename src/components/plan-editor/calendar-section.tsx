@@ -3,7 +3,6 @@
 import { useState } from "react";
 import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
 import type { ScenarioInput } from "@sim/schema";
-import { formatStation } from "@/lib/format";
 import { CheckboxField, CheckboxGroup, NumberField, SelectField, TextField, n } from "./fields";
 import { EditableTable } from "./editable-table";
 import { StationField } from "./station-field";

@@ -11,7 +11,7 @@ import { useEffect, useMemo, useState, type KeyboardEvent } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import { Background, Controls, MarkerType, Position, ReactFlow, applyNodeChanges, type Connection, type Edge, type Node, type NodeChange, type ReactFlowInstance } from "@xyflow/react";
 import type { Link, Operation, ScenarioInput } from "@sim/schema";
-import { NumberField, TextField, n } from "./fields";
+import { NumberField, TextField } from "./fields";
 import { layoutGraph, NODE_HEIGHT, NODE_WIDTH } from "./graph-layout";
 import { freshId, proposeLink } from "./plan-logic";
 import { withoutOperation } from "./stages-logic";
