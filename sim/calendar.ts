@@ -121,6 +121,15 @@ export function firstIntervalAfter(iv: Intervals, t: number): number {
   return i;
 }
 
+/**
+ * `firstIntervalAfter(iv, t)` for a scan moving forward: `i` is the answer for an earlier instant, so the answer
+ * for `t` is `i` itself, mostly the next one, or past a gap (a winter, nights nobody worked) a look-up.
+ */
+export function nextIntervalAfter(iv: Intervals, i: number, t: number): number {
+  if (i >= iv.length || iv.ends[i] > t) return i;
+  return i + 1 < iv.length && iv.ends[i + 1] > t ? i + 1 : firstIntervalAfter(iv, t);
+}
+
 /** The instant `hours` of open time after `t` are done, or Infinity past the horizon. */
 export function accrueOpen(iv: Intervals, t: number, hours: number): number {
   let rem = hours;

@@ -7,7 +7,7 @@
  * the schedule. One instance per compiled scenario, reset by `simulate` for each iteration.
  */
 import { doubledF64 } from "./typed-arrays";
-import { firstIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
+import { firstIntervalAfter, nextIntervalAfter, stampShifts, type CompiledCalendar, type OpCalendar } from "./calendar";
 import type { CompiledOp, PauseRecord } from "./engine";
 import type { GateCache } from "./gates";
 import { pour, produce, warmCureFinish, type WorkSink } from "./production";
@@ -234,7 +234,6 @@ export class WorkContext implements WorkSink {
       u.lo = 0;
       u.hi = -1;
       const win = this.cal.closureWindows[c];
-      const wEnds = win.ends;
       const lanes = this.closureLanes[c];
       for (let j = 0; j < lanes.length; j++) {
         const l = lanes[j];
@@ -245,8 +244,7 @@ export class WorkContext implements WorkSink {
         let g = firstIntervalAfter(win, st[0]);
         for (let k = 0; k < n; k++) {
           const a = st[k];
-          // Mostly this window or the next; past a gap (a winter, nights the crew did not work) a look-up jumps.
-          if (g < win.length && wEnds[g] <= a) g = g + 1 < win.length && wEnds[g + 1] > a ? g + 1 : firstIntervalAfter(win, a);
+          g = nextIntervalAfter(win, g, a);
           if (u.stamp[g] !== this.gen) {
             u.stamp[g] = this.gen;
             u.first[g] = a;
@@ -289,13 +287,13 @@ export class WorkContext implements WorkSink {
       const sl = shifts.length;
       const st = this.segStarts[l];
       const en = this.segEnds[l];
-      // The lane's segments are chronological, so the first shift ending after a − 24 only moves forward: the
-      // next one, or past a gap a look-up (the look-back of a day catches a shift begun the day before).
+      // The lane's segments are chronological, so the first shift ending after a − 24 only moves forward (the
+      // look-back of a day catches a shift begun the day before).
       let i0 = firstIntervalAfter(shifts, st[0] - 24);
       for (let j = 0; j < n; j++) {
         const a = st[j];
         const b = en[j];
-        if (i0 < sl && se[i0] <= a - 24) i0 = i0 + 1 < sl && se[i0 + 1] > a - 24 ? i0 + 1 : firstIntervalAfter(shifts, a - 24);
+        i0 = nextIntervalAfter(shifts, i0, a - 24);
         for (let i = i0; i < sl && ss[i] < b; i++) {
           if (se[i] <= a) continue;
           const d = sDay[i];
