@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { compileCalendar } from "../../sim/calendar";
+import fc from "fast-check";
+import { compileCalendar, firstIntervalAfter, nextIntervalAfter, type Intervals } from "../../sim/calendar";
 import { formatHours, parseIsoDate } from "../../sim/dates";
 import type { CrewOperation, Scenario } from "../../sim/schema";
 import { parseScenario } from "../../sim/validate";
@@ -97,5 +98,32 @@ describe("compileCalendar", () => {
     });
     expect(formatHours(two.cal.startDay, two.cal.firstWinterStart)).toBe("2027-11-10T00:00");
     expect(openBetween(two, "2027-11-09", "2028-03-16")).toEqual(["2027-11-09T07:00/17:00", "2028-03-15T07:00/17:00"]);
+  });
+});
+
+describe("nextIntervalAfter (the forward scan of closure use and working days)", () => {
+  // Reference: the first interval whose end is after t, by walking every interval from the start.
+  const walk = (iv: Intervals, t: number) => {
+    let i = 0;
+    while (i < iv.length && iv.ends[i] <= t) i++;
+    return i;
+  };
+  it("gives what a look-up from scratch gives, from any earlier answer, across winters, holidays and past the horizon", () => {
+    const c = compiled((s) => {
+      s.calendar.season = { ...s.calendar.season, plan: "single" };
+    });
+    const lists: Intervals[] = [c.cal.ops[0]!.open, ...c.cal.closureWindows];
+    const horizon = c.cal.horizonHours;
+    expect(lists.every((iv) => iv.length > 100)).toBe(true);
+    fc.assert(
+      fc.property(fc.nat(lists.length - 1), fc.double({ min: -48, max: horizon + 48, noNaN: true }), fc.double({ min: 0, max: 2000, noNaN: true }), (k, t1, step) => {
+        const iv = lists[k];
+        const t2 = t1 + step;
+        const from = firstIntervalAfter(iv, t1);
+        expect(from).toBe(walk(iv, t1));
+        expect(nextIntervalAfter(iv, from, t2)).toBe(walk(iv, t2));
+      }),
+      { numRuns: 2000 },
+    );
   });
 });
