@@ -27,8 +27,8 @@ async function fresh(name: string, definition: Record<string, unknown> = base) {
   return res.body as { id: string; version: number };
 }
 
-function plan(name: string): Scenario {
-  const parsed = parseScenario({ ...base, name });
+function plan(name: string, definition: Record<string, unknown> = base): Scenario {
+  const parsed = parseScenario({ ...definition, name });
   if (!parsed.ok) throw new Error("base scenario invalid");
   return parsed.scenario;
 }
@@ -140,12 +140,25 @@ describe("cancel", () => {
   });
 });
 
+/**
+ * A plan whose server run is long on any machine, so that a cancel or a kill lands while it runs: the demo on
+ * a longer deck with no links between its operations. The work budget counts links generously (sim/budget.ts),
+ * so at the longest allowed deck (50,000 ft) this plan's units are about the demo's while its work is several
+ * times as much: measured on the 2-core reference machine, 5,000 iterations take ~20 s against the demo's ~3 s
+ * (which a faster machine finished before the test's cancel arrived).
+ */
+function slowPlan(lengthFt: number): Record<string, unknown> {
+  return { ...base, links: [], deck: { ...(base.deck as object), lengthFt } };
+}
+
 // Last in the file: its long local recomputation leaves the HTTP connections idle long enough for the server
 // to close them, which a following request in this file could race with.
 describe("the worker", () => {
   it("the session route answers promptly while the heaviest allowed server run is in progress; cancel stops it and frees the worker", async () => {
-    const s = await fresh("Heaviest run");
-    const iterations = Math.min(MAX_SERVER_ITERATIONS, iterationsThatFit(plan("Heaviest run"), "server"));
+    const heavy = slowPlan(50_000);
+    const s = await fresh("Heaviest run", heavy);
+    const iterations = Math.min(MAX_SERVER_ITERATIONS, iterationsThatFit(plan("Heaviest run", heavy), "server"));
+    expect(iterations).toBe(MAX_SERVER_ITERATIONS);
     const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: `heavy-${Date.now()}`, iterations } });
     expect(res.status).toBe(202);
     await waitForJob(res.body.job.id, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 180_000 });
@@ -170,7 +183,8 @@ describe("the worker", () => {
   }, 300_000);
 
   it("kill -9 of the worker mid-job: the job is retried and its result stored exactly once", async () => {
-    const s = await fresh("Killed worker");
+    const slow = slowPlan(25_000);
+    const s = await fresh("Killed worker", slow);
     const seed = `kill-${Date.now()}`;
     const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed, iterations: MAX_SERVER_ITERATIONS } });
     expect(res.status).toBe(202);
@@ -184,12 +198,15 @@ describe("the worker", () => {
         // A row of a worker that already stopped: another worker removes it.
       }
     }
+    // The kill landed mid-job (else this test would prove nothing): nobody finished it.
+    const atKill = await call(`/api/jobs/${res.body.job.id}`, { cookie: scheduler });
+    expect(atKill.body.job.status).toBe("running");
     // npm test restarts the worker (as a service manager would); it hands the dead worker's job back.
     const job = await waitForJob(res.body.job.id, scheduler, { timeoutMs: 240_000 });
     expect(job.status).toBe("completed");
     const rows = await withAppDb((sql) => sql<{ n: number }[]>`select count(*)::int as n from simulation_runs where scenario_id = ${s.id} and seed = ${seed}`);
     expect(rows[0].n).toBe(1);
     const run = await call(`/api/runs/${job.runId}`, { cookie: scheduler });
-    expect(run.body.run.results.finish).toEqual(runScenario(plan("Killed worker"), { iterations: MAX_SERVER_ITERATIONS, seed }).finish);
+    expect(run.body.run.results.finish).toEqual(runScenario(plan("Killed worker", slow), { iterations: MAX_SERVER_ITERATIONS, seed }).finish);
   }, 400_000);
 });
