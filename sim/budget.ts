@@ -3,28 +3,38 @@
  * save, each variant of a plan search), so that no single scenario can occupy a machine for minutes. The time
  * limit of an engine job on the queue follows from the same units.
  *
- * Work units per iteration = packets × operations × (links + 1) + HORIZON_DAYS, where operations counts each
- * operation once per stage it works in (the engine schedules every stage operation over the stage's packets;
- * counting the whole deck for each over-counts a stage on part of it). The first term bounds the
- * engine's claims and precedence checks (each packet of each operation looks at its incoming links); the
- * second the weather days one iteration may draw. It over-counts links (measured: 9× the demo's links costs
- * 1.3× the time, not 9×), which errs on the safe side. Common practice, no published source.
+ * Work units per iteration = packets × operations × 7 + HORIZON_DAYS, where operations counts each operation
+ * once per stage it works in (the engine schedules every stage operation over the stage's packets; counting
+ * the whole deck for each over-counts a stage on part of it). The first term is the engine's work on each
+ * packet of each operation (its claim, precedence checks, gates and bookkeeping); the second the weather days
+ * one iteration may draw. Measured on the 2-core reference machine (3 Dec 2026, V8 defaults): a packet of an
+ * operation costs 0.5–0.9 µs, several weather days' worth, and the weight 7 keeps the demo's units (and the
+ * budgets below, set on them) as they were. Links are not counted: from 0 to 21 links on the demo the time per
+ * iteration stayed within the machine's noise (0.30–0.50 ms), and counting them as a factor (links + 1), as
+ * this budget once did, made a plan without links look seven times cheaper than it is (a 50,000-ft deck
+ * without links ran 2.7–4 ms per iteration on fewer units than the demo's 0.3–0.65 ms). Common practice, no
+ * published source.
  *
- * Budgets: the demo (84 packets, 7 operations, 6 links) costs 6,308 units per iteration, so 20,000
- * browser iterations are 126 million units and fit the browser budget of 150 million; the server computes at
- * most 5,000 iterations (31.5 million for the demo) within 40 million units, i.e. about ten seconds of one
- * core on the 2-core reference machine (from a measured 1.3 ms per demo iteration).
+ * Budgets: the demo (84 packets, 7 operations) costs 6,308 units per iteration, so 20,000 browser iterations
+ * are 126 million units and fit the browser budget of 150 million; the server computes at most 5,000
+ * iterations (31.5 million for the demo) within 40 million units: a few seconds of one core on the reference
+ * machine (the demo runs 1,500–3,900 iterations a second there, depending on V8's settings and the machine's
+ * load), and under 6 s for the slowest plan per unit measured (that long deck without links).
  */
 import { HORIZON_DAYS } from "./calendar";
 import type { FieldProblem } from "./schema";
+
+/** Work units of one packet of one operation (see above). */
+export const UNITS_PER_PACKET_OPERATION = 7;
 
 /** A run computed in the user's browser (its workers), and its save. */
 export const BROWSER_WORK_BUDGET = 150_000_000;
 /** A run, re-forecast or search variant the server's engine workers compute. */
 export const SERVER_WORK_BUDGET = 40_000_000;
 /**
- * A whole plan search (every variant and the plan as saved): about ten minutes of one core at the measured
- * 4.8 million units a second, spread over every worker thread. Common practice, no published source.
+ * A whole plan search (every variant and the plan as saved): two to seven minutes of one core at the 7–25
+ * million units a second measured (the slowest plan per unit, then the demo), spread over every worker
+ * thread. Common practice, no published source.
  */
 export const SEARCH_WORK_BUDGET = 3_000_000_000;
 
@@ -33,7 +43,6 @@ export type RunPlace = "browser" | "server";
 export interface RunWork {
   packets: number;
   operations: number;
-  links: number;
   perIteration: number;
   total: number;
 }
@@ -41,7 +50,6 @@ export interface RunWork {
 type WorkInput = {
   deck: { lengthFt: number; packetFt: number };
   operations: readonly unknown[];
-  links: readonly unknown[];
   /** Absent (a version-1 plan): one stage with every operation. */
   stages?: readonly { operations?: readonly unknown[] }[];
 };
@@ -50,9 +58,8 @@ export function runWork(s: WorkInput, iterations: number): RunWork {
   const packets = Math.ceil(s.deck.lengthFt / s.deck.packetFt);
   const stages = s.stages?.length ? s.stages : [{}];
   const operations = stages.reduce((n, st) => n + (st.operations?.length ?? s.operations.length), 0);
-  const links = s.links.length;
-  const perIteration = packets * operations * (links + 1) + HORIZON_DAYS;
-  return { packets, operations, links, perIteration, total: perIteration * iterations };
+  const perIteration = packets * operations * UNITS_PER_PACKET_OPERATION + HORIZON_DAYS;
+  return { packets, operations, perIteration, total: perIteration * iterations };
 }
 
 const n = (x: number) => Math.round(x).toLocaleString("en-US");
@@ -73,9 +80,9 @@ export function budgetProblem(s: WorkInput, iterations: number, place: RunPlace)
   return {
     path: "iterations",
     message:
-      `this run needs ${n(w.total)} work units (${n(w.packets)} packets × ${w.operations} operations × ${w.links + 1} (links + 1) + ${n(HORIZON_DAYS)} weather days, ` +
+      `this run needs ${n(w.total)} work units (${n(w.packets)} packets × ${w.operations} operations × ${UNITS_PER_PACKET_OPERATION} + ${n(HORIZON_DAYS)} weather days, ` +
       `× ${n(iterations)} iterations): ${(w.total / budget).toFixed(1)} times the limit of ${n(budget)} for ${where}. ` +
-      (fits >= 10 ? `At most ${n(fits)} iterations fit; or use longer packets, fewer operations or fewer links.` : "Use longer packets, fewer operations or fewer links."),
+      (fits >= 10 ? `At most ${n(fits)} iterations fit; or use longer packets or fewer operations.` : "Use longer packets or fewer operations."),
   };
 }
 
@@ -98,8 +105,8 @@ export function searchBudgetProblem(s: WorkInput, iterations: number, plans: num
 }
 
 /**
- * The time limit of an engine job of `units` work units: the units at a deliberately slow rate (a twentieth
- * of the measured 4.8 million a second), so a busy shared machine does not cut a legitimate job short while a
+ * The time limit of an engine job of `units` work units: the units at a deliberately slow rate (a thirtieth
+ * of the slowest rate measured, about 7 million a second), so a busy shared machine does not cut a legitimate job short while a
  * runaway one still ends. Between one and fifteen minutes. Common practice, no published source.
  */
 const SLOW_UNITS_PER_SECOND = 240_000;

@@ -171,14 +171,14 @@ describe("the run body", () => {
 
 describe("the work budget, before any run", () => {
   it("a heavy scenario saves, but its server run, browser run and re-forecast are refused saying which limit and by how much", async () => {
-    // 840 packets (10 ft) × 7 operations × 7 (links + 1) + 2,192 weather days = 43,352 units per iteration.
+    // 840 packets (10 ft) × 7 operations × 7 + 2,192 weather days = 43,352 units per iteration.
     const heavy = { ...clone(base), deck: { ...base.deck, packetFt: 10 } };
     const s = await created("Heavy deck", heavy);
 
     const server = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "h", iterations: 1_000 } });
     expect(server.status).toBe(400);
     expect(server.body.fields[0].path).toBe("iterations");
-    expect(server.body.fields[0].message).toContain("needs 43,352,000 work units (840 packets × 7 operations × 7 (links + 1) + 2,192 weather days, × 1,000 iterations): 1.1 times the limit of 40,000,000 for a run the server computes");
+    expect(server.body.fields[0].message).toContain("needs 43,352,000 work units (840 packets × 7 operations × 7 + 2,192 weather days, × 1,000 iterations): 1.1 times the limit of 40,000,000 for a run the server computes");
 
     const parsed = parseScenario({ ...heavy, name: "Heavy deck" });
     if (!parsed.ok) throw new Error("heavy scenario invalid");

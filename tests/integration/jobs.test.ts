@@ -8,7 +8,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { waitForJob, withAppDb } from "../helpers/jobs";
 import { parseScenario, runScenario, type Scenario } from "../../sim/index";
-import { iterationsThatFit } from "../../sim/budget";
+import { applyVariant, type SearchDimension } from "../../sim/search";
+import { outcomeOf } from "../../sim/frontier";
 import { MAX_SERVER_ITERATIONS } from "../../src/lib/schemas";
 
 let scheduler: string;
@@ -27,8 +28,8 @@ async function fresh(name: string, definition: Record<string, unknown> = base) {
   return res.body as { id: string; version: number };
 }
 
-function plan(name: string, definition: Record<string, unknown> = base): Scenario {
-  const parsed = parseScenario({ ...definition, name });
+function plan(name: string): Scenario {
+  const parsed = parseScenario({ ...base, name });
   if (!parsed.ok) throw new Error("base scenario invalid");
   return parsed.scenario;
 }
@@ -141,27 +142,41 @@ describe("cancel", () => {
 });
 
 /**
- * A plan whose server run is long on any machine, so that a cancel or a kill lands while it runs: the demo on
- * a longer deck with no links between its operations. The work budget counts links generously (sim/budget.ts),
- * so at the longest allowed deck (50,000 ft) this plan's units are about the demo's while its work is several
- * times as much: measured on the 2-core reference machine, 5,000 iterations take ~20 s against the demo's ~3 s
- * (which a faster machine finished before the test's cancel arrived).
+ * A plan search of `plans − 1` variants at 5,000 iterations each (the most a variant may run): the longest job
+ * anyone may start, several seconds of engine work per plan on any machine, so that a cancel or a kill lands
+ * while it runs. (A single run is no longer long enough: the demo's 5,000 iterations once finished on a faster
+ * machine before the test's cancel arrived.)
  */
-function slowPlan(lengthFt: number): Record<string, unknown> {
-  return { ...base, links: [], deck: { ...(base.deck as object), lengthFt } };
+function longSearch(variants: number, seed: string) {
+  const crewOps = (base.operations as { id: string; kind: string }[]).filter((o) => o.kind === "crew").map((o) => o.id);
+  const levels = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
+  return {
+    dimensions: [
+      { kind: "crews", operation: crewOps[0], values: levels },
+      { kind: "crews", operation: crewOps[1], values: levels },
+    ],
+    maxVariants: variants,
+    iterations: 5_000,
+    seed,
+  };
+}
+
+interface VariantRow {
+  idx: number;
+  choice: number[] | null;
+  status: string;
+  outcome: unknown;
 }
 
 // Last in the file: its long local recomputation leaves the HTTP connections idle long enough for the server
 // to close them, which a following request in this file could race with.
 describe("the worker", () => {
-  it("the session route answers promptly while the heaviest allowed server run is in progress; cancel stops it and frees the worker", async () => {
-    const heavy = slowPlan(50_000);
-    const s = await fresh("Heaviest run", heavy);
-    const iterations = Math.min(MAX_SERVER_ITERATIONS, iterationsThatFit(plan("Heaviest run", heavy), "server"));
-    expect(iterations).toBe(MAX_SERVER_ITERATIONS);
-    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: `heavy-${Date.now()}`, iterations } });
+  it("the session route answers promptly while a long plan search runs; cancel stops it and frees the worker", async () => {
+    const s = await fresh("Long search");
+    const res = await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: scheduler, body: { name: "long", spec: longSearch(60, `long-${Date.now()}`) } });
     expect(res.status).toBe(202);
-    await waitForJob(res.body.job.id, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 180_000 });
+    const jobId = res.body.job.id;
+    await waitForJob(jobId, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 180_000 });
     for (let i = 0; i < 5; i++) {
       const t0 = performance.now();
       const session = await call("/api/auth/session", { cookie: scheduler });
@@ -169,28 +184,35 @@ describe("the worker", () => {
       expect(performance.now() - t0).toBeLessThan(5_000);
       expect(session.status).toBe(200);
     }
-    const del = await call(`/api/jobs/${res.body.job.id}`, { method: "DELETE", cookie: scheduler });
+    const del = await call(`/api/jobs/${jobId}`, { method: "DELETE", cookie: scheduler });
     expect(del.status).toBe(200);
-    const stopped = await call(`/api/jobs/${res.body.job.id}`, { cookie: scheduler });
+    const stopped = await call(`/api/jobs/${jobId}`, { cookie: scheduler });
     expect(stopped.body.job.status).toBe("cancelled");
-    // The freed thread takes the next job: a small run completes long before the heavy one could have.
+    // The freed thread takes the next job: a small run completes long before the search could have.
     const small = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "after-cancel", iterations: 20 } });
     const done = await waitForJob(small.body.job.id, scheduler, { timeoutMs: 90_000 });
     expect(done.status).toBe("completed");
-    const after = await call(`/api/jobs/${res.body.job.id}`, { cookie: scheduler });
+    const after = await call(`/api/jobs/${jobId}`, { cookie: scheduler });
     expect(after.body.job.status).toBe("cancelled");
-    expect(after.body.job.runId).toBeNull();
+    // The variants not reached were never computed.
+    const search = await call(`/api/searches/${res.body.search.id}`, { cookie: scheduler });
+    const variants = search.body.variants as VariantRow[];
+    expect(variants.length).toBeGreaterThan(10); // the plan and the sampled variants (a sample may repeat a choice; repeats are dropped)
+    expect(variants.filter((v) => v.status === "pending").length).toBeGreaterThan(0);
   }, 300_000);
 
-  it("kill -9 of the worker mid-job: the job is retried and its result stored exactly once", async () => {
-    const slow = slowPlan(25_000);
-    const s = await fresh("Killed worker", slow);
-    const seed = `kill-${Date.now()}`;
-    const res = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed, iterations: MAX_SERVER_ITERATIONS } });
+  it("kill -9 of the worker mid-job: the job is retried and each result stored exactly once", async () => {
+    const s = await fresh("Killed worker");
+    const spec = longSearch(4, `kill-${Date.now()}`);
+    const res = await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: scheduler, body: { name: "kill", spec } });
     expect(res.status).toBe(202);
-    await waitForJob(res.body.job.id, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 120_000 });
+    const jobId = res.body.job.id;
+    const searchId = res.body.search.id;
+    await waitForJob(jobId, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 120_000 });
     const pids = await withAppDb((sql) => sql<{ pid: number }[]>`select pid from engine_workers`);
     expect(pids.length).toBeGreaterThan(0);
+    // The variant in hand when the worker dies: the first one not yet done.
+    const inHand = await withAppDb((sql) => sql<{ idx: number }[]>`select idx from plan_search_variants where search_id = ${searchId} and status = 'pending' order by idx limit 1`);
     for (const { pid } of pids) {
       try {
         process.kill(pid, "SIGKILL");
@@ -199,14 +221,21 @@ describe("the worker", () => {
       }
     }
     // The kill landed mid-job (else this test would prove nothing): nobody finished it.
-    const atKill = await call(`/api/jobs/${res.body.job.id}`, { cookie: scheduler });
+    expect(inHand).toHaveLength(1);
+    const atKill = await call(`/api/jobs/${jobId}`, { cookie: scheduler });
     expect(atKill.body.job.status).toBe("running");
     // npm test restarts the worker (as a service manager would); it hands the dead worker's job back.
-    const job = await waitForJob(res.body.job.id, scheduler, { timeoutMs: 240_000 });
+    const job = await waitForJob(jobId, scheduler, { timeoutMs: 240_000 });
     expect(job.status).toBe("completed");
-    const rows = await withAppDb((sql) => sql<{ n: number }[]>`select count(*)::int as n from simulation_runs where scenario_id = ${s.id} and seed = ${seed}`);
-    expect(rows[0].n).toBe(1);
-    const run = await call(`/api/runs/${job.runId}`, { cookie: scheduler });
-    expect(run.body.run.results.finish).toEqual(runScenario(plan("Killed worker", slow), { iterations: MAX_SERVER_ITERATIONS, seed }).finish);
+    const rows = await withAppDb((sql) => sql<{ n: number }[]>`select count(*)::int as n from plan_search_variants where search_id = ${searchId}`);
+    expect(rows[0].n).toBe(5);
+    const got = await call(`/api/searches/${searchId}`, { cookie: scheduler });
+    const variants = got.body.variants as VariantRow[];
+    expect(variants.every((v) => v.status === "done")).toBe(true);
+    // The variant computed again after the kill is what the engine computes for that plan.
+    const v = variants.find((x) => x.idx === inHand[0].idx)!;
+    const parsed = parseScenario(v.choice ? applyVariant(plan("Killed worker"), spec.dimensions as SearchDimension[], v.choice) : plan("Killed worker"));
+    if (!parsed.ok) throw new Error("variant invalid");
+    expect(v.outcome).toEqual(JSON.parse(JSON.stringify(outcomeOf(runScenario(parsed.scenario, { iterations: spec.iterations, seed: spec.seed })))));
   }, 400_000);
 });

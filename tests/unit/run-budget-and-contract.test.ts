@@ -17,10 +17,17 @@ const parsed = (input: unknown): Scenario => {
 const DEMOS = ["kestrel-two-season.json", "kestrel-single-season.json", "kestrel-holiday-work.json", "kestrel-two-placement-crews.json", "kestrel-staged-three-lane.json", "small-deterministic.json"];
 
 describe("work budget", () => {
-  it("counts packets × operations × (links + 1) + weather days, per iteration", () => {
+  it("counts packets × operations × 7 + weather days, per iteration", () => {
     const s = parsed(loadScenario("kestrel-two-season.json"));
-    // 8,400 ft in 100 ft packets, seven operations, six links.
-    expect(runWork(s, 10)).toEqual({ packets: 84, operations: 7, links: 6, perIteration: 84 * 7 * 7 + HORIZON_DAYS, total: 10 * (84 * 7 * 7 + HORIZON_DAYS) });
+    // 8,400 ft in 100 ft packets, seven operations.
+    expect(runWork(s, 10)).toEqual({ packets: 84, operations: 7, perIteration: 84 * 7 * 7 + HORIZON_DAYS, total: 10 * (84 * 7 * 7 + HORIZON_DAYS) });
+  });
+
+  it("links do not change the units: a plan without links costs the engine as much per packet as one with them", () => {
+    const s = parsed(loadScenario("kestrel-two-season.json"));
+    const unlinked = parsed({ ...loadScenario("kestrel-two-season.json"), links: [] });
+    expect(unlinked.links).toHaveLength(0);
+    expect(runWork(unlinked, 1).perIteration).toBe(runWork(s, 1).perIteration);
   });
 
   it("counts each operation once per stage it works in", () => {
@@ -55,14 +62,14 @@ describe("work budget", () => {
     for (const place of ["browser", "server"] as const) {
       const p = budgetProblem(s, 5_000, place);
       const budget = place === "server" ? SERVER_WORK_BUDGET : BROWSER_WORK_BUDGET;
-      const total = 5_000 * (5_000 * 40 * 1 + HORIZON_DAYS);
+      const total = 5_000 * (5_000 * 40 * 7 + HORIZON_DAYS);
       expect(p?.path).toBe("iterations");
       expect(p?.message).toContain(`needs ${total.toLocaleString("en-US")} work units`);
       expect(p?.message).toContain(`${(total / budget).toFixed(1)} times`);
       expect(p?.message).toContain(budget.toLocaleString("en-US"));
     }
     // It says how many iterations would fit.
-    const fits = Math.floor(BROWSER_WORK_BUDGET / (5_000 * 40 + HORIZON_DAYS));
+    const fits = Math.floor(BROWSER_WORK_BUDGET / (5_000 * 40 * 7 + HORIZON_DAYS));
     expect(budgetProblem(s, 5_000, "browser")?.message).toContain(`At most ${fits} iterations fit`);
   });
 

@@ -106,8 +106,8 @@ describe("variants", () => {
 });
 
 describe("work budget of a job and a search", () => {
-  // The demo deck: 84 packets, 7 operations, 6 links ⇒ 84 × 7 × 7 + 2,192 = 6,308 units per iteration.
-  const s = { deck: { lengthFt: 8400, packetFt: 100 }, operations: new Array(7).fill(0), links: new Array(6).fill(0) };
+  // The demo deck: 84 packets, 7 operations ⇒ 84 × 7 × 7 + 2,192 = 6,308 units per iteration.
+  const s = { deck: { lengthFt: 8400, packetFt: 100 }, operations: new Array(7).fill(0) };
 
   it("the iterations that fit are the most within each budget", () => {
     expect(runWork(s, 1).perIteration).toBe(6_308);
