@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import { Providers } from "./providers";
 import "./globals.css";
 
@@ -19,7 +20,10 @@ export const metadata: Metadata = {
   description: "Plan bridge-deck overlay work under traffic and know how sure the finish date is.",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request: its scripts carry the nonce of its own answer (src/lib/http/security-headers.ts),
+  // which an HTML file built ahead of time could not.
+  await connection();
   return (
     <html lang="en" className={inter.variable}>
       <body className="min-h-screen font-sans antialiased">

@@ -43,6 +43,32 @@ describe("security headers", () => {
   });
 });
 
+describe("script nonces", () => {
+  const nonceOf = (csp: string | null) => /script-src 'self' 'nonce-([A-Za-z0-9+/=]+)' 'strict-dynamic'/.exec(csp ?? "")?.[1];
+
+  it.each(["/signin", "/reset", "/projects", "/no-such-page"])("%s: every script of the page carries the nonce of its own answer, fresh per request", async (path) => {
+    const cookie = path === "/projects" ? await signInAs("viewer") : undefined;
+    const seen: string[] = [];
+    for (let i = 0; i < 2; i++) {
+      const res = await call(path, { cookie });
+      const nonce = nonceOf(res.headers.get("content-security-policy"));
+      expect(nonce, `${path}: ${res.headers.get("content-security-policy")}`).toBeTruthy();
+      const html = String(res.body);
+      const scripts = html.match(/<script\b[^>]*>/g) ?? [];
+      expect(scripts.length).toBeGreaterThan(0);
+      for (const tag of scripts) expect(tag, path).toContain(`nonce="${nonce}"`);
+      seen.push(nonce!);
+    }
+    expect(seen[0]).not.toBe(seen[1]);
+  });
+
+  it("an API answer allows no script at all beyond this origin's files (no nonce, no inline)", async () => {
+    const res = await call("/api/auth/session");
+    const directives = (res.headers.get("content-security-policy") ?? "").split("; ");
+    expect(directives.find((d) => d.startsWith("script-src"))).toBe("script-src 'self'");
+  });
+});
+
 describe("origin check", () => {
   const port = new URL(APP_URL).port;
   it.each([`https://localhost:${port}`, `http://localhost:${Number(port) + 1}`, "http://evil.example", null])("a POST from %s is refused with 403", async (origin) => {

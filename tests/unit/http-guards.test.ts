@@ -5,7 +5,7 @@
 import { describe, expect, it } from "vitest";
 import { clientAddress, parseTrustedProxies, PEER_HEADER } from "../../src/lib/http/trusted-proxy";
 import { ownOrigins, sameOrigin } from "../../src/lib/http/origin";
-import { securityHeaders } from "../../src/lib/http/security-headers";
+import { contentSecurityPolicy, newNonce, securityHeaders } from "../../src/lib/http/security-headers";
 import { mailCatcherPageEnabled } from "../../src/lib/server/mailbox";
 
 const req = (peer: string | null, xff?: string) => {
@@ -59,6 +59,26 @@ describe("origin check", () => {
 });
 
 describe("security headers", () => {
+  it("a page's policy runs only scripts with its nonce; other answers allow no inline script; nothing allows eval in production", () => {
+    const nonce = newNonce();
+    const page = contentSecurityPolicy({ development: false, nonce });
+    const scriptSrc = (p: string) => p.split("; ").find((d) => d.startsWith("script-src "));
+    expect(scriptSrc(page)).toBe(`script-src 'self' 'nonce-${nonce}' 'strict-dynamic'`);
+    expect(scriptSrc(contentSecurityPolicy({ development: false }))).toBe("script-src 'self'");
+    expect(page).not.toContain("unsafe-eval");
+    expect(scriptSrc(contentSecurityPolicy({ development: true, nonce }))).toContain("'unsafe-eval'");
+    expect(securityHeaders({ production: true, nonce })["Content-Security-Policy"]).toBe(page);
+  });
+
+  it("a nonce is 128 random bits in base64, fresh each time", () => {
+    const seen = new Set(Array.from({ length: 200 }, () => newNonce()));
+    expect(seen.size).toBe(200);
+    for (const n of seen) {
+      expect(n).toMatch(/^[A-Za-z0-9+/]{22}==$/);
+      expect(Buffer.from(n, "base64")).toHaveLength(16);
+    }
+  });
+
   it("forbid framing and sniffing, send no referrer, and add HSTS in production only", () => {
     const prod = securityHeaders({ production: true });
     expect(prod["Content-Security-Policy"]).toContain("frame-ancestors 'none'");

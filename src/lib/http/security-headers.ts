@@ -1,15 +1,21 @@
 /**
- * Headers on every answer. The content security policy allows only this origin; Next.js writes its page
- * data as inline <script> tags, so scripts need 'unsafe-inline' ('self' alone blocks hydration) — a nonce
- * would force every page to render per request. The policy's real work is elsewhere: no framing
- * (frame-ancestors 'none'), no plugins, no foreign forms, connections or workers. Referrer-Policy
- * no-referrer everywhere, because share, invitation and reset pages carry a secret in their path.
+ * Headers on every answer. The content security policy allows only this origin. A page's scripts run only
+ * with the nonce of its own answer ('strict-dynamic' lets those scripts load the app's chunks and the engine
+ * worker): Next.js writes its page data as inline <script> tags and puts the nonce it finds in the request's
+ * policy on each of them (src/proxy.ts makes a fresh one per page request), so an injected inline script or
+ * event handler does not run. This is why every page renders per request (src/app/layout.tsx). Answers that
+ * are not pages (JSON, calendar feeds, files) carry no nonce and allow no inline script at all. Styles keep
+ * 'unsafe-inline': React and the charts set style attributes, which a nonce cannot cover, and a style cannot
+ * run code. The rest: no framing (frame-ancestors 'none'), no plugins, no foreign forms, connections or
+ * workers. Referrer-Policy no-referrer everywhere, because share, invitation and reset pages carry a secret
+ * in their path.
  */
-export function contentSecurityPolicy({ development }: { development: boolean }): string {
+export function contentSecurityPolicy({ development, nonce }: { development: boolean; nonce?: string }): string {
+  // React's development build evaluates code for its debugging overlay; production never does.
+  const evalInDev = development ? " 'unsafe-eval'" : "";
   return [
     "default-src 'self'",
-    // React's development build evaluates code for its debugging overlay; production never does.
-    `script-src 'self' 'unsafe-inline'${development ? " 'unsafe-eval'" : ""}`,
+    nonce ? `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${evalInDev}` : `script-src 'self'${evalInDev}`,
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' data: blob:",
     "font-src 'self'",
@@ -22,9 +28,15 @@ export function contentSecurityPolicy({ development }: { development: boolean })
   ].join("; ");
 }
 
-export function securityHeaders({ production }: { production: boolean }): Record<string, string> {
+/** A fresh script nonce: 128 random bits, base64 (the form CSP and Next.js read). */
+export function newNonce(): string {
+  const bytes = crypto.getRandomValues(new Uint8Array(16));
+  return btoa(String.fromCharCode(...bytes));
+}
+
+export function securityHeaders({ production, nonce }: { production: boolean; nonce?: string }): Record<string, string> {
   const headers: Record<string, string> = {
-    "Content-Security-Policy": contentSecurityPolicy({ development: !production }),
+    "Content-Security-Policy": contentSecurityPolicy({ development: !production, nonce }),
     "X-Content-Type-Options": "nosniff",
     "Referrer-Policy": "no-referrer",
     "X-Frame-Options": "DENY",
