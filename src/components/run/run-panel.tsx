@@ -134,7 +134,7 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
             {progress
               ? `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSeconds(progress.secondsLeft)} · ${workerCount(pool.state.phase === "running" ? pool.state.workers : 1)}`
               : pool.state.phase === "done"
-                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version. Not yet verified: the server is reproducing it." : ""}`
+                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version." : ""}`
                 : ""}
           </p>
         </div>
@@ -144,6 +144,7 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
           Too large to run: {overBudget.message}
         </p>
       )}
+      {/* Whether the server has reproduced the run is said here only, so the line above never goes stale. */}
       {verify.data && (
         <div data-testid="verify-progress">
           <p className="mt-3 text-sm">
