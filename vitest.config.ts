@@ -36,6 +36,7 @@ export default defineConfig({
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
+          setupFiles: ["tests/e2e/setup.ts"],
           environment: "node",
           fileParallelism: false,
           testTimeout: 120_000,

@@ -27,8 +27,9 @@ function tsx(script, env, what) {
 }
 
 function newestMtime(dir) {
-  let newest = 0;
   if (!existsSync(dir)) return 0;
+  // A folder's own time changes when a file in it is added, removed or renamed, which no remaining file shows.
+  let newest = statSync(dir).mtimeMs;
   for (const entry of readdirSync(dir, { withFileTypes: true })) {
     if (entry.name === "node_modules" || entry.name.startsWith(".")) continue;
     const p = join(dir, entry.name);

@@ -1,9 +1,9 @@
 /**
  * The page's content security policy as a browser enforces it (src/lib/http/security-headers.ts): scripts run
  * only with their answer's nonce and nothing may eval. Signed in as a scheduler in Debian's Chromium, every
- * main page is opened and a forecast is run in the browser's engine workers; the browser reports no policy
- * violation, each page hydrates (its client-side navigation works) and the run completes. A page whose
- * scripts lacked the nonce would not hydrate; a library probing for eval would be reported here.
+ * main page is opened and a forecast is run in the browser's engine workers; each page hydrates and the run
+ * completes. A page whose scripts lacked the nonce would not hydrate. Violations the browser reports (a
+ * library probing for eval, say) fail this test, as every e2e test, through tests/e2e/setup.ts.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
@@ -26,15 +26,8 @@ afterAll(async () => {
 });
 
 describe("content security policy in the browser", () => {
-  it("no page reports a violation; pages hydrate and a browser run completes", async () => {
+  it("every main page hydrates under the policy and a browser run completes", async () => {
     const { context, page } = await signedIn(browser, "scheduler");
-    const violations: string[] = [];
-    await context.addInitScript(() => {
-      document.addEventListener("securitypolicyviolation", (e) => console.error(`policy violation: ${e.violatedDirective} ${e.blockedURI}`));
-    });
-    page.on("console", (m) => {
-      if (/policy violation|Content Security Policy/i.test(m.text())) violations.push(`${page.url()}: ${m.text()}`);
-    });
     const pages = ["/projects", `/projects/${projectId}`, `/projects/${projectId}/compare`, `/scenarios/${scenarioId}/plan`, `/scenarios/${scenarioId}/progress`, `/scenarios/${scenarioId}/look-ahead`, `/scenarios/${scenarioId}/search`, `/scenarios/${scenarioId}/brief`, `/reset`];
     for (const path of pages) {
       await page.goto(`${APP_URL}${path}`, { waitUntil: "networkidle" });
@@ -47,7 +40,6 @@ describe("content security policy in the browser", () => {
     const bar = page.getByTestId("run-progress");
     await bar.waitFor();
     await expect.poll(() => bar.getAttribute("aria-valuenow"), { timeout: 90_000 }).toBe("100");
-    expect(violations).toEqual([]);
     await context.close();
   }, 180_000);
 });

@@ -1,17 +1,46 @@
 /** Debian's Chromium driven by playwright-core; no browser is ever downloaded. */
-import { chromium, type Browser, type Page } from "playwright-core";
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { mkdirSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import AxeBuilder from "@axe-core/playwright";
 
 export const SCREENSHOTS = fileURLToPath(new URL("../e2e/screenshots/", import.meta.url));
 
+/**
+ * Every browser context the tests open reports the content-security-policy violations its pages raise
+ * (src/lib/http/security-headers.ts) here; tests/e2e/setup.ts fails the test that caused any. A page whose
+ * own scripts the policy blocked, or a library that probes for eval, shows up in every e2e test this way.
+ */
+const policyViolations: string[] = [];
+
+/** The violations reported since the last call, emptied. */
+export function takePolicyViolations(): string[] {
+  return policyViolations.splice(0);
+}
+
+async function watchPolicy(context: BrowserContext): Promise<void> {
+  await context.addInitScript(() => {
+    document.addEventListener("securitypolicyviolation", (e) => console.error(`policy violation: ${e.violatedDirective} ${e.blockedURI || "(inline)"}`));
+  });
+  context.on("console", (m) => {
+    if (m.text().startsWith("policy violation:") || /Content Security Policy/.test(m.text())) policyViolations.push(`${m.page()?.url() ?? "?"}: ${m.text()}`);
+  });
+}
+
 export async function launch(): Promise<Browser> {
-  return chromium.launch({
+  const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     headless: true,
     args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-dev-shm-usage"],
   });
+  // Wrapped so that no test can open a context the policy watch misses.
+  const newContext = browser.newContext.bind(browser);
+  browser.newContext = async (options) => {
+    const context = await newContext(options);
+    await watchPolicy(context);
+    return context;
+  };
+  return browser;
 }
 
 export async function screenshot(page: Page, name: string) {
