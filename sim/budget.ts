@@ -80,7 +80,7 @@ export function budgetProblem(s: WorkInput, iterations: number, place: RunPlace)
   return {
     path: "iterations",
     message:
-      `this run needs ${n(w.total)} work units (${n(w.packets)} packets × ${w.operations} operations × ${UNITS_PER_PACKET_OPERATION} + ${n(HORIZON_DAYS)} weather days, ` +
+      `this run needs ${n(w.total)} work units (${n(w.packets)} packets × ${w.operations} operations at ${UNITS_PER_PACKET_OPERATION} units each + ${n(HORIZON_DAYS)} weather days, ` +
       `× ${n(iterations)} iterations): ${(w.total / budget).toFixed(1)} times the limit of ${n(budget)} for ${where}. ` +
       (fits >= 10 ? `At most ${n(fits)} iterations fit; or use longer packets or fewer operations.` : "Use longer packets or fewer operations."),
   };

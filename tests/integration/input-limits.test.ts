@@ -178,7 +178,7 @@ describe("the work budget, before any run", () => {
     const server = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: scheduler, body: { seed: "h", iterations: 1_000 } });
     expect(server.status).toBe(400);
     expect(server.body.fields[0].path).toBe("iterations");
-    expect(server.body.fields[0].message).toContain("needs 43,352,000 work units (840 packets × 7 operations × 7 + 2,192 weather days, × 1,000 iterations): 1.1 times the limit of 40,000,000 for a run the server computes");
+    expect(server.body.fields[0].message).toContain("needs 43,352,000 work units (840 packets × 7 operations at 7 units each + 2,192 weather days, × 1,000 iterations): 1.1 times the limit of 40,000,000 for a run the server computes");
 
     const parsed = parseScenario({ ...heavy, name: "Heavy deck" });
     if (!parsed.ok) throw new Error("heavy scenario invalid");
