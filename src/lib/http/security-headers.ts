@@ -3,8 +3,8 @@
  * with the nonce of its own answer ('strict-dynamic' lets those scripts load the app's chunks and the engine
  * worker): Next.js writes its page data as inline <script> tags and puts the nonce it finds in the request's
  * policy on each of them (src/proxy.ts makes a fresh one per page request), so an injected inline script or
- * event handler does not run. This is why every page renders per request (src/app/layout.tsx). Answers that
- * are not pages (JSON, calendar feeds, files) carry no nonce and allow no inline script at all. Styles keep
+ * event handler does not run. This is why every page renders per request (src/app/layout.tsx). API answers
+ * (JSON, CSV, calendar feeds) carry no nonce and allow no inline script at all. Styles keep
  * 'unsafe-inline': React and the charts set style attributes, which a nonce cannot cover, and a style cannot
  * run code. The rest: no framing (frame-ancestors 'none'), no plugins, no foreign forms, connections or
  * workers. Referrer-Policy no-referrer everywhere, because share, invitation and reset pages carry a secret
