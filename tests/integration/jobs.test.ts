@@ -142,24 +142,26 @@ describe("cancel", () => {
 });
 
 /**
- * A plan search of `plans − 1` variants at 5,000 iterations each (the most a variant may run): the longest job
- * anyone may start, several seconds of engine work per plan on any machine, so that a cancel or a kill lands
- * while it runs. (A single run is no longer long enough: the demo's 5,000 iterations once finished on a faster
- * machine before the test's cancel arrived.)
+ * A plan search over the crews of the first two crew operations (`levels` of each; a grid larger than
+ * `maxVariants` is sampled) at 5,000 iterations per plan (the most a variant may run): the longest job anyone
+ * may start, several seconds of engine work per plan on any machine, so that a cancel or a kill lands while it
+ * runs. (A single run is no longer long enough: the demo's 5,000 iterations once finished on a faster machine
+ * before the test's cancel arrived.)
  */
-function longSearch(variants: number, seed: string) {
+function longSearch(levels: [number[], number[]], maxVariants: number, seed: string) {
   const crewOps = (base.operations as { id: string; kind: string }[]).filter((o) => o.kind === "crew").map((o) => o.id);
-  const levels = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
   return {
     dimensions: [
-      { kind: "crews", operation: crewOps[0], values: levels },
-      { kind: "crews", operation: crewOps[1], values: levels },
+      { kind: "crews", operation: crewOps[0], values: levels[0] },
+      { kind: "crews", operation: crewOps[1], values: levels[1] },
     ],
-    maxVariants: variants,
+    maxVariants,
     iterations: 5_000,
     seed,
   };
 }
+
+const TEN = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
 
 interface VariantRow {
   idx: number;
@@ -173,7 +175,7 @@ interface VariantRow {
 describe("the worker", () => {
   it("the session route answers promptly while a long plan search runs; cancel stops it and frees the worker", async () => {
     const s = await fresh("Long search");
-    const res = await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: scheduler, body: { name: "long", spec: longSearch(60, `long-${Date.now()}`) } });
+    const res = await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: scheduler, body: { name: "long", spec: longSearch([TEN, TEN], 60, `long-${Date.now()}`) } });
     expect(res.status).toBe(202);
     const jobId = res.body.job.id;
     await waitForJob(jobId, scheduler, { until: (j) => j.status === "running" && j.progress.done > 0, timeoutMs: 180_000 });
@@ -203,7 +205,8 @@ describe("the worker", () => {
 
   it("kill -9 of the worker mid-job: the job is retried and each result stored exactly once", async () => {
     const s = await fresh("Killed worker");
-    const spec = longSearch(4, `kill-${Date.now()}`);
+    // A full grid of 4 × 2 crews: eight variants and the plan, nine plans.
+    const spec = longSearch([[1, 2, 3, 4], [1, 2]], 8, `kill-${Date.now()}`);
     const res = await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: scheduler, body: { name: "kill", spec } });
     expect(res.status).toBe(202);
     const jobId = res.body.job.id;
@@ -228,7 +231,7 @@ describe("the worker", () => {
     const job = await waitForJob(jobId, scheduler, { timeoutMs: 240_000 });
     expect(job.status).toBe("completed");
     const rows = await withAppDb((sql) => sql<{ n: number }[]>`select count(*)::int as n from plan_search_variants where search_id = ${searchId}`);
-    expect(rows[0].n).toBe(5);
+    expect(rows[0].n).toBe(9);
     const got = await call(`/api/searches/${searchId}`, { cookie: scheduler });
     const variants = got.body.variants as VariantRow[];
     expect(variants.every((v) => v.status === "done")).toBe(true);
