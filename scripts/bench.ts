@@ -64,6 +64,12 @@ if (args.includes("--search")) {
   process.exit(0);
 }
 
+// `--baseline <revision>`: this checkout's engine against an earlier revision's, in alternating rounds.
+if (args.includes("--baseline")) {
+  const { benchBaseline } = await import("./bench-baseline");
+  process.exit(await benchBaseline(args));
+}
+
 // `--browser`: the run path in Chromium, click to chart (scripts/bench-browser.ts).
 if (args.includes("--browser")) {
   const { benchBrowser } = await import("./bench-browser");
