@@ -8,6 +8,8 @@ const nextConfig: NextConfig = {
   // `npm test` builds into its own folder, so a test run never disturbs the app `npm start` serves.
   distDir: process.env.POURLINE_DIST_DIR ?? ".next",
   typedRoutes: false,
+  // POURLINE_SOURCE_MAPS=1 (profiling only): browser source maps, so a page's profile names our functions.
+  productionBrowserSourceMaps: process.env.POURLINE_SOURCE_MAPS === "1",
   // forbidden(): a member whose role may not open a page gets 403 and the role-refusal page, not "not found".
   experimental: { authInterrupts: true },
 };

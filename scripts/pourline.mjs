@@ -38,11 +38,21 @@ function newestMtime(dir) {
   return newest;
 }
 
+const BUILD_CONFIG_FILES = ["package-lock.json", "package.json", "next.config.ts", "tsconfig.json", "postcss.config.mjs", "scripts/build-fast-reads.mjs"];
+
 function buildApp(env) {
-  const buildId = join(root, env.POURLINE_DIST_DIR ?? ".next", "BUILD_ID");
-  const sources = Math.max(...["src", "sim", "workers", "db", "public"].map((d) => newestMtime(join(root, d))), statSync(join(root, "package-lock.json")).mtimeMs);
-  const fastReads = join(root, env.POURLINE_DIST_DIR ?? ".next", "pourline-fast-reads.mjs");
-  if (existsSync(buildId) && statSync(buildId).mtimeMs > sources && existsSync(fastReads)) {
+  const dist = join(root, env.POURLINE_DIST_DIR ?? ".next");
+  // The build's inputs: the source folders and the files that configure the build (a changed config must rebuild too).
+  const configs = BUILD_CONFIG_FILES.map((f) => join(root, f)).filter((f) => existsSync(f)).map((f) => statSync(f).mtimeMs);
+  const sources = Math.max(...["src", "sim", "workers", "db", "public"].map((d) => newestMtime(join(root, d))), ...configs);
+  // The stamp records the inputs' newest time as measured *before* the build began: a file saved while a build ran
+  // is newer than the stamp, so the next start builds again (a build's own finishing time would hide that edit).
+  const stamp = join(dist, "pourline-built-from.json");
+  let builtFrom = NaN; // no stamp, or an unreadable one: build
+  try {
+    builtFrom = Number(JSON.parse(readFileSync(stamp, "utf8")).sourcesMtimeMs);
+  } catch {}
+  if (builtFrom >= sources && existsSync(join(dist, "BUILD_ID")) && existsSync(join(dist, "pourline-fast-reads.mjs"))) {
     say("the app build is up to date.");
     return;
   }
@@ -51,6 +61,7 @@ function buildApp(env) {
   run(join(root, "node_modules", ".bin", "next"), ["build"], { env, what: "next build", quiet: true });
   // After next build, which empties its folder: the two reads scripts/serve.mjs answers itself.
   run(process.execPath, [join(root, "scripts", "build-fast-reads.mjs")], { env, what: "building the fast reads' bundle", quiet: true });
+  writeFileSync(stamp, JSON.stringify({ sourcesMtimeMs: sources }));
 }
 
 // Start-up chatter of the children that `npm start` already says better in its own lines.
