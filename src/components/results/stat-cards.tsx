@@ -39,13 +39,13 @@ export function StatCards({ summary }: { summary: RunSummary }) {
             {summary.laneClosedHours && (
               <div className="flex justify-between gap-3 border-b border-line pb-0.5">
                 <dt className="font-medium">All closures (a lane closed twice at once counts once)</dt>
-                <dd className="font-semibold tabular-nums">{num(summary.laneClosedHours.total.p50)} h</dd>
+                <dd className="whitespace-nowrap font-semibold tabular-nums">{num(summary.laneClosedHours.total.p50)} h</dd>
               </div>
             )}
             {closures.map((c) => (
               <div key={c.id} className="flex justify-between gap-3">
                 <dt>{c.name}</dt>
-                <dd className="font-semibold tabular-nums">{num(c.hours)} h</dd>
+                <dd className="whitespace-nowrap font-semibold tabular-nums">{num(c.hours)} h</dd>
               </div>
             ))}
           </dl>
