@@ -12,7 +12,7 @@ import { fileURLToPath } from "node:url";
 import { appRolePassword } from "./app-db-role.mjs";
 import { ensureChromium, ensureNodeModules, ensurePostgresInstalled } from "./bootstrap/deps.mjs";
 import { dataFolderFor, ensureAppRole, ensureDatabase, startPostgres } from "./bootstrap/postgres.mjs";
-import { childStdio, Fatal, fail, freePort, portFree, progressStream, root, run, say } from "./bootstrap/shell.mjs";
+import { childStdio, Fatal, fail, freePort, portFree, progressStream, root, run, say, untilListening } from "./bootstrap/shell.mjs";
 
 export { logToStderr } from "./bootstrap/shell.mjs";
 
@@ -48,11 +48,13 @@ function buildApp(env) {
   // The stamp records the inputs' newest time as measured *before* the build began: a file saved while a build ran
   // is newer than the stamp, so the next start builds again (a build's own finishing time would hide that edit).
   const stamp = join(dist, "pourline-built-from.json");
-  let builtFrom = NaN; // no stamp, or an unreadable one: build
+  // Source maps are a build setting from the environment: a build with them is not the build without them.
+  const sourceMaps = env.POURLINE_SOURCE_MAPS === "1";
+  let built = { sourcesMtimeMs: NaN, sourceMaps: false }; // no stamp, or an unreadable one: build
   try {
-    builtFrom = Number(JSON.parse(readFileSync(stamp, "utf8")).sourcesMtimeMs);
+    built = JSON.parse(readFileSync(stamp, "utf8"));
   } catch {}
-  if (builtFrom >= sources && existsSync(join(dist, "BUILD_ID")) && existsSync(join(dist, "pourline-fast-reads.mjs"))) {
+  if (built.sourcesMtimeMs >= sources && built.sourceMaps === sourceMaps && existsSync(join(dist, "BUILD_ID")) && existsSync(join(dist, "pourline-fast-reads.mjs"))) {
     say("the app build is up to date.");
     return;
   }
@@ -61,7 +63,7 @@ function buildApp(env) {
   run(join(root, "node_modules", ".bin", "next"), ["build"], { env, what: "next build", quiet: true });
   // After next build, which empties its folder: the two reads scripts/serve.mjs answers itself.
   run(process.execPath, [join(root, "scripts", "build-fast-reads.mjs")], { env, what: "building the fast reads' bundle", quiet: true });
-  writeFileSync(stamp, JSON.stringify({ sourcesMtimeMs: sources }));
+  writeFileSync(stamp, JSON.stringify({ sourcesMtimeMs: sources, sourceMaps }));
 }
 
 // Start-up chatter of the children that `npm start` already says better in its own lines.
@@ -119,7 +121,7 @@ async function startFakeSmtp(port, mailboxDir, env) {
   // POURLINE_DEV_MAILBOX switches on the /dev/mailbox page: only here, for the local catcher this script runs.
   const mailEnv = { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(port), POURLINE_MAILBOX_DIR: mailboxDir, POURLINE_FAKE_SMTP: "1", POURLINE_DEV_MAILBOX: "1" };
   spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, ...mailEnv }, null, { quiet: true });
-  for (let i = 0; i < 100 && (await portFree(port)); i++) await new Promise((r) => setTimeout(r, 100));
+  if (!(await untilListening(port))) fail(`the local mail catcher did not start on port ${port}`);
   return mailEnv;
 }
 
@@ -155,7 +157,7 @@ async function startFakeForecast(port, env) {
   if (process.env.FORECAST_BASE_URL || !existsSync(script)) return {};
   if (!(await portFree(port))) fail(`port ${port} (the local weather-service fake) is taken by another program. Choose another: FORECAST_FAKE_PORT=2701 npm ${mode}`);
   spawnChild(join(root, "node_modules", ".bin", "tsx"), [script], { ...env, FORECAST_FAKE_PORT: String(port) });
-  for (let i = 0; i < 100 && (await portFree(port)); i++) await new Promise((r) => setTimeout(r, 100));
+  if (!(await untilListening(port))) fail(`the local weather-service fake did not start on port ${port}`);
   return { FORECAST_BASE_URL: `http://127.0.0.1:${port}`, FORECAST_FAKE: "1" };
 }
 

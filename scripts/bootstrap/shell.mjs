@@ -1,7 +1,7 @@
 // Shared by the bootstrap (scripts/pourline.mjs) and its parts: where progress goes, failing with a message for a
 // person, running a program (as the postgres user when we are root), free loopback ports. Plain Node.
 import { spawnSync } from "node:child_process";
-import { createServer } from "node:net";
+import { connect, createServer } from "node:net";
 import { dirname, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -51,6 +51,28 @@ export function portFree(port) {
     srv.once("error", () => res(false));
     srv.listen(port, "127.0.0.1", () => srv.close(() => res(true)));
   });
+}
+
+/**
+ * Whether something accepts connections on 127.0.0.1:`port`. Readiness is probed by connecting, never by
+ * binding: a bind probe (portFree) holds the port for a moment, and a child binding it in that moment fails
+ * with EADDRINUSE (it happened: the weather-service fake of a test run lost its port to its own readiness probe).
+ */
+export function portListening(port) {
+  return new Promise((res) => {
+    const socket = connect({ port, host: "127.0.0.1" });
+    socket.once("connect", () => {
+      socket.destroy();
+      res(true);
+    });
+    socket.once("error", () => res(false));
+  });
+}
+
+/** Waits up to `ms` for a child to listen on `port`; says whether it does. */
+export async function untilListening(port, ms = 30_000) {
+  for (const end = Date.now() + ms; Date.now() < end; await new Promise((r) => setTimeout(r, 100))) if (await portListening(port)) return true;
+  return false;
 }
 
 export async function freePort(from) {
