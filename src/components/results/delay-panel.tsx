@@ -35,14 +35,9 @@ function Pair({ q, format, unit = "" }: { q: NumberQuantiles | null | undefined;
   if (!q) return <p className="text-sm text-muted">Not computed (no input for it in the plan).</p>;
   return (
     <p>
-      {/* A narrow card breaks the line at the dot, never between a figure and its P50/P80. */}
-      <span className="whitespace-nowrap">
-        <span className="text-xl font-semibold">{format(q.p50)}{unit}</span> <span className="text-sm">P50</span>
-      </span>
+      <span className="text-xl font-semibold">{format(q.p50)}{unit}</span> <span className="text-sm">P50</span>
       <span className="mx-2 text-muted">·</span>
-      <span className="whitespace-nowrap">
-        <span className="text-xl font-semibold">{format(q.p80)}{unit}</span> <span className="text-sm">P80</span>
-      </span>
+      <span className="text-xl font-semibold">{format(q.p80)}{unit}</span> <span className="text-sm">P80</span>
     </p>
   );
 }
