@@ -19,7 +19,7 @@ const ROOT = fileURLToPath(new URL("..", import.meta.url));
 const MAIN = "scenarios/kestrel-two-season.json";
 const SEED = "bench";
 
-/** The three entry points every revision since the Monte Carlo loop exists exports from sim/index. */
+/** The three entry points sim/index has exported since the Monte Carlo loop was written (older revisions are refused). */
 interface EngineModule {
   parseScenario(raw: unknown): { ok: boolean; scenario?: unknown; problems?: { path: string; message: string }[] };
   compileScenario(s: unknown): unknown;

@@ -71,7 +71,11 @@ export function portListening(port) {
 
 /** Waits up to `ms` for a child to listen on `port`; says whether it does. */
 export async function untilListening(port, ms = 30_000) {
-  for (const end = Date.now() + ms; Date.now() < end; await new Promise((r) => setTimeout(r, 100))) if (await portListening(port)) return true;
+  const end = Date.now() + ms;
+  while (Date.now() < end) {
+    if (await portListening(port)) return true;
+    await new Promise((r) => setTimeout(r, 100));
+  }
   return false;
 }
 
