@@ -14,6 +14,9 @@ export type PoolState =
   | { phase: "cancelled" }
   | { phase: "failed"; message: string };
 
+/** The least time between two drawn progress updates of a run. */
+const PROGRESS_DRAW_MS = 300;
+
 /** localStorage key for a pool size chosen by hand (`?workers=N` in the address wins); see workers/ranges.ts. */
 export const POOL_SIZE_KEY = "pourline.engineWorkers";
 
@@ -97,6 +100,7 @@ export function useEnginePool(warmFor: unknown | null = null) {
       mark(RUN_MARKS.click);
       const workers = chosenPoolSize();
       setState({ phase: "running", workers, progress: { done: 0, total: iterations, perSecond: 0, secondsLeft: null } });
+      let lastDrawn = performance.now();
       const run = runInPool({
         input,
         iterations,
@@ -106,7 +110,14 @@ export function useEnginePool(warmFor: unknown | null = null) {
         createEngine,
         wrapProgress: (fn) => Comlink.proxy(fn),
         transfer: Comlink.transfer,
-        onProgress: (progress) => setState({ phase: "running", workers, progress }),
+        onProgress: (progress) => {
+          // Each drawn update costs the main thread a frame (style, layout, paint), on a core the workers want;
+          // a few a second read as live. The pool reports more often: every worker every 150 ms.
+          const t = performance.now();
+          if (t - lastDrawn < PROGRESS_DRAW_MS) return;
+          lastDrawn = t;
+          setState({ phase: "running", workers, progress });
+        },
       });
       current.current = run;
       try {
