@@ -6,6 +6,7 @@
 import { useEffect } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { progressAnnouncement } from "./progress-announcement";
 
 export interface JobState {
   id: string;
@@ -56,6 +57,7 @@ export function JobProgress({ job, label, unit = "iterations", canCancel }: { jo
     onSettled: () => qc.invalidateQueries({ queryKey: ["jobs", job.id] }),
   });
   const pct = Math.floor(job.progress.fraction * 100);
+  const ended = `${STATUS_TEXT[job.status]}${job.status === "failed" && job.error ? ` ${job.error}` : ""}`;
   const live = job.status === "queued" || job.status === "running";
   return (
     <div className="mt-3" data-testid={`job-${job.kind}`} data-status={job.status}>
@@ -69,11 +71,10 @@ export function JobProgress({ job, label, unit = "iterations", canCancel }: { jo
           </button>
         )}
       </div>
-      <p className="mt-1 text-sm text-muted" aria-live="polite">
-        {job.status === "running"
-          ? `${job.progress.done.toLocaleString("en-US")} of ${job.progress.total.toLocaleString("en-US")} ${unit} · ${formatSecondsLeft(job.progress.secondsLeft)}`
-          : STATUS_TEXT[job.status]}
-        {job.status === "failed" && job.error ? ` ${job.error}` : ""}
+      {/* As in the run panel: the live region speaks quarters while the job runs, then how it ended. */}
+      <p className="mt-1 text-sm text-muted">
+        {job.status === "running" && `${job.progress.done.toLocaleString("en-US")} of ${job.progress.total.toLocaleString("en-US")} ${unit} · ${formatSecondsLeft(job.progress.secondsLeft)}`}
+        <span aria-live="polite">{job.status === "running" ? <span className="sr-only">{progressAnnouncement(job.progress.fraction)}</span> : ended}</span>
       </p>
     </div>
   );

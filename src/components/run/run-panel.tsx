@@ -11,7 +11,8 @@ import type { RunSummary } from "@sim/summary";
 import { useJsonStable } from "../use-json-stable";
 import { publishLocalRun, updateLocalRun } from "./local-runs";
 import { useEnginePool } from "./use-engine-pool";
-import { JobProgress, useJob } from "./job-progress";
+import { formatSecondsLeft, JobProgress, useJob } from "./job-progress";
+import { progressAnnouncement } from "./progress-announcement";
 
 interface SaveBody {
   seed: string;
@@ -22,13 +23,6 @@ interface SaveBody {
 }
 
 const ITERATION_CHOICES = [1_000, 2_000, 5_000, 10_000, 20_000];
-
-function formatSeconds(s: number | null) {
-  if (s == null || !Number.isFinite(s)) return "estimating…";
-  if (s < 1) return "under a second left";
-  if (s < 90) return `about ${Math.round(s)} s left`;
-  return `about ${Math.round(s / 60)} min left`;
-}
 
 /** Start a Monte Carlo run in the browser's workers, watch it, cancel it, and store the result with the scenario. */
 export function RunPanel({ scenarioId, version, definition: given, canRun, blockers = [] }: { scenarioId: string; version: number; definition: unknown; canRun: boolean; blockers?: string[] }) {
@@ -61,6 +55,10 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
   const running = pool.state.phase === "running";
   const progress = pool.state.phase === "running" ? pool.state.progress : null;
   const pct = progress ? Math.floor((progress.done / progress.total) * 100) : pool.state.phase === "done" ? 100 : 0;
+  const doneText =
+    pool.state.phase === "done"
+      ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version." : ""}`
+      : "";
 
   async function start() {
     if (overBudget) return;
@@ -133,12 +131,10 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
                 every frame on the main thread — a core's share the engine workers lose on a small machine. */}
             <div className="h-full bg-brand-600" style={{ width: `${pct}%` }} />
           </div>
-          <p className="mt-2 text-sm text-muted" aria-live="polite">
-            {progress
-              ? `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSeconds(progress.secondsLeft)} · ${workerCount(pool.state.phase === "running" ? pool.state.workers : 1)}`
-              : pool.state.phase === "done"
-                ? `Done: ${iterations.toLocaleString("en-US")} iterations in ${(pool.state.durationMs / 1000).toFixed(1)} s. ${save.isPending ? "Saving…" : save.isSuccess ? "Saved with this version." : ""}`
-                : ""}
+          {/* The live region stays in place from start to end: only quarters are spoken while the run goes, then its end. */}
+          <p className="mt-2 text-sm text-muted">
+            {progress && `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSecondsLeft(progress.secondsLeft)} · ${workerCount(pool.state.phase === "running" ? pool.state.workers : 1)}`}
+            <span aria-live="polite">{progress ? <span className="sr-only">{progressAnnouncement(progress.done / progress.total)}</span> : doneText}</span>
           </p>
         </div>
       )}
