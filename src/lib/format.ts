@@ -22,6 +22,18 @@ export function formatIsoDate(iso: string | null | undefined): string {
   return isValid(d) ? format(d, DATE_PATTERN) : iso;
 }
 
+/** A local calendar date "2027-04-08" → "Thu 8 Apr 2027" (`long`: "Thursday 8 Apr 2027"; `year: false`: "Thu 8 Apr"). */
+export function formatIsoDay(iso: string, { long = false, year = true }: { long?: boolean; year?: boolean } = {}): string {
+  const d = parseISO(iso.slice(0, 10));
+  return isValid(d) ? format(d, `${long ? "EEEE" : "EEE"} d MMM${year ? " yyyy" : ""}`) : iso;
+}
+
+/** A local time "2027-04-08T07:00" (no zone: a clock reading where the work is) → "8 Apr 2027 07:00" (`year: false`: "8 Apr 07:00"). */
+export function formatIsoClock(iso: string, { year = true }: { year?: boolean } = {}): string {
+  const d = parseISO(iso.slice(0, 10));
+  return isValid(d) ? `${format(d, year ? DATE_PATTERN : "d MMM")} ${iso.slice(11, 16)}` : iso;
+}
+
 export function formatDateTime(d: Date | string): string {
   const date = typeof d === "string" ? new Date(d) : d;
   return isValid(date) ? format(date, `${DATE_PATTERN}, HH:mm`) : String(d);

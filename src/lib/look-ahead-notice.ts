@@ -3,6 +3,7 @@
  * changed since the last notice. Pure (no server, no clock), so it is tested directly.
  */
 import type { CellStatus, LookAheadDay, NextOpenTime, OperationCell } from "@sim/lookahead";
+import { formatIsoDate, formatIsoDay, monthName } from "./format";
 
 export const STATUS_WORDS: Record<CellStatus, string> = {
   go: "may work",
@@ -14,7 +15,7 @@ export const STATUS_WORDS: Record<CellStatus, string> = {
 export const STATUS_MARKS: Record<CellStatus, string> = { go: "✓", partial: "◐", no: "✗", unknown: "?", closed: "–" };
 
 /**
- * Slot start times (`YYYY-MM-DDTHH:mm`, ascending) as runs of consecutive hours: "12-02 07:00–17:00, 12-02 21:00–12-03 05:00".
+ * Slot start times (`YYYY-MM-DDTHH:mm`, ascending) as runs of consecutive hours: "2 Dec 07:00–17:00, 2 Dec 21:00–3 Dec 05:00".
  * A run ends at the end of its last slot.
  */
 export function hourRanges(times: string[]): string {
@@ -22,7 +23,7 @@ export function hourRanges(times: string[]): string {
   const label = (m: number, withDate: boolean) => {
     const d = new Date(m);
     const p = (n: number) => String(n).padStart(2, "0");
-    return `${withDate ? `${p(d.getUTCMonth() + 1)}-${p(d.getUTCDate())} ` : ""}${p(d.getUTCHours())}:${p(d.getUTCMinutes())}`;
+    return `${withDate ? `${d.getUTCDate()} ${monthName(d.getUTCMonth() + 1)} ` : ""}${p(d.getUTCHours())}:${p(d.getUTCMinutes())}`;
   };
   const runs: [number, number][] = [];
   for (const t of times) {
@@ -51,7 +52,7 @@ export function cellWhy(o: OperationCell): string {
   return o.failing.map((f) => `${f.label.toLowerCase()} from ${f.at[0].slice(11)}`).join("; ");
 }
 
-/** Lines "Thu 2027-04-08, Day shift, Overlay placement: may work → blocked" for cells whose status changed. */
+/** Lines "Thu 8 Apr 2027, Day shift, Overlay placement: may work → blocked" for cells whose status changed. */
 export function changesSince(previous: CompactBoard | null, days: LookAheadDay[]): string[] {
   if (!previous) return [];
   const lines: string[] = [];
@@ -59,7 +60,7 @@ export function changesSince(previous: CompactBoard | null, days: LookAheadDay[]
     for (const s of d.shifts)
       for (const o of s.operations) {
         const before = previous[keyOf(d.date, s.shiftId, o.operationId)];
-        if (before && before !== o.status) lines.push(`${d.weekday.slice(0, 3)} ${d.date}, ${s.name}, ${o.name}: ${STATUS_WORDS[before]} → ${STATUS_WORDS[o.status]}`);
+        if (before && before !== o.status) lines.push(`${formatIsoDay(d.date)}, ${s.name}, ${o.name}: ${STATUS_WORDS[before]} → ${STATUS_WORDS[o.status]}`);
       }
   return lines;
 }
@@ -67,7 +68,7 @@ export function changesSince(previous: CompactBoard | null, days: LookAheadDay[]
 export function boardLines(days: LookAheadDay[]): string[] {
   const lines: string[] = [];
   for (const d of days) {
-    lines.push(`${d.weekday} ${d.date}`);
+    lines.push(formatIsoDay(d.date, { long: true }));
     for (const s of d.shifts)
       for (const o of s.operations) {
         const why = cellWhy(o);
@@ -93,11 +94,11 @@ export function allClosedSentence(days: LookAheadDay[], next: NextOpenTime | nul
   const reasons = [...new Set(cells.map((c) => (c.closedReason ?? "").replace(/\.$/, "").toLowerCase()).filter(Boolean))];
   const why = `No shift on this board can work this week${reasons.length ? ` (${reasons.join("; ")})` : ""}.`;
   if (!next) return `${why} The plan's calendar has no open time left for a weather-gated operation.`;
-  const starts = next.planStart ? ` The plan starts on ${next.planStart}.` : "";
+  const starts = next.planStart ? ` The plan starts on ${formatIsoDate(next.planStart)}.` : "";
   const ops = next.operations; // `;` between them: operation names may hold commas
   const sameDay = ops.every((o) => o.start.slice(0, 10) === ops[0].start.slice(0, 10));
   const when = sameDay
-    ? `on ${ops[0].weekday} ${ops[0].start.slice(0, 10)}: ${ops.map((o) => `${o.operation} from ${o.start.slice(11)}`).join("; ")}`
-    : `for ${ops.map((o) => `${o.operation} on ${o.weekday} ${o.start.replace("T", " at ")}`).join("; ")}`;
+    ? `on ${formatIsoDay(ops[0].start, { long: true })}: ${ops.map((o) => `${o.operation} from ${o.start.slice(11)}`).join("; ")}`
+    : `for ${ops.map((o) => `${o.operation} on ${formatIsoDay(o.start, { long: true })} at ${o.start.slice(11)}`).join("; ")}`;
   return `${why}${starts} Its calendar next opens ${when} — weather permitting: the board judges each day once it is within the forecast's week.`;
 }

@@ -43,13 +43,13 @@ describe("week ahead", () => {
     expect(await cell.getAttribute("data-status")).toBe("no");
     // Read at a glance: a mark and words, not colour alone.
     expect(await cell.textContent()).toMatch(/^✗blocked.*minimum temperature from 07:00/);
-    expect(await cell.getAttribute("aria-label")).toMatch(/Overlay placement, Day shift, \w+ \d{4}-\d{2}-\d{2}: blocked — minimum temperature from 07:00/);
+    expect(await cell.getAttribute("aria-label")).toMatch(/Overlay placement, Day shift, \w+day \d{1,2} [A-Z][a-z]{2} \d{4}: blocked — minimum temperature from 07:00/);
 
     await cell.click();
     const detail = page.getByTestId("cell-detail");
     await detail.waitFor();
     expect(await detail.getByRole("heading", { level: 3 }).textContent()).toContain(`Overlay placement, Day shift`);
-    expect(await detail.getByTestId("failing-gates").textContent()).toMatch(/Minimum temperature fails \d{2}-\d{2} 07:00–17:00/);
+    expect(await detail.getByTestId("failing-gates").textContent()).toMatch(/Minimum temperature fails \d{1,2} [A-Z][a-z]{2} 07:00–17:00/);
     const firstHour = detail.getByTestId("hour-reasons").locator("tbody tr").first();
     expect(await firstHour.textContent()).toMatch(/07:00.*✗ fails.*Minimum temperature: \d+ °F against a minimum of 45 °F/);
     await screenshot(page, "week-ahead-cold-snap");

@@ -10,6 +10,7 @@ import { call, signInAs } from "../helpers/app";
 import { isoDaysFromToday } from "../helpers/progress-fixture";
 import { createLookAheadScenario, fakeRequestCount, FAKE_POINTS, setFakeFailure } from "../helpers/look-ahead-fixture";
 import { findMail } from "../../src/lib/server/mailbox";
+import { formatIsoDay } from "@/lib/format";
 
 const appDb = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
 let admin: string;
@@ -102,7 +103,7 @@ describe("the week ahead", () => {
     await expect.poll(() => findMail({ to, subject: "(1 changed)" }), { timeout: 20_000, interval: 250 }).not.toBeNull();
     const second = findMail({ to, subject: "(1 changed)" })!;
     expect(second.text).toContain("Changed since the last notice:");
-    expect(second.text).toContain(`${key.split("|")[0]}, Day shift, Overlay placement: may work → blocked`);
+    expect(second.text).toContain(`${formatIsoDay(key.split("|")[0])}, Day shift, Overlay placement: may work → blocked`);
     await call(`/api/scenarios/${scenarioId}/look-ahead/notice`, { method: "PUT", cookie: admin, body: { enabled: false, hour: 0, recipients: [to] } });
   });
 });

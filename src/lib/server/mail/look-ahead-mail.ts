@@ -1,5 +1,6 @@
 import "server-only";
 /** The daily look-ahead e-mail: what changed since the last one first, then the whole board, then the link. */
+import { formatIsoDay } from "@/lib/format";
 import { allClosedSentence, boardLines, changesSince, type CompactBoard } from "@/lib/look-ahead-notice";
 import type { LookAheadBoard } from "../look-ahead";
 import type { MailMessage } from "./outbox";
@@ -9,7 +10,7 @@ const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&
 export function lookAheadMail(v: { to: string; scenarioName: string; board: LookAheadBoard; previous: CompactBoard | null; link: string }): MailMessage {
   const changes = changesSince(v.previous, v.board.days);
   const head = [
-    `The week ahead for "${v.scenarioName}" from ${v.board.today}: which shifts may pour, mill or cure, from the weather forecast.`,
+    `The week ahead for "${v.scenarioName}" from ${formatIsoDay(v.board.today, { long: true })}: which shifts may pour, mill or cure, from the weather forecast.`,
     v.board.forecast.message ?? (v.board.forecast.place ? `Forecast for ${v.board.forecast.place}.` : ""),
     allClosedSentence(v.board.days, v.board.nextOpen) ?? "",
     v.previous === null ? "This is the first notice." : changes.length === 0 ? "Nothing changed since the last notice." : "Changed since the last notice:",
@@ -24,5 +25,5 @@ ${changes.length ? `<ul>${changes.map((c) => `<li>${esc(c)}</li>`).join("")}</ul
 ${foot.map((p) => `<p style="color:#555;font-size:13px">${esc(p)}</p>`).join("\n")}
 <p><a href="${esc(v.link)}">Open the look-ahead board</a></p>
 </body></html>`;
-  return { to: v.to, subject: `Week ahead: ${v.scenarioName} from ${v.board.today}${changes.length ? ` (${changes.length} changed)` : ""}`, text, html };
+  return { to: v.to, subject: `Week ahead: ${v.scenarioName} from ${formatIsoDay(v.board.today)}${changes.length ? ` (${changes.length} changed)` : ""}`, text, html };
 }

@@ -1,10 +1,11 @@
 "use client";
+import { formatIsoClock, formatIsoDay } from "@/lib/format";
 import { STATUS_WORDS, hourRanges } from "@/lib/look-ahead-notice";
 import { GATE_LABELS } from "@sim/lookahead-gates";
 import type { LookAheadDay, LookAheadShift, OperationCell } from "@sim/lookahead";
 
 const fmt = (v: number | null, unit: string) => (v === null ? "—" : `${Math.round(v)}${unit}`);
-const hhmm = (iso: string) => `${iso.slice(5, 10)} ${iso.slice(11, 16)}`;
+const hhmm = (iso: string) => formatIsoClock(iso, { year: false });
 
 /** One cell's hour-by-hour reasons: the closure window, each hour's weather and gate verdicts, and for a pour every start tried. */
 export function CellDetail({ day, shift, cell, onClose }: { day: LookAheadDay; shift: LookAheadShift; cell: OperationCell; onClose: () => void }) {
@@ -13,7 +14,7 @@ export function CellDetail({ day, shift, cell, onClose }: { day: LookAheadDay; s
       <div className="flex items-start justify-between gap-3">
         <div>
           <h3 id="cell-detail-heading">
-            {cell.name}, {shift.name}, {day.weekday} {day.date}: {STATUS_WORDS[cell.status]}
+            {cell.name}, {shift.name}, {formatIsoDay(day.date, { long: true })}: {STATUS_WORDS[cell.status]}
           </h3>
           <p className="mt-1 text-sm text-muted">
             Shift {hhmm(shift.start)} – {hhmm(shift.end)}.{" "}

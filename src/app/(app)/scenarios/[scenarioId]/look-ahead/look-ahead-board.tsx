@@ -2,6 +2,7 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { formatIsoClock, formatIsoDay } from "@/lib/format";
 import { STATUS_MARKS, STATUS_WORDS, allClosedSentence, cellWhy } from "@/lib/look-ahead-notice";
 import type { LookAheadDay, NextOpenTime, OperationCell } from "@sim/lookahead";
 import { CellDetail } from "./cell-detail";
@@ -51,14 +52,14 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
   return (
     <section className="card space-y-4" aria-labelledby="board-heading" data-testid="look-ahead">
       <div>
-        <h2 id="board-heading">Week ahead from {b.today}</h2>
+        <h2 id="board-heading">Week ahead from {formatIsoDay(b.today, { long: true })}</h2>
         <p className="mt-1 text-sm text-muted">
           Which shifts may pour, mill or cure, from the hourly weather forecast and this scenario&apos;s gates, shifts and closure windows. Open a cell for the
           hour-by-hour reasons. {b.rainRule}
         </p>
         {f.status === "fresh" && (
           <p className="mt-1 text-sm text-muted" data-testid="forecast-source">
-            Forecast{f.place ? ` for ${f.place}` : ""} from the National Weather Service, fetched {age(f.ageMinutes)}; hours {f.firstHour?.replace("T", " ")} to {f.lastHour?.replace("T", " ")} ({b.timeZone}).
+            Forecast{f.place ? ` for ${f.place}` : ""} from the National Weather Service, fetched {age(f.ageMinutes)}; hours {f.firstHour && formatIsoClock(f.firstHour)} to {f.lastHour && formatIsoClock(f.lastHour)} ({b.timeZone}).
           </p>
         )}
         {f.message && (
@@ -83,7 +84,7 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
                 <th scope="col" className="table-head">Shift and operation</th>
                 {b.days.map((d) => (
                   <th key={d.date} scope="col" className="table-head whitespace-nowrap">
-                    {d.weekday.slice(0, 3)} {d.date.slice(5)}
+                    {formatIsoDay(d.date, { year: false })}
                   </th>
                 ))}
               </tr>
@@ -108,7 +109,7 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
                           data-testid={`cell-${d.date}-${r.shiftId}-${r.opId}`}
                           data-status={c.status}
                           aria-expanded={isOpen}
-                          aria-label={`${r.opName}, ${r.shiftName}, ${d.weekday} ${d.date}: ${STATUS_WORDS[c.status]}${why ? ` — ${why}` : ""}. Show the reasons.`}
+                          aria-label={`${r.opName}, ${r.shiftName}, ${formatIsoDay(d.date, { long: true })}: ${STATUS_WORDS[c.status]}${why ? ` — ${why}` : ""}. Show the reasons.`}
                           onClick={() => setOpen(isOpen ? null : { date: d.date, shiftId: r.shiftId, opId: r.opId })}
                           className={`w-full min-w-24 rounded border px-2 py-1 text-left ${TONE[c.status]} ${isOpen ? "ring-2 ring-brand-600" : ""}`}
                         >

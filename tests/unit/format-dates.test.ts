@@ -1,0 +1,35 @@
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { formatIsoClock, formatIsoDate, formatIsoDay } from "@/lib/format";
+
+// Weekdays checked against a printed calendar of 2026–2027 (3 Dec 2026 is a Thursday; 5 Apr 2027 a Monday).
+describe("date words on the week-ahead board and its e-mail", () => {
+  it("names the weekday, the day and the month, with or without the year", () => {
+    expect(formatIsoDay("2026-12-03")).toBe("Thu 3 Dec 2026");
+    expect(formatIsoDay("2026-12-03", { long: true })).toBe("Thursday 3 Dec 2026");
+    expect(formatIsoDay("2027-04-05", { year: false })).toBe("Mon 5 Apr");
+    expect(formatIsoDay("2027-04-05T09:30")).toBe("Mon 5 Apr 2027");
+  });
+
+  it("reads a clock time where the work is, without shifting it through any time zone", () => {
+    expect(formatIsoClock("2026-12-03T06:00")).toBe("3 Dec 2026 06:00");
+    expect(formatIsoClock("2027-03-14T02:00", { year: false })).toBe("14 Mar 02:00"); // a US spring-forward night
+  });
+
+  it("gives back what it cannot read instead of a wrong date", () => {
+    expect(formatIsoDay("not a date")).toBe("not a date");
+    expect(formatIsoClock("")).toBe("");
+  });
+
+  it("agrees with the long-form date for every day of 1990–2100", () => {
+    fc.assert(
+      fc.property(fc.date({ min: new Date(Date.UTC(1990, 0, 1)), max: new Date(Date.UTC(2100, 11, 31)), noInvalidDate: true }), (d) => {
+        const iso = d.toISOString().slice(0, 10);
+        expect(formatIsoDay(iso)).toMatch(/^(Mon|Tue|Wed|Thu|Fri|Sat|Sun) /);
+        expect(formatIsoDay(iso).slice(4)).toBe(formatIsoDate(iso));
+        const weekday = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"][new Date(`${iso}T12:00:00Z`).getUTCDay()];
+        expect(formatIsoDay(iso).slice(0, 3)).toBe(weekday);
+      }),
+    );
+  });
+});
