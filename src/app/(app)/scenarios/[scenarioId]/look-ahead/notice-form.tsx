@@ -2,6 +2,7 @@
 import { useEffect, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
+import { formatIsoDay } from "@/lib/format";
 
 interface Notice {
   enabled: boolean;
@@ -38,7 +39,8 @@ export function NoticeForm({ scenarioId }: { scenarioId: string }) {
       <h2 id="notice-heading">Daily e-mail</h2>
       <p className="mt-1 text-sm text-muted">
         Sends this board every day at the chosen hour (the scenario&apos;s time zone) to the field team, with what changed since the day before.
-        {q.data?.lastSentOn ? ` Last sent for ${q.data.lastSentOn}.` : ""}
+        {q.data === null ? " Not set up yet: nothing is sent until recipients are saved here." : q.data?.enabled === false ? " Turned off: nothing is sent." : ""}
+        {q.data?.lastSentOn ? ` Last sent for ${formatIsoDay(q.data.lastSentOn)}.` : ""}
       </p>
       <form
         className="mt-3 grid gap-3 sm:grid-cols-[auto_auto_1fr_auto] sm:items-start"
