@@ -127,7 +127,7 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
             data-testid="run-progress"
             className="h-3 w-full overflow-hidden rounded-full bg-paper ring-1 ring-line"
           >
-            {/* No width transition: the bar moves every 150 ms anyway, and an animated width is laid out and painted
+            {/* No width transition: the bar moves a few times a second anyway, and an animated width is laid out and painted
                 every frame on the main thread — a core's share the engine workers lose on a small machine. */}
             <div className="h-full bg-brand-600" style={{ width: `${pct}%` }} />
           </div>
