@@ -34,6 +34,15 @@ export function formatIsoClock(iso: string, { year = true }: { year?: boolean } 
   return isValid(d) ? `${format(d, year ? DATE_PATTERN : "d MMM")} ${iso.slice(11, 16)}` : iso;
 }
 
+/**
+ * A local clock time beside its day's row: "14:35" when it falls on `day` ("YYYY-MM-DD"), else with its date,
+ * "23 May 02:10" (a queue that ran past midnight); "—" for none.
+ */
+export function formatClockOnDay(iso: string | null | undefined, day: string): string {
+  if (!iso) return "—";
+  return iso.slice(0, 10) === day.slice(0, 10) ? iso.slice(11, 16) : formatIsoClock(iso, { year: false });
+}
+
 export function formatDateTime(d: Date | string): string {
   const date = typeof d === "string" ? new Date(d) : d;
   return isValid(date) ? format(date, `${DATE_PATTERN}, HH:mm`) : String(d);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { formatIsoClock, formatIsoDate, formatIsoDay } from "@/lib/format";
+import { formatClockOnDay, formatIsoClock, formatIsoDate, formatIsoDay } from "@/lib/format";
 
 // Weekdays checked against a printed calendar of 2026–2027 (3 Dec 2026 is a Thursday; 5 Apr 2027 a Monday).
 describe("date words on the week-ahead board and its e-mail", () => {
@@ -14,6 +14,12 @@ describe("date words on the week-ahead board and its e-mail", () => {
   it("reads a clock time where the work is, without shifting it through any time zone", () => {
     expect(formatIsoClock("2026-12-03T06:00")).toBe("3 Dec 2026 06:00");
     expect(formatIsoClock("2027-03-14T02:00", { year: false })).toBe("14 Mar 02:00"); // a US spring-forward night
+  });
+
+  it("a queue's clearing time beside its day: the clock alone on that day, with the date past midnight", () => {
+    expect(formatClockOnDay("2026-05-22T14:35", "2026-05-22")).toBe("14:35");
+    expect(formatClockOnDay("2026-05-23T02:10", "2026-05-22")).toBe("23 May 02:10");
+    expect(formatClockOnDay(null, "2026-05-22")).toBe("—");
   });
 
   it("gives back what it cannot read instead of a wrong date", () => {

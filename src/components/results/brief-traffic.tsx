@@ -7,7 +7,7 @@ import type { RunSummary } from "@sim/run-summary-schema";
 import type { Scenario } from "@sim/schema";
 import { describeQueueLimit } from "@sim/queue-limit";
 import { closurePlanRows, limitCheck, longestBackups } from "@/lib/brief-traffic";
-import { formatIsoDate } from "@/lib/format";
+import { formatClockOnDay, formatIsoDate } from "@/lib/format";
 import { BriefTradeoff } from "./brief-tradeoff";
 
 const SHOWN_DAYS = 20;
@@ -83,7 +83,7 @@ export function BriefTraffic({ plan, summary, seed, iterations }: { plan: Scenar
                     <td className="text-center">{d.peakQueueMiles.toFixed(1)}</td>
                     <td className="text-center">{d.peakQueueVeh.toLocaleString("en-US")}</td>
                     <td className="text-center">{d.peakDelayMinutes === undefined ? "—" : Math.round(d.peakDelayMinutes).toLocaleString("en-US")}</td>
-                    <td className="text-center">{d.clearsAt ? d.clearsAt.replace("T", " ") : "—"}</td>
+                    <td className="text-center">{formatClockOnDay(d.clearsAt, d.date)}</td>
                   </tr>
                 ))}
               </tbody>

@@ -9,7 +9,7 @@
 import { CartesianGrid, ComposedChart, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { parseIsoDate } from "@sim/dates";
 import type { NumberQuantiles, RunSummary } from "@sim/summary";
-import { formatIsoDate } from "@/lib/format";
+import { formatClockOnDay, formatIsoDate } from "@/lib/format";
 import { memo } from "react";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
 import { BandsLayer, BarsLayer } from "./chart-layers";
@@ -175,7 +175,7 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
                 <td>{data[i].hours}</td>
                 <td>{d.peakQueueMiles}</td>
                 <td>{num(d.delayVehHours)}</td>
-                <td>{d.clearsAt ? d.clearsAt.replace("T", " ") : "—"}</td>
+                <td>{formatClockOnDay(d.clearsAt, d.date)}</td>
               </tr>
             ))}
           </tbody>

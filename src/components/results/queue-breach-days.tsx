@@ -6,7 +6,7 @@
  */
 import type { RunSummary } from "@sim/summary";
 import { daysOverLimit, describeQueueLimit, type QueueLimit } from "@sim/queue-limit";
-import { formatIsoDate } from "@/lib/format";
+import { formatClockOnDay, formatIsoDate } from "@/lib/format";
 
 const SHOWN = 40;
 
@@ -27,7 +27,8 @@ export function QueueBreachDays({ summary, limit }: { summary: RunSummary; limit
           <p className="mt-1 text-sm">
             {over.length} day{over.length === 1 ? "" : "s"} in the iteration nearest the P50 (the limit is part of the plan, in the plan editor&apos;s Traffic section).
           </p>
-          <table className="mt-2 w-full max-w-2xl text-sm">
+          {/* Figures right-aligned under right-aligned headings, in even-width digits, so a column reads down. */}
+          <table className="mt-2 w-full max-w-2xl text-sm tabular-nums [&_td]:px-2 [&_td]:text-right [&_th]:px-2 [&_thead_th]:text-right [&_thead_th:first-child]:text-left">
             <thead>
               <tr>
                 <th scope="col">Date</th>
@@ -40,11 +41,11 @@ export function QueueBreachDays({ summary, limit }: { summary: RunSummary; limit
             <tbody>
               {over.slice(0, SHOWN).map((d) => (
                 <tr key={d.date}>
-                  <th scope="row">{formatIsoDate(d.date)}</th>
+                  <th scope="row" className="text-left">{formatIsoDate(d.date)}</th>
                   <td>{d.peakQueueMiles.toFixed(2)}</td>
                   <td>{d.peakQueueVeh.toLocaleString("en-US")}</td>
                   <td>{d.peakDelayMinutes === undefined ? "—" : Math.round(d.peakDelayMinutes).toLocaleString("en-US")}</td>
-                  <td>{d.clearsAt ? d.clearsAt.replace("T", " ") : "—"}</td>
+                  <td>{formatClockOnDay(d.clearsAt, d.date)}</td>
                 </tr>
               ))}
             </tbody>
