@@ -10,10 +10,13 @@ import { signedIn as signedInAs } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
+import { formatIsoDay } from "@/lib/format";
 
 let browser: Browser;
 let scenarioId: string;
 const day = (n: number) => isoDaysFromToday(-21 + n);
+/** The form's confirmation of a recorded shift: the operation, the shift, the day in words, the stations. */
+const recorded = (operation: string, iso: string) => new RegExp(`^Recorded ${operation}, .+ of ${formatIsoDay(iso)}, STA \\d+\\+\\d{2} to STA \\d+\\+\\d{2}\\.$`);
 
 beforeAll(async () => {
   browser = await launch();
@@ -51,16 +54,16 @@ describe("field log", () => {
     await expect.poll(() => log.tab("progress").getAttribute("aria-current")).toBe("page");
 
     await recordShift(inspector, { date: day(1), op: "milling", from: 0, to: 500, temp: 58 });
-    await inspector.getByText(`Recorded ${day(1)} (day).`).waitFor();
+    await inspector.getByText(recorded("Mechanical milling", day(1))).waitFor();
     // Overlay ahead of milling: refused, and the message stands under the field it names.
     await recordShift(inspector, { date: day(1), op: "overlay", from: 0, to: 700 });
     const err = inspector.locator("#new-toStationFt-error");
     await err.waitFor();
     expect(await err.textContent()).toMatch(/Overlay placement cannot be recorded ahead of Mechanical milling/);
     await recordShift(inspector, { date: day(2), op: "milling", from: 500, to: 1000, temp: 61 });
-    await inspector.getByText(`Recorded ${day(2)} (day).`).waitFor();
+    await inspector.getByText(recorded("Mechanical milling", day(2))).waitFor();
     await recordShift(inspector, { date: day(2), op: "overlay", from: 0, to: 400, temp: 61 });
-    await inspector.getByText(`Recorded ${day(2)} (day).`).waitFor();
+    await inspector.getByText(recorded("Overlay placement", day(2))).waitFor();
     await expect.poll(() => inspector.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(3);
     expect(await inspector.getByTestId("reforecast-button").count()).toBe(0); // inspectors record, engineers forecast
     await screenshot(inspector, "field-log-inspector");

@@ -10,6 +10,7 @@ import { useFieldArray, useForm, type FieldPath } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { api, ApiError } from "@/lib/api-client";
 import { formatStation } from "@/lib/format";
+import { recordedText } from "./recorded-text";
 import { DISCOVERED_KINDS, DISCOVERED_LABELS, progressEntrySchema, type ProgressEntry, type ProgressEntryInput } from "@/lib/progress-schema";
 
 export interface PlanFacts {
@@ -70,7 +71,7 @@ export function ProgressForm({
     try {
       if (editing) await api(`/api/progress/${entryId}`, { method: "PUT", body: { ...values, version } });
       else await api(`/api/scenarios/${scenarioId}/progress`, { method: "POST", body: values });
-      setStatus({ bad: false, text: editing ? "Saved." : `Recorded ${values.workDate} (${values.shift}).` });
+      setStatus({ bad: false, text: editing ? "Saved." : recordedText(values, facts) });
       if (!editing) reset({ ...values, fromStationFt: values.toStationFt, toStationFt: Math.min(facts.deckTo, values.toStationFt + (values.toStationFt - values.fromStationFt)), lostHours: 0, lostReason: "", discovered: [] });
       router.refresh();
       onDone?.();
