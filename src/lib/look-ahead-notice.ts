@@ -3,7 +3,7 @@
  * changed since the last notice. Pure (no server, no clock), so it is tested directly.
  */
 import type { CellStatus, LookAheadDay, NextOpenTime, OperationCell } from "@sim/lookahead";
-import { formatIsoDate, formatIsoDay, monthName } from "./format";
+import { formatIsoClock, formatIsoDate, formatIsoDay } from "./format";
 
 export const STATUS_WORDS: Record<CellStatus, string> = {
   go: "may work",
@@ -21,9 +21,8 @@ export const STATUS_MARKS: Record<CellStatus, string> = { go: "âœ“", partial: "â
 export function hourRanges(times: string[]): string {
   const ms = (t: string) => Date.UTC(+t.slice(0, 4), +t.slice(5, 7) - 1, +t.slice(8, 10), +t.slice(11, 13), +t.slice(14, 16));
   const label = (m: number, withDate: boolean) => {
-    const d = new Date(m);
-    const p = (n: number) => String(n).padStart(2, "0");
-    return `${withDate ? `${d.getUTCDate()} ${monthName(d.getUTCMonth() + 1)} ` : ""}${p(d.getUTCHours())}:${p(d.getUTCMinutes())}`;
+    const iso = new Date(m).toISOString().slice(0, 16); // the local clock reading, carried in UTC fields
+    return withDate ? formatIsoClock(iso, { year: false }) : iso.slice(11);
   };
   const runs: [number, number][] = [];
   for (const t of times) {
