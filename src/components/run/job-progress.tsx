@@ -6,7 +6,7 @@
 import { useEffect } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { progressAnnouncement } from "./progress-announcement";
+import { ProgressLine } from "./progress-line";
 
 export interface JobState {
   id: string;
@@ -71,11 +71,12 @@ export function JobProgress({ job, label, unit = "iterations", canCancel }: { jo
           </button>
         )}
       </div>
-      {/* As in the run panel: the live region speaks quarters while the job runs, then how it ended. */}
-      <p className="mt-1 text-sm text-muted">
-        {job.status === "running" && `${job.progress.done.toLocaleString("en-US")} of ${job.progress.total.toLocaleString("en-US")} ${unit} · ${formatSecondsLeft(job.progress.secondsLeft)}`}
-        <span aria-live="polite">{job.status === "running" ? <span className="sr-only">{progressAnnouncement(job.progress.fraction)}</span> : ended}</span>
-      </p>
+      <ProgressLine
+        className="mt-1 text-sm text-muted"
+        detail={job.status === "running" ? `${job.progress.done.toLocaleString("en-US")} of ${job.progress.total.toLocaleString("en-US")} ${unit} · ${formatSecondsLeft(job.progress.secondsLeft)}` : null}
+        fraction={job.progress.fraction}
+        ended={ended}
+      />
     </div>
   );
 }

@@ -12,7 +12,7 @@ import { useJsonStable } from "../use-json-stable";
 import { publishLocalRun, updateLocalRun } from "./local-runs";
 import { useEnginePool } from "./use-engine-pool";
 import { formatSecondsLeft, JobProgress, useJob } from "./job-progress";
-import { progressAnnouncement } from "./progress-announcement";
+import { ProgressLine } from "./progress-line";
 
 interface SaveBody {
   seed: string;
@@ -131,11 +131,12 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
                 every frame on the main thread — a core's share the engine workers lose on a small machine. */}
             <div className="h-full bg-brand-600" style={{ width: `${pct}%` }} />
           </div>
-          {/* The live region stays in place from start to end: only quarters are spoken while the run goes, then its end. */}
-          <p className="mt-2 text-sm text-muted">
-            {progress && `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSecondsLeft(progress.secondsLeft)} · ${workerCount(pool.state.phase === "running" ? pool.state.workers : 1)}`}
-            <span aria-live="polite">{progress ? <span className="sr-only">{progressAnnouncement(progress.done / progress.total)}</span> : doneText}</span>
-          </p>
+          <ProgressLine
+            className="mt-2 text-sm text-muted"
+            detail={progress && `${progress.done.toLocaleString("en-US")} of ${progress.total.toLocaleString("en-US")} iterations · ${Math.round(progress.perSecond).toLocaleString("en-US")} per second · ${formatSecondsLeft(progress.secondsLeft)} · ${workerCount(pool.state.phase === "running" ? pool.state.workers : 1)}`}
+            fraction={progress ? progress.done / progress.total : 1}
+            ended={doneText}
+          />
         </div>
       )}
       {overBudget && (
