@@ -4,12 +4,13 @@
  * size asked for by hand; which run the Outlook shows while a browser run is saved; the delay chart's axis top.
  */
 import { describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { readFileSync } from "node:fs";
 import { createEngineApi, partialBuffers } from "../../workers/engine-api";
 import { runInPool, type EngineHandle } from "../../workers/pool";
 import { requestedPoolSize } from "../../workers/ranges";
 import { chooseShownRun, type LocalRun } from "../../src/components/run/local-runs";
-import { niceCeiling } from "../../src/components/results/delay-panel";
+import { niceCeiling, niceTicks } from "../../src/components/results/delay-panel";
 
 const small = JSON.parse(readFileSync(new URL("../../scenarios/small-deterministic.json", import.meta.url), "utf8"));
 const stochastic = {
@@ -125,5 +126,27 @@ describe("chooseShownRun", () => {
 describe("niceCeiling", () => {
   it("rounds up to 1, 2 or 5 times a power of ten", () => {
     expect([0, 0.3, 1, 7, 11, 16, 20, 21, 48, 230].map(niceCeiling)).toEqual([1, 0.5, 1, 10, 20, 20, 20, 50, 50, 500]);
+  });
+});
+
+describe("niceTicks", () => {
+  it("splits the axis into equal steps that end on its top", () => {
+    expect(niceTicks(50)).toEqual([0, 10, 20, 30, 40, 50]);
+    expect(niceTicks(20)).toEqual([0, 5, 10, 15, 20]);
+    expect(niceTicks(10)).toEqual([0, 2, 4, 6, 8, 10]);
+    expect(niceTicks(0.5)).toEqual([0, 0.1, 0.2, 0.3, 0.4, 0.5]);
+    expect(niceTicks(200)).toEqual([0, 50, 100, 150, 200]);
+  });
+  it("gives equal steps for every top niceCeiling can choose", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1e-3, max: 1e6, noNaN: true }), (max) => {
+        const top = niceCeiling(max);
+        const t = niceTicks(top);
+        expect(t[0]).toBe(0);
+        expect(t[t.length - 1]).toBeCloseTo(top, 9);
+        const step = t[1] - t[0];
+        for (let i = 1; i < t.length; i++) expect(t[i] - t[i - 1]).toBeCloseTo(step, 9);
+      }),
+    );
   });
 });

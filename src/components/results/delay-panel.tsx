@@ -86,6 +86,16 @@ export function niceCeiling(max: number): number {
   return ([1, 2, 5, 10].find((m) => m * p >= max) ?? 10) * p;
 }
 
+/**
+ * Evenly spaced ticks from 0 to a `niceCeiling` top: fifths of 1 × 10ᵏ and 5 × 10ᵏ, quarters of 2 × 10ᵏ. The
+ * chart library's own choice for a top of 50 was 0, 15, 30, 50 — uneven steps a reader takes for a misprint.
+ */
+export function niceTicks(top: number): number[] {
+  const lead = top / 10 ** Math.floor(Math.log10(top) + 1e-9);
+  const steps = Math.abs(lead - 2) < 1e-9 ? 4 : 5;
+  return Array.from({ length: steps + 1 }, (_, i) => Number(((top * i) / steps).toPrecision(12)));
+}
+
 function DayTip({ active, payload }: { active?: boolean; payload?: readonly { payload?: DayRow }[] }) {
   const row = payload?.[0]?.payload;
   if (!active || !row || !row.date) return null;
@@ -146,7 +156,7 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
               tick={AXIS_TICK}
               label={{ value: "Date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
             />
-            <YAxis yAxisId="h" type="number" domain={[0, hoursTop]} allowDataOverflow tick={AXIS_TICK} width={56} label={{ value: "Lane-closed hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
+            <YAxis yAxisId="h" type="number" domain={[0, hoursTop]} ticks={niceTicks(hoursTop)} allowDataOverflow tick={AXIS_TICK} width={56} label={{ value: "Lane-closed hours", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
             {/* Wide enough for the ticks and the title beside them; the title is centred on the axis, never cut. */}
             <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={64} label={{ value: "Longest queue (mi)", angle: 90, position: "insideRight", offset: 4, style: { textAnchor: "middle" }, fill: "var(--color-ink)", fontSize: 12 }} />
             <Tooltip content={DayTip} />

@@ -10,7 +10,7 @@ const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&
 export function lookAheadMail(v: { to: string; scenarioName: string; board: LookAheadBoard; previous: CompactBoard | null; link: string }): MailMessage {
   const changes = changesSince(v.previous, v.board.days);
   const head = [
-    `The week ahead for "${v.scenarioName}" from ${formatIsoDay(v.board.today, { long: true })}: which shifts may pour, mill or cure, from the weather forecast.`,
+    `The week ahead for "${v.scenarioName}" from ${formatIsoDay(v.board.today, { long: true })}: which shifts of the operations with a weather gate may work, from the weather forecast.`,
     v.board.forecast.message ?? (v.board.forecast.place ? `Forecast for ${v.board.forecast.place}.` : ""),
     allClosedSentence(v.board.days, v.board.nextOpen) ?? "",
     v.previous === null ? "This is the first notice." : changes.length === 0 ? "Nothing changed since the last notice." : "Changed since the last notice:",

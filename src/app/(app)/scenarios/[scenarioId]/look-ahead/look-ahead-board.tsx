@@ -54,8 +54,8 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
       <div>
         <h2 id="board-heading">Week ahead from {formatIsoDay(b.today, { long: true })}</h2>
         <p className="mt-1 text-sm text-muted">
-          Which shifts may pour, mill or cure, from the hourly weather forecast and this scenario&apos;s gates, shifts and closure windows. Open a cell for the
-          hour-by-hour reasons. {b.rainRule}
+          Which shifts of the operations with a weather gate may work, from the hourly weather forecast and this scenario&apos;s gates, shifts and closure
+          windows; operations without one follow the calendar alone and are not shown. Open a cell for the hour-by-hour reasons. {b.rainRule}
         </p>
         {f.status === "fresh" && (
           <p className="mt-1 text-sm text-muted" data-testid="forecast-source">

@@ -5,7 +5,7 @@
  */
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { AXIS_TICK, GRID_STROKE, seriesStyle } from "@/components/results/chart-style";
-import { formatDay, isoToDay } from "@/components/results/date-axis";
+import { dateTicks, formatDay, isoToDay } from "@/components/results/date-axis";
 import { LineSwatch } from "@/components/results/legend-swatch";
 import { formatIsoDate } from "@/lib/format";
 
@@ -20,6 +20,9 @@ export function DriftChart({ points }: { points: DriftPoint[] }) {
   const ys = data.flatMap((d) => [d.p50, d.p80]).filter((y): y is number => y !== null);
   const lo = ys.length ? Math.min(...ys) - 3 : 0;
   const hi = ys.length ? Math.max(...ys) + 3 : 1;
+  // Calendar-aligned ticks (weeks on a Monday, or firsts of months) as the other date axes: left to itself the
+  // chart library spaced them 20, 20 and then 23 days apart, ending on whatever date the domain ended on.
+  const { ticks, label } = dateTicks(lo, hi, 6);
   const p50 = seriesStyle(0);
   const p80 = seriesStyle(1);
   return (
@@ -29,7 +32,7 @@ export function DriftChart({ points }: { points: DriftPoint[] }) {
           <LineChart data={data} margin={{ top: 12, right: 24, bottom: 28, left: 16 }} accessibilityLayer={false}>
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
             <XAxis dataKey="label" tick={AXIS_TICK} label={{ value: "Data date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }} />
-            <YAxis type="number" domain={[lo, hi]} tickFormatter={(v: number) => formatDay(v)} tick={AXIS_TICK} width={96} allowDecimals={false} />
+            <YAxis type="number" domain={[lo, hi]} ticks={ticks} interval={0} tickFormatter={label} tick={AXIS_TICK} width={104} allowDecimals={false} />
             <Tooltip formatter={(v) => (typeof v === "number" ? formatDay(v) : String(v))} />
             <Line dataKey="p50" name="P50 finish" stroke={p50.stroke} strokeWidth={2} isAnimationActive={false} connectNulls={false} />
             <Line dataKey="p80" name="P80 finish" stroke={p80.stroke} strokeDasharray={p80.strokeDasharray} strokeWidth={2} isAnimationActive={false} connectNulls={false} />

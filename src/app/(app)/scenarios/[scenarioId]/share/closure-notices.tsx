@@ -9,6 +9,7 @@ import { api } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
 import { formatDateTime } from "@/lib/format";
 import { closureSubscriberSchema } from "@/lib/schemas";
+import { publishLabel } from "./publish-label";
 
 interface Subscriber {
   id: string;
@@ -147,7 +148,7 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
         <div>
           <h3>Publish</h3>
           <button type="button" className="btn-primary mt-2" disabled={publish.isPending} onClick={() => (publish.reset(), setConfirming(true))} data-testid="publish-closures">
-            {`Publish closures and notify ${subs.data?.length ?? 0}…`}
+            {publishLabel(subs.data?.length ?? 0)}
           </button>
           {confirming && (
             <ConfirmDialog
