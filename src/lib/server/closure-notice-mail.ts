@@ -1,4 +1,5 @@
 import "server-only";
+import { formatClockOnDay, formatIsoDay } from "@/lib/format";
 import type { MailMessage } from "./mail/outbox";
 
 function esc(s: string): string {
@@ -15,19 +16,24 @@ export function closureNoticeMail(v: {
   structure: string;
   timeZone: string;
   count: number;
+  /** Closure periods that end on or after `today` (local `YYYY-MM-DD`); `upcoming` lists the first of them. */
+  ahead: number;
+  today: string;
   upcoming: { start: string; end: string; name: string; lanes: string[]; kind?: "short" | "standing" }[];
   feedUrl: string;
   advisoryUrl?: string;
 }): MailMessage {
-  const when = (s: string) => s.replace("T", " ");
-  const lines = v.upcoming.map((c) => `${when(c.start)} – ${when(c.end)}  ${c.name} (${c.lanes.join(", ")} closed${c.kind === "standing" ? " round the clock" : ""})`);
-  const intro = `Planned lane closures for ${v.structure} have been published: ${v.count} closure period${v.count === 1 ? "" : "s"} in all. Times are local (${v.timeZone}) planning estimates and will move with weather and progress.`;
+  // Days in words — "Tue 6 Apr 2027 21:00 – 7 Apr 05:00" — not ISO dates: the notice goes to the public.
+  const lines = v.upcoming.map((c) => `${formatIsoDay(c.start)} ${c.start.slice(11, 16)} – ${formatClockOnDay(c.end, c.start)}  ${c.name} (${c.lanes.join(", ")} closed${c.kind === "standing" ? " round the clock" : ""})`);
+  const periods = (n: number) => `${n.toLocaleString("en-US")} closure period${n === 1 ? "" : "s"}`;
+  const intro = `Planned lane closures for ${v.structure} have been published: ${periods(v.count)} in all, ${v.ahead === v.count ? "all of them" : v.ahead.toLocaleString("en-US")} from today (${formatIsoDay(v.today)}) on. Times are local (${v.timeZone}) planning estimates and will move with weather and progress.`;
+  const heading = v.upcoming.length === 0 ? "No closure is planned from today on." : v.upcoming.length < v.ahead ? "The next closures:" : "The closures:";
   const follow = "Subscribe to the calendar below to see every closure and follow changes; it updates when the plan is published again.";
   const advisory = v.advisoryUrl ? `Travel advisory for drivers (expected backups and hours to avoid, day by day): ${v.advisoryUrl}` : "";
   return {
     to: v.to,
     subject: `Lane closures planned: ${v.structure}`,
-    text: `${intro}\n\nThe first closures:\n${lines.join("\n")}\n\n${follow}\n${v.feedUrl}\n${advisory ? `\n${advisory}\n` : ""}`,
-    html: `<!doctype html><html><body style="font-family:sans-serif;line-height:1.5"><p>${esc(intro)}</p><p>The first closures:</p><ul>${lines.map((l) => `<li>${esc(l)}</li>`).join("")}</ul><p>${esc(follow)}</p><p><a href="${esc(v.feedUrl)}">Closure calendar</a></p>${v.advisoryUrl ? `<p><a href="${esc(v.advisoryUrl)}">Travel advisory</a></p>` : ""}</body></html>`,
+    text: `${intro}\n\n${heading}\n${lines.join("\n")}${lines.length ? "\n" : ""}\n${follow}\n${v.feedUrl}\n${advisory ? `\n${advisory}\n` : ""}`,
+    html: `<!doctype html><html><body style="font-family:sans-serif;line-height:1.5"><p>${esc(intro)}</p><p>${esc(heading)}</p>${lines.length ? `<ul>${lines.map((l) => `<li>${esc(l)}</li>`).join("")}</ul>` : ""}<p>${esc(follow)}</p><p><a href="${esc(v.feedUrl)}">Closure calendar</a></p>${v.advisoryUrl ? `<p><a href="${esc(v.advisoryUrl)}">Travel advisory</a></p>` : ""}</body></html>`,
   };
 }

@@ -6,7 +6,8 @@ import { getLatestRun } from "@db/queries/runs";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { createShareLink } from "@db/queries/shares";
 import type { RunSummary } from "@sim/index";
-import { closureLocalTimes } from "@/lib/exports/closures";
+import { closureLocalTimes, hoursSince } from "@/lib/exports/closures";
+import { todayIn } from "@/lib/progress-schema";
 import { AppError } from "./errors";
 import { closuresOfRun } from "./exports";
 import { enqueueMailsFor } from "./mail/outbox";
@@ -15,7 +16,7 @@ import { validateDefinition } from "./scenario-input";
 import { newShareToken } from "./share-token";
 
 const FEED_DAYS = 365;
-/** The notice lists this many closures; the feed and the advisory carry them all. */
+/** The notice lists this many of the closures from today on; the feed carries them all, the advisory those ahead. */
 const NOTICE_LINES = 12;
 
 /** Placeholders for the links in a preview: publishing creates them, so the preview names them in words. */
@@ -25,15 +26,19 @@ const PREVIEW_LINKS = { feedUrl: "(a new calendar link, created when you publish
  * What a publication of the latest run would send — the same text the preview shows and the outbox gets.
  * Refused, like publishing, when there is no run or it is stale.
  */
-async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: string; advisoryUrl: string }) {
+async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: string; advisoryUrl: string }, now = new Date()) {
   const run = await getLatestRun({ scenarioId: scenario.id });
   if (!run) throw new AppError("conflict", "Run the scenario before publishing its closures.");
   if (run.scenarioVersion !== scenario.version) throw new AppError("conflict", "The latest run is stale (the plan changed since). Run it again before publishing closures.");
   const definition = validateDefinition(scenario.definition);
   const closures = closuresOfRun(run.results as unknown as RunSummary);
   const [project, subscribers] = await Promise.all([getProject({ id: scenario.projectId }), listClosureSubscribers({ projectId: scenario.projectId })]);
-  const upcoming = closures.slice(0, NOTICE_LINES).map((c) => ({ ...closureLocalTimes(c, definition.startDate), name: c.name, lanes: c.lanes, kind: c.kind }));
-  const mail = (to: string) => closureNoticeMail({ to, structure: project?.structureName ?? scenario.name, timeZone: definition.timeZone, count: closures.length, upcoming, ...links });
+  // A plan run months ago still lists its first closures; people are told what lies ahead of today (where the work is).
+  const today = todayIn(definition.timeZone, now);
+  const ahead = closures.filter((c) => c.end > hoursSince(definition.startDate, `${today}T00:00`));
+  const upcoming = ahead.slice(0, NOTICE_LINES).map((c) => ({ ...closureLocalTimes(c, definition.startDate), name: c.name, lanes: c.lanes, kind: c.kind }));
+  const mail = (to: string) =>
+    closureNoticeMail({ to, structure: project?.structureName ?? scenario.name, timeZone: definition.timeZone, count: closures.length, ahead: ahead.length, today, upcoming, ...links });
   return { run, closures, subscribers, mail };
 }
 

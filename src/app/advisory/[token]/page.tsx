@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { buildAdvisory, AVOID_MILES } from "@/lib/advisory";
 import { formatDateTime, formatIsoDate } from "@/lib/format";
 import { orNotFound } from "@/lib/server/page-access";
+import { todayIn } from "@/lib/progress-schema";
 import { requirePublishedPlan } from "@/lib/server/published-plan";
 import { DriverAdvice } from "./driver-advice";
 import { describeQueueLimit, queueLimitOf } from "@sim/queue-limit";
@@ -9,11 +10,6 @@ import { describeQueueLimit, queueLimitOf } from "@sim/queue-limit";
 // The token is a bearer secret: keep the page out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Travel advisory", robots: { index: false, follow: false }, referrer: "no-referrer" };
 export const dynamic = "force-dynamic";
-
-/** Today's date where the work is (the plan's time zone), `YYYY-MM-DD`. */
-function todayIn(timeZone: string): string {
-  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(new Date());
-}
 
 /**
  * The public travel advisory of one published closure plan: no sign-in; the token opens this page and the

@@ -7,6 +7,7 @@ import { can } from "@/lib/permissions";
 import { ScenarioTable } from "./scenario-table";
 import { LocationForm } from "./location-form";
 import { orNotFound } from "@/lib/server/page-access";
+import { Breadcrumb } from "@/components/breadcrumb";
 
 export const metadata: Metadata = { title: "Project" };
 
@@ -16,12 +17,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { project, role } = access;
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-muted">
-        <Link href="/projects" className="hover:text-ink">
-          Projects
-        </Link>{" "}
-        / <span className="text-ink">{project.name}</span>
-      </nav>
+      <Breadcrumb here={project.name} />
       <header className="flex flex-wrap items-start justify-between gap-4">
         <div>
           <div className="flex items-center gap-3">

@@ -1,4 +1,3 @@
-import Link from "next/link";
 import { requireScenario } from "@/lib/server/access";
 import { getProject } from "@db/queries/projects";
 import { RoleBadge } from "@/components/role-badge";
@@ -6,6 +5,7 @@ import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import { ScenarioTabs } from "./scenario-tabs";
 import { orNotFound } from "@/lib/server/page-access";
+import { Breadcrumb } from "@/components/breadcrumb";
 
 export default async function ScenarioLayout({ children, params }: { children: React.ReactNode; params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
@@ -14,16 +14,7 @@ export default async function ScenarioLayout({ children, params }: { children: R
   const project = await getProject({ id: scenario.projectId });
   return (
     <div className="space-y-5">
-      <nav aria-label="Breadcrumb" className="text-sm text-muted">
-        <Link href="/projects" className="hover:text-ink">
-          Projects
-        </Link>{" "}
-        /{" "}
-        <Link href={`/projects/${scenario.projectId}`} className="hover:text-ink">
-          {project?.name}
-        </Link>{" "}
-        / <span className="text-ink">{scenario.name}</span>
-      </nav>
+      <Breadcrumb project={{ id: scenario.projectId, name: project?.name ?? "Project" }} here={scenario.name} />
       <header className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <div className="flex flex-wrap items-center gap-3">

@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { requireProject } from "@/lib/server/access";
 import { can } from "@/lib/permissions";
 import { MAX_COMPARE } from "@/components/results/compare-logic";
 import { CompareView } from "./compare-view";
 import { orNotFound } from "@/lib/server/page-access";
+import { Breadcrumb } from "@/components/breadcrumb";
 
 export const metadata: Metadata = { title: "Compare scenarios" };
 
@@ -22,16 +22,7 @@ export default async function ComparePage({
   const initialIds = [...new Set(raw.split(",").map((s) => s.trim()).filter(Boolean))].slice(0, MAX_COMPARE);
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-muted">
-        <Link href="/projects" className="hover:text-ink">
-          Projects
-        </Link>{" "}
-        /{" "}
-        <Link href={`/projects/${project.id}`} className="hover:text-ink">
-          {project.name}
-        </Link>{" "}
-        / <span className="text-ink">Compare</span>
-      </nav>
+      <Breadcrumb project={{ id: project.id, name: project.name }} here={"Compare"} />
       <header>
         <h1>Compare scenarios</h1>
         <p className="mt-1 text-sm text-muted">

@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { requireProject } from "@/lib/server/access";
 import { listProjectScenarios } from "@db/queries/scenarios";
 import { NewScenarioForm } from "./new-scenario-form";
 import { orRefused } from "@/lib/server/page-access";
+import { Breadcrumb } from "@/components/breadcrumb";
 
 export const metadata: Metadata = { title: "New scenario" };
 
@@ -13,12 +13,7 @@ export default async function NewScenarioPage({ params }: { params: Promise<{ pr
   const existing = await listProjectScenarios({ projectId });
   return (
     <div className="mx-auto max-w-2xl space-y-5">
-      <nav aria-label="Breadcrumb" className="text-sm text-muted">
-        <Link href={`/projects/${project.id}`} className="hover:text-ink">
-          {project.name}
-        </Link>{" "}
-        / <span className="text-ink">New scenario</span>
-      </nav>
+      <Breadcrumb project={{ id: project.id, name: project.name }} here={"New scenario"} />
       <h1>New scenario</h1>
       <NewScenarioForm
         projectId={project.id}
