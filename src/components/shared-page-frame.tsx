@@ -20,7 +20,9 @@ export function SharedPageFrame({ expiresAt, project, children }: { expiresAt: D
       </header>
       <main id="main" className="mx-auto max-w-7xl space-y-5 px-5 py-6">
         {project && (
-          <p className="-mb-4 text-sm text-muted" data-testid="shared-project">
+          // mb-1 replaces the stack's gap below this line (space-y sets the margin after each child; a negative one
+          // pulled the heading up over this line), so the project line sits just above the title it belongs to.
+          <p className="mb-1 text-sm text-muted" data-testid="shared-project">
             {project.name} · {project.structureName} · {project.region}
           </p>
         )}

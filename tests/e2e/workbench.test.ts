@@ -187,6 +187,10 @@ describe("workbench", () => {
     await pub.goto(url);
     expect((await pub.getByTestId("p80-date").first().textContent())!.trim()).toBe(p80);
     expect(await pub.getByText("Sign out").count()).toBe(0);
+    // The project line sits above the title, not under it (a negative margin once drew the title over it).
+    const projectLine = (await pub.getByTestId("shared-project").boundingBox())!;
+    const title = (await pub.getByTestId("scenario-name").boundingBox())!;
+    expect(projectLine.y + projectLine.height).toBeLessThanOrEqual(title.y);
     await screenshot(pub, "shared-public");
     expect(await seriousA11yViolations(pub)).toEqual([]);
 
