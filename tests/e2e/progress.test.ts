@@ -66,6 +66,13 @@ describe("field log", () => {
     await inspector.getByText(recorded("Overlay placement", day(2))).waitFor();
     await expect.poll(() => inspector.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(3);
     expect(await inspector.getByTestId("reforecast-button").count()).toBe(0); // inspectors record, engineers forecast
+    // Choosing an operation continues it: the next entry starts where its last recorded shift stopped.
+    const form = inspector.getByTestId("progress-form");
+    await form.locator("#new-operationId").selectOption("milling");
+    expect(await form.locator("#new-fromStationFt").inputValue()).toBe("1000");
+    expect(await form.locator("#new-toStationFt").inputValue()).toBe("1100");
+    await form.locator("#new-operationId").selectOption("overlay");
+    expect(await form.locator("#new-fromStationFt").inputValue()).toBe("400");
     await screenshot(inspector, "field-log-inspector");
     expect(await seriousA11yViolations(inspector)).toEqual([]);
 

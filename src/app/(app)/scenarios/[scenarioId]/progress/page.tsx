@@ -12,6 +12,7 @@ import type { Scenario } from "@sim/schema";
 import { TimeDistanceChart, type ActualSeries } from "@/components/results/time-distance-chart";
 import { DriftChart, type DriftPoint } from "./drift-chart";
 import { ProgressForm, type PlanFacts } from "./progress-form";
+import { lastRecorded } from "./entry-defaults";
 import { ProgressTable, type EntryView } from "./progress-table";
 import { ReforecastPanel } from "./reforecast-panel";
 import { orNotFound } from "@/lib/server/page-access";
@@ -56,13 +57,15 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   const canRecord = can(role, "recordProgress");
   const canRun = can(role, "runScenario");
   const crewOps = plan.operations.filter((o) => o.kind === "crew");
+  const recorded = lastRecorded(entries, (id) => plan.calendar.shifts.find((s) => s.id === id)?.startHour ?? 0);
   const facts: PlanFacts = {
     startDate: plan.startDate,
     today: todayIn(plan.timeZone),
     deckFrom: plan.deck.startStationFt,
     deckTo: plan.deck.startStationFt + plan.deck.lengthFt,
     shifts: plan.calendar.shifts.map((s) => ({ id: s.id, name: s.name })),
-    operations: crewOps.map((o) => ({ id: o.id, name: o.name })),
+    operations: crewOps.map((o) => ({ id: o.id, name: o.name, shifts: o.shifts, lastToFt: recorded.lastToFt.get(o.id) ?? null })),
+    lastOperationId: recorded.lastOperationId,
   };
   const names = Object.fromEntries(plan.operations.map((o) => [o.id, o.name]));
   const lastDate = entries.reduce((m, e) => (e.workDate > m ? e.workDate : m), "");

@@ -10,6 +10,7 @@ import { useFieldArray, useForm, type FieldPath } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { api, ApiError } from "@/lib/api-client";
 import { formatStation } from "@/lib/format";
+import { continuationOf, type OperationFacts } from "./entry-defaults";
 import { recordedText } from "./recorded-text";
 import { DISCOVERED_KINDS, DISCOVERED_LABELS, progressEntrySchema, type ProgressEntry, type ProgressEntryInput } from "@/lib/progress-schema";
 
@@ -19,7 +20,10 @@ export interface PlanFacts {
   deckFrom: number;
   deckTo: number;
   shifts: { id: string; name: string }[];
-  operations: { id: string; name: string }[];
+  /** Crew operations, with their shifts and where their recorded progress stopped (./entry-defaults). */
+  operations: OperationFacts[];
+  /** The operation of the latest recorded shift: a new entry starts on it. */
+  lastOperationId: string | null;
 }
 
 /** Server paths (`discovered[0].toStationFt`) → form paths (`discovered.0.toStationFt`). */
@@ -44,12 +48,16 @@ export function ProgressForm({
 }) {
   const router = useRouter();
   const editing = !!entryId;
+  const deck = { from: facts.deckFrom, to: facts.deckTo };
+  const calendarShifts = facts.shifts.map((s) => s.id);
+  const startOp = facts.operations.find((o) => o.id === facts.lastOperationId) ?? facts.operations[0];
+  const start = startOp ? continuationOf(startOp, deck, calendarShifts) : { shift: calendarShifts[0] ?? "", fromStationFt: facts.deckFrom, toStationFt: facts.deckFrom + 100 };
   const blank: ProgressEntryInput = {
     workDate: facts.today < facts.startDate ? facts.startDate : facts.today,
-    shift: facts.shifts[0]?.id ?? "",
-    operationId: facts.operations[0]?.id ?? "",
-    fromStationFt: facts.deckFrom,
-    toStationFt: facts.deckFrom + 100,
+    shift: start.shift,
+    operationId: startOp?.id ?? "",
+    fromStationFt: start.fromStationFt,
+    toStationFt: start.toStationFt,
     crew: "",
     tempF: null,
     rain: false,
@@ -57,7 +65,7 @@ export function ProgressForm({
     lostReason: "",
     discovered: [],
   };
-  const { register, handleSubmit, control, setError, reset, formState } = useForm<ProgressEntryInput, unknown, ProgressEntry>({
+  const { register, handleSubmit, control, setError, reset, formState, getValues, setValue } = useForm<ProgressEntryInput, unknown, ProgressEntry>({
     resolver: zodResolver(progressEntrySchema),
     defaultValues: initial ?? blank,
   });
@@ -125,7 +133,21 @@ export function ProgressForm({
           <label className="field-label" htmlFor={`${idp}operationId`}>
             Operation
           </label>
-          <select className="field-input" {...aria("operationId")} {...register("operationId")}>
+          <select
+            className="field-input"
+            {...aria("operationId")}
+            {...register("operationId", {
+              // A new entry follows the chosen operation: its own shift, from where its recorded progress stopped.
+              onChange: (e: { target: { value: string } }) => {
+                const op = facts.operations.find((o) => o.id === e.target.value);
+                if (editing || !op) return;
+                const next = continuationOf(op, deck, calendarShifts, getValues("shift"));
+                setValue("shift", next.shift);
+                setValue("fromStationFt", next.fromStationFt);
+                setValue("toStationFt", next.toStationFt);
+              },
+            })}
+          >
             {facts.operations.map((o) => (
               <option key={o.id} value={o.id}>
                 {o.name}
