@@ -68,11 +68,12 @@ describe("field log", () => {
     expect(await inspector.getByTestId("reforecast-button").count()).toBe(0); // inspectors record, engineers forecast
     // Choosing an operation continues it: the next entry starts where its last recorded shift stopped.
     const form = inspector.getByTestId("progress-form");
-    await form.locator("#new-operationId").selectOption("milling");
-    expect(await form.locator("#new-fromStationFt").inputValue()).toBe("1000");
-    expect(await form.locator("#new-toStationFt").inputValue()).toBe("1100");
     await form.locator("#new-operationId").selectOption("overlay");
     expect(await form.locator("#new-fromStationFt").inputValue()).toBe("400");
+    expect(await form.locator("#new-toStationFt").inputValue()).toBe("500");
+    // Milling reached the deck's end (1,000 ft): a new pass (the next stage's) starts at its beginning.
+    await form.locator("#new-operationId").selectOption("milling");
+    expect(await form.locator("#new-fromStationFt").inputValue()).toBe("0");
     await screenshot(inspector, "field-log-inspector");
     expect(await seriousA11yViolations(inspector)).toEqual([]);
 
