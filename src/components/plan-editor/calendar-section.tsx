@@ -76,6 +76,7 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
           </>
         }
         heads={["Id", "Name", "Lanes closed", "Set-up (h)", "Take-down (h)"]}
+        headClasses={["w-32", "", "w-48", "w-28", "w-28"]}
         minWidthClass="min-w-[760px]"
         readOnly={readOnly}
         addLabel="Add closure"
@@ -99,6 +100,7 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
         title="Closure windows"
         note="When each closure may be set up. An end hour at or before the start hour runs overnight into the next day."
         heads={["Closure", "Day types", "Start hour", "End hour"]}
+        headClasses={["", "w-56", "w-28", "w-40"]}
         minWidthClass="min-w-[760px]"
         readOnly={readOnly}
         addLabel="Add window"

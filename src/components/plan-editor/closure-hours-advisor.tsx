@@ -8,7 +8,7 @@
  */
 import { useDeferredValue, useId, useMemo, useState } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
-import { Bar, CartesianGrid, Cell, ComposedChart, Legend, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { Bar, CartesianGrid, Cell, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { closureHoursAdvice, type ClosureAdvice } from "@sim/advisor";
 import type { ScenarioInput } from "@sim/schema";
 import { parseScenario } from "@sim/validate";
@@ -16,6 +16,7 @@ import { describeQueueLimit, queueLimitOf } from "@sim/queue-limit";
 import { breachWarning, clock, DAY_KIND_LABEL, goodStartRuns, windowLabel } from "@/lib/closure-advice-text";
 import { AXIS_TICK, GRID_STROKE } from "../results/chart-style";
 import { NumberField, SelectField } from "./fields";
+import { LineSwatch } from "@/components/results/legend-swatch";
 
 const keyOf = (a: ClosureAdvice) => `${a.closure}|${a.withStage ?? ""}`;
 
@@ -142,9 +143,8 @@ export function ClosureHoursAdvisor() {
               <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="hour" tick={AXIS_TICK} label={{ value: "Start hour", position: "insideBottom", offset: -14, fill: "var(--color-ink)", fontSize: 12 }} />
               <YAxis yAxisId="h" tick={AXIS_TICK} width={48} domain={[0, 24]} ticks={[0, 6, 12, 18, 24]} label={{ value: "Longest closure (h)", angle: -90, position: "insideLeft", dy: 50, fill: "var(--color-ink)", fontSize: 12 }} />
-              <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={48} label={{ value: lineName, angle: 90, position: "insideRight", dy: -50, fill: "var(--color-ink)", fontSize: 12 }} />
+              <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={48} label={{ value: lineName, angle: 90, position: "insideRight", dy: -60, fill: "var(--color-ink)", fontSize: 12 }} />
               <Tooltip />
-              <Legend verticalAlign="top" height={28} />
               <Bar yAxisId="h" dataKey="longest" name="Longest closure from this hour (h)" isAnimationActive={false}>
                 {data.map((d) => (
                   <Cell key={d.hour} fill={d.fits ? "var(--color-s3)" : "var(--color-s1)"} />
@@ -155,6 +155,27 @@ export function ClosureHoursAdvisor() {
             </ComposedChart>
           </ResponsiveContainer>
         </div>
+        {/* The bars' two colours say whether the planned length fits; the library's legend showed one black square for both. */}
+        <figcaption className="mt-2">
+          <ul className="flex flex-wrap gap-x-5 gap-y-1 text-xs" aria-label="Legend">
+            <li className="flex items-center gap-1.5">
+              <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s3)" }} />
+              Longest closure from this hour: the planned {Math.ceil(plannedLength)} h fit
+            </li>
+            <li className="flex items-center gap-1.5">
+              <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s1)" }} />
+              … shorter than the planned {Math.ceil(plannedLength)} h
+            </li>
+            <li className="flex items-center gap-1.5">
+              <LineSwatch stroke="var(--color-s6)" />
+              {lineName}, planned window
+            </li>
+            <li className="flex items-center gap-1.5">
+              <LineSwatch stroke="var(--color-bad)" strokeDasharray="6 3" />
+              The plan&apos;s limit
+            </li>
+          </ul>
+        </figcaption>
       </figure>
     </section>
   );

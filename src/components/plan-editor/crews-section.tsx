@@ -83,7 +83,7 @@ export function CrewsSection() {
                     <td className="table-cell">
                       <div className="space-y-2">
                         <CheckboxGroup name={`${p}.shifts`} legend={`${who} — shifts`} options={shiftOptions} />
-                        <SelectField name={`${p}.closure`} srPrefix={`${who} — `} label="short-term closure" className="w-44" options={closureOptions} optional />
+                        <SelectField name={`${p}.closure`} srPrefix={`${who} — `} label="short-term closure" className="w-56 max-w-full" options={closureOptions} optional />
                       </div>
                     </td>
                     <td className="table-cell">

@@ -14,13 +14,15 @@ export interface EditableRow {
  * A card holding a table of editable rows (the calendar's shifts, closures and windows): its heading with an
  * Add button, a line saying what the rows mean, the column heads, and each row's cells with a Remove button.
  * Read-only viewers see neither button. `minWidthClass` is a whole Tailwind class written out by the caller
- * (e.g. "min-w-[640px]"), so that Tailwind finds it in the source.
+ * (e.g. "min-w-[640px]"), so that Tailwind finds it in the source; so are `headClasses`, one per column head
+ * (widths: left to the browser, short number columns took as much room as a closure's name, which was cut off).
  */
 export function EditableTable(props: {
   id: string;
   title: string;
   note: ReactNode;
   heads: string[];
+  headClasses?: string[];
   minWidthClass: string;
   readOnly: boolean;
   addLabel: string;
@@ -28,7 +30,7 @@ export function EditableTable(props: {
   addDisabled?: boolean;
   rows: EditableRow[];
 }) {
-  const { id, title, note, heads, minWidthClass, readOnly, addLabel, onAdd, addDisabled, rows } = props;
+  const { id, title, note, heads, headClasses, minWidthClass, readOnly, addLabel, onAdd, addDisabled, rows } = props;
   return (
     <section className="card overflow-x-auto" aria-labelledby={id}>
       <div className="flex items-center justify-between gap-3">
@@ -44,7 +46,7 @@ export function EditableTable(props: {
         <thead>
           <tr>
             {[...heads, ""].map((h, i) => (
-              <th key={i} scope="col" className="table-head">
+              <th key={i} scope="col" className={`table-head ${headClasses?.[i] ?? ""}`}>
                 {h || <span className="sr-only">Actions</span>}
               </th>
             ))}

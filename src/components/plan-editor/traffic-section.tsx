@@ -6,11 +6,13 @@
  * starting profile the engineer then edits; "Remove" takes the part out (the plan then has no delay or cost).
  */
 import { useFormContext, useWatch } from "react-hook-form";
-import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { ScenarioInput } from "@sim/schema";
 import { DEFAULT_QUEUE_LIMIT } from "@sim/queue-limit";
 import { ClosureHoursAdvisor } from "./closure-hours-advisor";
 import { CheckboxField, n, NumberField, SelectField, TextField } from "./fields";
+import { AXIS_TICK, GRID_STROKE } from "@/components/results/chart-style";
+import { LineSwatch } from "@/components/results/legend-swatch";
 
 const KINDS = [
   { key: "weekday", label: "Mon–Thu" },
@@ -188,19 +190,31 @@ function DirectionDemand({ index, name }: { index: number; name: string }) {
           <TextField name={`${base}.name`} label="Direction name" />
           <NumberField name={`${base}.heavyVehicleShare`} label="Heavy-vehicle share (0–1)" step="0.01" min={0} max={1} />
         </div>
-        <figure className="mt-3 h-72" aria-label={`Chart of hourly demand (veh/h) of ${name} for each day kind; the same values are in the table below`} data-testid={`traffic-demand-chart-${index}`}>
-          <ResponsiveContainer width="100%" height="100%" initialDimension={{ width: 700, height: 288 }}>
-            <LineChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
-              <CartesianGrid stroke="var(--color-line)" strokeDasharray="3 3" />
-              <XAxis dataKey="hour" label={{ value: "Hour of day", position: "insideBottom", offset: -14 }} />
-              <YAxis width={64} label={{ value: "veh/h", angle: -90, position: "insideLeft" }} />
-              <Tooltip />
-              <Legend verticalAlign="top" height={28} />
+        <figure className="mt-3" aria-label={`Chart of hourly demand (veh/h) of ${name} for each day kind; the same values are in the table below`} data-testid={`traffic-demand-chart-${index}`}>
+          <div className="h-72" aria-hidden="true">
+            <ResponsiveContainer width="100%" height="100%" initialDimension={{ width: 700, height: 288 }}>
+              <LineChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+                <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
+                <XAxis dataKey="hour" tick={AXIS_TICK} label={{ value: "Hour of day", position: "insideBottom", offset: -14, fill: "var(--color-ink)", fontSize: 12 }} />
+                <YAxis width={64} tick={AXIS_TICK} label={{ value: "veh/h", angle: -90, position: "insideLeft", fill: "var(--color-ink)", fontSize: 12 }} />
+                <Tooltip />
+                {KINDS.map((k, i) => (
+                  <Line key={k.key} dataKey={k.key} name={k.label} stroke={colors[i]} strokeDasharray={dashes[i]} strokeWidth={2} dot={false} isAnimationActive={false} />
+                ))}
+              </LineChart>
+            </ResponsiveContainer>
+          </div>
+          {/* Legend in ink with line samples, as on the results charts (the library's wrote each name in its line's colour). */}
+          <figcaption className="mt-2">
+            <ul className="flex flex-wrap gap-x-5 text-xs" aria-label="Legend">
               {KINDS.map((k, i) => (
-                <Line key={k.key} dataKey={k.key} name={k.label} stroke={colors[i]} strokeDasharray={dashes[i]} strokeWidth={2} dot={false} isAnimationActive={false} />
+                <li key={k.key} className="flex items-center gap-1.5">
+                  <LineSwatch stroke={colors[i]} strokeDasharray={dashes[i]} />
+                  {k.label}
+                </li>
               ))}
-            </LineChart>
-          </ResponsiveContainer>
+            </ul>
+          </figcaption>
         </figure>
       </section>
       <section className="card overflow-x-auto p-0" aria-labelledby={`dir-${index}-table-heading`}>

@@ -1,7 +1,9 @@
 "use client";
 /** Section 4: the 12-month climate profile as an editable table, a chart of it, and the weather mode. */
 import { useWatch, useFormContext } from "react-hook-form";
-import { Bar, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { Bar, CartesianGrid, ComposedChart, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { AXIS_TICK, GRID_STROKE } from "@/components/results/chart-style";
+import { LineSwatch } from "@/components/results/legend-swatch";
 import type { ScenarioInput } from "@sim/schema";
 import { NumberField, SelectField } from "./fields";
 import { monthName } from "@/lib/format";
@@ -66,20 +68,39 @@ export function WeatherSection() {
       <section className="card" aria-labelledby="climate-chart-heading">
         <h2 id="climate-chart-heading">Climate profile</h2>
         <p className="mt-1 text-sm text-muted">Lines: mean daily high and low (°F, left axis). Bars: long-run share of wet days (%, right axis).</p>
-        <figure className="mt-3 h-72" aria-label="Chart of mean high and low temperature and wet-day share by month; the same values are in the table below">
-          <ResponsiveContainer width="100%" height="100%">
-            <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
-              <CartesianGrid stroke="var(--color-line)" strokeDasharray="3 3" />
-              <XAxis dataKey="month" label={{ value: "Month", position: "insideBottom", offset: -14 }} />
-              <YAxis yAxisId="t" label={{ value: "Temperature (°F)", angle: -90, position: "insideLeft" }} />
-              <YAxis yAxisId="p" orientation="right" domain={[0, 100]} label={{ value: "Wet days (%)", angle: 90, position: "insideRight" }} />
-              <Tooltip />
-              <Legend verticalAlign="top" height={28} />
-              <Bar yAxisId="p" dataKey="wet" name="Wet days (%)" fill="var(--color-s2)" />
-              <Line yAxisId="t" dataKey="tmax" name="Mean high (°F)" stroke="var(--color-s6)" strokeWidth={2} dot />
-              <Line yAxisId="t" dataKey="tmin" name="Mean low (°F)" stroke="var(--color-s5)" strokeWidth={2} strokeDasharray="5 3" dot />
-            </ComposedChart>
-          </ResponsiveContainer>
+        {/* Axes and legend as on the results charts (12 px, legend below in ink): the library's defaults drew
+            larger grey axes and a legend in the series' own colours, the light blue one hard to read. */}
+        <figure className="mt-3" aria-label="Chart of mean high and low temperature and wet-day share by month; the same values are in the table below">
+          <div className="h-72" aria-hidden="true">
+            <ResponsiveContainer width="100%" height="100%">
+              <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+                <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
+                <XAxis dataKey="month" tick={AXIS_TICK} label={{ value: "Month", position: "insideBottom", offset: -14, fill: "var(--color-ink)", fontSize: 12 }} />
+                <YAxis yAxisId="t" tick={AXIS_TICK} label={{ value: "Temperature (°F)", angle: -90, position: "insideLeft", dy: 50, fill: "var(--color-ink)", fontSize: 12 }} />
+                <YAxis yAxisId="p" orientation="right" domain={[0, 100]} tick={AXIS_TICK} label={{ value: "Wet days (%)", angle: 90, position: "insideRight", dy: -35, fill: "var(--color-ink)", fontSize: 12 }} />
+                <Tooltip />
+                <Bar yAxisId="p" dataKey="wet" name="Wet days (%)" fill="var(--color-s2)" />
+                <Line yAxisId="t" dataKey="tmax" name="Mean high (°F)" stroke="var(--color-s6)" strokeWidth={2} dot />
+                <Line yAxisId="t" dataKey="tmin" name="Mean low (°F)" stroke="var(--color-s5)" strokeWidth={2} strokeDasharray="5 3" dot />
+              </ComposedChart>
+            </ResponsiveContainer>
+          </div>
+          <figcaption className="mt-2">
+            <ul className="flex flex-wrap gap-x-5 text-xs" aria-label="Legend">
+              <li className="flex items-center gap-1.5">
+                <LineSwatch stroke="var(--color-s6)" />
+                Mean high (°F)
+              </li>
+              <li className="flex items-center gap-1.5">
+                <LineSwatch stroke="var(--color-s5)" strokeDasharray="5 3" />
+                Mean low (°F)
+              </li>
+              <li className="flex items-center gap-1.5">
+                <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s2)" }} />
+                Wet days (%)
+              </li>
+            </ul>
+          </figcaption>
         </figure>
       </section>
 
