@@ -143,7 +143,7 @@ export function ClosureHoursAdvisor() {
               <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="hour" tick={AXIS_TICK} label={{ value: "Start hour", position: "insideBottom", offset: -14, fill: "var(--color-ink)", fontSize: 12 }} />
               <YAxis yAxisId="h" tick={AXIS_TICK} width={48} domain={[0, 24]} ticks={[0, 6, 12, 18, 24]} label={{ value: "Longest closure (h)", angle: -90, position: "insideLeft", dy: 50, fill: "var(--color-ink)", fontSize: 12 }} />
-              <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={48} label={{ value: lineName, angle: 90, position: "insideRight", dy: -60, fill: "var(--color-ink)", fontSize: 12 }} />
+              <YAxis yAxisId="mi" orientation="right" tick={AXIS_TICK} width={48} label={{ value: lineName, angle: 90, position: "insideRight", dy: 50, fill: "var(--color-ink)", fontSize: 12 }} />
               <Tooltip />
               <Bar yAxisId="h" dataKey="longest" name="Longest closure from this hour (h)" isAnimationActive={false}>
                 {data.map((d) => (

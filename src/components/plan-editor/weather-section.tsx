@@ -77,7 +77,7 @@ export function WeatherSection() {
                 <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
                 <XAxis dataKey="month" tick={AXIS_TICK} label={{ value: "Month", position: "insideBottom", offset: -14, fill: "var(--color-ink)", fontSize: 12 }} />
                 <YAxis yAxisId="t" tick={AXIS_TICK} label={{ value: "Temperature (°F)", angle: -90, position: "insideLeft", dy: 50, fill: "var(--color-ink)", fontSize: 12 }} />
-                <YAxis yAxisId="p" orientation="right" domain={[0, 100]} tick={AXIS_TICK} label={{ value: "Wet days (%)", angle: 90, position: "insideRight", dy: -35, fill: "var(--color-ink)", fontSize: 12 }} />
+                <YAxis yAxisId="p" orientation="right" domain={[0, 100]} tick={AXIS_TICK} label={{ value: "Wet days (%)", angle: 90, position: "insideRight", dy: 35, fill: "var(--color-ink)", fontSize: 12 }} />
                 <Tooltip />
                 <Bar yAxisId="p" dataKey="wet" name="Wet days (%)" fill="var(--color-s2)" />
                 <Line yAxisId="t" dataKey="tmax" name="Mean high (°F)" stroke="var(--color-s6)" strokeWidth={2} dot />
