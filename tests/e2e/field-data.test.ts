@@ -62,6 +62,14 @@ describe("field data", () => {
       { fromStationFt: 5000, toStationFt: 9600, probability: 0.3 },
     ]);
     await screenshot(page, "field-data");
+    // The refitted profile in the plan editor: its chart (legend below it, nothing focusable inside the hidden
+    // drawing) and its table, with no serious axe finding.
+    const plan = new ScenarioPage(page, scenarioId);
+    await plan.open("plan");
+    await plan.openPlanSection("weather");
+    await page.getByTestId("climate-table").waitFor();
+    expect(await page.getByRole("list", { name: "Legend" }).textContent()).toContain("Wet days (%)");
+    expect(await seriousA11yViolations(page)).toEqual([]);
     await context.close();
   });
 });

@@ -12,7 +12,7 @@ export interface GraphLink {
 }
 
 export const NODE_WIDTH = 150;
-export const NODE_HEIGHT = 64;
+export const NODE_HEIGHT = 72;
 
 export function layoutGraph(ids: readonly string[], links: readonly GraphLink[], size = { width: NODE_WIDTH, height: NODE_HEIGHT }): Record<string, { x: number; y: number }> {
   const g = new dagre.graphlib.Graph({ multigraph: false });

@@ -26,9 +26,10 @@ function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
     const old = byId.get(op.id);
     const data = {
       label: (
+        // Larger than the library's 12 px: the whole chain is fitted into view, at about 70 % for seven operations.
         <span className="block text-left">
-          <span className="block font-medium">{op.name || op.id}</span>
-          <span className="block text-xs text-muted">{op.kind === "wait" ? "wait" : "crew"}</span>
+          <span className="block text-[15px] leading-tight font-medium">{op.name || op.id}</span>
+          <span className="block text-[13px] text-muted">{op.kind === "wait" ? "wait" : "crew"}</span>
         </span>
       ),
     };

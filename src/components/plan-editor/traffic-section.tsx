@@ -193,7 +193,7 @@ function DirectionDemand({ index, name }: { index: number; name: string }) {
         <figure className="mt-3" aria-label={`Chart of hourly demand (veh/h) of ${name} for each day kind; the same values are in the table below`} data-testid={`traffic-demand-chart-${index}`}>
           <div className="h-72" aria-hidden="true">
             <ResponsiveContainer width="100%" height="100%" initialDimension={{ width: 700, height: 288 }}>
-              <LineChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+              <LineChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }} accessibilityLayer={false}>
                 <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
                 <XAxis dataKey="hour" tick={AXIS_TICK} label={{ value: "Hour of day", position: "insideBottom", offset: -14, fill: "var(--color-ink)", fontSize: 12 }} />
                 <YAxis width={64} tick={AXIS_TICK} label={{ value: "veh/h", angle: -90, position: "insideLeft", fill: "var(--color-ink)", fontSize: 12 }} />

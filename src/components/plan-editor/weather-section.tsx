@@ -73,7 +73,7 @@ export function WeatherSection() {
         <figure className="mt-3" aria-label="Chart of mean high and low temperature and wet-day share by month; the same values are in the table below">
           <div className="h-72" aria-hidden="true">
             <ResponsiveContainer width="100%" height="100%">
-              <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+              <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 24, left: 8 }} accessibilityLayer={false}>
                 <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
                 <XAxis dataKey="month" tick={AXIS_TICK} label={{ value: "Month", position: "insideBottom", offset: -14, fill: "var(--color-ink)", fontSize: 12 }} />
                 <YAxis yAxisId="t" tick={AXIS_TICK} label={{ value: "Temperature (°F)", angle: -90, position: "insideLeft", dy: 50, fill: "var(--color-ink)", fontSize: 12 }} />
