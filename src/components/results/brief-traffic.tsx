@@ -35,9 +35,9 @@ export function BriefTraffic({ plan, summary, seed, iterations }: { plan: Scenar
               <th scope="col" className="text-left">Closure</th>
               <th scope="col" className="text-left">Lanes closed</th>
               <th scope="col" className="text-left">When it may stand</th>
-              <th scope="col">Times it stood</th>
-              <th scope="col">First – last day</th>
-              <th scope="col">Lane-closed hours (P50)</th>
+              <th scope="col" className="text-right">Times it stood</th>
+              <th scope="col" className="text-left">First – last day</th>
+              <th scope="col" className="text-right">Lane-closed hours (P50)</th>
             </tr>
           </thead>
           <tbody>
@@ -49,9 +49,9 @@ export function BriefTraffic({ plan, summary, seed, iterations }: { plan: Scenar
                 </th>
                 <td>{c.lanes.join(", ")}</td>
                 <td>{c.hours}</td>
-                <td className="text-center">{c.periods.toLocaleString("en-US")}</td>
-                <td className="text-center">{c.first ? `${formatIsoDate(c.first)} – ${formatIsoDate(c.last)}` : "—"}</td>
-                <td className="text-center">{hours(c.laneHoursP50)}</td>
+                <td className="text-right tabular-nums">{c.periods.toLocaleString("en-US")}</td>
+                <td>{c.first ? `${formatIsoDate(c.first)} – ${formatIsoDate(c.last)}` : "—"}</td>
+                <td className="text-right tabular-nums">{hours(c.laneHoursP50)}</td>
               </tr>
             ))}
           </tbody>
@@ -68,10 +68,10 @@ export function BriefTraffic({ plan, summary, seed, iterations }: { plan: Scenar
               <thead>
                 <tr>
                   <th scope="col" className="text-left">Date</th>
-                  <th scope="col">Longest queue (mi)</th>
-                  <th scope="col">Vehicles</th>
-                  <th scope="col">Longest delay (min)</th>
-                  <th scope="col">Queue cleared</th>
+                  <th scope="col" className="text-right">Longest queue (mi)</th>
+                  <th scope="col" className="text-right">Vehicles</th>
+                  <th scope="col" className="text-right">Longest delay (min)</th>
+                  <th scope="col" className="text-right">Queue cleared</th>
                 </tr>
               </thead>
               <tbody>
@@ -80,10 +80,10 @@ export function BriefTraffic({ plan, summary, seed, iterations }: { plan: Scenar
                     <th scope="row" className="text-left">
                       {formatIsoDate(d.date)}
                     </th>
-                    <td className="text-center">{d.peakQueueMiles.toFixed(1)}</td>
-                    <td className="text-center">{d.peakQueueVeh.toLocaleString("en-US")}</td>
-                    <td className="text-center">{d.peakDelayMinutes === undefined ? "—" : Math.round(d.peakDelayMinutes).toLocaleString("en-US")}</td>
-                    <td className="text-center">{formatClockOnDay(d.clearsAt, d.date)}</td>
+                    <td className="text-right tabular-nums">{d.peakQueueMiles.toFixed(1)}</td>
+                    <td className="text-right tabular-nums">{d.peakQueueVeh.toLocaleString("en-US")}</td>
+                    <td className="text-right tabular-nums">{d.peakDelayMinutes === undefined ? "—" : Math.round(d.peakDelayMinutes).toLocaleString("en-US")}</td>
+                    <td className="text-right tabular-nums">{formatClockOnDay(d.clearsAt, d.date)}</td>
                   </tr>
                 ))}
               </tbody>
