@@ -26,7 +26,7 @@ function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
     const old = byId.get(op.id);
     const data = {
       label: (
-        // Larger than the library's 12 px: the whole chain is fitted into view, at about 70 % for seven operations.
+        // Larger than the library's 12 px: the whole chain is fitted into view (about 65 % for seven operations).
         <span className="block text-left">
           <span className="block text-[15px] leading-tight font-medium">{op.name || op.id}</span>
           <span className="block text-[13px] text-muted">{op.kind === "wait" ? "wait" : "crew"}</span>
