@@ -45,25 +45,28 @@ export function tradeoffRows(t: HolidayTradeoff): { label: string; standDown: st
 
 export function TradeoffTable({ t }: { t: HolidayTradeoff }) {
   return (
-    <table className="w-full max-w-4xl text-sm" data-testid="tradeoff-table">
+    // Left-aligned, padded cells with a rule under each row: the figures are pairs of dates and amounts, and
+    // centred cells without padding ran "6 Jul 2027" into the next column's "21 Jun 2027".
+    <table className="w-full max-w-4xl border-collapse text-sm" data-testid="tradeoff-table">
       <caption className="text-left text-sm text-muted">Standing down over holidays against working through them, on the same seeds</caption>
       <thead>
-        <tr>
-          <th scope="col">What</th>
-          <th scope="col">Stand down</th>
-          <th scope="col">Work through</th>
-          <th scope="col">Working through changes it by</th>
+        <tr className="border-b border-line">
+          {["What", "Stand down", "Work through", "Working through changes it by"].map((h) => (
+            <th key={h} scope="col" className="py-1 pr-4 text-left align-bottom">
+              {h}
+            </th>
+          ))}
         </tr>
       </thead>
       <tbody>
         {tradeoffRows(t).map((r) => (
-          <tr key={r.label}>
-            <th scope="row" className="text-left">
+          <tr key={r.label} className="border-b border-line/60 align-top">
+            <th scope="row" className="py-1 pr-4 text-left">
               {r.label}
             </th>
-            <td>{r.standDown}</td>
-            <td>{r.workThrough}</td>
-            <td>{r.change}</td>
+            <td className="py-1 pr-4">{r.standDown}</td>
+            <td className="py-1 pr-4">{r.workThrough}</td>
+            <td className="py-1 pr-4">{r.change}</td>
           </tr>
         ))}
       </tbody>
