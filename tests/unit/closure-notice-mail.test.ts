@@ -22,6 +22,12 @@ describe("the closure notice", () => {
     expect(m.text).toContain("The next closures:");
   });
 
+  it("counts none without a today clause when the run has no closure at all", () => {
+    const m = closureNoticeMail({ ...base, count: 0, ahead: 0, today: "2027-04-01", upcoming: [] });
+    expect(m.text).toContain("have been published: 0 closure periods in all. Times are local");
+    expect(m.text).toContain("No closure is planned from today on.");
+  });
+
   it("says so when nothing is planned from today on, in the text and the HTML", () => {
     const m = closureNoticeMail({ ...base, count: 275, ahead: 0, today: "2028-01-10", upcoming: [] });
     expect(m.text).toContain("No closure is planned from today on.");

@@ -26,7 +26,8 @@ export function closureNoticeMail(v: {
   // Days in words — "Tue 6 Apr 2027 21:00 – 7 Apr 05:00" — not ISO dates: the notice goes to the public.
   const lines = v.upcoming.map((c) => `${formatIsoDay(c.start)} ${c.start.slice(11, 16)} – ${formatClockOnDay(c.end, c.start)}  ${c.name} (${c.lanes.join(", ")} closed${c.kind === "standing" ? " round the clock" : ""})`);
   const periods = (n: number) => `${n.toLocaleString("en-US")} closure period${n === 1 ? "" : "s"}`;
-  const intro = `Planned lane closures for ${v.structure} have been published: ${periods(v.count)} in all, ${v.ahead === v.count ? "all of them" : v.ahead.toLocaleString("en-US")} from today (${formatIsoDay(v.today)}) on. Times are local (${v.timeZone}) planning estimates and will move with weather and progress.`;
+  const ahead = v.count === 0 ? "" : `, ${v.ahead === v.count ? "all of them" : v.ahead.toLocaleString("en-US")} from today (${formatIsoDay(v.today)}) on`;
+  const intro = `Planned lane closures for ${v.structure} have been published: ${periods(v.count)} in all${ahead}. Times are local (${v.timeZone}) planning estimates and will move with weather and progress.`;
   const heading = v.upcoming.length === 0 ? "No closure is planned from today on." : v.upcoming.length < v.ahead ? "The next closures:" : "The closures:";
   const follow = "Subscribe to the calendar below to see every closure and follow changes; it updates when the plan is published again.";
   const advisory = v.advisoryUrl ? `Travel advisory for drivers (expected backups and hours to avoid, day by day): ${v.advisoryUrl}` : "";

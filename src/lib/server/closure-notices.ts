@@ -26,7 +26,7 @@ const PREVIEW_LINKS = { feedUrl: "(a new calendar link, created when you publish
  * What a publication of the latest run would send — the same text the preview shows and the outbox gets.
  * Refused, like publishing, when there is no run or it is stale.
  */
-async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: string; advisoryUrl: string }, now = new Date()) {
+async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: string; advisoryUrl: string }) {
   const run = await getLatestRun({ scenarioId: scenario.id });
   if (!run) throw new AppError("conflict", "Run the scenario before publishing its closures.");
   if (run.scenarioVersion !== scenario.version) throw new AppError("conflict", "The latest run is stale (the plan changed since). Run it again before publishing closures.");
@@ -34,7 +34,7 @@ async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: stri
   const closures = closuresOfRun(run.results as unknown as RunSummary);
   const [project, subscribers] = await Promise.all([getProject({ id: scenario.projectId }), listClosureSubscribers({ projectId: scenario.projectId })]);
   // A plan run months ago still lists its first closures; people are told what lies ahead of today (where the work is).
-  const today = todayIn(definition.timeZone, now);
+  const today = todayIn(definition.timeZone);
   const ahead = closures.filter((c) => c.end > hoursSince(definition.startDate, `${today}T00:00`));
   const upcoming = ahead.slice(0, NOTICE_LINES).map((c) => ({ ...closureLocalTimes(c, definition.startDate), name: c.name, lanes: c.lanes, kind: c.kind }));
   const mail = (to: string) =>
