@@ -15,8 +15,8 @@ import { parseScenario } from "@sim/validate";
 import { describeQueueLimit, queueLimitOf } from "@sim/queue-limit";
 import { breachWarning, clock, DAY_KIND_LABEL, goodStartRuns, windowLabel } from "@/lib/closure-advice-text";
 import { AXIS_TICK, GRID_STROKE } from "../results/chart-style";
+import { LineSwatch } from "../results/legend-swatch";
 import { NumberField, SelectField } from "./fields";
-import { LineSwatch } from "@/components/results/legend-swatch";
 
 const keyOf = (a: ClosureAdvice) => `${a.closure}|${a.withStage ?? ""}`;
 
