@@ -4,7 +4,7 @@
  * what working through gains in days against the extra delay and road-user cost, with a small chart of delay
  * under each policy.
  */
-import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, XAxis, YAxis } from "recharts";
+import { Bar, BarChart, CartesianGrid, ResponsiveContainer, XAxis, YAxis } from "recharts";
 import type { HolidayTradeoff } from "@sim/tradeoff";
 import { formatIsoDate } from "@/lib/format";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
@@ -97,11 +97,21 @@ function TradeoffChart({ t }: { t: HolidayTradeoff }) {
             <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" vertical={false} />
             <XAxis dataKey="policy" tick={AXIS_TICK} />
             <YAxis tick={AXIS_TICK} width={72} tickFormatter={(v: number) => v.toLocaleString("en-US")} label={{ value: "Delay (veh-h)", angle: -90, position: "insideLeft", dy: 40, fill: "var(--color-ink)", fontSize: 12 }} />
-            <Legend verticalAlign="top" height={24} />
             <Bar dataKey="p50" name="P50" fill="var(--color-s5)" isAnimationActive={false} />
             <Bar dataKey="p80" name="P80" fill="var(--color-s1)" isAnimationActive={false} />
           </BarChart>
         </ResponsiveContainer>
+        {/* The legend in ink with colour samples, as on the other charts (the library's wrote "P80" in amber). */}
+        <ul className="mt-1 flex gap-x-5 text-xs">
+          <li className="flex items-center gap-1.5">
+            <span className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s5)" }} />
+            P50
+          </li>
+          <li className="flex items-center gap-1.5">
+            <span className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s1)" }} />
+            P80
+          </li>
+        </ul>
       </div>
       <div className="sr-only">
         <table>

@@ -7,6 +7,7 @@
 import { CartesianGrid, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis } from "recharts";
 import { AXIS_TICK, GRID_STROKE } from "@/components/results/chart-style";
 import { formatIsoDate } from "@/lib/format";
+import { dateTicks } from "@/components/results/date-axis";
 import { chartPoints, costShade, dayLabel, type ChartPoint, type VariantRow } from "./search-logic";
 
 const money = (v: number | null) => (v === null ? "—" : `$${Math.round(v).toLocaleString("en-US")}`);
@@ -26,14 +27,19 @@ export function FrontierChart({ rows }: { rows: VariantRow[] }) {
   const shade = costShade(points);
   const data = points.map((p) => ({ ...p, shade: shade(p.cost) }));
   if (data.length === 0) return <p className="text-sm text-muted">No plan has finished yet; points appear here as they do.</p>;
+  // Calendar ticks with dates in words, as on the results charts (the axis read "2027-06-13" in steps of 8 days).
+  const days = data.map((p) => p.finishDay);
+  const lo = Math.min(...days) - 7;
+  const hi = Math.max(...days) + 7;
+  const { ticks, label } = dateTicks(lo, hi, 7);
   return (
     <figure>
       <div className="h-80" data-testid="frontier-chart">
         <ResponsiveContainer width="100%" height="100%">
           <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 20 }}>
             <CartesianGrid stroke={GRID_STROKE} />
-            <XAxis type="number" dataKey="finishDay" name="P80 finish" domain={["dataMin - 7", "dataMax + 7"]} tickFormatter={dayLabel} tick={AXIS_TICK} label={{ value: "P80 finish", position: "bottom", offset: 10 }} />
-            <YAxis type="number" dataKey="delay" name="Delay" tick={AXIS_TICK} tickFormatter={(v: number) => v.toLocaleString("en-US")} label={{ value: "Delay, vehicle-hours (median)", angle: -90, position: "insideLeft", offset: -5, style: { textAnchor: "middle" } }} width={80} />
+            <XAxis type="number" dataKey="finishDay" name="P80 finish" domain={[lo, hi]} ticks={ticks} interval={0} tickFormatter={label} tick={AXIS_TICK} label={{ value: "P80 finish", position: "bottom", offset: 10, fill: "var(--color-ink)", fontSize: 12 }} />
+            <YAxis type="number" dataKey="delay" name="Delay" tick={AXIS_TICK} tickFormatter={(v: number) => v.toLocaleString("en-US")} label={{ value: "Delay, vehicle-hours (median)", angle: -90, position: "insideLeft", offset: -5, style: { textAnchor: "middle" }, fill: "var(--color-ink)", fontSize: 12 }} width={80} />
             <ZAxis type="number" dataKey="shade" range={[60, 60]} />
             <Tooltip
               cursor={{ strokeDasharray: "3 3" }}
