@@ -15,7 +15,7 @@ import { parseScenario } from "@sim/validate";
 import { describeQueueLimit, queueLimitOf } from "@sim/queue-limit";
 import { breachWarning, clock, DAY_KIND_LABEL, goodStartRuns, windowLabel } from "@/lib/closure-advice-text";
 import { AXIS_TICK, GRID_STROKE } from "../results/chart-style";
-import { LineSwatch } from "../results/legend-swatch";
+import { ChartLegend } from "../results/legend-swatch";
 import { NumberField, SelectField } from "./fields";
 
 const keyOf = (a: ClosureAdvice) => `${a.closure}|${a.withStage ?? ""}`;
@@ -157,24 +157,14 @@ export function ClosureHoursAdvisor() {
         </div>
         {/* The bars' two colours say whether the planned length fits; the library's legend showed one black square for both. */}
         <figcaption className="mt-2">
-          <ul className="flex flex-wrap gap-x-5 gap-y-1 text-xs" aria-label="Legend">
-            <li className="flex items-center gap-1.5">
-              <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s3)" }} />
-              Longest closure from this hour: the planned {Math.ceil(plannedLength)} h fit
-            </li>
-            <li className="flex items-center gap-1.5">
-              <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s1)" }} />
-              … shorter than the planned {Math.ceil(plannedLength)} h
-            </li>
-            <li className="flex items-center gap-1.5">
-              <LineSwatch stroke="var(--color-s6)" />
-              {lineName}, planned window
-            </li>
-            <li className="flex items-center gap-1.5">
-              <LineSwatch stroke="var(--color-bad)" strokeDasharray="6 3" />
-              The plan&apos;s limit
-            </li>
-          </ul>
+          <ChartLegend
+            items={[
+              { label: `Longest closure from this hour: the planned ${Math.ceil(plannedLength)} h fit`, fill: "var(--color-s3)" },
+              { label: `… shorter than the planned ${Math.ceil(plannedLength)} h`, fill: "var(--color-s1)" },
+              { label: `${lineName}, planned window`, line: { stroke: "var(--color-s6)" } },
+              { label: "The plan's limit", line: { stroke: "var(--color-bad)", strokeDasharray: "6 3" } },
+            ]}
+          />
         </figcaption>
       </figure>
     </section>

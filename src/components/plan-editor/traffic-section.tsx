@@ -12,7 +12,7 @@ import { DEFAULT_QUEUE_LIMIT } from "@sim/queue-limit";
 import { ClosureHoursAdvisor } from "./closure-hours-advisor";
 import { CheckboxField, n, NumberField, SelectField, TextField } from "./fields";
 import { AXIS_TICK, GRID_STROKE } from "@/components/results/chart-style";
-import { LineSwatch } from "@/components/results/legend-swatch";
+import { ChartLegend } from "@/components/results/legend-swatch";
 
 const KINDS = [
   { key: "weekday", label: "Mon–Thu" },
@@ -206,14 +206,7 @@ function DirectionDemand({ index, name }: { index: number; name: string }) {
           </div>
           {/* Legend in ink with line samples, as on the results charts (the library's wrote each name in its line's colour). */}
           <figcaption className="mt-2">
-            <ul className="flex flex-wrap gap-x-5 text-xs" aria-label="Legend">
-              {KINDS.map((k, i) => (
-                <li key={k.key} className="flex items-center gap-1.5">
-                  <LineSwatch stroke={colors[i]} strokeDasharray={dashes[i]} />
-                  {k.label}
-                </li>
-              ))}
-            </ul>
+            <ChartLegend items={KINDS.map((k, i) => ({ label: k.label, line: { stroke: colors[i], strokeDasharray: dashes[i] } }))} />
           </figcaption>
         </figure>
       </section>

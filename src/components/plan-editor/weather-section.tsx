@@ -3,7 +3,7 @@
 import { useWatch, useFormContext } from "react-hook-form";
 import { Bar, CartesianGrid, ComposedChart, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { AXIS_TICK, GRID_STROKE } from "@/components/results/chart-style";
-import { LineSwatch } from "@/components/results/legend-swatch";
+import { ChartLegend } from "@/components/results/legend-swatch";
 import type { ScenarioInput } from "@sim/schema";
 import { NumberField, SelectField } from "./fields";
 import { monthName } from "@/lib/format";
@@ -86,20 +86,13 @@ export function WeatherSection() {
             </ResponsiveContainer>
           </div>
           <figcaption className="mt-2">
-            <ul className="flex flex-wrap gap-x-5 text-xs" aria-label="Legend">
-              <li className="flex items-center gap-1.5">
-                <LineSwatch stroke="var(--color-s6)" />
-                Mean high (°F)
-              </li>
-              <li className="flex items-center gap-1.5">
-                <LineSwatch stroke="var(--color-s5)" strokeDasharray="5 3" />
-                Mean low (°F)
-              </li>
-              <li className="flex items-center gap-1.5">
-                <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s2)" }} />
-                Wet days (%)
-              </li>
-            </ul>
+            <ChartLegend
+              items={[
+                { label: "Mean high (°F)", line: { stroke: "var(--color-s6)" } },
+                { label: "Mean low (°F)", line: { stroke: "var(--color-s5)", strokeDasharray: "5 3" } },
+                { label: "Wet days (%)", fill: "var(--color-s2)" },
+              ]}
+            />
           </figcaption>
         </figure>
       </section>

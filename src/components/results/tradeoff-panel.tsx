@@ -10,6 +10,7 @@ import { formatIsoDate } from "@/lib/format";
 import { AXIS_TICK, GRID_STROKE } from "./chart-style";
 import { TradeoffTable } from "./tradeoff-table";
 import { useTradeoff } from "./use-tradeoff";
+import { ChartLegend } from "./legend-swatch";
 
 const vh = (v: number | null) => (v === null ? "—" : `${Math.round(v).toLocaleString("en-US")} vehicle-hours`);
 const money = (v: number | null) => (v === null ? "—" : `$${Math.round(Math.abs(v)).toLocaleString("en-US")}`);
@@ -102,16 +103,9 @@ function TradeoffChart({ t }: { t: HolidayTradeoff }) {
           </BarChart>
         </ResponsiveContainer>
         {/* The legend in ink with colour samples, as on the other charts (the library's wrote "P80" in amber). */}
-        <ul className="mt-1 flex gap-x-5 text-xs">
-          <li className="flex items-center gap-1.5">
-            <span className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s5)" }} />
-            P50
-          </li>
-          <li className="flex items-center gap-1.5">
-            <span className="inline-block h-3 w-5 rounded-sm" style={{ background: "var(--color-s1)" }} />
-            P80
-          </li>
-        </ul>
+        <div className="mt-1">
+          <ChartLegend items={[{ label: "P50", fill: "var(--color-s5)" }, { label: "P80", fill: "var(--color-s1)" }]} />
+        </div>
       </div>
       <div className="sr-only">
         <table>

@@ -6,7 +6,7 @@
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { AXIS_TICK, GRID_STROKE, seriesStyle } from "@/components/results/chart-style";
 import { dateTicks, formatDay, isoToDay } from "@/components/results/date-axis";
-import { LineSwatch } from "@/components/results/legend-swatch";
+import { ChartLegend } from "@/components/results/legend-swatch";
 import { formatIsoDate } from "@/lib/format";
 
 export interface DriftPoint {
@@ -40,16 +40,7 @@ export function DriftChart({ points }: { points: DriftPoint[] }) {
         </ResponsiveContainer>
       </div>
       <figcaption className="mt-2">
-        <ul className="flex flex-wrap gap-x-5 text-xs" aria-label="Legend">
-          <li className="flex items-center gap-1.5">
-            <LineSwatch {...p50} />
-            P50 finish
-          </li>
-          <li className="flex items-center gap-1.5">
-            <LineSwatch {...p80} />
-            P80 finish
-          </li>
-        </ul>
+        <ChartLegend items={[{ label: "P50 finish", line: p50 }, { label: "P80 finish", line: p80 }]} />
       </figcaption>
       <table className="mt-3 w-full text-sm">
         <caption className="sr-only">Forecast drift by data date</caption>
