@@ -213,7 +213,7 @@ export function ShareLinks({ endpoint, shows, listHeading, showOpens = false }: 
           </p>
         </ConfirmDialog>
       )}
-      <section className="card overflow-x-auto p-0" aria-labelledby="links-heading">
+      <section className="card scroll-x p-0" aria-labelledby="links-heading">
         <h2 id="links-heading" className="px-5 pt-4">
           {listHeading}
         </h2>

@@ -23,7 +23,7 @@ export function CrewsSection() {
   return (
     <div className="space-y-5">
       <SafetyNote compact />
-      <section className="card overflow-x-auto p-0" aria-labelledby="crew-ops-heading">
+      <section className="card scroll-x p-0" aria-labelledby="crew-ops-heading">
         <div className="px-5 py-4">
           <h2 id="crew-ops-heading">Crew operations</h2>
           <p className="mt-1 text-sm text-muted">
@@ -122,7 +122,7 @@ export function CrewsSection() {
         )}
       </section>
 
-      <section className="card overflow-x-auto p-0" aria-labelledby="wait-ops-heading">
+      <section className="card scroll-x p-0" aria-labelledby="wait-ops-heading">
         <div className="px-5 py-4">
           <h2 id="wait-ops-heading">Wait operations</h2>
           <p className="mt-1 text-sm text-muted">

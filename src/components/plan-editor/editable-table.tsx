@@ -32,7 +32,7 @@ export function EditableTable(props: {
 }) {
   const { id, title, note, heads, headClasses, minWidthClass, readOnly, addLabel, onAdd, addDisabled, rows } = props;
   return (
-    <section className="card overflow-x-auto" aria-labelledby={id}>
+    <section className="card scroll-x" aria-labelledby={id}>
       <div className="flex items-center justify-between gap-3">
         <h2 id={id}>{title}</h2>
         {!readOnly && (

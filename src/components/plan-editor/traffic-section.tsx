@@ -102,7 +102,7 @@ export function TrafficSection({ readOnly }: { readOnly: boolean }) {
       {traffic?.directions?.map((d, di) => <DirectionDemand key={di} index={di} name={d.name} />)}
 
       {traffic && (
-        <section className="card overflow-x-auto" aria-labelledby="traffic-closures-heading">
+        <section className="card scroll-x" aria-labelledby="traffic-closures-heading">
           <h2 id="traffic-closures-heading">Capacity under each closure</h2>
           <p className="mt-1 text-sm text-muted">Work intensity I lowers (heavy work, −160) or raises (light work, +160) capacity per open lane. An override replaces the method: veh/h through the closure for each direction it narrows, e.g. two-way operation on a parallel span.</p>
           <table className="mt-3 w-full min-w-[720px] border-collapse" data-testid="traffic-closures-table">
@@ -210,7 +210,7 @@ function DirectionDemand({ index, name }: { index: number; name: string }) {
           </figcaption>
         </figure>
       </section>
-      <section className="card overflow-x-auto p-0" aria-labelledby={`dir-${index}-table-heading`}>
+      <section className="card scroll-x p-0" aria-labelledby={`dir-${index}-table-heading`}>
         <h2 id={`dir-${index}-table-heading`} className="px-5 py-4">
           Hourly volumes, {name} (veh/h)
         </h2>

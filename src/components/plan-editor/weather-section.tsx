@@ -97,7 +97,7 @@ export function WeatherSection() {
         </figure>
       </section>
 
-      <section className="card overflow-x-auto p-0" aria-labelledby="climate-table-heading">
+      <section className="card scroll-x p-0" aria-labelledby="climate-table-heading">
         <h2 id="climate-table-heading" className="px-5 py-4">
           Monthly values
         </h2>

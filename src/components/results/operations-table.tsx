@@ -46,7 +46,7 @@ export function OperationsTable({ operations, stages = [], sortable = true }: { 
     getSortedRowModel: getSortedRowModel(),
   });
   return (
-    <div className="overflow-x-auto">
+    <div className="scroll-x">
       <table className="w-full border-collapse" data-testid="operations-table">
         <caption className="sr-only">Finish percentiles {staged ? "per stage and per operation" : "per operation"}{sortable ? "; the column headers sort the table" : ""}.</caption>
         <SortableHead table={table} sortable={sortable} />

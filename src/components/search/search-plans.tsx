@@ -71,7 +71,7 @@ export function SearchPlans({ variants, targetDate, onSave, saving = false }: { 
             <input type="checkbox" checked={frontierOnly} onChange={(e) => setFrontierOnly(e.target.checked)} /> Frontier only
           </label>
         </div>
-        <div className="mt-3 overflow-x-auto">
+        <div className="mt-3 scroll-x">
           <table className="w-full text-sm" data-testid="search-table">
             <SortableHead table={table} />
             <TableRows table={table} />

@@ -85,7 +85,7 @@ export function InputsSummary({ definition }: { definition: unknown }) {
         </div>
       </dl>
 
-      <div className="overflow-x-auto">
+      <div className="scroll-x">
         <table className="w-full min-w-[640px] border-collapse">
           <caption className="mb-1 text-left font-semibold">Operations</caption>
           <thead>

@@ -49,7 +49,7 @@ export default async function DevMailboxPage() {
         <h1>Dev mailbox</h1>
         <p className="mt-1 text-sm text-muted">E-mails to you ({user.email}) caught by the local fake SMTP server, newest first, and their place in the outbox. Nothing here leaves this machine; nobody sees anyone else’s mail.</p>
       </div>
-      <section className="card overflow-x-auto p-0" aria-labelledby="outbox-heading">
+      <section className="card scroll-x p-0" aria-labelledby="outbox-heading">
         <h2 id="outbox-heading" className="px-5 pt-4">
           Outbox
         </h2>

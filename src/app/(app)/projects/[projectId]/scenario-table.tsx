@@ -134,7 +134,7 @@ export function ScenarioTable({ projectId, canEdit }: { projectId: string; canEd
   }
 
   return (
-    <section className="card overflow-x-auto p-0" aria-labelledby="scenarios-heading">
+    <section className="card scroll-x p-0" aria-labelledby="scenarios-heading">
       <div className="flex items-center justify-between px-5 py-4">
         <h2 id="scenarios-heading">Scenarios</h2>
         {canEdit && (

@@ -15,8 +15,10 @@ export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: st
     ...(canShare ? [{ href: `${base}/share`, label: "Share" }] : []),
   ];
   return (
+    // On a phone the seven tabs wrap onto a second row rather than push the page sideways (a hidden "Share" tab
+    // at the end of a sideways-scrolling row would not be found).
     <nav aria-label="Scenario sections" className="border-b border-line">
-      <ul className="-mb-px flex gap-1">
+      <ul className="-mb-px flex flex-wrap gap-x-1">
         {tabs.map((t) => {
           const active = path === t.href || (t.label === "Plan search" && path.startsWith(`${t.href}/`));
           return (
@@ -24,7 +26,7 @@ export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: st
               <Link
                 href={t.href}
                 aria-current={active ? "page" : undefined}
-                className={`inline-block border-b-2 px-4 py-2 text-sm font-medium ${active ? "border-brand-600 text-brand-700" : "border-transparent text-muted hover:text-ink"}`}
+                className={`inline-block whitespace-nowrap border-b-2 px-3 py-2 text-sm sm:px-4 font-medium ${active ? "border-brand-600 text-brand-700" : "border-transparent text-muted hover:text-ink"}`}
               >
                 {t.label}
               </Link>

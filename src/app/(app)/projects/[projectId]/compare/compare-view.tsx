@@ -207,7 +207,7 @@ function CompareResults({
         </figure>
       </section>
 
-      <section className="card overflow-x-auto p-0" aria-labelledby="figures-heading">
+      <section className="card scroll-x p-0" aria-labelledby="figures-heading">
         <h2 id="figures-heading" className="px-5 pt-4">
           Figures
         </h2>

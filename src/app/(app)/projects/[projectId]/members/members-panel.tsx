@@ -60,7 +60,7 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
 
   return (
     <div className="grid gap-5 lg:grid-cols-[minmax(0,1.5fr)_minmax(0,1fr)]">
-      <section className="card overflow-x-auto p-0" aria-labelledby="members-heading">
+      <section className="card scroll-x p-0" aria-labelledby="members-heading">
         <h2 id="members-heading" className="px-5 pt-4">
           People on this project
         </h2>

@@ -76,7 +76,7 @@ function ApplyButton({ scenarioId, label, build }: { scenarioId: string; label: 
 
 function SurveyPreview({ p }: { p: Extract<Preview, { kind: "survey" }> }) {
   return (
-    <div className="mt-4 overflow-x-auto">
+    <div className="mt-4 scroll-x">
       <p className="text-sm">
         {p.ranges.length} ranges replace the {p.current.length} now in the plan. Packets outside every range use the scenario&apos;s default chance.
       </p>

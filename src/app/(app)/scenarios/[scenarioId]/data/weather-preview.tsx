@@ -49,7 +49,7 @@ export function WeatherPreview({ p }: { p: WeatherPreviewData }) {
     </td>
   );
   return (
-    <div className="mt-4 overflow-x-auto">
+    <div className="mt-4 scroll-x">
       <ColumnsRead p={p} />
       <p className="mt-3 text-sm">
         {p.days.toLocaleString("en-US")} days from {p.from} to {p.to}. Current value → fitted value (means of dry days, °F; wet-day chances per day).

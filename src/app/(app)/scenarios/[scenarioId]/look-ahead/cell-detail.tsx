@@ -37,7 +37,7 @@ export function CellDetail({ day, shift, cell, onClose }: { day: LookAheadDay; s
         </ul>
       )}
       {cell.hours.length > 0 && (
-        <div className="mt-3 overflow-x-auto">
+        <div className="mt-3 scroll-x">
           <table className="w-full border-collapse text-sm" data-testid="hour-reasons">
             <caption className="text-left text-sm font-medium">Hour by hour</caption>
             <thead>

@@ -76,7 +76,7 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
       {rows.length === 0 ? (
         <p className="text-sm text-muted">No operation of this scenario has a weather gate, so the weather decides nothing here.</p>
       ) : (
-        <div className="overflow-x-auto">
+        <div className="scroll-x">
           <table className="w-full border-collapse text-sm" data-testid="look-ahead-grid">
             <caption className="sr-only">Week ahead: may each operation work each shift</caption>
             <thead>

@@ -99,7 +99,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
           {problem}
         </p>
       )}
-      <div className="overflow-x-auto">
+      <div className="scroll-x">
         <table className="w-full text-sm" data-testid="progress-table">
           <caption className="sr-only">Recorded shifts, newest first</caption>
           <thead>

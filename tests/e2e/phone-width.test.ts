@@ -1,0 +1,92 @@
+/**
+ * The app on a phone (390 × 844 CSS px, a common phone's viewport), in Debian's Chromium: no page of the main demo
+ * scrolls sideways, and the scenario's tab bar shows every tab inside the screen (it wraps onto a second row).
+ * Wide tables scroll inside their own box. Before this check, the field log was 897 px wide (screen-reader-only
+ * text in a table header sat beyond its scroll box) and the tab bar pushed every scenario page to 539 px.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { APP_URL, call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { launch, screenshot } from "../helpers/browser";
+import { signedIn } from "./pages/sign-in";
+import { ScenarioPage, type PlanSection, type ScenarioTab } from "./pages/scenario";
+
+const PHONE = 390;
+
+let browser: Browser;
+let projectId: string;
+let scenarioId: string;
+
+beforeAll(async () => {
+  browser = await launch();
+  const cookie = await signInAs("scheduler");
+  projectId = (await kestrelProject(cookie)).id;
+  const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
+  // The seeded main demo itself (read only here): it carries the recorded field log the variants do not.
+  scenarioId = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons").id;
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function phone(role: DemoRole): Promise<Page> {
+  const { page } = await signedIn(browser, role, PHONE);
+  return page;
+}
+
+/** How far the page reaches sideways, after its client-side drawing has settled. */
+async function pageWidth(page: Page): Promise<number> {
+  await page.waitForLoadState("networkidle");
+  return page.evaluate(() => document.documentElement.scrollWidth);
+}
+
+describe("on a phone", () => {
+  it("a scheduler's scenario pages, every plan section and the project pages fit the screen's width", async () => {
+    const page = await phone("scheduler");
+    const scenario = new ScenarioPage(page, scenarioId);
+    const tabs: ScenarioTab[] = ["outlook", "plan", "progress", "lookAhead", "data", "share", "brief"];
+    const widths: Record<string, number> = {};
+    for (const tab of tabs) {
+      await scenario.open(tab);
+      widths[tab] = await pageWidth(page);
+    }
+    await scenario.open("plan");
+    for (const section of ["sequence", "stages", "crews", "calendar", "weather", "traffic"] as PlanSection[]) {
+      await scenario.openPlanSection(section);
+      widths[`plan: ${section}`] = await pageWidth(page);
+    }
+    for (const path of ["/projects", `/projects/${projectId}`, `/projects/${projectId}/compare`, `/projects/${projectId}/members`]) {
+      await page.goto(`${APP_URL}${path}`);
+      widths[path] = await pageWidth(page);
+    }
+    const tooWide = Object.entries(widths).filter(([, w]) => w > PHONE);
+    expect(tooWide).toEqual([]);
+  });
+
+  it("the tab bar wraps: each of a scheduler's seven tabs lies inside the screen", async () => {
+    const page = await phone("scheduler");
+    const scenario = new ScenarioPage(page, scenarioId);
+    await scenario.open("outlook");
+    const links = page.getByRole("navigation", { name: "Scenario sections" }).getByRole("link");
+    expect(await links.count()).toBe(7);
+    for (const box of await links.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().toJSON()))) {
+      expect(box.left).toBeGreaterThanOrEqual(0);
+      expect(box.right).toBeLessThanOrEqual(PHONE);
+    }
+    await screenshot(page, "phone-tabs");
+  });
+
+  it("an inspector's field log and week-ahead board fit the screen; the log's table scrolls inside its box", async () => {
+    const page = await phone("inspector");
+    const scenario = new ScenarioPage(page, scenarioId);
+    await scenario.open("progress");
+    await page.getByRole("heading", { name: "Field log" }).waitFor();
+    expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
+    // The table is wider than the phone; its own box scrolls instead of the page.
+    const box = page.getByRole("region", { name: "Field log" }).locator(".scroll-x").first();
+    expect(await box.evaluate((e) => e.scrollWidth > e.clientWidth)).toBe(true);
+    await screenshot(page, "phone-field-log");
+    await scenario.open("lookAhead");
+    expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
+  });
+});
