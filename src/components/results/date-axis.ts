@@ -2,6 +2,8 @@
  * Dates on chart axes. Contract: every chart x value is an absolute day number (days since 1970-01-01, as
  * in sim/dates) plus the fraction of the day, so runs of scenarios with different start dates share one axis.
  * `dateTicks` picks calendar-aligned ticks (days, weeks or first-of-month) so labels read as dates people use.
+ * Charts pass them with `interval="preserveStart"` (or recharts' default): on a phone-wide chart recharts drops
+ * the ticks whose labels would overlap the one before, instead of printing "7 Jun 202721 Jun".
  */
 import { civilFromDays, daysFromCivil, formatDayNumber, parseIsoDate } from "@sim/dates";
 import { formatIsoDate, monthName } from "@/lib/format";

@@ -152,7 +152,7 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
               domain={[lo, hi]}
               ticks={ticks}
               tickFormatter={tickLabel}
-              interval={0}
+              interval="preserveStart"
               tick={AXIS_TICK}
               label={{ value: "Date", position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
             />

@@ -41,7 +41,7 @@ export function FinishHistogram({ summary }: { summary: RunSummary }) {
               domain={[lo, hi]}
               ticks={ticks}
               tickFormatter={tickLabel}
-              interval={0}
+              interval="preserveStart"
               tick={AXIS_TICK}
               label={{ value: `Finish date (${width})`, position: "insideBottom", offset: -16, fill: "var(--color-ink)", fontSize: 12 }}
             />

@@ -28,28 +28,30 @@ export function QueueBreachDays({ summary, limit }: { summary: RunSummary; limit
             {over.length} day{over.length === 1 ? "" : "s"} in the iteration nearest the P50 (the limit is part of the plan, in the plan editor&apos;s Traffic section).
           </p>
           {/* Figures right-aligned under right-aligned headings, in even-width digits, so a column reads down. */}
-          <table className="mt-2 w-full max-w-2xl text-sm tabular-nums [&_td]:px-2 [&_td]:text-right [&_th]:px-2 [&_thead_th]:text-right [&_thead_th:first-child]:text-left">
-            <thead>
-              <tr>
-                <th scope="col">Date</th>
-                <th scope="col">Longest queue (mi)</th>
-                <th scope="col">Vehicles</th>
-                <th scope="col">Longest delay (min)</th>
-                <th scope="col">Queue cleared</th>
-              </tr>
-            </thead>
-            <tbody>
-              {over.slice(0, SHOWN).map((d) => (
-                <tr key={d.date}>
-                  <th scope="row" className="text-left">{formatIsoDate(d.date)}</th>
-                  <td>{d.peakQueueMiles.toFixed(2)}</td>
-                  <td>{d.peakQueueVeh.toLocaleString("en-US")}</td>
-                  <td>{d.peakDelayMinutes === undefined ? "—" : Math.round(d.peakDelayMinutes).toLocaleString("en-US")}</td>
-                  <td>{formatClockOnDay(d.clearsAt, d.date)}</td>
+          <div className="scroll-x mt-2">
+            <table className="w-full max-w-2xl text-sm tabular-nums [&_td]:px-2 [&_td]:text-right [&_th]:px-2 [&_thead_th]:text-right [&_thead_th:first-child]:text-left">
+              <thead>
+                <tr>
+                  <th scope="col">Date</th>
+                  <th scope="col">Longest queue (mi)</th>
+                  <th scope="col">Vehicles</th>
+                  <th scope="col">Longest delay (min)</th>
+                  <th scope="col">Queue cleared</th>
                 </tr>
-              ))}
-            </tbody>
-          </table>
+              </thead>
+              <tbody>
+                {over.slice(0, SHOWN).map((d) => (
+                  <tr key={d.date}>
+                    <th scope="row" className="whitespace-nowrap text-left">{formatIsoDate(d.date)}</th>
+                    <td>{d.peakQueueMiles.toFixed(2)}</td>
+                    <td>{d.peakQueueVeh.toLocaleString("en-US")}</td>
+                    <td>{d.peakDelayMinutes === undefined ? "—" : Math.round(d.peakDelayMinutes).toLocaleString("en-US")}</td>
+                    <td>{formatClockOnDay(d.clearsAt, d.date)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
           {over.length > SHOWN && <p className="mt-1 text-xs text-muted">The first {SHOWN} are listed; the day-by-day table above has them all.</p>}
         </>
       )}

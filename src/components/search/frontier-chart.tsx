@@ -38,7 +38,7 @@ export function FrontierChart({ rows }: { rows: VariantRow[] }) {
         <ResponsiveContainer width="100%" height="100%">
           <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 20 }}>
             <CartesianGrid stroke={GRID_STROKE} />
-            <XAxis type="number" dataKey="finishDay" name="P80 finish" domain={[lo, hi]} ticks={ticks} interval={0} tickFormatter={label} tick={AXIS_TICK} label={{ value: "P80 finish", position: "bottom", offset: 10, fill: "var(--color-ink)", fontSize: 12 }} />
+            <XAxis type="number" dataKey="finishDay" name="P80 finish" domain={[lo, hi]} ticks={ticks} interval="preserveStart" tickFormatter={label} tick={AXIS_TICK} label={{ value: "P80 finish", position: "bottom", offset: 10, fill: "var(--color-ink)", fontSize: 12 }} />
             <YAxis type="number" dataKey="delay" name="Delay" tick={AXIS_TICK} tickFormatter={(v: number) => v.toLocaleString("en-US")} label={{ value: "Delay, vehicle-hours (median)", angle: -90, position: "insideLeft", offset: -5, style: { textAnchor: "middle" }, fill: "var(--color-ink)", fontSize: 12 }} width={80} />
             <ZAxis type="number" dataKey="shade" range={[60, 60]} />
             <Tooltip
