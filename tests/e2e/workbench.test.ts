@@ -82,9 +82,14 @@ describe("workbench", () => {
     await new ScenarioPage(page, id).open("plan");
     const edges = page.locator("[data-testid=sequence-graph] .react-flow__edge");
     await expect.poll(() => edges.count()).toBe(6);
+    // The seven-operation chain is folded into two rows and fitted at full size (in one row it was fitted at about
+    // 65 %, its labels at 10 px): every box is drawn nearly its 170 px wide, in two distinct rows.
+    const nodes = page.locator("[data-testid=sequence-graph] .react-flow__node");
+    await expect.poll(async () => Math.min(...(await nodes.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().width))))).toBeGreaterThanOrEqual(150);
+    const tops = new Set((await nodes.evaluateAll((els) => els.map((e) => Math.round(e.getBoundingClientRect().top)))) as number[]);
+    expect(tops.size).toBe(2);
     await page.locator("#new-op-name").fill("Joint repair");
     await page.locator("#new-op-name").press("Enter");
-    const nodes = page.locator("[data-testid=sequence-graph] .react-flow__node");
     await expect.poll(() => nodes.count()).toBe(8);
     const boxes = (await nodes.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().toJSON()))) as DOMRect[];
     for (let i = 0; i < boxes.length; i++)

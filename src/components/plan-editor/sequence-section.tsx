@@ -12,28 +12,30 @@ import { useFormContext, useWatch } from "react-hook-form";
 import { Background, Controls, MarkerType, Position, ReactFlow, applyNodeChanges, type Connection, type Edge, type Node, type NodeChange, type ReactFlowInstance } from "@xyflow/react";
 import type { Link, Operation, ScenarioInput } from "@sim/schema";
 import { NumberField, TextField } from "./fields";
-import { layoutGraph, NODE_HEIGHT, NODE_WIDTH } from "./graph-layout";
+import { layoutGraph, NODE_HEIGHT, NODE_WIDTH, type GraphPosition } from "./graph-layout";
 import { freshId, proposeLink } from "./plan-logic";
 import { withoutOperation } from "./stages-logic";
 
 type OpIn = ScenarioInput["operations"][number];
+/** Fit the whole graph, but never above full size (a short chain would otherwise be blown up). */
+const FIT = { padding: 0.12, maxZoom: 1 };
 type LinkIn = ScenarioInput["links"][number];
 
-function syncNodes(prev: Node[], ops: OpIn[], links: LinkIn[]): Node[] {
+function syncNodes(prev: Node[], ops: OpIn[], layout: Record<string, GraphPosition>): Node[] {
   const byId = new Map(prev.map((nd) => [nd.id, nd]));
-  const layout = layoutGraph(ops.map((o) => o.id), links);
   return ops.map((op) => {
     const old = byId.get(op.id);
     const data = {
       label: (
-        // Larger than the library's 12 px: the whole chain is fitted into view (about 65 % for seven operations).
+        // Larger than the library's 12 px: the view is fitted to the whole graph, at most at full size.
         <span className="block text-left">
           <span className="block text-[15px] leading-tight font-medium">{op.name || op.id}</span>
           <span className="block text-[13px] text-muted">{op.kind === "wait" ? "wait" : "crew"}</span>
         </span>
       ),
     };
-    const position = layout[op.id] ?? { x: 0, y: 0 };
+    const { x, y } = layout[op.id] ?? { x: 0, y: 0 };
+    const position = { x, y };
     const style = { width: NODE_WIDTH, height: NODE_HEIGHT };
     if (old) return { ...old, data, position, style };
     return { id: op.id, position, style, data, sourcePosition: Position.Right, targetPosition: Position.Left };
@@ -68,13 +70,18 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
   const [flow, setFlow] = useState<ReactFlowInstance | null>(null);
   const opKey = ops.map((o) => `${o.id}\u0000${o.name}\u0000${o.kind}`).join("\u0001");
   const linkKey = links.map((l) => `${l.from}->${l.to}`).join("\u0001");
+  // One layout per change of operations or links (opKey and linkKey stand for them); nodes and edges both read it.
+  const layout = useMemo(
+    () => layoutGraph((getValues("operations") ?? []).map((o) => o.id), getValues("links") ?? []),
+    [opKey, linkKey, getValues],
+  );
   useEffect(() => {
-    setNodes((prev) => syncNodes(prev, getValues("operations") ?? [], getValues("links") ?? []));
-  }, [opKey, linkKey, getValues]);
+    setNodes((prev) => syncNodes(prev, getValues("operations") ?? [], layout));
+  }, [layout, getValues]);
   // After a new layout, bring the whole graph into view (on the next frame, once React Flow has the new nodes).
   useEffect(() => {
     if (!flow) return;
-    const raf = requestAnimationFrame(() => void flow.fitView({ padding: 0.12 }));
+    const raf = requestAnimationFrame(() => void flow.fitView(FIT));
     return () => cancelAnimationFrame(raf);
   }, [flow, nodes.length, linkKey]);
 
@@ -88,13 +95,16 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
         // Only lags that exist are written on the link (the panel lists both); "0 ft · 0 h" on every link is noise.
         label: [l.lagFt ? `${l.lagFt} ft` : "", l.lagHours ? `${l.lagHours} h` : ""].filter(Boolean).join(" · ") || undefined,
         ariaLabel: `Link ${label(l.from)} → ${label(l.to)}, lag ${l.lagFt ?? 0} ft and ${l.lagHours ?? 0} h${readOnly ? "" : "; press Delete to remove"}`,
+        // A link that wraps to a later row runs in right angles through the gap between the rows (a curve would
+        // cross the boxes of its own row).
+        type: (layout[l.to]?.row ?? 0) !== (layout[l.from]?.row ?? 0) ? "smoothstep" : undefined,
         focusable: true,
         markerEnd: { type: MarkerType.ArrowClosed },
         labelBgPadding: [6, 3] as [number, number],
         labelStyle: { fontSize: 12 },
       })),
     // label() reads the operations, which opKey stands for.
-    [links, opKey, readOnly],
+    [links, opKey, readOnly, layout],
   );
 
   const write = (nextOps: OpIn[] | null, nextLinks: LinkIn[] | null) => {
@@ -211,6 +221,7 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
               nodesConnectable={!readOnly}
               deleteKeyCode={readOnly ? null : ["Delete", "Backspace"]}
               fitView
+              fitViewOptions={FIT}
               minZoom={0.3}
             >
               <Background />
