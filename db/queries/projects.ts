@@ -21,6 +21,29 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
     .orderBy(asc(projects.name));
 }
 
+/** What a new project stores (the request contract's output, src/lib/schemas.ts `projectCreateSchema`). */
+export interface NewProject {
+  name: string;
+  structureName: string;
+  region: string;
+  deckLengthFt: number;
+  startStationFt: number;
+  lanes: string[];
+  description: string;
+}
+
+/**
+ * A new project and its creator as its administrator, in one transaction: a project without an administrator
+ * could never get members, so neither row is written without the other.
+ */
+export async function createProject({ userId, project }: { userId: string; project: NewProject }): Promise<{ id: string }> {
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx.insert(projects).values(project).returning({ id: projects.id });
+    await tx.insert(projectMembers).values({ projectId: row.id, userId, role: "admin" });
+    return row;
+  });
+}
+
 export async function getProject({ id }: { id: string }) {
   const [row] = await getDb().select().from(projects).where(eq(projects.id, id));
   return row ?? null;

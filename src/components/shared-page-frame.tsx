@@ -23,7 +23,7 @@ export function SharedPageFrame({ expiresAt, project, children }: { expiresAt: D
           // mb-1 replaces the stack's gap below this line (space-y sets the margin after each child; a negative one
           // pulled the heading up over this line), so the project line sits just above the title it belongs to.
           <p className="mb-1 text-sm text-muted" data-testid="shared-project">
-            {project.name} · {project.structureName} · {project.region}
+            {[project.name, project.structureName, project.region].filter(Boolean).join(" · ")}
           </p>
         )}
         {children}

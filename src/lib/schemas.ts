@@ -3,7 +3,8 @@ import { z } from "zod";
 import { ROLES } from "@db/schema-enums";
 import { LIMITS } from "@sim/limits";
 import { runSummarySchema } from "@sim/run-summary-schema";
-import { plainText } from "@sim/text";
+import { controlCharacterIn, plainText } from "@sim/text";
+import { parseStation } from "@sim/progress-rules";
 
 /** A one-line text of at most `max` characters (no control characters), trimmed. */
 const line = (max: number) => plainText(max).trim();
@@ -26,6 +27,65 @@ export const scenarioUpdateSchema = scenarioWriteSchema.extend({
 });
 
 export const variantSchema = z.object({ name: line(LIMITS.name).min(1, "must not be empty") });
+
+/** A deck station as feet (1200) or typed as feet or station notation ("1200", "12+00", "STA 12+00"). */
+const stationFt = z
+  .union([z.number(), z.string().max(40, "must be in feet (1200) or a station (12+00)")], { error: "must be in feet (1200) or a station (12+00)" })
+  .transform((v, ctx) => {
+    const n = typeof v === "number" ? v : parseStation(v);
+    if (n === null || !Number.isFinite(n)) {
+      ctx.addIssue({ code: "custom", message: `must be in feet (1200) or a station (12+00)${typeof v === "string" && v.trim() ? `; “${v.trim()}” is neither` : ""}` });
+      return z.NEVER;
+    }
+    return n;
+  })
+  .pipe(z.number().min(0, "must not be below STA 0+00").max(1_000_000, "must be at most STA 10000+00"));
+
+/** Lane names as a list, or typed as one line separated by commas ("L1, L2, L3"). */
+const laneNames = z
+  .union(
+    [
+      z.array(z.string().max(LIMITS.laneName * 4, `must be names of at most ${LIMITS.laneName} characters`)).max(LIMITS.lanes * 4, `must name at most ${LIMITS.lanes} lanes`),
+      z.string().max(LIMITS.laneName * LIMITS.lanes * 2, `must name at most ${LIMITS.lanes} lanes of at most ${LIMITS.laneName} characters`),
+    ],
+    { error: "must be lane names separated by commas (L1, L2)" },
+  )
+  .transform((v) => (typeof v === "string" ? v.split(",") : v).map((s) => s.trim()).filter((s) => s.length > 0))
+  // Judged as a whole so each problem lands on "lanes" itself, naming the lane: a form shows it beside its one input.
+  .pipe(
+    z
+      .array(z.string())
+      .min(1, "must name at least one lane")
+      .max(LIMITS.lanes, `must name at most ${LIMITS.lanes} lanes`)
+      .superRefine((lanes, ctx) => {
+        const seen = new Set<string>();
+        for (const lane of lanes) {
+          const shown = lane.length > 24 ? `${lane.slice(0, 24)}…` : lane;
+          if (lane.length > LIMITS.laneName) ctx.addIssue({ code: "custom", message: `must be names of at most ${LIMITS.laneName} characters (“${shown}” has ${lane.length})` });
+          else if (controlCharacterIn(lane)) ctx.addIssue({ code: "custom", message: `must not contain control characters (in “${shown}”)` });
+          else if (seen.has(lane)) ctx.addIssue({ code: "custom", message: `must not name a lane twice (“${shown}”)` });
+          seen.add(lane);
+        }
+      }),
+  );
+
+/**
+ * A new project: the structure and its deck as scenarios on it start from (the standard template takes the deck
+ * length, start station and lane names). Its creator becomes its administrator. Shared by the form and the route.
+ */
+export const projectCreateSchema = z
+  .object({
+    name: line(LIMITS.name).min(1, "must not be empty"),
+    structureName: line(LIMITS.name).min(1, "must not be empty"),
+    region: line(LIMITS.name).default(""),
+    // Same bound as a scenario's deck (sim/schema.ts): a scenario made from the project must be valid.
+    deckLengthFt: z.number({ error: "must be a number of feet" }).gt(0, "must be more than 0 ft").max(50_000, "must be at most 50,000 ft"),
+    startStationFt: stationFt,
+    lanes: laneNames,
+    description: plainText(LIMITS.description, { multiline: true }).default(""),
+  })
+  .strict();
+export type ProjectCreateInput = z.input<typeof projectCreateSchema>;
 
 export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
 /** An invitation names a person and a role like adding a member does; the same contract. */

@@ -115,6 +115,12 @@ export const API_ROWS: Record<string, ApiRow> = {
 
   // ---- projects ----
   "GET /api/projects": { need: { kind: "session" }, ok: 200, request: async () => ({ params: {} }) },
+  // Anyone signed in may start a project (and becomes its administrator).
+  "POST /api/projects": {
+    need: { kind: "session" },
+    ok: 201,
+    request: async () => ({ params: {}, body: { name: uniq("matrix project"), structureName: "Matrix structure", deckLengthFt: 600, startStationFt: "3+00", lanes: "L1, L2" } }),
+  },
   "GET /api/projects/[projectId]": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
   "GET /api/projects/[projectId]/scenarios": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
   "POST /api/projects/[projectId]/scenarios": {

@@ -15,7 +15,7 @@ import { AXIS_TICK, GRID_STROKE } from "./chart-style";
 import { BandsLayer, BarsLayer } from "./chart-layers";
 import { ChartPlaceholder } from "./chart-placeholder";
 import { Deferred } from "./deferred";
-import { LineSwatch } from "./legend-swatch";
+import { ChartLegend } from "./legend-swatch";
 import { dateTicks } from "./date-axis";
 
 /** Stretches of more than a month without a closure day (a winter, a long stand-down): shaded and named. */
@@ -131,16 +131,6 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
   const aria = `Day-by-day chart for the representative iteration (${data.length} days with a closure or a queue): bars are lane-closed hours, the line is the day’s longest queue in miles${max ? `; the longest is ${max.miles} miles on ${formatIsoDate(max.date)}` : ""}. The same figures are in the table that follows.`;
   return (
     <figure aria-label={aria} className="m-0" data-testid="delay-chart" data-drawn-seed={summary.seed}>
-      <ul className="flex flex-wrap justify-center gap-x-5 text-xs text-ink" aria-hidden="true">
-        <li className="flex items-center gap-1.5">
-          <span className="inline-block h-3 w-3 rounded-sm" style={{ background: "var(--color-s2)" }} />
-          Lane-closed hours
-        </li>
-        <li className="flex items-center gap-1.5">
-          <LineSwatch stroke="var(--color-s6)" />
-          Longest queue (mi)
-        </li>
-      </ul>
       <div aria-hidden="true">
         <ResponsiveContainer width="100%" height={232} initialDimension={{ width: 700, height: 232 }}>
           <ComposedChart data={drawn} margin={{ top: 8, right: 8, bottom: 28, left: 8 }} accessibilityLayer={false}>
@@ -165,6 +155,16 @@ export function DelayChart({ summary }: { summary: RunSummary }) {
           </ComposedChart>
         </ResponsiveContainer>
       </div>
+      {/* Below the chart in ink, as on the other charts (it sat centred above this one). */}
+      <figcaption className="mt-2">
+        <ChartLegend
+          items={[
+            { label: "Lane-closed hours", fill: "var(--color-s2)" },
+            { label: "Longest queue (mi)", line: { stroke: "var(--color-s6)" } },
+            { label: "No closures (shaded)", fill: "var(--color-brand-100)" },
+          ]}
+        />
+      </figcaption>
       <Deferred>
       <div className="sr-only">
         <table>

@@ -13,14 +13,19 @@ export default async function ProjectsPage() {
   const projects = await listProjectsForUser({ userId: user.id });
   return (
     <div className="space-y-6">
-      <div>
-        <h1>Your projects</h1>
-        <p className="mt-1 text-sm text-muted">Structures you are a member of, with your role on each.</p>
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1>Your projects</h1>
+          <p className="mt-1 text-sm text-muted">Structures you are a member of, with your role on each.</p>
+        </div>
+        <Link href="/projects/new" className="btn-secondary">
+          New project
+        </Link>
       </div>
       {projects.length === 0 ? (
         <div className="card text-center">
           <h2>No projects yet</h2>
-          <p className="mt-2 text-sm text-muted">An administrator of a project can add you as a member.</p>
+          <p className="mt-2 text-sm text-muted">Start one for your structure with New project, or ask an administrator of a project to add you as a member.</p>
         </div>
       ) : (
         <ul className="grid gap-4 md:grid-cols-2">
@@ -32,7 +37,7 @@ export default async function ProjectsPage() {
                   <RoleBadge role={p.role as ProjectRole} />
                 </div>
                 <p className="mt-1 text-sm text-muted">
-                  {p.structureName} · {p.region}
+                  {[p.structureName, p.region].filter(Boolean).join(" · ")}
                 </p>
                 <dl className="mt-4 grid grid-cols-3 gap-2 text-sm">
                   <div>

@@ -25,8 +25,9 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
             <RoleBadge role={role} />
           </div>
           <p className="mt-1 text-sm text-muted">
-            {project.structureName} · {project.region} · {project.deckLengthFt.toLocaleString("en-US")} ft from {formatStation(project.startStationFt)} ·{" "}
-            {project.lanes.join(", ")}
+            {[project.structureName, project.region, `${project.deckLengthFt.toLocaleString("en-US")} ft from ${formatStation(project.startStationFt)}`, project.lanes.join(", ")]
+              .filter(Boolean)
+              .join(" · ")}
           </p>
         </div>
         <div className="flex gap-2">

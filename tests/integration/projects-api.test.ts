@@ -1,0 +1,77 @@
+/**
+ * Starting a project through the real API: anyone signed in may, and becomes its only administrator; the deck
+ * typed as a person would ("12+00", "L1, L2, L3") is stored as numbers and a list; a scenario from the standard
+ * template over that deck is valid; a bad body is refused naming each field in words, with nothing stored.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import postgres from "postgres";
+import { call, signInAs } from "../helpers/app";
+import { templateScenario } from "../../src/lib/scenario-template";
+
+const appDb = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+let inspector: string;
+let admin: string;
+
+beforeAll(async () => {
+  [inspector, admin] = await Promise.all([signInAs("inspector"), signInAs("admin")]);
+});
+afterAll(async () => {
+  await appDb.end();
+});
+
+const projectCount = async () => (await appDb`SELECT count(*)::int AS n FROM projects`)[0].n as number;
+const membershipCount = async () => (await appDb`SELECT count(*)::int AS n FROM project_members`)[0].n as number;
+
+describe("a new project", () => {
+  it("is started by a field inspector, who becomes its administrator and its only member", async () => {
+    const name = `Heron Creek Bridge — deck overlay ${Date.now()}`;
+    const res = await call("/api/projects", {
+      method: "POST",
+      cookie: inspector,
+      body: { name, structureName: "Heron Creek Bridge (northbound)", region: "Marrin County", deckLengthFt: 1450, startStationFt: "STA 12+00", lanes: " L1, L2 ,L3 ", description: "Invented for a test." },
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const listed = (await call("/api/projects", { cookie: inspector })).body.projects.find((p: { id: string }) => p.id === res.body.id);
+    expect(listed).toMatchObject({ name, structureName: "Heron Creek Bridge (northbound)", region: "Marrin County", deckLengthFt: 1450, startStationFt: 1200, lanes: ["L1", "L2", "L3"], role: "admin" });
+    const members = await call(`/api/projects/${res.body.id}/members`, { cookie: inspector });
+    expect(members.status).toBe(200);
+    expect(members.body.members.map((m: { role: string }) => m.role)).toEqual(["admin"]);
+    // Nobody else sees it: to another person it does not exist.
+    expect((await call(`/api/projects/${res.body.id}`, { cookie: admin })).status).toBe(404);
+  });
+
+  it("takes a scenario from the standard template over its deck (the first thing its page offers)", async () => {
+    const res = await call("/api/projects", { method: "POST", cookie: inspector, body: { name: `Template check ${Date.now()}`, structureName: "Spoonbill Slough Bridge", deckLengthFt: 900, startStationFt: 400, lanes: ["EB1", "EB2"] } });
+    expect(res.status).toBe(201);
+    const project = (await call(`/api/projects/${res.body.id}`, { cookie: inspector })).body.project;
+    const definition = templateScenario("First plan", { deckLengthFt: project.deckLengthFt, startStationFt: project.startStationFt, lanes: project.lanes }, "2027-04-05");
+    const scenario = await call(`/api/projects/${res.body.id}/scenarios`, { method: "POST", cookie: inspector, body: { name: "First plan", definition } });
+    expect(scenario.status, JSON.stringify(scenario.body).slice(0, 400)).toBe(201);
+  });
+
+  it("refuses a bad body naming each field in words, and stores no project and no membership", async () => {
+    const [projects, memberships] = [await projectCount(), await membershipCount()];
+    const res = await call("/api/projects", {
+      method: "POST",
+      cookie: inspector,
+      body: { name: "  ", structureName: "Somewhere", deckLengthFt: 0, startStationFt: "12a0", lanes: "L1, L1" },
+    });
+    expect(res.status).toBe(400);
+    const byPath = Object.fromEntries(res.body.fields.map((f: { path: string; label: string; message: string }) => [f.path, `${f.label}: ${f.message}`]));
+    expect(byPath).toEqual({
+      name: "Name: must not be empty",
+      deckLengthFt: "Deck length: must be more than 0 ft",
+      startStationFt: "Start station: must be in feet (1200) or a station (12+00); “12a0” is neither",
+      lanes: "Lanes: must not name a lane twice (“L1”)",
+    });
+    expect(await projectCount()).toBe(projects);
+    expect(await membershipCount()).toBe(memberships);
+  });
+
+  it("refuses a field the contract does not know, and a deck longer than a scenario may be", async () => {
+    const body = { name: "Too long", structureName: "Long causeway", deckLengthFt: 60_000, startStationFt: 0, lanes: "L1", owner: "someone else" };
+    const res = await call("/api/projects", { method: "POST", cookie: inspector, body });
+    expect(res.status).toBe(400);
+    expect(res.body.fields.map((f: { path: string }) => f.path).sort()).toEqual(["deckLengthFt", "owner"]);
+  });
+});
