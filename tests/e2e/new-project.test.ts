@@ -48,6 +48,8 @@ describe("a new project", () => {
     await page.getByRole("button", { name: "Create and open the plan" }).click();
     await page.waitForURL(/\/scenarios\/[0-9a-f-]{36}\/plan$/);
     await page.getByRole("heading", { name: "First plan", level: 1 }).waitFor();
+    // The plan editor opens on the template over this deck: seven operations in the sequence graph.
+    await expect.poll(() => page.locator("[data-testid=sequence-graph] .react-flow__node").count(), { timeout: 30_000 }).toBe(7);
     await screenshot(page, "new-project-first-plan");
     await context.close();
   });
