@@ -44,6 +44,15 @@ export async function createProject({ userId, project }: { userId: string; proje
   });
 }
 
+/**
+ * New details for a project. Its scenarios keep the deck they were saved with; the project's deck is where new
+ * scenarios start (the standard template). Null when there is no such project.
+ */
+export async function updateProject({ projectId, project }: { projectId: string; project: NewProject }): Promise<{ id: string } | null> {
+  const [row] = await getDb().update(projects).set(project).where(eq(projects.id, projectId)).returning({ id: projects.id });
+  return row ?? null;
+}
+
 export async function getProject({ id }: { id: string }) {
   const [row] = await getDb().select().from(projects).where(eq(projects.id, id));
   return row ?? null;

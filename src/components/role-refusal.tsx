@@ -9,7 +9,7 @@ const ACTION_WORDS: Record<Action, string> = {
   shareScenario: "share scenarios and publish closure notices",
   manageMembers: "manage members and invitations",
   recordProgress: "record shifts in the field log",
-  setLocation: "set the project's location for the weather forecast",
+  editProject: "edit the project's details and its location for the weather forecast",
 };
 
 /**

@@ -18,7 +18,7 @@ export const ACTIONS = {
   shareScenario: ["admin", "engineer", "scheduler"],
   manageMembers: ["admin"],
   recordProgress: ["admin", "engineer", "inspector"],
-  setLocation: ["admin", "engineer"],
+  editProject: ["admin", "engineer"],
 } as const satisfies Record<string, readonly ProjectRole[]>;
 export type Action = keyof typeof ACTIONS;
 

@@ -70,10 +70,11 @@ const laneNames = z
   );
 
 /**
- * A new project: the structure and its deck as scenarios on it start from (the standard template takes the deck
- * length, start station and lane names). Its creator becomes its administrator. Shared by the form and the route.
+ * A project's details: the structure and its deck as scenarios on it start from (the standard template takes the
+ * deck length, start station and lane names). Starting a project sends them (its creator becomes its
+ * administrator); editing sends them whole again. Shared by the form and both routes.
  */
-export const projectCreateSchema = z
+export const projectDetailsSchema = z
   .object({
     name: line(LIMITS.name).min(1, "must not be empty"),
     structureName: line(LIMITS.name).min(1, "must not be empty"),
@@ -85,7 +86,7 @@ export const projectCreateSchema = z
     description: plainText(LIMITS.description, { multiline: true }).default(""),
   })
   .strict();
-export type ProjectCreateInput = z.input<typeof projectCreateSchema>;
+export type ProjectDetailsInput = z.input<typeof projectDetailsSchema>;
 
 export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
 /** An invitation names a person and a role like adding a member does; the same contract. */

@@ -1,7 +1,8 @@
 /**
  * A project from nothing, in Debian's Chromium: a scheduler opens New project from the project list, leaves the
  * deck length empty and is told so beside the field, fixes it, lands on the new project's page (administrator,
- * no scenario yet) and makes a first scenario from the standard template over that deck; no serious axe finding.
+ * no scenario yet), adds the region under Edit project details, and makes a first scenario from the standard
+ * template over that deck; no serious axe finding.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
@@ -43,8 +44,17 @@ describe("a new project", () => {
     expect(await page.getByText("Administrator", { exact: true }).count()).toBe(1);
     await page.getByRole("heading", { name: "No scenarios yet" }).waitFor();
 
+    // Its administrator adds the region later: the project line says so after the save.
+    await page.getByText("Edit project details").click();
+    await page.getByTestId("project-details").getByLabel("Region (optional)").fill("Marrin County");
+    await page.getByRole("button", { name: "Save details" }).click();
+    await page.getByText("Details saved.").waitFor();
+    await expect.poll(() => page.getByText("Heron Creek Bridge (northbound) · Marrin County · 1,450 ft from STA 12+00 · L1, L2, L3").count()).toBe(1);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+
     await page.getByRole("link", { name: "New scenario" }).first().click();
-    await page.getByLabel("Name").fill("First plan");
+    await page.waitForURL(/\/scenarios\/new$/);
+    await page.getByLabel("Name", { exact: true }).fill("First plan");
     await page.getByRole("button", { name: "Create and open the plan" }).click();
     await page.waitForURL(/\/scenarios\/[0-9a-f-]{36}\/plan$/);
     await page.getByRole("heading", { name: "First plan", level: 1 }).waitFor();

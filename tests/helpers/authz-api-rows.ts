@@ -122,6 +122,16 @@ export const API_ROWS: Record<string, ApiRow> = {
     request: async () => ({ params: {}, body: { name: uniq("matrix project"), structureName: "Matrix structure", deckLengthFt: 600, startStationFt: "3+00", lanes: "L1, L2" } }),
   },
   "GET /api/projects/[projectId]": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
+  // Writes the project's own details back unchanged: other tests find the seeded project by its name.
+  "PUT /api/projects/[projectId]": {
+    need: { kind: "project", action: "editProject" },
+    ok: 200,
+    request: async (w) => {
+      const p = must(await call(`/api/projects/${w.projectId}`, { cookie: admin(w) }), 200, "project").project;
+      const body = { name: p.name, structureName: p.structureName, region: p.region, deckLengthFt: p.deckLengthFt, startStationFt: p.startStationFt, lanes: p.lanes, description: p.description };
+      return { params: proj(w), body };
+    },
+  },
   "GET /api/projects/[projectId]/scenarios": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
   "POST /api/projects/[projectId]/scenarios": {
     need: { kind: "project", action: "editScenario" },
@@ -243,7 +253,7 @@ export const API_ROWS: Record<string, ApiRow> = {
     request: async (w) => ({ params: scen(w), body: { enabled: false, hour: 6, recipients: ["field-team@marrin-dot.example"] } }),
   },
   "PUT /api/projects/[projectId]/location": {
-    need: { kind: "project", action: "setLocation" },
+    need: { kind: "project", action: "editProject" },
     ok: 200,
     request: async (w) => ({ params: proj(w), body: { latitude: 30.25, longitude: -88.1 } }),
   },

@@ -1,7 +1,8 @@
 /**
  * Starting a project through the real API: anyone signed in may, and becomes its only administrator; the deck
  * typed as a person would ("12+00", "L1, L2, L3") is stored as numbers and a list; a scenario from the standard
- * template over that deck is valid; a bad body is refused naming each field in words, with nothing stored.
+ * template over that deck is valid; a bad body is refused naming each field in words, with nothing stored. Its
+ * details are edited whole with the same contract; a refused edit changes nothing.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import postgres from "postgres";
@@ -73,5 +74,21 @@ describe("a new project", () => {
     const res = await call("/api/projects", { method: "POST", cookie: inspector, body });
     expect(res.status).toBe(400);
     expect(res.body.fields.map((f: { path: string }) => f.path).sort()).toEqual(["deckLengthFt", "owner"]);
+  });
+
+  it("has its details edited whole by its administrator; a refused edit changes nothing", async () => {
+    const start = { name: `Edit check ${Date.now()}`, structureName: "Godwit Canal Bridge", region: "", deckLengthFt: 700, startStationFt: 0, lanes: ["L1"], description: "" };
+    const made = await call("/api/projects", { method: "POST", cookie: inspector, body: start });
+    expect(made.status).toBe(201);
+    const path = `/api/projects/${made.body.id}`;
+    const edited = { ...start, name: `${start.name} (renamed)`, region: "Marrin County", deckLengthFt: 720, startStationFt: "2+50", lanes: "L1, L2", description: "Second line\nof notes." };
+    expect((await call(path, { method: "PUT", cookie: inspector, body: edited })).status).toBe(200);
+    const after = (await call(path, { cookie: inspector })).body.project;
+    expect(after).toMatchObject({ name: edited.name, region: "Marrin County", deckLengthFt: 720, startStationFt: 250, lanes: ["L1", "L2"], description: "Second line\nof notes." });
+
+    const refused = await call(path, { method: "PUT", cookie: inspector, body: { ...edited, name: "Should not stick", lanes: "" } });
+    expect(refused.status).toBe(400);
+    expect(refused.body.fields).toEqual([{ path: "lanes", label: "Lanes", message: "must name at least one lane" }]);
+    expect((await call(path, { cookie: inspector })).body.project.name).toBe(edited.name);
   });
 });

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { handler, readJson } from "@/lib/server/errors";
 import { requireUser } from "@/lib/server/access";
-import { projectCreateSchema } from "@/lib/schemas";
+import { projectDetailsSchema } from "@/lib/schemas";
 import { createProject, listProjectsForUser } from "@db/queries/projects";
 
 export const GET = handler(async () => {
@@ -12,7 +12,7 @@ export const GET = handler(async () => {
 /** A new project: anyone signed in may start one, and becomes its administrator (who then adds the others). */
 export const POST = handler(async (req: Request) => {
   const { user } = await requireUser();
-  const body = await readJson(req, projectCreateSchema, { maxBytes: 64 * 1024 });
+  const body = await readJson(req, projectDetailsSchema, { maxBytes: 64 * 1024 });
   const { id } = await createProject({ userId: user.id, project: body });
   return NextResponse.json({ id }, { status: 201 });
 });

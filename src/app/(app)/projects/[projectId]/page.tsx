@@ -8,6 +8,7 @@ import { ScenarioTable } from "./scenario-table";
 import { LocationForm } from "./location-form";
 import { orNotFound } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
+import { ProjectDetailsForm } from "@/components/project-details-form";
 
 export const metadata: Metadata = { title: "Project" };
 
@@ -29,6 +30,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
               .filter(Boolean)
               .join(" · ")}
           </p>
+          {project.description && <p className="mt-2 max-w-3xl whitespace-pre-line text-sm">{project.description}</p>}
         </div>
         <div className="flex gap-2">
           <Link href={`/projects/${project.id}/compare`} className="btn-secondary">
@@ -42,7 +44,26 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         </div>
       </header>
       <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario")} />
-      <LocationForm projectId={project.id} latitude={project.latitude} longitude={project.longitude} canEdit={can(role, "setLocation")} />
+      <LocationForm projectId={project.id} latitude={project.latitude} longitude={project.longitude} canEdit={can(role, "editProject")} />
+      {can(role, "editProject") && (
+        <details className="card" data-testid="project-details">
+          <summary className="cursor-pointer font-semibold">Edit project details</summary>
+          <div className="mt-4">
+            <ProjectDetailsForm
+              project={{
+                id: project.id,
+                name: project.name,
+                structureName: project.structureName,
+                region: project.region,
+                deckLengthFt: project.deckLengthFt,
+                startStationFt: project.startStationFt,
+                lanes: project.lanes,
+                description: project.description,
+              }}
+            />
+          </div>
+        </details>
+      )}
     </div>
   );
 }

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { requireUser } from "@/lib/server/access";
 import { Breadcrumb } from "@/components/breadcrumb";
-import { NewProjectForm } from "./new-project-form";
+import { ProjectDetailsForm } from "@/components/project-details-form";
 
 export const metadata: Metadata = { title: "New project" };
 
@@ -18,7 +18,7 @@ export default async function NewProjectPage() {
           every scenario on it starts from this deck.
         </p>
       </div>
-      <NewProjectForm />
+      <ProjectDetailsForm />
     </div>
   );
 }

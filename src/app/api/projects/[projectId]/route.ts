@@ -1,9 +1,23 @@
 import { NextResponse } from "next/server";
-import { handler } from "@/lib/server/errors";
+import { AppError, handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
+import { projectDetailsSchema } from "@/lib/schemas";
+import { updateProject } from "@db/queries/projects";
 
-export const GET = handler(async (_req: Request, ctx: { params: Promise<{ projectId: string }> }) => {
+type Ctx = { params: Promise<{ projectId: string }> };
+
+export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
   const { project, role } = await requireProject(projectId, "read");
   return NextResponse.json({ project, role });
+});
+
+/** The project's details, replaced whole (the same contract as starting one): its administrators and engineers. */
+export const PUT = handler(async (req: Request, ctx: Ctx) => {
+  const { projectId } = await ctx.params;
+  await requireProject(projectId, "editProject");
+  const body = await readJson(req, projectDetailsSchema, { maxBytes: 64 * 1024 });
+  // Removed between the check and the write: the same answer as any project that is not there.
+  if (!(await updateProject({ projectId, project: body }))) throw new AppError("not_found", "No such project.");
+  return NextResponse.json({ id: projectId });
 });

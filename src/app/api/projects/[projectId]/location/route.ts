@@ -9,7 +9,7 @@ type Ctx = { params: Promise<{ projectId: string }> };
 /** Where the structure is, for the forecast: set (or cleared) by the project's administrators and engineers. */
 export const PUT = handler(async (req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
-  await requireProject(projectId, "setLocation");
+  await requireProject(projectId, "editProject");
   const body = await readJson(req, projectLocationSchema);
   await setProjectLocation({ projectId, latitude: body.latitude, longitude: body.longitude });
   return NextResponse.json({ latitude: body.latitude, longitude: body.longitude });

@@ -1,5 +1,8 @@
 "use client";
-/** The new-project form: react-hook-form on the shared request contract (`projectCreateSchema`), errors beside their fields. */
+/**
+ * A project's details — starting a project, or editing one's — on the shared request contract
+ * (`projectDetailsSchema`) with react-hook-form; problems beside their fields, the server's too.
+ */
 import { useRouter } from "next/navigation";
 import { useState, type ReactNode } from "react";
 import { useForm, type UseFormRegisterReturn } from "react-hook-form";
@@ -8,11 +11,12 @@ import type { z } from "zod";
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
-import { projectCreateSchema } from "@/lib/schemas";
+import { projectDetailsSchema } from "@/lib/schemas";
 import { LIMITS } from "@sim/limits";
+import { formatStation } from "@/lib/format";
 
-type Input = z.input<typeof projectCreateSchema>;
-type Output = z.output<typeof projectCreateSchema>;
+type Input = z.input<typeof projectDetailsSchema>;
+type Output = z.output<typeof projectDetailsSchema>;
 const FIELDS = ["name", "structureName", "region", "deckLengthFt", "startStationFt", "lanes", "description"] as const;
 type FieldName = (typeof FIELDS)[number];
 
@@ -38,17 +42,46 @@ function Field({ id, label, hint, problem, children }: { id: string; label: stri
   );
 }
 
-export function NewProjectForm() {
+/** A stored project's details as the form shows them: the station in station notation, the lanes as one line. */
+export interface ProjectDetails extends Output {
+  id: string;
+}
+
+function formValues(p: ProjectDetails): Input {
+  return {
+    name: p.name,
+    structureName: p.structureName,
+    region: p.region,
+    deckLengthFt: p.deckLengthFt,
+    // Station notation keeps whole feet exactly; a fractional station stays in feet so saving it again changes nothing.
+    startStationFt: Number.isInteger(p.startStationFt) ? formatStation(p.startStationFt) : String(p.startStationFt),
+    lanes: p.lanes.join(", "),
+    description: p.description,
+  };
+}
+
+/** Without `project`: starts one and opens its page. With it: saves its details in place. */
+export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
   const router = useRouter();
-  const { register, handleSubmit, formState, setError } = useForm<Input, unknown, Output>({
-    resolver: zodResolver(projectCreateSchema),
-    defaultValues: { name: "", structureName: "", region: "", startStationFt: "0+00", lanes: "L1, L2", description: "" },
+  const { register, handleSubmit, formState, setError, reset } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(projectDetailsSchema),
+    defaultValues: project ? formValues(project) : { name: "", structureName: "", region: "", startStationFt: "0+00", lanes: "L1, L2", description: "" },
   });
   const [failure, setFailure] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
   const create = useMutation({
-    mutationFn: (v: Output) => api<{ id: string }>("/api/projects", { method: "POST", body: v }),
-    // The project's page: it has no scenario yet and offers New scenario, whose standard template takes this deck.
-    onSuccess: (r) => router.push(`/projects/${r.id}`),
+    mutationFn: (v: Output) =>
+      project ? api<{ id: string }>(`/api/projects/${project.id}`, { method: "PUT", body: v }) : api<{ id: string }>("/api/projects", { method: "POST", body: v }),
+    onSuccess: (r, v) => {
+      if (!project) {
+        // The project's page: it has no scenario yet and offers New scenario, whose standard template takes this deck.
+        router.push(`/projects/${r.id}`);
+        return;
+      }
+      reset(formValues({ ...v, id: project.id }));
+      setSaved(true);
+      router.refresh();
+    },
     onError: (e) => setFailure(applyServerErrors(e, setError, (p) => ((FIELDS as readonly string[]).includes(p) ? (p as FieldName) : null))),
   });
   const problem = (f: FieldName) => formState.errors[f]?.message;
@@ -62,10 +95,11 @@ export function NewProjectForm() {
 
   return (
     <form
-      className="card space-y-5"
+      className={project ? "space-y-5" : "card space-y-5"}
       noValidate
       onSubmit={handleSubmit((v) => {
         setFailure(null);
+        setSaved(false);
         create.mutate(v);
       })}
     >
@@ -99,9 +133,17 @@ export function NewProjectForm() {
           {failure}
         </p>
       )}
-      <button type="submit" className="btn-primary" disabled={create.isPending}>
-        {create.isPending ? "Creating…" : "Create the project"}
-      </button>
+      {project && (
+        <p className="text-xs text-muted">Scenarios keep the deck they were saved with; a new scenario starts from the deck here.</p>
+      )}
+      <div className="flex flex-wrap items-center gap-3">
+        <button type="submit" className="btn-primary" disabled={create.isPending}>
+          {project ? (create.isPending ? "Saving…" : "Save details") : create.isPending ? "Creating…" : "Create the project"}
+        </button>
+        <p aria-live="polite" className="text-sm text-ok">
+          {saved && !formState.isDirty ? "Details saved." : ""}
+        </p>
+      </div>
     </form>
   );
 }
