@@ -21,8 +21,8 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
     .orderBy(asc(projects.name));
 }
 
-/** What a new project stores (the request contract's output, src/lib/schemas.ts `projectCreateSchema`). */
-export interface NewProject {
+/** A project's own fields as stored (the request contract's output, src/lib/schemas.ts `projectDetailsSchema`). */
+export interface ProjectFields {
   name: string;
   structureName: string;
   region: string;
@@ -36,7 +36,7 @@ export interface NewProject {
  * A new project and its creator as its administrator, in one transaction: a project without an administrator
  * could never get members, so neither row is written without the other.
  */
-export async function createProject({ userId, project }: { userId: string; project: NewProject }): Promise<{ id: string }> {
+export async function createProject({ userId, project }: { userId: string; project: ProjectFields }): Promise<{ id: string }> {
   return getDb().transaction(async (tx) => {
     const [row] = await tx.insert(projects).values(project).returning({ id: projects.id });
     await tx.insert(projectMembers).values({ projectId: row.id, userId, role: "admin" });
@@ -48,7 +48,7 @@ export async function createProject({ userId, project }: { userId: string; proje
  * New details for a project. Its scenarios keep the deck they were saved with; the project's deck is where new
  * scenarios start (the standard template). Null when there is no such project.
  */
-export async function updateProject({ projectId, project }: { projectId: string; project: NewProject }): Promise<{ id: string } | null> {
+export async function updateProject({ projectId, project }: { projectId: string; project: ProjectFields }): Promise<{ id: string } | null> {
   const [row] = await getDb().update(projects).set(project).where(eq(projects.id, projectId)).returning({ id: projects.id });
   return row ?? null;
 }

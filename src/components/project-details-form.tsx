@@ -20,7 +20,7 @@ type Output = z.output<typeof projectDetailsSchema>;
 const FIELDS = ["name", "structureName", "region", "deckLengthFt", "startStationFt", "lanes", "description"] as const;
 type FieldName = (typeof FIELDS)[number];
 
-/** One labelled input with its hint and its problem ("Deck length must be more than 0 ft"), tied together for screen readers. */
+/** One labelled input with its hint and its problem ("Deck length (ft) must be more than 0 ft"), tied together for screen readers. */
 function Field({ id, label, hint, problem, children }: { id: string; label: string; hint?: string; problem?: string; children: ReactNode }) {
   return (
     <div>
@@ -69,7 +69,7 @@ export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
   });
   const [failure, setFailure] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
-  const create = useMutation({
+  const save = useMutation({
     mutationFn: (v: Output) =>
       project ? api<{ id: string }>(`/api/projects/${project.id}`, { method: "PUT", body: v }) : api<{ id: string }>("/api/projects", { method: "POST", body: v }),
     onSuccess: (r, v) => {
@@ -100,7 +100,7 @@ export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
       onSubmit={handleSubmit((v) => {
         setFailure(null);
         setSaved(false);
-        create.mutate(v);
+        save.mutate(v);
       })}
     >
       <Field id="project-name" label="Project name" problem={problem("name")}>
@@ -137,8 +137,8 @@ export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
         <p className="text-xs text-muted">Scenarios keep the deck they were saved with; a new scenario starts from the deck here.</p>
       )}
       <div className="flex flex-wrap items-center gap-3">
-        <button type="submit" className="btn-primary" disabled={create.isPending}>
-          {project ? (create.isPending ? "Saving…" : "Save details") : create.isPending ? "Creating…" : "Create the project"}
+        <button type="submit" className="btn-primary" disabled={save.isPending}>
+          {project ? (save.isPending ? "Saving…" : "Save details") : save.isPending ? "Creating…" : "Create the project"}
         </button>
         <p aria-live="polite" className="text-sm text-ok">
           {saved && !formState.isDirty ? "Details saved." : ""}

@@ -86,7 +86,6 @@ export const projectDetailsSchema = z
     description: plainText(LIMITS.description, { multiline: true }).default(""),
   })
   .strict();
-export type ProjectDetailsInput = z.input<typeof projectDetailsSchema>;
 
 export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
 /** An invitation names a person and a role like adding a member does; the same contract. */

@@ -17,9 +17,9 @@ import { freshId, proposeLink } from "./plan-logic";
 import { withoutOperation } from "./stages-logic";
 
 type OpIn = ScenarioInput["operations"][number];
+type LinkIn = ScenarioInput["links"][number];
 /** Fit the whole graph, but never above full size (a short chain would otherwise be blown up). */
 const FIT = { padding: 0.12, maxZoom: 1 };
-type LinkIn = ScenarioInput["links"][number];
 
 function syncNodes(prev: Node[], ops: OpIn[], layout: Record<string, GraphPosition>): Node[] {
   const byId = new Map(prev.map((nd) => [nd.id, nd]));
