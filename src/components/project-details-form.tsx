@@ -4,7 +4,7 @@
  * (`projectDetailsSchema`) with react-hook-form; problems beside their fields, the server's too.
  */
 import { useRouter } from "next/navigation";
-import { useState, type ReactNode } from "react";
+import { useState } from "react";
 import { useForm, type UseFormRegisterReturn } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
@@ -14,33 +14,12 @@ import { applyServerErrors } from "@/lib/form-errors";
 import { projectDetailsSchema } from "@/lib/schemas";
 import { LIMITS } from "@sim/limits";
 import { formatStation } from "@/lib/format";
+import { describedBy, LabelledField as Field } from "@/components/labelled-field";
 
 type Input = z.input<typeof projectDetailsSchema>;
 type Output = z.output<typeof projectDetailsSchema>;
 const FIELDS = ["name", "structureName", "region", "deckLengthFt", "startStationFt", "lanes", "description"] as const;
 type FieldName = (typeof FIELDS)[number];
-
-/** One labelled input with its hint and its problem ("Deck length (ft) must be more than 0 ft"), tied together for screen readers. */
-function Field({ id, label, hint, problem, children }: { id: string; label: string; hint?: string; problem?: string; children: ReactNode }) {
-  return (
-    <div>
-      <label htmlFor={id} className="field-label">
-        {label}
-      </label>
-      {children}
-      {hint && (
-        <p id={`${id}-hint`} className="mt-1 text-xs text-muted">
-          {hint}
-        </p>
-      )}
-      {problem && (
-        <p id={`${id}-error`} className="field-error">
-          {label} {problem}
-        </p>
-      )}
-    </div>
-  );
-}
 
 /** A stored project's details as the form shows them: the station in station notation, the lanes as one line. */
 export interface ProjectDetails extends Output {
@@ -85,10 +64,10 @@ export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
     onError: (e) => setFailure(applyServerErrors(e, setError, (p) => ((FIELDS as readonly string[]).includes(p) ? (p as FieldName) : null))),
   });
   const problem = (f: FieldName) => formState.errors[f]?.message;
-  const described = (f: FieldName, hint = false) => {
-    const ids = [hint ? `project-${f}-hint` : "", problem(f) ? `project-${f}-error` : ""].filter(Boolean).join(" ");
-    return { "aria-invalid": !!problem(f), "aria-describedby": ids || undefined };
-  };
+  const described = (f: FieldName, hint = false) => ({
+    "aria-invalid": !!problem(f),
+    "aria-describedby": describedBy(`project-${f}`, { hint, problem: !!problem(f) }),
+  });
   const input = (f: FieldName, reg: UseFormRegisterReturn, props: Record<string, unknown> = {}, hint = false) => (
     <input id={`project-${f}`} className="field-input" {...described(f, hint)} {...props} {...reg} />
   );

@@ -72,6 +72,9 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
     expect(res?.status()).toBe(200);
     await page.getByTestId("advisory-title").waitFor();
     expect(await page.getByText("do not use your phone or photograph the work zone").count()).toBe(1);
+    // Read on a phone: the page does not scroll sideways (its day tables scroll in their own boxes).
+    await page.waitForLoadState("networkidle");
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "public-advisory");
     // Keyboard: Tab reaches the calendar link (the page's one control).

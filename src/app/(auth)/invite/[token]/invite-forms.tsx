@@ -1,5 +1,6 @@
 "use client";
 import { useActionState } from "react";
+import { describedBy, LabelledField } from "@/components/labelled-field";
 import { acceptSignedInAction, acceptWithNewAccountAction, acceptWithSignInAction, type InviteState } from "./actions";
 
 function Alert({ state }: { state: InviteState }) {
@@ -12,22 +13,9 @@ function Alert({ state }: { state: InviteState }) {
 
 function Field({ id, label, type = "text", autoComplete, error, hint, defaultValue }: { id: string; label: string; type?: string; autoComplete: string; error?: string; hint?: string; defaultValue?: string }) {
   return (
-    <div>
-      <label htmlFor={id} className="field-label">
-        {label}
-      </label>
-      <input id={id} name={id} type={type} autoComplete={autoComplete} required defaultValue={defaultValue} className="field-input" aria-invalid={!!error} aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined} />
-      {hint && !error && (
-        <p id={`${id}-hint`} className="mt-1 text-xs text-muted">
-          {hint}
-        </p>
-      )}
-      {error && (
-        <p id={`${id}-error`} className="field-error">
-          {label} {error}
-        </p>
-      )}
-    </div>
+    <LabelledField id={id} label={label} hint={hint} problem={error}>
+      <input id={id} name={id} type={type} autoComplete={autoComplete} required defaultValue={defaultValue} className="field-input" aria-invalid={!!error} aria-describedby={describedBy(id, { hint: !!hint, problem: !!error })} />
+    </LabelledField>
   );
 }
 
