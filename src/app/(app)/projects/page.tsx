@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { listProjectsForUser } from "@db/queries/projects";
-import { requireUser } from "@/lib/server/access";
+import { pageUser } from "@/lib/server/page-access";
 import { RoleBadge } from "@/components/role-badge";
 import { formatStation } from "@/lib/format";
 import type { ProjectRole } from "@/lib/permissions";
@@ -9,7 +9,7 @@ import type { ProjectRole } from "@/lib/permissions";
 export const metadata: Metadata = { title: "Projects" };
 
 export default async function ProjectsPage() {
-  const { user } = await requireUser();
+  const { user } = await pageUser();
   const projects = await listProjectsForUser({ userId: user.id });
   return (
     <div className="space-y-6">

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { requireUser } from "@/lib/server/access";
+import { pageUser } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
 import { ProjectDetailsForm } from "@/components/project-details-form";
 
@@ -7,7 +7,7 @@ export const metadata: Metadata = { title: "New project" };
 
 /** Anyone signed in may start a project; they become its administrator (`POST /api/projects`). */
 export default async function NewProjectPage() {
-  await requireUser();
+  await pageUser();
   return (
     <div className="mx-auto max-w-2xl space-y-5">
       <Breadcrumb here="New project" />
