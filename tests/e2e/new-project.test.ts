@@ -2,7 +2,7 @@
  * A project from nothing, in Debian's Chromium: a scheduler opens New project from the project list, leaves the
  * deck length empty and is told so beside the field, fixes it, lands on the new project's page (administrator,
  * no scenario yet), adds the region under Edit project details, and makes a first scenario from the standard
- * template over that deck; no serious axe finding.
+ * template over that deck, whose week ahead sends them to set the structure's location; no serious axe finding.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
@@ -61,6 +61,14 @@ describe("a new project", () => {
     // The plan editor opens on the template over this deck: seven operations in the sequence graph.
     await expect.poll(() => page.locator("[data-testid=sequence-graph] .react-flow__node").count(), { timeout: 30_000 }).toBe(7);
     await screenshot(page, "new-project-first-plan");
+
+    // Its week ahead has no forecast until the structure's location is set: the board says so and links there.
+    await page.getByRole("navigation", { name: "Scenario sections" }).getByRole("link", { name: "Week ahead" }).click();
+    await page.getByTestId("forecast-message").waitFor();
+    expect(await page.getByTestId("forecast-message").textContent()).toContain("The project has no location yet");
+    await page.getByTestId("forecast-message").getByRole("link", { name: "Set the location" }).click();
+    await page.waitForURL(/\/projects\/[0-9a-f-]{36}#location-heading$/);
+    await page.getByRole("heading", { name: "Location for the weather forecast" }).waitFor();
     await context.close();
   });
 });

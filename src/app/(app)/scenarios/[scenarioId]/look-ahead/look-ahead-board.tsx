@@ -1,4 +1,5 @@
 "use client";
+import Link from "next/link";
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
@@ -30,7 +31,7 @@ function age(min: number | null): string {
 }
 
 /** The week ahead as a grid: one row per shift and weather-gated operation, one column per day. */
-export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
+export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: string; locationHref: string | null }) {
   const q = useQuery({ queryKey: ["scenarios", scenarioId, "look-ahead"], queryFn: () => api<Board>(`/api/scenarios/${scenarioId}/look-ahead`) });
   const [open, setOpen] = useState<{ date: string; shiftId: string; opId: string } | null>(null);
   if (q.isPending) return <p className="text-sm text-muted">Loading the week ahead…</p>;
@@ -65,6 +66,14 @@ export function LookAheadBoardView({ scenarioId }: { scenarioId: string }) {
         {f.message && (
           <p role="status" className="mt-2 rounded-md border border-warn/40 bg-warn-bg px-3 py-2 text-sm text-warn" data-testid="forecast-message">
             {f.message}
+            {f.status === "noLocation" && locationHref && (
+              <>
+                {" "}
+                <Link href={locationHref} className="font-medium underline">
+                  Set the location
+                </Link>
+              </>
+            )}
           </p>
         )}
       </div>
