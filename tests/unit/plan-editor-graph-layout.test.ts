@@ -2,7 +2,7 @@
 // right within a row, or on to a later row); long chains fold into rows of at most four columns.
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { layoutGraph, MAX_COLUMNS_PER_ROW, NODE_HEIGHT, NODE_WIDTH, type GraphPosition } from "@/components/plan-editor/graph-layout";
+import { columnsFor, layoutGraph, MAX_COLUMNS_PER_ROW, NODE_HEIGHT, NODE_WIDTH, type GraphPosition } from "@/components/plan-editor/graph-layout";
 
 const overlap = (a: { x: number; y: number }, b: { x: number; y: number }) => Math.abs(a.x - b.x) < NODE_WIDTH && Math.abs(a.y - b.y) < NODE_HEIGHT;
 /** Reading order: a later row, or the same row further right. */
@@ -32,6 +32,15 @@ describe("layoutGraph", () => {
     expect(pos.placement.x).toBe(pos.setup.x);
     expect(pos.placement.y).toBeGreaterThanOrEqual(pos.setup.y + NODE_HEIGHT);
   });
+  it("takes the row length from the graph's width: four on a desktop, three on a tablet, two on a phone", () => {
+    expect(columnsFor(1010)).toBe(4); // the plan editor's graph at 1,400 px
+    expect(columnsFor(700)).toBe(3); // a 768 px tablet
+    expect(columnsFor(350)).toBe(2); // a 390 px phone: still two, or the graph is drawn tiny
+    expect(columnsFor(0)).toBe(2);
+    const ids = ["setup", "milling", "hydro", "cleanup", "placement", "cure", "striping"];
+    const pos = layoutGraph(ids, ids.slice(1).map((to, i) => ({ from: ids[i], to })), undefined, 2);
+    expect(ids.map((id) => pos[id].row)).toEqual([0, 0, 1, 1, 2, 2, 3]);
+  });
   it("keeps a chain of four or fewer in one row", () => {
     const ids = ["a", "b", "c", "d"];
     const pos = layoutGraph(ids, ids.slice(1).map((to, i) => ({ from: ids[i], to })));
@@ -53,15 +62,15 @@ describe("layoutGraph", () => {
     expect(overlap(pos.new, pos.a)).toBe(false);
     expect(overlap(pos.new, pos.b)).toBe(false);
   });
-  it("never overlaps two operations, runs every link forward in reading order and fills at most four columns a row, for any acyclic plan", () => {
+  it("never overlaps two operations, runs every link forward in reading order and fills at most the row length asked for, for any acyclic plan and row length", () => {
     fc.assert(
-      fc.property(dag, ({ ids, links }) => {
-        const pos = layoutGraph(ids, links);
+      fc.property(dag, fc.integer({ min: 2, max: MAX_COLUMNS_PER_ROW }), ({ ids, links }, perRow) => {
+        const pos = layoutGraph(ids, links, undefined, perRow);
         for (let i = 0; i < ids.length; i++) for (let j = i + 1; j < ids.length; j++) expect(overlap(pos[ids[i]], pos[ids[j]]), `${ids[i]} / ${ids[j]}`).toBe(false);
         for (const l of links) expect(forward(pos[l.from], pos[l.to]), `${l.from} → ${l.to}`).toBe(true);
         const rows = new Map<number, Set<number>>();
         for (const id of ids) rows.set(pos[id].row, (rows.get(pos[id].row) ?? new Set()).add(pos[id].x));
-        for (const xs of rows.values()) expect(xs.size).toBeLessThanOrEqual(MAX_COLUMNS_PER_ROW);
+        for (const xs of rows.values()) expect(xs.size).toBeLessThanOrEqual(perRow);
       }),
       { numRuns: 100 },
     );

@@ -1,6 +1,6 @@
 /**
  * Where each operation sits in the sequence graph: a layered left-to-right layout by dagre, folded into rows of
- * at most four columns like lines of text (pure, no DOM; unit-tested in tests/unit/plan-editor-graph-layout.test.ts).
+ * at most four columns (fewer on a narrow screen, `columnsFor`) like lines of text (pure, no DOM; unit-tested in tests/unit/plan-editor-graph-layout.test.ts).
  * Laid out afresh whenever operations or links change, so a new operation never lands on an old one and every
  * link runs forward in reading order: to the right in its row, or on to a later row.
  * Why fold: the seven-operation chain in one row was fitted at about 65 % zoom, its labels read at 10 px; in two
@@ -26,6 +26,16 @@ export const NODE_HEIGHT = 80;
 export const MAX_COLUMNS_PER_ROW = 4;
 /** Space between rows: room for a wrapping link's bend and its lag label. */
 export const ROW_GAP = 64;
+/** Horizontal space between columns (dagre's ranksep below). */
+const COLUMN_GAP = 48;
+
+/**
+ * How many columns a row of a graph drawn `width` px wide takes at full size: four on a desktop, fewer on a
+ * tablet, never below two (on a phone one column a row would make the graph so tall it is drawn tiny).
+ */
+export function columnsFor(width: number): number {
+  return Math.max(2, Math.min(MAX_COLUMNS_PER_ROW, Math.floor((width - 24) / (NODE_WIDTH + COLUMN_GAP))));
+}
 
 export function layoutGraph(
   ids: readonly string[],
@@ -35,7 +45,7 @@ export function layoutGraph(
 ): Record<string, GraphPosition> {
   const g = new dagre.graphlib.Graph({ multigraph: false });
   // ranksep leaves room for a short lag label ("200 ft"); nodesep keeps parallel crews apart.
-  g.setGraph({ rankdir: "LR", nodesep: 36, ranksep: 48, marginx: 10, marginy: 10 });
+  g.setGraph({ rankdir: "LR", nodesep: 36, ranksep: COLUMN_GAP, marginx: 10, marginy: 10 });
   g.setDefaultEdgeLabel(() => ({}));
   const known = new Set(ids);
   for (const id of ids) g.setNode(id, { width: size.width, height: size.height });

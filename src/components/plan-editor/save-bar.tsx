@@ -53,9 +53,9 @@ export function SaveBar({
     );
   }
   return (
-    <div className="sticky bottom-0 z-20 -mx-1 rounded-lg border border-line bg-white/95 px-4 py-3 shadow-lg backdrop-blur" role="region" aria-label="Save changes">
-      <div className="flex flex-wrap items-end gap-3">
-        <div className="min-w-[12rem] flex-1 space-y-1">
+    <div className="sticky bottom-0 z-20 -mx-1 rounded-lg border border-line bg-white/95 px-4 py-2 shadow-lg backdrop-blur sm:py-3" role="region" aria-label="Save changes">
+      <div className="flex flex-wrap items-end gap-x-3 gap-y-2">
+        <div className="w-full space-y-1 sm:w-auto sm:min-w-[12rem] sm:flex-1">
           <p aria-live="polite" className="text-sm">
             {dirty ? (
               <span className="badge bg-warn-bg text-warn" data-testid="unsaved-indicator">
@@ -70,11 +70,15 @@ export function SaveBar({
               </span>
             )}
           </p>
-          {last}
-          {history}
+          {/* On a phone the bar stays small (it covers the form it floats over): who saved last and the history
+              wait for a wider screen; the change note's placeholder says what it is for. */}
+          <div className="hidden space-y-1 sm:block">
+            {last}
+            {history}
+          </div>
         </div>
-        <div className="w-full sm:w-72">
-          <label htmlFor="change-note" className="field-label">
+        <div className="min-w-0 flex-1 sm:w-72 sm:flex-none">
+          <label htmlFor="change-note" className="field-label max-sm:sr-only">
             Change note
           </label>
           <input

@@ -7,12 +7,12 @@
  * (Tab), shows it, and Delete or Backspace on a focused link removes it.
  */
 import "@xyflow/react/dist/style.css";
-import { useEffect, useMemo, useState, type KeyboardEvent } from "react";
+import { useEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import { Background, Controls, MarkerType, Position, ReactFlow, applyNodeChanges, type Connection, type Edge, type Node, type NodeChange, type ReactFlowInstance } from "@xyflow/react";
 import type { Link, Operation, ScenarioInput } from "@sim/schema";
 import { NumberField, TextField } from "./fields";
-import { layoutGraph, NODE_HEIGHT, NODE_WIDTH, type GraphPosition } from "./graph-layout";
+import { columnsFor, layoutGraph, MAX_COLUMNS_PER_ROW, NODE_HEIGHT, NODE_WIDTH, type GraphPosition } from "./graph-layout";
 import { freshId, proposeLink } from "./plan-logic";
 import { withoutOperation } from "./stages-logic";
 
@@ -70,10 +70,20 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
   const [flow, setFlow] = useState<ReactFlowInstance | null>(null);
   const opKey = ops.map((o) => `${o.id}\u0000${o.name}\u0000${o.kind}`).join("\u0001");
   const linkKey = links.map((l) => `${l.from}->${l.to}`).join("\u0001");
-  // One layout per change of operations or links (opKey and linkKey stand for them); nodes and edges both read it.
+  // Rows as wide as the graph's box holds at full size (four columns on a desktop, two on a phone).
+  const box = useRef<HTMLDivElement>(null);
+  const [columns, setColumns] = useState(MAX_COLUMNS_PER_ROW);
+  useEffect(() => {
+    const el = box.current;
+    if (!el) return;
+    const watch = new ResizeObserver(([entry]) => setColumns(columnsFor(entry.contentRect.width)));
+    watch.observe(el);
+    return () => watch.disconnect();
+  }, []);
+  // One layout per change of operations, links (opKey and linkKey stand for them) or row length; nodes and edges both read it.
   const layout = useMemo(
-    () => layoutGraph((getValues("operations") ?? []).map((o) => o.id), getValues("links") ?? []),
-    [opKey, linkKey, getValues],
+    () => layoutGraph((getValues("operations") ?? []).map((o) => o.id), getValues("links") ?? [], undefined, columns),
+    [opKey, linkKey, columns, getValues],
   );
   useEffect(() => {
     setNodes((prev) => syncNodes(prev, getValues("operations") ?? [], layout));
@@ -83,7 +93,7 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
     if (!flow) return;
     const raf = requestAnimationFrame(() => void flow.fitView(FIT));
     return () => cancelAnimationFrame(raf);
-  }, [flow, nodes.length, linkKey]);
+  }, [flow, nodes.length, linkKey, columns]);
 
   const label = (id: string) => ops.find((o) => o.id === id)?.name || id;
   const edges: Edge[] = useMemo(
@@ -206,7 +216,7 @@ export function SequenceSection({ readOnly }: { readOnly: boolean }) {
                 : "Drag from an operation's right handle to another's left handle to link them; select a link and press Delete to remove it. Everything here can also be done in the panel."}
             </p>
           </div>
-          <div className="sequence-graph mt-3 h-[26rem] border-t border-line" data-testid="sequence-graph" tabIndex={-1} onKeyDownCapture={onGraphKeyDown}>
+          <div ref={box} className="sequence-graph mt-3 h-[26rem] border-t border-line" data-testid="sequence-graph" tabIndex={-1} onKeyDownCapture={onGraphKeyDown}>
             <ReactFlow
               onInit={setFlow}
               nodes={nodes}
