@@ -1,10 +1,11 @@
 /**
  * Where each operation sits in the sequence graph: a layered left-to-right layout by dagre, folded into rows of
- * at most four columns (fewer on a narrow screen, `columnsFor`) like lines of text (pure, no DOM; unit-tested in tests/unit/plan-editor-graph-layout.test.ts).
- * Laid out afresh whenever operations or links change, so a new operation never lands on an old one and every
- * link runs forward in reading order: to the right in its row, or on to a later row.
- * Why fold: the seven-operation chain in one row was fitted at about 65 % zoom, its labels read at 10 px; in two
- * rows it fits at full size. Positions are the top-left corners React Flow expects; they are not part of the scenario.
+ * at most four columns (fewer on a narrow screen, `columnsFor`) like lines of text. Pure, no DOM; unit-tested in
+ * tests/unit/plan-editor-graph-layout.test.ts. Laid out afresh whenever operations or links change, so a new
+ * operation never lands on an old one and every link runs forward in reading order: to the right in its row, or
+ * on to a later row. Why fold: the seven-operation chain in one row was fitted at about 65 % zoom, its labels
+ * read at 10 px; in two rows it fits at full size. Positions are the top-left corners React Flow expects; they
+ * are not part of the scenario.
  */
 import dagre from "@dagrejs/dagre";
 
