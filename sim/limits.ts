@@ -7,6 +7,8 @@ export const LIMITS = {
   /** Scenario, shift, closure, operation and direction names (characters). */
   name: 120,
   description: 2_000,
+  /** A deck's length in feet (about 9.5 miles; a project's deck too, since its scenarios start from it). */
+  deckLengthFt: 50_000,
   /** Lane names ("L1", "Eastbound right"). */
   laneName: 40,
   /** An IANA zone name; the longest real one has 30 characters. */

@@ -12,22 +12,28 @@ export const DISCOVERED_KINDS = ["bottom-mat", "full-depth"] as const;
 const isoDate = realIsoDate("Work date");
 // zod 4 numbers refuse NaN and ±Infinity, so an empty number input (NaN) gets this message.
 const num = (label: string) => z.number({ error: `${label} must be a number` });
-/** A station as a number of feet, or typed as feet or 12+50; anything else ("12a0") is refused, never trimmed. */
-const station = (label: string) =>
-  z.union([z.number({ error: `${label} must be in feet (1250) or a station (12+50)` }), z.string()]).transform((v, ctx) => {
+/**
+ * A station as a number of feet, or typed as feet or 12+50; anything else ("12a0") is refused, never trimmed.
+ * `label` starts the messages ("From station must be …") for forms that show them without a path. Every
+ * station a person types goes through this one field (the field log here, a project's start station).
+ */
+export const stationField = (label?: string) => {
+  const lead = label ? `${label} ` : "";
+  return z.union([z.number(), z.string()], { error: `${lead}must be in feet (1250) or a station (12+50)` }).transform((v, ctx) => {
     const n = typeof v === "number" ? v : parseStation(v);
     if (n === null || !Number.isFinite(n)) {
-      ctx.addIssue({ code: "custom", message: `${label} must be in feet (1250) or a station (12+50)${typeof v === "string" && v.trim() ? `; “${v.trim()}” is neither` : ""}` });
+      ctx.addIssue({ code: "custom", message: `${lead}must be in feet (1250) or a station (12+50)${typeof v === "string" && v.trim() ? `; “${v.trim()}” is neither` : ""}` });
       return z.NEVER;
     }
     return n;
   });
+};
 
 export const discoveredItemSchema = z
   .object({
     kind: z.enum(DISCOVERED_KINDS, { error: "Condition must be bottom-mat exposure or full-depth repair" }),
-    fromStationFt: station("Condition from station"),
-    toStationFt: station("Condition to station"),
+    fromStationFt: stationField("Condition from station"),
+    toStationFt: stationField("Condition to station"),
     areaSqFt: num("Condition area").gt(0, "Condition area must be more than 0 ft²").max(100_000, "Condition area must be at most 100,000 ft²"),
   })
   .superRefine((d, ctx) => {
@@ -39,8 +45,8 @@ const entryObject = z.object({
     workDate: isoDate,
     shift: plainText(40, { label: "Shift" }).min(1, "Shift must be chosen"),
     operationId: plainText(40, { label: "Operation" }).min(1, "Operation must be chosen"),
-    fromStationFt: station("From station"),
-    toStationFt: station("To station"),
+    fromStationFt: stationField("From station"),
+    toStationFt: stationField("To station"),
     crew: plainText(80, { label: "Crew" }).trim().default(""),
     tempF: num("Temperature").min(-40, "Temperature must be at least −40 °F").max(130, "Temperature must be at most 130 °F").nullable().default(null),
     rain: z.boolean().default(false),

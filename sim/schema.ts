@@ -312,7 +312,7 @@ export const scenarioSchema = z.object({
     .default("America/Chicago"),
   deck: z.object({
     startStationFt: nonNeg,
-    lengthFt: z.number().gt(0, "must be > 0").max(50_000),
+    lengthFt: z.number().gt(0, "must be > 0").max(LIMITS.deckLengthFt),
     packetFt: z.number().min(10, "must be ≥ 10").max(1_000).default(100),
     lanes: upTo(laneName, LIMITS.lanes, "lanes").min(1, "must name at least one lane"),
     survey: upTo(surveyRangeSchema, LIMITS.surveyRanges, "survey ranges").default([]),

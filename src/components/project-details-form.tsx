@@ -97,7 +97,7 @@ export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
         <Field id="project-deckLengthFt" label="Deck length (ft)" problem={problem("deckLengthFt")}>
           {input("deckLengthFt", register("deckLengthFt", { valueAsNumber: true }), { type: "number", inputMode: "decimal", min: 1, max: 50_000, step: "any" })}
         </Field>
-        <Field id="project-startStationFt" label="Start station" hint="Feet (1200) or a station (12+00)." problem={problem("startStationFt")}>
+        <Field id="project-startStationFt" label="Start station" hint="Feet (1250) or a station (12+50)." problem={problem("startStationFt")}>
           {input("startStationFt", register("startStationFt"), { maxLength: 40 }, true)}
         </Field>
         <Field id="project-lanes" label="Lanes" hint="Names, separated by commas." problem={problem("lanes")}>

@@ -4,7 +4,7 @@ import { ROLES } from "@db/schema-enums";
 import { LIMITS } from "@sim/limits";
 import { runSummarySchema } from "@sim/run-summary-schema";
 import { controlCharacterIn, plainText } from "@sim/text";
-import { parseStation } from "@sim/progress-rules";
+import { stationField } from "@sim/progress-entry";
 
 /** A one-line text of at most `max` characters (no control characters), trimmed. */
 const line = (max: number) => plainText(max).trim();
@@ -28,18 +28,8 @@ export const scenarioUpdateSchema = scenarioWriteSchema.extend({
 
 export const variantSchema = z.object({ name: line(LIMITS.name).min(1, "must not be empty") });
 
-/** A deck station as feet (1200) or typed as feet or station notation ("1200", "12+00", "STA 12+00"). */
-const stationFt = z
-  .union([z.number(), z.string().max(40, "must be in feet (1200) or a station (12+00)")], { error: "must be in feet (1200) or a station (12+00)" })
-  .transform((v, ctx) => {
-    const n = typeof v === "number" ? v : parseStation(v);
-    if (n === null || !Number.isFinite(n)) {
-      ctx.addIssue({ code: "custom", message: `must be in feet (1200) or a station (12+00)${typeof v === "string" && v.trim() ? `; “${v.trim()}” is neither` : ""}` });
-      return z.NEVER;
-    }
-    return n;
-  })
-  .pipe(z.number().min(0, "must not be below STA 0+00").max(1_000_000, "must be at most STA 10000+00"));
+/** A deck station: feet, or typed as feet or station notation ("1250", "12+50", "STA 12+50"), on or after STA 0+00. */
+const stationFt = stationField().pipe(z.number().min(0, "must not be below STA 0+00").max(1_000_000, "must be at most STA 10000+00"));
 
 /** Lane names as a list, or typed as one line separated by commas ("L1, L2, L3"). */
 const laneNames = z
@@ -79,8 +69,11 @@ export const projectDetailsSchema = z
     name: line(LIMITS.name).min(1, "must not be empty"),
     structureName: line(LIMITS.name).min(1, "must not be empty"),
     region: line(LIMITS.name).default(""),
-    // Same bound as a scenario's deck (sim/schema.ts): a scenario made from the project must be valid.
-    deckLengthFt: z.number({ error: "must be a number of feet" }).gt(0, "must be more than 0 ft").max(50_000, "must be at most 50,000 ft"),
+    // The scenario format's bound: a scenario made from the project must be valid.
+    deckLengthFt: z
+      .number({ error: "must be a number of feet" })
+      .gt(0, "must be more than 0 ft")
+      .max(LIMITS.deckLengthFt, `must be at most ${LIMITS.deckLengthFt.toLocaleString("en-US")} ft`),
     startStationFt: stationFt,
     lanes: laneNames,
     description: plainText(LIMITS.description, { multiline: true }).default(""),

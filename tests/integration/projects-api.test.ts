@@ -62,7 +62,7 @@ describe("a new project", () => {
     expect(byPath).toEqual({
       name: "Name: must not be empty",
       deckLengthFt: "Deck length: must be more than 0 ft",
-      startStationFt: "Start station: must be in feet (1200) or a station (12+00); “12a0” is neither",
+      startStationFt: "Start station: must be in feet (1250) or a station (12+50); “12a0” is neither",
       lanes: "Lanes: must not name a lane twice (“L1”)",
     });
     expect(await projectCount()).toBe(projects);
