@@ -77,6 +77,12 @@ export const projects = pgTable("projects", {
   latitude: doublePrecision("latitude"),
   longitude: doublePrecision("longitude"),
   createdAt: ts("created_at").notNull().defaultNow(),
+  /**
+   * When an administrator archived the project (null = in use). An archived project is kept as a record: it can
+   * be read, but nothing in it changes until it is restored (src/lib/permissions.ts `ARCHIVED_STILL_ALLOWS`).
+   */
+  archivedAt: ts("archived_at"),
+  archivedById: text("archived_by_id").references(() => users.id, { onDelete: "set null" }),
 });
 export type Project = InferSelectModel<typeof projects>;
 

@@ -5,7 +5,7 @@ import "server-only";
  */
 import { and, eq, isNull, lt, or } from "drizzle-orm";
 import { getDb } from "../client";
-import { lookAheadNotices, scenarios } from "../schema";
+import { lookAheadNotices, projects, scenarios } from "../schema";
 import type { Executor } from "./mail";
 
 export async function getLookAheadNotice({ scenarioId }: { scenarioId: string }) {
@@ -24,7 +24,7 @@ export async function saveLookAheadNotice(input: { scenarioId: string; enabled: 
     .onConflictDoUpdate({ target: lookAheadNotices.scenarioId, set: values });
 }
 
-/** Enabled notices with what the sender needs of their scenario. */
+/** Enabled notices with what the sender needs of their scenario; none of an archived project (it is a record, not a job in hand). */
 export async function listEnabledNotices() {
   return getDb()
     .select({
@@ -39,7 +39,8 @@ export async function listEnabledNotices() {
     })
     .from(lookAheadNotices)
     .innerJoin(scenarios, eq(scenarios.id, lookAheadNotices.scenarioId))
-    .where(eq(lookAheadNotices.enabled, true));
+    .innerJoin(projects, eq(projects.id, scenarios.projectId))
+    .where(and(eq(lookAheadNotices.enabled, true), isNull(projects.archivedAt)));
 }
 
 export async function claimNoticeDay({ tx, scenarioId, date, board }: { tx: Executor; scenarioId: string; date: string; board: Record<string, unknown> }): Promise<boolean> {

@@ -13,6 +13,7 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
       deckLengthFt: projects.deckLengthFt,
       startStationFt: projects.startStationFt,
       lanes: projects.lanes,
+      archivedAt: projects.archivedAt,
       role: projectMembers.role,
     })
     .from(projectMembers)
@@ -53,6 +54,23 @@ export async function updateProject({ projectId, project }: { projectId: string;
   return row ?? null;
 }
 
+/**
+ * Archives the project (`archived`) or restores it, recording who and when; archiving an archived project keeps
+ * the first date and name. Null when there is no such project.
+ */
+export async function setProjectArchived({ projectId, userId, archived }: { projectId: string; userId: string; archived: boolean }) {
+  const db = getDb();
+  const set = archived ? { archivedAt: sql`coalesce(${projects.archivedAt}, now())`, archivedById: sql`case when ${projects.archivedAt} is null then ${userId} else ${projects.archivedById} end` } : { archivedAt: null, archivedById: null };
+  const [row] = await db.update(projects).set(set).where(eq(projects.id, projectId)).returning({ id: projects.id, archivedAt: projects.archivedAt });
+  return row ?? null;
+}
+
+/** Who archived the project, by name (null when it is not archived or the person's account is gone). */
+export async function archivedByName({ projectId }: { projectId: string }): Promise<string | null> {
+  const [row] = await getDb().select({ name: users.name }).from(projects).innerJoin(users, eq(users.id, projects.archivedById)).where(eq(projects.id, projectId));
+  return row?.name ?? null;
+}
+
 export async function getProject({ id }: { id: string }) {
   const [row] = await getDb().select().from(projects).where(eq(projects.id, id));
   return row ?? null;
@@ -70,14 +88,6 @@ export async function getProjectWithRole({ projectId, userId }: { projectId: str
       .prepare("project_with_role"),
   ).execute({ projectId, userId });
   return row ?? null;
-}
-
-export async function getMembershipRole({ projectId, userId }: { projectId: string; userId: string }): Promise<Role | null> {
-  const [row] = await getDb()
-    .select({ role: projectMembers.role })
-    .from(projectMembers)
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, userId)));
-  return row?.role ?? null;
 }
 
 export async function listMembers({ projectId }: { projectId: string }) {

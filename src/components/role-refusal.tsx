@@ -10,6 +10,7 @@ const ACTION_WORDS: Record<Action, string> = {
   manageMembers: "manage members and invitations",
   recordProgress: "record shifts in the field log",
   editProject: "edit the project's details and its location for the weather forecast",
+  archiveProject: "archive the project and restore it",
 };
 
 /**

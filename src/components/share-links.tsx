@@ -75,9 +75,11 @@ export interface ShareLinksProps {
   listHeading: string;
   /** Show what each link opens (the scenario's list holds its search links and closure feed too). */
   showOpens?: boolean;
+  /** False in an archived project: no new links, while those listed can still be revoked. */
+  canCreate?: boolean;
 }
 
-export function ShareLinks({ endpoint, shows, listHeading, showOpens = false }: ShareLinksProps) {
+export function ShareLinks({ endpoint, shows, listHeading, showOpens = false, canCreate = true }: ShareLinksProps) {
   const qc = useQueryClient();
   const key = ["share-links", endpoint];
   const links = useQuery({ queryKey: key, queryFn: () => api<{ links: LinkRow[] }>(endpoint).then((r) => r.links) });
@@ -120,57 +122,63 @@ export function ShareLinks({ endpoint, shows, listHeading, showOpens = false }: 
       <section className="card" aria-labelledby="new-link-heading">
         <h2 id="new-link-heading">New read-only link</h2>
         <p className="mt-1 text-sm text-muted">{shows} Revoke it and it stops working at once.</p>
-        <form
-          className="mt-4 space-y-4"
-          noValidate
-          onSubmit={handleSubmit((v) => {
-            setFormError(null);
-            create.mutate(v);
-          })}
-        >
-          <div>
-            <label htmlFor="share-label" className="field-label">
-              Label (who it is for)
-            </label>
-            <input id="share-label" className="field-input" maxLength={120} placeholder="e.g. County public information office" aria-invalid={!!labelError} {...register("label")} />
-            {labelError && <p className="field-error">Label {labelError}</p>}
-          </div>
-          <div>
-            <label htmlFor="share-days" className="field-label">
-              Expires after (days)
-            </label>
-            <input id="share-days" type="number" min={1} max={365} className="field-input w-32" aria-invalid={!!daysError} aria-describedby={daysError ? "share-days-error" : undefined} {...register("expiresInDays", { valueAsNumber: true })} />
-            {daysError && (
-              <p id="share-days-error" className="field-error">
-                Expiry {daysError}
+        {!canCreate ? (
+          <p className="mt-4 text-sm" data-testid="no-new-links">
+            The project is archived: no new links until an administrator restores it. The links listed here can still be revoked.
+          </p>
+        ) : (
+          <form
+            className="mt-4 space-y-4"
+            noValidate
+            onSubmit={handleSubmit((v) => {
+              setFormError(null);
+              create.mutate(v);
+            })}
+          >
+            <div>
+              <label htmlFor="share-label" className="field-label">
+                Label (who it is for)
+              </label>
+              <input id="share-label" className="field-input" maxLength={120} placeholder="e.g. County public information office" aria-invalid={!!labelError} {...register("label")} />
+              {labelError && <p className="field-error">Label {labelError}</p>}
+            </div>
+            <div>
+              <label htmlFor="share-days" className="field-label">
+                Expires after (days)
+              </label>
+              <input id="share-days" type="number" min={1} max={365} className="field-input w-32" aria-invalid={!!daysError} aria-describedby={daysError ? "share-days-error" : undefined} {...register("expiresInDays", { valueAsNumber: true })} />
+              {daysError && (
+                <p id="share-days-error" className="field-error">
+                  Expiry {daysError}
+                </p>
+              )}
+            </div>
+            <div>
+              <label htmlFor="share-email-to" className="field-label">
+                E-mail it to (optional)
+              </label>
+              <input
+                id="share-email-to"
+                className="field-input"
+                placeholder="e.g. pio@county.example, engineer@firm.example"
+                aria-invalid={!!emailProblem}
+                aria-describedby="share-email-to-note"
+                {...register("emailTo")}
+              />
+              <p id="share-email-to-note" className={emailProblem ? "field-error" : "mt-1 text-xs text-muted"}>
+                {emailProblem ?? "Up to 10 addresses, separated by commas. Each gets the link by e-mail."}
+              </p>
+            </div>
+            <button type="submit" className="btn-primary" disabled={create.isPending} data-testid="create-share-link">
+              {create.isPending ? "Creating…" : "Create link"}
+            </button>
+            {formError && (
+              <p role="alert" className="field-error">
+                {formError}
               </p>
             )}
-          </div>
-          <div>
-            <label htmlFor="share-email-to" className="field-label">
-              E-mail it to (optional)
-            </label>
-            <input
-              id="share-email-to"
-              className="field-input"
-              placeholder="e.g. pio@county.example, engineer@firm.example"
-              aria-invalid={!!emailProblem}
-              aria-describedby="share-email-to-note"
-              {...register("emailTo")}
-            />
-            <p id="share-email-to-note" className={emailProblem ? "field-error" : "mt-1 text-xs text-muted"}>
-              {emailProblem ?? "Up to 10 addresses, separated by commas. Each gets the link by e-mail."}
-            </p>
-          </div>
-          <button type="submit" className="btn-primary" disabled={create.isPending} data-testid="create-share-link">
-            {create.isPending ? "Creating…" : "Create link"}
-          </button>
-          {formError && (
-            <p role="alert" className="field-error">
-              {formError}
-            </p>
-          )}
-        </form>
+          </form>
+        )}
         {created && (
           <div className="mt-5 rounded-md border border-brand-100 bg-brand-50 p-3" role="status">
             <p className="text-sm font-medium">Link created — copy it now; it is not shown again.</p>

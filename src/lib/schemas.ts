@@ -80,6 +80,9 @@ export const projectDetailsSchema = z
   })
   .strict();
 
+/** Archive a project (true) or restore it (false): its administrators, on the project page. */
+export const projectArchiveSchema = z.object({ archived: z.boolean({ error: "must be true (archive) or false (restore)" }) }).strict();
+
 export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
 /** An invitation names a person and a role like adding a member does; the same contract. */
 export const invitationSchema = memberSchema;

@@ -132,6 +132,13 @@ export const API_ROWS: Record<string, ApiRow> = {
       return { params: proj(w), body };
     },
   },
+  // Sends "restore": allowed, it changes nothing on a project in use, so the other rows keep their project as it was
+  // (archiving itself is tested in tests/integration/project-archive.test.ts).
+  "PUT /api/projects/[projectId]/archive": {
+    need: { kind: "project", action: "archiveProject" },
+    ok: 200,
+    request: async (w) => ({ params: proj(w), body: { archived: false } }),
+  },
   "GET /api/projects/[projectId]/scenarios": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
   "POST /api/projects/[projectId]/scenarios": {
     need: { kind: "project", action: "editScenario" },

@@ -42,8 +42,8 @@ function initialValues(s: ScenarioRecord): ScenarioInput {
 }
 
 export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload: () => Promise<void> }) {
-  const { scenario, role, revisions } = data;
-  const canEdit = can(role, "editScenario");
+  const { scenario, role, archived, revisions } = data;
+  const canEdit = can(role, "editScenario", archived);
   const readOnly = !canEdit;
   const router = useRouter();
   const queryClient = useQueryClient();
@@ -140,7 +140,9 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
       <div className="space-y-5 pb-4">
         {readOnly && (
           <p className="rounded-md border border-line bg-white px-4 py-3 text-sm" role="note">
-            Read-only: as {ROLE_LABELS[role] ?? role} you can view this plan; engineers, schedulers and administrators edit it.
+            {archived
+              ? "Read-only: the project is archived, so its plans cannot be changed until an administrator restores it."
+              : `Read-only: as ${ROLE_LABELS[role] ?? role} you can view this plan; engineers, schedulers and administrators edit it.`}
           </p>
         )}
         <div className="grid gap-5 lg:grid-cols-[13rem_minmax(0,1fr)]">

@@ -24,5 +24,7 @@ export interface Revision {
 export interface ScenarioResponse {
   scenario: ScenarioRecord;
   role: ProjectRole;
+  /** The project is archived: the plan is read-only for everyone. */
+  archived: boolean;
   revisions: Revision[];
 }

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { listProjectsForUser } from "@db/queries/projects";
 import { pageUser } from "@/lib/server/page-access";
 import { RoleBadge } from "@/components/role-badge";
-import { formatStation } from "@/lib/format";
+import { formatDateTime, formatStation } from "@/lib/format";
 import type { ProjectRole } from "@/lib/permissions";
 
 export const metadata: Metadata = { title: "Projects" };
@@ -11,6 +11,8 @@ export const metadata: Metadata = { title: "Projects" };
 export default async function ProjectsPage() {
   const { user } = await pageUser();
   const projects = await listProjectsForUser({ userId: user.id });
+  const active = projects.filter((p) => p.archivedAt === null);
+  const archived = projects.filter((p) => p.archivedAt !== null);
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -22,42 +24,57 @@ export default async function ProjectsPage() {
           New project
         </Link>
       </div>
-      {projects.length === 0 ? (
+      {active.length === 0 ? (
         <div className="card text-center">
-          <h2>No projects yet</h2>
+          <h2>{archived.length ? "No projects in use" : "No projects yet"}</h2>
           <p className="mt-2 text-sm text-muted">Start one for your structure with New project, or ask an administrator of a project to add you as a member.</p>
         </div>
       ) : (
-        <ul className="grid gap-4 md:grid-cols-2">
-          {projects.map((p) => (
-            <li key={p.id}>
-              <Link href={`/projects/${p.id}`} className="card block h-full hover:border-brand-600">
-                <div className="flex items-start justify-between gap-3">
-                  <h2 className="text-base">{p.name}</h2>
-                  <RoleBadge role={p.role as ProjectRole} />
-                </div>
-                <p className="mt-1 text-sm text-muted">
-                  {[p.structureName, p.region].filter(Boolean).join(" · ")}
-                </p>
-                <dl className="mt-4 grid grid-cols-3 gap-2 text-sm">
-                  <div>
-                    <dt className="text-muted">Deck</dt>
-                    <dd className="font-medium">{p.deckLengthFt.toLocaleString("en-US")} ft</dd>
-                  </div>
-                  <div>
-                    <dt className="text-muted">From</dt>
-                    <dd className="font-medium">{formatStation(p.startStationFt)}</dd>
-                  </div>
-                  <div>
-                    <dt className="text-muted">Lanes</dt>
-                    <dd className="font-medium">{p.lanes.length}</dd>
-                  </div>
-                </dl>
-              </Link>
-            </li>
-          ))}
-        </ul>
+        <ProjectCards projects={active} />
+      )}
+      {archived.length > 0 && (
+        <details className="card" data-testid="archived-projects">
+          <summary className="cursor-pointer font-semibold">Archived projects ({archived.length})</summary>
+          <p className="mt-1 text-sm text-muted">Kept as records: they can be read, not changed. An administrator of one can restore it from its page.</p>
+          <div className="mt-4">
+            <ProjectCards projects={archived} />
+          </div>
+        </details>
       )}
     </div>
+  );
+}
+
+type ProjectRow = Awaited<ReturnType<typeof listProjectsForUser>>[number];
+
+function ProjectCards({ projects }: { projects: ProjectRow[] }) {
+  return (
+    <ul className="grid gap-4 md:grid-cols-2">
+      {projects.map((p) => (
+        <li key={p.id}>
+          <Link href={`/projects/${p.id}`} className="card block h-full hover:border-brand-600">
+            <div className="flex items-start justify-between gap-3">
+              <h2 className="text-base">{p.name}</h2>
+              <RoleBadge role={p.role as ProjectRole} />
+            </div>
+            <p className="mt-1 text-sm text-muted">{[p.structureName, p.region, p.archivedAt ? `archived ${formatDateTime(p.archivedAt)}` : ""].filter(Boolean).join(" · ")}</p>
+            <dl className="mt-4 grid grid-cols-3 gap-2 text-sm">
+              <div>
+                <dt className="text-muted">Deck</dt>
+                <dd className="font-medium">{p.deckLengthFt.toLocaleString("en-US")} ft</dd>
+              </div>
+              <div>
+                <dt className="text-muted">From</dt>
+                <dd className="font-medium">{formatStation(p.startStationFt)}</dd>
+              </div>
+              <div>
+                <dt className="text-muted">Lanes</dt>
+                <dd className="font-medium">{p.lanes.length}</dd>
+              </div>
+            </dl>
+          </Link>
+        </li>
+      ))}
+    </ul>
   );
 }

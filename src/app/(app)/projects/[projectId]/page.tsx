@@ -9,16 +9,20 @@ import { LocationForm } from "./location-form";
 import { orNotFound } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
 import { ProjectDetailsForm } from "@/components/project-details-form";
+import { ArchivedNotice } from "@/components/archived-notice";
+import { ArchiveButton } from "@/components/archive-button";
+import { archivedByName } from "@db/queries/projects";
 
 export const metadata: Metadata = { title: "Project" };
 
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
-  const { project, role } = access;
+  const { project, role, archived } = access;
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
+      {archived && <ArchivedNotice projectId={project.id} archivedAt={project.archivedAt!} byName={await archivedByName({ projectId: project.id })} canRestore={can(role, "archiveProject", archived)} />}
       <header className="flex flex-wrap items-start justify-between gap-4">
         <div>
           <div className="flex items-center gap-3">
@@ -41,11 +45,12 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
               Members
             </Link>
           )}
+          {!archived && can(role, "archiveProject") && <ArchiveButton projectId={project.id} archived={false} projectName={project.name} />}
         </div>
       </header>
-      <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario")} />
-      <LocationForm projectId={project.id} latitude={project.latitude} longitude={project.longitude} canEdit={can(role, "editProject")} />
-      {can(role, "editProject") && (
+      <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario", archived)} />
+      <LocationForm projectId={project.id} latitude={project.latitude} longitude={project.longitude} canEdit={can(role, "editProject", archived)} />
+      {can(role, "editProject", archived) && (
         <details className="card" data-testid="project-details">
           <summary className="cursor-pointer font-semibold">Edit project details</summary>
           <div className="mt-4">

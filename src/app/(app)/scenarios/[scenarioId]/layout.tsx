@@ -1,20 +1,20 @@
 import { requireScenario } from "@/lib/server/access";
-import { getProject } from "@db/queries/projects";
+import { archivedByName } from "@db/queries/projects";
 import { RoleBadge } from "@/components/role-badge";
 import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import { ScenarioTabs } from "./scenario-tabs";
 import { orNotFound } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
+import { ArchivedNotice } from "@/components/archived-notice";
 
 export default async function ScenarioLayout({ children, params }: { children: React.ReactNode; params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const access = await orNotFound(requireScenario(scenarioId, "read"));
-  const { scenario, role } = access;
-  const project = await getProject({ id: scenario.projectId });
+  const { scenario, role, project, archived } = access;
   return (
     <div className="space-y-5">
-      <Breadcrumb project={{ id: scenario.projectId, name: project?.name ?? "Project" }} here={scenario.name} />
+      <Breadcrumb project={{ id: scenario.projectId, name: project.name }} here={scenario.name} />
       <header className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <div className="flex flex-wrap items-center gap-3">
@@ -27,7 +27,9 @@ export default async function ScenarioLayout({ children, params }: { children: R
           </p>
         </div>
       </header>
-      <ScenarioTabs scenarioId={scenario.id} canShare={can(role, "shareScenario")} canEdit={can(role, "editScenario")} />
+      {archived && <ArchivedNotice projectId={project.id} archivedAt={project.archivedAt!} byName={await archivedByName({ projectId: project.id })} canRestore={can(role, "archiveProject", archived)} />}
+      {/* Share stays for those who may share: an archived project's links can still be revoked there. */}
+      <ScenarioTabs scenarioId={scenario.id} canShare={can(role, "shareScenario")} canEdit={can(role, "editScenario", archived)} />
       {children}
     </div>
   );

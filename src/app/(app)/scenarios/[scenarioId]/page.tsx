@@ -18,7 +18,7 @@ export const metadata: Metadata = { title: "Outlook" };
 
 export default async function OutlookPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
+  const { scenario, role, archived } = await orNotFound(requireScenario(scenarioId, "read"));
   const { forecast, unverified } = await getOutlookRuns({ scenarioId });
   // A newer browser run is shown at once, marked as not verified; a rejected one is never shown as the forecast.
   const pending = unverified?.verification === "pending" ? unverified : null;
@@ -29,7 +29,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
   const blockers = parsed.ok ? weatherFeasibility(parsed.scenario).map((p) => p.message) : [];
   return (
     <div className="space-y-5">
-      <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario")} blockers={blockers} />
+      <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario", archived)} blockers={blockers} />
       {unverified?.verification === "rejected" && (
         <p className="rounded-md border border-bad/30 bg-bad/10 px-4 py-2 text-sm" role="alert" data-testid="rejected-run">
           The run of {formatDateTime(unverified.createdAt)} ({unverified.iterations.toLocaleString("en-US")} iterations, seed “{unverified.seed}”) did not match the server’s
@@ -83,7 +83,10 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
           <div className="card text-center" data-testid="no-run">
             <h2>No forecast yet</h2>
             <p className="mt-2 text-sm text-muted">
-              {can(role, "runScenario") ? "Run the scenario above to see its finish-date confidence and time–distance chart." : "An engineer or scheduler has not run this scenario yet."}
+              {archived
+                ? "It was not run before the project was archived."
+                : can(role, "runScenario")
+                  ? "Run the scenario above to see its finish-date confidence and time–distance chart." : "An engineer or scheduler has not run this scenario yet."}
             </p>
           </div>
         }

@@ -24,7 +24,7 @@ export const GET = handler(async (_req: Request, ctx: Ctx) => {
 /** Cancels a queued or running job: its owner, or a project administrator. */
 export const DELETE = handler(async (_req: Request, ctx: Ctx) => {
   const job = await jobOf(ctx);
-  const { user, role } = await requireScenario(job.scenarioId, "runScenario");
+  const { user, role } = await requireScenario(job.scenarioId, "runScenario", "takeAway");
   if (job.createdById !== user.id && role !== "admin") throw new AppError("forbidden", "Only the person who started this job, or a project administrator, may cancel it.");
   const cancelled = await cancelJob(job);
   if (!cancelled) throw new AppError("conflict", `The job is already ${job.status}; there is nothing to cancel.`);

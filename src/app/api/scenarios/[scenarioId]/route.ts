@@ -9,8 +9,8 @@ type Ctx = { params: Promise<{ scenarioId: string }> };
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
-  const { scenario, role } = await requireScenario(scenarioId, "read");
-  return NextResponse.json({ scenario, role, revisions: await listRevisions({ scenarioId }) });
+  const { scenario, role, archived } = await requireScenario(scenarioId, "read");
+  return NextResponse.json({ scenario, role, archived, revisions: await listRevisions({ scenarioId }) });
 });
 
 /** Saves only over the version the editor loaded; otherwise 409 with the newer version so the user can choose. */

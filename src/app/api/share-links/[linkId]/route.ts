@@ -8,7 +8,7 @@ export const DELETE = handler(async (_req: Request, ctx: { params: Promise<{ lin
   const { linkId } = await ctx.params;
   const link = z.uuid().safeParse(linkId).success ? await getShareLink({ id: linkId }) : null;
   if (!link) throw new AppError("not_found", "No such share link.");
-  await requireScenario(link.scenarioId, "shareScenario");
+  await requireScenario(link.scenarioId, "shareScenario", "takeAway");
   await revokeShareLink({ id: linkId });
   return NextResponse.json({ ok: true });
 });

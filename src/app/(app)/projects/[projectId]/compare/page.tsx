@@ -17,7 +17,7 @@ export default async function ComparePage({
 }) {
   const { projectId } = await params;
   const sp = await searchParams;
-  const { project, role } = await orNotFound(requireProject(projectId, "read"));
+  const { project, role, archived } = await orNotFound(requireProject(projectId, "read"));
   const raw = Array.isArray(sp.ids) ? sp.ids.join(",") : (sp.ids ?? "");
   const initialIds = [...new Set(raw.split(",").map((s) => s.trim()).filter(Boolean))].slice(0, MAX_COMPARE);
   return (
@@ -29,7 +29,7 @@ export default async function ComparePage({
           {project.structureName} · the latest run of each scenario, side by side. Differences are from the first scenario chosen.
         </p>
       </header>
-      <CompareView projectId={project.id} canEdit={can(role, "editScenario")} initialIds={initialIds} />
+      <CompareView projectId={project.id} canEdit={can(role, "editScenario", archived)} initialIds={initialIds} />
     </div>
   );
 }

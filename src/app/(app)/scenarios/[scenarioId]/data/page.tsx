@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { redirect } from "next/navigation";
 import { requireScenario } from "@/lib/server/access";
 import { FieldDataPanel } from "./field-data-panel";
 import { orRefused } from "@/lib/server/page-access";
@@ -7,6 +8,8 @@ export const metadata: Metadata = { title: "Field data" };
 
 export default async function FieldDataPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario } = await orRefused(requireScenario(scenarioId, "editScenario"));
+  const { scenario, archived } = await orRefused(requireScenario(scenarioId, "editScenario", "look"));
+  // No uploads into an archived project: the scenario's page says why and how to restore it.
+  if (archived) redirect(`/scenarios/${scenario.id}`);
   return <FieldDataPanel scenarioId={scenario.id} />;
 }

@@ -42,7 +42,7 @@ function actualsOf(plan: Scenario, entries: EntryView[]): ActualSeries[] {
 
 export default async function FieldLogPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
+  const { scenario, role, archived } = await orNotFound(requireScenario(scenarioId, "read"));
   const parsed = parseScenario(scenario.definition);
   if (!parsed.ok) return <p className="card text-sm text-bad">The plan has problems, so progress cannot be checked against it. Fix the plan first.</p>;
   const plan = parsed.scenario;
@@ -54,8 +54,8 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   ]);
   const chartRun = latestRe ? { results: latestRe.results, version: latestRe.scenarioVersion, dataDate: latestRe.dataDate } : await getLatestRun({ scenarioId }).then((r) => r && { results: r.results, version: r.scenarioVersion, dataDate: null });
   const entries: EntryView[] = rows.map((r) => ({ ...r, enteredByName: r.enteredByName ?? "" }));
-  const canRecord = can(role, "recordProgress");
-  const canRun = can(role, "runScenario");
+  const canRecord = can(role, "recordProgress", archived);
+  const canRun = can(role, "runScenario", archived);
   const crewOps = plan.operations.filter((o) => o.kind === "crew");
   const recorded = lastRecorded(entries, (id) => plan.calendar.shifts.find((s) => s.id === id)?.startHour ?? 0);
   const facts: PlanFacts = {

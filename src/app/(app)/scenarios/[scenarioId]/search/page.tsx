@@ -13,12 +13,12 @@ export const metadata: Metadata = { title: "Plan search" };
 /** "Which plan should we choose?": saved searches of this scenario, and a form to start one. */
 export default async function SearchPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario, role } = await orNotFound(requireScenario(scenarioId, "read"));
+  const { scenario, role, archived } = await orNotFound(requireScenario(scenarioId, "read"));
   const searches = await listSearches({ scenarioId });
   const plan = validateDefinition(scenario.definition);
   return (
     <div className="space-y-5">
-      {can(role, "runScenario") ? <SearchForm scenarioId={scenario.id} plan={plan} /> : null}
+      {can(role, "runScenario", archived) ? <SearchForm scenarioId={scenario.id} plan={plan} /> : null}
       <section className="card">
         <h2>Saved searches</h2>
         {searches.length === 0 ? (

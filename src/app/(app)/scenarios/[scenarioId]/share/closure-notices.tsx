@@ -37,7 +37,7 @@ interface NoticePreview {
  * Who hears about closures, and the one action that tells them: publish this scenario's planned closures —
  * after a confirmation that shows the notice exactly as it will be sent, and to whom.
  */
-export function ClosureNotices({ projectId, scenarioId }: { projectId: string; scenarioId: string }) {
+export function ClosureNotices({ projectId, scenarioId, archived = false }: { projectId: string; scenarioId: string; archived?: boolean }) {
   const qc = useQueryClient();
   const subsKey = ["projects", projectId, "closure-subscribers"];
   const pubsKey = ["scenarios", scenarioId, "closure-publications"];
@@ -109,85 +109,97 @@ export function ClosureNotices({ projectId, scenarioId }: { projectId: string; s
               ))}
             </ul>
           )}
-          <form
-            className="mt-3 grid gap-2 sm:grid-cols-[1fr_1fr_auto] sm:items-end"
-            noValidate
-            onSubmit={form.handleSubmit((v) => {
-              setAddError(null);
-              add.mutate(v);
-            })}
-          >
-            <div>
-              <label htmlFor="subscriber-email" className="field-label">
-                E-mail
-              </label>
-              <input id="subscriber-email" type="email" className="field-input" aria-invalid={!!emailProblem} aria-describedby={emailProblem ? "subscriber-email-error" : undefined} {...form.register("email")} />
-            </div>
-            <div>
-              <label htmlFor="subscriber-label" className="field-label">
-                Who (optional)
-              </label>
-              <input id="subscriber-label" className="field-input" maxLength={120} aria-invalid={!!labelProblem} {...form.register("label")} />
-            </div>
-            <button type="submit" className="btn-secondary" disabled={add.isPending}>
-              Add
-            </button>
-          </form>
-          {emailProblem && (
-            <p id="subscriber-email-error" className="field-error">
-              E-mail {emailProblem}
-            </p>
-          )}
-          {labelProblem && <p className="field-error">Who {labelProblem}</p>}
-          {addError && (
-            <p role="alert" className="field-error">
-              {addError}
-            </p>
+          {archived ? (
+            <p className="mt-3 text-sm text-muted">The project is archived: nobody can be added until it is restored. Those listed can still be removed.</p>
+          ) : (
+            <>
+              <form
+                className="mt-3 grid gap-2 sm:grid-cols-[1fr_1fr_auto] sm:items-end"
+                noValidate
+                onSubmit={form.handleSubmit((v) => {
+                  setAddError(null);
+                  add.mutate(v);
+                })}
+              >
+                <div>
+                  <label htmlFor="subscriber-email" className="field-label">
+                    E-mail
+                  </label>
+                  <input id="subscriber-email" type="email" className="field-input" aria-invalid={!!emailProblem} aria-describedby={emailProblem ? "subscriber-email-error" : undefined} {...form.register("email")} />
+                </div>
+                <div>
+                  <label htmlFor="subscriber-label" className="field-label">
+                    Who (optional)
+                  </label>
+                  <input id="subscriber-label" className="field-input" maxLength={120} aria-invalid={!!labelProblem} {...form.register("label")} />
+                </div>
+                <button type="submit" className="btn-secondary" disabled={add.isPending}>
+                  Add
+                </button>
+              </form>
+              {emailProblem && (
+                <p id="subscriber-email-error" className="field-error">
+                  E-mail {emailProblem}
+                </p>
+              )}
+              {labelProblem && <p className="field-error">Who {labelProblem}</p>}
+              {addError && (
+                <p role="alert" className="field-error">
+                  {addError}
+                </p>
+              )}
+            </>
           )}
         </div>
         <div>
           <h3>Publish</h3>
-          <button type="button" className="btn-primary mt-2" disabled={publish.isPending} onClick={() => (publish.reset(), setConfirming(true))} data-testid="publish-closures">
-            {publishLabel(subs.data?.length ?? 0)}
-          </button>
-          {confirming && (
-            <ConfirmDialog
-              title="Publish the planned closures?"
-              confirmLabel={preview.data ? `Publish and send ${preview.data.to.length} notice${preview.data.to.length === 1 ? "" : "s"}` : "Publish"}
-              busyLabel="Publishing…"
-              busy={publish.isPending || preview.isFetching}
-              error={preview.isError ? preview.error.message : publish.isError ? publish.error.message : null}
-              onCancel={() => setConfirming(false)}
-              onConfirm={() => preview.data && publish.mutate(preview.data.runId)}
-              testId="publish-dialog"
-            >
-              {preview.isPending ? (
-                <p className="text-muted">Preparing the notice…</p>
-              ) : preview.data ? (
-                <>
-                  <p>
-                    {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} from the latest run go into a new public calendar feed and travel advisory.{" "}
-                    {preview.data.to.length === 0 ? "Nobody is on the list, so no e-mail is sent." : "This e-mail goes to people outside Pourline and cannot be called back:"}
-                  </p>
-                  {preview.data.to.length > 0 && (
-                    <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1">
-                      <dt className="font-medium">To</dt>
-                      <dd data-testid="publish-dialog-to">{preview.data.to.join(", ")}</dd>
-                      <dt className="font-medium">Subject</dt>
-                      <dd>{preview.data.subject}</dd>
-                    </dl>
-                  )}
-                  <pre
-                    tabIndex={0}
-                    aria-label="The notice as it will be sent"
-                    className="max-h-64 overflow-auto whitespace-pre-wrap rounded-md border border-line bg-paper p-3 font-sans text-xs"
-                    data-testid="publish-dialog-text"
-                  >
-                    {preview.data.text}
-                  </pre>
-                </>
-              ) : null}
-            </ConfirmDialog>
+          {archived ? (
+            <p className="mt-2 text-sm text-muted">The project is archived: its closures cannot be published until an administrator restores it.</p>
+          ) : (
+            <>
+              <button type="button" className="btn-primary mt-2" disabled={publish.isPending} onClick={() => (publish.reset(), setConfirming(true))} data-testid="publish-closures">
+                {publishLabel(subs.data?.length ?? 0)}
+              </button>
+              {confirming && (
+                <ConfirmDialog
+                  title="Publish the planned closures?"
+                  confirmLabel={preview.data ? `Publish and send ${preview.data.to.length} notice${preview.data.to.length === 1 ? "" : "s"}` : "Publish"}
+                  busyLabel="Publishing…"
+                  busy={publish.isPending || preview.isFetching}
+                  error={preview.isError ? preview.error.message : publish.isError ? publish.error.message : null}
+                  onCancel={() => setConfirming(false)}
+                  onConfirm={() => preview.data && publish.mutate(preview.data.runId)}
+                  testId="publish-dialog"
+                >
+                  {preview.isPending ? (
+                    <p className="text-muted">Preparing the notice…</p>
+                  ) : preview.data ? (
+                    <>
+                      <p>
+                        {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} from the latest run go into a new public calendar feed and travel advisory.{" "}
+                        {preview.data.to.length === 0 ? "Nobody is on the list, so no e-mail is sent." : "This e-mail goes to people outside Pourline and cannot be called back:"}
+                      </p>
+                      {preview.data.to.length > 0 && (
+                        <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1">
+                          <dt className="font-medium">To</dt>
+                          <dd data-testid="publish-dialog-to">{preview.data.to.join(", ")}</dd>
+                          <dt className="font-medium">Subject</dt>
+                          <dd>{preview.data.subject}</dd>
+                        </dl>
+                      )}
+                      <pre
+                        tabIndex={0}
+                        aria-label="The notice as it will be sent"
+                        className="max-h-64 overflow-auto whitespace-pre-wrap rounded-md border border-line bg-paper p-3 font-sans text-xs"
+                        data-testid="publish-dialog-text"
+                      >
+                        {preview.data.text}
+                      </pre>
+                    </>
+                  ) : null}
+                </ConfirmDialog>
+              )}
+            </>
           )}
           {publish.isSuccess && (
             <p role="status" className="mt-2 text-sm">

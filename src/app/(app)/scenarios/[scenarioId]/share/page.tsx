@@ -8,7 +8,7 @@ export const metadata: Metadata = { title: "Share" };
 
 export default async function SharePage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario } = await orRefused(requireScenario(scenarioId, "shareScenario"));
+  const { scenario, archived } = await orRefused(requireScenario(scenarioId, "shareScenario", "look"));
   return (
     <div className="space-y-5">
       <ShareLinks
@@ -16,8 +16,9 @@ export default async function SharePage({ params }: { params: Promise<{ scenario
         shows="Anyone with the link sees this scenario's inputs and latest results without signing in. They cannot change anything or see other scenarios."
         listHeading="Links to this scenario and its searches"
         showOpens
+        canCreate={!archived}
       />
-      <ClosureNotices projectId={scenario.projectId} scenarioId={scenarioId} />
+      <ClosureNotices projectId={scenario.projectId} scenarioId={scenarioId} archived={archived} />
     </div>
   );
 }

@@ -9,7 +9,7 @@ type Ctx = { params: Promise<{ projectId: string }> };
 // Subscribers' addresses are personal data: only the people who publish closures see and change the list.
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
-  await requireProject(projectId, "shareScenario");
+  await requireProject(projectId, "shareScenario", "look");
   return NextResponse.json({ subscribers: await listClosureSubscribers({ projectId }) });
 });
 

@@ -16,7 +16,7 @@ const INVITATION_DAYS = 7;
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
-  await requireProject(projectId, "manageMembers");
+  await requireProject(projectId, "manageMembers", "look");
   return NextResponse.json({ invitations: await listPendingInvitations({ projectId }) });
 });
 

@@ -11,7 +11,7 @@ type Ctx = { params: Promise<{ scenarioId: string }> };
 /** Earlier publications; with `?preview=1`, what publishing now would send (recipients, subject, text), for the confirmation. */
 export const GET = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
-  const { scenario } = await requireScenario(scenarioId, "shareScenario");
+  const { scenario } = await requireScenario(scenarioId, "shareScenario", "look");
   if (new URL(req.url).searchParams.get("preview") === "1") return NextResponse.json({ preview: await previewClosurePlan({ scenario }) });
   return NextResponse.json({ publications: await listClosurePublications({ scenarioId }) });
 });

@@ -13,7 +13,7 @@ type Ctx = { params: Promise<{ scenarioId: string }> };
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
-  await requireScenario(scenarioId, "shareScenario");
+  await requireScenario(scenarioId, "shareScenario", "look");
   return NextResponse.json({ links: await listShareLinks({ scenarioId }) });
 });
 

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { AppError, handler, readJson } from "@/lib/server/errors";
-import { requireScenario } from "@/lib/server/access";
+import { requireScenario, type Intent } from "@/lib/server/access";
 import { shareLinkSchema } from "@/lib/schemas";
 import { createShareLink, listSearchShareLinks } from "@db/queries/shares";
 import { getSearch } from "@db/queries/searches";
@@ -14,16 +14,16 @@ import { appBaseUrl } from "@/lib/server/mail/links";
 type Ctx = { params: Promise<{ searchId: string }> };
 
 /** The search and the caller's right to share it: those who may share its scenario may share its searches. */
-async function searchToShare(ctx: Ctx) {
+async function searchToShare(ctx: Ctx, intent: Intent) {
   const { searchId } = await ctx.params;
   const search = z.uuid().safeParse(searchId).success ? await getSearch({ id: searchId }) : null;
   if (!search) throw new AppError("not_found", "No such search.");
-  const { user, scenario } = await requireScenario(search.scenarioId, "shareScenario");
+  const { user, scenario } = await requireScenario(search.scenarioId, "shareScenario", intent);
   return { search, user, scenario };
 }
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
-  const { search } = await searchToShare(ctx);
+  const { search } = await searchToShare(ctx, "look");
   return NextResponse.json({ links: await listSearchShareLinks({ searchId: search.id }) });
 });
 
@@ -32,7 +32,7 @@ export const GET = handler(async (_req: Request, ctx: Ctx) => {
  * search's page and JSON, nothing else. With `emailTo`, the link is e-mailed in the same transaction.
  */
 export const POST = handler(async (req: Request, ctx: Ctx) => {
-  const { search, user, scenario } = await searchToShare(ctx);
+  const { search, user, scenario } = await searchToShare(ctx, "change");
   const body = await readJson(req, shareLinkSchema);
   const { token, tokenHash } = newShareToken();
   const expiresAt = new Date(Date.now() + body.expiresInDays * 86_400_000);

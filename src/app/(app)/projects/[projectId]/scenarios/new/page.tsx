@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { redirect } from "next/navigation";
 import { requireProject } from "@/lib/server/access";
 import { listProjectScenarios } from "@db/queries/scenarios";
 import { NewScenarioForm } from "./new-scenario-form";
@@ -9,7 +10,9 @@ export const metadata: Metadata = { title: "New scenario" };
 
 export default async function NewScenarioPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const { project } = await orRefused(requireProject(projectId, "editScenario"));
+  const { project, archived } = await orRefused(requireProject(projectId, "editScenario", "look"));
+  // No new scenario in an archived project: its page says why and how to restore it.
+  if (archived) redirect(`/projects/${project.id}`);
   const existing = await listProjectScenarios({ projectId });
   return (
     <div className="mx-auto max-w-2xl space-y-5">

@@ -9,7 +9,7 @@ type Ctx = { params: Promise<{ scenarioId: string }> };
 // Recipients' addresses are personal data: like closure subscribers, only the people who share see and change them.
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
-  await requireScenario(scenarioId, "shareScenario");
+  await requireScenario(scenarioId, "shareScenario", "look");
   return NextResponse.json({ notice: await getLookAheadNotice({ scenarioId }) });
 });
 
