@@ -14,8 +14,8 @@ export function ArchivedNotice({ projectId, archivedAt, byName, canRestore }: { 
         </h2>
         <p className="mt-1">
           Archived {formatDateTime(archivedAt)}
-          {byName ? ` by ${byName}` : ""}. Everything here can still be read, exported and shared links revoked; nothing can be changed, run or published,
-          and its daily e-mails have stopped, until an administrator restores it.
+          {byName ? ` by ${byName}` : ""}. You can still read and export everything in it and revoke its share links. Nothing can be changed, run or
+          published, and its daily e-mails have stopped, until an administrator restores it.
         </p>
       </div>
       {canRestore && <ArchiveButton projectId={projectId} archived />}

@@ -1,8 +1,8 @@
 /**
  * Archiving a project, in Debian's Chromium: its administrator archives it from the project page after a
- * confirmation that says what archiving does; every page of it then says it is archived, the plan opens read-only
- * with the reason, the Share page offers no new link, the project list keeps it under "Archived projects", and
- * Restore brings it back into use. No serious axe finding on the archived pages.
+ * confirmation that says what archiving does; its pages then say so (the project page, a scenario's tabs, members,
+ * compare), the plan opens read-only with the reason, the Share page offers no new link, the project list keeps it
+ * under "Archived projects", and Restore brings it back into use. No serious axe finding on the archived pages.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
@@ -38,7 +38,7 @@ describe("an archived project", () => {
     expect(await dialog.textContent()).toContain("Everything is kept");
     await dialog.getByRole("button", { name: "Archive the project" }).click();
     await page.getByTestId("archived-notice").waitFor();
-    expect(await page.getByTestId("archived-notice").textContent()).toMatch(/Archived .* by .*nothing can be changed, run or published/);
+    expect(await page.getByTestId("archived-notice").textContent()).toMatch(/Archived .* by .*Nothing can be changed, run or\s+published/);
     // Nothing to change on the project page: no New scenario, no details form, the location shown, not edited.
     expect(await page.getByRole("link", { name: "New scenario" }).count()).toBe(0);
     expect(await page.getByTestId("project-details").count()).toBe(0);
@@ -54,6 +54,11 @@ describe("an archived project", () => {
     expect(await page.getByTestId("create-share-link").count()).toBe(0);
     expect(await page.getByTestId("publish-closures").count()).toBe(0);
     expect(await seriousA11yViolations(page)).toEqual([]);
+
+    for (const where of ["members", "compare"]) {
+      await page.goto(`${APP_URL}/projects/${project.body.id}/${where}`);
+      await page.getByTestId("archived-notice").waitFor();
+    }
 
     await page.goto(`${APP_URL}/projects`);
     const archivedList = page.getByTestId("archived-projects");

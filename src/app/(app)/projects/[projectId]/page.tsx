@@ -9,9 +9,8 @@ import { LocationForm } from "./location-form";
 import { orNotFound } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
 import { ProjectDetailsForm } from "@/components/project-details-form";
-import { ArchivedNotice } from "@/components/archived-notice";
 import { ArchiveButton } from "@/components/archive-button";
-import { archivedByName } from "@db/queries/projects";
+import { ArchivedBanner } from "../../archived-banner";
 
 export const metadata: Metadata = { title: "Project" };
 
@@ -22,7 +21,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
-      {archived && <ArchivedNotice projectId={project.id} archivedAt={project.archivedAt!} byName={await archivedByName({ projectId: project.id })} canRestore={can(role, "archiveProject", archived)} />}
+      <ArchivedBanner project={project} role={role} />
       <header className="flex flex-wrap items-start justify-between gap-4">
         <div>
           <div className="flex items-center gap-3">

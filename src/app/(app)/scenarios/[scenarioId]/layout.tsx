@@ -1,12 +1,11 @@
 import { requireScenario } from "@/lib/server/access";
-import { archivedByName } from "@db/queries/projects";
 import { RoleBadge } from "@/components/role-badge";
 import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import { ScenarioTabs } from "./scenario-tabs";
 import { orNotFound } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
-import { ArchivedNotice } from "@/components/archived-notice";
+import { ArchivedBanner } from "../../archived-banner";
 
 export default async function ScenarioLayout({ children, params }: { children: React.ReactNode; params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
@@ -27,7 +26,7 @@ export default async function ScenarioLayout({ children, params }: { children: R
           </p>
         </div>
       </header>
-      {archived && <ArchivedNotice projectId={project.id} archivedAt={project.archivedAt!} byName={await archivedByName({ projectId: project.id })} canRestore={can(role, "archiveProject", archived)} />}
+      <ArchivedBanner project={project} role={role} />
       {/* Share stays for those who may share: an archived project's links can still be revoked there. */}
       <ScenarioTabs scenarioId={scenario.id} canShare={can(role, "shareScenario")} canEdit={can(role, "editScenario", archived)} />
       {children}

@@ -5,6 +5,7 @@ import { MAX_COMPARE } from "@/components/results/compare-logic";
 import { CompareView } from "./compare-view";
 import { orNotFound } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
+import { ArchivedBanner } from "../../../archived-banner";
 
 export const metadata: Metadata = { title: "Compare scenarios" };
 
@@ -23,6 +24,7 @@ export default async function ComparePage({
   return (
     <div className="space-y-6">
       <Breadcrumb project={{ id: project.id, name: project.name }} here={"Compare"} />
+      <ArchivedBanner project={project} role={role} />
       <header>
         <h1>Compare scenarios</h1>
         <p className="mt-1 text-sm text-muted">
