@@ -34,17 +34,6 @@ export interface EngineApi {
 }
 
 const PROGRESS_EVERY_MS = 150;
-/**
- * `prepare` also runs the engine on a few throwaway iterations, in steps, for at most WARM_UP_MS: the first
- * iterations of a fresh worker run before the JavaScript engine has optimised the hot loops, and on the main demo
- * they cost about three times as much as later ones (5,000 iterations: 0.98–1.19 s cold, 0.85–0.88 s after 200
- * throwaway ones, measured in Node 20 on the development machine, December 2026). Done while the person reads
- * the page, so the click does not pay for it. Results do not change: each iteration resets the compiled
- * scenario's scratch (tests/unit/run-path.test.ts compares a prepared worker with a fresh one).
- */
-const WARM_UP_ITERATIONS = 200;
-const WARM_UP_STEP = 20;
-const WARM_UP_MS = 400;
 
 function compiledFrom(input: unknown): CompiledScenario {
   const parsed = parseScenario(input);
@@ -55,23 +44,17 @@ function compiledFrom(input: unknown): CompiledScenario {
 export function createEngineApi(now: () => number = () => Date.now()): EngineApi {
   // One cached compile per worker: a page runs one scenario at a time.
   let cached: { key: string; compiled: CompiledScenario } | null = null;
-  const compiled = (input: unknown): { compiled: CompiledScenario; compileMs: number; fresh: boolean } => {
+  const compiled = (input: unknown): { compiled: CompiledScenario; compileMs: number } => {
     const key = JSON.stringify(input);
-    if (cached?.key === key) return { compiled: cached.compiled, compileMs: 0, fresh: false };
+    if (cached?.key === key) return { compiled: cached.compiled, compileMs: 0 };
     const t0 = now();
     const c = compiledFrom(input);
     cached = { key, compiled: c };
-    return { compiled: c, compileMs: now() - t0, fresh: true };
+    return { compiled: c, compileMs: now() - t0 };
   };
   return {
     async prepare(input) {
-      const { compiled: c, compileMs, fresh } = compiled(input);
-      // Each new definition: another plan may take paths through the engine the last one did not.
-      if (fresh) {
-        const t0 = now();
-        for (let k = 0; k < WARM_UP_ITERATIONS && now() - t0 < WARM_UP_MS; k += WARM_UP_STEP) runIterations(c, "warm-up", k, k + WARM_UP_STEP);
-      }
-      return compileMs;
+      return compiled(input).compileMs;
     },
     async runRange(input, seed, from, to, onProgress) {
       const { compiled: c, compileMs } = compiled(input);
