@@ -1,7 +1,7 @@
 import "server-only";
-import { eq, sql } from "drizzle-orm";
+import { and, count, eq, gt, sql } from "drizzle-orm";
 import { getDb } from "../client";
-import { signInAttempts, users } from "../schema";
+import { sessions, signInAttempts, users } from "../schema";
 
 export async function getUserByEmail({ email }: { email: string }) {
   const [row] = await getDb().select().from(users).where(eq(users.email, email.trim().toLowerCase()));
@@ -17,6 +17,37 @@ export async function createUser(u: { id: string; email: string; name: string; t
   await getDb()
     .insert(users)
     .values({ ...u, email: u.email.trim().toLowerCase(), title: u.title ?? "" });
+}
+
+/** The person's own name and title. */
+export async function updateUserDetails({ id, name, title }: { id: string; name: string; title: string }) {
+  await getDb().update(users).set({ name, title }).where(eq(users.id, id));
+}
+
+/**
+ * A new password and the end of every session of the account, in one transaction: a session someone else holds
+ * must not outlive the change, and a password changed without ending them would leave it standing.
+ */
+export async function changePasswordEndingSessions({ id, passwordHash }: { id: string; passwordHash: string }) {
+  await getDb().transaction(async (tx) => {
+    await tx.update(users).set({ passwordHash }).where(eq(users.id, id));
+    await tx.delete(sessions).where(eq(sessions.userId, id));
+  });
+}
+
+/** Ends every session of the account (the caller starts a new one for the browser that asked). */
+export async function endAllSessions({ id }: { id: string }): Promise<number> {
+  const ended = await getDb().delete(sessions).where(eq(sessions.userId, id)).returning({ id: sessions.id });
+  return ended.length;
+}
+
+/** Sessions of the account that have not expired (idle, or signed in before `signedInAfter`), this one included. */
+export async function countLiveSessions({ id, signedInAfter }: { id: string; signedInAfter: Date }): Promise<number> {
+  const [row] = await getDb()
+    .select({ n: count() })
+    .from(sessions)
+    .where(and(eq(sessions.userId, id), gt(sessions.expiresAt, new Date()), gt(sessions.createdAt, signedInAfter)));
+  return row?.n ?? 0;
 }
 
 /**

@@ -14,6 +14,32 @@ export const signInSchema = z.object({
   password: z.string().min(1, "must not be empty").max(200),
 });
 
+/** Every new password: a reset, an invitation's new account, a change on the account page. */
+export const MIN_PASSWORD_LENGTH = 10;
+export const newPasswordField = z
+  .string({ error: "must be text" })
+  .min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`)
+  .max(200, "must be at most 200 characters");
+
+/** The signed-in person's own name and title (what others see beside their changes and in the header). */
+export const accountDetailsSchema = z
+  .object({
+    name: line(120).min(1, "must not be empty"),
+    title: line(120).default(""),
+  })
+  .strict();
+
+/** Changing one's password: the current one proves it is the account's owner at the keyboard. */
+export const passwordChangeSchema = z
+  .object({
+    currentPassword: z.string({ error: "must be text" }).min(1, "must not be empty").max(200, "must be at most 200 characters"),
+    newPassword: newPasswordField,
+    confirm: z.string({ error: "must be text" }).max(200, "must be at most 200 characters"),
+  })
+  .strict()
+  .refine((v) => v.newPassword === v.confirm, { path: ["confirm"], message: "must match the new password" })
+  .refine((v) => v.newPassword !== v.currentPassword, { path: ["newPassword"], message: "must differ from the current password" });
+
 export const scenarioWriteSchema = z.object({
   name: line(LIMITS.name).min(1, "must not be empty"),
   description: plainText(LIMITS.description, { multiline: true }).default(""),

@@ -55,7 +55,7 @@ describe("on a phone", () => {
       await scenario.openPlanSection(section);
       widths[`plan: ${section}`] = await pageWidth(page);
     }
-    for (const path of ["/projects", `/projects/${projectId}`, `/projects/${projectId}/compare`, `/projects/${projectId}/members`]) {
+    for (const path of ["/projects", "/projects/new", "/account", `/projects/${projectId}`, `/projects/${projectId}/compare`, `/projects/${projectId}/members`]) {
       await page.goto(`${APP_URL}${path}`);
       widths[path] = await pageWidth(page);
     }

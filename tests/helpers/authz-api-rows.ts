@@ -5,7 +5,7 @@
  * typed in by hand. `request` builds the call for one caller; rows that destroy something make a fresh victim.
  */
 import { can, type Action } from "@/lib/permissions";
-import { call, demoEmail, DEMO_PASSWORD, type DemoRole } from "./app";
+import { call, demoEmail, DEMO_PASSWORD, signIn, type DemoRole } from "./app";
 import { isoDaysFromToday } from "./progress-fixture";
 import {
   isRole,
@@ -83,6 +83,12 @@ async function freshSession(w: World, c: Caller): Promise<string | undefined> {
   return res.headers.get("set-cookie")!.split(";")[0];
 }
 
+/** For a signed-in caller, the session of a new account of its own (the account routes change or end what they act on). */
+async function throwawaySession(w: World, c: Caller): Promise<string | undefined> {
+  if (!signedIn(c)) return undefined;
+  return signIn((await newAccount(w.db, "own account")).email);
+}
+
 async function listed(path: string, cookie: string, key: string, id: string): Promise<boolean> {
   const body = must(await call(path, { cookie }), 200, `list ${path}`);
   return (body[key] as { id?: string; userId?: string }[]).some((x) => (x.id ?? x.userId) === id);
@@ -112,6 +118,19 @@ export const API_ROWS: Record<string, ApiRow> = {
     ok: 404,
     request: async (w, c) => ({ params: {}, body: { token: tokenOf(w, c) ?? unknownToken(), password: "a-brand-new-password" } }),
   },
+
+  // ---- one's own account: each signed-in caller acts on a throwaway account of its own, so no shared session ends ----
+  "PUT /api/account": {
+    need: { kind: "session" },
+    ok: 200,
+    request: async (w, c) => ({ params: {}, cookie: await throwawaySession(w, c), body: { name: "Renamed in the matrix", title: "Tester" } }),
+  },
+  "PUT /api/account/password": {
+    need: { kind: "session" },
+    ok: 200,
+    request: async (w, c) => ({ params: {}, cookie: await throwawaySession(w, c), body: { currentPassword: DEMO_PASSWORD, newPassword: "a-brand-new-password", confirm: "a-brand-new-password" } }),
+  },
+  "DELETE /api/account/sessions": { need: { kind: "session" }, ok: 200, request: async (w, c) => ({ params: {}, cookie: await throwawaySession(w, c) }) },
 
   // ---- projects ----
   "GET /api/projects": { need: { kind: "session" }, ok: 200, request: async () => ({ params: {} }) },

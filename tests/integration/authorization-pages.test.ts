@@ -17,6 +17,7 @@ type PageNeed = { kind: "session" } | { kind: "project" | "scenario"; action: Ac
 const PAGE_ROWS: Record<string, PageNeed> = {
   "/projects": { kind: "session" },
   "/projects/new": { kind: "session" },
+  "/account": { kind: "session" },
   "/projects/[projectId]": { kind: "project", action: "read" },
   "/projects/[projectId]/compare": { kind: "project", action: "read" },
   "/projects/[projectId]/members": { kind: "project", action: "manageMembers" },

@@ -28,10 +28,13 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             </nav>
           </div>
           <div className="flex items-center gap-4 text-sm">
-            <div className="text-right leading-tight">
-              <p className="font-medium" data-testid="signed-in-name">{s.user.name}</p>
-              <p className="text-muted">{s.user.title || s.user.email}</p>
-            </div>
+            <Link href="/account" className="text-right leading-tight hover:underline">
+              <span className="sr-only">Your account: </span>
+              <span className="block font-medium" data-testid="signed-in-name">
+                {s.user.name}
+              </span>
+              <span className="block text-muted">{s.user.title || s.user.email}</span>
+            </Link>
             <form action={signOutAction}>
               <button type="submit" className="btn-secondary">
                 Sign out

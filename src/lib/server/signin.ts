@@ -40,3 +40,20 @@ export async function attemptSignIn({ email, password, address }: { email: strin
 function locked(): SignInResult {
   return { ok: false, status: 429, message: SIGN_IN_LOCKED };
 }
+
+export const OWN_PASSWORD_WRONG = "is not your current password";
+export const OWN_PASSWORD_LOCKED = "Too many wrong passwords. Wait 15 minutes and try again.";
+
+/**
+ * The signed-in person's current password, checked before it is changed. It counts against the same per-account
+ * limit as signing in (MAX_ACCOUNT_FAILURES in the window), so a session left open on a shared computer cannot be
+ * used to guess the password either; a right one gives its slot back.
+ */
+export async function checkOwnPassword({ email, password }: { email: string; password: string }): Promise<"ok" | "wrong" | "locked"> {
+  const accountKey = `account:${email.trim().toLowerCase()}`;
+  if ((await reserveAttempt({ key: accountKey, windowMs: WINDOW_MS, max: MAX_ACCOUNT_FAILURES })) === null) return "locked";
+  const user = await getUserByEmail({ email });
+  if (!(await verifyPassword(user?.passwordHash ?? null, password))) return "wrong";
+  await releaseAttempt({ key: accountKey });
+  return "ok";
+}

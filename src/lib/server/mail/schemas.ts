@@ -2,13 +2,12 @@ import "server-only";
 /** Request schemas of the e-mail flows (invitations, password reset). */
 import { z } from "zod";
 
-export const MIN_PASSWORD_LENGTH = 10;
+import { newPasswordField as newPassword } from "@/lib/schemas";
 
-export { invitationSchema } from "@/lib/schemas";
+export { invitationSchema, MIN_PASSWORD_LENGTH } from "@/lib/schemas";
 
 export const passwordResetRequestSchema = z.object({ email: z.email("must be an e-mail address").max(200) });
 
-const newPassword = z.string().min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`).max(200);
 
 export const passwordResetConfirmSchema = z.object({ token: z.string().min(1).max(200), password: newPassword });
 
