@@ -25,7 +25,7 @@ afterAll(async () => {
 
 describe("your account", () => {
   it("changes the name, the title and the password, and signs out the other browser", async () => {
-    const me = await newAccount(db, "e2e account");
+    const me = await newAccount(db, "e2e-account");
     const otherBrowser = await signIn(me.email);
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
@@ -55,6 +55,7 @@ describe("your account", () => {
     await page.getByLabel("Current password").fill(DEMO_PASSWORD);
     await page.getByRole("button", { name: "Change password" }).click();
     await page.getByText("Password changed. Other sessions are signed out.").waitFor();
+    await expect.poll(() => page.getByTestId("other-sessions").textContent()).toContain("Only here");
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "account");
 

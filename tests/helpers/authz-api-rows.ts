@@ -86,7 +86,7 @@ async function freshSession(w: World, c: Caller): Promise<string | undefined> {
 /** For a signed-in caller, the session of a new account of its own (the account routes change or end what they act on). */
 async function throwawaySession(w: World, c: Caller): Promise<string | undefined> {
   if (!signedIn(c)) return undefined;
-  return signIn((await newAccount(w.db, "own account")).email);
+  return signIn((await newAccount(w.db, "own-account")).email);
 }
 
 async function listed(path: string, cookie: string, key: string, id: string): Promise<boolean> {

@@ -44,7 +44,7 @@ export function AccountDetailsForm({ name, title }: { name: string; title: strin
   return (
     <section className="card" aria-labelledby="details-heading">
       <h2 id="details-heading">Name and title</h2>
-      <p className="mt-1 text-sm text-muted">Shown beside your changes, in the field log and on published notices.</p>
+      <p className="mt-1 text-sm text-muted">Shown to the people on your projects beside what you change, run, publish and record in the field log.</p>
       <form
         className="mt-4 space-y-4"
         noValidate
@@ -79,6 +79,7 @@ type PasswordOut = z.output<typeof passwordChangeSchema>;
 const PASSWORD_FIELDS = ["currentPassword", "newPassword", "confirm"] as const;
 
 export function PasswordChangeForm() {
+  const router = useRouter();
   const { register, handleSubmit, formState, setError, reset } = useForm<PasswordIn, unknown, PasswordOut>({
     resolver: zodResolver(passwordChangeSchema),
     defaultValues: { currentPassword: "", newPassword: "", confirm: "" },
@@ -86,7 +87,10 @@ export function PasswordChangeForm() {
   const [failure, setFailure] = useState<string | null>(null);
   const change = useMutation({
     mutationFn: (v: PasswordOut) => api("/api/account/password", { method: "PUT", body: v }),
-    onSuccess: () => reset(),
+    onSuccess: () => {
+      reset();
+      router.refresh(); // "Signed in elsewhere" below counts again: the other sessions have ended
+    },
     onError: (e) => setFailure(applyServerErrors(e, setError, (p) => ((PASSWORD_FIELDS as readonly string[]).includes(p) ? (p as (typeof PASSWORD_FIELDS)[number]) : null))),
   });
   const problem = (f: (typeof PASSWORD_FIELDS)[number]) => formState.errors[f]?.message;
