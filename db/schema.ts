@@ -83,6 +83,11 @@ export const projects = pgTable("projects", {
    */
   archivedAt: ts("archived_at"),
   archivedById: text("archived_by_id").references(() => users.id, { onDelete: "set null" }),
+  /**
+   * The plan of record: the scenario the project is run by and its owner is told about (chosen by an
+   * administrator or engineer; null = none yet). Its latest forecast is the project's headline on the project list.
+   */
+  planScenarioId: uuid("plan_scenario_id").references((): AnyPgColumn => scenarios.id, { onDelete: "set null" }),
 });
 export type Project = InferSelectModel<typeof projects>;
 

@@ -11,7 +11,7 @@
 import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { createHash, randomUUID } from "node:crypto";
-import { sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { createPool, databaseUrl } from "../db/client";
 import { storedResultsOf } from "../db/stored-results";
 import { closureSubscribers, progressEntries, progressHistory, projectMembers, projects, scenarioRevisions, scenarios, simulationRuns, users, type Role } from "../db/schema";
@@ -154,6 +154,8 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
         // The plan run is the baseline, made the week before work began.
         const row = await insertScenario(kestrel.id, raw, scenario, runs[k], noonOf(parseIsoDate(scenario.startDate) - 7));
         if (k !== 0) continue;
+        // The two-season plan is the one the job is run by: the plan of record the project list shows.
+        await tx.update(projects).set({ planScenarioId: row.id }).where(eq(projects.id, kestrel.id));
         // The main demo is under way: the inspector's field log up to yesterday, and the engineer's
         // re-forecasts the day after each data date (the drift history).
         const inspectorId = ids[demoUsers.findIndex((u) => u.role === "inspector")];
@@ -166,8 +168,9 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, ...storedResultsOf(columns.results), createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server" });
         }
       }
-      // Next season's plan was run today.
-      await insertScenario(southApproach.id, staged.raw, staged.scenario, stagedRun, noonOf(parseIsoDate(today)));
+      // Next season's plan was run today, and is that project's plan of record.
+      const next = await insertScenario(southApproach.id, staged.raw, staged.scenario, stagedRun, noonOf(parseIsoDate(today)));
+      await tx.update(projects).set({ planScenarioId: next.id }).where(eq(projects.id, southApproach.id));
     });
     return "seeded";
   } finally {

@@ -122,6 +122,7 @@ const LABELS: Record<string, string | [string, string]> = {
   confirm: "New password again",
   title: "Title",
   archived: "Archived",
+  planScenarioId: "Plan of record",
   workDate: "Work date",
   operationId: "Operation",
   crew: "Crew",

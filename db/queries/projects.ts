@@ -1,10 +1,45 @@
 import "server-only";
-import { and, asc, eq, sql } from "drizzle-orm";
+import { and, asc, desc, eq, sql } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
 import { getDb, prepared } from "../client";
-import { projectMembers, projects, users, type Role } from "../schema";
+import { projectMembers, projects, scenarios, simulationRuns, users, type Role } from "../schema";
+import { isForecast } from "./runs";
 
+/**
+ * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
+ * newest forecast — a plan run or a re-forecast from the field log, whichever came last — with whether the plan
+ * changed after it. Join with `joinPlanOfRecord`.
+ */
+function planOfRecordParts(db: ReturnType<typeof getDb>) {
+  const plan = alias(scenarios, "plan");
+  const planRun = db
+    .select({
+      summary: sql<Record<string, unknown>>`${simulationRuns.summary}`.as("plan_run_summary"),
+      at: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("plan_run_at"),
+      dataDate: sql<string | null>`${simulationRuns.dataDate}`.as("plan_run_data_date"),
+      version: sql<number>`${simulationRuns.scenarioVersion}`.as("plan_run_version"),
+    })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
+    .orderBy(desc(simulationRuns.createdAt))
+    .limit(1)
+    .as("plan_run");
+  const columns = {
+    planScenarioId: projects.planScenarioId,
+    planName: plan.name,
+    planRunSummary: planRun.summary,
+    planRunAt: planRun.at,
+    planRunDataDate: planRun.dataDate,
+    planRunStale: sql<boolean | null>`(${planRun.version} <> ${plan.version})`,
+  };
+  return { plan, planRun, columns };
+}
+
+/** The projects a person belongs to, with their role and the headline of each one's plan of record. */
 export async function listProjectsForUser({ userId }: { userId: string }) {
-  return getDb()
+  const db = getDb();
+  const { plan, planRun, columns } = planOfRecordParts(db);
+  return db
     .select({
       id: projects.id,
       name: projects.name,
@@ -15,12 +50,24 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
       lanes: projects.lanes,
       archivedAt: projects.archivedAt,
       role: projectMembers.role,
+      ...columns,
     })
     .from(projectMembers)
     .innerJoin(projects, eq(projects.id, projectMembers.projectId))
+    .leftJoin(plan, eq(plan.id, projects.planScenarioId))
+    .leftJoinLateral(planRun, sql`true`)
     .where(eq(projectMembers.userId, userId))
     .orderBy(asc(projects.name));
 }
+
+/** One project's plan-of-record headline (see planOfRecordParts); null when there is no such project. */
+export async function getPlanOfRecord({ projectId }: { projectId: string }) {
+  const db = getDb();
+  const { plan, planRun, columns } = planOfRecordParts(db);
+  const [row] = await db.select(columns).from(projects).leftJoin(plan, eq(plan.id, projects.planScenarioId)).leftJoinLateral(planRun, sql`true`).where(eq(projects.id, projectId));
+  return row ?? null;
+}
+export type PlanOfRecordRow = NonNullable<Awaited<ReturnType<typeof getPlanOfRecord>>>;
 
 /** A project's own fields as stored (the request contract's output, src/lib/schemas.ts `projectDetailsSchema`). */
 export interface ProjectFields {
@@ -52,6 +99,18 @@ export async function createProject({ userId, project }: { userId: string; proje
 export async function updateProject({ projectId, project }: { projectId: string; project: ProjectFields }): Promise<{ id: string } | null> {
   const [row] = await getDb().update(projects).set(project).where(eq(projects.id, projectId)).returning({ id: projects.id });
   return row ?? null;
+}
+
+/**
+ * Makes `scenarioId` the project's plan of record (null: none). Only a scenario of this project can be chosen;
+ * "no_scenario" when it is not one (nothing changes), "no_project" when the project is gone.
+ */
+export async function setPlanOfRecord({ projectId, scenarioId }: { projectId: string; scenarioId: string | null }): Promise<"ok" | "no_scenario" | "no_project"> {
+  const db = getDb();
+  const own = scenarioId === null ? sql`true` : sql`exists (select 1 from ${scenarios} where ${scenarios.id} = ${scenarioId} and ${scenarios.projectId} = ${projectId})`;
+  const [row] = await db.update(projects).set({ planScenarioId: scenarioId }).where(and(eq(projects.id, projectId), own)).returning({ id: projects.id });
+  if (row) return "ok";
+  return (await getProject({ id: projectId })) ? "no_scenario" : "no_project";
 }
 
 /**

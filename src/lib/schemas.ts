@@ -109,6 +109,9 @@ export const projectDetailsSchema = z
 /** Archive a project (true) or restore it (false): its administrators, on the project page. */
 export const projectArchiveSchema = z.object({ archived: z.boolean({ error: "must be true (archive) or false (restore)" }) }).strict();
 
+/** The project's plan of record: one of its scenarios, or null for none. */
+export const planOfRecordSchema = z.object({ planScenarioId: z.uuid("must name one of the project's scenarios").nullable() }).strict();
+
 export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
 /** An invitation names a person and a role like adding a member does; the same contract. */
 export const invitationSchema = memberSchema;

@@ -158,6 +158,15 @@ export const API_ROWS: Record<string, ApiRow> = {
     ok: 200,
     request: async (w) => ({ params: proj(w), body: { archived: false } }),
   },
+  // Sends the plan of record the project has: allowed, it changes nothing the other rows read.
+  "PUT /api/projects/[projectId]/plan-of-record": {
+    need: { kind: "project", action: "editProject" },
+    ok: 200,
+    request: async (w) => {
+      const [row] = await w.db`SELECT plan_scenario_id FROM projects WHERE id = ${w.projectId}`;
+      return { params: proj(w), body: { planScenarioId: row.plan_scenario_id } };
+    },
+  },
   "GET /api/projects/[projectId]/scenarios": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
   "POST /api/projects/[projectId]/scenarios": {
     need: { kind: "project", action: "editScenario" },

@@ -92,3 +92,49 @@ describe("a new project", () => {
     expect((await call(path, { cookie: inspector })).body.project.name).toBe(edited.name);
   });
 });
+
+describe("the plan of record", () => {
+  it("is one of the project's own scenarios, is listed with its forecast, can be cleared, and goes with its scenario", async () => {
+    const made = await call("/api/projects", { method: "POST", cookie: inspector, body: { name: `Plover Inlet Bridge ${Date.now()}`, structureName: "Plover Inlet Bridge", deckLengthFt: 800, startStationFt: 0, lanes: "L1, L2" } });
+    expect(made.status).toBe(201);
+    const projectId = made.body.id as string;
+    const scenario = async (name: string) => {
+      const definition = templateScenario(name, { deckLengthFt: 800, startStationFt: 0, lanes: ["L1", "L2"] }, "2027-04-05");
+      const r = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie: inspector, body: { name, definition } });
+      expect(r.status).toBe(201);
+      return r.body.id as string;
+    };
+    const [first, second] = [await scenario("One season"), await scenario("Two seasons")];
+    const listed = async () => (await call("/api/projects", { cookie: inspector })).body.projects.find((p: { id: string }) => p.id === projectId);
+    expect(await listed()).toMatchObject({ planScenarioId: null, planName: null, planRunSummary: null });
+
+    const put = (planScenarioId: unknown) => call(`/api/projects/${projectId}/plan-of-record`, { method: "PUT", cookie: inspector, body: { planScenarioId } });
+    expect((await put(second)).status).toBe(200);
+    expect(await listed()).toMatchObject({ planScenarioId: second, planName: "Two seasons", planRunSummary: null, planRunAt: null });
+
+    // Another project's scenario (the demo's, which the inspector can read) answers as one that does not exist.
+    const [kestrel] = await appDb`SELECT s.id FROM scenarios s JOIN projects p ON p.id = s.project_id WHERE p.name LIKE '%Kestrel Bay Causeway — deck overlay' LIMIT 1`;
+    const foreign = await put(kestrel.id);
+    expect(foreign.status).toBe(404);
+    const bad = await put("not-an-id");
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields).toEqual([{ path: "planScenarioId", label: "Plan of record", message: "must name one of the project's scenarios" }]);
+    expect((await listed()).planScenarioId).toBe(second);
+
+    expect((await put(null)).status).toBe(200);
+    expect((await listed()).planScenarioId).toBeNull();
+    expect((await put(first)).status).toBe(200);
+    expect((await call(`/api/scenarios/${first}`, { method: "DELETE", cookie: inspector })).status).toBe(200);
+    expect(await listed()).toMatchObject({ planScenarioId: null, planName: null });
+  });
+
+  it("the demo's plan of record carries its newest forecast", async () => {
+    const kestrel = (await call("/api/projects", { cookie: admin })).body.projects.find((p: { name: string }) => p.name.includes("Kestrel Bay Causeway — deck overlay"));
+    expect(kestrel.planName).toMatch(/two seasons/i);
+    expect(kestrel.planRunSummary.finish.p80).toMatch(/^\d{4}-\d{2}-\d{2}/);
+    // Its newest forecast, whichever kind (in the seed, the last re-forecast; other tests may have run it since).
+    const [newest] = await appDb`SELECT data_date::text AS data_date, summary FROM simulation_runs WHERE scenario_id = ${kestrel.planScenarioId} AND verification IN ('server', 'verified') ORDER BY created_at DESC LIMIT 1`;
+    expect(kestrel.planRunDataDate).toBe(newest.data_date);
+    expect(kestrel.planRunSummary.finish.p80).toBe(newest.summary.finish.p80);
+  });
+});

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { listProjectsForUser } from "@db/queries/projects";
 import { pageUser } from "@/lib/server/page-access";
 import { RoleBadge } from "@/components/role-badge";
+import { PlanOfRecordHeadline } from "@/components/plan-of-record-headline";
 import { formatDateTime, formatStation } from "@/lib/format";
 import type { ProjectRole } from "@/lib/permissions";
 
@@ -72,6 +73,12 @@ function ProjectCards({ projects }: { projects: ProjectRow[] }) {
                 <dd className="font-medium">{p.lanes.length}</dd>
               </div>
             </dl>
+            <div className="mt-4 border-t border-line pt-3">
+              <p className="text-xs font-semibold uppercase tracking-wide text-muted">Plan of record</p>
+              <div className="mt-1">
+                <PlanOfRecordHeadline plan={p} />
+              </div>
+            </div>
           </Link>
         </li>
       ))}

@@ -11,6 +11,10 @@ import { Breadcrumb } from "@/components/breadcrumb";
 import { ProjectDetailsForm } from "@/components/project-details-form";
 import { ArchiveButton } from "@/components/archive-button";
 import { ArchivedBanner } from "../../archived-banner";
+import { getPlanOfRecord } from "@db/queries/projects";
+import { listProjectScenarios } from "@db/queries/scenarios";
+import { PlanOfRecordHeadline } from "@/components/plan-of-record-headline";
+import { PlanOfRecordPicker } from "./plan-of-record-picker";
 
 export const metadata: Metadata = { title: "Project" };
 
@@ -18,6 +22,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role, archived } = access;
+  const plan = await getPlanOfRecord({ projectId: project.id });
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
@@ -47,7 +52,15 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
           {!archived && can(role, "archiveProject") && <ArchiveButton projectId={project.id} archived={false} projectName={project.name} />}
         </div>
       </header>
-      <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario", archived)} />
+      <section className="card" aria-labelledby="plan-of-record-heading" data-testid="plan-of-record">
+        <h2 id="plan-of-record-heading">Plan of record</h2>
+        <p className="mt-1 text-sm text-muted">The scenario the project is run by: its newest forecast is what the project list shows and what the owner is told.</p>
+        <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link />}</div>
+        {can(role, "editProject", archived) && (
+          <PlanOfRecordPicker projectId={project.id} current={project.planScenarioId} scenarios={(await listProjectScenarios({ projectId: project.id })).map((s) => ({ id: s.id, name: s.name }))} />
+        )}
+      </section>
+      <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario", archived)} planScenarioId={project.planScenarioId} />
       <LocationForm projectId={project.id} latitude={project.latitude} longitude={project.longitude} canEdit={can(role, "editProject", archived)} />
       {can(role, "editProject", archived) && (
         <details className="card" data-testid="project-details">

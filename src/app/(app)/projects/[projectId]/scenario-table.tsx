@@ -30,7 +30,7 @@ interface ScenarioListRow {
 
 const col = createColumnHelper<ScenarioListRow>();
 
-export function ScenarioTable({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
+export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { projectId: string; canEdit: boolean; planScenarioId?: string | null }) {
   const query = useQuery({
     queryKey: ["projects", projectId, "scenarios"],
     queryFn: () => api<{ scenarios: ScenarioListRow[] }>(`/api/projects/${projectId}/scenarios`).then((r) => r.scenarios),
@@ -46,6 +46,7 @@ export function ScenarioTable({ projectId, canEdit }: { projectId: string; canEd
             <Link href={`/scenarios/${c.row.original.id}`} className="font-medium text-brand-700 hover:underline">
               {c.getValue()}
             </Link>
+            {c.row.original.id === planScenarioId && <span className="badge ml-2 bg-brand-50 text-brand-800">Plan of record</span>}
             {c.row.original.description && <p className="mt-0.5 line-clamp-1 text-xs text-muted">{c.row.original.description}</p>}
           </div>
         ),
@@ -88,7 +89,7 @@ export function ScenarioTable({ projectId, canEdit }: { projectId: string; canEd
         ),
       }),
     ],
-    [],
+    [planScenarioId],
   );
 
   const table = useReactTable({

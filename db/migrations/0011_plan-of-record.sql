@@ -1,0 +1,2 @@
+ALTER TABLE "projects" ADD COLUMN "plan_scenario_id" uuid;--> statement-breakpoint
+ALTER TABLE "projects" ADD CONSTRAINT "projects_plan_scenario_id_scenarios_id_fk" FOREIGN KEY ("plan_scenario_id") REFERENCES "public"."scenarios"("id") ON DELETE set null ON UPDATE no action;

@@ -1,0 +1,44 @@
+import Link from "next/link";
+import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
+import type { RunHeadline } from "@/lib/run-record";
+
+/** A project's plan of record and its newest forecast, as the project list and the project page show it. */
+export interface PlanOfRecordView {
+  planScenarioId: string | null;
+  planName: string | null;
+  planRunSummary: RunHeadline | Record<string, unknown> | null;
+  planRunAt: Date | string | null;
+  /** Set when the newest forecast is a re-forecast from the field log: its data date. */
+  planRunDataDate: string | null;
+  /** The plan changed after that forecast. */
+  planRunStale: boolean | null;
+}
+
+/**
+ * One paragraph an executive can read aloud: which plan, when it finishes at P80 (and P50), the chance of meeting
+ * the target, and how old the forecast is — said as stale when the plan changed after it.
+ */
+export function PlanOfRecordHeadline({ plan, link = false }: { plan: PlanOfRecordView; link?: boolean }) {
+  if (!plan.planScenarioId || !plan.planName) return <p className="text-sm text-muted">No plan of record chosen yet.</p>;
+  const name = link ? (
+    <Link href={`/scenarios/${plan.planScenarioId}`} className="font-medium text-brand-700 hover:underline">
+      {plan.planName}
+    </Link>
+  ) : (
+    <span className="font-medium">{plan.planName}</span>
+  );
+  const h = plan.planRunSummary as RunHeadline | null;
+  if (!h || !plan.planRunAt) return <p className="text-sm">{name}: not run yet.</p>;
+  return (
+    <div className="text-sm" data-testid="plan-of-record-headline">
+      <p>
+        {name}: P80 finish <strong>{formatIsoDate(h.finish.p80)}</strong> (P50 {formatIsoDate(h.finish.p50)})
+        {h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability)} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : ""}.
+      </p>
+      <p className="mt-0.5 text-xs text-muted">
+        {plan.planRunDataDate ? `Re-forecast from the field log as of ${formatIsoDate(plan.planRunDataDate)}, run ${formatDateTime(plan.planRunAt)}` : `Forecast run ${formatDateTime(plan.planRunAt)}`}
+        {plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,59 @@
+/**
+ * The plan of record in Debian's Chromium: the owner's executive (viewer) reads on the project list which plan each
+ * project is run by and its newest forecast in words; an administrator of a new project chooses one of its
+ * scenarios on the project page, which then marks it in the scenario table and shows it on the list.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser } from "playwright-core";
+import { APP_URL, call } from "../helpers/app";
+import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { signedIn } from "./pages/sign-in";
+import { templateScenario } from "../../src/lib/scenario-template";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the plan of record", () => {
+  it("is read on the project list by the executive", async () => {
+    const { context, page } = await signedIn(browser, "viewer");
+    const card = page.getByRole("link", { name: /Kestrel Bay Causeway — deck overlay/ });
+    const text = (await card.textContent()) ?? "";
+    expect(text).toContain("Plan of record");
+    expect(text).toMatch(/Kestrel Bay Causeway — two seasons.*: P80 finish \d{1,2} \w{3} \d{4} \(P50 \d{1,2} \w{3} \d{4}\)/);
+    expect(text).toMatch(/chance of finishing by the \d{1,2} \w{3} \d{4} target/);
+    expect(text).toMatch(/Re-forecast from the field log as of|Forecast run/);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "plan-of-record-list");
+    await context.close();
+  });
+
+  it("is chosen on the project page by the project's administrator", async () => {
+    const { context, page } = await signedIn(browser, "scheduler");
+    const cookie = (await context.cookies()).map((c) => `${c.name}=${c.value}`).join("; ");
+    const name = `Avocet Slough Bridge ${Date.now()}`;
+    const project = await call("/api/projects", { method: "POST", cookie, body: { name, structureName: "Avocet Slough Bridge", deckLengthFt: 700, startStationFt: 0, lanes: "L1, L2" } });
+    expect(project.status).toBe(201);
+    for (const plan of ["Nights only", "Weekend closures"]) {
+      const definition = templateScenario(plan, { deckLengthFt: 700, startStationFt: 0, lanes: ["L1", "L2"] }, "2027-04-05");
+      expect((await call(`/api/projects/${project.body.id}/scenarios`, { method: "POST", cookie, body: { name: plan, definition } })).status).toBe(201);
+    }
+    await page.goto(`${APP_URL}/projects/${project.body.id}`);
+    const section = page.getByTestId("plan-of-record");
+    expect(await section.textContent()).toContain("No plan of record chosen yet.");
+    await section.getByLabel("Plan of record").selectOption({ label: "Weekend closures" });
+    await section.getByRole("button", { name: "Make it the plan of record" }).click();
+    await expect.poll(() => section.textContent()).toContain("Weekend closures: not run yet.");
+    await expect.poll(() => page.getByRole("row", { name: /Weekend closures/ }).textContent()).toContain("Plan of record");
+    expect(await page.getByRole("row", { name: /Nights only/ }).textContent()).not.toContain("Plan of record");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+
+    await page.goto(`${APP_URL}/projects`);
+    expect(await page.getByRole("link", { name: new RegExp(name) }).textContent()).toContain("Weekend closures: not run yet.");
+    await context.close();
+  });
+});
