@@ -33,7 +33,12 @@ export function PlanOfRecordHeadline({ plan, link = false }: { plan: PlanOfRecor
     <div className="text-sm" data-testid="plan-of-record-headline">
       <p>
         {name}: P80 finish <strong>{formatIsoDate(h.finish.p80)}</strong> (P50 {formatIsoDate(h.finish.p50)})
-        {h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability)} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : ""}.
+        {h.targetDate && h.targetProbability !== null ? (
+          <>
+            ; <span className="whitespace-nowrap">{formatPercent(h.targetProbability)}</span> chance of finishing by the {formatIsoDate(h.targetDate)} target
+          </>
+        ) : null}
+        .
       </p>
       <p className="mt-0.5 text-xs text-muted">
         {plan.planRunDataDate ? `Re-forecast from the field log as of ${formatIsoDate(plan.planRunDataDate)}, run ${formatDateTime(plan.planRunAt)}` : `Forecast run ${formatDateTime(plan.planRunAt)}`}
