@@ -42,6 +42,9 @@ export function produce(iv: Open, i: number, gates: GateCache, profile: number, 
   for (; i < iv.length; i++) {
     let t = iv.starts[i] > from ? iv.starts[i] : from;
     const b = iv.ends[i];
+    // An instant within EPS below the interval's end is its end (MODEL.md, "hour slot"): nothing of the interval
+    // is left, and a crew must not start a sliver of production in it (a start 10⁻¹⁴ h before a closing hour).
+    if (b - t <= EPS) continue;
     if (started && t > lastEnd) sink.gap(lastEnd, t);
     if (profile < 0) {
       if (!started) sink.lastStart = t;
