@@ -1,7 +1,7 @@
 /**
  * The plan of record in Debian's Chromium: the owner's executive (viewer) reads on the project list which plan each
  * project is run by and its newest forecast in words; an administrator of a new project chooses one of its
- * scenarios on the project page, which then marks it in the scenario table and shows it on the list.
+ * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
@@ -51,6 +51,10 @@ describe("the plan of record", () => {
     await expect.poll(() => page.getByRole("row", { name: /Weekend closures/ }).textContent()).toContain("Plan of record");
     expect(await page.getByRole("row", { name: /Nights only/ }).textContent()).not.toContain("Plan of record");
     expect(await seriousA11yViolations(page)).toEqual([]);
+    // The scenario's own page says so beside its name.
+    await page.getByRole("row", { name: /Weekend closures/ }).getByRole("link", { name: "Weekend closures" }).click();
+    await page.getByRole("heading", { name: "Weekend closures", level: 1 }).waitFor();
+    expect(await page.locator("header").getByText("Plan of record", { exact: true }).count()).toBe(1);
 
     await page.goto(`${APP_URL}/projects`);
     expect(await page.getByRole("link", { name: new RegExp(name) }).textContent()).toContain("Weekend closures: not run yet.");

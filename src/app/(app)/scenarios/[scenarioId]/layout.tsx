@@ -19,6 +19,11 @@ export default async function ScenarioLayout({ children, params }: { children: R
           <div className="flex flex-wrap items-center gap-3">
             <h1 data-testid="scenario-name">{scenario.name}</h1>
             <RoleBadge role={role} />
+            {project.planScenarioId === scenario.id && (
+              <span className="badge bg-brand-50 text-brand-800" title="The scenario this project is run by (chosen on the project page)">
+                Plan of record
+              </span>
+            )}
           </div>
           <p className="mt-1 text-sm text-muted">
             Version {scenario.version} · last saved {formatDateTime(scenario.updatedAt)} by {scenario.updatedByName}
