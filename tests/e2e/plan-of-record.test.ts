@@ -45,7 +45,7 @@ describe("the plan of record", () => {
     await page.goto(`${APP_URL}/projects/${project.body.id}`);
     const section = page.getByTestId("plan-of-record");
     expect(await section.textContent()).toContain("No plan of record chosen yet.");
-    await section.getByLabel("Plan of record").selectOption({ label: "Weekend closures" });
+    await section.getByLabel("Choose a scenario").selectOption({ label: "Weekend closures" });
     await section.getByRole("button", { name: "Make it the plan of record" }).click();
     await expect.poll(() => section.textContent()).toContain("Weekend closures: not run yet.");
     await expect.poll(() => page.getByRole("row", { name: /Weekend closures/ }).textContent()).toContain("Plan of record");

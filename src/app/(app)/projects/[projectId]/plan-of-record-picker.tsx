@@ -23,7 +23,7 @@ export function PlanOfRecordPicker({ projectId, current, scenarios }: { projectI
     >
       <div>
         <label htmlFor="plan-of-record" className="field-label">
-          Plan of record
+          Choose a scenario
         </label>
         <select id="plan-of-record" className="field-input" value={chosen} onChange={(e) => (save.reset(), setChosen(e.target.value))}>
           <option value="">None chosen</option>
