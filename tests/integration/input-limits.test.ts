@@ -197,6 +197,34 @@ describe("the work budget, before any run", () => {
   });
 });
 
+describe("the small PUT routes (one's account, a project's archive and plan of record): the same checks, a smaller limit", () => {
+  // Each on an account or project of its own, so a body that is valid by mistake changes nothing another test reads.
+  let routes: { path: string; cookie: string; valid: Record<string, unknown>; textField: string; limit: string }[];
+  beforeAll(async () => {
+    const own = await call("/api/projects", { method: "POST", cookie: scheduler, body: { name: "Body checks project", structureName: "S", deckLengthFt: 500, startStationFt: 0, lanes: "L1" } });
+    expect(own.status).toBe(201);
+    routes = [
+      { path: "/api/account", cookie: scheduler, valid: { name: "Marco Ilves", title: "Contractor scheduler" }, textField: "title", limit: "4 KB" },
+      { path: `/api/projects/${own.body.id}`, cookie: scheduler, valid: { name: "Body checks project", structureName: "S", deckLengthFt: 500, startStationFt: 0, lanes: "L1" }, textField: "region", limit: "64 KB" },
+      { path: `/api/projects/${own.body.id}/archive`, cookie: scheduler, valid: { archived: false }, textField: "archived", limit: "1 KB" },
+      { path: `/api/projects/${own.body.id}/plan-of-record`, cookie: scheduler, valid: { planScenarioId: null }, textField: "planScenarioId", limit: "1 KB" },
+    ];
+  });
+
+  it("a NUL character is 400 naming the field; nesting past 32 levels is 400; a body over the limit is 413 saying the limit", async () => {
+    for (const r of routes) {
+      const nul = await call(r.path, { method: "PUT", cookie: r.cookie, body: { ...r.valid, [r.textField]: "bad\u0000text" } });
+      expect(nul.status, r.path).toBe(400);
+      expect(nul.body.fields, r.path).toContainEqual(expect.objectContaining({ path: r.textField, message: "must not contain the NUL character (U+0000)" }));
+      const deep = await call(r.path, { method: "PUT", cookie: r.cookie, body: `{"x":${"[".repeat(10_000) + "]".repeat(10_000)}}` });
+      expect(deep.status, r.path).toBe(400);
+      const big = await call(r.path, { method: "PUT", cookie: r.cookie, body: { ...r.valid, pad: "p".repeat(70_000) } });
+      expect(big.status, r.path).toBe(413);
+      expect(big.body.error, r.path).toBe(`The request is larger than ${r.limit}; nothing was saved.`);
+    }
+  });
+});
+
 describe("every JSON route: NUL characters, deep nesting, oversize bodies", () => {
   let routes: { path: string; cookie: () => string; valid: Record<string, unknown>; textField: string }[];
 

@@ -90,7 +90,8 @@ export function errorResponse(e: unknown): Response {
 export async function readJson<T extends z.ZodType>(req: Request, schema: T, opts: { maxBytes?: number } = {}): Promise<z.output<T>> {
   const maxBytes = opts.maxBytes ?? MAX_JSON_BYTES;
   const bytes = await readBodyBytes(req, maxBytes);
-  const mb = `${(maxBytes / 1024 / 1024).toLocaleString("en-US", { maximumFractionDigits: 1 })} MB`;
+  // Small limits in KB: "0 MB" would say nothing at all.
+  const mb = maxBytes >= 1024 * 1024 ? `${(maxBytes / 1024 / 1024).toLocaleString("en-US", { maximumFractionDigits: 1 })} MB` : `${Math.floor(maxBytes / 1024).toLocaleString("en-US")} KB`;
   if (bytes === "too_large") throw new AppError("too_large", `The request is larger than ${mb}; nothing was saved.`, [{ path: "(body)", message: `must be at most ${mb}` }]);
   let text: string;
   try {
