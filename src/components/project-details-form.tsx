@@ -15,6 +15,7 @@ import { projectDetailsSchema } from "@/lib/schemas";
 import { LIMITS } from "@sim/limits";
 import { formatStation } from "@/lib/format";
 import { describedBy, LabelledField as Field } from "@/components/labelled-field";
+import { FormFailure, SubmitRow } from "@/components/form-footer";
 
 type Input = z.input<typeof projectDetailsSchema>;
 type Output = z.output<typeof projectDetailsSchema>;
@@ -107,22 +108,16 @@ export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
       <Field id="project-description" label="Description (optional)" problem={problem("description")}>
         <textarea id="project-description" rows={3} className="field-input" maxLength={LIMITS.description} {...described("description")} {...register("description")} />
       </Field>
-      {failure && (
-        <p role="alert" className="rounded-md border border-bad/40 bg-bad-bg px-3 py-2 text-sm text-bad">
-          {failure}
-        </p>
-      )}
+      <FormFailure text={failure} />
       {project && (
         <p className="text-xs text-muted">Scenarios keep the deck they were saved with; a new scenario starts from the deck here.</p>
       )}
-      <div className="flex flex-wrap items-center gap-3">
-        <button type="submit" className="btn-primary" disabled={save.isPending}>
-          {project ? (save.isPending ? "Saving…" : "Save details") : save.isPending ? "Creating…" : "Create the project"}
-        </button>
-        <p aria-live="polite" className="text-sm text-ok">
-          {saved && !formState.isDirty ? "Details saved." : ""}
-        </p>
-      </div>
+      <SubmitRow
+        label={project ? "Save details" : "Create the project"}
+        busyLabel={project ? "Saving…" : "Creating…"}
+        busy={save.isPending}
+        status={saved && !formState.isDirty ? "Details saved." : ""}
+      />
     </form>
   );
 }

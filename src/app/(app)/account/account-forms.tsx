@@ -13,15 +13,7 @@ import { api } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
 import { accountDetailsSchema, MIN_PASSWORD_LENGTH, passwordChangeSchema } from "@/lib/schemas";
 import { describedBy, LabelledField as Field } from "@/components/labelled-field";
-
-function Failure({ text }: { text: string | null }) {
-  if (!text) return null;
-  return (
-    <p role="alert" className="rounded-md border border-bad/40 bg-bad-bg px-3 py-2 text-sm text-bad">
-      {text}
-    </p>
-  );
-}
+import { FormFailure, SubmitRow } from "@/components/form-footer";
 
 type DetailsIn = z.input<typeof accountDetailsSchema>;
 type DetailsOut = z.output<typeof accountDetailsSchema>;
@@ -60,15 +52,8 @@ export function AccountDetailsForm({ name, title }: { name: string; title: strin
         <Field id="account-title" label="Title (optional)" hint="Your role at your organisation, e.g. Resident engineer." problem={problem("title")}>
           <input id="account-title" className="field-input" autoComplete="organization-title" maxLength={120} aria-invalid={!!problem("title")} aria-describedby={describedBy("account-title", { hint: true, problem: !!problem("title") })} {...register("title")} />
         </Field>
-        <Failure text={failure} />
-        <div className="flex flex-wrap items-center gap-3">
-          <button type="submit" className="btn-primary" disabled={save.isPending}>
-            {save.isPending ? "Saving…" : "Save name and title"}
-          </button>
-          <p aria-live="polite" className="text-sm text-ok">
-            {saved && !formState.isDirty ? "Saved." : ""}
-          </p>
-        </div>
+        <FormFailure text={failure} />
+        <SubmitRow label="Save name and title" busyLabel="Saving…" busy={save.isPending} status={saved && !formState.isDirty ? "Saved." : ""} />
       </form>
     </section>
   );
@@ -128,15 +113,8 @@ export function PasswordChangeForm() {
         <Field id="account-confirm" label="New password again" problem={problem("confirm")}>
           {input("confirm", "new-password")}
         </Field>
-        <Failure text={failure} />
-        <div className="flex flex-wrap items-center gap-3">
-          <button type="submit" className="btn-primary" disabled={change.isPending}>
-            {change.isPending ? "Changing…" : "Change password"}
-          </button>
-          <p aria-live="polite" className="text-sm text-ok">
-            {change.isSuccess ? "Password changed. Other sessions are signed out." : ""}
-          </p>
-        </div>
+        <FormFailure text={failure} />
+        <SubmitRow label="Change password" busyLabel="Changing…" busy={change.isPending} status={change.isSuccess ? "Password changed. Other sessions are signed out." : ""} />
       </form>
     </section>
   );
