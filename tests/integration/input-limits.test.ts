@@ -211,13 +211,15 @@ describe("the small PUT routes (one's account, a project's archive and plan of r
     ];
   });
 
-  it("a NUL character is 400 naming the field; nesting past 32 levels is 400; a body over the limit is 413 saying the limit", async () => {
+  it("a NUL character is 400 naming the field; nesting past 32 levels is 400 saying so; a body over the limit is 413 saying the limit", async () => {
     for (const r of routes) {
       const nul = await call(r.path, { method: "PUT", cookie: r.cookie, body: { ...r.valid, [r.textField]: "bad\u0000text" } });
       expect(nul.status, r.path).toBe(400);
       expect(nul.body.fields, r.path).toContainEqual(expect.objectContaining({ path: r.textField, message: "must not contain the NUL character (U+0000)" }));
-      const deep = await call(r.path, { method: "PUT", cookie: r.cookie, body: `{"x":${"[".repeat(10_000) + "]".repeat(10_000)}}` });
+      // 100 levels: deep enough to refuse, small enough to fit under the route's limit (a larger body is 413 first).
+      const deep = await call(r.path, { method: "PUT", cookie: r.cookie, body: `{"x":${"[".repeat(100) + "]".repeat(100)}}` });
       expect(deep.status, r.path).toBe(400);
+      expect(deep.body.fields, r.path).toEqual([{ path: "(body)", label: "Request body", message: "must not nest more than 32 levels" }]);
       const big = await call(r.path, { method: "PUT", cookie: r.cookie, body: { ...r.valid, pad: "p".repeat(70_000) } });
       expect(big.status, r.path).toBe(413);
       expect(big.body.error, r.path).toBe(`The request is larger than ${r.limit}; nothing was saved.`);
