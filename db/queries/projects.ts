@@ -8,7 +8,7 @@ import { isForecast } from "./runs";
 /**
  * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
  * newest forecast — a plan run or a re-forecast from the field log, whichever came last — with whether the plan
- * changed after it. Join with `joinPlanOfRecord`.
+ * changed after it. The caller left-joins `plan` on projects.plan_scenario_id and `planRun` laterally.
  */
 function planOfRecordParts(db: ReturnType<typeof getDb>) {
   const plan = alias(scenarios, "plan");
@@ -67,7 +67,6 @@ export async function getPlanOfRecord({ projectId }: { projectId: string }) {
   const [row] = await db.select(columns).from(projects).leftJoin(plan, eq(plan.id, projects.planScenarioId)).leftJoinLateral(planRun, sql`true`).where(eq(projects.id, projectId));
   return row ?? null;
 }
-export type PlanOfRecordRow = NonNullable<Awaited<ReturnType<typeof getPlanOfRecord>>>;
 
 /** A project's own fields as stored (the request contract's output, src/lib/schemas.ts `projectDetailsSchema`). */
 export interface ProjectFields {
