@@ -8,7 +8,8 @@ import { isForecast } from "./runs";
 /**
  * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
  * newest forecast — a plan run or a re-forecast from the field log, whichever came last — with whether the plan
- * changed after it. The caller left-joins `plan` on projects.plan_scenario_id and `planRun` laterally.
+ * changed after it, and the forecast before that one. The caller left-joins `plan` on projects.plan_scenario_id, and
+ * `planRun` and `previousRun` laterally.
  */
 function planOfRecordParts(db: ReturnType<typeof getDb>) {
   const plan = alias(scenarios, "plan");
@@ -24,6 +25,15 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     .orderBy(desc(simulationRuns.createdAt))
     .limit(1)
     .as("plan_run");
+  // The forecast before the newest: how far the finish moved since.
+  const previousRun = db
+    .select({ summary: sql<Record<string, unknown>>`${simulationRuns.summary}`.as("previous_run_summary") })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
+    .orderBy(desc(simulationRuns.createdAt))
+    .limit(1)
+    .offset(1)
+    .as("previous_run");
   const columns = {
     planScenarioId: projects.planScenarioId,
     planName: plan.name,
@@ -31,14 +41,15 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     planRunAt: planRun.at,
     planRunDataDate: planRun.dataDate,
     planRunStale: sql<boolean | null>`(${planRun.version} <> ${plan.version})`,
+    previousRunSummary: previousRun.summary,
   };
-  return { plan, planRun, columns };
+  return { plan, planRun, previousRun, columns };
 }
 
 /** The projects a person belongs to, with their role and the headline of each one's plan of record. */
 export async function listProjectsForUser({ userId }: { userId: string }) {
   const db = getDb();
-  const { plan, planRun, columns } = planOfRecordParts(db);
+  const { plan, planRun, previousRun, columns } = planOfRecordParts(db);
   return db
     .select({
       id: projects.id,
@@ -56,6 +67,7 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
     .innerJoin(projects, eq(projects.id, projectMembers.projectId))
     .leftJoin(plan, eq(plan.id, projects.planScenarioId))
     .leftJoinLateral(planRun, sql`true`)
+    .leftJoinLateral(previousRun, sql`true`)
     .where(eq(projectMembers.userId, userId))
     .orderBy(asc(projects.name));
 }
@@ -63,8 +75,14 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
 /** One project's plan-of-record headline (see planOfRecordParts); null when there is no such project. */
 export async function getPlanOfRecord({ projectId }: { projectId: string }) {
   const db = getDb();
-  const { plan, planRun, columns } = planOfRecordParts(db);
-  const [row] = await db.select(columns).from(projects).leftJoin(plan, eq(plan.id, projects.planScenarioId)).leftJoinLateral(planRun, sql`true`).where(eq(projects.id, projectId));
+  const { plan, planRun, previousRun, columns } = planOfRecordParts(db);
+  const [row] = await db
+    .select(columns)
+    .from(projects)
+    .leftJoin(plan, eq(plan.id, projects.planScenarioId))
+    .leftJoinLateral(planRun, sql`true`)
+    .leftJoinLateral(previousRun, sql`true`)
+    .where(eq(projects.id, projectId));
   return row ?? null;
 }
 

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { differenceInCalendarDays, isValid, parseISO } from "date-fns";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
 
@@ -12,6 +13,23 @@ export interface PlanOfRecordView {
   planRunDataDate: string | null;
   /** The plan changed after that forecast. */
   planRunStale: boolean | null;
+  /** The forecast before the newest, to say how far the finish moved (null: the newest is the only one). */
+  previousRunSummary?: RunHeadline | Record<string, unknown> | null;
+}
+
+/**
+ * How the P80 finish moved from one forecast to the next, in words: "12 days later than the forecast before",
+ * "3 days earlier …", "unchanged …"; null when either date is missing. Calendar days between the dates.
+ */
+export function p80MoveText(now: string | undefined, before: string | undefined): string | null {
+  if (!now || !before) return null;
+  const a = parseISO(now.slice(0, 10));
+  const b = parseISO(before.slice(0, 10));
+  if (!isValid(a) || !isValid(b)) return null;
+  const days = differenceInCalendarDays(a, b);
+  if (days === 0) return "unchanged since the forecast before";
+  const n = Math.abs(days);
+  return `${n.toLocaleString("en-US")} day${n === 1 ? "" : "s"} ${days > 0 ? "later" : "earlier"} than the forecast before`;
 }
 
 /**
@@ -29,10 +47,11 @@ export function PlanOfRecordHeadline({ plan, link = false }: { plan: PlanOfRecor
   );
   const h = plan.planRunSummary as RunHeadline | null;
   if (!h || !plan.planRunAt) return <p className="text-sm">{name}: not run yet.</p>;
+  const move = p80MoveText(h.finish.p80, (plan.previousRunSummary as RunHeadline | null | undefined)?.finish?.p80);
   return (
     <div className="text-sm" data-testid="plan-of-record-headline">
       <p>
-        {name}: P80 finish <strong>{formatIsoDate(h.finish.p80)}</strong> (P50 {formatIsoDate(h.finish.p50)})
+        {name}: P80 finish <strong>{formatIsoDate(h.finish.p80)}</strong> (P50 {formatIsoDate(h.finish.p50)}){move ? `, ${move}` : ""}
         {h.targetDate && h.targetProbability !== null ? (
           <>
             ; <span className="whitespace-nowrap">{formatPercent(h.targetProbability)}</span> chance of finishing by the {formatIsoDate(h.targetDate)} target
