@@ -110,7 +110,7 @@ describe("the plan of record", () => {
 
     const put = (planScenarioId: unknown) => call(`/api/projects/${projectId}/plan-of-record`, { method: "PUT", cookie: inspector, body: { planScenarioId } });
     expect((await put(second)).status).toBe(200);
-    expect(await listed()).toMatchObject({ planScenarioId: second, planName: "Two seasons", planRunSummary: null, planRunAt: null });
+    expect(await listed()).toMatchObject({ planScenarioId: second, planName: "Two seasons", planRunSummary: null, planRunAt: null, previousRunSummary: null });
 
     // Another project's scenario (the demo's, which the inspector can read) answers as one that does not exist.
     const [kestrel] = await appDb`SELECT s.id FROM scenarios s JOIN projects p ON p.id = s.project_id WHERE p.name LIKE '%Kestrel Bay Causeway — deck overlay' LIMIT 1`;
@@ -133,8 +133,10 @@ describe("the plan of record", () => {
     expect(kestrel.planName).toMatch(/two seasons/i);
     expect(kestrel.planRunSummary.finish.p80).toMatch(/^\d{4}-\d{2}-\d{2}/);
     // Its newest forecast, whichever kind (in the seed, the last re-forecast; other tests may have run it since).
-    const [newest] = await appDb`SELECT data_date::text AS data_date, summary FROM simulation_runs WHERE scenario_id = ${kestrel.planScenarioId} AND verification IN ('server', 'verified') ORDER BY created_at DESC LIMIT 1`;
+    const [newest, before] = await appDb`SELECT data_date::text AS data_date, summary FROM simulation_runs WHERE scenario_id = ${kestrel.planScenarioId} AND verification IN ('server', 'verified') ORDER BY created_at DESC LIMIT 2`;
     expect(kestrel.planRunDataDate).toBe(newest.data_date);
     expect(kestrel.planRunSummary.finish.p80).toBe(newest.summary.finish.p80);
+    // And the one before it, for how far the finish moved.
+    expect(kestrel.previousRunSummary.finish.p80).toBe(before.summary.finish.p80);
   });
 });
