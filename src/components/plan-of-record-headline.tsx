@@ -18,7 +18,7 @@ export interface PlanOfRecordView {
 }
 
 /**
- * How the P80 finish moved from one forecast to the next, in words: "12 days later than the forecast before",
+ * How the P80 finish moved from one forecast to the next, in words: "12 days later than the previous forecast",
  * "3 days earlier …", "unchanged …"; null when either date is missing. Calendar days between the dates.
  */
 export function p80MoveText(now: string | undefined, before: string | undefined): string | null {
@@ -27,9 +27,9 @@ export function p80MoveText(now: string | undefined, before: string | undefined)
   const b = parseISO(before.slice(0, 10));
   if (!isValid(a) || !isValid(b)) return null;
   const days = differenceInCalendarDays(a, b);
-  if (days === 0) return "unchanged since the forecast before";
+  if (days === 0) return "unchanged since the previous forecast";
   const n = Math.abs(days);
-  return `${n.toLocaleString("en-US")} day${n === 1 ? "" : "s"} ${days > 0 ? "later" : "earlier"} than the forecast before`;
+  return `${n.toLocaleString("en-US")} day${n === 1 ? "" : "s"} ${days > 0 ? "later" : "earlier"} than the previous forecast`;
 }
 
 /**

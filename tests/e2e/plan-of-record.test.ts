@@ -26,7 +26,7 @@ describe("the plan of record", () => {
     expect(text).toContain("Plan of record");
     expect(text).toMatch(/Kestrel Bay Causeway — two seasons.*: P80 finish \d{1,2} \w{3} \d{4} \(P50 \d{1,2} \w{3} \d{4}\)/);
     // The seed's re-forecasts follow one another: the newest says how far the finish moved since the one before.
-    expect(text).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the forecast before/);
+    expect(text).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the previous forecast/);
     expect(text).toMatch(/chance of finishing by the \d{1,2} \w{3} \d{4} target/);
     expect(text).toMatch(/Re-forecast from the field log as of|Forecast run/);
     expect(await seriousA11yViolations(page)).toEqual([]);

@@ -18,16 +18,16 @@ describe("p80MoveText", () => {
         const text = p80MoveText(isoOf(a), isoOf(b));
         const n = Math.abs(a - b);
         const unit = n === 1 ? "day" : "days";
-        if (a === b) expect(text).toBe("unchanged since the forecast before");
-        else expect(text).toBe(`${n.toLocaleString("en-US")} ${unit} ${a > b ? "later" : "earlier"} than the forecast before`);
+        if (a === b) expect(text).toBe("unchanged since the previous forecast");
+        else expect(text).toBe(`${n.toLocaleString("en-US")} ${unit} ${a > b ? "later" : "earlier"} than the previous forecast`);
       }),
     );
   });
 
   it("counts whole days and ignores a time of day", () => {
-    expect(p80MoveText("2027-03-15", "2027-03-13")).toBe("2 days later than the forecast before");
-    expect(p80MoveText("2027-11-06T07:00", "2027-11-08T17:00")).toBe("2 days earlier than the forecast before");
-    expect(p80MoveText("2027-08-24", "2027-08-23")).toBe("1 day later than the forecast before");
+    expect(p80MoveText("2027-03-15", "2027-03-13")).toBe("2 days later than the previous forecast");
+    expect(p80MoveText("2027-11-06T07:00", "2027-11-08T17:00")).toBe("2 days earlier than the previous forecast");
+    expect(p80MoveText("2027-08-24", "2027-08-23")).toBe("1 day later than the previous forecast");
   });
 
   it("says nothing without both dates", () => {
