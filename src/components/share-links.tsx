@@ -232,7 +232,7 @@ export function ShareLinks({ endpoint, shows, listHeading, showOpens = false, ca
             {links.error.message}
           </p>
         ) : links.data.length === 0 ? (
-          <p className="px-5 py-4 text-sm text-muted">No links yet. Links you create appear here with their expiry.</p>
+          <p className="px-5 py-4 text-sm text-muted">{canCreate ? "No links yet. Links you create appear here with their expiry." : "No links."}</p>
         ) : (
           <table className="mt-3 w-full min-w-[560px] border-collapse">
             <thead>
