@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { APP_URL, call } from "../helpers/app";
 import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
-import { signedIn } from "./pages/sign-in";
+import { cookieHeader, signedIn } from "./pages/sign-in";
 import { templateScenario } from "../../src/lib/scenario-template";
 
 let browser: Browser;
@@ -36,7 +36,7 @@ describe("the plan of record", () => {
 
   it("is chosen on the project page by the project's administrator", async () => {
     const { context, page } = await signedIn(browser, "scheduler");
-    const cookie = (await context.cookies()).map((c) => `${c.name}=${c.value}`).join("; ");
+    const cookie = await cookieHeader(context);
     const name = `Avocet Slough Bridge ${Date.now()}`;
     const project = await call("/api/projects", { method: "POST", cookie, body: { name, structureName: "Avocet Slough Bridge", deckLengthFt: 700, startStationFt: 0, lanes: "L1, L2" } });
     expect(project.status).toBe(201);

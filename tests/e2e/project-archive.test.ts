@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { APP_URL, call } from "../helpers/app";
 import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
-import { signedIn } from "./pages/sign-in";
+import { cookieHeader, signedIn } from "./pages/sign-in";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -21,7 +21,7 @@ afterAll(async () => {
 describe("an archived project", () => {
   it("is archived and restored by its administrator, and reads as a record meanwhile", async () => {
     const { context, page } = await signedIn(browser, "scheduler");
-    const cookie = (await context.cookies()).map((c) => `${c.name}=${c.value}`).join("; ");
+    const cookie = await cookieHeader(context);
     // A project of the scheduler's own (they are its administrator), with one scenario, so the demo stays as it is.
     const name = `Gull Point Overpass — archive ${Date.now()}`;
     const project = await call("/api/projects", { method: "POST", cookie, body: { name, structureName: "Gull Point Overpass", deckLengthFt: 900, startStationFt: 400, lanes: "L1, L2" } });

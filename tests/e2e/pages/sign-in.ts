@@ -35,3 +35,8 @@ export async function signedIn(browser: Browser, role: DemoRole, width = 1280): 
   await new SignInPage(page).signInAs(role);
   return { context, page };
 }
+
+/** The browser context's cookies as a Cookie header, to call the API as the person signed in there. */
+export async function cookieHeader(context: BrowserContext): Promise<string> {
+  return (await context.cookies()).map((c) => `${c.name}=${c.value}`).join("; ");
+}
