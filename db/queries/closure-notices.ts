@@ -42,6 +42,6 @@ export async function listClosurePublications({ scenarioId }: { scenarioId: stri
     .from(closurePublications)
     .innerJoin(users, eq(users.id, closurePublications.publishedById))
     .where(eq(closurePublications.scenarioId, scenarioId))
-    .orderBy(desc(closurePublications.publishedAt))
+    .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
     .limit(10);
 }

@@ -41,7 +41,7 @@ export async function listPendingInvitations({ projectId }: { projectId: string 
     .from(invitations)
     .innerJoin(users, eq(users.id, invitations.invitedById))
     .where(and(eq(invitations.projectId, projectId), isNull(invitations.usedAt), gt(invitations.expiresAt, new Date())))
-    .orderBy(desc(invitations.createdAt));
+    .orderBy(desc(invitations.createdAt), desc(invitations.id));
 }
 
 /** What the invite page shows: the invitation, its project and whether its e-mail already has an account. */

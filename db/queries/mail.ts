@@ -98,6 +98,6 @@ export async function listOutbox({ toAddress, limit = 50 }: { toAddress: string;
     })
     .from(emailOutbox)
     .where(eq(sql`lower(${emailOutbox.toAddress})`, toAddress.trim().toLowerCase()))
-    .orderBy(desc(emailOutbox.createdAt))
+    .orderBy(desc(emailOutbox.createdAt), desc(emailOutbox.id))
     .limit(limit);
 }

@@ -130,7 +130,7 @@ export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
     .select({ id: simulationRuns.id, scenarioVersion: simulationRuns.scenarioVersion, seed: simulationRuns.seed, iterations: simulationRuns.iterations, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarioId), sql`${simulationRuns.dataDate} is null`, isForecast))
-    .orderBy(desc(simulationRuns.createdAt))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1);
   return row ?? null;
 }
@@ -141,7 +141,7 @@ export async function getLatestReforecast({ scenarioId }: { scenarioId: string }
     .select({ id: simulationRuns.id, dataDate: simulationRuns.dataDate, scenarioVersion: simulationRuns.scenarioVersion, results: simulationRuns.results, createdAt: simulationRuns.createdAt })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate)))
-    .orderBy(desc(simulationRuns.createdAt))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1);
   return row ?? null;
 }

@@ -22,7 +22,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
-    .orderBy(desc(simulationRuns.createdAt))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1)
     .as("plan_run");
   // The forecast before the newest: how far the finish moved since.
@@ -30,7 +30,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     .select({ summary: sql<Record<string, unknown>>`${simulationRuns.summary}`.as("previous_run_summary") })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
-    .orderBy(desc(simulationRuns.createdAt))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1)
     .offset(1)
     .as("previous_run");

@@ -31,7 +31,7 @@ export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
     .innerJoin(projects, eq(projects.id, scenarios.projectId))
     .innerJoin(scenarioRevisions, and(eq(scenarioRevisions.scenarioId, simulationRuns.scenarioId), eq(scenarioRevisions.version, simulationRuns.scenarioVersion)))
     .where(and(eq(shareLinks.tokenHash, tokenHash), eq(shareLinks.scope, "closure-feed"), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())))
-    .orderBy(desc(closurePublications.publishedAt))
+    .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
     .limit(1);
   return row ?? null;
 }

@@ -112,7 +112,7 @@ function runsQuery(where: SQL | undefined, withResults: boolean) {
     .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
     .leftJoin(users, eq(users.id, simulationRuns.createdById))
     .where(where)
-    .orderBy(desc(simulationRuns.createdAt));
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id));
 }
 
 /** Plan runs, newest first, each with its verification (pending and rejected included, marked as such). */

@@ -81,7 +81,7 @@ export async function listSearches({ scenarioId }: { scenarioId: string }) {
     .innerJoin(users, eq(users.id, planSearches.createdById))
     .leftJoin(engineJobs, eq(engineJobs.searchId, planSearches.id))
     .where(eq(planSearches.scenarioId, scenarioId))
-    .orderBy(desc(planSearches.createdAt));
+    .orderBy(desc(planSearches.createdAt), desc(planSearches.id));
 }
 
 export async function getVariant({ searchId, idx }: { searchId: string; idx: number }) {

@@ -39,7 +39,7 @@ export async function listShareLinks({ scenarioId }: { scenarioId: string }) {
     .innerJoin(users, eq(users.id, shareLinks.createdById))
     .leftJoin(planSearches, eq(planSearches.id, shareLinks.searchId))
     .where(eq(shareLinks.scenarioId, scenarioId))
-    .orderBy(desc(shareLinks.createdAt));
+    .orderBy(desc(shareLinks.createdAt), desc(shareLinks.id));
 }
 
 /** The links that open one plan search. */
@@ -50,7 +50,7 @@ export async function listSearchShareLinks({ searchId }: { searchId: string }) {
     .innerJoin(users, eq(users.id, shareLinks.createdById))
     .leftJoin(planSearches, eq(planSearches.id, shareLinks.searchId))
     .where(and(eq(shareLinks.searchId, searchId), eq(shareLinks.scope, "search")))
-    .orderBy(desc(shareLinks.createdAt));
+    .orderBy(desc(shareLinks.createdAt), desc(shareLinks.id));
 }
 
 export async function getShareLink({ id }: { id: string }) {

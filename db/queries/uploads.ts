@@ -39,6 +39,6 @@ export async function listUploads({ scenarioId }: { scenarioId: string }) {
     .from(uploads)
     .innerJoin(users, eq(users.id, uploads.uploadedById))
     .where(eq(uploads.scenarioId, scenarioId))
-    .orderBy(desc(uploads.uploadedAt))
+    .orderBy(desc(uploads.uploadedAt), desc(uploads.id))
     .limit(20);
 }

@@ -120,12 +120,18 @@ export async function newFieldScenario(projectId: string, cookie: string): Promi
   return { id: s.id, version: s.version, entryId: entry.id, entryVersion: entry.version ?? 1 };
 }
 
-export async function buildWorld(): Promise<World> {
+/**
+ * `ownCopy`: the world is built on a copy of the Kestrel project (its details and its five members) instead of
+ * Kestrel itself — for a file that changes the project as a whole (archiving it), which must not refuse the
+ * writes of the browser tests that run beside the integration files on the real Kestrel project.
+ */
+export async function buildWorld(options: { ownCopy?: boolean } = {}): Promise<World> {
   const db = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
   const cookies = {} as World["cookies"];
   for (const r of ROLES) cookies[r] = await signInAs(r);
   const admin = cookies.admin;
-  const projectId = (await kestrelProject(admin)).id;
+  const kestrelId = (await kestrelProject(admin)).id;
+  const projectId = options.ownCopy ? await copyOfProject(db, kestrelId) : kestrelId;
   const projects = must(await call("/api/projects", { cookie: admin }), 200, "projects").projects as { id: string; name: string }[];
   const ternProjectId = projects.find((p) => p.name.includes("Tern"))!.id;
   const base = await demoDefinition(admin, projectId);
@@ -185,6 +191,19 @@ export async function buildWorld(): Promise<World> {
     stranger: strangerIds,
     tern,
   };
+}
+
+/** A new project with another project's details and members (written straight into the database: no route copies a project). */
+async function copyOfProject(db: postgres.Sql, fromId: string): Promise<string> {
+  return db.begin(async (tx) => {
+    const [{ id }] = await tx`
+      INSERT INTO projects (name, structure_name, region, deck_length_ft, start_station_ft, lanes, description, latitude, longitude)
+      SELECT ${uniq("Kestrel copy")}, structure_name, region, deck_length_ft, start_station_ft, lanes, description, latitude, longitude
+      FROM projects WHERE id = ${fromId}
+      RETURNING id`;
+    await tx`INSERT INTO project_members (project_id, user_id, role) SELECT ${id}, user_id, role FROM project_members WHERE project_id = ${fromId}`;
+    return id as string;
+  });
 }
 
 /** A well-formed token that was never issued. */

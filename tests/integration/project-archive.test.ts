@@ -3,7 +3,8 @@
  * every change with 409 and one sentence — except what the archive allows (members, restoring) and what takes
  * something away (revoking a share link, removing a subscriber, cancelling a run), which must never be stopped.
  * The sweep runs every write row of the API matrix (tests/helpers/authz-api-rows.ts) as the Kestrel administrator
- * on the archived Kestrel project, each prepared while the project is in use, and checks nothing was destroyed by
+ * on an archived copy of the Kestrel project (the browser tests, which run beside this file, write to Kestrel
+ * itself), each prepared while the project is in use, and checks nothing was destroyed by
  * a refused call. The daily e-mail of an archived project's scenarios is not sent.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -23,10 +24,10 @@ const archive = () => w.db`UPDATE projects SET archived_at = now() WHERE id = ${
 const restore = () => w.db`UPDATE projects SET archived_at = NULL, archived_by_id = NULL WHERE id = ${w.projectId}`;
 
 beforeAll(async () => {
-  w = await buildWorld();
+  w = await buildWorld({ ownCopy: true });
 }, 120_000);
 afterAll(async () => {
-  // Whatever happened above, the demo project is left in use for the files after this one.
+  // Whatever happened above, the project is left in use.
   if (w) {
     await restore();
     await w.db.end();

@@ -1,6 +1,7 @@
 /** Scenario writes through the real API: validation, optimistic concurrency, and nothing half-saved. */
 import { beforeAll, describe, expect, it } from "vitest";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
+import { appDatabase, freshScenario, freshTeam } from "../helpers/fresh-team";
 
 let projectId: string;
 let base: Record<string, unknown>;
@@ -66,6 +67,24 @@ describe("validation", () => {
   it("an unknown scenario id is 404, a malformed one too", async () => {
     expect((await call(`/api/scenarios/00000000-0000-4000-8000-000000000000`, { cookie: scheduler })).status).toBe(404);
     expect((await call(`/api/scenarios/not-a-uuid`, { cookie: scheduler })).status).toBe(404);
+  });
+});
+
+describe("the scenario list's order", () => {
+  it("lists scenarios saved at the same instant by name, whichever was written first", async () => {
+    const db = appDatabase();
+    try {
+      const team = await freshTeam(db, ["scheduler"]);
+      const cookie = await team.members[0].cookie();
+      for (const name of ["Cedar", "Alder", "Birch"]) await freshScenario(cookie, team.projectId, base, name);
+      // As the seed writes them: one transaction, one updated_at for all.
+      await db`UPDATE scenarios SET updated_at = '2026-11-02T08:00:00Z' WHERE project_id = ${team.projectId}`;
+      const list = await call(`/api/projects/${team.projectId}/scenarios`, { cookie });
+      expect(list.status).toBe(200);
+      expect(list.body.scenarios.map((s: { name: string }) => s.name)).toEqual(["Alder", "Birch", "Cedar"]);
+    } finally {
+      await db.end({ timeout: 5 });
+    }
   });
 });
 
