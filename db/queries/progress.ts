@@ -145,3 +145,17 @@ export async function getLatestReforecast({ scenarioId }: { scenarioId: string }
     .limit(1);
   return row ?? null;
 }
+
+/**
+ * The newest re-forecast's headline only (no results): the Outlook, which shows the plan run, says when the field
+ * log has moved the forecast on since.
+ */
+export async function getNewestReforecastHeadline({ scenarioId }: { scenarioId: string }) {
+  const [row] = await getDb()
+    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate), isForecast))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .limit(1);
+  return row ?? null;
+}

@@ -36,6 +36,7 @@ describe("your account", () => {
     await page.waitForURL(`${APP_URL}/account`);
     await page.getByRole("heading", { name: "Your account", level: 1 }).waitFor();
     expect(await page.getByTestId("other-sessions").textContent()).toContain("1 other browser is signed in");
+    expect(await page.getByRole("button", { name: "Sign out everywhere else" }).count()).toBe(1);
 
     await page.getByLabel("Name", { exact: true }).fill("");
     await page.getByRole("button", { name: "Save name and title" }).click();
@@ -56,6 +57,8 @@ describe("your account", () => {
     await page.getByRole("button", { name: "Change password" }).click();
     await page.getByText("Password changed. Other sessions are signed out.").waitFor();
     await expect.poll(() => page.getByTestId("other-sessions").textContent()).toContain("Only here");
+    // Nobody else is signed in: no button that would do nothing.
+    expect(await page.getByRole("button", { name: "Sign out everywhere else" }).count()).toBe(0);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "account");
 

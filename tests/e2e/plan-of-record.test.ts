@@ -1,6 +1,7 @@
 /**
  * The plan of record in Debian's Chromium: the owner's executive (viewer) reads on the project list which plan each
- * project is run by and its newest forecast in words; an administrator of a new project chooses one of its
+ * project is run by and its newest forecast in words, and the plan's Outlook says the same re-forecast above the
+ * plan run's charts; an administrator of a new project chooses one of its
  * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -31,6 +32,18 @@ describe("the plan of record", () => {
     expect(text).toMatch(/Re-forecast from the field log as of|Forecast run/);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "plan-of-record-list");
+
+    // The plan's Outlook shows the plan as run before work began; it says above its charts that the field log has
+    // moved the forecast on, with the same P80 finish the project list quotes.
+    const p80 = /P80 finish (\d{1,2} \w{3} \d{4})/.exec(text)![1];
+    await card.click();
+    await page.getByTestId("plan-of-record").getByRole("link", { name: "Kestrel Bay Causeway — two seasons" }).click();
+    const notice = page.getByTestId("newer-reforecast");
+    await notice.waitFor();
+    expect(await notice.textContent()).toMatch(new RegExp(`The field log has moved this forecast on\\..*P80 finish ${p80}.*Below is the plan as run on`));
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await notice.getByRole("link", { name: "Open the field log and its forecasts" }).click();
+    await page.waitForURL(/\/progress$/);
     await context.close();
   });
 

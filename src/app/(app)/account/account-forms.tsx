@@ -130,13 +130,17 @@ export function OtherSessions({ elsewhere }: { elsewhere: number }) {
     <section className="card" aria-labelledby="sessions-heading" data-testid="other-sessions">
       <h2 id="sessions-heading">Signed in elsewhere</h2>
       <p className="mt-1 text-sm">
-        {elsewhere === 0 ? "Only here: no other browser is signed in to your account." : `${elsewhere} other browser${elsewhere === 1 ? " is" : "s are"} signed in to your account.`}
-        {" "}If you left yourself signed in on a shared computer, or a phone was lost, sign out everywhere else.
+        {elsewhere === 0
+          ? "Only here: no other browser is signed in to your account, so there is nothing to sign out."
+          : `${elsewhere} other browser${elsewhere === 1 ? " is" : "s are"} signed in to your account. If you left yourself signed in on a shared computer, or a phone was lost, sign out everywhere else.`}
       </p>
       <div className="mt-3 flex flex-wrap items-center gap-3">
-        <button type="button" className="btn-secondary" disabled={end.isPending} onClick={() => end.mutate()}>
-          {end.isPending ? "Signing out…" : "Sign out everywhere else"}
-        </button>
+        {/* No button when nobody else is signed in: it would do nothing. The live region stays for its answer. */}
+        {elsewhere > 0 && (
+          <button type="button" className="btn-secondary" disabled={end.isPending} onClick={() => end.mutate()}>
+            {end.isPending ? "Signing out…" : "Sign out everywhere else"}
+          </button>
+        )}
         <p aria-live="polite" className="text-sm text-ok">
           {end.isSuccess ? `Signed out ${end.data.endedElsewhere} other session${end.data.endedElsewhere === 1 ? "" : "s"}.` : ""}
         </p>

@@ -13,23 +13,28 @@ import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
 import { parseScenario } from "@sim/validate";
 import { weatherFeasibility } from "@sim/feasibility";
+import { getNewestReforecastHeadline } from "@db/queries/progress";
+import { NewerReforecastNotice } from "@/components/results/newer-reforecast-notice";
 
 export const metadata: Metadata = { title: "Outlook" };
 
 export default async function OutlookPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const { scenario, role, archived } = await orNotFound(requireScenario(scenarioId, "read"));
-  const { forecast, unverified } = await getOutlookRuns({ scenarioId });
+  const [{ forecast, unverified }, reforecast] = await Promise.all([getOutlookRuns({ scenarioId }), getNewestReforecastHeadline({ scenarioId })]);
   // A newer browser run is shown at once, marked as not verified; a rejected one is never shown as the forecast.
   const pending = unverified?.verification === "pending" ? unverified : null;
   const run = pending ?? forecast;
   const stale = !!run && run.stale;
+  // A re-forecast newer than the run shown is the scenario's current forecast: say so above the plan's charts.
+  const newerReforecast = reforecast && (!run || new Date(reforecast.createdAt) > new Date(run.createdAt)) ? reforecast : null;
   const parsed = parseScenario(scenario.definition);
   // A plan the weather never lets finish is said in words here, before anyone starts a run.
   const blockers = parsed.ok ? weatherFeasibility(parsed.scenario).map((p) => p.message) : [];
   return (
     <div className="space-y-5">
       <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario", archived)} blockers={blockers} />
+      {newerReforecast && <NewerReforecastNotice scenarioId={scenario.id} reforecast={newerReforecast} shownRunAt={run?.createdAt ?? null} />}
       {unverified?.verification === "rejected" && (
         <p className="rounded-md border border-bad/30 bg-bad/10 px-4 py-2 text-sm" role="alert" data-testid="rejected-run">
           The run of {formatDateTime(unverified.createdAt)} ({unverified.iterations.toLocaleString("en-US")} iterations, seed “{unverified.seed}”) did not match the server’s
@@ -72,7 +77,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
                 </a>
               </nav>
               <p className="text-sm text-muted">
-                <VerificationBadge verification={run.verification} /> {pending ? "Newest run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”,{" "}
+                <VerificationBadge verification={run.verification} /> {pending ? "Newest run" : newerReforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”,{" "}
                 {formatDateTime(run.createdAt)}
                 {run.createdByName ? ` by ${run.createdByName}` : ""}.
               </p>
