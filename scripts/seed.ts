@@ -161,7 +161,13 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
         const inspectorId = ids[demoUsers.findIndex((u) => u.role === "inspector")];
         const inserted = await tx
           .insert(progressEntries)
-          .values(fieldLog.map((e) => ({ projectId: kestrel.id, scenarioId: row.id, ...e, enteredById: inspectorId, createdAt: noonOf(parseIsoDate(e.workDate) + 1) })))
+          .values(
+            fieldLog.map((e) => {
+              // Recorded (and last changed) the day after the shift: no re-forecast made after that misses it.
+              const at = noonOf(parseIsoDate(e.workDate) + 1);
+              return { projectId: kestrel.id, scenarioId: row.id, ...e, enteredById: inspectorId, createdAt: at, updatedAt: at };
+            }),
+          )
           .returning({ id: progressEntries.id });
         await tx.insert(progressHistory).values(inserted.map((r, i) => ({ entryId: r.id, changedById: inspectorId, before: null, after: fieldLog[i], changedAt: noonOf(parseIsoDate(fieldLog[i].workDate) + 1) })));
         for (const { headline: _h, reforecast: _r, ...columns } of reforecasts) {

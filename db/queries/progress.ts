@@ -124,6 +124,18 @@ export async function listReforecastRuns({ scenarioId }: { scenarioId: string })
     .orderBy(asc(simulationRuns.dataDate), asc(simulationRuns.createdAt));
 }
 
+/**
+ * How many of a scenario's field-log shifts a forecast does not know, as a column of any select over
+ * simulation_runs: shifts worked after its data date (a plan run has none: it knows no shift), or recorded or
+ * corrected after it was run. Above zero, the forecast is behind the field: the one place this rule is written.
+ * A shift deleted since is not counted (deleting leaves no row to count).
+ */
+export const shiftsNotInRun = sql<number>`(
+  SELECT count(*)::int FROM ${progressEntries} pe
+  WHERE pe.scenario_id = ${simulationRuns.scenarioId}
+    AND (pe.work_date > coalesce(${simulationRuns.dataDate}, '-infinity'::date) OR pe.updated_at > ${simulationRuns.createdAt})
+)`;
+
 /** The newest plan run (no data date): the drift chart's first point. */
 export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
@@ -138,7 +150,7 @@ export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
 /** The latest re-forecast's full results (for the chart with actuals). */
 export async function getLatestReforecast({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
-    .select({ id: simulationRuns.id, dataDate: simulationRuns.dataDate, scenarioVersion: simulationRuns.scenarioVersion, results: simulationRuns.results, createdAt: simulationRuns.createdAt })
+    .select({ id: simulationRuns.id, dataDate: simulationRuns.dataDate, scenarioVersion: simulationRuns.scenarioVersion, results: simulationRuns.results, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate)))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
@@ -152,7 +164,7 @@ export async function getLatestReforecast({ scenarioId }: { scenarioId: string }
  */
 export async function getNewestReforecastHeadline({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
-    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
+    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate), isForecast))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))

@@ -4,11 +4,12 @@ import { alias } from "drizzle-orm/pg-core";
 import { getDb, prepared } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users, type Role } from "../schema";
 import { isForecast } from "./runs";
+import { shiftsNotInRun } from "./progress";
 
 /**
  * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
  * newest forecast — a plan run or a re-forecast from the field log, whichever came last — with whether the plan
- * changed after it, and the forecast before that one. The caller left-joins `plan` on projects.plan_scenario_id, and
+ * changed after it, how many field-log shifts it does not know, and the forecast before that one. The caller left-joins `plan` on projects.plan_scenario_id, and
  * `planRun` and `previousRun` laterally.
  */
 function planOfRecordParts(db: ReturnType<typeof getDb>) {
@@ -19,6 +20,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
       at: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("plan_run_at"),
       dataDate: sql<string | null>`${simulationRuns.dataDate}`.as("plan_run_data_date"),
       version: sql<number>`${simulationRuns.scenarioVersion}`.as("plan_run_version"),
+      shiftsNotIn: sql<number>`${shiftsNotInRun}`.as("plan_run_shifts_not_in"),
     })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
@@ -41,6 +43,8 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     planRunAt: planRun.at,
     planRunDataDate: planRun.dataDate,
     planRunStale: sql<boolean | null>`(${planRun.version} <> ${plan.version})`,
+    /** Field-log shifts the newest forecast does not know (progress.ts `shiftsNotInRun`). */
+    planRunShiftsNotIn: planRun.shiftsNotIn,
     previousRunSummary: previousRun.summary,
   };
   return { plan, planRun, previousRun, columns };

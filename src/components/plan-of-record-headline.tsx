@@ -13,6 +13,8 @@ export interface PlanOfRecordView {
   planRunDataDate: string | null;
   /** The plan changed after that forecast. */
   planRunStale: boolean | null;
+  /** Field-log shifts that forecast does not know (db/queries/progress.ts `shiftsNotInRun`). */
+  planRunShiftsNotIn?: number | null;
   /** The forecast before the newest, to say how far the finish moved (null: the newest is the only one). */
   previousRunSummary?: RunHeadline | Record<string, unknown> | null;
 }
@@ -30,6 +32,11 @@ export function p80MoveText(now: string | undefined, before: string | undefined)
   if (days === 0) return "unchanged since the previous forecast";
   const n = Math.abs(days);
   return `${n.toLocaleString("en-US")} day${n === 1 ? "" : "s"} ${days > 0 ? "later" : "earlier"} than the previous forecast`;
+}
+
+/** "3 shifts in the field log are not in this forecast" — said wherever a forecast is behind the field. */
+export function shiftsNotInText(n: number): string {
+  return `${n.toLocaleString("en-US")} shift${n === 1 ? "" : "s"} in the field log ${n === 1 ? "is" : "are"} not in this forecast`;
 }
 
 /**
@@ -62,6 +69,7 @@ export function PlanOfRecordHeadline({ plan, link = false }: { plan: PlanOfRecor
       <p className="mt-0.5 text-xs text-muted">
         {plan.planRunDataDate ? `Re-forecast from the field log as of ${formatIsoDate(plan.planRunDataDate)}, run ${formatDateTime(plan.planRunAt)}` : `Forecast run ${formatDateTime(plan.planRunAt)}`}
         {plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}
+        {plan.planRunShiftsNotIn ? ` ${shiftsNotInText(plan.planRunShiftsNotIn)}.` : ""}
       </p>
     </div>
   );

@@ -80,6 +80,8 @@ describe("field log", () => {
     const engineer = await signedIn("engineer");
     await new ScenarioPage(engineer, scenarioId).open("progress");
     await engineer.getByTestId("progress-table").waitFor();
+    // Three shifts and no re-forecast yet: the field log says they are in no forecast, and asks this engineer.
+    expect(await engineer.getByTestId("behind-field").textContent()).toBe("No re-forecast yet: the 3 shifts recorded are in no forecast. Re-forecast above to bring it up to date.");
     await engineer.locator("#reforecast-date").fill(day(2));
     await engineer.locator("#reforecast-iterations").selectOption("500");
     await engineer.getByTestId("reforecast-button").click();
@@ -89,6 +91,8 @@ describe("field log", () => {
     await expect.poll(() => drift.locator("tbody tr").count(), { timeout: 15_000 }).toBe(2);
     expect(await drift.locator("tbody tr").first().locator("th").textContent()).toBe("Plan");
     await engineer.getByTestId("reforecast-digest").waitFor();
+    // The re-forecast from day 2 knows all three shifts.
+    expect(await engineer.getByTestId("behind-field").count()).toBe(0);
     await screenshot(engineer, "forecast-drift");
     expect(await seriousA11yViolations(engineer)).toEqual([]);
   });

@@ -97,6 +97,13 @@ describe("seed", () => {
     expect(starts.map((r) => r.d)).toEqual(["2026-04-06", "2027-04-05"]);
     const [late] = await sql`SELECT count(*)::int AS n FROM simulation_runs WHERE data_date >= '2026-12-02'`;
     expect(late.n).toBe(0);
+    // The newest re-forecast knows the whole seeded log: every shift worked by its data date and recorded (and last
+    // changed) before it was run — so the demo's plan of record is not said to be behind the field.
+    const [behind] = await sql`
+      SELECT count(*)::int AS n FROM progress_entries pe,
+        (SELECT data_date, created_at FROM simulation_runs WHERE data_date IS NOT NULL ORDER BY created_at DESC LIMIT 1) r
+      WHERE pe.work_date > r.data_date OR pe.updated_at > r.created_at`;
+    expect(behind.n).toBe(0);
     const roles = await sql`SELECT DISTINCT role::text FROM project_members ORDER BY 1`;
     expect(roles.map((r) => r.role)).toEqual(["admin", "engineer", "inspector", "scheduler", "viewer"]);
   });

@@ -145,6 +145,40 @@ describe("re-forecast", () => {
   });
 });
 
+describe("a forecast behind the field", () => {
+  it("counts the field-log shifts the plan of record's newest forecast does not know: worked after its data date, or recorded or corrected since it was run", async () => {
+    // A project of the engineer's own (its administrator): the plan of record of the demo is not this test's to change.
+    const made = await call("/api/projects", { method: "POST", cookie: engineer, body: { name: `Dunlin Creek Bridge ${Date.now()}`, structureName: "Dunlin Creek Bridge", deckLengthFt: 1000, startStationFt: 0, lanes: "L1, L2" } });
+    expect(made.status).toBe(201);
+    const own = made.body.id as string;
+    const s = await createPastScenario(engineer, own, "Behind the field");
+    expect((await call(`/api/projects/${own}/plan-of-record`, { method: "PUT", cookie: engineer, body: { planScenarioId: s.id } })).status).toBe(200);
+    const notIn = async () => (await call("/api/projects", { cookie: engineer })).body.projects.find((p: { id: string }) => p.id === own).planRunShiftsNotIn;
+    const forecast = async (path: string, body: Record<string, unknown>) => {
+      const queued = await call(`/api/scenarios/${s.id}/${path}`, { method: "POST", cookie: engineer, body: { seed: "behind", iterations: 20, ...body } });
+      expect(queued.status).toBe(202);
+      expect((await waitForJob(queued.body.job.id, engineer)).status).toBe("completed");
+    };
+
+    const first = await post(s.id, milling(), engineer);
+    expect(first.status).toBe(201);
+    await forecast("runs", {});
+    expect(await notIn()).toBe(1); // a plan run knows no shift of the field log
+    await forecast("reforecast", { dataDate: day(2) });
+    expect(await notIn()).toBe(0);
+    const second = await post(s.id, milling({ workDate: day(3), fromStationFt: 300, toStationFt: 600 }), engineer);
+    expect(second.status).toBe(201);
+    expect(await notIn()).toBe(1); // worked after the data date
+    const corrected = await call(`/api/progress/${first.body.id}`, { method: "PUT", cookie: engineer, body: { ...milling({ crew: "M2" }), version: 1 } });
+    expect(corrected.status).toBe(200);
+    expect(await notIn()).toBe(2); // worked before it, corrected since
+    expect((await call(`/api/progress/${second.body.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
+    expect(await notIn()).toBe(1);
+    await forecast("reforecast", { dataDate: day(3) });
+    expect(await notIn()).toBe(0);
+  });
+});
+
 describe("the seeded demo is a job under way", () => {
   it("has a field log and drift history before today, and the inspector can log today's shift", async () => {
     const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: viewer });

@@ -1,11 +1,14 @@
 import Link from "next/link";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
+import { shiftsNotInText } from "@/components/plan-of-record-headline";
 
 export interface ReforecastHeadline {
   dataDate: string | null;
   summary: RunHeadline | Record<string, unknown>;
   createdAt: Date | string;
+  /** Field-log shifts it does not know (db/queries/progress.ts `shiftsNotInRun`). */
+  shiftsNotIn: number;
 }
 
 /**
@@ -22,6 +25,7 @@ export function NewerReforecastNotice({ scenarioId, reforecast, shownRunAt }: { 
         <strong>The field log has moved this forecast on.</strong> Re-forecast from the work recorded up to {reforecast.dataDate ? formatIsoDate(reforecast.dataDate) : "its data date"} (run{" "}
         {formatDateTime(reforecast.createdAt)}): P80 finish <strong>{formatIsoDate(h.finish.p80)}</strong> (P50 {formatIsoDate(h.finish.p50)})
         {h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability)} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : ""}.
+        {reforecast.shiftsNotIn > 0 ? ` ${shiftsNotInText(reforecast.shiftsNotIn)}.` : ""}
       </p>
       <p className="mt-1">
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}

@@ -15,6 +15,7 @@ import { ProgressForm, type PlanFacts } from "./progress-form";
 import { lastRecorded } from "./entry-defaults";
 import { ProgressTable, type EntryView } from "./progress-table";
 import { ReforecastPanel } from "./reforecast-panel";
+import { BehindFieldNotice } from "./behind-field-notice";
 import { orNotFound } from "@/lib/server/page-access";
 import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
 import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
@@ -102,6 +103,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           forecast — each hour&apos;s chance of rain decides, iteration by iteration, whether it rains — and the climate profile takes over after them.
         </p>
         {canRun && <ReforecastPanel scenarioId={scenario.id} defaultDate={lastDate || plan.startDate} minDate={plan.startDate} maxDate={facts.today} />}
+        <BehindFieldNotice shiftsNotIn={latestRe?.shiftsNotIn ?? null} dataDate={latestRe?.dataDate ?? null} shiftsRecorded={entries.length} whoCanRun={canRun ? "you" : archived ? "nobody" : "others"} />
         {digest && (
           <p className="text-sm" data-testid="reforecast-digest">
             Latest re-forecast from {formatIsoDate(latestRe!.dataDate)}: {digest.entriesUsed} shifts used; {digest.discovery.found} of {digest.discovery.inspected} inspected
