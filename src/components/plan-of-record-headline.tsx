@@ -35,8 +35,8 @@ export function p80MoveText(now: string | undefined, before: string | undefined)
 }
 
 /** "3 shifts in the field log are not in this forecast" — said wherever a forecast is behind the field. */
-export function shiftsNotInText(n: number): string {
-  return `${n.toLocaleString("en-US")} shift${n === 1 ? "" : "s"} in the field log ${n === 1 ? "is" : "are"} not in this forecast`;
+export function shiftsNotInText(n: number, forecast = "this forecast"): string {
+  return `${n.toLocaleString("en-US")} shift${n === 1 ? "" : "s"} in the field log ${n === 1 ? "is" : "are"} not in ${forecast}`;
 }
 
 /**

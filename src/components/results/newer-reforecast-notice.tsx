@@ -25,7 +25,7 @@ export function NewerReforecastNotice({ scenarioId, reforecast, shownRunAt }: { 
         <strong>The field log has moved this forecast on.</strong> Re-forecast from the work recorded up to {reforecast.dataDate ? formatIsoDate(reforecast.dataDate) : "its data date"} (run{" "}
         {formatDateTime(reforecast.createdAt)}): P80 finish <strong>{formatIsoDate(h.finish.p80)}</strong> (P50 {formatIsoDate(h.finish.p50)})
         {h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability)} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : ""}.
-        {reforecast.shiftsNotIn > 0 ? ` ${shiftsNotInText(reforecast.shiftsNotIn)}.` : ""}
+        {reforecast.shiftsNotIn > 0 ? ` ${shiftsNotInText(reforecast.shiftsNotIn, "that re-forecast")}.` : ""}
       </p>
       <p className="mt-1">
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}

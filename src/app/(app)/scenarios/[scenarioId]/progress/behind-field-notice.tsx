@@ -21,7 +21,7 @@ export function BehindFieldNotice(props: { shiftsNotIn: number | null; dataDate:
   if (!shiftsNotIn) return null;
   return (
     <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="behind-field">
-      The field has moved past the latest re-forecast (from {formatIsoDate(dataDate)}): {shiftsNotInText(shiftsNotIn)} — worked after its data date, or recorded or
+      The field has moved past the latest re-forecast (from {formatIsoDate(dataDate)}): {shiftsNotInText(shiftsNotIn, "it")} — worked after its data date, or recorded or
       corrected since it was run.{ask}
     </p>
   );
