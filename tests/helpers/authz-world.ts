@@ -134,7 +134,7 @@ export async function buildWorld(options: { ownCopy?: boolean } = {}): Promise<W
   const projectId = options.ownCopy ? await copyOfProject(db, kestrelId) : kestrelId;
   const projects = must(await call("/api/projects", { cookie: admin }), 200, "projects").projects as { id: string; name: string }[];
   const ternProjectId = projects.find((p) => p.name.includes("Tern"))!.id;
-  const base = await demoDefinition(admin, projectId);
+  const base = await demoDefinition(admin, kestrelId);
   await forgetRecentMail(projectId);
 
   // The stranger: administrator of a project of their own, never a member of Kestrel.
