@@ -88,6 +88,11 @@ export const projects = pgTable("projects", {
    * administrator or engineer; null = none yet). Its latest forecast is the project's headline on the project list.
    */
   planScenarioId: uuid("plan_scenario_id").references((): AnyPgColumn => scenarios.id, { onDelete: "set null" }),
+  /**
+   * The newest forecast of the plan of record that its forecast e-mail has gone out for (or that stood when the plan
+   * was chosen): a newer one is announced once to the members who asked (src/lib/server/forecast-alerts.ts).
+   */
+  planAnnouncedRunId: uuid("plan_announced_run_id").references((): AnyPgColumn => simulationRuns.id, { onDelete: "set null" }),
 });
 export type Project = InferSelectModel<typeof projects>;
 
@@ -102,6 +107,8 @@ export const projectMembers = pgTable(
       .references(() => users.id, { onDelete: "cascade" }),
     role: roleEnum("role").notNull(),
     addedAt: ts("added_at").notNull().defaultNow(),
+    /** This member asked for an e-mail with each new forecast of the project's plan of record. */
+    forecastAlerts: boolean("forecast_alerts").notNull().default(false),
   },
   (t) => [primaryKey({ columns: [t.projectId, t.userId] })],
 );

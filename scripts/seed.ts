@@ -177,6 +177,12 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
       // Next season's plan was run today, and is that project's plan of record.
       const next = await insertScenario(southApproach.id, staged.raw, staged.scenario, stagedRun, noonOf(parseIsoDate(today)));
       await tx.update(projects).set({ planScenarioId: next.id }).where(eq(projects.id, southApproach.id));
+      // The demo's forecasts are its history, not news: none is e-mailed to members who ask for forecast e-mails.
+      await tx.execute(sql`
+        UPDATE projects p SET plan_announced_run_id = (
+          SELECT r.id FROM simulation_runs r
+          WHERE r.scenario_id = p.plan_scenario_id AND r.verification IN ('server', 'verified')
+          ORDER BY r.created_at DESC, r.id DESC LIMIT 1)`);
     });
     return "seeded";
   } finally {

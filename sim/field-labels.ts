@@ -123,6 +123,7 @@ const LABELS: Record<string, string | [string, string]> = {
   title: "Title",
   archived: "Archived",
   planScenarioId: "Plan of record",
+  forecastAlerts: "Forecast e-mails",
   workDate: "Work date",
   operationId: "Operation",
   crew: "Crew",

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, isNull, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb, prepared } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users, type Role } from "../schema";
@@ -16,6 +16,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
   const plan = alias(scenarios, "plan");
   const planRun = db
     .select({
+      id: sql<string>`${simulationRuns.id}`.as("plan_run_id"),
       summary: sql<Record<string, unknown>>`${simulationRuns.summary}`.as("plan_run_summary"),
       at: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("plan_run_at"),
       dataDate: sql<string | null>`${simulationRuns.dataDate}`.as("plan_run_data_date"),
@@ -76,6 +77,40 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
     .orderBy(asc(projects.name));
 }
 
+/** The id of a scenario's newest forecast (a plan run or re-forecast the server stands behind), as SQL; null for none. */
+function newestForecastOf(scenarioId: string | null | SQL) {
+  return sql`(select ${simulationRuns.id} from ${simulationRuns} where ${simulationRuns.scenarioId} = ${scenarioId}::uuid and ${isForecast} order by ${simulationRuns.createdAt} desc, ${simulationRuns.id} desc limit 1)`;
+}
+
+/**
+ * Plans of record whose newest forecast has not been announced yet, on projects in use, with the headline the
+ * e-mail says (planOfRecordParts) and the announced run it replaces (for the claim).
+ */
+export async function listUnannouncedPlanForecasts() {
+  const db = getDb();
+  const { plan, planRun, previousRun, columns } = planOfRecordParts(db);
+  return db
+    .select({ projectId: projects.id, projectName: projects.name, announcedRunId: projects.planAnnouncedRunId, newestRunId: planRun.id, ...columns })
+    .from(projects)
+    .innerJoin(plan, eq(plan.id, projects.planScenarioId))
+    .leftJoinLateral(planRun, sql`true`)
+    .leftJoinLateral(previousRun, sql`true`)
+    .where(and(isNull(projects.archivedAt), isNotNull(planRun.id), sql`${planRun.id} is distinct from ${projects.planAnnouncedRunId}`));
+}
+
+/**
+ * Moves the project's announced forecast from `from` to `to`, only if nobody did meanwhile: true for the one
+ * caller (of several server processes) that gets to send the e-mails, inside its transaction.
+ */
+export async function claimPlanAnnouncement({ tx, projectId, from, to }: { tx: Pick<ReturnType<typeof getDb>, "update">; projectId: string; from: string | null; to: string }) {
+  const rows = await tx
+    .update(projects)
+    .set({ planAnnouncedRunId: to })
+    .where(and(eq(projects.id, projectId), sql`${projects.planAnnouncedRunId} is not distinct from ${from}::uuid`))
+    .returning({ id: projects.id });
+  return rows.length === 1;
+}
+
 /** One project's plan-of-record headline (see planOfRecordParts); null when there is no such project. */
 export async function getPlanOfRecord({ projectId }: { projectId: string }) {
   const db = getDb();
@@ -129,7 +164,13 @@ export async function updateProject({ projectId, project }: { projectId: string;
 export async function setPlanOfRecord({ projectId, scenarioId }: { projectId: string; scenarioId: string | null }): Promise<"ok" | "no_scenario" | "no_project"> {
   const db = getDb();
   const own = scenarioId === null ? sql`true` : sql`exists (select 1 from ${scenarios} where ${scenarios.id} = ${scenarioId} and ${scenarios.projectId} = ${projectId})`;
-  const [row] = await db.update(projects).set({ planScenarioId: scenarioId }).where(and(eq(projects.id, projectId), own)).returning({ id: projects.id });
+  // A newly chosen plan's forecast as it stands is not news: only forecasts made after the choice are e-mailed.
+  const announced = sql`case when ${projects.planScenarioId} is not distinct from ${scenarioId}::uuid then ${projects.planAnnouncedRunId} else ${newestForecastOf(scenarioId)} end`;
+  const [row] = await db
+    .update(projects)
+    .set({ planScenarioId: scenarioId, planAnnouncedRunId: announced })
+    .where(and(eq(projects.id, projectId), own))
+    .returning({ id: projects.id });
   if (row) return "ok";
   return (await getProject({ id: projectId })) ? "no_scenario" : "no_project";
 }

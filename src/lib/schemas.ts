@@ -112,6 +112,9 @@ export const projectArchiveSchema = z.object({ archived: z.boolean({ error: "mus
 /** The project's plan of record: one of its scenarios, or null for none. */
 export const planOfRecordSchema = z.object({ planScenarioId: z.uuid("must name one of the project's scenarios").nullable() }).strict();
 
+/** A member's own choice: an e-mail with each new forecast of the project's plan of record, or not. */
+export const forecastAlertsSchema = z.object({ forecastAlerts: z.boolean({ error: "must be true (send them) or false (stop them)" }) }).strict();
+
 export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
 /** An invitation names a person and a role like adding a member does; the same contract. */
 export const invitationSchema = memberSchema;

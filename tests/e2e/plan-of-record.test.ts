@@ -2,7 +2,8 @@
  * The plan of record in Debian's Chromium: the owner's executive (viewer) reads on the project list which plan each
  * project is run by and its newest forecast in words, and the plan's Outlook says the same re-forecast above the
  * plan run's charts; an administrator of a new project chooses one of its
- * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list.
+ * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list,
+ * and asks for an e-mail with each new forecast of it.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
@@ -65,7 +66,13 @@ describe("the plan of record", () => {
     await expect.poll(() => section.textContent()).toContain("Weekend closures: not run yet.");
     await expect.poll(() => page.getByRole("row", { name: /Weekend closures/ }).textContent()).toContain("Plan of record");
     expect(await page.getByRole("row", { name: /Nights only/ }).textContent()).not.toContain("Plan of record");
+    // Each member may ask for an e-mail with each new forecast of it: saved as ticked, kept on reload.
+    const alerts = page.getByTestId("forecast-alerts");
+    await alerts.getByLabel("E-mail me each new forecast of the plan of record").check();
+    await alerts.getByText("Forecast e-mails on.").waitFor();
     expect(await seriousA11yViolations(page)).toEqual([]);
+    await page.reload();
+    expect(await page.getByLabel("E-mail me each new forecast of the plan of record").isChecked()).toBe(true);
     // The scenario's own page says so beside its name.
     await page.getByRole("row", { name: /Weekend closures/ }).getByRole("link", { name: "Weekend closures" }).click();
     await page.getByRole("heading", { name: "Weekend closures", level: 1 }).waitFor();

@@ -167,6 +167,12 @@ export const API_ROWS: Record<string, ApiRow> = {
       return { params: proj(w), body: { planScenarioId: row.plan_scenario_id } };
     },
   },
+  // Sends "off", as every demo member has it: allowed for every role (a person's own inbox), it changes nothing others read.
+  "PUT /api/projects/[projectId]/forecast-alerts": {
+    need: { kind: "project", action: "read" },
+    ok: 200,
+    request: async (w) => ({ params: proj(w), body: { forecastAlerts: false } }),
+  },
   "GET /api/projects/[projectId]/scenarios": { need: { kind: "project", action: "read" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
   "POST /api/projects/[projectId]/scenarios": {
     need: { kind: "project", action: "editScenario" },

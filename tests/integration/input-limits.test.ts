@@ -197,7 +197,7 @@ describe("the work budget, before any run", () => {
   });
 });
 
-describe("the small PUT routes (one's account, a project's archive and plan of record): the same checks, a smaller limit", () => {
+describe("the small PUT routes (one's account, a project's archive, plan of record and forecast e-mails): the same checks, a smaller limit", () => {
   // Each on an account or project of its own, so a body that is valid by mistake changes nothing another test reads.
   let routes: { path: string; cookie: string; valid: Record<string, unknown>; textField: string; limit: string }[];
   beforeAll(async () => {
@@ -208,6 +208,7 @@ describe("the small PUT routes (one's account, a project's archive and plan of r
       { path: `/api/projects/${own.body.id}`, cookie: scheduler, valid: { name: "Body checks project", structureName: "S", deckLengthFt: 500, startStationFt: 0, lanes: "L1" }, textField: "region", limit: "64 KB" },
       { path: `/api/projects/${own.body.id}/archive`, cookie: scheduler, valid: { archived: false }, textField: "archived", limit: "1 KB" },
       { path: `/api/projects/${own.body.id}/plan-of-record`, cookie: scheduler, valid: { planScenarioId: null }, textField: "planScenarioId", limit: "1 KB" },
+      { path: `/api/projects/${own.body.id}/forecast-alerts`, cookie: scheduler, valid: { forecastAlerts: false }, textField: "forecastAlerts", limit: "1 KB" },
     ];
   });
 

@@ -1,11 +1,13 @@
 /**
  * How far the plan of record's P80 finish moved between two forecasts, in words: calendar days, checked against
  * plain day counting from the Unix epoch (a reference of our own, independent of date-fns) for any two dates
- * 1990–2100; a time of day after the date does not count.
+ * 1990–2100; a time of day after the date does not count. And the sentence the project list and the forecast
+ * e-mail build from a plan of record's newest forecast.
  */
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { p80MoveText } from "../../src/components/plan-of-record-headline";
+import { p80MoveText, planForecastText } from "../../src/lib/plan-of-record-text";
+import { forecastAlertMail } from "../../src/lib/server/mail/forecast-alert-mail";
 
 const dayNumber = (iso: string) => Date.UTC(Number(iso.slice(0, 4)), Number(iso.slice(5, 7)) - 1, Number(iso.slice(8, 10))) / 86_400_000;
 const isoOf = (n: number) => new Date(n * 86_400_000).toISOString().slice(0, 10);
@@ -34,5 +36,44 @@ describe("p80MoveText", () => {
     expect(p80MoveText(undefined, "2027-08-23")).toBeNull();
     expect(p80MoveText("2027-08-23", undefined)).toBeNull();
     expect(p80MoveText("not a date", "2027-08-23")).toBeNull();
+  });
+});
+
+describe("the plan of record's forecast in words (the project list's and the forecast e-mail's)", () => {
+  const headline = { iterations: 2000, finish: { p10: "2027-08-01", p50: "2027-08-15", p80: "2027-08-23", p90: "2027-08-30" }, targetDate: "2027-07-02", targetProbability: 0, closureHoursTotal: 1, weatherLostShiftsP50: 1 };
+  const plan = {
+    planScenarioId: "p",
+    planName: "Two seasons",
+    planRunSummary: headline,
+    planRunAt: "2026-11-01T12:00:00",
+    planRunDataDate: "2026-10-31",
+    planRunStale: false,
+    planRunShiftsNotIn: 0,
+    previousRunSummary: { ...headline, finish: { ...headline.finish, p80: "2027-08-13" } },
+  };
+
+  it("says the P80 and P50, the move, the target chance and which forecast", () => {
+    expect(planForecastText(plan)).toEqual({
+      p80: "23 Aug 2027",
+      rest: " (P50 15 Aug 2027), 10 days later than the previous forecast; 0\u00a0% chance of finishing by the 2 Jul 2027 target.",
+      when: "Re-forecast from the field log as of 31 Oct 2026, run 1 Nov 2026, 12:00.",
+    });
+  });
+
+  it("says when the plan changed after it and how many field-log shifts it does not know; nothing when not run", () => {
+    expect(planForecastText({ ...plan, planRunStale: true, planRunShiftsNotIn: 3, planRunDataDate: null, previousRunSummary: null })?.when).toBe(
+      "Forecast run 1 Nov 2026, 12:00; the plan has changed since, so this forecast is stale. 3 shifts in the field log are not in this forecast.",
+    );
+    expect(planForecastText({ ...plan, planRunSummary: null, planRunAt: null })).toBeNull();
+  });
+
+  it("the e-mail says the same sentence, links the plan, and escapes what people typed in its HTML", () => {
+    const mail = forecastAlertMail({ to: "a@b.example", projectName: "Deck <b>overlay</b>", plan: { ...plan, planName: "Plan & co" }, planLink: "http://x/scenarios/p", projectLink: "http://x/projects/q" })!;
+    expect(mail.subject).toBe("Forecast: Deck <b>overlay</b> — P80 finish 23 Aug 2027");
+    expect(mail.text).toContain("Plan & co: P80 finish 23 Aug 2027 (P50 15 Aug 2027), 10 days later than the previous forecast;");
+    expect(mail.text).toContain("http://x/scenarios/p");
+    expect(mail.html).toContain("Deck &lt;b&gt;overlay&lt;/b&gt;");
+    expect(mail.html).not.toContain("<b>overlay");
+    expect(forecastAlertMail({ to: "a@b.example", projectName: "x", plan: { ...plan, planRunSummary: null }, planLink: "", projectLink: "" })).toBeNull();
   });
 });

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
-import { shiftsNotInText } from "@/components/plan-of-record-headline";
+import { shiftsNotInText } from "@/lib/plan-of-record-text";
 
 export interface ReforecastHeadline {
   dataDate: string | null;

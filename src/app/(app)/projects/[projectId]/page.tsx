@@ -15,14 +15,16 @@ import { getPlanOfRecord } from "@db/queries/projects";
 import { listProjectScenarios } from "@db/queries/scenarios";
 import { PlanOfRecordHeadline } from "@/components/plan-of-record-headline";
 import { PlanOfRecordPicker } from "./plan-of-record-picker";
+import { ForecastAlertsToggle } from "./forecast-alerts-toggle";
+import { getForecastAlerts } from "@db/queries/forecast-alerts";
 
 export const metadata: Metadata = { title: "Project" };
 
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
-  const { project, role, archived } = access;
-  const plan = await getPlanOfRecord({ projectId: project.id });
+  const { project, role, archived, user } = access;
+  const [plan, alertsOn] = await Promise.all([getPlanOfRecord({ projectId: project.id }), getForecastAlerts({ projectId: project.id, userId: user.id })]);
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
@@ -59,6 +61,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         {can(role, "editProject", archived) && (
           <PlanOfRecordPicker projectId={project.id} current={project.planScenarioId} scenarios={(await listProjectScenarios({ projectId: project.id })).map((s) => ({ id: s.id, name: s.name }))} />
         )}
+        <ForecastAlertsToggle projectId={project.id} initial={alertsOn} email={user.email} archived={archived} />
       </section>
       <ScenarioTable projectId={project.id} canEdit={can(role, "editScenario", archived)} planScenarioId={project.planScenarioId} />
       <LocationForm projectId={project.id} latitude={project.latitude} longitude={project.longitude} canEdit={can(role, "editProject", archived)} />

@@ -1,5 +1,5 @@
 import { formatIsoDate } from "@/lib/format";
-import { shiftsNotInText } from "@/components/plan-of-record-headline";
+import { shiftsNotInText } from "@/lib/plan-of-record-text";
 
 /**
  * Says when the field log has moved past the latest re-forecast (shifts worked after its data date, or recorded or

@@ -1,0 +1,62 @@
+/**
+ * A plan of record's newest forecast in words — one wording for the project list, the project page and the
+ * forecast e-mail, so what an executive reads on screen and in the inbox is the same sentence.
+ */
+import { differenceInCalendarDays, isValid, parseISO } from "date-fns";
+import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
+import type { RunHeadline } from "@/lib/run-record";
+
+/** A project's plan of record and its newest forecast, as db/queries/projects.ts `planOfRecordParts` selects them. */
+export interface PlanOfRecordView {
+  planScenarioId: string | null;
+  planName: string | null;
+  planRunSummary: RunHeadline | Record<string, unknown> | null;
+  planRunAt: Date | string | null;
+  /** Set when the newest forecast is a re-forecast from the field log: its data date. */
+  planRunDataDate: string | null;
+  /** The plan changed after that forecast. */
+  planRunStale: boolean | null;
+  /** Field-log shifts that forecast does not know (db/queries/progress.ts `shiftsNotInRun`). */
+  planRunShiftsNotIn?: number | null;
+  /** The forecast before the newest, to say how far the finish moved (null: the newest is the only one). */
+  previousRunSummary?: RunHeadline | Record<string, unknown> | null;
+}
+
+/**
+ * How the P80 finish moved from one forecast to the next, in words: "12 days later than the previous forecast",
+ * "3 days earlier …", "unchanged …"; null when either date is missing. Calendar days between the dates.
+ */
+export function p80MoveText(now: string | undefined, before: string | undefined): string | null {
+  if (!now || !before) return null;
+  const a = parseISO(now.slice(0, 10));
+  const b = parseISO(before.slice(0, 10));
+  if (!isValid(a) || !isValid(b)) return null;
+  const days = differenceInCalendarDays(a, b);
+  if (days === 0) return "unchanged since the previous forecast";
+  const n = Math.abs(days);
+  return `${n.toLocaleString("en-US")} day${n === 1 ? "" : "s"} ${days > 0 ? "later" : "earlier"} than the previous forecast`;
+}
+
+/** "3 shifts in the field log are not in this forecast" — said wherever a forecast is behind the field. */
+export function shiftsNotInText(n: number, forecast = "this forecast"): string {
+  return `${n.toLocaleString("en-US")} shift${n === 1 ? "" : "s"} in the field log ${n === 1 ? "is" : "are"} not in ${forecast}`;
+}
+
+/**
+ * The newest forecast of a plan of record as "P80 finish {p80}{rest}" plus a line saying which forecast and how old
+ * (stale when the plan changed after it, and how many field-log shifts it does not know); null when not run yet.
+ */
+export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: string; when: string } | null {
+  const h = plan.planRunSummary as RunHeadline | null;
+  if (!h?.finish || !plan.planRunAt) return null;
+  const move = p80MoveText(h.finish.p80, (plan.previousRunSummary as RunHeadline | null | undefined)?.finish?.p80);
+  const target = h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability).replace(" ", "\u00a0")} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : "";
+  const source = plan.planRunDataDate
+    ? `Re-forecast from the field log as of ${formatIsoDate(plan.planRunDataDate)}, run ${formatDateTime(plan.planRunAt)}`
+    : `Forecast run ${formatDateTime(plan.planRunAt)}`;
+  return {
+    p80: formatIsoDate(h.finish.p80),
+    rest: ` (P50 ${formatIsoDate(h.finish.p50)})${move ? `, ${move}` : ""}${target}.`,
+    when: `${source}${plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}${plan.planRunShiftsNotIn ? ` ${shiftsNotInText(plan.planRunShiftsNotIn)}.` : ""}`,
+  };
+}

@@ -1,0 +1,57 @@
+import "server-only";
+/**
+ * E-mails each new forecast of a project's plan of record — a plan run or a re-forecast the server stands
+ * behind — once, to the members who asked for it. One transaction per project claims the forecast as announced
+ * (only if no other server process did) and queues one outbox e-mail per recipient, so a forecast is announced
+ * whole or not at all, and never twice. Archived projects send nothing. Started by src/instrumentation.ts
+ * (POURLINE_FORECAST_ALERTS=off disables it; POURLINE_NOTICE_INTERVAL_MS, default 60 s, sets the pace).
+ */
+import { claimPlanAnnouncement, listUnannouncedPlanForecasts } from "@db/queries/projects";
+import { forecastAlertRecipients } from "@db/queries/forecast-alerts";
+import { inTransaction } from "@db/queries/mail";
+import { forecastAlertMail } from "./mail/forecast-alert-mail";
+import { enqueueMail } from "./mail/outbox";
+
+const baseUrl = () => (process.env.APP_BASE_URL || "http://localhost:3000").replace(/\/+$/, "");
+
+/** One pass: the number of projects whose new forecast was announced (to nobody, when nobody asked). */
+export async function sendForecastAlerts(): Promise<number> {
+  let announced = 0;
+  for (const p of await listUnannouncedPlanForecasts()) {
+    await inTransaction(async (tx) => {
+      if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return;
+      announced++;
+      const links = { planLink: `${baseUrl()}/scenarios/${p.planScenarioId}`, projectLink: `${baseUrl()}/projects/${p.projectId}` };
+      for (const to of await forecastAlertRecipients({ tx, projectId: p.projectId })) {
+        const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, ...links });
+        if (mail) await enqueueMail(tx, mail);
+      }
+    });
+  }
+  return announced;
+}
+
+const state = globalThis as unknown as { __pourlineForecastAlertTimer?: ReturnType<typeof setInterval> };
+
+export function startForecastAlertPoller() {
+  if (state.__pourlineForecastAlertTimer) return;
+  const everyMs = Math.max(1_000, Number(process.env.POURLINE_NOTICE_INTERVAL_MS || 60_000));
+  let busy = false;
+  let lastError = "";
+  state.__pourlineForecastAlertTimer = setInterval(async () => {
+    if (busy) return;
+    busy = true;
+    try {
+      await sendForecastAlerts();
+      lastError = "";
+    } catch (e) {
+      // Said once per distinct error, not every pass.
+      const msg = e instanceof Error ? e.message : String(e);
+      if (msg !== lastError) console.error(`[pourline] forecast e-mails pass failed: ${msg}`);
+      lastError = msg;
+    } finally {
+      busy = false;
+    }
+  }, everyMs);
+  state.__pourlineForecastAlertTimer.unref?.();
+}

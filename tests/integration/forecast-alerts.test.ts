@@ -1,0 +1,123 @@
+/**
+ * Forecast e-mails: a member ticks "E-mail me each new forecast of the plan of record"; each new plan run or
+ * re-forecast of the plan of record is then e-mailed to those who asked — once, in the project list's words — and
+ * to nobody else; a plan newly chosen is not news; an archived project sends nothing until it is restored. The
+ * app's own sender (every 2 s under `npm test`) does the sending; the tests wait for its outbox rows.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type postgres from "postgres";
+import { call } from "../helpers/app";
+import { appDatabase, freshTeam } from "../helpers/fresh-team";
+import { createPastScenario } from "../helpers/progress-fixture";
+import { waitForJob } from "../helpers/jobs";
+import { formatIsoDate } from "@/lib/format";
+import { sendForecastAlerts } from "@/lib/server/forecast-alerts";
+
+let db: postgres.Sql;
+let projectId: string;
+let admin: { email: string; cookie: string };
+let engineer: { email: string; cookie: string };
+let viewer: { email: string; cookie: string };
+let planId: string;
+
+beforeAll(async () => {
+  db = appDatabase();
+  const team = await freshTeam(db, ["admin", "engineer", "viewer"]);
+  projectId = team.projectId;
+  const [a, e, v] = await Promise.all(team.members.map(async (m) => ({ email: m.email, cookie: await m.cookie() })));
+  [admin, engineer, viewer] = [a, e, v];
+  planId = (await createPastScenario(admin.cookie, projectId, "Forecast e-mails plan")).id;
+}, 60_000);
+afterAll(async () => {
+  await db?.end({ timeout: 5 });
+});
+
+const alerts = (cookie: string, body: unknown) => call(`/api/projects/${projectId}/forecast-alerts`, { method: "PUT", cookie, body });
+const choosePlan = (scenarioId: string) => call(`/api/projects/${projectId}/plan-of-record`, { method: "PUT", cookie: admin.cookie, body: { planScenarioId: scenarioId } });
+const mailTo = async (email: string) => db`SELECT subject, text_body FROM email_outbox WHERE to_address = ${email} ORDER BY created_at, id`;
+const announced = async () => (await db`SELECT plan_announced_run_id AS id FROM projects WHERE id = ${projectId}`)[0].id as string | null;
+
+async function run(scenarioId: string, seed: string): Promise<{ runId: string; p80: string }> {
+  const queued = await call(`/api/scenarios/${scenarioId}/runs`, { method: "POST", cookie: engineer.cookie, body: { seed, iterations: 20 } });
+  expect(queued.status).toBe(202);
+  const job = await waitForJob(queued.body.job.id, engineer.cookie);
+  expect(job.status).toBe("completed");
+  const [row] = await db`SELECT summary FROM simulation_runs WHERE id = ${job.runId}`;
+  return { runId: job.runId!, p80: row.summary.finish.p80 };
+}
+
+/** Waits (bounded) until the app's sender has announced `runId`. */
+async function announcedAs(runId: string) {
+  const deadline = Date.now() + 20_000;
+  while ((await announced()) !== runId) {
+    if (Date.now() > deadline) throw new Error(`run ${runId} was not announced within 20 s`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+describe("forecast e-mails", () => {
+  it("are each member's own choice, for every role, with a clear answer to a bad body", async () => {
+    expect((await alerts(viewer.cookie, { forecastAlerts: true })).status).toBe(200);
+    const bad = await alerts(engineer.cookie, { forecastAlerts: "yes" });
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields).toEqual([{ path: "forecastAlerts", label: "Forecast e-mails", message: "must be true (send them) or false (stop them)" }]);
+    const rows = await db`SELECT u.email, m.forecast_alerts FROM project_members m JOIN users u ON u.id = m.user_id WHERE m.project_id = ${projectId} ORDER BY u.email`;
+    expect(Object.fromEntries(rows.map((r) => [r.email, r.forecast_alerts]))).toEqual({ [admin.email]: false, [engineer.email]: false, [viewer.email]: true });
+  });
+
+  it("a plan's forecast as it stands when chosen is not news; each one after is e-mailed once, to those who asked", async () => {
+    const before = await run(planId, "before-chosen");
+    expect((await choosePlan(planId)).status).toBe(200);
+    expect(await announced()).toBe(before.runId);
+
+    const first = await run(planId, "first");
+    await announcedAs(first.runId);
+    const second = await run(planId, "second");
+    await announcedAs(second.runId);
+
+    const mail = await mailTo(viewer.email);
+    expect(mail.map((m) => m.subject)).toEqual([first.p80, second.p80].map((p80) => expect.stringMatching(new RegExp(`^Forecast: Hardening test \\w+ — P80 finish ${formatIsoDate(p80)}$`))));
+    expect(mail[0].text_body).toContain(`Forecast e-mails plan: P80 finish ${formatIsoDate(first.p80)} (P50 `);
+    expect(mail[0].text_body).toContain(`/scenarios/${planId}`);
+    expect(mail[0].text_body).toContain(`Turn them off on the project page: `);
+    // The second says how far the P80 moved since the first.
+    expect(mail[1].text_body).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the previous forecast/);
+    expect(await mailTo(engineer.email)).toHaveLength(0);
+    expect(await mailTo(admin.email)).toHaveLength(0);
+  });
+
+  it("stop when turned off, and go with the plan of record: another scenario's runs are not its forecasts", async () => {
+    const other = (await createPastScenario(admin.cookie, projectId, "Not the plan")).id;
+    const sent = (await mailTo(viewer.email)).length;
+    const before = await announced();
+    await run(other, "other");
+    await sendForecastAlerts();
+    expect(await announced()).toBe(before);
+    expect((await alerts(viewer.cookie, { forecastAlerts: false })).status).toBe(200);
+    const third = await run(planId, "third");
+    await announcedAs(third.runId);
+    expect(await mailTo(viewer.email)).toHaveLength(sent);
+    expect((await alerts(viewer.cookie, { forecastAlerts: true })).status).toBe(200);
+  });
+
+  it("an archived project sends nothing; restored, its newest forecast is e-mailed", async () => {
+    const sent = (await mailTo(viewer.email)).length;
+    const before = await announced();
+    expect((await call(`/api/projects/${projectId}/archive`, { method: "PUT", cookie: admin.cookie, body: { archived: true } })).status).toBe(200);
+    // A run that finished after the archive (queued before it): a copy of the newest, made now.
+    const [late] = await db`
+      INSERT INTO simulation_runs
+      SELECT (jsonb_populate_record(NULL::simulation_runs, to_jsonb(r) || jsonb_build_object('id', gen_random_uuid(), 'created_at', now(), 'result_key', NULL))).*
+      FROM simulation_runs r WHERE r.id = ${before}
+      RETURNING id`;
+    await sendForecastAlerts();
+    expect(await announced()).toBe(before);
+    expect(await mailTo(viewer.email)).toHaveLength(sent);
+    // Archived, the box is still there to turn e-mail off.
+    expect((await alerts(viewer.cookie, { forecastAlerts: true })).status).toBe(200);
+
+    expect((await call(`/api/projects/${projectId}/archive`, { method: "PUT", cookie: admin.cookie, body: { archived: false } })).status).toBe(200);
+    await announcedAs(late.id);
+    expect(await mailTo(viewer.email)).toHaveLength(sent + 1);
+  });
+});
