@@ -76,7 +76,7 @@ describe("forecast e-mails", () => {
     await announcedAs(second.runId);
 
     const mail = await mailTo(viewer.email);
-    expect(mail.map((m) => m.subject)).toEqual([first.p80, second.p80].map((p80) => expect.stringMatching(new RegExp(`^Forecast: Hardening test \\w+ — P80 finish ${formatIsoDate(p80)}$`))));
+    expect(mail.map((m) => m.subject)).toEqual([first.p80, second.p80].map((p80) => expect.stringMatching(new RegExp(`^Forecast for Hardening test \\w+: P80 finish ${formatIsoDate(p80)}$`))));
     expect(mail[0].text_body).toContain(`Forecast e-mails plan: P80 finish ${formatIsoDate(first.p80)} (P50 `);
     expect(mail[0].text_body).toContain(`/scenarios/${planId}`);
     expect(mail[0].text_body).toContain(`Turn them off on the project page: `);

@@ -69,7 +69,7 @@ describe("the plan of record's forecast in words (the project list's and the for
 
   it("the e-mail says the same sentence, links the plan, and escapes what people typed in its HTML", () => {
     const mail = forecastAlertMail({ to: "a@b.example", projectName: "Deck <b>overlay</b>", plan: { ...plan, planName: "Plan & co" }, planLink: "http://x/scenarios/p", projectLink: "http://x/projects/q" })!;
-    expect(mail.subject).toBe("Forecast: Deck <b>overlay</b> — P80 finish 23 Aug 2027");
+    expect(mail.subject).toBe("Forecast for Deck <b>overlay</b>: P80 finish 23 Aug 2027");
     expect(mail.text).toContain("Plan & co: P80 finish 23 Aug 2027 (P50 15 Aug 2027), 10 days later than the previous forecast;");
     expect(mail.text).toContain("http://x/scenarios/p");
     expect(mail.html).toContain("Deck &lt;b&gt;overlay&lt;/b&gt;");

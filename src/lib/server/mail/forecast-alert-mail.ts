@@ -20,8 +20,8 @@ export function forecastAlertMail(v: { to: string; projectName: string; plan: Pl
   const foot = `You receive this because you asked for forecast e-mails on this project. Turn them off on the project page: ${v.projectLink}`;
   return {
     to: v.to,
-    subject: `Forecast: ${v.projectName} — P80 finish ${text.p80}`,
-    text: [...paragraphs, "", v.planLink, "", foot, ""].join("\n"),
+    subject: `Forecast for ${v.projectName}: P80 finish ${text.p80}`,
+    text: `${[...paragraphs, v.planLink, foot].join("\n\n")}\n`,
     html: `<!doctype html><html><body style="font-family:sans-serif;line-height:1.5">
 ${paragraphs.map((p) => `<p>${esc(p)}</p>`).join("\n")}
 <p><a href="${esc(v.planLink)}">Open the plan</a></p>
