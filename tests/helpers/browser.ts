@@ -50,6 +50,9 @@ export async function screenshot(page: Page, name: string) {
 
 /** axe-core's serious and critical findings on the current page, as readable lines. */
 export async function seriousA11yViolations(page: Page): Promise<string[]> {
+  // Next streams a page's <title> with its metadata, and re-renders it on router.refresh(): give it a moment, so a
+  // check right after a refresh does not catch the document between two titles (a page with none still fails).
+  await page.waitForFunction(() => document.title.trim() !== "", undefined, { timeout: 5_000 }).catch(() => {});
   const result = await new AxeBuilder({ page }).analyze();
   return result.violations
     .filter((v) => v.impact === "serious" || v.impact === "critical")
