@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb, prepared, type Database } from "../client";
 import { scenarioRevisions, scenarios, simulationRuns, users, type RunVerification } from "../schema";
@@ -55,6 +55,18 @@ function projectScenarios(db: Database) {
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1)
     .as("pending_run");
+  // The newest re-forecast from the field log: the table says it beside the plan run's figures, so a job under way
+  // does not read as still finishing on the plan's dates.
+  const latestReforecast = db
+    .select({
+      reforecastP80: sql<string>`${simulationRuns.summary}->'finish'->>'p80'`.as("reforecast_p80"),
+      reforecastDataDate: sql<string>`${simulationRuns.dataDate}`.as("reforecast_data_date"),
+    })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNotNull(simulationRuns.dataDate), isForecast))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .limit(1)
+    .as("latest_reforecast");
   return db
     .select({
       ...scenarioColumns,
@@ -65,12 +77,15 @@ function projectScenarios(db: Database) {
       runVerification: latestRun.runVerification,
       runStale: sql<boolean | null>`(${latestRun.runVersion} <> ${scenarios.version})`,
       pendingRunAt: pendingRun.pendingAt,
+      reforecastP80: latestReforecast.reforecastP80,
+      reforecastDataDate: latestReforecast.reforecastDataDate,
     })
     .from(scenarios)
     .innerJoin(owner, eq(owner.id, scenarios.ownerId))
     .innerJoin(editor, eq(editor.id, scenarios.updatedById))
     .leftJoinLateral(latestRun, sql`true`)
     .leftJoinLateral(pendingRun, sql`true`)
+    .leftJoinLateral(latestReforecast, sql`true`)
     .where(eq(scenarios.projectId, sql.placeholder("projectId")))
     // Scenarios written in one transaction (the seed's) share updated_at: without the name and id after it, two
     // connections with different plans for this query listed them in different orders, so with different ETags.

@@ -142,6 +142,9 @@ describe("re-forecast", () => {
     expect(drift.status).toBe(200);
     expect(drift.body.plan.summary.finish.p50).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(drift.body.runs.map((r: { dataDate: string }) => r.dataDate)).toEqual([day(2)]);
+    // The project's scenario list carries the newest re-forecast beside the plan run.
+    const listed = (await call(`/api/projects/${projectId}/scenarios`, { cookie: viewer })).body.scenarios.find((x: { id: string }) => x.id === s.id);
+    expect(listed).toMatchObject({ runId: expect.any(String), reforecastDataDate: day(2), reforecastP80: run.body.run.results.finish.p80 });
   });
 });
 

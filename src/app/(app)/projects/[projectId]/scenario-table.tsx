@@ -26,6 +26,9 @@ interface ScenarioListRow {
   runStale: boolean | null;
   /** A newer browser run the server has not verified yet (not the forecast). */
   pendingRunAt: string | null;
+  /** The newest re-forecast from the field log, if any: its P80 and data date. */
+  reforecastP80: string | null;
+  reforecastDataDate: string | null;
 }
 
 const col = createColumnHelper<ScenarioListRow>();
@@ -65,12 +68,24 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
           const v = c.getValue();
           const r = c.row.original;
           const pending = r.pendingRunAt && (!r.runAt || r.pendingRunAt > r.runAt) ? <VerificationBadge verification="pending" /> : null;
-          if (v === "none") return <span className="flex flex-wrap gap-1">{pending ?? <span className="badge border border-line text-muted">Not run</span>}</span>;
+          const reforecast = r.reforecastP80 && r.reforecastDataDate && (
+            <span className="block w-full text-xs text-muted" data-testid="reforecast-line">
+              Re-forecast as of {formatIsoDate(r.reforecastDataDate)}: P80 {formatIsoDate(r.reforecastP80)}
+            </span>
+          );
+          if (v === "none")
+            return (
+              <span className="flex flex-wrap gap-1">
+                {pending ?? <span className="badge border border-line text-muted">Not run</span>}
+                {reforecast}
+              </span>
+            );
           return (
             <span className="flex flex-wrap gap-1">
               {v === "stale" ? <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">Stale</span> : <span className="badge bg-brand-50 text-brand-800">Current</span>}
               <VerificationBadge verification={r.runVerification} />
               {pending}
+              {reforecast}
             </span>
           );
         },
