@@ -40,7 +40,7 @@ describe("the plan of record", () => {
     await card.click();
     // The scenario table says the plan's newest re-forecast beside its plan run's dates.
     const planRow = page.getByRole("row").filter({ has: page.getByText("Plan of record", { exact: true }) });
-    expect(await planRow.getByTestId("reforecast-line").textContent()).toMatch(/^Re-forecast as of \d{1,2} \w{3} \d{4}: P80 \d{1,2} \w{3} \d{4}$/);
+    expect(await planRow.getByTestId("reforecast-line").textContent()).toMatch(/^Re-forecast from the field log as of \d{1,2} \w{3} \d{4}: P80 finish \d{1,2} \w{3} \d{4}$/);
     await page.getByTestId("plan-of-record").getByRole("link", { name: "Kestrel Bay Causeway — two seasons" }).click();
     const notice = page.getByTestId("newer-reforecast");
     await notice.waitFor();

@@ -51,6 +51,13 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
             </Link>
             {c.row.original.id === planScenarioId && <span className="badge ml-2 bg-brand-50 text-brand-800">Plan of record</span>}
             {c.row.original.description && <p className="mt-0.5 line-clamp-1 text-xs text-muted">{c.row.original.description}</p>}
+            {c.row.original.reforecastP80 && c.row.original.reforecastDataDate && (
+              // The dates in the row are the plan run's; a job under way has moved on since.
+              <p className="mt-0.5 text-xs" data-testid="reforecast-line">
+                Re-forecast from the field log as of {formatIsoDate(c.row.original.reforecastDataDate)}: P80 finish{" "}
+                <span className="font-semibold">{formatIsoDate(c.row.original.reforecastP80)}</span>
+              </p>
+            )}
           </div>
         ),
       }),
@@ -68,24 +75,12 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
           const v = c.getValue();
           const r = c.row.original;
           const pending = r.pendingRunAt && (!r.runAt || r.pendingRunAt > r.runAt) ? <VerificationBadge verification="pending" /> : null;
-          const reforecast = r.reforecastP80 && r.reforecastDataDate && (
-            <span className="block w-full text-xs text-muted" data-testid="reforecast-line">
-              Re-forecast as of {formatIsoDate(r.reforecastDataDate)}: P80 {formatIsoDate(r.reforecastP80)}
-            </span>
-          );
-          if (v === "none")
-            return (
-              <span className="flex flex-wrap gap-1">
-                {pending ?? <span className="badge border border-line text-muted">Not run</span>}
-                {reforecast}
-              </span>
-            );
+          if (v === "none") return <span className="flex flex-wrap gap-1">{pending ?? <span className="badge border border-line text-muted">Not run</span>}</span>;
           return (
             <span className="flex flex-wrap gap-1">
               {v === "stale" ? <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">Stale</span> : <span className="badge bg-brand-50 text-brand-800">Current</span>}
               <VerificationBadge verification={r.runVerification} />
               {pending}
-              {reforecast}
             </span>
           );
         },
