@@ -15,7 +15,8 @@ export function ForecastAlertsToggle({ projectId, initial, email, archived }: { 
     // Not saved: the box shows what is stored again.
     onError: (_e, next) => setOn(!next),
   });
-  if (archived && !on) return null;
+  // Decided on what was stored when the page was drawn, so turning them off keeps the box and its answer in view.
+  if (archived && !initial) return null;
   return (
     <div className="mt-4 border-t border-line pt-3" data-testid="forecast-alerts">
       <div className="flex items-start gap-2 text-sm">
