@@ -1,7 +1,7 @@
 /**
  * The plan of record in Debian's Chromium: the owner's executive (viewer) reads on the project list which plan each
- * project is run by and its newest forecast in words, and the plan's Outlook says the same re-forecast above the
- * plan run's charts; an administrator of a new project chooses one of its
+ * project is run by and its newest forecast in words, and the plan's Outlook and owner brief say the same
+ * re-forecast above the plan run's charts; an administrator of a new project chooses one of its
  * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list,
  * and asks for an e-mail with each new forecast of it.
  */
@@ -46,6 +46,14 @@ describe("the plan of record", () => {
     await notice.waitFor();
     expect(await notice.textContent()).toMatch(new RegExp(`The field log has moved this forecast on\\..*P80 finish ${p80}.*Below is the plan as run on`));
     expect(await seriousA11yViolations(page)).toEqual([]);
+    // The owner brief of the plan leads with the same re-forecast, with nothing to click.
+    const planUrl = page.url();
+    await page.goto(`${planUrl}/brief`);
+    const printed = page.getByTestId("newer-reforecast");
+    await printed.waitFor();
+    expect(await printed.textContent()).toMatch(new RegExp(`P80 finish ${p80}`));
+    expect(await printed.getByRole("link").count()).toBe(0);
+    await page.goto(planUrl);
     await notice.getByRole("link", { name: "Open the field log and its forecasts" }).click();
     await page.waitForURL(/\/progress$/);
     await context.close();

@@ -11,12 +11,18 @@ export interface ReforecastHeadline {
   shiftsNotIn: number;
 }
 
+/** The newest re-forecast when it is newer than the plan run a page shows (or there is none): then it is the forecast. */
+export function newerThanShown<R extends ReforecastHeadline>(reforecast: R | null, shown: { createdAt: Date | string } | null): R | null {
+  return reforecast && (!shown || new Date(reforecast.createdAt) > new Date(shown.createdAt)) ? reforecast : null;
+}
+
 /**
- * The Outlook shows the plan as run; once the field log has re-forecast it, that plan run no longer says when the
- * job will finish. Said above the charts, so nobody quotes the plan's P80 when the project list (the plan of
- * record's headline) already quotes the re-forecast's.
+ * The Outlook and the owner brief show the plan as run; once the field log has re-forecast it, that plan run no
+ * longer says when the job will finish. Said above the charts, so nobody quotes the plan's P80 when the project list
+ * (the plan of record's headline) already quotes the re-forecast's. `document`: the printed brief (no link).
  */
-export function NewerReforecastNotice({ scenarioId, reforecast, shownRunAt }: { scenarioId: string; reforecast: ReforecastHeadline; shownRunAt: Date | string | null }) {
+export function NewerReforecastNotice(props: { scenarioId: string; reforecast: ReforecastHeadline; shownRunAt: Date | string | null; document?: boolean }) {
+  const { scenarioId, reforecast, shownRunAt, document = false } = props;
   const h = reforecast.summary as RunHeadline;
   if (!h?.finish?.p80) return null;
   return (
@@ -29,9 +35,12 @@ export function NewerReforecastNotice({ scenarioId, reforecast, shownRunAt }: { 
       </p>
       <p className="mt-1">
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}
-        <Link className="font-medium text-brand-700 underline" href={`/scenarios/${scenarioId}/progress`}>
-          Open the field log and its forecasts
-        </Link>
+        {/* The printed brief has nothing to click. */}
+        {!document && (
+          <Link className="font-medium text-brand-700 underline" href={`/scenarios/${scenarioId}/progress`}>
+            Open the field log and its forecasts
+          </Link>
+        )}
       </p>
     </div>
   );

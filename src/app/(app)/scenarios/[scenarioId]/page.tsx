@@ -14,7 +14,7 @@ import { resultsRunOf } from "@/lib/run-record";
 import { parseScenario } from "@sim/validate";
 import { weatherFeasibility } from "@sim/feasibility";
 import { getNewestReforecastHeadline } from "@db/queries/progress";
-import { NewerReforecastNotice } from "@/components/results/newer-reforecast-notice";
+import { NewerReforecastNotice, newerThanShown } from "@/components/results/newer-reforecast-notice";
 
 export const metadata: Metadata = { title: "Outlook" };
 
@@ -27,7 +27,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
   const run = pending ?? forecast;
   const stale = !!run && run.stale;
   // A re-forecast newer than the run shown is the scenario's current forecast: say so above the plan's charts.
-  const newerReforecast = reforecast && (!run || new Date(reforecast.createdAt) > new Date(run.createdAt)) ? reforecast : null;
+  const newerReforecast = newerThanShown(reforecast, run);
   const parsed = parseScenario(scenario.definition);
   // A plan the weather never lets finish is said in words here, before anyone starts a run.
   const blockers = parsed.ok ? weatherFeasibility(parsed.scenario).map((p) => p.message) : [];

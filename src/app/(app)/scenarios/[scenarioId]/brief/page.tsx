@@ -14,6 +14,8 @@ import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
 import { iterationsStatement } from "@/components/results/summary-text";
 import { VerificationBadge } from "@/components/results/verification-badge";
+import { getNewestReforecastHeadline } from "@db/queries/progress";
+import { NewerReforecastNotice, newerThanShown } from "@/components/results/newer-reforecast-notice";
 
 export const metadata: Metadata = { title: "Owner brief" };
 
@@ -29,7 +31,9 @@ const hour = (h: number) => `${String(Math.floor(h)).padStart(2, "0")}:${String(
 export default async function BriefPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const { scenario } = await orNotFound(requireScenario(scenarioId, "read"));
-  const [run, project] = await Promise.all([getLatestRun({ scenarioId }), getProject({ id: scenario.projectId })]);
+  const [run, project, reforecast] = await Promise.all([getLatestRun({ scenarioId }), getProject({ id: scenario.projectId }), getNewestReforecastHeadline({ scenarioId })]);
+  // A job under way: the brief leads with the newest re-forecast when it is newer than the plan run it shows.
+  const newerReforecast = newerThanShown(reforecast, run);
   const d = validateDefinition(scenario.definition);
   const s = run?.results as unknown as RunSummary | undefined;
   return (
@@ -45,6 +49,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
           {project?.structureName} · scenario “{scenario.name}” (version {scenario.version}, saved {formatDateTime(scenario.updatedAt)} by {scenario.updatedByName})
         </p>
       </div>
+      {newerReforecast && <NewerReforecastNotice scenarioId={scenario.id} reforecast={newerReforecast} shownRunAt={run?.createdAt ?? null} document />}
       {!s || !run ? (
         <p className="card">This scenario has not been run yet: there is no forecast to brief.</p>
       ) : (
