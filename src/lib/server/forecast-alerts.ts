@@ -11,6 +11,7 @@ import { forecastAlertRecipients } from "@db/queries/forecast-alerts";
 import { inTransaction } from "@db/queries/mail";
 import { forecastAlertMail } from "./mail/forecast-alert-mail";
 import { enqueueMail } from "./mail/outbox";
+import { startBackgroundPass } from "./background-pass";
 
 const baseUrl = () => (process.env.APP_BASE_URL || "http://localhost:3000").replace(/\/+$/, "");
 
@@ -31,27 +32,6 @@ export async function sendForecastAlerts(): Promise<number> {
   return announced;
 }
 
-const state = globalThis as unknown as { __pourlineForecastAlertTimer?: ReturnType<typeof setInterval> };
-
 export function startForecastAlertPoller() {
-  if (state.__pourlineForecastAlertTimer) return;
-  const everyMs = Math.max(1_000, Number(process.env.POURLINE_NOTICE_INTERVAL_MS || 60_000));
-  let busy = false;
-  let lastError = "";
-  state.__pourlineForecastAlertTimer = setInterval(async () => {
-    if (busy) return;
-    busy = true;
-    try {
-      await sendForecastAlerts();
-      lastError = "";
-    } catch (e) {
-      // Said once per distinct error, not every pass.
-      const msg = e instanceof Error ? e.message : String(e);
-      if (msg !== lastError) console.error(`[pourline] forecast e-mails pass failed: ${msg}`);
-      lastError = msg;
-    } finally {
-      busy = false;
-    }
-  }, everyMs);
-  state.__pourlineForecastAlertTimer.unref?.();
+  startBackgroundPass("forecast e-mails", Math.max(1_000, Number(process.env.POURLINE_NOTICE_INTERVAL_MS || 60_000)), () => sendForecastAlerts());
 }

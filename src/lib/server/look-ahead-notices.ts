@@ -12,6 +12,7 @@ import { compactBoard, type CompactBoard } from "@/lib/look-ahead-notice";
 import { localDate, localHour, scenarioLookAhead } from "./look-ahead";
 import { lookAheadMail } from "./mail/look-ahead-mail";
 import { enqueueMail } from "./mail/outbox";
+import { startBackgroundPass } from "./background-pass";
 
 /** The last error logged per scenario: a notice that keeps failing is reported once, not every pass. */
 const lastErrors = new Map<string, string>();
@@ -42,22 +43,6 @@ export async function sendDueLookAheadNotices(now = new Date()): Promise<number>
   return sent;
 }
 
-const state = globalThis as unknown as { __pourlineNoticeTimer?: ReturnType<typeof setInterval> };
-
 export function startLookAheadNoticePoller() {
-  if (state.__pourlineNoticeTimer) return;
-  const everyMs = Math.max(1_000, Number(process.env.POURLINE_NOTICE_INTERVAL_MS || 60_000));
-  let busy = false;
-  state.__pourlineNoticeTimer = setInterval(async () => {
-    if (busy) return;
-    busy = true;
-    try {
-      await sendDueLookAheadNotices();
-    } catch (e) {
-      console.error(`[pourline] look-ahead notices pass failed: ${e instanceof Error ? e.message : String(e)}`);
-    } finally {
-      busy = false;
-    }
-  }, everyMs);
-  state.__pourlineNoticeTimer.unref?.();
+  startBackgroundPass("look-ahead notices", Math.max(1_000, Number(process.env.POURLINE_NOTICE_INTERVAL_MS || 60_000)), () => sendDueLookAheadNotices());
 }
