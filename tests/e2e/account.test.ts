@@ -5,21 +5,18 @@
  * browser's session has ended. No serious axe finding on the page.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
 import postgres from "postgres";
 import { APP_URL, DEMO_PASSWORD, call, signIn } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { newAccount } from "../helpers/authz-world";
 import { SignInPage } from "./pages/sign-in";
 
-let browser: Browser;
+const browser = browserPerFile();
 let db: postgres.Sql;
 beforeAll(async () => {
-  browser = await launch();
   db = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
 });
 afterAll(async () => {
-  await browser?.close();
   await db?.end();
 });
 
@@ -27,7 +24,7 @@ describe("your account", () => {
   it("changes the name, the title and the password, and signs out the other browser", async () => {
     const me = await newAccount(db, "e2e-account");
     const otherBrowser = await signIn(me.email);
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await new SignInPage(page).signIn(me.email);
     await page.waitForURL(`${APP_URL}/projects`);

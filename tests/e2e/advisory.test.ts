@@ -3,32 +3,27 @@
  * about a window that backs traffic up past the limit; publishing closures shows what will be sent and asks
  * first; the public travel advisory opens with no session, reads by keyboard and has no serious axe finding.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { APP_URL, call, mainDemoVariant, signInAs } from "../helpers/app";
 import { serverRunDone } from "../helpers/jobs";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
-let browser: Browser;
+const browser = browserPerFile();
 let scenarioId: string;
 
 beforeAll(async () => {
-  browser = await launch();
   const cookie = await signInAs("engineer");
   scenarioId = await mainDemoVariant(cookie, "E2E advisory");
   expect((await serverRunDone(scenarioId, cookie, { seed: "e2e-advisory", iterations: 20 })).status).toBe("completed");
 }, 120_000);
-afterAll(async () => {
-  await browser?.close();
-});
 
 describe("closure hours, publishing and the public advisory", { timeout: 180_000 }, () => {
   let advisoryUrl = "";
 
   it("the Traffic section shows when each closure may stand and warns about holiday-weekend days", async () => {
-    const { context, page } = await signedIn(browser, "engineer");
+    const { context, page } = await signedIn(browser(), "engineer");
     const scenario = new ScenarioPage(page, scenarioId);
     await scenario.open("plan");
     await scenario.openPlanSection("traffic");
@@ -42,7 +37,7 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
   });
 
   it("publishing shows the notice and its recipients first, and sends only on confirmation", async () => {
-    const { context, page } = await signedIn(browser, "engineer");
+    const { context, page } = await signedIn(browser(), "engineer");
     await new ScenarioPage(page, scenarioId).open("share");
     await page.getByTestId("publish-closures").click();
     const dialog = page.getByTestId("publish-dialog");
@@ -66,7 +61,7 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
   });
 
   it("the advisory opens without signing in, reads by keyboard and has no serious axe finding", async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await browser().newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     const res = await page.goto(new URL(new URL(advisoryUrl).pathname, APP_URL).toString());
     expect(res?.status()).toBe(200);

@@ -7,16 +7,16 @@
  * plan, the longest backups (the run's longest queue among them), the days over the plan's queue limit, the
  * holiday trade-off computed on the run's seed (every row of it), and the work-zone safety caution.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import { getDocument } from "pdfjs-dist/legacy/build/pdf.mjs";
 import { call, mainDemoVariant, signInAs } from "../helpers/app";
 import { serverRunDone } from "../helpers/jobs";
-import { launch } from "../helpers/browser";
+import { browserPerFile } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
-let browser: Browser;
+const browser = browserPerFile();
 let scenarioId: string;
 
 // Printable widths in CSS px (96 per inch) with the brief's 12 mm margins on each side.
@@ -27,15 +27,11 @@ const FORMATS = [
 ] as const;
 
 beforeAll(async () => {
-  browser = await launch();
   const cookie = await signInAs("engineer");
   scenarioId = await mainDemoVariant(cookie, "E2E brief print");
   // A small run (the server computes it): few enough iterations that the brief must warn.
   expect((await serverRunDone(scenarioId, cookie, { seed: "brief", iterations: 200 })).status).toBe("completed");
 }, 180_000);
-afterAll(async () => {
-  await browser?.close();
-});
 
 async function pagesText(pdf: Buffer): Promise<string[]> {
   const doc = await getDocument({ data: new Uint8Array(pdf), disableFontFace: true, useSystemFonts: false }).promise;
@@ -66,7 +62,7 @@ async function overflowing(page: Page): Promise<string[]> {
 
 describe("the owner brief prints whole", () => {
   it.each(FORMATS)("on $format: every chart whole, nothing to click, the iteration count with its warning", async ({ format, printableWidth }) => {
-    const { context, page } = await signedIn(browser, "engineer", 1280);
+    const { context, page } = await signedIn(browser(), "engineer", 1280);
     const brief = new ScenarioPage(page, scenarioId);
     await brief.open("brief");
     await page.getByTestId("owner-brief").waitFor();

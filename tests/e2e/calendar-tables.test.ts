@@ -4,22 +4,17 @@
  * again leaves the shifts as they were; the viewer sees the same rows with no Add or Remove button; no serious
  * axe finding either way.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { call, mainDemoVariant, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
-let browser: Browser;
+const browser = browserPerFile();
 let scenarioId: string;
 
 beforeAll(async () => {
-  browser = await launch();
   scenarioId = await mainDemoVariant(await signInAs("scheduler"), "E2E calendar tables");
-});
-afterAll(async () => {
-  await browser?.close();
 });
 
 async function definition() {
@@ -29,7 +24,7 @@ async function definition() {
 describe("calendar tables", () => {
   it("a scheduler adds a closure window, adds and removes a shift, and saves: the window is in the saved scenario", async () => {
     const before = (await definition()).definition;
-    const { context, page } = await signedIn(browser, "scheduler");
+    const { context, page } = await signedIn(browser(), "scheduler");
     const scenario = new ScenarioPage(page, scenarioId);
     await scenario.open("plan");
     await scenario.openPlanSection("calendar");
@@ -69,7 +64,7 @@ describe("calendar tables", () => {
 
   it("a viewer sees the calendar's rows and no Add or Remove button", async () => {
     const saved = (await definition()).definition;
-    const { context, page } = await signedIn(browser, "viewer");
+    const { context, page } = await signedIn(browser(), "viewer");
     const scenario = new ScenarioPage(page, scenarioId);
     await scenario.open("plan");
     await scenario.openPlanSection("calendar");

@@ -5,29 +5,24 @@
  * completes. A page whose scripts lacked the nonce would not hydrate. Violations the browser reports (a
  * library probing for eval, say) fail this test, as every e2e test, through tests/e2e/setup.ts.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { APP_URL, kestrelProject, mainDemoVariant, signInAs } from "../helpers/app";
-import { launch } from "../helpers/browser";
+import { browserPerFile } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 
-let browser: Browser;
+const browser = browserPerFile();
 let projectId: string;
 let scenarioId: string;
 
 beforeAll(async () => {
-  browser = await launch();
   const cookie = await signInAs("scheduler");
   projectId = (await kestrelProject(cookie)).id;
   scenarioId = await mainDemoVariant(cookie, "E2E content policy");
 }, 60_000);
-afterAll(async () => {
-  await browser?.close();
-});
 
 describe("content security policy in the browser", () => {
   it("every main page hydrates under the policy and a browser run completes", async () => {
-    const { context, page } = await signedIn(browser, "scheduler");
+    const { context, page } = await signedIn(browser(), "scheduler");
     const pages = ["/projects", `/projects/${projectId}`, `/projects/${projectId}/compare`, `/scenarios/${scenarioId}/plan`, `/scenarios/${scenarioId}/progress`, `/scenarios/${scenarioId}/look-ahead`, `/scenarios/${scenarioId}/search`, `/scenarios/${scenarioId}/brief`, `/reset`];
     for (const path of pages) {
       await page.goto(`${APP_URL}${path}`, { waitUntil: "networkidle" });

@@ -1,20 +1,18 @@
 /** The engineer recalibrates a scenario from a weather history CSV and a deck survey, in Chromium. */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import type { Browser } from "playwright-core";
 import { call, mainDemoVariant, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
-let browser: Browser;
+const browser = browserPerFile();
 let scenarioId: string;
 const dir = mkdtempSync(join(tmpdir(), "pourline-csv-"));
 
 beforeAll(async () => {
-  browser = await launch();
   const cookie = await signInAs("engineer");
   scenarioId = await mainDemoVariant(cookie, "E2E recalibrated");
   // Three years of invented daily weather in °C and mm: every April day 20 °C / 8 °C, every fourth day 5 mm.
@@ -27,13 +25,10 @@ beforeAll(async () => {
   writeFileSync(join(dir, "station.csv"), rows.join("\n"));
   writeFileSync(join(dir, "survey.csv"), "from_station,to_station,repair_share\n12+00,50+00,0.15\n50+00,96+00,0.3\n");
 });
-afterAll(async () => {
-  await browser?.close();
-});
 
 describe("field data", () => {
   it("a weather history refits the climate profile and a survey sets the deterioration risk, each as a saved version", async () => {
-    const { context, page } = await signedIn(browser, "engineer");
+    const { context, page } = await signedIn(browser(), "engineer");
     await new ScenarioPage(page, scenarioId).open("data");
     await page.getByTestId("weather-file").setInputFiles(join(dir, "station.csv"));
     await page.getByLabel("Temperatures in").selectOption("C");

@@ -3,21 +3,16 @@
  * store; the person opens the link in a fresh browser, sets a password, lands signed in on the project list
  * with the role they were invited with; the link then no longer works.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { APP_URL, DEMO_PASSWORD, call, demoEmail, kestrelProject, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { SignInPage, signedIn } from "./pages/sign-in";
 import { findMail, linkIn } from "../../src/lib/server/mailbox";
 
 const INVITEE = "new.person@marrin-dot.example";
-let browser: Browser;
+const browser = browserPerFile();
 beforeAll(async () => {
   if (!process.env.POURLINE_MAILBOX_DIR) throw new Error("POURLINE_MAILBOX_DIR is not set: run through `npm test`.");
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
 });
 
 describe("invitation by e-mail", () => {
@@ -25,7 +20,7 @@ describe("invitation by e-mail", () => {
     const projectId = (await kestrelProject(await signInAs("admin"))).id;
 
     // The administrator sends the invitation.
-    const { context: adminContext, page: adminPage } = await signedIn(browser, "admin");
+    const { context: adminContext, page: adminPage } = await signedIn(browser(), "admin");
     await adminPage.goto(`${APP_URL}/projects/${projectId}/members`);
     await adminPage.getByLabel("E-mail to invite").fill(INVITEE);
     await adminPage.getByLabel("Their role").selectOption("inspector");
@@ -45,7 +40,7 @@ describe("invitation by e-mail", () => {
     expect(link.startsWith(`${APP_URL}/invite/`)).toBe(true);
 
     // The invitee, in a browser that has never signed in.
-    const inviteeContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const inviteeContext = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await inviteeContext.newPage();
     await page.goto(link);
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toMatch(/^Join .*Kestrel Bay Causeway/);
@@ -75,7 +70,7 @@ describe("invitation by e-mail", () => {
     await inviteeContext.close();
 
     // The link is single use: a second visit shows why it no longer works and offers no form.
-    const later = await browser.newContext();
+    const later = await browser().newContext();
     const again = await later.newPage();
     await again.goto(link);
     await expect.poll(() => again.getByTestId("invite-problem").textContent()).toContain("already been used");
@@ -84,7 +79,7 @@ describe("invitation by e-mail", () => {
     await later.close();
 
     // And the new password works for a normal sign-in.
-    const signInContext = await browser.newContext();
+    const signInContext = await browser().newContext();
     const signIn = await signInContext.newPage();
     await new SignInPage(signIn).signIn(INVITEE, "tidewater-2031");
     await signIn.waitForURL(`${APP_URL}/projects`);
@@ -100,7 +95,7 @@ describe("invitation by e-mail", () => {
     await expect.poll(() => findMail({ to: engineer, subject: "Tern Point" }), { timeout: 20_000, interval: 250 }).not.toBeNull();
     const link = linkIn(findMail({ to: engineer, subject: "Tern Point" })!, "/invite/")!;
 
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await page.goto(link);
     await expect.poll(() => page.getByText("already has a Pourline account").count()).toBe(1);

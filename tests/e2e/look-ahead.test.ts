@@ -4,20 +4,18 @@
  * opens the cell for the hour-by-hour reason.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
 import { call, kestrelProject, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 import { createLookAheadScenario, FAKE_POINTS } from "../helpers/look-ahead-fixture";
 import { isoDaysFromToday } from "../helpers/progress-fixture";
 
-let browser: Browser;
+const browser = browserPerFile();
 let scenarioId: string;
 let projectId: string;
 
 beforeAll(async () => {
-  browser = await launch();
   const engineer = await signInAs("engineer");
   projectId = (await kestrelProject(engineer)).id;
   expect((await call(`/api/projects/${projectId}/location`, { method: "PUT", cookie: engineer, body: FAKE_POINTS.coldSnap })).status).toBe(200);
@@ -25,12 +23,11 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await call(`/api/projects/${projectId}/location`, { method: "PUT", cookie: await signInAs("engineer"), body: FAKE_POINTS.kestrelBay });
-  await browser?.close();
 });
 
 describe("week ahead", () => {
   it("an inspector sees tomorrow's placement blocked by a cold night and opens the reason", async () => {
-    const { context, page } = await signedIn(browser, "inspector");
+    const { context, page } = await signedIn(browser(), "inspector");
     const scenario = new ScenarioPage(page, scenarioId);
     await scenario.open("outlook");
     await scenario.tab("lookAhead").click();

@@ -4,23 +4,16 @@
  * no scenario yet), adds the region under Edit project details, and makes a first scenario from the standard
  * template over that deck, whose week ahead sends them to set the structure's location; no serious axe finding.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { APP_URL } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserPerFile();
 
 describe("a new project", () => {
   it("is started from the project list and takes its first scenario from the template", async () => {
-    const { context, page } = await signedIn(browser, "scheduler");
+    const { context, page } = await signedIn(browser(), "scheduler");
     await page.getByRole("link", { name: "New project" }).click();
     await page.waitForURL(`${APP_URL}/projects/new`);
     const name = `Heron Creek Bridge — deck overlay ${Date.now()}`;

@@ -4,33 +4,29 @@
  * Wide tables scroll inside their own box. Before this check, the field log was 897 px wide (screen-reader-only
  * text in a table header sat beyond its scroll box) and the tab bar pushed every scenario page to 539 px.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import { APP_URL, call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
-import { launch, screenshot } from "../helpers/browser";
+import { browserPerFile, screenshot } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage, type PlanSection, type ScenarioTab } from "./pages/scenario";
 
 const PHONE = 390;
 
-let browser: Browser;
+const browser = browserPerFile();
 let projectId: string;
 let scenarioId: string;
 
 beforeAll(async () => {
-  browser = await launch();
   const cookie = await signInAs("scheduler");
   projectId = (await kestrelProject(cookie)).id;
   const list = await call(`/api/projects/${projectId}/scenarios`, { cookie });
   // The seeded main demo itself (read only here): it carries the recorded field log the variants do not.
   scenarioId = list.body.scenarios.find((s: { name: string }) => s.name === "Kestrel Bay Causeway — two seasons").id;
 });
-afterAll(async () => {
-  await browser?.close();
-});
 
 async function phone(role: DemoRole): Promise<Page> {
-  const { page } = await signedIn(browser, role, PHONE);
+  const { page } = await signedIn(browser(), role, PHONE);
   return page;
 }
 

@@ -5,24 +5,17 @@
  * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list,
  * and asks for an e-mail with each new forecast of it.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { APP_URL, call } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { cookieHeader, signedIn } from "./pages/sign-in";
 import { templateScenario } from "../../src/lib/scenario-template";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserPerFile();
 
 describe("the plan of record", () => {
   it("is read on the project list by the executive", async () => {
-    const { context, page } = await signedIn(browser, "viewer");
+    const { context, page } = await signedIn(browser(), "viewer");
     const card = page.getByRole("link", { name: /Kestrel Bay Causeway — deck overlay/ });
     const text = (await card.textContent()) ?? "";
     expect(text).toContain("Plan of record");
@@ -60,7 +53,7 @@ describe("the plan of record", () => {
   });
 
   it("is chosen on the project page by the project's administrator", async () => {
-    const { context, page } = await signedIn(browser, "scheduler");
+    const { context, page } = await signedIn(browser(), "scheduler");
     const cookie = await cookieHeader(context);
     const name = `Avocet Slough Bridge ${Date.now()}`;
     const project = await call("/api/projects", { method: "POST", cookie, body: { name, structureName: "Avocet Slough Bridge", deckLengthFt: 700, startStationFt: 0, lanes: "L1, L2" } });

@@ -2,24 +2,23 @@
  * The field log in Debian's Chromium: an inspector logs several shifts (one refused with the field named),
  * then the engineer re-forecasts from the last data date and sees the forecast drift chart, the plan first.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import { call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn as signedInAs } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
 import { formatIsoDay } from "@/lib/format";
 
-let browser: Browser;
+const browser = browserPerFile();
 let scenarioId: string;
 const day = (n: number) => isoDaysFromToday(-21 + n);
 /** The form's confirmation of a recorded shift: the operation, the shift, the day in words, the stations. */
 const recorded = (operation: string, iso: string) => new RegExp(`^Recorded ${operation}, .+ of ${formatIsoDay(iso)}, STA \\d+\\+\\d{2} to STA \\d+\\+\\d{2}\\.$`);
 
 beforeAll(async () => {
-  browser = await launch();
   const scheduler = await signInAs("scheduler");
   const projectId = (await kestrelProject(scheduler)).id;
   scenarioId = (await createPastScenario(scheduler, projectId, "E2E field log")).id;
@@ -27,12 +26,9 @@ beforeAll(async () => {
   expect(planRun.status).toBe(202);
   expect((await waitForJob(planRun.body.job.id, scheduler)).status).toBe("completed");
 });
-afterAll(async () => {
-  await browser?.close();
-});
 
 async function signedIn(role: DemoRole): Promise<Page> {
-  return (await signedInAs(browser, role)).page;
+  return (await signedInAs(browser(), role)).page;
 }
 
 async function recordShift(page: Page, s: { date: string; op: string; from: number; to: number; temp?: number }) {

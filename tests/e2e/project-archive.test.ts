@@ -4,23 +4,16 @@
  * compare), the plan opens read-only with the reason, the Share page offers no new link, the project list keeps it
  * under "Archived projects", and Restore brings it back into use. No serious axe finding on the archived pages.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { APP_URL, call } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { cookieHeader, signedIn } from "./pages/sign-in";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserPerFile();
 
 describe("an archived project", () => {
   it("is archived and restored by its administrator, and reads as a record meanwhile", async () => {
-    const { context, page } = await signedIn(browser, "scheduler");
+    const { context, page } = await signedIn(browser(), "scheduler");
     const cookie = await cookieHeader(context);
     // A project of the scheduler's own (they are its administrator), with one scenario, so the demo stays as it is.
     const name = `Gull Point Overpass — archive ${Date.now()}`;

@@ -3,22 +3,20 @@
  * page; a visitor with no session sees the same plans (chart and table) and nothing to save or cancel, usable
  * with a screen reader (axe: no serious findings); revoked, the link shows "This link is not available".
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { call, mainDemoVariant, signInAs } from "../helpers/app";
 import { newSearch, uniq } from "../helpers/authz-world";
 import { waitForJob } from "../helpers/jobs";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { SearchPage, SharedSearchPage } from "./pages/search";
 
-let browser: Browser;
+const browser = browserPerFile();
 let scenarioId: string;
 let searchId: string;
 let variants: number;
 
 beforeAll(async () => {
-  browser = await launch();
   const cookie = await signInAs("engineer");
   scenarioId = await mainDemoVariant(cookie, uniq("E2E search share"));
   searchId = await newSearch(scenarioId, cookie);
@@ -26,13 +24,10 @@ beforeAll(async () => {
   expect((await waitForJob(search.body.search.jobId, cookie, { timeoutMs: 180_000 })).status).toBe("completed");
   variants = (await call(`/api/searches/${searchId}`, { cookie })).body.variants.length;
 }, 240_000);
-afterAll(async () => {
-  await browser?.close();
-});
 
 describe("a plan search shared by link", { timeout: 120_000 }, () => {
   it("opens read-only without signing in, reads with a screen reader, and is gone once revoked", async () => {
-    const { context, page } = await signedIn(browser, "engineer");
+    const { context, page } = await signedIn(browser(), "engineer");
     const search = new SearchPage(page, scenarioId, searchId);
     await search.open();
     await search.table().waitFor();
@@ -40,7 +35,7 @@ describe("a plan search shared by link", { timeout: 120_000 }, () => {
     expect(url).toMatch(/\/shared-search\/[A-Za-z0-9_-]{43}$/);
     expect(await seriousA11yViolations(page)).toEqual([]);
 
-    const anonymous = await browser.newContext();
+    const anonymous = await browser().newContext();
     const visitor = new SharedSearchPage(await anonymous.newPage());
     const res = await visitor.open(url);
     expect(res?.status()).toBe(200);

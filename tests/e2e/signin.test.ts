@@ -1,21 +1,14 @@
 /** A scheduler signs in, finds the project and its scenarios; a wrong password shows the error. */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { APP_URL, demoEmail } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { SignInPage } from "./pages/sign-in";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserPerFile();
 
 describe("sign-in", () => {
   it("a wrong password shows the error and stays on the sign-in page", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     const signIn = new SignInPage(page);
     await signIn.signIn(demoEmail("scheduler"), "not-the-password");
@@ -27,7 +20,7 @@ describe("sign-in", () => {
   });
 
   it("the demo scheduler signs in, sees the project and opens its scenario list", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await new SignInPage(page).signInAs("scheduler");
     await expect.poll(() => page.getByTestId("signed-in-name").textContent()).toBe("Marco Ilves");
@@ -49,7 +42,7 @@ describe("sign-in", () => {
   });
 
   it("signed out, an app page sends you to sign in", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await page.goto(`${APP_URL}/projects`);
     expect(new URL(page.url()).pathname).toBe("/signin");

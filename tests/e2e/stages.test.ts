@@ -4,24 +4,19 @@
  * the time–distance chart, in the closure strip under it and in the finish table.
  */
 import { readFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { call, kestrelProject, signInAs } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
 const STAGED = JSON.parse(readFileSync(new URL("../../scenarios/kestrel-staged-three-lane.json", import.meta.url), "utf8"));
 
-let browser: Browser;
+const browser = browserPerFile();
 let projectId: string;
 
 beforeAll(async () => {
-  browser = await launch();
   projectId = (await kestrelProject(await signInAs("scheduler"))).id;
-});
-afterAll(async () => {
-  await browser?.close();
 });
 
 /** A fresh copy of the staged demo: a variant of the seeded one when the seed has it, else the demo file itself. */
@@ -39,7 +34,7 @@ async function stagedScenario(): Promise<string> {
 describe("stages", () => {
   it("a scheduler edits a stage of the staged demo, saves, runs and sees both stages in the time–distance chart", async () => {
     const id = await stagedScenario();
-    const { context, page } = await signedIn(browser, "scheduler");
+    const { context, page } = await signedIn(browser(), "scheduler");
     const scenario = new ScenarioPage(page, id);
     await scenario.open("plan");
     await scenario.openPlanSection("stages");

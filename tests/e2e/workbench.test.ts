@@ -3,25 +3,21 @@
  * iterations and sees the curves; two people edit one scenario and the second save meets the conflict screen;
  * the owner executive compares two seeded scenarios; a share link opens with no session and shows the same P80.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, BrowserContext, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
 import { APP_URL, call, kestrelProject, mainDemoVariant, signInAs, type DemoRole } from "../helpers/app";
-import { launch, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn as signedInAs } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
-let browser: Browser;
+const browser = browserPerFile();
 let projectId: string;
 
 beforeAll(async () => {
-  browser = await launch();
   projectId = (await kestrelProject(await signInAs("scheduler"))).id;
 });
-afterAll(async () => {
-  await browser?.close();
-});
 
-const signedIn = (role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> => signedInAs(browser, role, width);
+const signedIn = (role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> => signedInAs(browser(), role, width);
 
 /** A fresh copy of the main demo scenario, so each test edits its own. */
 async function freshVariant(name: string): Promise<string> {
@@ -187,7 +183,7 @@ describe("workbench", () => {
     await screenshot(page, "share");
     expect(await seriousA11yViolations(page)).toEqual([]);
 
-    const anonymous = await browser.newContext();
+    const anonymous = await browser().newContext();
     const pub = await anonymous.newPage();
     await pub.goto(url);
     expect((await pub.getByTestId("p80-date").first().textContent())!.trim()).toBe(p80);

@@ -3,6 +3,7 @@ import { chromium, type Browser, type BrowserContext, type Page } from "playwrig
 import { mkdirSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import AxeBuilder from "@axe-core/playwright";
+import { afterAll, beforeAll } from "vitest";
 
 export const SCREENSHOTS = fileURLToPath(new URL("../e2e/screenshots/", import.meta.url));
 
@@ -25,6 +26,24 @@ async function watchPolicy(context: BrowserContext): Promise<void> {
   context.on("console", (m) => {
     if (m.text().startsWith("policy violation:") || /Content Security Policy/.test(m.text())) policyViolations.push(`${m.page()?.url() ?? "?"}: ${m.text()}`);
   });
+}
+
+/**
+ * One Chromium for an e2e file: launched before the file's tests, closed after them. Called once at the top of the
+ * file; what it returns gives the running browser.
+ */
+export function browserPerFile(): () => Browser {
+  let browser: Browser | null = null;
+  beforeAll(async () => {
+    browser = await launch();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error("the file's browser is launched in beforeAll");
+    return browser;
+  };
 }
 
 export async function launch(): Promise<Browser> {
