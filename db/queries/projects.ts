@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, isNotNull, isNull, sql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb, prepared } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users, type Role } from "../schema";
@@ -77,20 +77,24 @@ export async function listProjectsForUser({ userId }: { userId: string }) {
     .orderBy(asc(projects.name));
 }
 
-/** The id of a scenario's newest forecast (a plan run or re-forecast the server stands behind), as SQL; null for none. */
-function newestForecastOf(scenarioId: string | null | SQL) {
-  return sql`(select ${simulationRuns.id} from ${simulationRuns} where ${simulationRuns.scenarioId} = ${scenarioId}::uuid and ${isForecast} order by ${simulationRuns.createdAt} desc, ${simulationRuns.id} desc limit 1)`;
-}
-
 /**
  * Plans of record whose newest forecast has not been announced yet, on projects in use, with the headline the
- * e-mail says (planOfRecordParts) and the announced run it replaces (for the claim).
+ * e-mail says (planOfRecordParts), whether the plan itself changed since, and the announced run it replaces (for
+ * the claim).
  */
 export async function listUnannouncedPlanForecasts() {
   const db = getDb();
   const { plan, planRun, previousRun, columns } = planOfRecordParts(db);
   return db
-    .select({ projectId: projects.id, projectName: projects.name, announcedRunId: projects.planAnnouncedRunId, newestRunId: planRun.id, ...columns })
+    .select({
+      projectId: projects.id,
+      projectName: projects.name,
+      announcedRunId: projects.planAnnouncedRunId,
+      // Another scenario's (or none): the plan of record itself changed since the last e-mail.
+      planChanged: sql<boolean>`${projects.planScenarioId} is distinct from (select ${simulationRuns.scenarioId} from ${simulationRuns} where ${simulationRuns.id} = ${projects.planAnnouncedRunId})`,
+      newestRunId: planRun.id,
+      ...columns,
+    })
     .from(projects)
     .innerJoin(plan, eq(plan.id, projects.planScenarioId))
     .leftJoinLateral(planRun, sql`true`)
@@ -164,13 +168,8 @@ export async function updateProject({ projectId, project }: { projectId: string;
 export async function setPlanOfRecord({ projectId, scenarioId }: { projectId: string; scenarioId: string | null }): Promise<"ok" | "no_scenario" | "no_project"> {
   const db = getDb();
   const own = scenarioId === null ? sql`true` : sql`exists (select 1 from ${scenarios} where ${scenarios.id} = ${scenarioId} and ${scenarios.projectId} = ${projectId})`;
-  // A newly chosen plan's forecast as it stands is not news: only forecasts made after the choice are e-mailed.
-  const announced = sql`case when ${projects.planScenarioId} is not distinct from ${scenarioId}::uuid then ${projects.planAnnouncedRunId} else ${newestForecastOf(scenarioId)} end`;
-  const [row] = await db
-    .update(projects)
-    .set({ planScenarioId: scenarioId, planAnnouncedRunId: announced })
-    .where(and(eq(projects.id, projectId), own))
-    .returning({ id: projects.id });
+  // The announced forecast stays the old plan's: the forecast e-mails then tell their readers of the new plan.
+  const [row] = await db.update(projects).set({ planScenarioId: scenarioId }).where(and(eq(projects.id, projectId), own)).returning({ id: projects.id });
   if (row) return "ok";
   return (await getProject({ id: projectId })) ? "no_scenario" : "no_project";
 }

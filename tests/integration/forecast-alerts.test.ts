@@ -1,7 +1,8 @@
 /**
  * Forecast e-mails: a member ticks "E-mail me each new forecast of the plan of record"; each new plan run or
  * re-forecast of the plan of record is then e-mailed to those who asked — once, in the project list's words — and
- * to nobody else; a plan newly chosen is not news; an archived project sends nothing until it is restored. The
+ * to nobody else; choosing another plan of record sends its newest forecast, said as the new plan; an archived
+ * project sends nothing until it is restored. The
  * app's own sender (every 2 s under `npm test`) does the sending; the tests wait for its outbox rows.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -65,23 +66,24 @@ describe("forecast e-mails", () => {
     expect(Object.fromEntries(rows.map((r) => [r.email, r.forecast_alerts]))).toEqual({ [admin.email]: false, [engineer.email]: false, [viewer.email]: true });
   });
 
-  it("a plan's forecast as it stands when chosen is not news; each one after is e-mailed once, to those who asked", async () => {
+  it("choosing a plan of record e-mails its newest forecast as the new plan; each one after is e-mailed once, to those who asked", async () => {
     const before = await run(planId, "before-chosen");
     expect((await choosePlan(planId)).status).toBe(200);
-    expect(await announced()).toBe(before.runId);
-
+    await announcedAs(before.runId);
     const first = await run(planId, "first");
     await announcedAs(first.runId);
     const second = await run(planId, "second");
     await announcedAs(second.runId);
 
     const mail = await mailTo(viewer.email);
-    expect(mail.map((m) => m.subject)).toEqual([first.p80, second.p80].map((p80) => expect.stringMatching(new RegExp(`^Forecast for Hardening test \\w+: P80 finish ${formatIsoDate(p80)}$`))));
-    expect(mail[0].text_body).toContain(`Forecast e-mails plan: P80 finish ${formatIsoDate(first.p80)} (P50 `);
-    expect(mail[0].text_body).toContain(`/scenarios/${planId}`);
-    expect(mail[0].text_body).toContain(`Turn them off on the project page: `);
-    // The second says how far the P80 moved since the first.
-    expect(mail[1].text_body).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the previous forecast/);
+    expect(mail.map((m) => m.subject)).toEqual([before.p80, first.p80, second.p80].map((p80) => expect.stringMatching(new RegExp(`^Forecast for Hardening test \\w+: P80 finish ${formatIsoDate(p80)}$`))));
+    expect(mail[0].text_body).toMatch(/^"Hardening test \w+" is now run by another plan of record, "Forecast e-mails plan"\. Its newest forecast:/);
+    expect(mail[1].text_body).toMatch(/^A new forecast of the plan of record of "Hardening test \w+":/);
+    expect(mail[1].text_body).toContain(`Forecast e-mails plan: P80 finish ${formatIsoDate(first.p80)} (P50 `);
+    expect(mail[1].text_body).toContain(`/scenarios/${planId}`);
+    expect(mail[1].text_body).toContain(`Turn them off on the project page: `);
+    // The third says how far the P80 moved since the second.
+    expect(mail[2].text_body).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the previous forecast/);
     expect(await mailTo(engineer.email)).toHaveLength(0);
     expect(await mailTo(admin.email)).toHaveLength(0);
   });

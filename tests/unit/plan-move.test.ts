@@ -68,12 +68,16 @@ describe("the plan of record's forecast in words (the project list's and the for
   });
 
   it("the e-mail says the same sentence, links the plan, and escapes what people typed in its HTML", () => {
-    const mail = forecastAlertMail({ to: "a@b.example", projectName: "Deck <b>overlay</b>", plan: { ...plan, planName: "Plan & co" }, planLink: "http://x/scenarios/p", projectLink: "http://x/projects/q" })!;
+    const mail = forecastAlertMail({ to: "a@b.example", projectName: "Deck <b>overlay</b>", plan: { ...plan, planName: "Plan & co" }, planChanged: false, planLink: "http://x/scenarios/p", projectLink: "http://x/projects/q" })!;
     expect(mail.subject).toBe("Forecast for Deck <b>overlay</b>: P80 finish 23 Aug 2027");
     expect(mail.text).toContain("Plan & co: P80 finish 23 Aug 2027 (P50 15 Aug 2027), 10 days later than the previous forecast;");
     expect(mail.text).toContain("http://x/scenarios/p");
     expect(mail.html).toContain("Deck &lt;b&gt;overlay&lt;/b&gt;");
     expect(mail.html).not.toContain("<b>overlay");
-    expect(forecastAlertMail({ to: "a@b.example", projectName: "x", plan: { ...plan, planRunSummary: null }, planLink: "", projectLink: "" })).toBeNull();
+    expect(mail.text.startsWith('A new forecast of the plan of record of "Deck <b>overlay</b>":')).toBe(true);
+    // Another plan chosen since the last e-mail: said first.
+    const chosen = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: true, planLink: "", projectLink: "" })!;
+    expect(chosen.text.startsWith('"Deck" is now run by another plan of record, "Two seasons". Its newest forecast:')).toBe(true);
+    expect(forecastAlertMail({ to: "a@b.example", projectName: "x", plan: { ...plan, planRunSummary: null }, planChanged: false, planLink: "", projectLink: "" })).toBeNull();
   });
 });

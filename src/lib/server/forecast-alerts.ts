@@ -1,7 +1,7 @@
 import "server-only";
 /**
  * E-mails each new forecast of a project's plan of record — a plan run or a re-forecast the server stands
- * behind — once, to the members who asked for it. One transaction per project claims the forecast as announced
+ * behind, or the newest forecast of a plan newly chosen — once, to the members who asked for it. One transaction per project claims the forecast as announced
  * (only if no other server process did) and queues one outbox e-mail per recipient, so a forecast is announced
  * whole or not at all, and never twice. Archived projects send nothing. Started by src/instrumentation.ts
  * (POURLINE_FORECAST_ALERTS=off disables it; POURLINE_NOTICE_INTERVAL_MS, default 60 s, sets the pace).
@@ -24,7 +24,7 @@ export async function sendForecastAlerts(): Promise<number> {
       announced++;
       const links = { planLink: `${baseUrl()}/scenarios/${p.planScenarioId}`, projectLink: `${baseUrl()}/projects/${p.projectId}` };
       for (const to of await forecastAlertRecipients({ tx, projectId: p.projectId })) {
-        const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, ...links });
+        const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, planChanged: p.planChanged, ...links });
         if (mail) await enqueueMail(tx, mail);
       }
     });

@@ -1,18 +1,19 @@
 import "server-only";
 /**
- * The e-mail a member asked for on a project: a new forecast of its plan of record, in the same words as the
- * project list (src/lib/plan-of-record-text.ts), with links to the plan and to where the e-mails are turned off.
+ * The e-mail a member asked for on a project: a new forecast of its plan of record (or a newly chosen plan's
+ * newest forecast), in the same words as the project list (src/lib/plan-of-record-text.ts), with links to the plan and to where the e-mails are turned off.
  */
 import { planForecastText, type PlanOfRecordView } from "@/lib/plan-of-record-text";
 import type { MailMessage } from "./outbox";
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
-export function forecastAlertMail(v: { to: string; projectName: string; plan: PlanOfRecordView; planLink: string; projectLink: string }): MailMessage | null {
+/** `planChanged`: the project chose another plan of record since the last e-mail; this is the new plan's newest forecast. */
+export function forecastAlertMail(v: { to: string; projectName: string; plan: PlanOfRecordView; planChanged: boolean; planLink: string; projectLink: string }): MailMessage | null {
   const text = planForecastText(v.plan);
   if (!text || !v.plan.planName) return null;
   const paragraphs = [
-    `A new forecast of the plan of record of "${v.projectName}":`,
+    v.planChanged ? `"${v.projectName}" is now run by another plan of record, "${v.plan.planName}". Its newest forecast:` : `A new forecast of the plan of record of "${v.projectName}":`,
     `${v.plan.planName}: P80 finish ${text.p80}${text.rest}`,
     text.when,
     "P80: 8 in 10 of the simulated outcomes finish by that date. A forecast is a planning aid; the project specifications and the engineer in charge decide.",
