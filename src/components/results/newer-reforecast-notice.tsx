@@ -1,7 +1,7 @@
 import Link from "next/link";
-import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
+import { formatDateTime, formatIsoDate } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
-import { shiftsNotInText } from "@/lib/plan-of-record-text";
+import { planForecastText, shiftsNotInText } from "@/lib/plan-of-record-text";
 
 export interface ReforecastHeadline {
   dataDate: string | null;
@@ -23,14 +23,15 @@ export function newerThanShown<R extends ReforecastHeadline>(reforecast: R | nul
  */
 export function NewerReforecastNotice(props: { scenarioId: string; reforecast: ReforecastHeadline; shownRunAt: Date | string | null; document?: boolean }) {
   const { scenarioId, reforecast, shownRunAt, document = false } = props;
-  const h = reforecast.summary as RunHeadline;
-  if (!h?.finish?.p80) return null;
+  // The project list's words for a forecast (without "how far it moved", which the drift chart says).
+  const text = planForecastText({ planScenarioId: scenarioId, planName: null, planRunSummary: reforecast.summary, planRunAt: reforecast.createdAt, planRunDataDate: reforecast.dataDate, planRunStale: false });
+  if (!text) return null;
   return (
     <div className="rounded-md border border-brand-700/30 bg-brand-50 px-4 py-3 text-sm" role="status" data-testid="newer-reforecast">
       <p>
         <strong>The field log has moved this forecast on.</strong> Re-forecast from the work recorded up to {reforecast.dataDate ? formatIsoDate(reforecast.dataDate) : "its data date"} (run{" "}
-        {formatDateTime(reforecast.createdAt)}): P80 finish <strong>{formatIsoDate(h.finish.p80)}</strong> (P50 {formatIsoDate(h.finish.p50)})
-        {h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability)} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : ""}.
+        {formatDateTime(reforecast.createdAt)}): P80 finish <strong>{text.p80}</strong>
+        {text.rest}
         {reforecast.shiftsNotIn > 0 ? ` ${shiftsNotInText(reforecast.shiftsNotIn, "that re-forecast")}.` : ""}
       </p>
       <p className="mt-1">
