@@ -38,6 +38,8 @@ describe("the plan of record", () => {
     const notice = page.getByTestId("newer-reforecast");
     await notice.waitFor();
     expect(await notice.textContent()).toMatch(new RegExp(`The field log has moved this forecast on\\..*P80 finish ${p80}.*Below is the plan as run on`));
+    // The plan run's own card says what it is.
+    await page.getByRole("heading", { name: "Plan run", level: 2 }).waitFor();
     expect(await seriousA11yViolations(page)).toEqual([]);
     // The owner brief of the plan leads with the same re-forecast, with nothing to click.
     const planUrl = page.url();

@@ -35,6 +35,7 @@ export function OutlookRun({
   shown,
   header,
   empty,
+  shownHeading,
 }: {
   scenarioId: string;
   scenarioVersion: number;
@@ -42,6 +43,8 @@ export function OutlookRun({
   shown: ShownRun | null;
   header: ReactNode;
   empty: ReactNode;
+  /** The heading of the server's run when it is not the forecast (ResultsView `heading`); a run just made here is. */
+  shownHeading?: string;
 }) {
   const local = useLocalRun(scenarioId);
   const { show, sameAsLocal } = chooseShownRun(local, shown?.key ?? null, scenarioVersion);
@@ -59,7 +62,7 @@ export function OutlookRun({
   return (
     <>
       <div className="space-y-5">{showLocal ? <LocalRunHeader local={local!} /> : header}</div>
-      <ResultsView summary={summary} definition={definition} run={run} />
+      <ResultsView summary={summary} definition={definition} run={run} heading={showLocal ? undefined : shownHeading} />
     </>
   );
 }

@@ -52,7 +52,8 @@ function Section({ title, id, children, description }: { title: string; id: stri
   );
 }
 
-export function ResultsView({ summary, definition: given, run, document = false }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean }) {
+/** `heading`: "Forecast", or "Plan run" where a newer re-forecast from the field log is the forecast (said above it). */
+export function ResultsView({ summary, definition: given, run, document = false, heading = "Forecast" }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean; heading?: string }) {
   // A page refresh brings the same plan as a new object: keep the one already parsed and drawn.
   const definition = useJsonStable(given);
   const plan = useMemo(() => {
@@ -75,7 +76,7 @@ export function ResultsView({ summary, definition: given, run, document = false 
     <div className="space-y-5" data-testid="results-view" data-run-seed={run.seed} data-run-iterations={summary.iterations}>
       <section className="card" aria-labelledby={`${idp}-summary`}>
         <div className="flex flex-wrap items-center gap-2">
-          <h2 id={`${idp}-summary`}>Forecast</h2>
+          <h2 id={`${idp}-summary`}>{heading}</h2>
           {run.stale && (
             <span className="badge bg-warn-bg text-warn" data-testid="stale-badge" title="The scenario changed after this run">
               Stale — plan changed since this run

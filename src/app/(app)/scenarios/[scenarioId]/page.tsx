@@ -45,6 +45,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
         scenarioId={scenario.id}
         scenarioVersion={scenario.version}
         definition={scenario.definition}
+        shownHeading={newerReforecast ? "Plan run" : undefined}
         shown={run ? { key: planComputationKey(run), summary: run.results as unknown as RunSummary, run: resultsRunOf(run, scenario.version) } : null}
         header={
           run && (

@@ -81,7 +81,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
               {iterationsStatement(s).warning}
             </p>
           )}
-          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run, scenario.version)} document />
+          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run, scenario.version)} document heading={newerReforecast ? "Plan run" : undefined} />
           <BriefTraffic plan={d} summary={s} seed={run.seed} iterations={run.iterations} />
         </>
       )}
