@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, sql, type AnyColumn } from "drizzle-orm";
 import { getDb } from "../client";
 import { progressEntries, progressHistory, simulationRuns, users } from "../schema";
 import { isForecast } from "./runs";
@@ -120,8 +120,16 @@ export async function listReforecastRuns({ scenarioId }: { scenarioId: string })
     })
     .from(simulationRuns)
     .leftJoin(users, eq(users.id, simulationRuns.createdById))
-    .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate)))
+    .where(reforecastsOf(scenarioId))
     .orderBy(asc(simulationRuns.dataDate), asc(simulationRuns.createdAt));
+}
+
+/**
+ * A scenario's re-forecasts (runs with a data date) that count as forecasts — every one does, since only the server
+ * computes them — as one condition for each query that looks for them. `scenarioId`: a value or a column.
+ */
+export function reforecastsOf(scenarioId: string | AnyColumn) {
+  return and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate), isForecast);
 }
 
 /**
@@ -152,7 +160,7 @@ export async function getLatestReforecast({ scenarioId }: { scenarioId: string }
   const [row] = await getDb()
     .select({ id: simulationRuns.id, dataDate: simulationRuns.dataDate, scenarioVersion: simulationRuns.scenarioVersion, results: simulationRuns.results, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun })
     .from(simulationRuns)
-    .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate)))
+    .where(reforecastsOf(scenarioId))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1);
   return row ?? null;
@@ -166,7 +174,7 @@ export async function getNewestReforecastHeadline({ scenarioId }: { scenarioId: 
   const [row] = await getDb()
     .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun })
     .from(simulationRuns)
-    .where(and(eq(simulationRuns.scenarioId, scenarioId), isNotNull(simulationRuns.dataDate), isForecast))
+    .where(reforecastsOf(scenarioId))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1);
   return row ?? null;

@@ -1,9 +1,10 @@
 import "server-only";
-import { and, asc, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb, prepared, type Database } from "../client";
 import { scenarioRevisions, scenarios, simulationRuns, users, type RunVerification } from "../schema";
 import { isForecast } from "./runs";
+import { reforecastsOf } from "./progress";
 
 const owner = alias(users, "owner");
 const editor = alias(users, "editor");
@@ -63,7 +64,7 @@ function projectScenarios(db: Database) {
       reforecastDataDate: sql<string>`${simulationRuns.dataDate}`.as("reforecast_data_date"),
     })
     .from(simulationRuns)
-    .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNotNull(simulationRuns.dataDate), isForecast))
+    .where(reforecastsOf(scenarios.id))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1)
     .as("latest_reforecast");
