@@ -291,6 +291,10 @@ export const progressEntries = pgTable(
       .references(() => users.id),
     createdAt: ts("created_at").notNull().defaultNow(),
     updatedAt: ts("updated_at").notNull().defaultNow(),
+    // Deleting a shift keeps it on record (who, when): a field record does not vanish, and a forecast that used it
+    // is known to be behind the field (db/queries/progress.ts `shiftsNotInRun`). Every read of the log skips these.
+    deletedAt: ts("deleted_at"),
+    deletedById: text("deleted_by").references(() => users.id),
   },
   (t) => [index("progress_project_idx").on(t.projectId, t.workDate)],
 );
@@ -304,8 +308,10 @@ export const progressHistory = pgTable("progress_history", {
     .notNull()
     .references(() => users.id),
   changedAt: ts("changed_at").notNull().defaultNow(),
+  /** Null when the entry was created. */
   before: jsonb("before"),
-  after: jsonb("after").notNull(),
+  /** Null when the entry was deleted. */
+  after: jsonb("after"),
 });
 
 export const emailOutbox = pgTable(

@@ -1,5 +1,6 @@
 import "server-only";
-import { and, asc, desc, eq, isNotNull, sql, type AnyColumn } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, isNull, sql, type AnyColumn } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { progressEntries, progressHistory, simulationRuns, users } from "../schema";
 import { isForecast } from "./runs";
@@ -49,14 +50,27 @@ export async function listProgress({ scenarioId }: { scenarioId: string }) {
     .select(entryColumns)
     .from(progressEntries)
     .innerJoin(users, eq(users.id, progressEntries.enteredById))
-    .where(eq(progressEntries.scenarioId, scenarioId))
+    .where(and(eq(progressEntries.scenarioId, scenarioId), isNull(progressEntries.deletedAt)))
     .orderBy(asc(progressEntries.workDate), asc(progressEntries.createdAt));
 }
 export type ProgressRow = Awaited<ReturnType<typeof listProgress>>[number];
 
 export async function getProgressEntry({ id }: { id: string }) {
-  const [row] = await getDb().select(entryColumns).from(progressEntries).innerJoin(users, eq(users.id, progressEntries.enteredById)).where(eq(progressEntries.id, id));
+  const [row] = await getDb().select(entryColumns).from(progressEntries).innerJoin(users, eq(users.id, progressEntries.enteredById)).where(and(eq(progressEntries.id, id), isNull(progressEntries.deletedAt)));
   return row ?? null;
+}
+
+const deletedBy = alias(users, "deleted_by_user");
+
+/** A scenario's deleted shifts, most recently deleted first: kept on record with who deleted them and when. */
+export async function listDeletedProgress({ scenarioId }: { scenarioId: string }) {
+  return getDb()
+    .select({ ...entryColumns, deletedAt: progressEntries.deletedAt, deletedByName: deletedBy.name })
+    .from(progressEntries)
+    .innerJoin(users, eq(users.id, progressEntries.enteredById))
+    .leftJoin(deletedBy, eq(deletedBy.id, progressEntries.deletedById))
+    .where(and(eq(progressEntries.scenarioId, scenarioId), isNotNull(progressEntries.deletedAt)))
+    .orderBy(desc(progressEntries.deletedAt), asc(progressEntries.id));
 }
 
 export async function listProgressHistory({ entryId }: { entryId: string }) {
@@ -86,7 +100,7 @@ export type ProgressUpdateResult = { ok: true; version: number } | { ok: false; 
 /** Saves only over the version the editor loaded; the history row (before/after, who) is in the same transaction. */
 export async function updateProgressEntry(input: { id: string; expectedVersion: number; fields: ProgressFields; userId: string }): Promise<ProgressUpdateResult> {
   return getDb().transaction(async (tx) => {
-    const [current] = await tx.select().from(progressEntries).where(eq(progressEntries.id, input.id)).for("update");
+    const [current] = await tx.select().from(progressEntries).where(and(eq(progressEntries.id, input.id), isNull(progressEntries.deletedAt))).for("update");
     if (!current) return { ok: false, reason: "missing" };
     if (current.version !== input.expectedVersion) return { ok: false, reason: "conflict", currentVersion: current.version };
     const fields = fieldsOf(input.fields);
@@ -100,9 +114,18 @@ export async function updateProgressEntry(input: { id: string; expectedVersion: 
   });
 }
 
-export async function deleteProgressEntry({ id }: { id: string }) {
-  const rows = await getDb().delete(progressEntries).where(eq(progressEntries.id, id)).returning({ id: progressEntries.id });
-  return rows.length > 0;
+/**
+ * Deletes a shift from the log but keeps it on record: marked deleted (who, when) with a history row (after = null)
+ * in one transaction. False when there is no such entry, or it was deleted already.
+ */
+export async function deleteProgressEntry({ id, userId }: { id: string; userId: string }) {
+  return getDb().transaction(async (tx) => {
+    const [current] = await tx.select().from(progressEntries).where(and(eq(progressEntries.id, id), isNull(progressEntries.deletedAt))).for("update");
+    if (!current) return false;
+    await tx.update(progressEntries).set({ deletedAt: new Date(), deletedById: userId }).where(eq(progressEntries.id, id));
+    await tx.insert(progressHistory).values({ entryId: id, changedById: userId, before: fieldsOf(current), after: null });
+    return true;
+  });
 }
 
 /** Re-forecast runs of a scenario, oldest data date first (the drift chart's order), headline figures only. */
@@ -133,15 +156,19 @@ export function reforecastsOf(scenarioId: string | AnyColumn) {
 }
 
 /**
- * How many of a scenario's field-log shifts a forecast does not know, as a column of any select over
- * simulation_runs: shifts worked after its data date (a plan run has none: it knows no shift), or recorded or
- * corrected after it was run. Above zero, the forecast is behind the field: the one place this rule is written.
- * A shift deleted since is not counted (deleting leaves no row to count).
+ * How many field-log changes a forecast does not know, as a column of any select over simulation_runs: shifts in
+ * the log worked after its data date (a plan run has none: it knows no shift), or recorded or corrected after it
+ * was run; and shifts it used that were deleted after it was run. Above zero, the forecast is behind the field:
+ * the one place this rule is written.
  */
 export const shiftsNotInRun = sql<number>`(
   SELECT count(*)::int FROM ${progressEntries} pe
   WHERE pe.scenario_id = ${simulationRuns.scenarioId}
-    AND (pe.work_date > coalesce(${simulationRuns.dataDate}, '-infinity'::date) OR pe.updated_at > ${simulationRuns.createdAt})
+    AND CASE WHEN pe.deleted_at IS NULL
+      THEN pe.work_date > coalesce(${simulationRuns.dataDate}, '-infinity'::date) OR pe.updated_at > ${simulationRuns.createdAt}
+      ELSE pe.deleted_at > ${simulationRuns.createdAt} AND pe.created_at <= ${simulationRuns.createdAt}
+        AND pe.work_date <= coalesce(${simulationRuns.dataDate}, '-infinity'::date)
+    END
 )`;
 
 /** The newest plan run (no data date): the drift chart's first point. */

@@ -44,7 +44,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     planRunAt: planRun.at,
     planRunDataDate: planRun.dataDate,
     planRunStale: sql<boolean | null>`(${planRun.version} <> ${plan.version})`,
-    /** Field-log shifts the newest forecast does not know (progress.ts `shiftsNotInRun`). */
+    /** Field-log changes the newest forecast does not know (progress.ts `shiftsNotInRun`). */
     planRunShiftsNotIn: planRun.shiftsNotIn,
     previousRunSummary: previousRun.summary,
   };

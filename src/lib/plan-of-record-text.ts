@@ -16,7 +16,7 @@ export interface PlanOfRecordView {
   planRunDataDate: string | null;
   /** The plan changed after that forecast. */
   planRunStale: boolean | null;
-  /** Field-log shifts that forecast does not know (db/queries/progress.ts `shiftsNotInRun`). */
+  /** Field-log changes that forecast does not know (db/queries/progress.ts `shiftsNotInRun`). */
   planRunShiftsNotIn?: number | null;
   /** The forecast before the newest, to say how far the finish moved (null: the newest is the only one). */
   previousRunSummary?: RunHeadline | Record<string, unknown> | null;
@@ -37,14 +37,17 @@ export function p80MoveText(now: string | undefined, before: string | undefined)
   return `${n.toLocaleString("en-US")} day${n === 1 ? "" : "s"} ${days > 0 ? "later" : "earlier"} than the previous forecast`;
 }
 
-/** "3 shifts in the field log are not in this forecast" — said wherever a forecast is behind the field. */
-export function shiftsNotInText(n: number, forecast = "this forecast"): string {
-  return `${n.toLocaleString("en-US")} shift${n === 1 ? "" : "s"} in the field log ${n === 1 ? "is" : "are"} not in ${forecast}`;
+/**
+ * "3 changes in the field log are not in this forecast" — said wherever a forecast is behind the field. A change is
+ * a shift recorded, corrected or deleted that the forecast does not reflect (db/queries/progress.ts `shiftsNotInRun`).
+ */
+export function changesNotInText(n: number, forecast = "this forecast"): string {
+  return `${n.toLocaleString("en-US")} change${n === 1 ? "" : "s"} in the field log ${n === 1 ? "is" : "are"} not in ${forecast}`;
 }
 
 /**
  * The newest forecast of a plan of record as "P80 finish {p80}{rest}" plus a line saying which forecast and how old
- * (stale when the plan changed after it, and how many field-log shifts it does not know); null when not run yet.
+ * (stale when the plan changed after it, and how many field-log changes it does not know); null when not run yet.
  */
 export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: string; when: string } | null {
   const h = plan.planRunSummary as RunHeadline | null;
@@ -57,6 +60,6 @@ export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: s
   return {
     p80: formatIsoDate(h.finish.p80),
     rest: ` (P50 ${formatIsoDate(h.finish.p50)})${move ? `, ${move}` : ""}${target}.`,
-    when: `${source}${plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}${plan.planRunShiftsNotIn ? ` ${shiftsNotInText(plan.planRunShiftsNotIn)}.` : ""}`,
+    when: `${source}${plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}${plan.planRunShiftsNotIn ? ` ${changesNotInText(plan.planRunShiftsNotIn)}.` : ""}`,
   };
 }

@@ -1,6 +1,7 @@
 /**
  * The field log in Debian's Chromium: an inspector logs several shifts (one refused with the field named),
- * then the engineer re-forecasts from the last data date and sees the forecast drift chart, the plan first.
+ * then the engineer re-forecasts from the last data date and sees the forecast drift chart, the plan first, and
+ * deletes a shift: it stays on record under "Deleted shifts", and the re-forecast that used it is behind the field.
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
@@ -90,6 +91,25 @@ describe("field log", () => {
     // The re-forecast from day 2 knows all three shifts.
     expect(await engineer.getByTestId("behind-field").count()).toBe(0);
     await screenshot(engineer, "forecast-drift");
+    expect(await seriousA11yViolations(engineer)).toEqual([]);
+
+    // The newest row is day 2's overlay; deleting it (after the confirmation) keeps it on record.
+    const newest = engineer.getByTestId("progress-row").first();
+    expect(await newest.textContent()).toContain("Overlay placement");
+    let asked = "";
+    engineer.once("dialog", (d) => {
+      asked = d.message();
+      void d.accept();
+    });
+    await newest.getByRole("button", { name: "Delete" }).click();
+    await expect.poll(() => engineer.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(2);
+    expect(asked).toMatch(/^Delete the Overlay placement entry of .+\? It stays on record under "Deleted shifts"/);
+    const deleted = engineer.getByTestId("deleted-shifts");
+    await deleted.locator("summary").click();
+    expect(await deleted.locator("summary").textContent()).toBe("Deleted shifts (1) — kept on record, not in any new forecast");
+    expect(await deleted.getByTestId("deleted-shift").textContent()).toMatch(/Overlay placement.*Rosa Tenney.*Dana Whitcomb, /);
+    expect(await engineer.getByTestId("behind-field").textContent()).toMatch(/: 1 change in the field log is not in it — shifts worked after its data date, recorded or corrected since it was run, or deleted since\./);
+    await screenshot(engineer, "field-log-deleted-shift");
     expect(await seriousA11yViolations(engineer)).toEqual([]);
   });
 });

@@ -3,7 +3,8 @@
  * history of who changed what, roles, deletes that would leave later work ahead, and re-forecasts stored with
  * their data date that never schedule recorded work again.
  */
-import { beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import postgres from "postgres";
 import { call, kestrelProject, signInAs } from "../helpers/app";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
@@ -13,6 +14,9 @@ let inspector: string;
 let engineer: string;
 let viewer: string;
 let projectId: string;
+
+const appDb = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+afterAll(() => appDb.end());
 
 beforeAll(async () => {
   [scheduler, inspector, engineer, viewer] = await Promise.all([signInAs("scheduler"), signInAs("inspector"), signInAs("engineer"), signInAs("viewer")]);
@@ -106,7 +110,23 @@ describe("progress entries", () => {
     expect(refused.status).toBe(400);
     expect(refused.body.fields[0].message).toMatch(/Overlay placement entry .* ahead of its predecessor/);
     expect((await call(`/api/progress/${o.body.id}`, { method: "DELETE", cookie: inspector })).status).toBe(200);
-    expect((await call(`/api/progress/${m.body.id}`, { method: "DELETE", cookie: inspector })).status).toBe(200);
+    expect((await call(`/api/progress/${m.body.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
+
+    // Out of the log, kept on record: who deleted what and when, most recent first; gone for reading, editing
+    // and deleting again.
+    const log = (await call(`/api/scenarios/${s.id}/progress`, { cookie: viewer })).body;
+    expect(log.entries).toEqual([]);
+    expect(log.deleted.map((d: { id: string }) => d.id)).toEqual([m.body.id, o.body.id]);
+    expect(log.deleted[0]).toMatchObject({ operationId: "milling", fromStationFt: 0, toStationFt: 300, enteredByName: "Rosa Tenney", deletedByName: "Dana Whitcomb", deletedAt: expect.any(String) });
+    expect(log.deleted[1]).toMatchObject({ operationId: "overlay", deletedByName: "Rosa Tenney" });
+    expect((await call(`/api/progress/${m.body.id}`, { cookie: viewer })).status).toBe(404);
+    expect((await call(`/api/progress/${m.body.id}`, { method: "PUT", cookie: inspector, body: { ...milling(), version: 1 } })).status).toBe(404);
+    expect((await call(`/api/progress/${m.body.id}`, { method: "DELETE", cookie: inspector })).status).toBe(404);
+    // The deletion is in the entry's history (before: what it said; after: nothing), by whom.
+    const history = await appDb`SELECT h.before->>'operationId' AS op, h.after IS NULL AS deleted, u.name FROM progress_history h JOIN users u ON u.id = h.changed_by WHERE h.entry_id = ${m.body.id} ORDER BY h.changed_at`;
+    expect(history).toEqual([{ op: null, deleted: false, name: "Rosa Tenney" }, { op: "milling", deleted: true, name: "Dana Whitcomb" }]);
+    // A deleted shift no longer holds its stations: the same milling can be recorded again.
+    expect((await post(s.id, milling())).status).toBe(201);
   });
 });
 
@@ -149,7 +169,7 @@ describe("re-forecast", () => {
 });
 
 describe("a forecast behind the field", () => {
-  it("counts the field-log shifts the plan of record's newest forecast does not know: worked after its data date, or recorded or corrected since it was run", async () => {
+  it("counts the field-log changes the plan of record's newest forecast does not know: shifts worked after its data date, recorded or corrected since it was run, or deleted since", async () => {
     // A project of the engineer's own (its administrator): the plan of record of the demo is not this test's to change.
     const made = await call("/api/projects", { method: "POST", cookie: engineer, body: { name: `Dunlin Creek Bridge ${Date.now()}`, structureName: "Dunlin Creek Bridge", deckLengthFt: 1000, startStationFt: 0, lanes: "L1, L2" } });
     expect(made.status).toBe(201);
@@ -176,7 +196,11 @@ describe("a forecast behind the field", () => {
     expect(corrected.status).toBe(200);
     expect(await notIn()).toBe(2); // worked before it, corrected since
     expect((await call(`/api/progress/${second.body.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
-    expect(await notIn()).toBe(1);
+    expect(await notIn()).toBe(1); // the forecast never used it: deleting it changes nothing it knows
+    await forecast("reforecast", { dataDate: day(3) });
+    expect(await notIn()).toBe(0);
+    expect((await call(`/api/progress/${first.body.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
+    expect(await notIn()).toBe(1); // the forecast used it: it is behind the field until re-forecast
     await forecast("reforecast", { dataDate: day(3) });
     expect(await notIn()).toBe(0);
   });

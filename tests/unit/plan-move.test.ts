@@ -62,7 +62,7 @@ describe("the plan of record's forecast in words (the project list's and the for
 
   it("says when the plan changed after it and how many field-log shifts it does not know; nothing when not run", () => {
     expect(planForecastText({ ...plan, planRunStale: true, planRunShiftsNotIn: 3, planRunDataDate: null, previousRunSummary: null })?.when).toBe(
-      "Forecast run 1 Nov 2026, 12:00; the plan has changed since, so this forecast is stale. 3 shifts in the field log are not in this forecast.",
+      "Forecast run 1 Nov 2026, 12:00; the plan has changed since, so this forecast is stale. 3 changes in the field log are not in this forecast.",
     );
     expect(planForecastText({ ...plan, planRunSummary: null, planRunAt: null })).toBeNull();
   });

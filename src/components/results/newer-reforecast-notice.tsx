@@ -1,13 +1,13 @@
 import Link from "next/link";
 import { formatDateTime, formatIsoDate } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
-import { planForecastText, shiftsNotInText } from "@/lib/plan-of-record-text";
+import { planForecastText, changesNotInText } from "@/lib/plan-of-record-text";
 
 export interface ReforecastHeadline {
   dataDate: string | null;
   summary: RunHeadline | Record<string, unknown>;
   createdAt: Date | string;
-  /** Field-log shifts it does not know (db/queries/progress.ts `shiftsNotInRun`). */
+  /** Field-log changes it does not know (db/queries/progress.ts `shiftsNotInRun`). */
   shiftsNotIn: number;
 }
 
@@ -32,7 +32,7 @@ export function NewerReforecastNotice(props: { scenarioId: string; reforecast: R
         <strong>The field log has moved this forecast on.</strong> Re-forecast from the work recorded up to {reforecast.dataDate ? formatIsoDate(reforecast.dataDate) : "its data date"} (run{" "}
         {formatDateTime(reforecast.createdAt)}): P80 finish <strong>{text.p80}</strong>
         {text.rest}
-        {reforecast.shiftsNotIn > 0 ? ` ${shiftsNotInText(reforecast.shiftsNotIn, "that re-forecast")}.` : ""}
+        {reforecast.shiftsNotIn > 0 ? ` ${changesNotInText(reforecast.shiftsNotIn, "that re-forecast")}.` : ""}
       </p>
       <p className="mt-1">
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}

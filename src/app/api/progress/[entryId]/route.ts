@@ -38,10 +38,11 @@ export const PUT = handler(async (req: Request, ctx: Ctx) => {
   return NextResponse.json({ version: result.version });
 });
 
+/** Takes the shift out of the log; it stays on record as deleted (who, when), with a history row. */
 export const DELETE = handler(async (_req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
-  const { scenario } = await load(entryId, "recordProgress");
+  const { scenario, user } = await load(entryId, "recordProgress");
   await validateDelete({ scenario, id: entryId });
-  await deleteProgressEntry({ id: entryId });
+  if (!(await deleteProgressEntry({ id: entryId, userId: user.id }))) throw new AppError("not_found", "No such progress entry.");
   return NextResponse.json({ ok: true });
 });

@@ -1,9 +1,9 @@
 import { formatIsoDate } from "@/lib/format";
-import { shiftsNotInText } from "@/lib/plan-of-record-text";
+import { changesNotInText } from "@/lib/plan-of-record-text";
 
 /**
- * Says when the field log has moved past the latest re-forecast (shifts worked after its data date, or recorded or
- * corrected since it was run — db/queries/progress.ts `shiftsNotInRun`), so the forecast the owner is told is
+ * Says when the field log has moved past the latest re-forecast (shifts worked after its data date, recorded or
+ * corrected since it was run, or deleted since — db/queries/progress.ts `shiftsNotInRun`), so the forecast the owner is told is
  * known to be behind the field. Nothing when it is up to date.
  */
 export function BehindFieldNotice(props: { shiftsNotIn: number | null; dataDate: string | null; shiftsRecorded: number; whoCanRun: "you" | "others" | "nobody" }) {
@@ -21,8 +21,8 @@ export function BehindFieldNotice(props: { shiftsNotIn: number | null; dataDate:
   if (!shiftsNotIn) return null;
   return (
     <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="behind-field">
-      The field has moved past the latest re-forecast (from {formatIsoDate(dataDate)}): {shiftsNotInText(shiftsNotIn, "it")} — worked after its data date, or recorded or
-      corrected since it was run.{ask}
+      The field has moved past the latest re-forecast (from {formatIsoDate(dataDate)}): {changesNotInText(shiftsNotIn, "it")} — shifts worked after its data date, recorded or
+      corrected since it was run, or deleted since.{ask}
     </p>
   );
 }

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { requireScenario } from "@/lib/server/access";
-import { getLatestPlanRun, getLatestReforecast, listProgress, listReforecastRuns } from "@db/queries/progress";
+import { getLatestPlanRun, getLatestReforecast, listDeletedProgress, listProgress, listReforecastRuns } from "@db/queries/progress";
 import { getLatestRun } from "@db/queries/runs";
 import { can } from "@/lib/permissions";
 import { formatIsoDate } from "@/lib/format";
@@ -16,6 +16,7 @@ import { lastRecorded } from "./entry-defaults";
 import { ProgressTable, type EntryView } from "./progress-table";
 import { ReforecastPanel } from "./reforecast-panel";
 import { BehindFieldNotice } from "./behind-field-notice";
+import { DeletedShifts } from "./deleted-shifts";
 import { orNotFound } from "@/lib/server/page-access";
 import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
 import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
@@ -47,8 +48,9 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   const parsed = parseScenario(scenario.definition);
   if (!parsed.ok) return <p className="card text-sm text-bad">The plan has problems, so progress cannot be checked against it. Fix the plan first.</p>;
   const plan = parsed.scenario;
-  const [rows, drift, planRun, latestRe] = await Promise.all([
+  const [rows, deleted, drift, planRun, latestRe] = await Promise.all([
     listProgress({ scenarioId }),
+    listDeletedProgress({ scenarioId }),
     listReforecastRuns({ scenarioId }),
     getLatestPlanRun({ scenarioId }),
     getLatestReforecast({ scenarioId }),
@@ -69,6 +71,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
     lastOperationId: recorded.lastOperationId,
   };
   const names = Object.fromEntries(plan.operations.map((o) => [o.id, o.name]));
+  const shiftName = (id: string) => plan.calendar.shifts.find((s) => s.id === id)?.name ?? id;
   const lastDate = entries.reduce((m, e) => (e.workDate > m ? e.workDate : m), "");
   const points: DriftPoint[] = [
     ...(planRun ? [{ label: "Plan", ...((planRun.summary as { finish: { p50: string; p80: string } }).finish) }] : []),
@@ -93,6 +96,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
         <h2 id="log-heading">Field log</h2>
         <p className="mt-1 mb-3 text-sm text-muted">{entries.length} shift{entries.length === 1 ? "" : "s"} recorded.</p>
         <ProgressTable scenarioId={scenario.id} entries={entries} facts={facts} canRecord={canRecord} names={names} />
+        <DeletedShifts rows={deleted} shiftName={shiftName} names={names} />
       </section>
       <section className="card space-y-4" aria-labelledby="drift-heading">
         <h2 id="drift-heading">Re-forecast and drift</h2>

@@ -20,7 +20,8 @@ interface HistoryRow {
   changedAt: string;
   changedByName: string;
   before: Record<string, unknown> | null;
-  after: Record<string, unknown>;
+  /** Null for the row that deleted the entry. */
+  after: Record<string, unknown> | null;
 }
 
 const FIELD_LABELS: Record<string, string> = {
@@ -30,10 +31,12 @@ const FIELD_LABELS: Record<string, string> = {
 
 function changes(h: HistoryRow): string {
   if (!h.before) return "created the entry";
-  const diff = Object.keys(FIELD_LABELS).filter((k) => JSON.stringify(h.before![k]) !== JSON.stringify(h.after[k]));
+  const after = h.after;
+  if (!after) return "deleted the entry";
+  const diff = Object.keys(FIELD_LABELS).filter((k) => JSON.stringify(h.before![k]) !== JSON.stringify(after[k]));
   if (diff.length === 0) return "saved without changes";
   const show = (v: unknown) => (Array.isArray(v) ? `${v.length} item${v.length === 1 ? "" : "s"}` : v === null || v === "" ? "—" : String(v));
-  return diff.map((k) => `${FIELD_LABELS[k]} ${show(h.before![k])} → ${show(h.after[k])}`).join("; ");
+  return diff.map((k) => `${FIELD_LABELS[k]} ${show(h.before![k])} → ${show(after[k])}`).join("; ");
 }
 
 function History({ entryId }: { entryId: string }) {
@@ -76,7 +79,8 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
 
   async function remove(e: EntryView) {
     setProblem(null);
-    if (!window.confirm(`Delete the ${names[e.operationId] ?? e.operationId} entry of ${formatIsoDate(e.workDate)}?`)) return;
+    const what = `the ${names[e.operationId] ?? e.operationId} entry of ${formatIsoDate(e.workDate)}`;
+    if (!window.confirm(`Delete ${what}? It stays on record under "Deleted shifts", and a forecast that used it will be flagged as behind the field.`)) return;
     try {
       await api(`/api/progress/${e.id}`, { method: "DELETE" });
       router.refresh();

@@ -1,0 +1,62 @@
+import { formatDateTime, formatIsoDate, formatStation } from "@/lib/format";
+
+export interface DeletedShiftView {
+  id: string;
+  workDate: string;
+  shift: string;
+  operationId: string;
+  fromStationFt: number;
+  toStationFt: number;
+  crew: string;
+  enteredByName: string;
+  deletedAt: Date | string | null;
+  deletedByName: string | null;
+}
+
+/**
+ * The shifts taken out of the log, kept on record: a field record does not vanish when someone deletes it, and the
+ * project engineer can see who deleted what and when. Folded away: most days there is nothing to look at.
+ */
+export function DeletedShifts({ rows, shiftName, names }: { rows: DeletedShiftView[]; shiftName: (id: string) => string; names: Record<string, string> }) {
+  if (rows.length === 0) return null;
+  return (
+    <details className="mt-4 text-sm" data-testid="deleted-shifts">
+      <summary className="cursor-pointer">
+        Deleted shifts ({rows.length.toLocaleString("en-US")}) — kept on record, not in any new forecast
+      </summary>
+      <div className="scroll-x mt-2">
+        <table className="w-full">
+          <caption className="sr-only">Deleted shifts, most recently deleted first</caption>
+          <thead>
+            <tr className="border-b border-line text-left">
+              <th scope="col" className="py-2 pr-3">Date</th>
+              <th scope="col" className="py-2 pr-3">Shift</th>
+              <th scope="col" className="py-2 pr-3">Operation</th>
+              <th scope="col" className="py-2 pr-3">Stations</th>
+              <th scope="col" className="py-2 pr-3">Crew</th>
+              <th scope="col" className="py-2 pr-3">Recorded by</th>
+              <th scope="col" className="py-2">Deleted</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.id} className="border-b border-line/60 align-top text-muted" data-testid="deleted-shift">
+                <td className="py-2 pr-3 whitespace-nowrap">{formatIsoDate(r.workDate)}</td>
+                <td className="py-2 pr-3">{shiftName(r.shift)}</td>
+                <td className="py-2 pr-3">{names[r.operationId] ?? r.operationId}</td>
+                <td className="py-2 pr-3 whitespace-nowrap">
+                  {formatStation(r.fromStationFt)} – {formatStation(r.toStationFt)}
+                </td>
+                <td className="py-2 pr-3">{r.crew || "—"}</td>
+                <td className="py-2 pr-3">{r.enteredByName}</td>
+                <td className="py-2">
+                  {r.deletedByName ?? "—"}, {r.deletedAt ? formatDateTime(r.deletedAt) : "—"}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </details>
+  );
+}
