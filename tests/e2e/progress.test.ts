@@ -63,6 +63,7 @@ describe("field log", () => {
     await inspector.getByText(recorded("Overlay placement", day(2))).waitFor();
     await expect.poll(() => inspector.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(3);
     expect(await inspector.getByTestId("reforecast-button").count()).toBe(0); // inspectors record, engineers forecast
+    expect(await inspector.getByTestId("field-log-csv").getAttribute("href")).toBe(`/api/scenarios/${scenarioId}/exports/field-log.csv`);
     // Choosing an operation continues it: the next entry starts where its last recorded shift stopped.
     const form = inspector.getByTestId("progress-form");
     await form.locator("#new-operationId").selectOption("overlay");
@@ -88,6 +89,8 @@ describe("field log", () => {
     await expect.poll(() => drift.locator("tbody tr").count(), { timeout: 15_000 }).toBe(2);
     expect(await drift.locator("tbody tr").first().locator("th").textContent()).toBe("Plan");
     await engineer.getByTestId("reforecast-digest").waitFor();
+    // Nothing inspected yet (no shift of the operation that finds deterioration): the plan's rate stands, said so.
+    expect(await engineer.getByTestId("reforecast-digest").textContent()).toMatch(/: 3 shifts used; no packet inspected yet, so the plan's mean discovery probability \(\d+\.\d %\) stands\.$/);
     // The re-forecast from day 2 knows all three shifts.
     expect(await engineer.getByTestId("behind-field").count()).toBe(0);
     await screenshot(engineer, "forecast-drift");

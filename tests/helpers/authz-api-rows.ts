@@ -244,6 +244,7 @@ export const API_ROWS: Record<string, ApiRow> = {
   "GET /api/runs/[runId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { runId: w.runId } }) },
   "GET /api/scenarios/[scenarioId]/exports/results.csv": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "GET /api/scenarios/[scenarioId]/exports/closures.ics": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
+  "GET /api/scenarios/[scenarioId]/exports/field-log.csv": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "GET /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   "POST /api/scenarios/[scenarioId]/uploads": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: surveyForm() }) },
 

@@ -5,6 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import postgres from "postgres";
+import Papa from "papaparse";
 import { call, kestrelProject, signInAs } from "../helpers/app";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
@@ -126,7 +127,15 @@ describe("progress entries", () => {
     const history = await appDb`SELECT h.before->>'operationId' AS op, h.after IS NULL AS deleted, u.name FROM progress_history h JOIN users u ON u.id = h.changed_by WHERE h.entry_id = ${m.body.id} ORDER BY h.changed_at`;
     expect(history).toEqual([{ op: null, deleted: false, name: "Rosa Tenney" }, { op: "milling", deleted: true, name: "Dana Whitcomb" }]);
     // A deleted shift no longer holds its stations: the same milling can be recorded again.
-    expect((await post(s.id, milling())).status).toBe(201);
+    expect((await post(s.id, milling({ crew: "M3" }))).status).toBe(201);
+
+    // The field log as CSV (any member): the shift in the log, not the deleted ones.
+    const csv = await call(`/api/scenarios/${s.id}/exports/field-log.csv`, { cookie: viewer });
+    expect(csv.status).toBe(200);
+    expect(csv.headers.get("content-type")).toBe("text/csv; charset=utf-8");
+    expect(csv.headers.get("content-disposition")).toBe('attachment; filename="progress-deletes-field-log.csv"');
+    const rows = Papa.parse<Record<string, string>>(csv.body, { header: true, skipEmptyLines: true }).data;
+    expect(rows).toEqual([expect.objectContaining({ work_date: day(1), operation: "milling", operation_name: "Mechanical milling", station_from: "STA 0+00", station_to: "STA 3+00", length_ft: "300", crew: "M3", recorded_by: "Rosa Tenney" })]);
   });
 });
 

@@ -94,7 +94,14 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
       )}
       <section className="card" aria-labelledby="log-heading">
         <h2 id="log-heading">Field log</h2>
-        <p className="mt-1 mb-3 text-sm text-muted">{entries.length} shift{entries.length === 1 ? "" : "s"} recorded.</p>
+        <div className="mt-1 mb-3 flex flex-wrap items-center justify-between gap-2">
+          <p className="text-sm text-muted">{entries.length.toLocaleString("en-US")} shift{entries.length === 1 ? "" : "s"} recorded.</p>
+          {entries.length > 0 && (
+            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/field-log.csv`} download data-testid="field-log-csv">
+              Download the field log (CSV)
+            </a>
+          )}
+        </div>
         <ProgressTable scenarioId={scenario.id} entries={entries} facts={facts} canRecord={canRecord} names={names} />
         <DeletedShifts rows={deleted} shiftName={shiftName} names={names} />
       </section>
@@ -110,9 +117,10 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
         <BehindFieldNotice shiftsNotIn={latestRe?.shiftsNotIn ?? null} dataDate={latestRe?.dataDate ?? null} shiftsRecorded={entries.length} whoCanRun={canRun ? "you" : archived ? "nobody" : "others"} />
         {digest && (
           <p className="text-sm" data-testid="reforecast-digest">
-            Latest re-forecast from {formatIsoDate(latestRe!.dataDate)}: {digest.entriesUsed} shifts used; {digest.discovery.found} of {digest.discovery.inspected} inspected
-            packets had discovered conditions, so the mean discovery probability moved from {(digest.discovery.planMean * 100).toFixed(1)} % to{" "}
-            {(digest.discovery.updatedMean * 100).toFixed(1)} %.
+            Latest re-forecast from {formatIsoDate(latestRe!.dataDate)}: {digest.entriesUsed.toLocaleString("en-US")} shift{digest.entriesUsed === 1 ? "" : "s"} used;{" "}
+            {digest.discovery.inspected === 0
+              ? `no packet inspected yet, so the plan's mean discovery probability (${(digest.discovery.planMean * 100).toFixed(1)} %) stands.`
+              : `${digest.discovery.found} of ${digest.discovery.inspected} inspected packets had discovered conditions, so the mean discovery probability moved from ${(digest.discovery.planMean * 100).toFixed(1)} % to ${(digest.discovery.updatedMean * 100).toFixed(1)} %.`}
           </p>
         )}
         {digest && (
