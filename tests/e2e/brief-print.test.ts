@@ -1,7 +1,7 @@
 /**
  * The owner brief printed, as an owner would print it: Chromium renders it to PDF on Letter and on A4, and the
  * PDF is read back page by page (pdfjs-dist). Before printing, nothing inside the brief may stick out of its
- * print box and nothing clickable may show; in the PDF every chart is there with its last date label (the
+ * print box (the progress-to-date table of its two recorded shifts among it) and nothing clickable may show; in the PDF every chart is there with its last date label (the
  * time–distance chart to the season-2 finish), there are no sort arrows or buttons, and the iteration count is
  * stated, with the warning a 200-iteration forecast deserves. The traffic section prints whole: the closure
  * plan, the longest backups (the run's longest queue among them), the days over the plan's queue limit, the
@@ -15,9 +15,11 @@ import { serverRunDone } from "../helpers/jobs";
 import { browserPerFile } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
+import { formatIsoDate } from "@/lib/format";
 
 const browser = browserPerFile();
 let scenarioId: string;
+let shiftDates: string[];
 
 // Printable widths in CSS px (96 per inch) with the brief's 12 mm margins on each side.
 const MM = 96 / 25.4;
@@ -29,6 +31,13 @@ const FORMATS = [
 beforeAll(async () => {
   const cookie = await signInAs("engineer");
   scenarioId = await mainDemoVariant(cookie, "E2E brief print");
+  // Two shifts in its field log, so the brief carries "Progress to date" (which must fit the paper like the rest).
+  const start = (await call(`/api/scenarios/${scenarioId}`, { cookie })).body.scenario.definition.startDate as string;
+  shiftDates = [1, 2].map((n) => new Date(Date.parse(`${start}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10));
+  for (const [workDate, fromStationFt, toStationFt] of [[shiftDates[0], 1200, 1600], [shiftDates[1], 1600, 2000]] as const) {
+    const shift = { workDate, shift: "night", operationId: "setup", fromStationFt, toStationFt, crew: "Traffic control crew" };
+    expect((await call(`/api/scenarios/${scenarioId}/progress`, { method: "POST", cookie, body: shift })).status).toBe(201);
+  }
   // A small run (the server computes it): few enough iterations that the brief must warn.
   expect((await serverRunDone(scenarioId, cookie, { seed: "brief", iterations: 200 })).status).toBe("completed");
 }, 180_000);
@@ -101,7 +110,8 @@ describe("the owner brief prints whole", () => {
     const pages = await pagesText(pdf);
     const all = pages.join(" ");
     expect(pages.length).toBeGreaterThanOrEqual(2);
-    for (const heading of ["Owner brief", "Forecast", "Confidence curve", "Finish dates", "Time–distance", "Delay and cost", "Finish by operation", "Assumptions", "Planning aid, not an approval"]) {
+    expect(await page.getByTestId("brief-progress").locator("tbody tr").first().textContent()).toBe(`Work-zone setup800 ft of 8,400 ft10 %2—${formatIsoDate(shiftDates[1])}`);
+    for (const heading of ["Owner brief", "Progress to date", "Forecast", "Confidence curve", "Finish dates", "Time–distance", "Delay and cost", "Finish by operation", "Assumptions", "Planning aid, not an approval"]) {
       // Case aside: some headings are set in capitals by the style sheet, and the PDF holds them as shown.
       expect(all.toLowerCase(), `${format}: "${heading}" printed`).toContain(heading.toLowerCase());
     }

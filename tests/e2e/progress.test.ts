@@ -63,6 +63,11 @@ describe("field log", () => {
     await inspector.getByText(recorded("Overlay placement", day(2))).waitFor();
     await expect.poll(() => inspector.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(3);
     expect(await inspector.getByTestId("reforecast-button").count()).toBe(0); // inspectors record, engineers forecast
+    // Progress to date: milling 0–500 and 500–1000 is the whole 1,000 ft deck; overlay 0–400.
+    await expect.poll(() => inspector.getByTestId("progress-to-date-row").allTextContents()).toEqual([
+      expect.stringMatching(/^Mechanical milling1,000 ft of 1,000 ft100 %2—\d+ \w+ \d{4}\d+ \w+ \d{4}$/),
+      expect.stringMatching(/^Overlay placement400 ft of 1,000 ft40 %1—/),
+    ]);
     expect(await inspector.getByTestId("field-log-csv").getAttribute("href")).toBe(`/api/scenarios/${scenarioId}/exports/field-log.csv`);
     // Choosing an operation continues it: the next entry starts where its last recorded shift stopped.
     const form = inspector.getByTestId("progress-form");
@@ -106,6 +111,8 @@ describe("field log", () => {
     });
     await newest.getByRole("button", { name: "Delete" }).click();
     await expect.poll(() => engineer.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(2);
+    // Out of the log, out of the progress: overlay is back to nothing done.
+    await expect.poll(() => engineer.getByTestId("progress-to-date-row").nth(1).textContent()).toBe("Overlay placement0 ft of 1,000 ft0 %0———");
     expect(asked).toMatch(/^Delete the Overlay placement entry of .+\? It stays on record under "Deleted shifts"/);
     const deleted = engineer.getByTestId("deleted-shifts");
     await deleted.locator("summary").click();

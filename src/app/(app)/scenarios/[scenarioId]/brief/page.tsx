@@ -14,7 +14,9 @@ import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
 import { iterationsStatement } from "@/components/results/summary-text";
 import { VerificationBadge } from "@/components/results/verification-badge";
-import { getNewestReforecastHeadline } from "@db/queries/progress";
+import { getNewestReforecastHeadline, listProgress } from "@db/queries/progress";
+import { ProgressToDate } from "@/components/progress-to-date";
+import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { NewerReforecastNotice, newerThanShown } from "@/components/results/newer-reforecast-notice";
 
 export const metadata: Metadata = { title: "Owner brief" };
@@ -31,7 +33,12 @@ const hour = (h: number) => `${String(Math.floor(h)).padStart(2, "0")}:${String(
 export default async function BriefPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const { scenario } = await orNotFound(requireScenario(scenarioId, "read"));
-  const [run, project, reforecast] = await Promise.all([getLatestRun({ scenarioId }), getProject({ id: scenario.projectId }), getNewestReforecastHeadline({ scenarioId })]);
+  const [run, project, reforecast, entries] = await Promise.all([
+    getLatestRun({ scenarioId }),
+    getProject({ id: scenario.projectId }),
+    getNewestReforecastHeadline({ scenarioId }),
+    listProgress({ scenarioId }),
+  ]);
   // A job under way: the brief leads with the newest re-forecast when it is newer than the plan run it shows.
   const newerReforecast = newerThanShown(reforecast, run);
   const d = validateDefinition(scenario.definition);
@@ -50,6 +57,13 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
         </p>
       </div>
       {newerReforecast && <NewerReforecastNotice scenarioId={scenario.id} reforecast={newerReforecast} shownRunAt={run?.createdAt ?? null} document />}
+      {entries.length > 0 && (
+        <section aria-labelledby="to-date-heading" className="card break-inside-avoid" data-testid="brief-progress">
+          <h3 id="to-date-heading">Progress to date</h3>
+          <p className="mt-1 mb-2 text-sm text-muted">From the field log, up to its last shift ({formatIsoDate(lastWorkDate(entries))}).</p>
+          <ProgressToDate rows={progressToDate(d, entries)} document />
+        </section>
+      )}
       {!s || !run ? (
         <p className="card">This scenario has not been run yet: there is no forecast to brief.</p>
       ) : (

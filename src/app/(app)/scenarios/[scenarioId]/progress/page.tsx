@@ -17,6 +17,8 @@ import { ProgressTable, type EntryView } from "./progress-table";
 import { ReforecastPanel } from "./reforecast-panel";
 import { BehindFieldNotice } from "./behind-field-notice";
 import { DeletedShifts } from "./deleted-shifts";
+import { ProgressToDate } from "@/components/progress-to-date";
+import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { orNotFound } from "@/lib/server/page-access";
 import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
 import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
@@ -72,7 +74,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   };
   const names = Object.fromEntries(plan.operations.map((o) => [o.id, o.name]));
   const shiftName = (id: string) => plan.calendar.shifts.find((s) => s.id === id)?.name ?? id;
-  const lastDate = entries.reduce((m, e) => (e.workDate > m ? e.workDate : m), "");
+  const lastDate = lastWorkDate(entries);
   const points: DriftPoint[] = [
     ...(planRun ? [{ label: "Plan", ...((planRun.summary as { finish: { p50: string; p80: string } }).finish) }] : []),
     ...drift.map((r) => ({ label: formatIsoDate(r.dataDate), ...((r.summary as { finish: { p50: string; p80: string } }).finish) })),
@@ -90,6 +92,15 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           <div className="mt-4">
             <ProgressForm scenarioId={scenario.id} facts={facts} />
           </div>
+        </section>
+      )}
+      {entries.length > 0 && (
+        <section className="card" aria-labelledby="to-date-heading">
+          <h2 id="to-date-heading">Progress to date</h2>
+          <p className="mt-1 mb-3 text-sm text-muted">
+            From the field log, up to its last shift ({formatIsoDate(lastDate)}): the feet each operation has done of the feet it has to do{plan.stages && plan.stages.length > 1 ? " over every stage" : ""}, as a re-forecast counts them.
+          </p>
+          <ProgressToDate rows={progressToDate(plan, entries)} />
         </section>
       )}
       <section className="card" aria-labelledby="log-heading">
