@@ -1,8 +1,8 @@
 import "server-only";
-import { and, asc, desc, eq, isNotNull, isNull, sql, type AnyColumn } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, isNull, sql, type AnyColumn, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
-import { progressEntries, progressHistory, simulationRuns, users } from "../schema";
+import { progressEntries, progressHistory, scenarios, simulationRuns, users } from "../schema";
 import { isForecast } from "./runs";
 import type { ProgressEntry } from "../../sim/progress-entry";
 
@@ -45,19 +45,37 @@ const fieldsOf = (r: ProgressFields): ProgressFields => ({
   discovered: r.discovered,
 });
 
-export async function listProgress({ scenarioId }: { scenarioId: string }) {
+/** The shifts in the log (deleted ones left out) of the scenarios `which` selects, in the order worked. */
+function logOf(which: SQL | undefined) {
   return getDb()
     .select(entryColumns)
     .from(progressEntries)
     .innerJoin(users, eq(users.id, progressEntries.enteredById))
-    .where(and(eq(progressEntries.scenarioId, scenarioId), isNull(progressEntries.deletedAt)))
+    .where(and(which, isNull(progressEntries.deletedAt)))
     .orderBy(asc(progressEntries.workDate), asc(progressEntries.createdAt));
+}
+
+export async function listProgress({ scenarioId }: { scenarioId: string }) {
+  return logOf(eq(progressEntries.scenarioId, scenarioId));
 }
 export type ProgressRow = Awaited<ReturnType<typeof listProgress>>[number];
 
 export async function getProgressEntry({ id }: { id: string }) {
   const [row] = await getDb().select(entryColumns).from(progressEntries).innerJoin(users, eq(users.id, progressEntries.enteredById)).where(and(eq(progressEntries.id, id), isNull(progressEntries.deletedAt)));
   return row ?? null;
+}
+
+/**
+ * The field logs of several scenarios at once (deleted shifts left out), each with its scenario's definition:
+ * what "progress to date" is computed from on pages that show many projects' plans of record.
+ */
+export async function listLogsOfScenarios({ scenarioIds }: { scenarioIds: string[] }) {
+  if (scenarioIds.length === 0) return [];
+  const [plans, entries] = await Promise.all([
+    getDb().select({ id: scenarios.id, definition: scenarios.definition }).from(scenarios).where(inArray(scenarios.id, scenarioIds)),
+    logOf(inArray(progressEntries.scenarioId, scenarioIds)),
+  ]);
+  return plans.map((p) => ({ scenarioId: p.id, definition: p.definition, entries: entries.filter((e) => e.scenarioId === p.id) }));
 }
 
 const deletedBy = alias(users, "deleted_by_user");

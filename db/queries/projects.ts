@@ -9,7 +9,7 @@ import { shiftsNotInRun } from "./progress";
 /**
  * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
  * newest forecast — a plan run or a re-forecast from the field log, whichever came last — with whether the plan
- * changed after it, how many field-log shifts it does not know, and the forecast before that one. The caller left-joins `plan` on projects.plan_scenario_id, and
+ * changed after it, how many field-log changes it does not know, and the forecast before that one. The caller left-joins `plan` on projects.plan_scenario_id, and
  * `planRun` and `previousRun` laterally.
  */
 function planOfRecordParts(db: ReturnType<typeof getDb>) {

@@ -6,9 +6,10 @@ export type { PlanOfRecordView } from "@/lib/plan-of-record-text";
 /**
  * One paragraph an executive can read aloud: which plan, when it finishes at P80 (and P50), the chance of meeting
  * the target, and how old the forecast is — said as stale when the plan changed after it. The words are
- * src/lib/plan-of-record-text.ts's, the same as the forecast e-mail's.
+ * src/lib/plan-of-record-text.ts's, the same as the forecast e-mail's. `progress`: how far the field log says the
+ * job has got (src/lib/server/plan-progress.ts), said under the forecast.
  */
-export function PlanOfRecordHeadline({ plan, link = false }: { plan: PlanOfRecordView; link?: boolean }) {
+export function PlanOfRecordHeadline({ plan, link = false, progress = null }: { plan: PlanOfRecordView; link?: boolean; progress?: string | null }) {
   if (!plan.planScenarioId || !plan.planName) return <p className="text-sm text-muted">No plan of record chosen yet.</p>;
   const name = link ? (
     <Link href={`/scenarios/${plan.planScenarioId}`} className="font-medium text-brand-700 hover:underline">
@@ -18,7 +19,19 @@ export function PlanOfRecordHeadline({ plan, link = false }: { plan: PlanOfRecor
     <span className="font-medium">{plan.planName}</span>
   );
   const text = planForecastText(plan);
-  if (!text) return <p className="text-sm">{name}: not run yet.</p>;
+  const progressLine = progress && (
+    <p className="mt-1 text-sm" data-testid="plan-progress">
+      {progress}
+    </p>
+  );
+  if (!text) {
+    return (
+      <div className="text-sm">
+        <p>{name}: not run yet.</p>
+        {progressLine}
+      </div>
+    );
+  }
   return (
     <div className="text-sm" data-testid="plan-of-record-headline">
       <p>
@@ -26,6 +39,7 @@ export function PlanOfRecordHeadline({ plan, link = false }: { plan: PlanOfRecor
         {text.rest}
       </p>
       <p className="mt-0.5 text-xs text-muted">{text.when}</p>
+      {progressLine}
     </div>
   );
 }

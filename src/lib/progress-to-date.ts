@@ -80,3 +80,35 @@ export function shareText(done: number, total: number): string {
   if (done >= total - 1e-6) return "100 %";
   return `${Math.min(99, Math.max(1, Math.round((100 * done) / total)))} %`;
 }
+
+/**
+ * The job's progress in one sentence for the plan-of-record headline, or null for an empty log. A stage's lanes
+ * are finished as far as its operation furthest behind has gone (in a chain each operation follows the one before
+ * it over the same stations, so the last one's feet are the finished ones); the job's share is those feet over
+ * every stage: "Progress: 36 % of the deck finished — every operation done over 3,000 of 8,400 ft; last shift in
+ * the field log 4 Dec 2026."
+ */
+export function progressSentence(s: Scenario, entries: ReadonlyArray<FieldLogRecord>, formatDate: (iso: string) => string): string | null {
+  if (entries.length === 0) return null;
+  const rows = progressToDate(s, entries);
+  const stages = new Map<string, { done: number; total: number }>();
+  for (const r of rows) {
+    for (const st of r.stages) {
+      const seen = stages.get(st.stageId);
+      stages.set(st.stageId, { done: seen ? Math.min(seen.done, st.doneFt) : st.doneFt, total: st.totalFt });
+    }
+  }
+  const done = [...stages.values()].reduce((a, x) => a + x.done, 0);
+  const total = [...stages.values()].reduce((a, x) => a + x.total, 0);
+  if (total <= 0) return null;
+  const ft = (x: number) => Math.round(x).toLocaleString("en-US");
+  const whole = stages.size > 1 ? `the work of its ${stages.size} stages` : "the deck";
+  const last = `; last shift in the field log ${formatDate(lastWorkDate(entries))}.`;
+  const share = shareText(done, total);
+  if (share === "100 %") return `Progress: every operation done over ${whole}${last}`;
+  if (share === "0 %") {
+    const ahead = rows.reduce((a, r) => (r.doneFt / r.totalFt > a.doneFt / a.totalFt ? r : a));
+    return `Progress: under way, nothing finished yet (${ahead.name} furthest ahead, ${shareText(ahead.doneFt, ahead.totalFt)} done)${last}`;
+  }
+  return `Progress: ${share} of ${whole} finished — every operation done over ${ft(done)} of ${ft(total)} ft${last}`;
+}

@@ -1,6 +1,6 @@
 /**
  * The plan of record in Debian's Chromium: the owner's executive (viewer) reads on the project list which plan each
- * project is run by and its newest forecast in words, and the plan's Outlook and owner brief say the same
+ * project is run by, its newest forecast in words and how far the field log says the job has got, and the plan's Outlook and owner brief say the same
  * re-forecast above the plan run's charts; an administrator of a new project chooses one of its
  * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list,
  * and asks for an e-mail with each new forecast of it.
@@ -24,6 +24,8 @@ describe("the plan of record", () => {
     expect(text).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the previous forecast/);
     expect(text).toMatch(/chance of finishing by the \d{1,2} \w{3} \d{4} target/);
     expect(text).toMatch(/Re-forecast from the field log as of|Forecast run/);
+    // How far the field log says the job has got, under the forecast (the seeded season finished part of the deck).
+    expect(await card.getByTestId("plan-progress").textContent()).toMatch(/^Progress: \d+ % of the deck finished — every operation done over [\d,]+ of 8,400 ft; last shift in the field log \d{1,2} \w{3} \d{4}\.$/);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "plan-of-record-list");
 

@@ -4,7 +4,7 @@
  * stage only is measured against that stage's length; shifts, hours lost and first and last dates per operation.
  */
 import { describe, expect, it } from "vitest";
-import { progressToDate, shareText, type FieldLogRecord } from "../../src/lib/progress-to-date";
+import { progressSentence, progressToDate, shareText, type FieldLogRecord } from "../../src/lib/progress-to-date";
 import type { Scenario } from "../../sim/schema";
 import { parseScenario } from "../../sim/validate";
 import { loadScenario, small } from "./engine-fixtures";
@@ -61,5 +61,33 @@ describe("progressToDate", () => {
 describe("shareText", () => {
   it("rounds to whole percent but never rounds a sliver to 0 % or an unfinished job to 100 %", () => {
     expect([shareText(0, 1000), shareText(1, 1000), shareText(450, 1000), shareText(996, 1000), shareText(1000, 1000), shareText(0, 0)]).toEqual(["0 %", "1 %", "45 %", "99 %", "100 %", "0 %"]);
+  });
+});
+
+describe("progressSentence", () => {
+  const s = parsed(small());
+  const iso = (d: string) => d; // dates as written, so the sentence is checked word for word
+  it("says how much is finished: as far as the operation furthest behind has gone", () => {
+    expect(progressSentence(s, [shift("milling", "2027-04-05", 0, 600), shift("overlay", "2027-04-06", 0, 250)], iso)).toBe(
+      "Progress: 25 % of the deck finished — every operation done over 250 of 1,000 ft; last shift in the field log 2027-04-06.",
+    );
+  });
+  it("says nothing is finished while an operation has not started, naming the one furthest ahead", () => {
+    expect(progressSentence(s, [shift("milling", "2027-04-05", 0, 300)], iso)).toBe(
+      "Progress: under way, nothing finished yet (Mechanical milling furthest ahead, 30 % done); last shift in the field log 2027-04-05.",
+    );
+  });
+  it("says when every operation is done, and nothing for an empty log", () => {
+    expect(progressSentence(s, [shift("milling", "2027-04-05", 0, 1000), shift("overlay", "2027-04-07", 0, 1000)], iso)).toBe(
+      "Progress: every operation done over the deck; last shift in the field log 2027-04-07.",
+    );
+    expect(progressSentence(s, [], iso)).toBeNull();
+  });
+  it("counts a staged job's finished feet stage by stage", () => {
+    // STA 5+00 to 35+00, two stages of 3,000 ft. Stage 1's six crew operations all done STA 5+00 to 20+00:
+    // 1,500 ft finished there; stage 2 not started (its placement has no shift), so 1,500 of 6,000 ft: 25 %.
+    const staged = parsed(loadScenario("kestrel-staged-three-lane.json"));
+    const entries = ["setup", "milling", "hydrodemolition", "cleanup", "placement-l1", "restriping"].map((op, k) => shift(op, `2027-05-0${k + 1}`, 500, 2000));
+    expect(progressSentence(staged, entries, iso)).toBe("Progress: 25 % of the work of its 2 stages finished — every operation done over 1,500 of 6,000 ft; last shift in the field log 2027-05-06.");
   });
 });

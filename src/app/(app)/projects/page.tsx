@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { listProjectsForUser } from "@db/queries/projects";
 import { pageUser } from "@/lib/server/page-access";
+import { planProgressTexts } from "@/lib/server/plan-progress";
 import { RoleBadge } from "@/components/role-badge";
 import { PlanOfRecordHeadline } from "@/components/plan-of-record-headline";
 import { formatDateTime, formatStation } from "@/lib/format";
@@ -12,6 +13,7 @@ export const metadata: Metadata = { title: "Projects" };
 export default async function ProjectsPage() {
   const { user } = await pageUser();
   const projects = await listProjectsForUser({ userId: user.id });
+  const progress = await planProgressTexts(projects.map((p) => p.planScenarioId));
   const active = projects.filter((p) => p.archivedAt === null);
   const archived = projects.filter((p) => p.archivedAt !== null);
   return (
@@ -31,14 +33,14 @@ export default async function ProjectsPage() {
           <p className="mt-2 text-sm text-muted">Start one for your structure with New project, or ask an administrator of a project to add you as a member.</p>
         </div>
       ) : (
-        <ProjectCards projects={active} />
+        <ProjectCards projects={active} progress={progress} />
       )}
       {archived.length > 0 && (
         <details className="card" data-testid="archived-projects">
           <summary className="cursor-pointer font-semibold">Archived projects ({archived.length})</summary>
           <p className="mt-1 text-sm text-muted">Kept as records: they can be read, not changed. An administrator of one can restore it from its page.</p>
           <div className="mt-4">
-            <ProjectCards projects={archived} />
+            <ProjectCards projects={archived} progress={progress} />
           </div>
         </details>
       )}
@@ -48,7 +50,7 @@ export default async function ProjectsPage() {
 
 type ProjectRow = Awaited<ReturnType<typeof listProjectsForUser>>[number];
 
-function ProjectCards({ projects }: { projects: ProjectRow[] }) {
+function ProjectCards({ projects, progress }: { projects: ProjectRow[]; progress: Map<string, string> }) {
   return (
     <ul className="grid gap-4 md:grid-cols-2">
       {projects.map((p) => (
@@ -76,7 +78,7 @@ function ProjectCards({ projects }: { projects: ProjectRow[] }) {
             <div className="mt-4 border-t border-line pt-3">
               <p className="text-xs font-semibold uppercase tracking-wide text-muted">Plan of record</p>
               <div className="mt-1">
-                <PlanOfRecordHeadline plan={p} />
+                <PlanOfRecordHeadline plan={p} progress={p.planScenarioId ? progress.get(p.planScenarioId) : null} />
               </div>
             </div>
           </Link>

@@ -15,6 +15,7 @@ import { getPlanOfRecord } from "@db/queries/projects";
 import { listProjectScenarios } from "@db/queries/scenarios";
 import { PlanOfRecordHeadline } from "@/components/plan-of-record-headline";
 import { PlanOfRecordPicker } from "./plan-of-record-picker";
+import { planProgressTexts } from "@/lib/server/plan-progress";
 import { ForecastAlertsToggle } from "./forecast-alerts-toggle";
 import { getForecastAlerts } from "@db/queries/forecast-alerts";
 
@@ -25,6 +26,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role, archived, user } = access;
   const [plan, alertsOn] = await Promise.all([getPlanOfRecord({ projectId: project.id }), getForecastAlerts({ projectId: project.id, userId: user.id })]);
+  const progress = plan?.planScenarioId ? (await planProgressTexts([plan.planScenarioId])).get(plan.planScenarioId) : null;
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
@@ -57,7 +59,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       <section className="card" aria-labelledby="plan-of-record-heading" data-testid="plan-of-record">
         <h2 id="plan-of-record-heading">Plan of record</h2>
         <p className="mt-1 text-sm text-muted">The scenario the project is run by: its newest forecast is what the project list shows and what the owner is told.</p>
-        <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link />}</div>
+        <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link progress={progress} />}</div>
         {can(role, "editProject", archived) && (
           <PlanOfRecordPicker projectId={project.id} current={project.planScenarioId} scenarios={(await listProjectScenarios({ projectId: project.id })).map((s) => ({ id: s.id, name: s.name }))} />
         )}
