@@ -1,7 +1,7 @@
 /**
  * Forecast e-mails: a member ticks "E-mail me each new forecast of the plan of record"; each new plan run or
  * re-forecast of the plan of record is then e-mailed to those who asked — once, in the project list's words — and
- * to nobody else; choosing another plan of record sends its newest forecast, said as the new plan; an archived
+ * to nobody else, with how far the field log says the job has got once it has shifts; choosing another plan of record sends its newest forecast, said as the new plan; an archived
  * project sends nothing until it is restored. The
  * app's own sender (every 2 s under `npm test`) does the sending; the tests wait for its outbox rows.
  */
@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type postgres from "postgres";
 import { call } from "../helpers/app";
 import { appDatabase, freshTeam } from "../helpers/fresh-team";
-import { createPastScenario } from "../helpers/progress-fixture";
+import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
 import { formatIsoDate } from "@/lib/format";
 import { sendForecastAlerts } from "@/lib/server/forecast-alerts";
@@ -72,6 +72,9 @@ describe("forecast e-mails", () => {
     await announcedAs(before.runId);
     const first = await run(planId, "first");
     await announcedAs(first.runId);
+    // A shift in the plan's field log: the next e-mail says how far the job has got, as the project list does.
+    const shift = { workDate: isoDaysFromToday(-20), shift: "day", operationId: "milling", fromStationFt: 0, toStationFt: 300, crew: "M1" };
+    expect((await call(`/api/scenarios/${planId}/progress`, { method: "POST", cookie: engineer.cookie, body: shift })).status).toBe(201);
     const second = await run(planId, "second");
     await announcedAs(second.runId);
 
@@ -84,6 +87,8 @@ describe("forecast e-mails", () => {
     expect(mail[1].text_body).toContain(`Turn them off on the project page: `);
     // The third says how far the P80 moved since the second.
     expect(mail[2].text_body).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the previous forecast/);
+    expect(mail[1].text_body).not.toContain("Progress:");
+    expect(mail[2].text_body).toContain(`Progress: under way, nothing finished yet (Mechanical milling furthest ahead, 30 % done); last shift in the field log ${formatIsoDate(shift.workDate)}.`);
     expect(await mailTo(engineer.email)).toHaveLength(0);
     expect(await mailTo(admin.email)).toHaveLength(0);
   });

@@ -60,7 +60,7 @@ describe("the plan of record's forecast in words (the project list's and the for
     });
   });
 
-  it("says when the plan changed after it and how many field-log shifts it does not know; nothing when not run", () => {
+  it("says when the plan changed after it and how many field-log changes it does not know; nothing when not run", () => {
     expect(planForecastText({ ...plan, planRunStale: true, planRunShiftsNotIn: 3, planRunDataDate: null, previousRunSummary: null })?.when).toBe(
       "Forecast run 1 Nov 2026, 12:00; the plan has changed since, so this forecast is stale. 3 changes in the field log are not in this forecast.",
     );
@@ -75,6 +75,12 @@ describe("the plan of record's forecast in words (the project list's and the for
     expect(mail.html).toContain("Deck &lt;b&gt;overlay&lt;/b&gt;");
     expect(mail.html).not.toContain("<b>overlay");
     expect(mail.text.startsWith('A new forecast of the plan of record of "Deck <b>overlay</b>":')).toBe(true);
+    expect(mail.text).not.toContain("Progress:"); // no field log, no progress sentence
+    // With a field log, the project list's progress sentence follows the forecast's.
+    const progress = "Progress: 36 % of the deck finished — every operation done over 3,000 of 8,400 ft; last shift in the field log 4 Dec 2026.";
+    const withLog = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: false, planLink: "", projectLink: "", progress })!;
+    expect(withLog.text).toContain(`${planForecastText(plan)!.when}\n\n${progress}\n\nP80: 8 in 10`);
+    expect(withLog.html).toContain(`<p>${progress}</p>`);
     // Another plan chosen since the last e-mail: said first.
     const chosen = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: true, planLink: "", projectLink: "" })!;
     expect(chosen.text.startsWith('"Deck" is now run by another plan of record, "Two seasons". Its newest forecast:')).toBe(true);

@@ -8,14 +8,18 @@ import type { MailMessage } from "./outbox";
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
-/** `planChanged`: the project chose another plan of record since the last e-mail; this is the new plan's newest forecast. */
-export function forecastAlertMail(v: { to: string; projectName: string; plan: PlanOfRecordView; planChanged: boolean; planLink: string; projectLink: string }): MailMessage | null {
+/**
+ * `planChanged`: the project chose another plan of record since the last e-mail; this is the new plan's newest
+ * forecast. `progress`: the project list's progress sentence (src/lib/server/plan-progress.ts), when the plan has a field log.
+ */
+export function forecastAlertMail(v: { to: string; projectName: string; plan: PlanOfRecordView; planChanged: boolean; planLink: string; projectLink: string; progress?: string | null }): MailMessage | null {
   const text = planForecastText(v.plan);
   if (!text || !v.plan.planName) return null;
   const paragraphs = [
     v.planChanged ? `"${v.projectName}" is now run by another plan of record, "${v.plan.planName}". Its newest forecast:` : `A new forecast of the plan of record of "${v.projectName}":`,
     `${v.plan.planName}: P80 finish ${text.p80}${text.rest}`,
     text.when,
+    ...(v.progress ? [v.progress] : []),
     "P80: 8 in 10 of the simulated outcomes finish by that date. A forecast is a planning aid; the project specifications and the engineer in charge decide.",
   ];
   const foot = `You receive this because you asked for forecast e-mails on this project. Turn them off on the project page: ${v.projectLink}`;
