@@ -1,4 +1,5 @@
-import { formatDateTime, formatIsoDate, formatStation } from "@/lib/format";
+import { formatDateTime } from "@/lib/format";
+import { ShiftCells, ShiftHeads } from "./shift-columns";
 
 export interface DeletedShiftView {
   id: string;
@@ -29,11 +30,7 @@ export function DeletedShifts({ rows, shiftName, names }: { rows: DeletedShiftVi
           <caption className="sr-only">Deleted shifts, most recently deleted first</caption>
           <thead>
             <tr className="border-b border-line text-left">
-              <th scope="col" className="py-2 pr-3">Date</th>
-              <th scope="col" className="py-2 pr-3">Shift</th>
-              <th scope="col" className="py-2 pr-3">Operation</th>
-              <th scope="col" className="py-2 pr-3">Stations</th>
-              <th scope="col" className="py-2 pr-3">Crew</th>
+              <ShiftHeads />
               <th scope="col" className="py-2 pr-3">Recorded by</th>
               <th scope="col" className="py-2">Deleted</th>
             </tr>
@@ -41,13 +38,7 @@ export function DeletedShifts({ rows, shiftName, names }: { rows: DeletedShiftVi
           <tbody>
             {rows.map((r) => (
               <tr key={r.id} className="border-b border-line/60 align-top text-muted" data-testid="deleted-shift">
-                <td className="py-2 pr-3 whitespace-nowrap">{formatIsoDate(r.workDate)}</td>
-                <td className="py-2 pr-3">{shiftName(r.shift)}</td>
-                <td className="py-2 pr-3">{names[r.operationId] ?? r.operationId}</td>
-                <td className="py-2 pr-3 whitespace-nowrap">
-                  {formatStation(r.fromStationFt)} – {formatStation(r.toStationFt)}
-                </td>
-                <td className="py-2 pr-3">{r.crew || "—"}</td>
+                <ShiftCells e={r} shiftName={shiftName} names={names} />
                 <td className="py-2 pr-3">{r.enteredByName}</td>
                 <td className="py-2">
                   {r.deletedByName ?? "—"}, {r.deletedAt ? formatDateTime(r.deletedAt) : "—"}

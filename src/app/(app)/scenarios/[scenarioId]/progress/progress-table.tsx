@@ -6,6 +6,7 @@ import { api, ApiError } from "@/lib/api-client";
 import { formatDateTime, formatIsoDate, formatStation } from "@/lib/format";
 import { DISCOVERED_LABELS } from "@/lib/progress-schema";
 import { ProgressForm, type PlanFacts } from "./progress-form";
+import { ShiftCells, ShiftHeads } from "./shift-columns";
 // Type only: erased from the client bundle, so the server-only query module is never shipped.
 import type { ProgressFields } from "@db/queries/progress";
 
@@ -108,11 +109,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
           <caption className="sr-only">Recorded shifts, newest first</caption>
           <thead>
             <tr className="border-b border-line text-left">
-              <th scope="col" className="py-2 pr-3">Date</th>
-              <th scope="col" className="py-2 pr-3">Shift</th>
-              <th scope="col" className="py-2 pr-3">Operation</th>
-              <th scope="col" className="py-2 pr-3">Stations</th>
-              <th scope="col" className="py-2 pr-3">Crew</th>
+              <ShiftHeads />
               <th scope="col" className="py-2 pr-3">Weather</th>
               <th scope="col" className="py-2 pr-3">Lost</th>
               <th scope="col" className="py-2 pr-3">Discovered</th>
@@ -126,13 +123,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
             {shown.map((e) => (
               <Fragment key={e.id}>
                 <tr className="border-b border-line/60 align-top" data-testid="progress-row">
-                  <td className="py-2 pr-3 whitespace-nowrap">{formatIsoDate(e.workDate)}</td>
-                  <td className="py-2 pr-3">{shiftName(e.shift)}</td>
-                  <td className="py-2 pr-3">{names[e.operationId] ?? e.operationId}</td>
-                  <td className="py-2 pr-3 whitespace-nowrap">
-                    {formatStation(e.fromStationFt)} – {formatStation(e.toStationFt)}
-                  </td>
-                  <td className="py-2 pr-3">{e.crew || "—"}</td>
+                  <ShiftCells e={e} shiftName={shiftName} names={names} />
                   <td className="py-2 pr-3">
                     {e.tempF === null ? "—" : `${e.tempF} °F`}
                     {e.rain ? ", rain" : ""}
