@@ -8,11 +8,10 @@
  * holiday trade-off computed on the run's seed (every row of it), and the work-zone safety caution.
  */
 import { beforeAll, describe, expect, it } from "vitest";
-import type { Page } from "playwright-core";
 import { getDocument } from "pdfjs-dist/legacy/build/pdf.mjs";
 import { call, mainDemoVariant, signInAs } from "../helpers/app";
 import { serverRunDone } from "../helpers/jobs";
-import { browserPerFile } from "../helpers/browser";
+import { browserPerFile, overflowing } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 import { formatIsoDate } from "@/lib/format";
@@ -53,22 +52,6 @@ async function pagesText(pdf: Buffer): Promise<string[]> {
   return out;
 }
 
-/** Elements inside the brief whose box ends to the right of the brief's own box (px over), as readable lines. */
-async function overflowing(page: Page): Promise<string[]> {
-  return page.evaluate(() => {
-    const brief = document.querySelector<HTMLElement>("[data-testid=owner-brief]")!;
-    const edge = brief.getBoundingClientRect().right;
-    const out: string[] = [];
-    for (const el of brief.querySelectorAll<Element>("*")) {
-      const r = el.getBoundingClientRect();
-      if (r.width === 0 || getComputedStyle(el).display === "none") continue;
-      if (el.closest(".sr-only")) continue;
-      if (r.right > edge + 1) out.push(`${el.tagName.toLowerCase()}.${String(el.getAttribute("class") ?? "").slice(0, 40)} ends ${Math.round(r.right - edge)} px past the brief`);
-    }
-    return out.slice(0, 10);
-  });
-}
-
 describe("the owner brief prints whole", () => {
   it.each(FORMATS)("on $format: every chart whole, nothing to click, the iteration count with its warning", async ({ format, printableWidth }) => {
     const { context, page } = await signedIn(browser(), "engineer", 1280);
@@ -87,7 +70,7 @@ describe("the owner brief prints whole", () => {
     await page.waitForTimeout(300); // charts re-measure on resize
     const box = await page.getByTestId("owner-brief").boundingBox();
     expect(box!.x + box!.width, "the brief fits the printable width").toBeLessThanOrEqual(printableWidth + 1);
-    expect(await overflowing(page)).toEqual([]);
+    expect(await overflowing(page, "owner-brief")).toEqual([]);
     const clickable = await page.locator("[data-testid=owner-brief] :is(button, select, input, textarea, [role=button])").evaluateAll((els) => els.filter((e) => (e as HTMLElement).offsetParent !== null).map((e) => e.outerHTML.slice(0, 80)));
     expect(clickable, "nothing clickable prints").toEqual([]);
 

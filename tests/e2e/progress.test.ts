@@ -5,13 +5,13 @@
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
-import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { APP_URL, call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
+import { browserPerFile, overflowing, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn as signedInAs } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
-import { formatIsoDay } from "@/lib/format";
+import { formatIsoDate, formatIsoDay } from "@/lib/format";
 
 const browser = browserPerFile();
 let scenarioId: string;
@@ -69,6 +69,25 @@ describe("field log", () => {
       expect.stringMatching(/^Overlay placement400 ft of 1,000 ft40 %1—/),
     ]);
     expect(await inspector.getByTestId("field-log-csv").getAttribute("href")).toBe(`/api/scenarios/${scenarioId}/exports/field-log.csv`);
+    // A day's report, from the date in the log: that day's shifts in sum, printable, with the days either side.
+    await inspector.getByTestId("progress-row").first().getByRole("link", { name: formatIsoDate(day(2)) }).click();
+    await inspector.getByTestId("daily-report").waitFor();
+    expect(await inspector.getByTestId("daily-day").textContent()).toBe(formatIsoDay(day(2), { long: true }));
+    expect(await inspector.getByTestId("daily-sum").textContent()).toBe("2 shifts: Mechanical milling 500 ft, Overlay placement 400 ft. 61 °F recorded; no rain; no hours lost.");
+    expect(await inspector.getByTestId("daily-shifts").locator("tbody tr").count()).toBe(2);
+    expect(await inspector.getByRole("navigation", { name: "Days with shifts" }).textContent()).toBe(`← ${formatIsoDay(day(1))}Back to the field logNo later shift`);
+    await expect.poll(() => log.tab("progress").getAttribute("aria-current")).toBe("page"); // still under the Field log tab
+    expect(await seriousA11yViolations(inspector)).toEqual([]);
+    await screenshot(inspector, "daily-report");
+    // On paper (print media, the brief's width): nothing sticks out of the report.
+    await inspector.emulateMedia({ media: "print" });
+    expect(await overflowing(inspector, "daily-report")).toEqual([]);
+    await inspector.emulateMedia({ media: "screen" });
+    // A day that is not a date is said so, and the log's last day shown instead.
+    await inspector.goto(`${APP_URL}/scenarios/${scenarioId}/progress/daily?date=2026-02-30`);
+    expect(await inspector.getByTestId("daily-report").getByRole("alert").textContent()).toBe(`“2026-02-30” is not a date; showing ${formatIsoDay(day(2), { long: true })} instead.`);
+    await log.open("progress");
+    await inspector.getByTestId("progress-form").waitFor();
     // Choosing an operation continues it: the next entry starts where its last recorded shift stopped.
     const form = inspector.getByTestId("progress-form");
     await form.locator("#new-operationId").selectOption("overlay");

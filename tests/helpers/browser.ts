@@ -77,3 +77,22 @@ export async function seriousA11yViolations(page: Page): Promise<string[]> {
     .filter((v) => v.impact === "serious" || v.impact === "critical")
     .map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).slice(0, 3).join(", ")})`);
 }
+
+/**
+ * Elements inside the print box `[data-testid=<testId>]` (the owner brief, a daily report) whose box ends to the
+ * right of it (px over), as readable lines: on paper they would be cut off.
+ */
+export async function overflowing(page: Page, testId: string): Promise<string[]> {
+  return page.evaluate((id) => {
+    const box = document.querySelector<HTMLElement>(`[data-testid=${id}]`)!;
+    const edge = box.getBoundingClientRect().right;
+    const out: string[] = [];
+    for (const el of box.querySelectorAll<Element>("*")) {
+      const r = el.getBoundingClientRect();
+      if (r.width === 0 || getComputedStyle(el).display === "none") continue;
+      if (el.closest(".sr-only")) continue;
+      if (r.right > edge + 1) out.push(`${el.tagName.toLowerCase()}.${String(el.getAttribute("class") ?? "").slice(0, 40)} ends ${Math.round(r.right - edge)} px past the ${id}`);
+    }
+    return out.slice(0, 10);
+  }, testId);
+}

@@ -26,6 +26,7 @@ const PAGE_ROWS: Record<string, PageNeed> = {
   "/scenarios/[scenarioId]/plan": { kind: "scenario", action: "read" },
   "/scenarios/[scenarioId]/brief": { kind: "scenario", action: "read" },
   "/scenarios/[scenarioId]/progress": { kind: "scenario", action: "read" },
+  "/scenarios/[scenarioId]/progress/daily": { kind: "scenario", action: "read" },
   "/scenarios/[scenarioId]/data": { kind: "scenario", action: "editScenario" },
   "/scenarios/[scenarioId]/share": { kind: "scenario", action: "shareScenario" },
   // The week ahead: every member reads the board (the notice settings are shown only to those who may share).

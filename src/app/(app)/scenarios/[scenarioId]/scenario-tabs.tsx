@@ -20,7 +20,8 @@ export function ScenarioTabs({ scenarioId, canShare, canEdit }: { scenarioId: st
     <nav aria-label="Scenario sections" className="border-b border-line">
       <ul className="-mb-px flex flex-wrap gap-x-1">
         {tabs.map((t) => {
-          const active = path === t.href || (t.label === "Plan search" && path.startsWith(`${t.href}/`));
+          // A tab's own pages below it (a plan search, a day's report) keep it marked; the Outlook is the base itself.
+          const active = path === t.href || (t.href !== base && path.startsWith(`${t.href}/`));
           return (
             <li key={t.href}>
               <Link

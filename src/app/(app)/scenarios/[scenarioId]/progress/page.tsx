@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { requireScenario } from "@/lib/server/access";
 import { getLatestPlanRun, getLatestReforecast, listDeletedProgress, listProgress, listReforecastRuns } from "@db/queries/progress";
 import { getLatestRun } from "@db/queries/runs";
@@ -108,9 +109,14 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
         <div className="mt-1 mb-3 flex flex-wrap items-center justify-between gap-2">
           <p className="text-sm text-muted">{entries.length.toLocaleString("en-US")} shift{entries.length === 1 ? "" : "s"} recorded.</p>
           {entries.length > 0 && (
-            <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/field-log.csv`} download data-testid="field-log-csv">
-              Download the field log (CSV)
-            </a>
+            <div className="flex flex-wrap gap-2">
+              <Link className="btn-secondary" href={`/scenarios/${scenario.id}/progress/daily`} data-testid="daily-report-link">
+                Daily reports
+              </Link>
+              <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/field-log.csv`} download data-testid="field-log-csv">
+                Download the field log (CSV)
+              </a>
+            </div>
           )}
         </div>
         <ProgressTable scenarioId={scenario.id} entries={entries} facts={facts} canRecord={canRecord} names={names} />

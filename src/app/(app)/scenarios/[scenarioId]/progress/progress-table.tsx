@@ -123,7 +123,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
             {shown.map((e) => (
               <Fragment key={e.id}>
                 <tr className="border-b border-line/60 align-top" data-testid="progress-row">
-                  <ShiftCells e={e} shiftName={shiftName} names={names} />
+                  <ShiftCells e={e} shiftName={shiftName} names={names} dayHref={(day) => `/scenarios/${scenarioId}/progress/daily?date=${day}`} />
                   <td className="py-2 pr-3">
                     {e.tempF === null ? "—" : `${e.tempF} °F`}
                     {e.rain ? ", rain" : ""}

@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { formatIsoDate, formatStation } from "@/lib/format";
 
 /** The columns that say which shift a row is — date, shift, operation, stations, crew — for the log and its deleted shifts alike. */
@@ -13,10 +14,25 @@ export function ShiftHeads() {
   );
 }
 
-export function ShiftCells({ e, shiftName, names }: { e: { workDate: string; shift: string; operationId: string; fromStationFt: number; toStationFt: number; crew: string }; shiftName: (id: string) => string; names: Record<string, string> }) {
+/** `dayHref`: the date links to that day's report (the log's rows; a deleted shift is in no report). */
+export function ShiftCells(props: {
+  e: { workDate: string; shift: string; operationId: string; fromStationFt: number; toStationFt: number; crew: string };
+  shiftName: (id: string) => string;
+  names: Record<string, string>;
+  dayHref?: (day: string) => string;
+}) {
+  const { e, shiftName, names, dayHref } = props;
   return (
     <>
-      <td className="py-2 pr-3 whitespace-nowrap">{formatIsoDate(e.workDate)}</td>
+      <td className="py-2 pr-3 whitespace-nowrap">
+        {dayHref ? (
+          <Link href={dayHref(e.workDate)} className="text-brand-700 hover:underline" title="This day's report">
+            {formatIsoDate(e.workDate)}
+          </Link>
+        ) : (
+          formatIsoDate(e.workDate)
+        )}
+      </td>
       <td className="py-2 pr-3">{shiftName(e.shift)}</td>
       <td className="py-2 pr-3">{names[e.operationId] ?? e.operationId}</td>
       <td className="py-2 pr-3 whitespace-nowrap">
