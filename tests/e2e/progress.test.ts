@@ -63,6 +63,11 @@ describe("field log", () => {
     await inspector.getByText(recorded("Overlay placement", day(2))).waitFor();
     await expect.poll(() => inspector.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(3);
     expect(await inspector.getByTestId("reforecast-button").count()).toBe(0); // inspectors record, engineers forecast
+    // One operation's shifts only, then every operation again.
+    await inspector.getByLabel("Show", { exact: true }).selectOption({ label: "Overlay placement" });
+    expect((await inspector.getByTestId("progress-row").allTextContents()).map((r) => r.includes("Overlay placement"))).toEqual([true]);
+    await inspector.getByLabel("Show", { exact: true }).selectOption({ label: "Every operation" });
+    expect(await inspector.getByTestId("progress-row").count()).toBe(3);
     // Progress to date: milling 0–500 and 500–1000 is the whole 1,000 ft deck; overlay 0–400.
     await expect.poll(() => inspector.getByTestId("progress-to-date-row").allTextContents()).toEqual([
       expect.stringMatching(/^Mechanical milling1,000 ft of 1,000 ft100 %2—\d+ \w+ \d{4}\d+ \w+ \d{4}$/),

@@ -74,7 +74,13 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
   const [problem, setProblem] = useState<string | null>(null);
   // A season's log runs to hundreds of shifts: the latest come first, the rest on request.
   const [showAll, setShowAll] = useState(false);
-  const newestFirst = [...entries].reverse();
+  // One operation's shifts only: finding last week's hydrodemolition entry among 300 shifts of seven crews.
+  const [only, setOnly] = useState("");
+  const present = new Set(entries.map((e) => e.operationId));
+  // The plan's order (`names` is built from it), then any operation the plan no longer has.
+  const operations = [...Object.keys(names).filter((id) => present.has(id)), ...[...present].filter((id) => !(id in names))];
+  const picked = only ? entries.filter((e) => e.operationId === only) : entries;
+  const newestFirst = [...picked].reverse();
   const shown = showAll ? newestFirst : newestFirst.slice(0, PAGE);
   const shiftName = (id: string) => facts.shifts.find((s) => s.id === id)?.name ?? id;
 
@@ -103,6 +109,19 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
         <p role="alert" className="mb-2 text-sm text-bad">
           {problem}
         </p>
+      )}
+      {operations.length > 1 && (
+        <div className="mb-2 flex items-center gap-2 text-sm">
+          <label htmlFor="log-operation">Show</label>
+          <select id="log-operation" className="field-input mt-0 w-auto" value={only} onChange={(e) => setOnly(e.target.value)}>
+            <option value="">Every operation</option>
+            {operations.map((id) => (
+              <option key={id} value={id}>
+                {names[id] ?? id}
+              </option>
+            ))}
+          </select>
+        </div>
       )}
       <div className="scroll-x">
         <table className="w-full text-sm" data-testid="progress-table">
@@ -178,11 +197,11 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
           </tbody>
         </table>
       </div>
-      {entries.length > PAGE && (
+      {picked.length > PAGE && (
         <p className="mt-3 text-sm">
-          {showAll ? `All ${entries.length} shifts shown.` : `The latest ${PAGE} of ${entries.length} shifts.`}{" "}
+          {showAll ? `All ${picked.length} shifts shown.` : `The latest ${PAGE} of ${picked.length} shifts.`}{" "}
           <button type="button" className="btn-secondary ml-2" onClick={() => setShowAll(!showAll)}>
-            {showAll ? `Show the latest ${PAGE}` : `Show all ${entries.length}`}
+            {showAll ? `Show the latest ${PAGE}` : `Show all ${picked.length}`}
           </button>
         </p>
       )}
