@@ -134,15 +134,17 @@ export async function updateProgressEntry(input: { id: string; expectedVersion: 
 
 /**
  * Deletes a shift from the log but keeps it on record: marked deleted (who, when) with a history row (after = null)
- * in one transaction. False when there is no such entry, or it was deleted already.
+ * in one transaction. With `expectedVersion`, only the version the person saw: a correction saved meanwhile is
+ * not deleted unseen. "missing" when there is no such entry, or it was deleted already.
  */
-export async function deleteProgressEntry({ id, userId }: { id: string; userId: string }) {
+export async function deleteProgressEntry({ id, userId, expectedVersion }: { id: string; userId: string; expectedVersion?: number }): Promise<ProgressUpdateResult> {
   return getDb().transaction(async (tx) => {
     const [current] = await tx.select().from(progressEntries).where(and(eq(progressEntries.id, id), isNull(progressEntries.deletedAt))).for("update");
-    if (!current) return false;
+    if (!current) return { ok: false, reason: "missing" };
+    if (expectedVersion !== undefined && current.version !== expectedVersion) return { ok: false, reason: "conflict", currentVersion: current.version };
     await tx.update(progressEntries).set({ deletedAt: new Date(), deletedById: userId }).where(eq(progressEntries.id, id));
     await tx.insert(progressHistory).values({ entryId: id, changedById: userId, before: fieldsOf(current), after: null });
-    return true;
+    return { ok: true, version: current.version };
   });
 }
 

@@ -87,6 +87,18 @@ describe("progress entries", () => {
     expect(got.body.history).toHaveLength(2);
     expect(got.body.history[0]).toMatchObject({ changedByName: "Dana Whitcomb", before: { toStationFt: 300, crew: "M1" }, after: { toStationFt: 350, crew: "M2" } });
     expect(got.body.history[1]).toMatchObject({ changedByName: "Rosa Tenney", before: null, after: { toStationFt: 300 } });
+
+    // A delete of the version someone saw: refused once it was corrected (nothing deleted), and a version that is
+    // not a number is named.
+    const staleDelete = await call(`/api/progress/${id}?version=1`, { method: "DELETE", cookie: inspector });
+    expect(staleDelete.status).toBe(409);
+    expect(staleDelete.body.error).toBe("Someone else changed this entry (version 2) after you opened version 1. Nothing was deleted.");
+    expect(staleDelete.body.current.crew).toBe("M2");
+    const badVersion = await call(`/api/progress/${id}?version=two`, { method: "DELETE", cookie: inspector });
+    expect(badVersion.status).toBe(400);
+    expect(badVersion.body.fields).toEqual([expect.objectContaining({ path: "version", message: "Version must be a whole number from 1" })]);
+    expect((await call(`/api/progress/${id}`, { cookie: viewer })).status).toBe(200);
+    expect((await call(`/api/progress/${id}?version=2`, { method: "DELETE", cookie: inspector })).status).toBe(200);
   });
 
   it("roles: inspector, engineer and admin write; scheduler and viewer may only read", async () => {

@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { AppError, handler, readJson } from "@/lib/server/errors";
+import { AppError, badRequest, handler, readJson } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { fieldsOf, validateDelete, validateEntry } from "@/lib/server/progress";
 import { progressUpdateSchema } from "@/lib/progress-schema";
@@ -38,11 +38,22 @@ export const PUT = handler(async (req: Request, ctx: Ctx) => {
   return NextResponse.json({ version: result.version });
 });
 
-/** Takes the shift out of the log; it stays on record as deleted (who, when), with a history row. */
-export const DELETE = handler(async (_req: Request, ctx: Ctx) => {
+/**
+ * Takes the shift out of the log; it stays on record as deleted (who, when), with a history row. `?version=N`
+ * (what the log showed) deletes only that version: 409 when someone corrected it since, nothing deleted.
+ */
+export const DELETE = handler(async (req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
+  const raw = new URL(req.url).searchParams.get("version");
+  if (raw !== null && !/^[1-9]\d{0,8}$/.test(raw)) throw badRequest([{ path: "version", message: "Version must be a whole number from 1" }]);
   const { scenario, user } = await load(entryId, "recordProgress");
   await validateDelete({ scenario, id: entryId });
-  if (!(await deleteProgressEntry({ id: entryId, userId: user.id }))) throw new AppError("not_found", "No such progress entry.");
+  const expectedVersion = raw === null ? undefined : Number(raw);
+  const result = await deleteProgressEntry({ id: entryId, userId: user.id, expectedVersion });
+  if (!result.ok && result.reason === "missing") throw new AppError("not_found", "No such progress entry.");
+  if (!result.ok) {
+    const current = await getProgressEntry({ id: entryId });
+    throw new AppError("conflict", `Someone else changed this entry (version ${result.currentVersion}) after you opened version ${expectedVersion}. Nothing was deleted.`, [], { current });
+  }
   return NextResponse.json({ ok: true });
 });

@@ -89,10 +89,12 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
     const what = `the ${names[e.operationId] ?? e.operationId} entry of ${formatIsoDate(e.workDate)}`;
     if (!window.confirm(`Delete ${what}? It stays on record under "Deleted shifts", and a forecast that used it will be flagged as behind the field.`)) return;
     try {
-      await api(`/api/progress/${e.id}`, { method: "DELETE" });
+      await api(`/api/progress/${e.id}?version=${e.version}`, { method: "DELETE" });
       router.refresh();
     } catch (err) {
       setProblem(err instanceof ApiError && err.fields.length ? `${err.message} ${err.fields.map((f) => f.message).join(". ")}` : (err as Error).message);
+      // Corrected by someone else meanwhile: show their version, so the choice to delete is made on what stands.
+      if (err instanceof ApiError && err.status === 409) router.refresh();
     }
   }
 
