@@ -72,7 +72,7 @@ describe("on a phone", () => {
     await screenshot(page, "phone-tabs");
   });
 
-  it("an inspector's field log and week-ahead board fit the screen; the log's table scrolls inside its box", async () => {
+  it("an inspector's field log, daily report and week-ahead board fit the screen; the log's table scrolls inside its box", async () => {
     const page = await phone("inspector");
     const scenario = new ScenarioPage(page, scenarioId);
     await scenario.open("progress");
@@ -82,6 +82,11 @@ describe("on a phone", () => {
     const box = page.getByRole("region", { name: "Field log" }).locator(".scroll-x").first();
     expect(await box.evaluate((e) => e.scrollWidth > e.clientWidth)).toBe(true);
     await screenshot(page, "phone-field-log");
+    // A day's report is the brief's width on paper, and the phone's on the phone.
+    await page.goto(`${APP_URL}/scenarios/${scenarioId}/progress/daily`);
+    await page.getByTestId("daily-report").waitFor();
+    expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
+    await screenshot(page, "phone-daily-report");
     await scenario.open("lookAhead");
     expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
   });

@@ -60,7 +60,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
           “{asked.slice(0, 40)}” is not a date; showing {formatIsoDay(day, { long: true })} instead.
         </p>
       )}
-      <nav aria-label="Days with shifts" className="flex justify-between text-sm print:hidden">
+      <nav aria-label="Days with shifts" className="flex flex-wrap justify-between gap-x-4 gap-y-1 text-sm print:hidden">
         {before ? <Link href={`${base}?date=${before}`} className="text-brand-700 hover:underline">← {formatIsoDay(before)}</Link> : <span className="text-muted">No earlier shift</span>}
         <Link href={`/scenarios/${scenarioId}/progress`} className="text-brand-700 hover:underline">
           Back to the field log
@@ -91,38 +91,41 @@ export default async function DailyReportPage({ params, searchParams }: { params
             {sum.lostHours > 0 ? `; ${sum.lostHours.toLocaleString("en-US", { maximumFractionDigits: 1 })} hours lost` : "; no hours lost"}
             {sum.conditions > 0 ? `; ${sum.conditions} discovered condition${sum.conditions === 1 ? "" : "s"} (${sum.conditionAreaSqFt.toLocaleString("en-US")} ft²)` : ""}.
           </p>
-          <table className="w-full text-sm" data-testid="daily-shifts">
-            <caption className="sr-only">Shifts worked on {formatIsoDay(day)}</caption>
-            <thead>
-              <tr className="border-b border-line text-left">
-                <th scope="col" className="py-2 pr-2">Shift</th>
-                <th scope="col" className="py-2 pr-2">Operation</th>
-                <th scope="col" className="py-2 pr-2">Stations</th>
-                <th scope="col" className="py-2 pr-2">Crew</th>
-                <th scope="col" className="py-2 pr-2">Weather</th>
-                <th scope="col" className="py-2 pr-2">Lost</th>
-                <th scope="col" className="py-2">By</th>
-              </tr>
-            </thead>
-            <tbody>
-              {shifts.map((e) => (
-                <tr key={e.id} className="border-b border-line/60 align-top">
-                  <td className="py-2 pr-2">{shiftName(e.shift)}</td>
-                  <td className="py-2 pr-2">{names[e.operationId] ?? e.operationId}</td>
-                  <td className="py-2 pr-2">
-                    {formatStation(e.fromStationFt)} – {formatStation(e.toStationFt)}
-                  </td>
-                  <td className="py-2 pr-2">{e.crew || "—"}</td>
-                  <td className="py-2 pr-2">
-                    {e.tempF === null ? "—" : `${e.tempF} °F`}
-                    {e.rain ? ", rain" : ""}
-                  </td>
-                  <td className="py-2 pr-2">{e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}</td>
-                  <td className="py-2">{e.enteredByName}</td>
+          {/* On a phone the table scrolls in its own box; at the brief's width (and on paper) it fits whole. */}
+          <div className="scroll-x">
+            <table className="w-full text-sm" data-testid="daily-shifts">
+              <caption className="sr-only">Shifts worked on {formatIsoDay(day)}</caption>
+              <thead>
+                <tr className="border-b border-line text-left">
+                  <th scope="col" className="py-2 pr-2">Shift</th>
+                  <th scope="col" className="py-2 pr-2">Operation</th>
+                  <th scope="col" className="py-2 pr-2">Stations</th>
+                  <th scope="col" className="py-2 pr-2">Crew</th>
+                  <th scope="col" className="py-2 pr-2">Weather</th>
+                  <th scope="col" className="py-2 pr-2">Lost</th>
+                  <th scope="col" className="py-2">By</th>
                 </tr>
-              ))}
-            </tbody>
-          </table>
+              </thead>
+              <tbody>
+                {shifts.map((e) => (
+                  <tr key={e.id} className="border-b border-line/60 align-top">
+                    <td className="py-2 pr-2">{shiftName(e.shift)}</td>
+                    <td className="py-2 pr-2">{names[e.operationId] ?? e.operationId}</td>
+                    <td className="py-2 pr-2">
+                      {formatStation(e.fromStationFt)} – {formatStation(e.toStationFt)}
+                    </td>
+                    <td className="py-2 pr-2">{e.crew || "—"}</td>
+                    <td className="py-2 pr-2">
+                      {e.tempF === null ? "—" : `${e.tempF} °F`}
+                      {e.rain ? ", rain" : ""}
+                    </td>
+                    <td className="py-2 pr-2">{e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}</td>
+                    <td className="py-2">{e.enteredByName}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
           {sum.conditions > 0 && (
             <div>
               <h4 className="text-sm font-semibold">Conditions found</h4>
