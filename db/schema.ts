@@ -308,7 +308,9 @@ export const progressHistory = pgTable("progress_history", {
     .notNull()
     .references(() => users.id),
   changedAt: ts("changed_at").notNull().defaultNow(),
-  /** Null when the entry was created. */
+  /** What the change did: a restore and a creation both have no `before`, so the row says which. */
+  action: text("action", { enum: ["create", "edit", "delete", "restore"] }).notNull(),
+  /** Null when the entry was created or put back. */
   before: jsonb("before"),
   /** Null when the entry was deleted. */
   after: jsonb("after"),

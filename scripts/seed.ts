@@ -169,7 +169,7 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
             }),
           )
           .returning({ id: progressEntries.id });
-        await tx.insert(progressHistory).values(inserted.map((r, i) => ({ entryId: r.id, changedById: inspectorId, before: null, after: fieldLog[i], changedAt: noonOf(parseIsoDate(fieldLog[i].workDate) + 1) })));
+        await tx.insert(progressHistory).values(inserted.map((r, i) => ({ entryId: r.id, changedById: inspectorId, action: "create" as const, before: null, after: fieldLog[i], changedAt: noonOf(parseIsoDate(fieldLog[i].workDate) + 1) })));
         for (const { headline: _h, reforecast: _r, ...columns } of reforecasts) {
           await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, ...storedResultsOf(columns.results), createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server" });
         }

@@ -31,7 +31,8 @@ const entryColumns = {
   updatedAt: progressEntries.updatedAt,
 };
 
-const fieldsOf = (r: ProgressFields): ProgressFields => ({
+/** The recorded fields of a stored row (what history keeps, and what a put-back shift is checked as). */
+export const recordedFields = (r: ProgressFields): ProgressFields => ({
   workDate: r.workDate,
   shift: r.shift,
   operationId: r.operationId,
@@ -93,7 +94,7 @@ export async function listDeletedProgress({ scenarioId }: { scenarioId: string }
 
 export async function listProgressHistory({ entryId }: { entryId: string }) {
   return getDb()
-    .select({ id: progressHistory.id, changedAt: progressHistory.changedAt, changedByName: users.name, before: progressHistory.before, after: progressHistory.after })
+    .select({ id: progressHistory.id, changedAt: progressHistory.changedAt, changedByName: users.name, action: progressHistory.action, before: progressHistory.before, after: progressHistory.after })
     .from(progressHistory)
     .innerJoin(users, eq(users.id, progressHistory.changedById))
     .where(eq(progressHistory.entryId, entryId))
@@ -103,12 +104,12 @@ export async function listProgressHistory({ entryId }: { entryId: string }) {
 /** Creates an entry and its first history row (before = null) in one transaction. */
 export async function createProgressEntry(input: { projectId: string; scenarioId: string; fields: ProgressFields; userId: string }) {
   return getDb().transaction(async (tx) => {
-    const fields = fieldsOf(input.fields);
+    const fields = recordedFields(input.fields);
     const [row] = await tx
       .insert(progressEntries)
       .values({ projectId: input.projectId, scenarioId: input.scenarioId, ...fields, enteredById: input.userId })
       .returning({ id: progressEntries.id, version: progressEntries.version });
-    await tx.insert(progressHistory).values({ entryId: row.id, changedById: input.userId, before: null, after: fields });
+    await tx.insert(progressHistory).values({ entryId: row.id, changedById: input.userId, action: "create", before: null, after: fields });
     return row;
   });
 }
@@ -121,13 +122,13 @@ export async function updateProgressEntry(input: { id: string; expectedVersion: 
     const [current] = await tx.select().from(progressEntries).where(and(eq(progressEntries.id, input.id), isNull(progressEntries.deletedAt))).for("update");
     if (!current) return { ok: false, reason: "missing" };
     if (current.version !== input.expectedVersion) return { ok: false, reason: "conflict", currentVersion: current.version };
-    const fields = fieldsOf(input.fields);
+    const fields = recordedFields(input.fields);
     const [row] = await tx
       .update(progressEntries)
       .set({ ...fields, version: sql`${progressEntries.version} + 1`, updatedAt: new Date() })
       .where(and(eq(progressEntries.id, input.id), eq(progressEntries.version, input.expectedVersion)))
       .returning({ version: progressEntries.version });
-    await tx.insert(progressHistory).values({ entryId: input.id, changedById: input.userId, before: fieldsOf(current), after: fields });
+    await tx.insert(progressHistory).values({ entryId: input.id, changedById: input.userId, action: "edit", before: recordedFields(current), after: fields });
     return { ok: true, version: row.version };
   });
 }
@@ -143,8 +144,33 @@ export async function deleteProgressEntry({ id, userId, expectedVersion }: { id:
     if (!current) return { ok: false, reason: "missing" };
     if (expectedVersion !== undefined && current.version !== expectedVersion) return { ok: false, reason: "conflict", currentVersion: current.version };
     await tx.update(progressEntries).set({ deletedAt: new Date(), deletedById: userId }).where(eq(progressEntries.id, id));
-    await tx.insert(progressHistory).values({ entryId: id, changedById: userId, before: fieldsOf(current), after: null });
+    await tx.insert(progressHistory).values({ entryId: id, changedById: userId, action: "delete", before: recordedFields(current), after: null });
     return { ok: true, version: current.version };
+  });
+}
+
+/** A deleted shift, with its scenario (to check the caller's right and the plan's rules before putting it back). */
+export async function getDeletedProgressEntry({ id }: { id: string }) {
+  const [row] = await getDb().select(entryColumns).from(progressEntries).innerJoin(users, eq(users.id, progressEntries.enteredById)).where(and(eq(progressEntries.id, id), isNotNull(progressEntries.deletedAt)));
+  return row ?? null;
+}
+
+/**
+ * Puts a deleted shift back in the log as it was (who recorded it stays), one version on and changed now — so a
+ * forecast run before counts it as a change it does not know — with a history row, in one transaction.
+ * "missing" when it is not deleted (any more).
+ */
+export async function restoreProgressEntry({ id, userId }: { id: string; userId: string }): Promise<ProgressUpdateResult> {
+  return getDb().transaction(async (tx) => {
+    const [current] = await tx.select().from(progressEntries).where(and(eq(progressEntries.id, id), isNotNull(progressEntries.deletedAt))).for("update");
+    if (!current) return { ok: false, reason: "missing" };
+    const [row] = await tx
+      .update(progressEntries)
+      .set({ deletedAt: null, deletedById: null, version: sql`${progressEntries.version} + 1`, updatedAt: new Date() })
+      .where(eq(progressEntries.id, id))
+      .returning({ version: progressEntries.version });
+    await tx.insert(progressHistory).values({ entryId: id, changedById: userId, action: "restore", before: null, after: recordedFields(current) });
+    return { ok: true, version: row.version };
   });
 }
 

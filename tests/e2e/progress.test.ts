@@ -1,7 +1,8 @@
 /**
  * The field log in Debian's Chromium: an inspector logs several shifts (one refused with the field named),
  * then the engineer re-forecasts from the last data date and sees the forecast drift chart, the plan first, and
- * deletes a shift: it stays on record under "Deleted shifts", and the re-forecast that used it is behind the field.
+ * deletes a shift: it stays on record under "Deleted shifts", and the re-forecast that used it is behind the field;
+ * then puts it back.
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
@@ -145,5 +146,10 @@ describe("field log", () => {
     expect(await engineer.getByTestId("behind-field").textContent()).toMatch(/: 1 change in the field log is not in it — shifts worked after its data date, recorded or corrected since it was run, or deleted since\./);
     await screenshot(engineer, "field-log-deleted-shift");
     expect(await seriousA11yViolations(engineer)).toEqual([]);
+    // Put back: the shift returns to the log as recorded; nothing is left under "Deleted shifts".
+    await deleted.getByRole("button", { name: /^Put back the Overlay placement entry of / }).click();
+    await expect.poll(() => engineer.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(3);
+    expect(await engineer.getByTestId("deleted-shifts").count()).toBe(0);
+    expect(await engineer.getByTestId("progress-row").first().textContent()).toContain("Rosa Tenney");
   });
 });

@@ -354,6 +354,16 @@ export const API_ROWS: Record<string, ApiRow> = {
       return { params: { entryId: f.entryId }, survives: async () => (await call(`/api/progress/${f.entryId}`, { cookie: admin(w) })).status === 200 };
     },
   },
+  "POST /api/progress/[entryId]/restore": {
+    need: { kind: "scenario", action: "recordProgress" },
+    ok: 200,
+    request: async (w) => {
+      const f = await newFieldScenario(w.projectId, admin(w));
+      must(await call(`/api/progress/${f.entryId}`, { method: "DELETE", cookie: admin(w) }), 200, "deleting the entry to put back");
+      // Refused: the entry stays deleted (not readable in the log).
+      return { params: { entryId: f.entryId }, survives: async () => (await call(`/api/progress/${f.entryId}`, { cookie: admin(w) })).status === 404 };
+    },
+  },
   "GET /api/scenarios/[scenarioId]/reforecast": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { scenarioId: w.field.id } }) },
   "POST /api/scenarios/[scenarioId]/reforecast": {
     need: { kind: "scenario", action: "runScenario" },

@@ -141,6 +141,23 @@ describe("progress entries", () => {
     // A deleted shift no longer holds its stations: the same milling can be recorded again.
     expect((await post(s.id, milling({ crew: "M3" }))).status).toBe(201);
 
+    // Put back: not the milling (its stretch is recorded again since: the rule named, nothing changed), the overlay
+    // yes — as it was recorded, one version on, and its history says so; the viewer may not.
+    const blocked = await call(`/api/progress/${m.body.id}/restore`, { method: "POST", cookie: inspector });
+    expect(blocked.status).toBe(400);
+    expect(blocked.body.fields[0]).toMatchObject({ path: "fromStationFt", message: expect.stringMatching(/^Mechanical milling is already recorded over STA 0\+00–STA 3\+00/) });
+    expect((await call(`/api/progress/${o.body.id}/restore`, { method: "POST", cookie: viewer })).status).toBe(403);
+    const back = await call(`/api/progress/${o.body.id}/restore`, { method: "POST", cookie: engineer });
+    expect(back.status).toBe(200);
+    expect(back.body.version).toBe(2);
+    const restored = await call(`/api/progress/${o.body.id}`, { cookie: viewer });
+    expect(restored.body.entry).toMatchObject({ operationId: "overlay", toStationFt: 200, enteredByName: "Rosa Tenney", version: 2 });
+    expect(restored.body.history.map((h: { action: string; changedByName: string }) => `${h.action} by ${h.changedByName}`)).toEqual(["restore by Dana Whitcomb", "delete by Rosa Tenney", "create by Rosa Tenney"]);
+    expect((await call(`/api/progress/${o.body.id}/restore`, { method: "POST", cookie: engineer })).status).toBe(404); // not deleted any more
+    const afterRestore = (await call(`/api/scenarios/${s.id}/progress`, { cookie: viewer })).body;
+    expect(afterRestore.deleted.map((d: { id: string }) => d.id)).toEqual([m.body.id]);
+    expect((await call(`/api/progress/${o.body.id}?version=2`, { method: "DELETE", cookie: inspector })).status).toBe(200);
+
     // The field log as CSV (any member): the shift in the log, not the deleted ones.
     const csv = await call(`/api/scenarios/${s.id}/exports/field-log.csv`, { cookie: viewer });
     expect(csv.status).toBe(200);
@@ -224,6 +241,8 @@ describe("a forecast behind the field", () => {
     expect(await notIn()).toBe(1); // the forecast used it: it is behind the field until re-forecast
     await forecast("reforecast", { dataDate: day(3) });
     expect(await notIn()).toBe(0);
+    expect((await call(`/api/progress/${first.body.id}/restore`, { method: "POST", cookie: engineer })).status).toBe(200);
+    expect(await notIn()).toBe(1); // put back after the forecast: a change it does not know
   });
 });
 

@@ -1,4 +1,5 @@
-import { formatDateTime } from "@/lib/format";
+import { formatDateTime, formatIsoDate } from "@/lib/format";
+import { RestoreButton } from "./restore-button";
 import { ShiftCells, ShiftHeads } from "./shift-columns";
 
 export interface DeletedShiftView {
@@ -16,9 +17,11 @@ export interface DeletedShiftView {
 
 /**
  * The shifts taken out of the log, kept on record: a field record does not vanish when someone deletes it, and the
- * project engineer can see who deleted what and when. Folded away: most days there is nothing to look at.
+ * project engineer can see who deleted what and when, and those who record shifts can put one back. Folded away:
+ * most days there is nothing to look at.
  */
-export function DeletedShifts({ rows, shiftName, names }: { rows: DeletedShiftView[]; shiftName: (id: string) => string; names: Record<string, string> }) {
+export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id: string) => string; names: Record<string, string>; canRecord: boolean }) {
+  const { rows, shiftName, names, canRecord } = props;
   if (rows.length === 0) return null;
   return (
     <details className="mt-4 text-sm" data-testid="deleted-shifts">
@@ -32,7 +35,12 @@ export function DeletedShifts({ rows, shiftName, names }: { rows: DeletedShiftVi
             <tr className="border-b border-line text-left">
               <ShiftHeads />
               <th scope="col" className="py-2 pr-3">Recorded by</th>
-              <th scope="col" className="py-2">Deleted</th>
+              <th scope="col" className="py-2 pr-3">Deleted</th>
+              {canRecord && (
+                <th scope="col" className="py-2">
+                  <span className="sr-only">Actions</span>
+                </th>
+              )}
             </tr>
           </thead>
           <tbody>
@@ -40,9 +48,14 @@ export function DeletedShifts({ rows, shiftName, names }: { rows: DeletedShiftVi
               <tr key={r.id} className="border-b border-line/60 align-top text-muted" data-testid="deleted-shift">
                 <ShiftCells e={r} shiftName={shiftName} names={names} />
                 <td className="py-2 pr-3">{r.enteredByName}</td>
-                <td className="py-2">
+                <td className="py-2 pr-3">
                   {r.deletedByName ?? "—"}, {r.deletedAt ? formatDateTime(r.deletedAt) : "—"}
                 </td>
+                {canRecord && (
+                  <td className="py-2">
+                    <RestoreButton entryId={r.id} what={`the ${names[r.operationId] ?? r.operationId} entry of ${formatIsoDate(r.workDate)}`} />
+                  </td>
+                )}
               </tr>
             ))}
           </tbody>

@@ -20,6 +20,7 @@ interface HistoryRow {
   id: string;
   changedAt: string;
   changedByName: string;
+  action: "create" | "edit" | "delete" | "restore";
   before: Record<string, unknown> | null;
   /** Null for the row that deleted the entry. */
   after: Record<string, unknown> | null;
@@ -31,9 +32,11 @@ const FIELD_LABELS: Record<string, string> = {
 };
 
 function changes(h: HistoryRow): string {
-  if (!h.before) return "created the entry";
+  if (h.action === "create") return "created the entry";
+  if (h.action === "delete") return "deleted the entry";
+  if (h.action === "restore") return "put the deleted entry back";
   const after = h.after;
-  if (!after) return "deleted the entry";
+  if (!h.before || !after) return "changed the entry";
   const diff = Object.keys(FIELD_LABELS).filter((k) => JSON.stringify(h.before![k]) !== JSON.stringify(after[k]));
   if (diff.length === 0) return "saved without changes";
   const show = (v: unknown) => (Array.isArray(v) ? `${v.length} item${v.length === 1 ? "" : "s"}` : v === null || v === "" ? "—" : String(v));
