@@ -217,6 +217,20 @@ export const shiftsNotInRun = sql<number>`(
     END
 )`;
 
+/**
+ * The forecast that stood at the end of `day` where the work is (`timeZone`): the newest plan run or re-forecast
+ * run on or before that day — a later run, whatever its data date, was not known then. Null before the first.
+ */
+export async function getForecastStandingOn({ scenarioId, day, timeZone }: { scenarioId: string; day: string; timeZone: string }) {
+  const [row] = await getDb()
+    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, scenarioId), isForecast, sql`(${simulationRuns.createdAt} AT TIME ZONE ${timeZone})::date <= ${day}::date`))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .limit(1);
+  return row ?? null;
+}
+
 /** The newest plan run (no data date): the drift chart's first point. */
 export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()

@@ -81,6 +81,8 @@ describe("field log", () => {
     expect(await inspector.getByTestId("daily-day").textContent()).toBe(formatIsoDay(day(2), { long: true }));
     expect(await inspector.getByTestId("daily-sum").textContent()).toBe("2 shifts: Mechanical milling 500 ft, Overlay placement 400 ft. 61 °F recorded; no rain; no hours lost.");
     expect(await inspector.getByTestId("daily-shifts").locator("tbody tr").count()).toBe(2);
+    // The plan was first run today, long after that day: no forecast stood then.
+    expect(await inspector.getByTestId("daily-forecast").textContent()).toBe("Forecast at the end of the dayNo forecast of this scenario had been run by then.");
     expect(await inspector.getByRole("navigation", { name: "Days with shifts" }).textContent()).toBe(`← ${formatIsoDay(day(1))}Back to the field logNo later shift`);
     await expect.poll(() => log.tab("progress").getAttribute("aria-current")).toBe("page"); // still under the Field log tab
     expect(await seriousA11yViolations(inspector)).toEqual([]);

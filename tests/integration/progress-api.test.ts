@@ -9,6 +9,7 @@ import Papa from "papaparse";
 import { call, kestrelProject, signInAs } from "../helpers/app";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
+import { getForecastStandingOn } from "@db/queries/progress";
 
 let scheduler: string;
 let inspector: string;
@@ -243,6 +244,23 @@ describe("a forecast behind the field", () => {
     expect(await notIn()).toBe(0);
     expect((await call(`/api/progress/${first.body.id}/restore`, { method: "POST", cookie: engineer })).status).toBe(200);
     expect(await notIn()).toBe(1); // put back after the forecast: a change it does not know
+  });
+});
+
+describe("the forecast that stood on a day (the daily report's)", () => {
+  it("is the newest run made on or before that day where the work is, by its time zone", async () => {
+    const s = await createPastScenario(engineer, projectId, "Standing forecast");
+    const queued = await call(`/api/scenarios/${s.id}/runs`, { method: "POST", cookie: engineer, body: { seed: "standing", iterations: 20 } });
+    expect(queued.status).toBe(202);
+    const job = await waitForJob(queued.body.job.id, engineer);
+    expect(job.status).toBe("completed");
+    // Run at 05:30 UTC on 20 Nov: still the evening of 19 Nov in Chicago.
+    await appDb`UPDATE simulation_runs SET created_at = '2026-11-20T05:30:00Z' WHERE id = ${job.runId!}`;
+    const on = (day: string, timeZone: string) => getForecastStandingOn({ scenarioId: s.id, day, timeZone });
+    expect((await on("2026-11-19", "America/Chicago"))?.createdAt.toISOString()).toBe("2026-11-20T05:30:00.000Z");
+    expect(await on("2026-11-19", "UTC")).toBeNull();
+    expect(await on("2026-11-18", "America/Chicago")).toBeNull();
+    expect((await on("2026-12-01", "UTC"))?.dataDate).toBeNull(); // a plan run
   });
 });
 

@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { requireScenario } from "@/lib/server/access";
 import { orNotFound } from "@/lib/server/page-access";
-import { listProgress } from "@db/queries/progress";
+import { getForecastStandingOn, listProgress } from "@db/queries/progress";
+import { planForecastText } from "@/lib/plan-of-record-text";
 import { parseScenario } from "@sim/validate";
 import { formatIsoDay, formatStation } from "@/lib/format";
 import { DISCOVERED_LABELS, todayIn } from "@/lib/progress-schema";
@@ -37,6 +38,11 @@ export default async function DailyReportPage({ params, searchParams }: { params
   const names = Object.fromEntries(plan.operations.map((o) => [o.id, o.name]));
   const shiftName = (id: string) => plan.calendar.shifts.find((s) => s.id === id)?.name ?? id;
   const toDate = entries.filter((e) => e.workDate <= day);
+  const standing = await getForecastStandingOn({ scenarioId, day, timeZone: plan.timeZone });
+  // The project list's words for a forecast, as it read at the end of that day.
+  const forecast = standing
+    ? planForecastText({ planScenarioId: scenario.id, planName: scenario.name, planRunSummary: standing.summary, planRunAt: standing.createdAt, planRunDataDate: standing.dataDate, planRunStale: null })
+    : null;
   const base = `/scenarios/${scenarioId}/progress/daily`;
 
   return (
@@ -142,6 +148,21 @@ export default async function DailyReportPage({ params, searchParams }: { params
           )}
         </section>
       )}
+
+      <section className="card break-inside-avoid" aria-labelledby="daily-forecast-heading" data-testid="daily-forecast">
+        <h3 id="daily-forecast-heading">Forecast at the end of the day</h3>
+        {forecast ? (
+          <>
+            <p className="mt-1 text-sm">
+              P80 finish <strong>{forecast.p80}</strong>
+              {forecast.rest}
+            </p>
+            <p className="mt-0.5 text-xs text-muted">{forecast.when}</p>
+          </>
+        ) : (
+          <p className="mt-1 text-sm text-muted">No forecast of this scenario had been run by then.</p>
+        )}
+      </section>
 
       {toDate.length > 0 && (
         <section className="card break-inside-avoid" aria-labelledby="daily-to-date-heading">
