@@ -36,6 +36,7 @@ export function ProgressToDate({ rows, document = false }: { rows: OperationProg
                   <div className="whitespace-nowrap">
                     {feet(r.doneFt)} of {feet(r.totalFt)}
                   </div>
+                  {/* A stage by its short name ("Stage 1" of "Stage 1: L1 behind barrier, …"): the line stays one line. */}
                   {staged && r.stages.length > 0 && (
                     <div className="text-xs text-muted">{r.stages.map((st) => `${st.stageName.split(":")[0]}: ${feet(st.doneFt)} of ${feet(st.totalFt)}`).join(" · ")}</div>
                   )}

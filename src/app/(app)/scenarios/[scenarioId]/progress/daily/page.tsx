@@ -18,8 +18,8 @@ const feet = (ft: number) => `${Math.round(ft).toLocaleString("en-US")} ft`;
 
 /**
  * The field log of one day, printable like the owner brief (its fixed width, nothing to click on paper): the shifts
- * worked, the day in sum, the conditions found, and progress to date at the end of that day — the record an
- * inspector files and the owner's office reads. `?date=` picks the day (the log's last day by default); the
+ * worked, the day in sum, the conditions found, and progress to date and the forecast that stood at the end of
+ * that day — the record an inspector files and the owner's office reads. `?date=` picks the day (the log's last day by default); the
  * days before and after with shifts are a click away.
  */
 export default async function DailyReportPage({ params, searchParams }: { params: Promise<{ scenarioId: string }>; searchParams: Promise<{ date?: string }> }) {
