@@ -61,8 +61,13 @@ export async function listProgress({ scenarioId }: { scenarioId: string }) {
 }
 export type ProgressRow = Awaited<ReturnType<typeof listProgress>>[number];
 
-export async function getProgressEntry({ id }: { id: string }) {
-  const [row] = await getDb().select(entryColumns).from(progressEntries).innerJoin(users, eq(users.id, progressEntries.enteredById)).where(and(eq(progressEntries.id, id), isNull(progressEntries.deletedAt)));
+/** An entry in the log; with `deleted`, one taken out of it (to put it back). */
+export async function getProgressEntry({ id, deleted = false }: { id: string; deleted?: boolean }) {
+  const [row] = await getDb()
+    .select(entryColumns)
+    .from(progressEntries)
+    .innerJoin(users, eq(users.id, progressEntries.enteredById))
+    .where(and(eq(progressEntries.id, id), deleted ? isNotNull(progressEntries.deletedAt) : isNull(progressEntries.deletedAt)));
   return row ?? null;
 }
 
@@ -147,12 +152,6 @@ export async function deleteProgressEntry({ id, userId, expectedVersion }: { id:
     await tx.insert(progressHistory).values({ entryId: id, changedById: userId, action: "delete", before: recordedFields(current), after: null });
     return { ok: true, version: current.version };
   });
-}
-
-/** A deleted shift, with its scenario (to check the caller's right and the plan's rules before putting it back). */
-export async function getDeletedProgressEntry({ id }: { id: string }) {
-  const [row] = await getDb().select(entryColumns).from(progressEntries).innerJoin(users, eq(users.id, progressEntries.enteredById)).where(and(eq(progressEntries.id, id), isNotNull(progressEntries.deletedAt)));
-  return row ?? null;
 }
 
 /**

@@ -2,7 +2,7 @@
  * One day of the field log, as the daily report shows it: the shifts worked that day, the days before and after it
  * that have shifts (to step through the log), and the day in sum. Pure.
  */
-import { parseIsoDate, formatDayNumber } from "@sim/dates";
+import { isRealIsoDate } from "@sim/text";
 
 export interface DayShift {
   workDate: string;
@@ -17,8 +17,7 @@ export interface DayShift {
 
 /** A real calendar date written YYYY-MM-DD, or null ("2026-02-30" and "yesterday" are not). */
 export function readDay(raw: string | undefined): string | null {
-  if (!raw || !/^\d{4}-\d{2}-\d{2}$/.test(raw)) return null;
-  return formatDayNumber(parseIsoDate(raw)) === raw ? raw : null;
+  return raw !== undefined && isRealIsoDate(raw) ? raw : null;
 }
 
 /** The nearest days before and after `day` that have a shift in the log (null at either end). */

@@ -3,7 +3,7 @@ import { z } from "zod";
 import { AppError, handler } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { validateEntry } from "@/lib/server/progress";
-import { getDeletedProgressEntry, recordedFields, restoreProgressEntry } from "@db/queries/progress";
+import { getProgressEntry, recordedFields, restoreProgressEntry } from "@db/queries/progress";
 
 type Ctx = { params: Promise<{ entryId: string }> };
 
@@ -14,7 +14,7 @@ type Ctx = { params: Promise<{ entryId: string }> };
  */
 export const POST = handler(async (_req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
-  const entry = z.uuid().safeParse(entryId).success ? await getDeletedProgressEntry({ id: entryId }) : null;
+  const entry = z.uuid().safeParse(entryId).success ? await getProgressEntry({ id: entryId, deleted: true }) : null;
   if (!entry || !entry.scenarioId) throw new AppError("not_found", "No deleted shift to put back.");
   const { scenario, user } = await requireScenario(entry.scenarioId, "recordProgress");
   await validateEntry({ scenario, entry: recordedFields(entry) });
