@@ -25,8 +25,12 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role, archived, user } = access;
-  const [plan, alertsOn] = await Promise.all([getPlanOfRecord({ projectId: project.id }), getForecastAlerts({ projectId: project.id, userId: user.id })]);
-  const progress = plan?.planScenarioId ? (await planProgressTexts([plan.planScenarioId])).get(plan.planScenarioId) : null;
+  const [plan, alertsOn, progressTexts] = await Promise.all([
+    getPlanOfRecord({ projectId: project.id }),
+    getForecastAlerts({ projectId: project.id, userId: user.id }),
+    planProgressTexts([project.planScenarioId]),
+  ]);
+  const progress = project.planScenarioId ? progressTexts.get(project.planScenarioId) : null;
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
