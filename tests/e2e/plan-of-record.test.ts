@@ -32,7 +32,10 @@ describe("the plan of record", () => {
     // The plan's Outlook shows the plan as run before work began; it says above its charts that the field log has
     // moved the forecast on, with the same P80 finish the project list quotes.
     const p80 = /P80 finish (\d{1,2} \w{3} \d{4})/.exec(text)![1];
+    const progress = await card.getByTestId("plan-progress").textContent();
     await card.click();
+    // The project page says the same progress under its plan of record.
+    await expect.poll(() => page.getByTestId("plan-of-record").getByTestId("plan-progress").textContent()).toBe(progress);
     // The scenario table says the plan's newest re-forecast beside its plan run's dates.
     const planRow = page.getByRole("row").filter({ has: page.getByText("Plan of record", { exact: true }) });
     expect(await planRow.getByTestId("reforecast-line").textContent()).toMatch(/^Re-forecast from the field log as of \d{1,2} \w{3} \d{4}: P80 finish \d{1,2} \w{3} \d{4}$/);
