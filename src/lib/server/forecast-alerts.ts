@@ -21,7 +21,7 @@ export async function sendForecastAlerts(): Promise<number> {
   let announced = 0;
   const forecasts = await listUnannouncedPlanForecasts();
   // Read before the transactions: a sentence a second old is as true as one read inside them.
-  const progress = forecasts.length ? await planProgressTexts(forecasts.map((p) => p.planScenarioId)) : new Map<string, string>();
+  const progress = await planProgressTexts(forecasts.map((p) => p.planScenarioId)); // no ids: no query
   for (const p of forecasts) {
     await inTransaction(async (tx) => {
       if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return;

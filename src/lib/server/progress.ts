@@ -7,14 +7,16 @@ import type { ProgressRecord } from "@sim/index";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
 import { HORIZON_DAYS } from "@sim/calendar";
 import { budgetProblem } from "@sim/budget";
-import type { z } from "zod";
-import { listProgress, type ProgressFields, type ProgressRow } from "@db/queries/progress";
+import { z } from "zod";
+import { getProgressEntry, listProgress, type ProgressFields, type ProgressRow } from "@db/queries/progress";
 import { getCachedForecast } from "@db/queries/forecast";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { checkDependents, checkProgressEntry, todayIn, type ProgressEntry, type reforecastSchema, type RuleEntry } from "@/lib/progress-schema";
 import { reforecastInputsHash } from "@/lib/run-record";
 import { queueRunJob } from "./jobs";
-import { badRequest } from "./errors";
+import { AppError, badRequest } from "./errors";
+import { requireScenario } from "./access";
+import type { Action } from "@/lib/permissions";
 import { validateDefinition } from "./scenario-input";
 import { forecastForReforecast } from "./forecast/reforecast-input";
 
@@ -23,6 +25,17 @@ export const toRecord = (r: ProgressRow): ProgressRecord => ({ workDate: r.workD
 
 export function fieldsOf(e: ProgressEntry): ProgressFields {
   return { ...e, tempF: e.tempF ?? null };
+}
+
+/**
+ * A field-log entry and the scenario it belongs to, with the caller's right to `action` (404 hides other
+ * projects' entries). `deleted`: one taken out of the log (to put it back), with its own not-found words.
+ */
+export async function requireProgressEntry(entryId: string, action: Action, { deleted = false }: { deleted?: boolean } = {}) {
+  const entry = z.uuid().safeParse(entryId).success ? await getProgressEntry({ id: entryId, deleted }) : null;
+  if (!entry || !entry.scenarioId) throw new AppError("not_found", deleted ? "No deleted shift to put back." : "No such progress entry.");
+  const access = await requireScenario(entry.scenarioId, action);
+  return { entry, ...access };
 }
 
 /** Throws 400 with every field problem of a new or edited entry; returns the parsed plan. */

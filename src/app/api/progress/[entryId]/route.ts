@@ -1,32 +1,21 @@
 import { NextResponse } from "next/server";
-import { z } from "zod";
 import { AppError, badRequest, handler, readJson } from "@/lib/server/errors";
-import { requireScenario } from "@/lib/server/access";
-import { fieldsOf, validateDelete, validateEntry } from "@/lib/server/progress";
+import { fieldsOf, requireProgressEntry, validateDelete, validateEntry } from "@/lib/server/progress";
 import { progressUpdateSchema } from "@/lib/progress-schema";
 import { deleteProgressEntry, getProgressEntry, listProgressHistory, updateProgressEntry } from "@db/queries/progress";
-import type { Action } from "@/lib/permissions";
 
 type Ctx = { params: Promise<{ entryId: string }> };
 
-/** The entry and the scenario it belongs to, with the caller's right to `action` (404 hides other projects). */
-async function load(entryId: string, action: Action) {
-  const entry = z.uuid().safeParse(entryId).success ? await getProgressEntry({ id: entryId }) : null;
-  if (!entry || !entry.scenarioId) throw new AppError("not_found", "No such progress entry.");
-  const access = await requireScenario(entry.scenarioId, action);
-  return { entry, ...access };
-}
-
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
-  const { entry } = await load(entryId, "read");
+  const { entry } = await requireProgressEntry(entryId, "read");
   return NextResponse.json({ entry, history: await listProgressHistory({ entryId }) });
 });
 
 /** Saves only over the version the editor loaded (409 otherwise, nothing changes); history keeps before and after. */
 export const PUT = handler(async (req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
-  const { scenario, user } = await load(entryId, "recordProgress");
+  const { scenario, user } = await requireProgressEntry(entryId, "recordProgress");
   const { version, ...entry } = await readJson(req, progressUpdateSchema);
   await validateEntry({ scenario, entry, id: entryId });
   const result = await updateProgressEntry({ id: entryId, expectedVersion: version, fields: fieldsOf(entry), userId: user.id });
@@ -46,7 +35,7 @@ export const DELETE = handler(async (req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
   const raw = new URL(req.url).searchParams.get("version");
   if (raw !== null && !/^[1-9]\d{0,8}$/.test(raw)) throw badRequest([{ path: "version", message: "Version must be a whole number from 1" }]);
-  const { scenario, user } = await load(entryId, "recordProgress");
+  const { scenario, user } = await requireProgressEntry(entryId, "recordProgress");
   await validateDelete({ scenario, id: entryId });
   const expectedVersion = raw === null ? undefined : Number(raw);
   const result = await deleteProgressEntry({ id: entryId, userId: user.id, expectedVersion });

@@ -1,9 +1,7 @@
 import { NextResponse } from "next/server";
-import { z } from "zod";
 import { AppError, handler } from "@/lib/server/errors";
-import { requireScenario } from "@/lib/server/access";
-import { validateEntry } from "@/lib/server/progress";
-import { getProgressEntry, recordedFields, restoreProgressEntry } from "@db/queries/progress";
+import { requireProgressEntry, validateEntry } from "@/lib/server/progress";
+import { recordedFields, restoreProgressEntry } from "@db/queries/progress";
 
 type Ctx = { params: Promise<{ entryId: string }> };
 
@@ -14,9 +12,7 @@ type Ctx = { params: Promise<{ entryId: string }> };
  */
 export const POST = handler(async (_req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
-  const entry = z.uuid().safeParse(entryId).success ? await getProgressEntry({ id: entryId, deleted: true }) : null;
-  if (!entry || !entry.scenarioId) throw new AppError("not_found", "No deleted shift to put back.");
-  const { scenario, user } = await requireScenario(entry.scenarioId, "recordProgress");
+  const { entry, scenario, user } = await requireProgressEntry(entryId, "recordProgress", { deleted: true });
   await validateEntry({ scenario, entry: recordedFields(entry) });
   const result = await restoreProgressEntry({ id: entryId, userId: user.id });
   if (!result.ok) throw new AppError("not_found", "No deleted shift to put back.");
