@@ -206,15 +206,21 @@ export function reforecastsOf(scenarioId: string | AnyColumn) {
  * was run; and shifts it used that were deleted after it was run. Above zero, the forecast is behind the field:
  * the one place this rule is written.
  */
-export const shiftsNotInRun = sql<number>`(
+export const shiftsNotInRun = (() => {
+  // Named with their table: in a select from simulation_runs alone drizzle writes its columns bare, and a bare
+  // "scenario_id" or "created_at" inside this subquery would be the field-log entry's own.
+  const run = (c: AnyColumn) => sql`${simulationRuns}.${sql.identifier(c.name)}`;
+  const [scenario, dataDate, createdAt] = [run(simulationRuns.scenarioId), run(simulationRuns.dataDate), run(simulationRuns.createdAt)];
+  return sql<number>`(
   SELECT count(*)::int FROM ${progressEntries} pe
-  WHERE pe.scenario_id = ${simulationRuns.scenarioId}
+  WHERE pe.scenario_id = ${scenario}
     AND CASE WHEN pe.deleted_at IS NULL
-      THEN pe.work_date > coalesce(${simulationRuns.dataDate}, '-infinity'::date) OR pe.updated_at > ${simulationRuns.createdAt}
-      ELSE pe.deleted_at > ${simulationRuns.createdAt} AND pe.created_at <= ${simulationRuns.createdAt}
-        AND pe.work_date <= coalesce(${simulationRuns.dataDate}, '-infinity'::date)
+      THEN pe.work_date > coalesce(${dataDate}, '-infinity'::date) OR pe.updated_at > ${createdAt}
+      ELSE pe.deleted_at > ${createdAt} AND pe.created_at <= ${createdAt}
+        AND pe.work_date <= coalesce(${dataDate}, '-infinity'::date)
     END
 )`;
+})();
 
 /**
  * The forecast that stood at the end of `day` where the work is (`timeZone`): the newest plan run or re-forecast
