@@ -93,6 +93,17 @@ export const projects = pgTable("projects", {
    * was chosen): a newer one is announced once to the members who asked (src/lib/server/forecast-alerts.ts).
    */
   planAnnouncedRunId: uuid("plan_announced_run_id").references((): AnyPgColumn => simulationRuns.id, { onDelete: "set null" }),
+  /**
+   * The daily re-forecast of the plan of record: the local hour (0–23, the plan's time zone) after which the server
+   * re-forecasts it from the field log as of the day before (null = off; src/lib/server/daily-reforecast.ts), who
+   * set it up (the runs are theirs) and the last local date it was considered, so it happens once a day.
+   * 0–23 (a CHECK constraint in the migration).
+   */
+  dailyReforecastHour: integer("daily_reforecast_hour"),
+  dailyReforecastById: text("daily_reforecast_by").references(() => users.id, { onDelete: "set null" }),
+  dailyReforecastLastOn: date("daily_reforecast_last_on"),
+  /** What that day's look decided, in words ("re-forecast from 3 Dec 2026: 2 field-log changes …"). */
+  dailyReforecastNote: text("daily_reforecast_note"),
 });
 export type Project = InferSelectModel<typeof projects>;
 

@@ -124,6 +124,7 @@ const LABELS: Record<string, string | [string, string]> = {
   archived: "Archived",
   planScenarioId: "Plan of record",
   forecastAlerts: "Forecast e-mails",
+  dailyReforecastHour: "Daily re-forecast hour",
   workDate: "Work date",
   operationId: "Operation",
   crew: "Crew",

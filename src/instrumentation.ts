@@ -1,6 +1,6 @@
 /**
- * Runs once per server process. Starts the e-mail outbox poller, the plan-of-record forecast e-mails and the daily
- * look-ahead notices in the Node.js runtime, unless
+ * Runs once per server process. Starts the e-mail outbox poller, the plan-of-record forecast e-mails, the daily
+ * re-forecast of plans of record and the daily look-ahead notices in the Node.js runtime, unless
  * POURLINE_OUTBOX=off, there is no database configured, or this is the build.
  */
 export async function register() {
@@ -12,6 +12,10 @@ export async function register() {
   if (process.env.POURLINE_FORECAST_ALERTS !== "off") {
     const { startForecastAlertPoller } = await import("./lib/server/forecast-alerts");
     startForecastAlertPoller();
+  }
+  if (process.env.POURLINE_DAILY_REFORECAST !== "off") {
+    const { startDailyReforecastPoller } = await import("./lib/server/daily-reforecast");
+    startDailyReforecastPoller();
   }
   if (process.env.POURLINE_LOOKAHEAD_NOTICES === "off") return;
   const { startLookAheadNoticePoller } = await import("./lib/server/look-ahead-notices");

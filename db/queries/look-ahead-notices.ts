@@ -3,7 +3,7 @@ import "server-only";
  * The daily look-ahead e-mail of each scenario. `claimNoticeDay` marks a notice sent for a local date only
  * if it was not already, inside the caller's transaction, so two app processes never send the same day twice.
  */
-import { and, eq, isNull, lt, or } from "drizzle-orm";
+import { and, asc, eq, isNull, lt, or } from "drizzle-orm";
 import { getDb } from "../client";
 import { lookAheadNotices, projects, scenarios } from "../schema";
 import type { Executor } from "./mail";
@@ -22,6 +22,23 @@ export async function saveLookAheadNotice(input: { scenarioId: string; enabled: 
     .insert(lookAheadNotices)
     .values({ scenarioId: input.scenarioId, ...values })
     .onConflictDoUpdate({ target: lookAheadNotices.scenarioId, set: values });
+}
+
+/** Every look-ahead notice set up on a project's scenarios, on or off, for the project's overview of its e-mail. */
+export async function listProjectLookAheadNotices({ projectId }: { projectId: string }) {
+  return getDb()
+    .select({
+      scenarioId: lookAheadNotices.scenarioId,
+      name: scenarios.name,
+      enabled: lookAheadNotices.enabled,
+      hour: lookAheadNotices.hour,
+      recipients: lookAheadNotices.recipients,
+      lastSentOn: lookAheadNotices.lastSentOn,
+    })
+    .from(lookAheadNotices)
+    .innerJoin(scenarios, eq(scenarios.id, lookAheadNotices.scenarioId))
+    .where(eq(scenarios.projectId, projectId))
+    .orderBy(asc(scenarios.name));
 }
 
 /** Enabled notices with what the sender needs of their scenario; none of an archived project (it is a record, not a job in hand). */

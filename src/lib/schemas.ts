@@ -115,6 +115,18 @@ export const planOfRecordSchema = z.object({ planScenarioId: z.uuid("must name o
 /** A member's own choice: an e-mail with each new forecast of the project's plan of record, or not. */
 export const forecastAlertsSchema = z.object({ forecastAlerts: z.boolean({ error: "must be true (send them) or false (stop them)" }) }).strict();
 
+/** The daily re-forecast of the plan of record: the local hour after which it runs each day, or null (off). */
+export const dailyReforecastSchema = z
+  .object({
+    dailyReforecastHour: z
+      .number({ error: "must be a whole hour from 0 to 23, or empty to turn it off" })
+      .int("must be a whole hour from 0 to 23")
+      .min(0, "must be a whole hour from 0 to 23")
+      .max(23, "must be a whole hour from 0 to 23")
+      .nullable(),
+  })
+  .strict();
+
 export const memberSchema = z.object({ email: z.email("must be an e-mail address").max(200), role: z.enum(ROLES) });
 /** An invitation names a person and a role like adding a member does; the same contract. */
 export const invitationSchema = memberSchema;

@@ -3,7 +3,8 @@
  * project is run by, its newest forecast in words and how far the field log says the job has got, and the plan's Outlook and owner brief say the same
  * re-forecast above the plan run's charts; an administrator of a new project chooses one of its
  * scenarios on the project page, which then marks it in the scenario table and on its page, and shows it on the list,
- * and asks for an e-mail with each new forecast of it.
+ * asks for an e-mail with each new forecast of it and has it re-forecast each morning; the Members page says who is
+ * sent what.
  */
 import { describe, expect, it } from "vitest";
 import { APP_URL, call } from "../helpers/app";
@@ -81,9 +82,27 @@ describe("the plan of record", () => {
     const alerts = page.getByTestId("forecast-alerts");
     await alerts.getByLabel("E-mail me each new forecast of the plan of record").check();
     await alerts.getByText("Forecast e-mails on.").waitFor();
+    // Its administrators can have it re-forecast each morning without anyone pressing a button; the words say when
+    // and in whose name.
+    const daily = page.getByTestId("daily-reforecast");
+    expect(await daily.textContent()).toContain("Re-forecast by hand only: someone presses Re-forecast on the plan's Field log.");
+    await daily.getByLabel("Re-forecast the plan of record each morning").check();
+    await daily.getByLabel("After").selectOption({ label: "05:00" });
+    await daily.getByRole("button", { name: "Save" }).click();
+    await expect.poll(() => daily.textContent()).toContain("Re-forecast each morning after 05:00 (the plan's time zone) from the field log as of the day before");
+    expect(await daily.textContent()).toContain("set up by Marco Ilves, in whose name it runs");
     expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "plan-of-record-daily-reforecast");
     await page.reload();
     expect(await page.getByLabel("E-mail me each new forecast of the plan of record").isChecked()).toBe(true);
+    expect(await page.getByLabel("Re-forecast the plan of record each morning").isChecked()).toBe(true);
+    expect(await page.getByLabel("After").inputValue()).toBe("5");
+    // The Members page says who is sent what from the project.
+    await page.goto(`${APP_URL}/projects/${project.body.id}/members`);
+    const mail = page.getByTestId("project-mail");
+    expect(await mail.textContent()).toContain("Each new forecast of the plan of recordTo Marco Ilves.");
+    expect(await mail.textContent()).toContain("Week ahead, dailyNot set up on any scenario.");
+    await page.goBack();
     // The scenario's own page says so beside its name.
     await page.getByRole("row", { name: /Weekend closures/ }).getByRole("link", { name: "Weekend closures" }).click();
     await page.getByRole("heading", { name: "Weekend closures", level: 1 }).waitFor();

@@ -167,6 +167,15 @@ export const API_ROWS: Record<string, ApiRow> = {
       return { params: proj(w), body: { planScenarioId: row.plan_scenario_id } };
     },
   },
+  // Sends the setting the project has: allowed, it changes nothing the other rows read.
+  "PUT /api/projects/[projectId]/daily-reforecast": {
+    need: { kind: "project", action: "editProject" },
+    ok: 200,
+    request: async (w) => {
+      const [row] = await w.db`SELECT daily_reforecast_hour FROM projects WHERE id = ${w.projectId}`;
+      return { params: proj(w), body: { dailyReforecastHour: row.daily_reforecast_hour } };
+    },
+  },
   // Sends "off", as every demo member has it: allowed for every role (a person's own inbox), it changes nothing others read.
   "PUT /api/projects/[projectId]/forecast-alerts": {
     need: { kind: "project", action: "read" },

@@ -15,6 +15,9 @@ import { getPlanOfRecord } from "@db/queries/projects";
 import { listProjectScenarios } from "@db/queries/scenarios";
 import { PlanOfRecordHeadline } from "@/components/plan-of-record-headline";
 import { PlanOfRecordPicker } from "./plan-of-record-picker";
+import { DailyReforecastForm } from "./daily-reforecast-form";
+import { getDailyReforecast } from "@db/queries/daily-reforecast";
+import { dailyReforecastText } from "@/lib/daily-reforecast";
 import { planProgressTexts } from "@/lib/server/plan-progress";
 import { ForecastAlertsToggle } from "./forecast-alerts-toggle";
 import { getForecastAlerts } from "@db/queries/forecast-alerts";
@@ -25,10 +28,11 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role, archived, user } = access;
-  const [plan, alertsOn, progressTexts] = await Promise.all([
+  const [plan, alertsOn, progressTexts, daily] = await Promise.all([
     getPlanOfRecord({ projectId: project.id }),
     getForecastAlerts({ projectId: project.id, userId: user.id }),
     planProgressTexts([project.planScenarioId]),
+    getDailyReforecast({ projectId: project.id }),
   ]);
   const progress = project.planScenarioId ? progressTexts.get(project.planScenarioId) : null;
   return (
@@ -66,6 +70,13 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link progress={progress} />}</div>
         {can(role, "editProject", archived) && (
           <PlanOfRecordPicker projectId={project.id} current={project.planScenarioId} scenarios={(await listProjectScenarios({ projectId: project.id })).map((s) => ({ id: s.id, name: s.name }))} />
+        )}
+        {project.planScenarioId && daily && (
+          <div className="mt-4 border-t border-line pt-3" data-testid="daily-reforecast">
+            <p className="text-sm">{dailyReforecastText(daily)}</p>
+            {daily.note && <p className="mt-1 text-xs text-muted">{daily.note}</p>}
+            {can(role, "editProject", archived) && <DailyReforecastForm projectId={project.id} initial={daily} />}
+          </div>
         )}
         <ForecastAlertsToggle projectId={project.id} initial={alertsOn} email={user.email} archived={archived} />
       </section>

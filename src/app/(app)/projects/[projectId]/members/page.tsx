@@ -4,6 +4,7 @@ import { MembersPanel } from "./members-panel";
 import { orRefused } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";
 import { ArchivedBanner } from "../../../archived-banner";
+import { ProjectMail } from "./project-mail";
 
 export const metadata: Metadata = { title: "Members" };
 
@@ -16,6 +17,7 @@ export default async function MembersPage({ params }: { params: Promise<{ projec
       <ArchivedBanner project={project} role={role} />
       <h1>Members</h1>
       <MembersPanel projectId={project.id} selfId={user.id} />
+      <ProjectMail project={project} />
     </div>
   );
 }
