@@ -247,6 +247,20 @@ export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
   return row ?? null;
 }
 
+/**
+ * The newest plan run's median iteration as drawn (its trace only, read out of the stored results), to compare the
+ * field's progress with the plan (src/lib/against-plan.ts); null before the plan's first run.
+ */
+export async function getPlanRunTrace({ scenarioId }: { scenarioId: string }) {
+  const [row] = await getDb()
+    .select({ trace: sql<unknown>`${simulationRuns.results} -> 'representative' -> 'trace'`, scenarioVersion: simulationRuns.scenarioVersion, createdAt: simulationRuns.createdAt })
+    .from(simulationRuns)
+    .where(and(eq(simulationRuns.scenarioId, scenarioId), sql`${simulationRuns.dataDate} is null`, isForecast))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .limit(1);
+  return row ?? null;
+}
+
 /** The latest re-forecast's full results (for the chart with actuals). */
 export async function getLatestReforecast({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()

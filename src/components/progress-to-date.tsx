@@ -1,16 +1,26 @@
 import { formatIsoDate } from "@/lib/format";
 import { shareText, type OperationProgress } from "@/lib/progress-to-date";
+import { againstPlanText, type AgainstPlan } from "@/lib/against-plan";
 
 const feet = (ft: number) => `${Math.round(ft).toLocaleString("en-US")} ft`;
+
+function againstCell(a: AgainstPlan | undefined, toDate: string, doneFt: number) {
+  return a ? againstPlanText(a, toDate, doneFt, formatIsoDate) : "—";
+}
 
 /**
  * Each crew operation's feet done of the feet it has to do (src/lib/progress-to-date.ts), with a bar, per stage
  * when the plan has several, and its shifts, hours lost and first and last shift — how far the job has got, read
  * off the field log without a chart. `document`: the owner brief's narrower page, where nothing scrolls — no bar
- * and no first-shift column.
+ * and no first-shift column. `against`: each operation against the plan run's median iteration (src/lib/against-plan.ts).
  */
-export function ProgressToDate({ rows, document = false }: { rows: OperationProgress[]; document?: boolean }) {
+export function ProgressToDate({ rows, document = false, against }: { rows: OperationProgress[]; document?: boolean; against?: { byOperation: Map<string, AgainstPlan>; toDate: string; note: string } }) {
   const staged = rows.some((r) => r.stages.length > 1);
+  // On a screen "Against the plan" is a column (the table scrolls in its box); on the narrower paper of a document
+  // it is a line under its operation's row, across the table.
+  const column = against && !document;
+  const line = against && document;
+  const columns = document ? 6 : 7;
   return (
     <div className="scroll-x">
       <table className="w-full text-sm" data-testid="progress-to-date">
@@ -23,14 +33,15 @@ export function ProgressToDate({ rows, document = false }: { rows: OperationProg
             <th scope="col" className="py-2 pr-3 text-right">Shifts</th>
             <th scope="col" className="py-2 pr-6 text-right">Hours lost</th>
             {!document && <th scope="col" className="py-2 pr-3">First shift</th>}
-            <th scope="col" className="py-2">Last shift</th>
+            <th scope="col" className={column ? "py-2 pr-3" : "py-2"}>Last shift</th>
+            {column && <th scope="col" className="py-2">Against the plan</th>}
           </tr>
         </thead>
         <tbody>
           {rows.map((r) => {
             const share = shareText(r.doneFt, r.totalFt);
-            return (
-              <tr key={r.id} className="border-b border-line/60 align-top" data-testid="progress-to-date-row">
+            return [
+              <tr key={r.id} className={`align-top ${line ? "" : "border-b border-line/60"}`} data-testid="progress-to-date-row">
                 <th scope="row" className="py-2 pr-3 text-left font-normal">{r.name}</th>
                 <td className="py-2 pr-3">
                   <div className="whitespace-nowrap">
@@ -55,12 +66,21 @@ export function ProgressToDate({ rows, document = false }: { rows: OperationProg
                 <td className="py-2 pr-3 text-right">{r.shifts.toLocaleString("en-US")}</td>
                 <td className="py-2 pr-6 text-right">{r.lostHours > 0 ? r.lostHours.toLocaleString("en-US", { maximumFractionDigits: 1 }) : "—"}</td>
                 {!document && <td className="py-2 pr-3 whitespace-nowrap">{r.firstDate ? formatIsoDate(r.firstDate) : "—"}</td>}
-                <td className="py-2 whitespace-nowrap">{r.lastDate ? formatIsoDate(r.lastDate) : "—"}</td>
-              </tr>
-            );
+                <td className={`py-2 whitespace-nowrap ${column ? "pr-3" : ""}`}>{r.lastDate ? formatIsoDate(r.lastDate) : "—"}</td>
+                {column && <td className="py-2 min-w-40">{againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}</td>}
+              </tr>,
+              line && (
+                <tr key={`${r.id}-against`} className="border-b border-line/60" data-testid="progress-to-date-against">
+                  <td colSpan={columns} className="pb-2 pl-3 text-xs">
+                    Against the plan: {againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}
+                  </td>
+                </tr>
+              ),
+            ];
           })}
         </tbody>
       </table>
+      {against && <p className="mt-2 text-xs text-muted">{against.note}</p>}
     </div>
   );
 }

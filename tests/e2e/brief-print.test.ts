@@ -94,6 +94,9 @@ describe("the owner brief prints whole", () => {
     const all = pages.join(" ");
     expect(pages.length).toBeGreaterThanOrEqual(2);
     expect(await page.getByTestId("brief-progress").locator("tbody tr").first().textContent()).toBe(`Work-zone setup800 ft of 8,400 ft10 %2—${formatIsoDate(shiftDates[1])}`);
+    // Under each row, on paper, where it stands against the plan run's median iteration (a 200-iteration run).
+    expect(await page.getByTestId("progress-to-date-against").first().textContent()).toMatch(/^Against the plan: (On plan|[\d,]+ ft (behind|ahead) — .+)$/);
+    expect(await page.getByTestId("brief-progress").textContent()).toContain("Against the plan: how far the plan run of");
     for (const heading of ["Owner brief", "Progress to date", "Forecast", "Confidence curve", "Finish dates", "Time–distance", "Delay and cost", "Finish by operation", "Assumptions", "Planning aid, not an approval"]) {
       // Case aside: some headings are set in capitals by the style sheet, and the PDF holds them as shown.
       expect(all.toLowerCase(), `${format}: "${heading}" printed`).toContain(heading.toLowerCase());

@@ -70,10 +70,13 @@ describe("field log", () => {
     await inspector.getByLabel("Show", { exact: true }).selectOption({ label: "Every operation" });
     expect(await inspector.getByTestId("progress-row").count()).toBe(3);
     // Progress to date: milling 0–500 and 500–1000 is the whole 1,000 ft deck; overlay 0–400.
+    // Each row ends with where the operation stands against the plan run's median iteration at the log's last day.
+    const against = "(On plan|[\\d,]+ ft behind — where the plan was on \\d+ \\w+ \\d{4}(, \\d+ working days? earlier)?|[\\d,]+ ft ahead — where the plan gets on \\d+ \\w+ \\d{4}(, \\d+ working days? later)?)";
     await expect.poll(() => inspector.getByTestId("progress-to-date-row").allTextContents()).toEqual([
-      expect.stringMatching(/^Mechanical milling1,000 ft of 1,000 ft100 %2—\d+ \w+ \d{4}\d+ \w+ \d{4}$/),
-      expect.stringMatching(/^Overlay placement400 ft of 1,000 ft40 %1—/),
+      expect.stringMatching(new RegExp(`^Mechanical milling1,000 ft of 1,000 ft100 %2—\\d+ \\w+ \\d{4}\\d+ \\w+ \\d{4}${against}$`)),
+      expect.stringMatching(new RegExp(`^Overlay placement400 ft of 1,000 ft40 %1—\\d+ \\w+ \\d{4}\\d+ \\w+ \\d{4}${against}$`)),
     ]);
+    expect(await inspector.getByTestId("progress-to-date").locator("xpath=..").textContent()).toContain(`Against the plan: how far the plan run of`);
     expect(await inspector.getByTestId("field-log-csv").getAttribute("href")).toBe(`/api/scenarios/${scenarioId}/exports/field-log.csv`);
     // A day's report, from the date in the log: that day's shifts in sum, printable, with the days either side.
     await inspector.getByTestId("progress-row").first().getByRole("link", { name: formatIsoDate(day(2)) }).click();
@@ -139,7 +142,7 @@ describe("field log", () => {
     await newest.getByRole("button", { name: "Delete" }).click();
     await expect.poll(() => engineer.getByTestId("progress-row").count(), { timeout: 15_000 }).toBe(2);
     // Out of the log, out of the progress: overlay is back to nothing done.
-    await expect.poll(() => engineer.getByTestId("progress-to-date-row").nth(1).textContent()).toBe("Overlay placement0 ft of 1,000 ft0 %0———");
+    await expect.poll(() => engineer.getByTestId("progress-to-date-row").nth(1).textContent()).toMatch(/^Overlay placement0 ft of 1,000 ft0 %0———(On plan|[\d,]+ ft behind — not started; the plan had begun)$/);
     expect(asked).toMatch(/^Delete the Overlay placement entry of .+\? It stays on record under "Deleted shifts"/);
     const deleted = engineer.getByTestId("deleted-shifts");
     await deleted.locator("summary").click();

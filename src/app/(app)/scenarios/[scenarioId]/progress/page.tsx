@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { requireScenario } from "@/lib/server/access";
-import { getLatestPlanRun, getLatestReforecast, listDeletedProgress, listProgress, listReforecastRuns } from "@db/queries/progress";
+import { getLatestPlanRun, getLatestReforecast, getPlanRunTrace, listDeletedProgress, listProgress, listReforecastRuns } from "@db/queries/progress";
 import { getLatestRun } from "@db/queries/runs";
 import { can } from "@/lib/permissions";
-import { formatIsoDate } from "@/lib/format";
+import { formatDateTime, formatIsoDate } from "@/lib/format";
 import { todayIn } from "@/lib/progress-schema";
 import { parseScenario } from "@sim/validate";
 import { parseIsoDate } from "@sim/dates";
@@ -20,6 +20,7 @@ import { BehindFieldNotice } from "./behind-field-notice";
 import { DeletedShifts } from "./deleted-shifts";
 import { ProgressToDate } from "@/components/progress-to-date";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
+import { againstPlanFor } from "@/lib/against-plan";
 import { orNotFound } from "@/lib/server/page-access";
 import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
 import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
@@ -51,12 +52,13 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   const parsed = parseScenario(scenario.definition);
   if (!parsed.ok) return <p className="card text-sm text-bad">The plan has problems, so progress cannot be checked against it. Fix the plan first.</p>;
   const plan = parsed.scenario;
-  const [rows, deleted, drift, planRun, latestRe] = await Promise.all([
+  const [rows, deleted, drift, planRun, latestRe, planTrace] = await Promise.all([
     listProgress({ scenarioId }),
     listDeletedProgress({ scenarioId }),
     listReforecastRuns({ scenarioId }),
     getLatestPlanRun({ scenarioId }),
     getLatestReforecast({ scenarioId }),
+    getPlanRunTrace({ scenarioId }),
   ]);
   const chartRun = latestRe ? { results: latestRe.results, version: latestRe.scenarioVersion, dataDate: latestRe.dataDate } : await getLatestRun({ scenarioId }).then((r) => r && { results: r.results, version: r.scenarioVersion, dataDate: null });
   const entries: EntryView[] = rows.map((r) => ({ ...r, enteredByName: r.enteredByName ?? "" }));
@@ -83,6 +85,8 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   type Digest = { entriesUsed: number; discovery: { inspected: number; found: number; planMean: number; updatedMean: number }; weatherForecast?: { fetchedAt: string } };
   const latestResults = latestRe ? (latestRe.results as { reforecast?: Digest; forecastDates?: string[] }) : undefined;
   const digest = latestResults?.reforecast;
+  const toDate = progressToDate(plan, entries);
+  const against = againstPlanFor({ rows: toDate, run: planTrace, version: scenario.version, plan, toDate: lastDate, formatDate: formatIsoDate, formatDateTime });
 
   return (
     <div className="space-y-5">
@@ -101,7 +105,8 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           <p className="mt-1 mb-3 text-sm text-muted">
             From the field log, up to its last shift ({formatIsoDate(lastDate)}): the feet each operation has done of the feet it has to do{plan.stages && plan.stages.length > 1 ? " over every stage" : ""}, as a re-forecast counts them.
           </p>
-          <ProgressToDate rows={progressToDate(plan, entries)} />
+          <ProgressToDate rows={toDate} against={against ?? undefined} />
+          {!against && <p className="mt-2 text-xs text-muted">{planTrace ? "The plan changed since its last run, so progress is not compared with it: run the plan on the Outlook to compare." : "The plan has not been run, so progress is not compared with it: run it on the Outlook to compare."}</p>}
         </section>
       )}
       <section className="card" aria-labelledby="log-heading">

@@ -2,10 +2,11 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { requireScenario } from "@/lib/server/access";
 import { orNotFound } from "@/lib/server/page-access";
-import { getForecastStandingOn, listProgress } from "@db/queries/progress";
+import { getForecastStandingOn, getPlanRunTrace, listProgress } from "@db/queries/progress";
+import { againstPlanFor } from "@/lib/against-plan";
 import { planForecastText } from "@/lib/plan-of-record-text";
 import { parseScenario } from "@sim/validate";
-import { formatIsoDay, formatStation } from "@/lib/format";
+import { formatDateTime, formatIsoDate, formatIsoDay, formatStation } from "@/lib/format";
 import { DISCOVERED_LABELS, todayIn } from "@/lib/progress-schema";
 import { daySum, neighbourDays, readDay } from "@/lib/daily-report";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
@@ -38,7 +39,10 @@ export default async function DailyReportPage({ params, searchParams }: { params
   const names = Object.fromEntries(plan.operations.map((o) => [o.id, o.name]));
   const shiftName = (id: string) => plan.calendar.shifts.find((s) => s.id === id)?.name ?? id;
   const toDate = entries.filter((e) => e.workDate <= day);
-  const standing = await getForecastStandingOn({ scenarioId, day, timeZone: plan.timeZone });
+  const [standing, planRun] = await Promise.all([getForecastStandingOn({ scenarioId, day, timeZone: plan.timeZone }), getPlanRunTrace({ scenarioId })]);
+  const rowsToDate = progressToDate(plan, toDate);
+  // Against the plan at the end of this day (not of the log's last shift): the day's own standing.
+  const against = againstPlanFor({ rows: rowsToDate, run: planRun, version: scenario.version, plan, toDate: day, formatDate: formatIsoDate, formatDateTime });
   // The project list's words for a forecast, as it read at the end of that day.
   const forecast = standing
     ? planForecastText({ planScenarioId: scenario.id, planName: scenario.name, planRunSummary: standing.summary, planRunAt: standing.createdAt, planRunDataDate: standing.dataDate, planRunStale: null })
@@ -168,7 +172,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
         <section className="card break-inside-avoid" aria-labelledby="daily-to-date-heading">
           <h3 id="daily-to-date-heading">Progress to date</h3>
           <p className="mt-1 mb-2 text-sm text-muted">At the end of {formatIsoDay(day)}, from every shift recorded up to then.</p>
-          <ProgressToDate rows={progressToDate(plan, toDate)} document />
+          <ProgressToDate rows={rowsToDate} document against={against ?? undefined} />
         </section>
       )}
     </article>
