@@ -66,9 +66,12 @@ describe("the plan of record", () => {
     const name = `Avocet Slough Bridge ${Date.now()}`;
     const project = await call("/api/projects", { method: "POST", cookie, body: { name, structureName: "Avocet Slough Bridge", deckLengthFt: 700, startStationFt: 0, lanes: "L1, L2" } });
     expect(project.status).toBe(201);
+    const ids: Record<string, string> = {};
     for (const plan of ["Nights only", "Weekend closures"]) {
       const definition = templateScenario(plan, { deckLengthFt: 700, startStationFt: 0, lanes: ["L1", "L2"] }, "2027-04-05");
-      expect((await call(`/api/projects/${project.body.id}/scenarios`, { method: "POST", cookie, body: { name: plan, definition } })).status).toBe(201);
+      const made = await call(`/api/projects/${project.body.id}/scenarios`, { method: "POST", cookie, body: { name: plan, definition } });
+      expect(made.status).toBe(201);
+      ids[plan] = made.body.id;
     }
     await page.goto(`${APP_URL}/projects/${project.body.id}`);
     const section = page.getByTestId("plan-of-record");
@@ -102,7 +105,13 @@ describe("the plan of record", () => {
     const mail = page.getByTestId("project-mail");
     expect(await mail.textContent()).toContain("Each new forecast of the plan of recordTo Marco Ilves.");
     expect(await mail.textContent()).toContain("Week ahead, dailyNot set up on any scenario.");
-    await page.goBack();
+    // The plan's Field log says so beside its Re-forecast button; another scenario's does not.
+    await page.goto(`${APP_URL}/scenarios/${ids["Weekend closures"]}/progress`);
+    expect(await page.getByTestId("daily-reforecast-note").textContent()).toMatch(/^This scenario is the project's plan of record, re-forecast each morning after 05:00 \(the plan's time zone\)/);
+    await page.goto(`${APP_URL}/scenarios/${ids["Nights only"]}/progress`);
+    await page.getByRole("heading", { name: "Re-forecast and drift" }).waitFor();
+    expect(await page.getByTestId("daily-reforecast-note").count()).toBe(0);
+    await page.goto(`${APP_URL}/projects/${project.body.id}`);
     // The scenario's own page says so beside its name.
     await page.getByRole("row", { name: /Weekend closures/ }).getByRole("link", { name: "Weekend closures" }).click();
     await page.getByRole("heading", { name: "Weekend closures", level: 1 }).waitFor();

@@ -32,7 +32,7 @@ export function DailyReforecastForm({ projectId, initial }: { projectId: string;
       </label>
       <div>
         <label htmlFor="daily-reforecast-hour" className="field-label">
-          After
+          After<span className="sr-only"> this hour each morning, the plan&apos;s time zone</span>
         </label>
         <select id="daily-reforecast-hour" className="field-input" value={hour} disabled={!on} onChange={(e) => (save.reset(), setHour(Number(e.target.value)))}>
           {Array.from({ length: 24 }, (_, h) => (

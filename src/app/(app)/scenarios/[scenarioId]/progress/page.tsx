@@ -21,6 +21,7 @@ import { DeletedShifts } from "./deleted-shifts";
 import { ProgressToDate } from "@/components/progress-to-date";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { againstPlanFor } from "@/lib/against-plan";
+import { hourText } from "@/lib/daily-reforecast";
 import { orNotFound } from "@/lib/server/page-access";
 import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
 import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
@@ -48,7 +49,7 @@ function actualsOf(plan: Scenario, entries: EntryView[]): ActualSeries[] {
 
 export default async function FieldLogPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
-  const { scenario, role, archived } = await orNotFound(requireScenario(scenarioId, "read"));
+  const { scenario, role, archived, project } = await orNotFound(requireScenario(scenarioId, "read"));
   const parsed = parseScenario(scenario.definition);
   if (!parsed.ok) return <p className="card text-sm text-bad">The plan has problems, so progress cannot be checked against it. Fix the plan first.</p>;
   const plan = parsed.scenario;
@@ -135,6 +136,11 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           as 20 inspected packets). When the data date is today and the project has a recent weather forecast (see Week ahead), the first days come from that
           forecast — each hour&apos;s chance of rain decides, iteration by iteration, whether it rains — and the climate profile takes over after them.
         </p>
+        {project.planScenarioId === scenario.id && project.dailyReforecastHour !== null && !archived && (
+          <p className="text-sm" data-testid="daily-reforecast-note">
+            This scenario is the project&apos;s plan of record, re-forecast each morning after {hourText(project.dailyReforecastHour)} (the plan&apos;s time zone) from the field log as of the day before, whenever the log or the plan changed; the project page says what the last morning decided.
+          </p>
+        )}
         {canRun && <ReforecastPanel scenarioId={scenario.id} defaultDate={lastDate || plan.startDate} minDate={plan.startDate} maxDate={facts.today} />}
         <BehindFieldNotice shiftsNotIn={latestRe?.shiftsNotIn ?? null} dataDate={latestRe?.dataDate ?? null} shiftsRecorded={entries.length} whoCanRun={canRun ? "you" : archived ? "nobody" : "others"} />
         {digest && (
