@@ -3,6 +3,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { SaveOutcome } from "@/components/save-outcome";
 import { hourText, type DailyReforecastState } from "@/lib/daily-reforecast";
 
 /**
@@ -45,14 +46,7 @@ export function DailyReforecastForm({ projectId, initial }: { projectId: string;
       <button type="submit" className="btn-secondary" disabled={save.isPending || chosen === initial.hour}>
         {save.isPending ? "Saving…" : "Save"}
       </button>
-      <p aria-live="polite" className="text-sm text-ok">
-        {save.isSuccess ? "Saved." : ""}
-      </p>
-      {save.isError && (
-        <p role="alert" className="field-error w-full">
-          {save.error.message}
-        </p>
-      )}
+      <SaveOutcome saved={save.isSuccess} error={save.error} />
     </form>
   );
 }

@@ -3,6 +3,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { SaveOutcome } from "@/components/save-outcome";
 
 /** Choose the plan of record among the project's scenarios (its administrators and engineers). */
 export function PlanOfRecordPicker({ projectId, current, scenarios }: { projectId: string; current: string | null; scenarios: { id: string; name: string }[] }) {
@@ -37,14 +38,7 @@ export function PlanOfRecordPicker({ projectId, current, scenarios }: { projectI
       <button type="submit" className="btn-secondary" disabled={save.isPending || chosen === (current ?? "")}>
         {save.isPending ? "Saving…" : "Make it the plan of record"}
       </button>
-      <p aria-live="polite" className="text-sm text-ok">
-        {save.isSuccess ? "Saved." : ""}
-      </p>
-      {save.isError && (
-        <p role="alert" className="field-error w-full">
-          {save.error.message}
-        </p>
-      )}
+      <SaveOutcome saved={save.isSuccess} error={save.error} />
     </form>
   );
 }
