@@ -30,8 +30,9 @@ export async function getDailyReforecast({ projectId }: { projectId: string }) {
 }
 
 /**
- * Projects in use with the daily re-forecast on and a plan of record: the plan, the hour, the last day looked at,
- * and who set it up with their role on the project now (null: no longer a member, or their account is gone).
+ * Projects in use with the daily re-forecast on and a plan of record: the plan and its time zone, the hour, the last
+ * day looked at, and who set it up with their role on the project now (null: no longer a member, or their account is
+ * gone).
  */
 export async function listDailyReforecastPlans() {
   const setter = alias(projectMembers, "setter");
@@ -43,6 +44,8 @@ export async function listDailyReforecastPlans() {
       userId: projects.dailyReforecastById,
       role: setter.role,
       scenarioId: scenarios.id,
+      // Enough of the plan to tell whether its day has come, without reading the whole definition every minute.
+      timeZone: sql<string | null>`${scenarios.definition} ->> 'timeZone'`,
     })
     .from(projects)
     .innerJoin(scenarios, eq(scenarios.id, projects.planScenarioId))

@@ -10,26 +10,13 @@
  */
 import { addDays, format, parseISO } from "date-fns";
 import { formatIsoDate } from "./format";
+import { localDateHour } from "./local-clock";
 
 /** A week: how old the newest re-forecast may grow while nothing changes. */
 export const QUIET_DAYS = 7;
 /** The work of one daily re-forecast when the plan has none before it to follow (the Field log's own default). */
 export const DAILY_ITERATIONS = 1_000;
 export const DAILY_SEED = "daily";
-
-/** The local date and hour of `now` where the work is ("2026-12-04", 6); UTC when the zone is unknown. */
-export function localDateHour(now: Date, timeZone: string): { date: string; hour: number } {
-  const read = (tz: string) => {
-    const parts = new Intl.DateTimeFormat("en-CA", { timeZone: tz, year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", hourCycle: "h23" }).formatToParts(now);
-    const get = (t: string) => parts.find((p) => p.type === t)!.value;
-    return { date: `${get("year")}-${get("month")}-${get("day")}`, hour: Number(get("hour")) };
-  };
-  try {
-    return read(timeZone);
-  } catch {
-    return read("UTC");
-  }
-}
 
 const shiftDay = (iso: string, days: number) => format(addDays(parseISO(iso), days), "yyyy-MM-dd");
 

@@ -4,6 +4,7 @@
  * (`checkProgressEntry`, `checkDependents`, `sim/progress-rules.ts`), the condition labels and the re-forecast
  * request.
  */
+import { localDate } from "./local-clock";
 import { z } from "zod";
 export { checkDependents, checkProgressEntry, crewPredecessors, parseStation, sta, type RuleEntry } from "@sim/progress-rules";
 import { plainText, realIsoDate } from "@sim/text";
@@ -24,10 +25,5 @@ export const reforecastSchema = z.object({
 
 /** Today's date in a time zone, `YYYY-MM-DD` (UTC when the zone is unknown). */
 export function todayIn(timeZone: string, now: Date = new Date()): string {
-  const fmt = (tz: string) => new Intl.DateTimeFormat("en-CA", { timeZone: tz, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
-  try {
-    return fmt(timeZone);
-  } catch {
-    return fmt("UTC");
-  }
+  return localDate(now, timeZone);
 }

@@ -14,7 +14,7 @@ import { call } from "../helpers/app";
 import { appDatabase, freshTeam } from "../helpers/fresh-team";
 import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
-import { localDateHour } from "@/lib/daily-reforecast";
+import { localDateHour } from "@/lib/local-clock";
 import { runDailyReforecasts } from "@/lib/server/daily-reforecast";
 
 const TZ = "America/Chicago"; // the fixture plan's time zone

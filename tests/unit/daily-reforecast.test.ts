@@ -5,7 +5,8 @@
  */
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { dailyDecision, dayToConsider, localDateHour, QUIET_DAYS, type NewestReforecast } from "@/lib/daily-reforecast";
+import { dailyDecision, dayToConsider, QUIET_DAYS, type NewestReforecast } from "@/lib/daily-reforecast";
+import { localDateHour } from "@/lib/local-clock";
 
 const newest = (over: Partial<NewestReforecast> = {}): NewestReforecast => ({ dataDate: "2027-05-10", scenarioVersion: 3, changes: 0, seed: "s", iterations: 500, ...over });
 const decide = (n: NewestReforecast | null, day = "2027-05-12", version = 3) => dailyDecision({ day, startDate: "2027-04-01", lastDataDate: "2033-03-31", scenarioVersion: version, newest: n });

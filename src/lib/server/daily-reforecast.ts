@@ -23,16 +23,17 @@ import { validateDefinition } from "./scenario-input";
 export async function runDailyReforecasts(now = new Date()): Promise<{ projectId: string; note: string; jobId?: string }[]> {
   const done: { projectId: string; note: string; jobId?: string }[] = [];
   for (const p of await listDailyReforecastPlans()) {
+    // Most passes end here: the day was looked at already, or its hour has not come (no further query).
+    const day = p.hour === null ? null : dayToConsider({ now, timeZone: p.timeZone ?? "UTC", hour: p.hour, lastOn: p.lastOn });
+    if (day === null || !(await claimDailyReforecastDay({ projectId: p.projectId, day }))) continue;
     const scenario = await getScenario({ id: p.scenarioId });
-    if (!scenario || p.hour === null) continue;
+    if (!scenario) continue; // deleted since the list was read
     let plan;
     try {
       plan = validateDefinition(scenario.definition);
     } catch {
       continue; // a stored plan always parses; an unreadable one is not this pass's to report
     }
-    const day = dayToConsider({ now, timeZone: plan.timeZone, hour: p.hour, lastOn: p.lastOn });
-    if (day === null || !(await claimDailyReforecastDay({ projectId: p.projectId, day }))) continue;
     const said = (text: string, jobId?: string) => {
       const note = `On ${formatIsoDate(day)}: ${text}`;
       done.push({ projectId: p.projectId, note, ...(jobId ? { jobId } : {}) });

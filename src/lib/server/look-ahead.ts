@@ -4,6 +4,7 @@ import "server-only";
  * (./forecast/cache), and the pure evaluation (sim/lookahead). Works without a forecast: cells are then
  * "cannot tell" and the message says why.
  */
+import { localDate } from "@/lib/local-clock";
 import { lookAhead, nextOpenAfter, DEFAULT_RAIN_POP_PCT, type LookAheadDay, type NextOpenTime } from "@sim/lookahead";
 import { getProject } from "@db/queries/projects";
 import { everyCellClosed } from "@/lib/look-ahead-notice";
@@ -12,25 +13,6 @@ import { toHourlyArrays } from "./forecast/nws-format";
 import { validateDefinition } from "./scenario-input";
 
 export const RAIN_RULE = `An hour counts as rain when its chance of precipitation is ${DEFAULT_RAIN_POP_PCT} % or more.`;
-
-/** The calendar date at `now` on the clock of `timeZone` (UTC when the name is not one Intl knows). */
-export function localDate(now: Date, timeZone: string): string {
-  const fmt = (tz: string) => new Intl.DateTimeFormat("en-CA", { timeZone: tz, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
-  try {
-    return fmt(timeZone);
-  } catch {
-    return fmt("UTC");
-  }
-}
-
-/** The local hour (0–23) at `now` on the clock of `timeZone`. */
-export function localHour(now: Date, timeZone: string): number {
-  try {
-    return Number(new Intl.DateTimeFormat("en-US", { timeZone, hourCycle: "h23", hour: "2-digit" }).format(now));
-  } catch {
-    return now.getUTCHours();
-  }
-}
 
 export interface LookAheadBoard {
   today: string;
