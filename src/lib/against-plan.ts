@@ -80,7 +80,9 @@ function packetsOf(ref: PlanReference, opId: string) {
   for (const p of ref.trace.pauses) {
     if (p.op !== opId) continue;
     const key = `${p.stage ?? ""}|${p.packet}`;
-    pauses.set(key, [...(pauses.get(key) ?? []), p]);
+    const list = pauses.get(key);
+    if (list) list.push(p);
+    else pauses.set(key, [p]);
   }
   return ref.trace.packets
     .filter((p) => p.op === opId && Number.isFinite(p.start) && Number.isFinite(p.finish))
