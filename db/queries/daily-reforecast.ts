@@ -63,6 +63,14 @@ export async function claimDailyReforecastDay({ projectId, day }: { projectId: s
   return rows.length === 1;
 }
 
+/** Hands a claimed day back (the queue could not be reached), so a later pass tries it again. */
+export async function releaseDailyReforecastDay({ projectId, day, previous }: { projectId: string; day: string; previous: string | null }) {
+  await getDb()
+    .update(projects)
+    .set({ dailyReforecastLastOn: previous })
+    .where(and(eq(projects.id, projectId), eq(projects.dailyReforecastLastOn, day)));
+}
+
 export async function setDailyReforecastNote({ projectId, note }: { projectId: string; note: string }) {
   await getDb().update(projects).set({ dailyReforecastNote: note }).where(eq(projects.id, projectId));
 }

@@ -103,6 +103,23 @@ describe("daily re-forecast", () => {
     expect((await reforecasts()).at(-1)!.data_date).toBe(plusDays(BASE, 2));
   });
 
+  it("takes the newest re-forecast's iterations only as far as the server's work budget allows once the plan has grown", async () => {
+    // 2,000 iterations of the 1,000 ft deck in 100 ft packets fit; after the deck grows to 20,000 ft in 10 ft packets
+    // (2,000 packets × 2 operations), 1,324 do (sim/budget.ts: 40,000,000 / (2,000 × 2 × 7 + 2,192)).
+    const big = await call(`/api/scenarios/${planId}/reforecast`, { method: "POST", cookie: engineer.cookie, body: { dataDate: isoDaysFromToday(-1, TZ), seed: "by-hand", iterations: 2_000 } });
+    expect(big.status).toBe(202);
+    expect((await waitForJob(big.body.job.id, engineer.cookie)).status).toBe("completed");
+    const current = (await call(`/api/scenarios/${planId}`, { cookie: engineer.cookie })).body.scenario;
+    const grown = { ...current.definition, deck: { ...current.definition.deck, lengthFt: 20_000, packetFt: 10 } };
+    expect((await call(`/api/scenarios/${planId}`, { method: "PUT", cookie: engineer.cookie, body: { name: current.name, definition: grown, version: current.version } })).status).toBe(200);
+    const [due] = await ours(atLocal(plusDays(BASE, 10), 6));
+    expect(due.note).toMatch(/\(the plan changed since the newest re-forecast\)\.$/);
+    const [job] = await db`SELECT iterations FROM engine_jobs WHERE id = ${due.jobId!}`;
+    expect(job.iterations).toBe(1_324);
+    // Not waited for: a large run, and only its size is the point here.
+    expect((await call(`/api/jobs/${due.jobId}`, { method: "DELETE", cookie: engineer.cookie })).status).toBe(200);
+  });
+
   it("stops, saying so, when the person who set it up may no longer run plans; an archived project is not looked at", async () => {
     await db`UPDATE project_members SET role = 'viewer' WHERE project_id = ${projectId} AND user_id = ${engineer.id}`;
     const before = (await reforecasts()).length;

@@ -4,18 +4,19 @@ import "server-only";
  * record whose newest re-forecast is behind the field log (src/lib/daily-reforecast.ts says when) is re-forecast
  * from the day before — queued as the person who set it up, exactly as if they had pressed Re-forecast, so the
  * forecast e-mails, the project list and the drift chart follow as for any re-forecast. Each day's decision is kept
- * in words on the project. Started by src/instrumentation.ts (POURLINE_DAILY_REFORECAST=off disables it; the pace is
+ * in words on the project; a queue that does not answer hands the day back for the next pass. Started by src/instrumentation.ts (POURLINE_DAILY_REFORECAST=off disables it; the pace is
  * POURLINE_NOTICE_INTERVAL_MS, default 60 s).
  */
 import { HORIZON_DAYS } from "@sim/calendar";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
-import { claimDailyReforecastDay, getNewestReforecastBasis, listDailyReforecastPlans, setDailyReforecastNote } from "@db/queries/daily-reforecast";
+import { claimDailyReforecastDay, getNewestReforecastBasis, listDailyReforecastPlans, releaseDailyReforecastDay, setDailyReforecastNote } from "@db/queries/daily-reforecast";
+import { iterationsThatFit } from "@sim/budget";
 import { getScenario } from "@db/queries/scenarios";
 import { dailyDecision, dayToConsider } from "@/lib/daily-reforecast";
 import { formatIsoDate } from "@/lib/format";
 import { can, type ProjectRole } from "@/lib/permissions";
 import { startBackgroundPass } from "./background-pass";
-import { describeError } from "./log";
+import { AppError } from "./errors";
 import { queueReforecast } from "./progress";
 import { validateDefinition } from "./scenario-input";
 
@@ -54,12 +55,21 @@ export async function runDailyReforecasts(now = new Date()): Promise<{ projectId
       await said(`no re-forecast needed — ${decision.why}.`);
       continue;
     }
+    // The newest re-forecast's iterations, as many as still fit the server's work budget (the plan may have grown
+    // since); a plan too large for even the fewest is refused in words below.
+    const iterations = Math.max(10, Math.min(decision.iterations, iterationsThatFit(plan, "server")));
     try {
-      const job = await queueReforecast({ scenario, body: { dataDate: decision.dataDate, seed: decision.seed, iterations: decision.iterations }, userId: p.userId, now });
+      const job = await queueReforecast({ scenario, body: { dataDate: decision.dataDate, seed: decision.seed, iterations }, userId: p.userId, now });
       await said(`re-forecast from the field log as of ${formatIsoDate(decision.dataDate)} (${decision.why}).`, job.id);
     } catch (e) {
-      await said(`the re-forecast could not be queued — ${e instanceof Error ? e.message.replace(/\.$/, "") : "the engine queue did not answer"}.`);
-      console.error(`[pourline] daily re-forecast of project ${p.projectId} failed: ${describeError(e)}`);
+      if (e instanceof AppError) {
+        // Refused in words (a data date the plan no longer allows): it would be refused again today.
+        await said(`the re-forecast was refused — ${e.message.replace(/\.$/, "")}.`);
+        continue;
+      }
+      // The queue or the database did not answer: hand the day back so the next pass tries again (the loop logs it).
+      await releaseDailyReforecastDay({ projectId: p.projectId, day, previous: p.lastOn });
+      throw e;
     }
   }
   return done;
