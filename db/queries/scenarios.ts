@@ -192,6 +192,22 @@ export async function listRevisions({ scenarioId }: { scenarioId: string }) {
     .orderBy(desc(scenarioRevisions.version));
 }
 
+/**
+ * One saved version of a scenario and the version before it (null for the first): what changed in a save, read from
+ * the stored definitions. Null when the scenario has no such version.
+ */
+export async function getRevisionWithPrevious({ scenarioId, version }: { scenarioId: string; version: number }) {
+  const rows = await getDb()
+    .select({ version: scenarioRevisions.version, definition: scenarioRevisions.definition, changeNote: scenarioRevisions.changeNote, savedAt: scenarioRevisions.savedAt, savedByName: users.name })
+    .from(scenarioRevisions)
+    .innerJoin(users, eq(users.id, scenarioRevisions.savedById))
+    .where(and(eq(scenarioRevisions.scenarioId, scenarioId), sql`${scenarioRevisions.version} in (${version}, ${version - 1})`))
+    .orderBy(desc(scenarioRevisions.version));
+  const [revision, previous] = rows[0]?.version === version ? [rows[0], rows[1] ?? null] : [null, null];
+  if (!revision) return null;
+  return { ...revision, previous: previous && { version: previous.version, definition: previous.definition } };
+}
+
 export async function countScenarios(): Promise<number> {
   const [row] = await getDb().select({ n: sql<number>`count(*)::int` }).from(scenarios);
   return row.n;

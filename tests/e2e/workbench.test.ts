@@ -48,6 +48,13 @@ describe("workbench", () => {
     await expect.poll(async () => (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.version, { timeout: 15_000 }).toBe(2);
     const saved = (await call(`/api/scenarios/${id}`, { cookie: await signInAs("scheduler") })).body.scenario.definition;
     expect(saved.operations[4].rate.dist.mode).toBe(28);
+    // The plan's history says what that save changed, in words, when asked.
+    await page.getByText("History (2)", { exact: true }).click();
+    await page.getByText("What changed in v2", { exact: true }).click();
+    await expect.poll(() => page.getByTestId("revision-changes-2").textContent()).toMatch(/^Crews and rates: .+: \d+ → 28$/);
+    await page.getByText("What changed in v1", { exact: true }).click();
+    await page.getByText("The first saved version: nothing before it to compare with.").waitFor();
+    expect(await seriousA11yViolations(page)).toEqual([]);
 
     await scenario.open("outlook");
     await page.getByTestId("no-run").waitFor();

@@ -247,6 +247,7 @@ export const API_ROWS: Record<string, ApiRow> = {
     },
   },
   "POST /api/scenarios/[scenarioId]/variants": { need: { kind: "scenario", action: "editScenario" }, ok: 201, request: async (w) => ({ params: scen(w), body: { name: uniq("variant") } }) },
+  "GET /api/scenarios/[scenarioId]/revisions": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w), query: "version=1" }) },
   "GET /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: scen(w) }) },
   // Without a summary a run is an engine job (202); the same computation asked again is the same job.
   "POST /api/scenarios/[scenarioId]/runs": { need: { kind: "scenario", action: "runScenario" }, ok: 202, request: async (w) => ({ params: scen(w), body: { seed: "matrix", iterations: 10 } }) },

@@ -37,6 +37,30 @@ describe("optimistic concurrency", () => {
   });
 });
 
+describe("a saved version and the one before it", () => {
+  it("are read back as stored, for the history's 'what changed'; a version that is not a number or not there is said so", async () => {
+    const s = await create("History check");
+    const deck = base.deck as { packetFt: number };
+    expect(deck.packetFt).not.toBe(50);
+    const changed = { ...base, name: "History check", deck: { ...deck, packetFt: 50 } };
+    const saved = await call(`/api/scenarios/${s.id}`, { method: "PUT", cookie: scheduler, body: { name: "History check", definition: changed, version: s.version, changeNote: "shorter packets" } });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    const pair = await call(`/api/scenarios/${s.id}/revisions?version=${s.version + 1}`, { cookie: engineer });
+    expect(pair.status).toBe(200);
+    expect(pair.body).toMatchObject({ version: s.version + 1, changeNote: "shorter packets", savedByName: "Marco Ilves", previous: { version: s.version } });
+    expect(pair.body.definition.deck.packetFt).toBe(50);
+    expect(pair.body.previous.definition.deck.packetFt).toBe(deck.packetFt);
+    const first = await call(`/api/scenarios/${s.id}/revisions?version=1`, { cookie: engineer });
+    expect(first.body.previous).toBeNull();
+    const bad = await call(`/api/scenarios/${s.id}/revisions?version=latest`, { cookie: engineer });
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields).toEqual([expect.objectContaining({ path: "version", message: "Version must be a whole number from 1" })]);
+    const missing = await call(`/api/scenarios/${s.id}/revisions?version=99`, { cookie: engineer });
+    expect(missing.status).toBe(404);
+    expect(missing.body.error).toBe("This scenario has no version 99.");
+  });
+});
+
 describe("validation", () => {
   it("a bad body is 400 with the path of every field at fault, and nothing is saved", async () => {
     const s = await create("Validation check");

@@ -7,10 +7,8 @@
 import { useEffect, useMemo, useRef } from "react";
 import { formatDateTime } from "@/lib/format";
 import { diffDefinitions, toFormValues } from "./plan-logic";
-import { describeProblemPath } from "./problem-labels";
+import { DifferenceList } from "./difference-list";
 import type { ScenarioRecord } from "./types";
-
-const SHOWN = 60;
 
 export function ConflictDialog({
   theirs,
@@ -73,19 +71,7 @@ export function ConflictDialog({
         <h3 className="mt-4">
           {diffs.length === 0 ? "Your edits and theirs define the same plan." : `${diffs.length} difference${diffs.length === 1 ? "" : "s"} (theirs → yours)`}
         </h3>
-        {diffs.length > 0 && (
-          <ul className="mt-2 max-h-64 overflow-auto rounded-md border border-line font-mono text-xs" data-testid="conflict-diff">
-            {diffs.slice(0, SHOWN).map((d) => {
-              const where = describeProblemPath(d.path, mine);
-              return (
-                <li key={d.path} className="border-b border-line px-3 py-1.5 last:border-b-0">
-                  <span className="font-sans text-muted">{where.sectionLabel}:</span> <span className="font-sans font-semibold">{where.field}</span>: {d.before} → {d.after}
-                </li>
-              );
-            })}
-            {diffs.length > SHOWN && <li className="px-3 py-1.5 text-muted">…and {diffs.length - SHOWN} more</li>}
-          </ul>
-        )}
+        {diffs.length > 0 && <DifferenceList diffs={diffs} values={mine} testId="conflict-diff" />}
         <div className="mt-5 flex flex-wrap justify-end gap-2">
           <button type="button" className="btn-secondary" onClick={onCancel} disabled={busy} autoFocus>
             Cancel, keep editing

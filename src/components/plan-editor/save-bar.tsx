@@ -2,6 +2,7 @@
 /** The sticky save bar: unsaved-changes state, change note, explicit Save, and who saved what last (with history). */
 import { formatDateTime } from "@/lib/format";
 import type { Revision, ScenarioRecord } from "./types";
+import { RevisionChanges } from "./revision-changes";
 
 export function SaveBar({
   canEdit,
@@ -33,11 +34,12 @@ export function SaveBar({
   const history = revisions.length > 0 && (
     <details className="text-xs">
       <summary className="cursor-pointer text-brand-700">History ({revisions.length})</summary>
-      <ol className="mt-1 max-h-40 space-y-0.5 overflow-auto">
+      <ol className="mt-1 max-h-72 space-y-0.5 overflow-auto">
         {revisions.slice(0, 20).map((r) => (
           <li key={r.version}>
             <span className="font-semibold">v{r.version}</span> {r.savedByName}, {formatDateTime(r.savedAt)}
             {r.changeNote ? ` — ${r.changeNote}` : ""}
+            <RevisionChanges scenarioId={scenario.id} version={r.version} />
           </li>
         ))}
       </ol>
