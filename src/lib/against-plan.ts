@@ -185,3 +185,29 @@ export function againstPlanFor(input: {
   const calendarOf = (id: string) => cal.ops[index.get(id) ?? -1] ?? null;
   return { byOperation: againstPlan(input.rows, ref, input.toDate, calendarOf), toDate: input.toDate, note: againstPlanNote(input.formatDateTime(input.run.createdAt), input.formatDate(input.toDate)) };
 }
+
+/**
+ * The job against the plan in one sentence, for the project page and the forecast e-mail: how many operations are
+ * behind, and the one furthest behind in its working days (feet when the days are not known). Null without rows.
+ * "Against the plan at 4 Dec 2026: 4 of 6 operations behind; furthest, Cleanup and surface preparation: 2,400 ft
+ * behind, where the plan was on 24 Jun 2026 (100 working days earlier)."
+ */
+export function againstPlanSentence(rows: ReadonlyArray<{ id: string; name: string; doneFt: number }>, byOperation: Map<string, AgainstPlan>, toDate: string, formatDate: (iso: string) => string): string | null {
+  const judged = rows.flatMap((r) => {
+    const a = byOperation.get(r.id);
+    return a ? [{ r, a }] : [];
+  });
+  if (judged.length === 0) return null;
+  const head = `Against the plan at ${formatDate(toDate)}:`;
+  const behind = judged.filter((x) => x.a.differenceFt <= -0.5);
+  if (behind.length === 0) return `${head} every operation on plan or ahead of it.`;
+  const days = (x: (typeof behind)[number]) => x.a.workDays ?? -1;
+  const worst = behind.reduce((m, x) => (days(x) > days(m) || (days(x) === days(m) && x.a.differenceFt < m.a.differenceFt) ? x : m));
+  const ft = feet(-worst.a.differenceFt);
+  const where =
+    worst.r.doneFt <= 0.5
+      ? `not started while the plan had ${feet(worst.a.plannedFt)} done`
+      : `${ft} behind, where the plan was on ${formatDate(worst.a.planReachedOn!)}${worst.a.workDays ? ` (${worst.a.workDays} working ${worst.a.workDays === 1 ? "day" : "days"} earlier)` : ""}`;
+  const count = behind.length === 1 ? `1 of ${judged.length} operations behind` : `${behind.length} of ${judged.length} operations behind`;
+  return behind.length === 1 ? `${head} ${count}, ${worst.r.name}: ${where}.` : `${head} ${count}; furthest, ${worst.r.name}: ${where}.`;
+}

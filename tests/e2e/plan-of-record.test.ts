@@ -34,9 +34,14 @@ describe("the plan of record", () => {
     // moved the forecast on, with the same P80 finish the project list quotes.
     const p80 = /P80 finish (\d{1,2} \w{3} \d{4})/.exec(text)![1];
     const progress = await card.getByTestId("plan-progress").textContent();
+    expect(await card.getByTestId("plan-against").count()).toBe(0); // the list does not read every plan's trace
     await card.click();
     // The project page says the same progress under its plan of record.
     await expect.poll(() => page.getByTestId("plan-of-record").getByTestId("plan-progress").textContent()).toBe(progress);
+    // And, reading the plan run's median iteration, how the job stands against it (the list leaves this to the page).
+    expect(await page.getByTestId("plan-of-record").getByTestId("plan-against").textContent()).toMatch(
+      /^Against the plan at \d{1,2} \w{3} \d{4}: (every operation on plan or ahead of it|\d of 6 operations behind[,;] .+: .+)\.$/,
+    );
     // The scenario table says the plan's newest re-forecast beside its plan run's dates.
     const planRow = page.getByRole("row").filter({ has: page.getByText("Plan of record", { exact: true }) });
     expect(await planRow.getByTestId("reforecast-line").textContent()).toMatch(/^Re-forecast from the field log as of \d{1,2} \w{3} \d{4}: P80 finish \d{1,2} \w{3} \d{4}$/);

@@ -89,6 +89,8 @@ describe("forecast e-mails", () => {
     expect(mail[2].text_body).toMatch(/\), (\d+ days? (later|earlier) than|unchanged since) the previous forecast/);
     expect(mail[1].text_body).not.toContain("Progress:");
     expect(mail[2].text_body).toContain(`Progress: under way, nothing finished yet (Mechanical milling furthest ahead, 30 % done); last shift in the field log ${formatIsoDate(shift.workDate)}.`);
+    // And how the job stands against the plan run it was forecast from (its median iteration), on the line after.
+    expect(mail[2].text_body).toMatch(/\n\nAgainst the plan at \d{1,2} \w{3} \d{4}: (every operation on plan or ahead of it|\d of 2 operations behind[,;] .+)\.\n\n/);
     expect(await mailTo(engineer.email)).toHaveLength(0);
     expect(await mailTo(admin.email)).toHaveLength(0);
   });

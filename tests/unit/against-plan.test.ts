@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { againstPlan, againstPlanText, planReference, workingDays } from "@/lib/against-plan";
+import { againstPlan, againstPlanSentence, againstPlanText, planReference, workingDays, type AgainstPlan } from "@/lib/against-plan";
 import type { Intervals } from "@sim/calendar";
 import type { Scenario } from "@sim/schema";
 import { formatIsoDate } from "@/lib/format";
@@ -95,5 +95,29 @@ describe("against the plan", () => {
     // The plan had 100 ft at hour 10 of day 0 (5 Apr); 11 Apr is day 6: days 1, 5 and 6 worked since.
     expect(a.workDays).toBe(3);
     expect(againstPlanText(a, "2027-04-11", 100, formatIsoDate)).toBe("150 ft behind — where the plan was on 5 Apr 2027, 3 working days earlier");
+  });
+
+  it("says the job against the plan in one sentence: how many operations are behind and the one furthest behind", () => {
+    const mill = [{ id: "mill", name: "Milling", doneFt: 100 }];
+    expect(againstPlanSentence(mill, againstPlan(mill, ref, "2027-04-05"), "2027-04-05", formatIsoDate)).toBe(
+      "Against the plan at 5 Apr 2027: 1 of 1 operations behind, Milling: 40 ft behind, where the plan was on 5 Apr 2027.",
+    );
+    const done = [{ id: "mill", name: "Milling", doneFt: 250 }];
+    expect(againstPlanSentence(done, againstPlan(done, ref, "2027-04-07"), "2027-04-07", formatIsoDate)).toBe("Against the plan at 7 Apr 2027: every operation on plan or ahead of it.");
+    const idle = [{ id: "mill", name: "Milling", doneFt: 0 }];
+    expect(againstPlanSentence(idle, againstPlan(idle, ref, "2027-04-05"), "2027-04-05", formatIsoDate)).toBe(
+      "Against the plan at 5 Apr 2027: 1 of 1 operations behind, Milling: not started while the plan had 140 ft done.",
+    );
+    // The furthest behind is the one further back in working days, whatever the feet.
+    const two = [{ id: "a", name: "Hydrodemolition", doneFt: 500 }, { id: "b", name: "Restriping", doneFt: 200 }, { id: "c", name: "Setup", doneFt: 900 }];
+    const by = new Map<string, AgainstPlan>([
+      ["a", { plannedFt: 800, differenceFt: -300, planReachedOn: "2027-05-10", workDays: 2 }],
+      ["b", { plannedFt: 300, differenceFt: -100, planReachedOn: "2027-05-03", workDays: 7 }],
+      ["c", { plannedFt: 900, differenceFt: 0, planReachedOn: "2027-05-12", workDays: 0 }],
+    ]);
+    expect(againstPlanSentence(two, by, "2027-05-12", formatIsoDate)).toBe(
+      "Against the plan at 12 May 2027: 2 of 3 operations behind; furthest, Restriping: 100 ft behind, where the plan was on 3 May 2027 (7 working days earlier).",
+    );
+    expect(againstPlanSentence([], by, "2027-05-12", formatIsoDate)).toBeNull();
   });
 });

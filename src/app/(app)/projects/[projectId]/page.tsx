@@ -18,7 +18,7 @@ import { PlanOfRecordPicker } from "./plan-of-record-picker";
 import { DailyReforecastForm } from "./daily-reforecast-form";
 import { getDailyReforecast } from "@db/queries/daily-reforecast";
 import { dailyReforecastText } from "@/lib/daily-reforecast";
-import { planProgressTexts } from "@/lib/server/plan-progress";
+import { planAgainstTexts, planProgressTexts } from "@/lib/server/plan-progress";
 import { ForecastAlertsToggle } from "./forecast-alerts-toggle";
 import { getForecastAlerts } from "@db/queries/forecast-alerts";
 
@@ -28,13 +28,15 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role, archived, user } = access;
-  const [plan, alertsOn, progressTexts, daily] = await Promise.all([
+  const [plan, alertsOn, progressTexts, againstTexts, daily] = await Promise.all([
     getPlanOfRecord({ projectId: project.id }),
     getForecastAlerts({ projectId: project.id, userId: user.id }),
     planProgressTexts([project.planScenarioId]),
+    planAgainstTexts([project.planScenarioId]),
     getDailyReforecast({ projectId: project.id }),
   ]);
   const progress = project.planScenarioId ? progressTexts.get(project.planScenarioId) : null;
+  const against = project.planScenarioId ? againstTexts.get(project.planScenarioId) : null;
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
@@ -67,7 +69,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       <section className="card" aria-labelledby="plan-of-record-heading" data-testid="plan-of-record">
         <h2 id="plan-of-record-heading">Plan of record</h2>
         <p className="mt-1 text-sm text-muted">The scenario the project is run by: its newest forecast is what the project list shows and what the owner is told.</p>
-        <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link progress={progress} />}</div>
+        <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link progress={progress} against={against} />}</div>
         {can(role, "editProject", archived) && (
           <PlanOfRecordPicker projectId={project.id} current={project.planScenarioId} scenarios={(await listProjectScenarios({ projectId: project.id })).map((s) => ({ id: s.id, name: s.name }))} />
         )}
