@@ -12,7 +12,7 @@ import { inTransaction } from "@db/queries/mail";
 import { forecastAlertMail } from "./mail/forecast-alert-mail";
 import { enqueueMail } from "./mail/outbox";
 import { startBackgroundPass } from "./background-pass";
-import { planAgainstTexts, planProgressTexts } from "./plan-progress";
+import { planProgressAndAgainst } from "./plan-progress";
 
 const baseUrl = () => (process.env.APP_BASE_URL || "http://localhost:3000").replace(/\/+$/, "");
 
@@ -21,15 +21,14 @@ export async function sendForecastAlerts(): Promise<number> {
   let announced = 0;
   const forecasts = await listUnannouncedPlanForecasts();
   // Read before the transactions: a sentence a second old is as true as one read inside them.
-  const ids = forecasts.map((p) => p.planScenarioId);
-  const [progress, against] = await Promise.all([planProgressTexts(ids), planAgainstTexts(ids)]); // no ids: no query
+  const texts = await planProgressAndAgainst(forecasts.map((p) => p.planScenarioId)); // no ids: no query
   for (const p of forecasts) {
     await inTransaction(async (tx) => {
       if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return;
       announced++;
       const links = { planLink: `${baseUrl()}/scenarios/${p.planScenarioId}`, projectLink: `${baseUrl()}/projects/${p.projectId}` };
       for (const to of await forecastAlertRecipients({ tx, projectId: p.projectId })) {
-        const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, planChanged: p.planChanged, progress: p.planScenarioId ? progress.get(p.planScenarioId) : null, against: p.planScenarioId ? against.get(p.planScenarioId) : null, ...links });
+        const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, planChanged: p.planChanged, ...(p.planScenarioId ? texts.get(p.planScenarioId) : null), ...links });
         if (mail) await enqueueMail(tx, mail);
       }
     });

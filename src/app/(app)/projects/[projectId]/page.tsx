@@ -18,7 +18,7 @@ import { PlanOfRecordPicker } from "./plan-of-record-picker";
 import { DailyReforecastForm } from "./daily-reforecast-form";
 import { getDailyReforecast } from "@db/queries/daily-reforecast";
 import { dailyReforecastText } from "@/lib/daily-reforecast";
-import { planAgainstTexts, planProgressTexts } from "@/lib/server/plan-progress";
+import { planProgressAndAgainst } from "@/lib/server/plan-progress";
 import { ForecastAlertsToggle } from "./forecast-alerts-toggle";
 import { getForecastAlerts } from "@db/queries/forecast-alerts";
 
@@ -28,15 +28,13 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role, archived, user } = access;
-  const [plan, alertsOn, progressTexts, againstTexts, daily] = await Promise.all([
+  const [plan, alertsOn, texts, daily] = await Promise.all([
     getPlanOfRecord({ projectId: project.id }),
     getForecastAlerts({ projectId: project.id, userId: user.id }),
-    planProgressTexts([project.planScenarioId]),
-    planAgainstTexts([project.planScenarioId]),
+    planProgressAndAgainst([project.planScenarioId]),
     getDailyReforecast({ projectId: project.id }),
   ]);
-  const progress = project.planScenarioId ? progressTexts.get(project.planScenarioId) : null;
-  const against = project.planScenarioId ? againstTexts.get(project.planScenarioId) : null;
+  const { progress = null, against = null } = (project.planScenarioId && texts.get(project.planScenarioId)) || {};
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
