@@ -34,3 +34,14 @@ export async function forecastAlertRecipients({ tx = getDb(), projectId }: { tx?
     .orderBy(users.email);
   return rows.map((r) => r.email);
 }
+
+/** The names of the project's members who asked for forecast e-mails, for its administrators' overview (Members page). */
+export async function forecastAlertNames({ projectId }: { projectId: string }): Promise<string[]> {
+  const rows = await getDb()
+    .select({ name: users.name })
+    .from(projectMembers)
+    .innerJoin(users, eq(users.id, projectMembers.userId))
+    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.forecastAlerts, true)))
+    .orderBy(users.name);
+  return rows.map((r) => r.name);
+}

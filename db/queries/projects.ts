@@ -212,7 +212,7 @@ export async function getProjectWithRole({ projectId, userId }: { projectId: str
 
 export async function listMembers({ projectId }: { projectId: string }) {
   return getDb()
-    .select({ userId: users.id, email: users.email, name: users.name, title: users.title, role: projectMembers.role, addedAt: projectMembers.addedAt, forecastAlerts: projectMembers.forecastAlerts })
+    .select({ userId: users.id, email: users.email, name: users.name, title: users.title, role: projectMembers.role, addedAt: projectMembers.addedAt })
     .from(projectMembers)
     .innerJoin(users, eq(users.id, projectMembers.userId))
     .where(eq(projectMembers.projectId, projectId))

@@ -9,7 +9,7 @@
  * e-mails are not written to every morning about nothing).
  */
 import { addDays, format, parseISO } from "date-fns";
-import { formatIsoDate } from "./format";
+import { formatHour, formatIsoDate } from "./format";
 import { localDateHour } from "./local-clock";
 
 /** A week: how old the newest re-forecast may grow while nothing changes. */
@@ -60,8 +60,6 @@ export function dailyDecision(input: { day: string; startDate: string; lastDataD
   return { due: false, why: "the newest re-forecast knows every shift in the field log" };
 }
 
-export const hourText = (h: number) => `${String(h).padStart(2, "0")}:00`;
-
 /** The setting as the project page shows it (db/queries/daily-reforecast.ts `getDailyReforecast`). */
 export interface DailyReforecastState {
   hour: number | null;
@@ -72,5 +70,5 @@ export interface DailyReforecastState {
 /** What the daily re-forecast does, in words, for everyone on the project. */
 export function dailyReforecastText(s: DailyReforecastState): string {
   if (s.hour === null) return "Re-forecast by hand only: someone presses Re-forecast on the plan's Field log.";
-  return `Re-forecast each morning after ${hourText(s.hour)} (the plan's time zone) from the field log as of the day before, when the log or the plan changed or the newest re-forecast is a week old${s.byName ? `; set up by ${s.byName}, in whose name it runs` : ""}.`;
+  return `Re-forecast each morning after ${formatHour(s.hour)} (the plan's time zone) from the field log as of the day before, when the log or the plan changed or the newest re-forecast is a week old${s.byName ? `; set up by ${s.byName}, in whose name it runs` : ""}.`;
 }

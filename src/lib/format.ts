@@ -43,6 +43,11 @@ export function formatClockOnDay(iso: string | null | undefined, day: string): s
   return iso.slice(0, 10) === day.slice(0, 10) ? iso.slice(11, 16) : formatIsoClock(iso, { year: false });
 }
 
+/** A whole local hour 0–23 → "06:00" (the hour pickers and the sentences that name them). */
+export function formatHour(h: number): string {
+  return `${String(h).padStart(2, "0")}:00`;
+}
+
 export function formatDateTime(d: Date | string): string {
   const date = typeof d === "string" ? new Date(d) : d;
   return isValid(date) ? format(date, `${DATE_PATTERN}, HH:mm`) : String(d);

@@ -13,6 +13,7 @@ import { ClosureHoursAdvisor } from "./closure-hours-advisor";
 import { CheckboxField, n, NumberField, SelectField, TextField } from "./fields";
 import { AXIS_TICK, GRID_STROKE } from "@/components/results/chart-style";
 import { ChartLegend } from "@/components/results/legend-swatch";
+import { formatHour } from "@/lib/format";
 
 const KINDS = [
   { key: "weekday", label: "Mon–Thu" },
@@ -22,7 +23,7 @@ const KINDS = [
   { key: "holidayPeak", label: "Holiday peak" },
 ] as const;
 
-const HOURS = Array.from({ length: 24 }, (_, h) => `${String(h).padStart(2, "0")}:00`);
+const HOURS = Array.from({ length: 24 }, (_, h) => formatHour(h));
 
 /** An invented two-peak weekday shape (share of the peak hour), scaled per day kind; a starting point only. */
 const SHAPE = [0.09, 0.06, 0.05, 0.05, 0.09, 0.24, 0.57, 0.93, 1, 0.78, 0.63, 0.61, 0.63, 0.63, 0.67, 0.8, 0.96, 1, 0.8, 0.57, 0.41, 0.33, 0.23, 0.15];

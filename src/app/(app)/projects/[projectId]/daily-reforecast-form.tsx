@@ -4,7 +4,8 @@ import { useRouter } from "next/navigation";
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { SaveOutcome } from "@/components/save-outcome";
-import { hourText, type DailyReforecastState } from "@/lib/daily-reforecast";
+import type { DailyReforecastState } from "@/lib/daily-reforecast";
+import { formatHour } from "@/lib/format";
 
 /**
  * The daily re-forecast of the plan of record (its administrators and engineers): on at a chosen hour, or off. Saved
@@ -38,7 +39,7 @@ export function DailyReforecastForm({ projectId, initial }: { projectId: string;
         <select id="daily-reforecast-hour" className="field-input" value={hour} disabled={!on} onChange={(e) => (save.reset(), setHour(Number(e.target.value)))}>
           {Array.from({ length: 24 }, (_, h) => (
             <option key={h} value={h}>
-              {hourText(h)}
+              {formatHour(h)}
             </option>
           ))}
         </select>

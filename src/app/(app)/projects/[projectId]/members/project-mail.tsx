@@ -5,21 +5,19 @@
  */
 import Link from "next/link";
 import type { Project } from "@db/schema";
-import { listMembers } from "@db/queries/projects";
+import { forecastAlertNames } from "@db/queries/forecast-alerts";
 import { listProjectLookAheadNotices } from "@db/queries/look-ahead-notices";
 import { listClosureSubscribers } from "@db/queries/closure-notices";
-import { formatIsoDay } from "@/lib/format";
+import { formatHour, formatIsoDay } from "@/lib/format";
 
 const namesText = (names: string[]) => new Intl.ListFormat("en-US", { type: "conjunction" }).format(names);
-const hourText = (h: number) => `${String(h).padStart(2, "0")}:00`;
 
 export async function ProjectMail({ project }: { project: Pick<Project, "id" | "planScenarioId" | "archivedAt"> }) {
-  const [members, notices, subscribers] = await Promise.all([
-    listMembers({ projectId: project.id }),
+  const [forecastReaders, notices, subscribers] = await Promise.all([
+    forecastAlertNames({ projectId: project.id }),
     listProjectLookAheadNotices({ projectId: project.id }),
     listClosureSubscribers({ projectId: project.id }),
   ]);
-  const forecastReaders = members.filter((m) => m.forecastAlerts).map((m) => m.name);
   const shareTab = project.planScenarioId ?? notices[0]?.scenarioId ?? null;
   return (
     <section className="card space-y-4" aria-labelledby="project-mail-heading" data-testid="project-mail">
@@ -52,7 +50,7 @@ export async function ProjectMail({ project }: { project: Pick<Project, "id" | "
                 <Link href={`/scenarios/${n.scenarioId}/look-ahead`} className="text-brand-700 underline">
                   {n.name}
                 </Link>
-                {n.enabled ? ` — at ${hourText(n.hour)} (the scenario's time zone) to ${n.recipients.join(", ")}` : " — turned off"}
+                {n.enabled ? ` — at ${formatHour(n.hour)} (the scenario's time zone) to ${n.recipients.join(", ")}` : " — turned off"}
                 {n.lastSentOn ? <span className="text-muted">; last sent for {formatIsoDay(n.lastSentOn)}</span> : null}
               </li>
             ))}

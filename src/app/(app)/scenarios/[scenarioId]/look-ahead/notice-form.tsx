@@ -2,7 +2,7 @@
 import { useEffect, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
-import { formatIsoDay } from "@/lib/format";
+import { formatHour, formatIsoDay } from "@/lib/format";
 
 interface Notice {
   enabled: boolean;
@@ -59,7 +59,7 @@ export function NoticeForm({ scenarioId }: { scenarioId: string }) {
           <select id="notice-hour" className="field-input" value={hour} onChange={(e) => setHour(Number(e.target.value))}>
             {Array.from({ length: 24 }, (_, h) => (
               <option key={h} value={h}>
-                {String(h).padStart(2, "0")}:00
+                {formatHour(h)}
               </option>
             ))}
           </select>

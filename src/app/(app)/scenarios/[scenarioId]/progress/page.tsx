@@ -4,7 +4,7 @@ import { requireScenario } from "@/lib/server/access";
 import { getLatestPlanRun, getLatestReforecast, getPlanRunTrace, listDeletedProgress, listProgress, listReforecastRuns } from "@db/queries/progress";
 import { getLatestRun } from "@db/queries/runs";
 import { can } from "@/lib/permissions";
-import { formatDateTime, formatIsoDate } from "@/lib/format";
+import { formatDateTime, formatHour, formatIsoDate } from "@/lib/format";
 import { todayIn } from "@/lib/progress-schema";
 import { parseScenario } from "@sim/validate";
 import { parseIsoDate } from "@sim/dates";
@@ -21,7 +21,6 @@ import { DeletedShifts } from "./deleted-shifts";
 import { ProgressToDate } from "@/components/progress-to-date";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { againstPlanFor } from "@/lib/against-plan";
-import { hourText } from "@/lib/daily-reforecast";
 import { orNotFound } from "@/lib/server/page-access";
 import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
 import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
@@ -138,7 +137,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
         </p>
         {project.planScenarioId === scenario.id && project.dailyReforecastHour !== null && !archived && (
           <p className="text-sm" data-testid="daily-reforecast-note">
-            This scenario is the project&apos;s plan of record, re-forecast each morning after {hourText(project.dailyReforecastHour)} (the plan&apos;s time zone) from the field log as of the day before, whenever the log or the plan changed; the project page says what the last morning decided.
+            This scenario is the project&apos;s plan of record, re-forecast each morning after {formatHour(project.dailyReforecastHour)} (the plan&apos;s time zone) from the field log as of the day before, whenever the log or the plan changed; the project page says what the last morning decided.
           </p>
         )}
         {canRun && <ReforecastPanel scenarioId={scenario.id} defaultDate={lastDate || plan.startDate} minDate={plan.startDate} maxDate={facts.today} />}
