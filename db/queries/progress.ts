@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, isNotNull, isNull, sql, type AnyColumn, ty
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { progressEntries, progressHistory, scenarios, simulationRuns, users } from "../schema";
-import { isForecast } from "./runs";
+import { isForecast, planRunsOf } from "./runs";
 import type { ProgressEntry } from "../../sim/progress-entry";
 
 /** The fields a person records about one shift (what history stores before and after a change): the entry contract's output. */
@@ -241,7 +241,7 @@ export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
     .select({ id: simulationRuns.id, scenarioVersion: simulationRuns.scenarioVersion, seed: simulationRuns.seed, iterations: simulationRuns.iterations, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
     .from(simulationRuns)
-    .where(and(eq(simulationRuns.scenarioId, scenarioId), sql`${simulationRuns.dataDate} is null`, isForecast))
+    .where(and(planRunsOf(scenarioId), isForecast))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1);
   return row ?? null;
@@ -255,7 +255,7 @@ export async function getPlanRunTrace({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
     .select({ trace: sql<unknown>`${simulationRuns.results} -> 'representative' -> 'trace'`, scenarioVersion: simulationRuns.scenarioVersion, createdAt: simulationRuns.createdAt })
     .from(simulationRuns)
-    .where(and(eq(simulationRuns.scenarioId, scenarioId), sql`${simulationRuns.dataDate} is null`, isForecast))
+    .where(and(planRunsOf(scenarioId), isForecast))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
     .limit(1);
   return row ?? null;

@@ -82,7 +82,8 @@ export async function getRunForCheck({ id }: { id: string }) {
 }
 
 /** Runs of the plan itself; re-forecasts (with a data date) are listed with the field log instead. */
-const planRunsOf = (scenarioId: string) => and(eq(simulationRuns.scenarioId, scenarioId), isNull(simulationRuns.dataDate));
+/** A scenario's plan runs (no data date: the plan as planned, not a re-forecast from the field log). */
+export const planRunsOf = (scenarioId: string) => and(eq(simulationRuns.scenarioId, scenarioId), isNull(simulationRuns.dataDate));
 
 /**
  * What every reader of a run gets. "Stale" (computed from an older version than the scenario's) and "plan
