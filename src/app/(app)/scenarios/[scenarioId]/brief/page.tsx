@@ -44,8 +44,8 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
   const newerReforecast = newerThanShown(reforecast, run);
   const d = validateDefinition(scenario.definition);
   const s = run?.results as unknown as RunSummary | undefined;
-  const toDate = progressToDate(d, entries);
-  const against = run && againstPlanFor({ rows: toDate, run: { trace: s?.representative.trace, scenarioVersion: run.scenarioVersion, createdAt: run.createdAt }, version: scenario.version, plan: d, toDate: lastWorkDate(entries), formatDate: formatIsoDate, formatDateTime });
+  const progressRows = progressToDate(d, entries);
+  const against = run && againstPlanFor({ rows: progressRows, run: { trace: s?.representative.trace, scenarioVersion: run.scenarioVersion, createdAt: run.createdAt }, version: scenario.version, plan: d, toDate: lastWorkDate(entries), formatDate: formatIsoDate, formatDateTime });
   return (
     <article className="brief space-y-6" data-testid="owner-brief">
       <div className="flex items-start justify-between gap-4 print:hidden">
@@ -64,7 +64,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
         <section aria-labelledby="to-date-heading" className="card break-inside-avoid" data-testid="brief-progress">
           <h3 id="to-date-heading">Progress to date</h3>
           <p className="mt-1 mb-2 text-sm text-muted">From the field log, up to its last shift ({formatIsoDate(lastWorkDate(entries))}).</p>
-          <ProgressToDate rows={toDate} document against={against ?? undefined} />
+          <ProgressToDate rows={progressRows} document against={against ?? undefined} />
         </section>
       )}
       {!s || !run ? (

@@ -85,8 +85,8 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   type Digest = { entriesUsed: number; discovery: { inspected: number; found: number; planMean: number; updatedMean: number }; weatherForecast?: { fetchedAt: string } };
   const latestResults = latestRe ? (latestRe.results as { reforecast?: Digest; forecastDates?: string[] }) : undefined;
   const digest = latestResults?.reforecast;
-  const toDate = progressToDate(plan, entries);
-  const against = againstPlanFor({ rows: toDate, run: planTrace, version: scenario.version, plan, toDate: lastDate, formatDate: formatIsoDate, formatDateTime });
+  const progressRows = progressToDate(plan, entries);
+  const against = againstPlanFor({ rows: progressRows, run: planTrace, version: scenario.version, plan, toDate: lastDate, formatDate: formatIsoDate, formatDateTime });
 
   return (
     <div className="space-y-5">
@@ -105,7 +105,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           <p className="mt-1 mb-3 text-sm text-muted">
             From the field log, up to its last shift ({formatIsoDate(lastDate)}): the feet each operation has done of the feet it has to do{plan.stages && plan.stages.length > 1 ? " over every stage" : ""}, as a re-forecast counts them.
           </p>
-          <ProgressToDate rows={toDate} against={against ?? undefined} />
+          <ProgressToDate rows={progressRows} against={against ?? undefined} />
           {!against && <p className="mt-2 text-xs text-muted">{planTrace ? "The plan changed since its last run, so progress is not compared with it: run the plan on the Outlook to compare." : "The plan has not been run, so progress is not compared with it: run it on the Outlook to compare."}</p>}
         </section>
       )}
