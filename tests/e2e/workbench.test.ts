@@ -76,6 +76,17 @@ describe("workbench", () => {
     expect(runs.body.runs[0].stale).toBe(false);
     await screenshot(page, "outlook");
     expect(await seriousA11yViolations(page)).toEqual([]);
+    // Saved again after the run: the Outlook says the run is of an older version, and what the save since changed.
+    const cookie = await signInAs("scheduler");
+    const current = (await call(`/api/scenarios/${id}`, { cookie })).body.scenario;
+    current.definition.operations[4].rate.dist.mode = 29;
+    expect((await call(`/api/scenarios/${id}`, { method: "PUT", cookie, body: { name: current.name, definition: current.definition, version: 2, changeNote: "placement a little faster" } })).status).toBe(200);
+    await page.reload();
+    const since = page.getByTestId("changes-since-run");
+    await since.getByText("What changed in v3", { exact: true }).click();
+    await expect.poll(() => page.getByTestId("revision-changes-3").textContent()).toMatch(/^Crews and rates: .+: 28 → 29$/);
+    expect(await since.getByText("What changed in v2", { exact: true }).count()).toBe(0); // the run knows v2
+    expect(await seriousA11yViolations(page)).toEqual([]);
     await context.close();
   });
 

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { RevisionChanges } from "@/components/plan-editor/revision-changes";
 import { requireScenario } from "@/lib/server/access";
 import { getOutlookRuns } from "@db/queries/runs";
 import { VerificationBadge } from "@/components/results/verification-badge";
@@ -17,6 +18,9 @@ import { getNewestReforecastHeadline } from "@db/queries/progress";
 import { NewerReforecastNotice, newerThanShown } from "@/components/results/newer-reforecast-notice";
 
 export const metadata: Metadata = { title: "Outlook" };
+
+/** The versions saved after `from` up to `to`, newest first, at most five. */
+const versionsSince = (from: number, to: number) => Array.from({ length: Math.min(5, Math.max(0, to - from)) }, (_, i) => to - i);
 
 export default async function OutlookPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
@@ -57,10 +61,18 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
                 </p>
               )}
               {stale && (
-                <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="stale-run" role="status">
-                  This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}). Run it again for a current
-                  forecast.
-                </p>
+                <div className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="stale-run">
+                  <p role="status">
+                    This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}). Run it again for a current
+                    forecast.
+                  </p>
+                  {/* What the saves since the run changed, newest first (the last five), each opened on request. */}
+                  <div className="mt-1 text-xs" data-testid="changes-since-run">
+                    {versionsSince(run.scenarioVersion, scenario.version).map((v) => (
+                      <RevisionChanges key={v} scenarioId={scenario.id} version={v} />
+                    ))}
+                  </div>
+                </div>
               )}
               <nav aria-label="Exports" className="flex flex-wrap items-center gap-2 text-sm">
                 <span className="text-muted">Take it with you:</span>
