@@ -24,24 +24,15 @@ export async function getForecastAlerts({ projectId, userId }: { projectId: stri
   return row?.on ?? false;
 }
 
-/** The addresses of the project's members who asked for forecast e-mails (read in the sending transaction). */
-export async function forecastAlertRecipients({ tx = getDb(), projectId }: { tx?: Reader; projectId: string }): Promise<string[]> {
-  const rows = await tx
-    .select({ email: users.email })
+/**
+ * The project's members who asked for forecast e-mails, by address: whom the e-mail goes to (read in the sending
+ * transaction) and whom the Members page names.
+ */
+export async function forecastAlertReaders({ tx = getDb(), projectId }: { tx?: Reader; projectId: string }): Promise<{ email: string; name: string }[]> {
+  return tx
+    .select({ email: users.email, name: users.name })
     .from(projectMembers)
     .innerJoin(users, eq(users.id, projectMembers.userId))
     .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.forecastAlerts, true)))
     .orderBy(users.email);
-  return rows.map((r) => r.email);
-}
-
-/** The names of the project's members who asked for forecast e-mails, for its administrators' overview (Members page). */
-export async function forecastAlertNames({ projectId }: { projectId: string }): Promise<string[]> {
-  const rows = await getDb()
-    .select({ name: users.name })
-    .from(projectMembers)
-    .innerJoin(users, eq(users.id, projectMembers.userId))
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.forecastAlerts, true)))
-    .orderBy(users.name);
-  return rows.map((r) => r.name);
 }

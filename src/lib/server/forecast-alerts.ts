@@ -7,7 +7,7 @@ import "server-only";
  * (POURLINE_FORECAST_ALERTS=off disables it; POURLINE_NOTICE_INTERVAL_MS, default 60 s, sets the pace).
  */
 import { claimPlanAnnouncement, listUnannouncedPlanForecasts } from "@db/queries/projects";
-import { forecastAlertRecipients } from "@db/queries/forecast-alerts";
+import { forecastAlertReaders } from "@db/queries/forecast-alerts";
 import { inTransaction } from "@db/queries/mail";
 import { forecastAlertMail } from "./mail/forecast-alert-mail";
 import { enqueueMail } from "./mail/outbox";
@@ -27,7 +27,7 @@ export async function sendForecastAlerts(): Promise<number> {
       if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return;
       announced++;
       const links = { planLink: `${baseUrl()}/scenarios/${p.planScenarioId}`, projectLink: `${baseUrl()}/projects/${p.projectId}` };
-      for (const to of await forecastAlertRecipients({ tx, projectId: p.projectId })) {
+      for (const { email: to } of await forecastAlertReaders({ tx, projectId: p.projectId })) {
         const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, planChanged: p.planChanged, ...(p.planScenarioId ? texts.get(p.planScenarioId) : null), ...links });
         if (mail) await enqueueMail(tx, mail);
       }

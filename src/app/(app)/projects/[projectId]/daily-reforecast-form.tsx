@@ -5,7 +5,7 @@ import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { SaveOutcome } from "@/components/save-outcome";
 import type { DailyReforecastState } from "@/lib/daily-reforecast";
-import { formatHour } from "@/lib/format";
+import { HourOptions } from "@/components/hour-options";
 
 /**
  * The daily re-forecast of the plan of record (its administrators and engineers): on at a chosen hour, or off. Saved
@@ -37,11 +37,7 @@ export function DailyReforecastForm({ projectId, initial }: { projectId: string;
           After<span className="sr-only"> this hour each morning, the plan&apos;s time zone</span>
         </label>
         <select id="daily-reforecast-hour" className="field-input" value={hour} disabled={!on} onChange={(e) => (save.reset(), setHour(Number(e.target.value)))}>
-          {Array.from({ length: 24 }, (_, h) => (
-            <option key={h} value={h}>
-              {formatHour(h)}
-            </option>
-          ))}
+          <HourOptions />
         </select>
       </div>
       <button type="submit" className="btn-secondary" disabled={save.isPending || chosen === initial.hour}>

@@ -5,7 +5,7 @@
  */
 import Link from "next/link";
 import type { Project } from "@db/schema";
-import { forecastAlertNames } from "@db/queries/forecast-alerts";
+import { forecastAlertReaders } from "@db/queries/forecast-alerts";
 import { listProjectLookAheadNotices } from "@db/queries/look-ahead-notices";
 import { listClosureSubscribers } from "@db/queries/closure-notices";
 import { formatHour, formatIsoDay } from "@/lib/format";
@@ -13,11 +13,12 @@ import { formatHour, formatIsoDay } from "@/lib/format";
 const namesText = (names: string[]) => new Intl.ListFormat("en-US", { type: "conjunction" }).format(names);
 
 export async function ProjectMail({ project }: { project: Pick<Project, "id" | "planScenarioId" | "archivedAt"> }) {
-  const [forecastReaders, notices, subscribers] = await Promise.all([
-    forecastAlertNames({ projectId: project.id }),
+  const [readers, notices, subscribers] = await Promise.all([
+    forecastAlertReaders({ projectId: project.id }),
     listProjectLookAheadNotices({ projectId: project.id }),
     listClosureSubscribers({ projectId: project.id }),
   ]);
+  const forecastReaders = readers.map((r) => r.name).sort((a, b) => a.localeCompare(b));
   const shareTab = project.planScenarioId ?? notices[0]?.scenarioId ?? null;
   return (
     <section className="card space-y-4" aria-labelledby="project-mail-heading" data-testid="project-mail">

@@ -2,7 +2,8 @@
 import { useEffect, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
-import { formatHour, formatIsoDay } from "@/lib/format";
+import { formatIsoDay } from "@/lib/format";
+import { HourOptions } from "@/components/hour-options";
 
 interface Notice {
   enabled: boolean;
@@ -57,11 +58,7 @@ export function NoticeForm({ scenarioId }: { scenarioId: string }) {
             At
           </label>
           <select id="notice-hour" className="field-input" value={hour} onChange={(e) => setHour(Number(e.target.value))}>
-            {Array.from({ length: 24 }, (_, h) => (
-              <option key={h} value={h}>
-                {formatHour(h)}
-              </option>
-            ))}
+            <HourOptions />
           </select>
         </div>
         <div>
