@@ -63,8 +63,8 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
               {stale && (
                 <div className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="stale-run">
                   <p role="status">
-                    This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}). Run it again for a current
-                    forecast.
+                    This run was computed from version {run.scenarioVersion}; the plan has changed since (now version {scenario.version}).{" "}
+                    {can(role, "runScenario", archived) ? "Run it again for a current forecast." : "A current forecast needs someone who runs plans to run it again."}
                   </p>
                   {/* What the saves since the run changed, newest first (the last five), each opened on request. */}
                   <div className="mt-1 text-xs" data-testid="changes-since-run">
