@@ -236,24 +236,28 @@ export async function getForecastStandingOn({ scenarioId, day, timeZone }: { sce
   return row ?? null;
 }
 
+const planRunColumns = {
+  id: simulationRuns.id,
+  scenarioVersion: simulationRuns.scenarioVersion,
+  seed: simulationRuns.seed,
+  iterations: simulationRuns.iterations,
+  summary: simulationRuns.summary,
+  createdAt: simulationRuns.createdAt,
+};
+
 /** The newest plan run (no data date): the drift chart's first point. */
 export async function getLatestPlanRun({ scenarioId }: { scenarioId: string }) {
-  const [row] = await getDb()
-    .select({ id: simulationRuns.id, scenarioVersion: simulationRuns.scenarioVersion, seed: simulationRuns.seed, iterations: simulationRuns.iterations, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
-    .from(simulationRuns)
-    .where(and(planRunsOf(scenarioId), isForecast))
-    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
-    .limit(1);
+  const [row] = await getDb().select(planRunColumns).from(simulationRuns).where(and(planRunsOf(scenarioId), isForecast)).orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id)).limit(1);
   return row ?? null;
 }
 
 /**
- * The newest plan run's median iteration as drawn (its trace only, read out of the stored results), to compare the
- * field's progress with the plan (src/lib/against-plan.ts); null before the plan's first run.
+ * The same newest plan run with its median iteration as drawn (the trace alone, read out of the stored results), to
+ * compare the field's progress with the plan (src/lib/against-plan.ts) as well; null before the plan's first run.
  */
-export async function getPlanRunTrace({ scenarioId }: { scenarioId: string }) {
+export async function getLatestPlanRunWithTrace({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
-    .select({ trace: sql<unknown>`${simulationRuns.results} -> 'representative' -> 'trace'`, scenarioVersion: simulationRuns.scenarioVersion, createdAt: simulationRuns.createdAt })
+    .select({ ...planRunColumns, trace: sql<unknown>`${simulationRuns.results} -> 'representative' -> 'trace'` })
     .from(simulationRuns)
     .where(and(planRunsOf(scenarioId), isForecast))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))

@@ -1,5 +1,5 @@
 import "server-only";
-import { getPlanRunTrace, listLogsOfScenarios } from "@db/queries/progress";
+import { getLatestPlanRunWithTrace, listLogsOfScenarios } from "@db/queries/progress";
 import { parseScenario } from "@sim/validate";
 import type { Scenario } from "@sim/schema";
 import { formatDateTime, formatIsoDate } from "@/lib/format";
@@ -40,7 +40,7 @@ export function planProgressAndAgainst(planScenarioIds: ReadonlyArray<string | n
   return perPlanLog(planScenarioIds, async (plan, log) => {
     const rows = progressToDate(plan, log.entries);
     const toDate = lastWorkDate(log.entries);
-    const against = againstPlanFor({ rows, run: await getPlanRunTrace({ scenarioId: log.scenarioId }), version: log.version, plan, toDate, formatDate: formatIsoDate, formatDateTime });
+    const against = againstPlanFor({ rows, run: await getLatestPlanRunWithTrace({ scenarioId: log.scenarioId }), version: log.version, plan, toDate, formatDate: formatIsoDate, formatDateTime });
     return { progress: progressSentence(plan, log.entries, formatIsoDate), against: against && againstPlanSentence(rows, against.byOperation, toDate, formatIsoDate) };
   });
 }

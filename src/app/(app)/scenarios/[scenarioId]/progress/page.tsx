@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { requireScenario } from "@/lib/server/access";
-import { getLatestPlanRun, getLatestReforecast, getPlanRunTrace, listDeletedProgress, listProgress, listReforecastRuns } from "@db/queries/progress";
+import { getLatestPlanRunWithTrace, getLatestReforecast, listDeletedProgress, listProgress, listReforecastRuns } from "@db/queries/progress";
 import { getLatestRun } from "@db/queries/runs";
 import { can } from "@/lib/permissions";
 import { formatDateTime, formatHour, formatIsoDate } from "@/lib/format";
@@ -52,13 +52,13 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   const parsed = parseScenario(scenario.definition);
   if (!parsed.ok) return <p className="card text-sm text-bad">The plan has problems, so progress cannot be checked against it. Fix the plan first.</p>;
   const plan = parsed.scenario;
-  const [rows, deleted, drift, planRun, latestRe, planTrace] = await Promise.all([
+  // One read of the newest plan run: the drift chart's first point and the trace progress is compared with.
+  const [rows, deleted, drift, planRun, latestRe] = await Promise.all([
     listProgress({ scenarioId }),
     listDeletedProgress({ scenarioId }),
     listReforecastRuns({ scenarioId }),
-    getLatestPlanRun({ scenarioId }),
+    getLatestPlanRunWithTrace({ scenarioId }),
     getLatestReforecast({ scenarioId }),
-    getPlanRunTrace({ scenarioId }),
   ]);
   const chartRun = latestRe ? { results: latestRe.results, version: latestRe.scenarioVersion, dataDate: latestRe.dataDate } : await getLatestRun({ scenarioId }).then((r) => r && { results: r.results, version: r.scenarioVersion, dataDate: null });
   const entries: EntryView[] = rows.map((r) => ({ ...r, enteredByName: r.enteredByName ?? "" }));
@@ -86,7 +86,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   const latestResults = latestRe ? (latestRe.results as { reforecast?: Digest; forecastDates?: string[] }) : undefined;
   const digest = latestResults?.reforecast;
   const progressRows = progressToDate(plan, entries);
-  const against = againstPlanFor({ rows: progressRows, run: planTrace, version: scenario.version, plan, toDate: lastDate, formatDate: formatIsoDate, formatDateTime });
+  const against = againstPlanFor({ rows: progressRows, run: planRun, version: scenario.version, plan, toDate: lastDate, formatDate: formatIsoDate, formatDateTime });
 
   return (
     <div className="space-y-5">
@@ -106,7 +106,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
             From the field log, up to its last shift ({formatIsoDate(lastDate)}): the feet each operation has done of the feet it has to do{plan.stages && plan.stages.length > 1 ? " over every stage" : ""}, as a re-forecast counts them.
           </p>
           <ProgressToDate rows={progressRows} against={against ?? undefined} />
-          {!against && <p className="mt-2 text-xs text-muted">{planTrace ? "The plan changed since its last run, so progress is not compared with it: run the plan on the Outlook to compare." : "The plan has not been run, so progress is not compared with it: run it on the Outlook to compare."}</p>}
+          {!against && <p className="mt-2 text-xs text-muted">{planRun ? "The plan changed since its last run, so progress is not compared with it: run the plan on the Outlook to compare." : "The plan has not been run, so progress is not compared with it: run it on the Outlook to compare."}</p>}
         </section>
       )}
       <section className="card" aria-labelledby="log-heading">

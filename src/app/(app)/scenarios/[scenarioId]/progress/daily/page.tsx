@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { requireScenario } from "@/lib/server/access";
 import { orNotFound } from "@/lib/server/page-access";
-import { getForecastStandingOn, getPlanRunTrace, listProgress } from "@db/queries/progress";
+import { getForecastStandingOn, getLatestPlanRunWithTrace, listProgress } from "@db/queries/progress";
 import { againstPlanFor } from "@/lib/against-plan";
 import { planForecastText } from "@/lib/plan-of-record-text";
 import { parseScenario } from "@sim/validate";
@@ -39,7 +39,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
   const names = Object.fromEntries(plan.operations.map((o) => [o.id, o.name]));
   const shiftName = (id: string) => plan.calendar.shifts.find((s) => s.id === id)?.name ?? id;
   const toDate = entries.filter((e) => e.workDate <= day);
-  const [standing, planRun] = await Promise.all([getForecastStandingOn({ scenarioId, day, timeZone: plan.timeZone }), getPlanRunTrace({ scenarioId })]);
+  const [standing, planRun] = await Promise.all([getForecastStandingOn({ scenarioId, day, timeZone: plan.timeZone }), getLatestPlanRunWithTrace({ scenarioId })]);
   const rowsToDate = progressToDate(plan, toDate);
   // Against the plan at the end of this day (not of the log's last shift): the day's own standing.
   const against = againstPlanFor({ rows: rowsToDate, run: planRun, version: scenario.version, plan, toDate: day, formatDate: formatIsoDate, formatDateTime });
