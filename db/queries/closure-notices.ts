@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, desc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
-import { closurePublications, closureSubscribers, users } from "../schema";
+import { closurePublications, closureSubscribers, shareLinks, simulationRuns, users } from "../schema";
 import type { Executor } from "./mail";
 
 export async function listClosureSubscribers({ projectId }: { projectId: string }) {
@@ -38,10 +38,46 @@ export async function insertClosurePublication(input: { tx: Executor; scenarioId
 
 export async function listClosurePublications({ scenarioId }: { scenarioId: string }) {
   return getDb()
-    .select({ id: closurePublications.id, closureCount: closurePublications.closureCount, notified: closurePublications.notified, publishedAt: closurePublications.publishedAt, publishedByName: users.name })
+    .select({
+      id: closurePublications.id,
+      closureCount: closurePublications.closureCount,
+      notified: closurePublications.notified,
+      publishedAt: closurePublications.publishedAt,
+      publishedByName: users.name,
+      // The forecast it was published from, and whether its links still stand (a revoked one is withdrawn).
+      runId: closurePublications.runId,
+      runDataDate: simulationRuns.dataDate,
+      runAt: simulationRuns.createdAt,
+      withdrawn: sql<boolean>`(${shareLinks.revokedAt} is not null)`,
+    })
     .from(closurePublications)
     .innerJoin(users, eq(users.id, closurePublications.publishedById))
+    .innerJoin(simulationRuns, eq(simulationRuns.id, closurePublications.runId))
+    .innerJoin(shareLinks, eq(shareLinks.id, closurePublications.shareLinkId))
     .where(eq(closurePublications.scenarioId, scenarioId))
     .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
     .limit(10);
+}
+
+/**
+ * Each scenario's publication still standing — its newest whose link was not revoked: what every calendar feed and
+ * travel advisory of the scenario shows (published-plans.ts). Scenarios never published are absent.
+ */
+export async function standingPublications({ scenarioIds }: { scenarioIds: string[] }) {
+  type Standing = { runId: string; publishedAt: Date; runDataDate: string | null; runAt: Date };
+  if (scenarioIds.length === 0) return new Map<string, Standing>();
+  const rows = await getDb()
+    .selectDistinctOn([closurePublications.scenarioId], {
+      scenarioId: closurePublications.scenarioId,
+      runId: closurePublications.runId,
+      publishedAt: closurePublications.publishedAt,
+      runDataDate: simulationRuns.dataDate,
+      runAt: simulationRuns.createdAt,
+    })
+    .from(closurePublications)
+    .innerJoin(shareLinks, eq(shareLinks.id, closurePublications.shareLinkId))
+    .innerJoin(simulationRuns, eq(simulationRuns.id, closurePublications.runId))
+    .where(and(inArray(closurePublications.scenarioId, scenarioIds), isNull(shareLinks.revokedAt)))
+    .orderBy(closurePublications.scenarioId, desc(closurePublications.publishedAt), desc(closurePublications.id));
+  return new Map<string, Standing>(rows.map(({ scenarioId, ...r }) => [scenarioId, r]));
 }

@@ -222,6 +222,12 @@ export const shiftsNotInRun = (() => {
 )`;
 })();
 
+/** How many field-log changes one run does not know (`shiftsNotInRun`); 0 for an unknown run. */
+export async function countShiftsNotInRun({ runId }: { runId: string }): Promise<number> {
+  const [row] = await getDb().select({ n: shiftsNotInRun }).from(simulationRuns).where(eq(simulationRuns.id, runId));
+  return row?.n ?? 0;
+}
+
 /**
  * The forecast that stood at the end of `day` where the work is (`timeZone`): the newest plan run or re-forecast
  * run on or before that day — a later run, whatever its data date, was not known then. Null before the first.

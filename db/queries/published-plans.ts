@@ -4,13 +4,23 @@ import { getDb } from "../client";
 import { closurePublications, projects, scenarioRevisions, scenarios, shareLinks, simulationRuns } from "../schema";
 
 /**
- * The closure plan a publication's token stands for: the published run, the scenario version it was computed
- * from and the structure's name. Only a live link (not revoked, not expired) that was created by a closure
- * publication answers, so an ordinary scenario share link opens no advisory, and the advisory opens nothing but
- * its own published run. Null when there is no such plan.
+ * The closure plan a publication's token stands for: the scenario's newest publication — so a calendar subscribed
+ * to from an earlier notice, and its travel advisory, follow each new publication, as the notice promises — with
+ * its run, the scenario version that run was computed from and the structure's name. Only a live link (not
+ * revoked, not expired) that was created by a closure publication answers, so an ordinary scenario share link
+ * opens no advisory. A publication whose own link was revoked is withdrawn: the others fall back to the newest
+ * publication still standing. Null when there is no such plan.
  */
 export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
-  const [row] = await getDb()
+  const db = getDb();
+  const [link] = await db
+    .select({ scenarioId: closurePublications.scenarioId })
+    .from(shareLinks)
+    .innerJoin(closurePublications, eq(closurePublications.shareLinkId, shareLinks.id))
+    .where(and(eq(shareLinks.tokenHash, tokenHash), eq(shareLinks.scope, "closure-feed"), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())))
+    .limit(1);
+  if (!link) return null;
+  const [row] = await db
     .select({
       publicationId: closurePublications.id,
       publishedAt: closurePublications.publishedAt,
@@ -22,15 +32,14 @@ export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
       runId: simulationRuns.id,
       results: simulationRuns.results,
       definition: scenarioRevisions.definition,
-      expiresAt: shareLinks.expiresAt,
     })
-    .from(shareLinks)
-    .innerJoin(closurePublications, eq(closurePublications.shareLinkId, shareLinks.id))
+    .from(closurePublications)
+    .innerJoin(shareLinks, eq(shareLinks.id, closurePublications.shareLinkId))
     .innerJoin(simulationRuns, eq(simulationRuns.id, closurePublications.runId))
-    .innerJoin(scenarios, eq(scenarios.id, shareLinks.scenarioId))
+    .innerJoin(scenarios, eq(scenarios.id, closurePublications.scenarioId))
     .innerJoin(projects, eq(projects.id, scenarios.projectId))
     .innerJoin(scenarioRevisions, and(eq(scenarioRevisions.scenarioId, simulationRuns.scenarioId), eq(scenarioRevisions.version, simulationRuns.scenarioVersion)))
-    .where(and(eq(shareLinks.tokenHash, tokenHash), eq(shareLinks.scope, "closure-feed"), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())))
+    .where(and(eq(closurePublications.scenarioId, link.scenarioId), isNull(shareLinks.revokedAt)))
     .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
     .limit(1);
   return row ?? null;

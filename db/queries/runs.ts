@@ -186,6 +186,16 @@ export async function getLatestRun({ scenarioId }: { scenarioId: string }) {
 }
 
 /**
+ * The scenario's newest forecast of any kind — its latest plan run or a later re-forecast from the field log,
+ * whichever was run last (the project list's rule) — with its results: what the planned closures are published
+ * from, so the public hears what the field has made of the plan.
+ */
+export async function getNewestForecast({ scenarioId, withResults = true }: { scenarioId: string; withResults?: boolean }) {
+  const [row] = await runsQuery(and(eq(simulationRuns.scenarioId, scenarioId), isForecast), withResults).limit(1);
+  return row ?? null;
+}
+
+/**
  * What the outlook shows: the forecast, and separately a newer browser run that is not (or not yet) the
  * forecast — pending verification, or rejected by it.
  */

@@ -45,6 +45,11 @@ export function changesNotInText(n: number, forecast = "this forecast"): string 
   return `${n.toLocaleString("en-US")} change${n === 1 ? "" : "s"} in the field log ${n === 1 ? "is" : "are"} not in ${forecast}`;
 }
 
+/** Which forecast, in words: "Re-forecast from the field log as of 4 Dec 2026, run 4 Dec 2026, 18:57" or "Forecast run …". */
+export function forecastSourceText(run: { dataDate: string | null; at: Date | string }): string {
+  return run.dataDate ? `Re-forecast from the field log as of ${formatIsoDate(run.dataDate)}, run ${formatDateTime(run.at)}` : `Forecast run ${formatDateTime(run.at)}`;
+}
+
 /**
  * The newest forecast of a plan of record as "P80 finish {p80}{rest}" plus a line saying which forecast and how old
  * (stale when the plan changed after it, and how many field-log changes it does not know); null when not run yet.
@@ -54,9 +59,7 @@ export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: s
   if (!h?.finish || !plan.planRunAt) return null;
   const move = p80MoveText(h.finish.p80, (plan.previousRunSummary as RunHeadline | null | undefined)?.finish?.p80);
   const target = h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability).replace(" ", "\u00a0")} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : "";
-  const source = plan.planRunDataDate
-    ? `Re-forecast from the field log as of ${formatIsoDate(plan.planRunDataDate)}, run ${formatDateTime(plan.planRunAt)}`
-    : `Forecast run ${formatDateTime(plan.planRunAt)}`;
+  const source = forecastSourceText({ dataDate: plan.planRunDataDate, at: plan.planRunAt });
   return {
     p80: formatIsoDate(h.finish.p80),
     rest: ` (P50 ${formatIsoDate(h.finish.p50)})${move ? `, ${move}` : ""}${target}.`,

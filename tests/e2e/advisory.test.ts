@@ -45,6 +45,8 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
     await page.getByTestId("publish-dialog-text").waitFor();
     // What the text lists depends on today's date (closures from today on: tests/integration/closure-notices.test.ts).
     expect(await page.getByTestId("publish-dialog-text").textContent()).toMatch(/\d+ closure periods in all/);
+    // It says which forecast the closures come from (this scenario has a plan run and no re-forecast).
+    expect(await page.getByTestId("publish-dialog-source").textContent()).toMatch(/^From the newest forecast: Forecast run \d{1,2} \w{3} \d{4}/);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "publish-preview");
     // Cancel sends nothing: no publication is recorded.

@@ -50,7 +50,7 @@ describe("publishing names the previewed run", { timeout: 120_000 }, () => {
     expect((await serverRunDone(id, admin, { seed: "advisory again", iterations: 10 })).status).toBe("completed");
     const stale = await call(`/api/scenarios/${id}/closure-publications`, { method: "POST", cookie: admin, body: { runId: first.runId } });
     expect(stale.status).toBe(409);
-    expect(stale.body.error).toMatch(/run again after your preview/);
+    expect(stale.body.error).toMatch(/run again or re-forecast after your preview/);
     const second = (await call(`/api/scenarios/${id}/closure-publications?preview=1`, { cookie: admin })).body.preview;
     expect(second.runId).not.toBe(first.runId);
     expect((await call(`/api/scenarios/${id}/closure-publications`, { method: "POST", cookie: admin, body: { runId: second.runId } })).status).toBe(201);

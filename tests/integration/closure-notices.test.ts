@@ -6,7 +6,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import ICAL from "ical.js";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { findMail } from "../../src/lib/server/mailbox";
-import { serverRunDone } from "../helpers/jobs";
+import { serverRunDone, waitForJob } from "../helpers/jobs";
+import { isoDaysFromToday } from "../helpers/progress-fixture";
 import { localToUtc } from "../../src/lib/exports/closures";
 import { formatIsoDay } from "../../src/lib/format";
 import { todayIn } from "../../src/lib/progress-schema";
@@ -97,6 +98,62 @@ describe("closure notices", () => {
     const feedLink = links.body.links.find((l: { label: string }) => l.label === "Closure calendar feed");
     expect((await call(`/api/share-links/${feedLink.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
     expect((await call(feedPath)).status).toBe(404);
+  });
+
+  it("publishes the newest forecast — a re-forecast after the plan run — and every earlier feed and advisory follows the newest publication still standing", async () => {
+    const feedOf = async (path: string) => {
+      const res = await call(path);
+      expect(res.status).toBe(200);
+      return new ICAL.Component(ICAL.parse(res.body as string))
+        .getAllSubcomponents("vevent")
+        .map((e) => (e.getFirstPropertyValue("dtstart") as ICAL.Time).toString())
+        .join(" ");
+    };
+    const publish = async () => {
+      const preview = await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer });
+      expect(preview.status).toBe(200);
+      const res = await call(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", cookie: engineer, body: { runId: preview.body.preview.runId } });
+      expect(res.status).toBe(201);
+      return { preview: preview.body.preview, feedPath: new URL(res.body.feedUrl).pathname, advisoryPath: new URL(res.body.advisoryUrl).pathname };
+    };
+    const first = await publish();
+    expect(first.preview.source).toMatch(/^Forecast run /);
+    const firstFeed = await feedOf(first.feedPath);
+    let listed = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: engineer });
+    expect(listed.body.lag).toBeNull();
+
+    // A re-forecast from yesterday with nothing in this scenario's field log: every operation starts over from
+    // today, so its closures are not the plan run's. It is now the newest forecast, and the Share page says the
+    // published closures lag it.
+    const re = await call(`/api/scenarios/${scenarioId}/reforecast`, { method: "POST", cookie: engineer, body: { dataDate: isoDaysFromToday(-1, timeZone), seed: "notice", iterations: 20 } });
+    expect(re.status).toBe(202);
+    expect((await waitForJob(re.body.job.id, engineer)).status).toBe("completed");
+    listed = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: engineer });
+    expect(listed.body.lag.newest).toMatch(/^Re-forecast from the field log as of /);
+    expect(listed.body.lag.published).toBe(listed.body.publications[0].source);
+    expect(listed.body.lag.newestStale).toBe(false);
+
+    const second = await publish();
+    expect(second.preview.source).toBe(`${listed.body.lag.newest}.`);
+    expect((await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: engineer })).body.lag).toBeNull();
+    const secondFeed = await feedOf(second.feedPath);
+    expect(secondFeed).not.toBe(firstFeed);
+    // The notice promises that the calendar follows each new publication: the first feed now carries the second's closures.
+    expect(await feedOf(first.feedPath)).toBe(secondFeed);
+
+    // Revoking the second publication's link withdraws it: the first feed falls back to the first publication.
+    const links = await call(`/api/scenarios/${scenarioId}/share-links`, { cookie: engineer });
+    const secondToken = second.feedPath.split("/")[3];
+    // The list is newest first: the second publication's feed link heads the feed links still standing.
+    const newestLink = links.body.links.find((l: { label: string; revokedAt: string | null }) => l.label === "Closure calendar feed" && !l.revokedAt);
+    expect((await call(`/api/share-links/${newestLink.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
+    expect((await call(`/api/shared/${secondToken}/closures.ics`)).status).toBe(404);
+    expect(await feedOf(first.feedPath)).toBe(firstFeed);
+    listed = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: engineer });
+    expect(listed.body.publications[0].withdrawn).toBe(true);
+    expect(listed.body.publications[1].withdrawn).toBe(false);
+    // What stands again is the first publication, of the plan run: behind the re-forecast, and said so.
+    expect(listed.body.lag.published).toMatch(/^Forecast run /);
   });
 
   it("a viewer can neither see the subscriber list nor publish", async () => {

@@ -22,11 +22,23 @@ interface Publication {
   notified: number;
   publishedAt: string;
   publishedByName: string;
+  runId: string;
+  /** The forecast it came from, in words. */
+  source: string;
+  /** Its link was revoked: the feeds and advisories show the newest publication still standing. */
+  withdrawn: boolean;
+}
+interface Publications {
+  publications: Publication[];
+  /** Set when what every feed and advisory shows came from an earlier forecast than the newest: both in words. */
+  lag: { publishedAt: string; published: string; newest: string; newestStale: boolean } | null;
 }
 
-/** What publishing the latest run would send; publishing names `runId`, so a newer run is refused, not sent unseen. */
+/** What publishing the newest forecast would send; publishing names `runId`, so a newer one is refused, not sent unseen. */
 interface NoticePreview {
   runId: string;
+  /** Which forecast, in words, and the field-log changes it does not know. */
+  source: string;
   closureCount: number;
   to: string[];
   subject: string;
@@ -42,7 +54,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
   const subsKey = ["projects", projectId, "closure-subscribers"];
   const pubsKey = ["scenarios", scenarioId, "closure-publications"];
   const subs = useQuery({ queryKey: subsKey, queryFn: () => api<{ subscribers: Subscriber[] }>(`/api/projects/${projectId}/closure-subscribers`).then((r) => r.subscribers) });
-  const pubs = useQuery({ queryKey: pubsKey, queryFn: () => api<{ publications: Publication[] }>(`/api/scenarios/${scenarioId}/closure-publications`).then((r) => r.publications) });
+  const pubs = useQuery({ queryKey: pubsKey, queryFn: () => api<Publications>(`/api/scenarios/${scenarioId}/closure-publications`) });
   const form = useForm<z.input<typeof closureSubscriberSchema>, unknown, z.output<typeof closureSubscriberSchema>>({
     resolver: zodResolver(closureSubscriberSchema),
     defaultValues: { email: "", label: "" },
@@ -79,9 +91,10 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
     <section className="card" aria-labelledby="notices-heading" data-testid="closure-notices">
       <h2 id="notices-heading">Closure notices</h2>
       <p className="mt-1 text-sm text-muted">
-        Publishing sends the planned lane closures of this scenario&apos;s latest run to everyone on the list, with a calendar feed they can subscribe to.
-        Closures come from the run&apos;s representative iteration: planning estimates that move with weather and progress. Work-zone traffic control
-        and public notice follow the project&apos;s own requirements.
+        Publishing sends the planned lane closures of this scenario&apos;s newest forecast — its latest run, or a later re-forecast from the field log — to
+        everyone on the list, with a calendar feed they can subscribe to and a travel advisory for drivers. Every feed and advisory published before
+        follows the newest publication, so subscribers never need to subscribe again. Closures come from the forecast&apos;s representative iteration:
+        planning estimates that move with weather and progress. Work-zone traffic control and public notice follow the project&apos;s own requirements.
       </p>
       <div className="mt-4 grid gap-5 lg:grid-cols-2">
         <div>
@@ -175,8 +188,9 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
                     <p className="text-muted">Preparing the notice…</p>
                   ) : preview.data ? (
                     <>
+                      <p data-testid="publish-dialog-source">From the newest forecast: {preview.data.source}</p>
                       <p>
-                        {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} from the latest run go into a new public calendar feed and travel advisory.{" "}
+                        {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} go into the public calendar feed and travel advisory (earlier links follow them too).{" "}
                         {preview.data.to.length === 0 ? "Nobody is on the list, so no e-mail is sent." : "This e-mail goes to people outside Pourline and cannot be called back:"}
                       </p>
                       {preview.data.to.length > 0 && (
@@ -213,12 +227,14 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
               </a>
             </p>
           )}
+          {pubs.data?.lag && <PublishedLag lag={pubs.data.lag} />}
           <h3 className="mt-4">Earlier publications</h3>
-          {pubs.data && pubs.data.length > 0 ? (
-            <ul className="mt-2 text-sm">
-              {pubs.data.map((p) => (
+          {pubs.data && pubs.data.publications.length > 0 ? (
+            <ul className="mt-2 space-y-1 text-sm" data-testid="closure-publications">
+              {pubs.data.publications.map((p) => (
                 <li key={p.id}>
-                  {formatDateTime(p.publishedAt)} by {p.publishedByName}: {p.closureCount} closures, {p.notified} notified
+                  {formatDateTime(p.publishedAt)} by {p.publishedByName}: {p.closureCount} closures, {p.notified} notified{p.withdrawn ? " — withdrawn (its link was revoked)" : ""}
+                  <span className="block text-xs text-muted">{p.source}</span>
                 </li>
               ))}
             </ul>
@@ -228,5 +244,23 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
         </div>
       </div>
     </section>
+  );
+}
+
+/** What every feed and advisory shows came from an earlier forecast than the newest (the server decides): said in words. */
+function PublishedLag({ lag }: { lag: NonNullable<Publications["lag"]> }) {
+  return (
+    <div className="mt-3 rounded-md border border-warn/40 bg-warn-bg px-3 py-2 text-sm" data-testid="publication-lags">
+      <p>
+        <strong>The public sees an earlier forecast.</strong>{" "}
+        {lag.newestStale ? "The newest forecast is of an earlier version of the plan: run the scenario again, then publish." : "Publish again to bring every calendar feed and travel advisory up to date."}
+      </p>
+      <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-xs">
+        <dt className="font-medium">Published {formatDateTime(lag.publishedAt)}</dt>
+        <dd>{lag.published}</dd>
+        <dt className="font-medium">Newest forecast</dt>
+        <dd>{lag.newest}</dd>
+      </dl>
+    </div>
   );
 }

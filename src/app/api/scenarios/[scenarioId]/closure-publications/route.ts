@@ -2,23 +2,23 @@ import { NextResponse } from "next/server";
 import { handler, readJson } from "@/lib/server/errors";
 import { closurePublicationSchema } from "@/lib/schemas";
 import { requireScenario } from "@/lib/server/access";
-import { previewClosurePlan, publishClosurePlan } from "@/lib/server/closure-notices";
+import { closurePublicationsOf, previewClosurePlan, publishClosurePlan } from "@/lib/server/closure-notices";
 import { appBaseUrl } from "@/lib/server/mail/links";
-import { listClosurePublications } from "@db/queries/closure-notices";
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
-/** Earlier publications; with `?preview=1`, what publishing now would send (recipients, subject, text), for the confirmation. */
+/** Earlier publications and the newest forecast to compare them with; with `?preview=1`, what publishing now would send (recipients, subject, text), for the confirmation. */
 export const GET = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario } = await requireScenario(scenarioId, "shareScenario", "look");
   if (new URL(req.url).searchParams.get("preview") === "1") return NextResponse.json({ preview: await previewClosurePlan({ scenario }) });
-  return NextResponse.json({ publications: await listClosurePublications({ scenarioId }) });
+  return NextResponse.json(await closurePublicationsOf({ scenario }));
 });
 
 /**
- * Publishes the planned closures of the latest (current) run and notifies the project's subscribers. The body
- * may name the previewed run (`{runId}`); no body publishes the latest run as it is.
+ * Publishes the planned closures of the newest forecast (plan run or re-forecast, of the current version) and
+ * notifies the project's subscribers. The body may name the previewed run (`{runId}`); no body publishes the newest
+ * forecast as it is.
  */
 export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
