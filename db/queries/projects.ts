@@ -39,6 +39,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     .as("previous_run");
   const columns = {
     planScenarioId: projects.planScenarioId,
+    planRunId: planRun.id,
     planName: plan.name,
     planRunSummary: planRun.summary,
     planRunAt: planRun.at,

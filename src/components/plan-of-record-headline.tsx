@@ -8,9 +8,22 @@ export type { PlanOfRecordView } from "@/lib/plan-of-record-text";
  * the target, and how old the forecast is — said as stale when the plan changed after it. The words are
  * src/lib/plan-of-record-text.ts's, the same as the forecast e-mail's. `progress`: how far the field log says the
  * job has got (src/lib/server/plan-progress.ts), said under the forecast; `against`: how it stands against the plan
- * run (the project page's, not the list's).
+ * run (the project page's, not the list's); `publicationLag`: the closures the public sees came from an earlier forecast.
  */
-export function PlanOfRecordHeadline({ plan, link = false, progress = null, against = null }: { plan: PlanOfRecordView; link?: boolean; progress?: string | null; against?: string | null }) {
+export function PlanOfRecordHeadline({
+  plan,
+  link = false,
+  progress = null,
+  against = null,
+  publicationLag = null,
+}: {
+  plan: PlanOfRecordView;
+  link?: boolean;
+  progress?: string | null;
+  against?: string | null;
+  /** The closures published for the public lag this forecast (src/lib/server/closure-notices.ts `publicationLagTexts`). */
+  publicationLag?: string | null;
+}) {
   if (!plan.planScenarioId || !plan.planName) return <p className="text-sm text-muted">No plan of record chosen yet.</p>;
   const name = link ? (
     <Link href={`/scenarios/${plan.planScenarioId}`} className="font-medium text-brand-700 hover:underline">
@@ -50,6 +63,11 @@ export function PlanOfRecordHeadline({ plan, link = false, progress = null, agai
       </p>
       <p className="mt-0.5 text-xs text-muted">{text.when}</p>
       {progressLine}
+      {publicationLag && (
+        <p className="mt-1 text-sm text-warn" data-testid="plan-publication-lag">
+          {publicationLag}
+        </p>
+      )}
     </div>
   );
 }

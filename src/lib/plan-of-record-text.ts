@@ -51,6 +51,15 @@ export function forecastSourceText(run: { dataDate: string | null; at: Date | st
 }
 
 /**
+ * The lane closures the public sees (every calendar feed and travel advisory shows the publication still standing)
+ * came from an earlier forecast than the plan's newest: said under the forecast, on the project page and in the
+ * forecast e-mail, so whoever publishes knows to publish again.
+ */
+export function publicationLagText(publishedAt: Date | string): string {
+  return `The lane closures published for the public on ${formatDateTime(publishedAt)} come from an earlier forecast: publish again from the plan's Share tab to bring every calendar feed and travel advisory up to date.`;
+}
+
+/**
  * The newest forecast of a plan of record as "P80 finish {p80}{rest}" plus a line saying which forecast and how old
  * (stale when the plan changed after it, and how many field-log changes it does not know); null when not run yet.
  */

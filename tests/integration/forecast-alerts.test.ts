@@ -95,6 +95,25 @@ describe("forecast e-mails", () => {
     expect(await mailTo(admin.email)).toHaveLength(0);
   });
 
+  it("once the plan's closures are published, a newer forecast's e-mail and the project page say the public sees an earlier one", async () => {
+    const published = await call(`/api/scenarios/${planId}/closure-publications`, { method: "POST", cookie: engineer.cookie });
+    expect(published.status).toBe(201);
+    const pageSays = async () => {
+      const page = await call(`/projects/${projectId}`, { cookie: viewer.cookie });
+      expect(page.status).toBe(200);
+      return String(page.body).includes('data-testid="plan-publication-lag"');
+    };
+    expect(await pageSays()).toBe(false); // published from the newest forecast: nothing lags
+    const third = await run(planId, "third");
+    await announcedAs(third.runId);
+    const mail = (await mailTo(viewer.email)).at(-1)!;
+    expect(mail.subject).toContain(formatIsoDate(third.p80));
+    expect(mail.text_body).toMatch(/\n\nThe lane closures published for the public on \d{1,2} \w{3} \d{4}, \d\d:\d\d come from an earlier forecast: publish again from the plan's Share tab/);
+    expect(await pageSays()).toBe(true);
+    // The e-mails before the publication said nothing of it.
+    expect((await mailTo(viewer.email)).slice(0, -1).some((m) => m.text_body.includes("published for the public"))).toBe(false);
+  });
+
   it("stop when turned off, and go with the plan of record: another scenario's runs are not its forecasts", async () => {
     const other = (await createPastScenario(admin.cookie, projectId, "Not the plan")).id;
     const sent = (await mailTo(viewer.email)).length;

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { p80MoveText, planForecastText } from "../../src/lib/plan-of-record-text";
+import { p80MoveText, planForecastText, publicationLagText } from "../../src/lib/plan-of-record-text";
 import { forecastAlertMail } from "../../src/lib/server/mail/forecast-alert-mail";
 
 const dayNumber = (iso: string) => Date.UTC(Number(iso.slice(0, 4)), Number(iso.slice(5, 7)) - 1, Number(iso.slice(8, 10))) / 86_400_000;
@@ -81,6 +81,12 @@ describe("the plan of record's forecast in words (the project list's and the for
     const withLog = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: false, planLink: "", projectLink: "", progress })!;
     expect(withLog.text).toContain(`${planForecastText(plan)!.when}\n\n${progress}\n\nP80: 8 in 10`);
     expect(withLog.html).toContain(`<p>${progress}</p>`);
+    // The closures the public sees came from an earlier forecast: said after the progress, before the P80 note.
+    const lag = publicationLagText(new Date("2026-12-02T19:00:00Z"));
+    expect(lag).toMatch(/^The lane closures published for the public on 2 Dec 2026, \d\d:00 come from an earlier forecast: publish again from the plan's Share tab/);
+    const lagging = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: false, planLink: "", projectLink: "", progress, publicationLag: lag })!;
+    expect(lagging.text).toContain(`${progress}\n\n${lag}\n\nP80: 8 in 10`);
+    expect(withLog.text).not.toContain("published for the public");
     // Another plan chosen since the last e-mail: said first.
     const chosen = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: true, planLink: "", projectLink: "" })!;
     expect(chosen.text.startsWith('"Deck" is now run by another plan of record, "Two seasons". Its newest forecast:')).toBe(true);

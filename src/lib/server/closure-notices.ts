@@ -9,7 +9,7 @@ import { createShareLink } from "@db/queries/shares";
 import type { RunSummary } from "@sim/index";
 import { closureLocalTimes, hoursSince } from "@/lib/exports/closures";
 import { todayIn } from "@/lib/progress-schema";
-import { changesNotInText, forecastSourceText } from "@/lib/plan-of-record-text";
+import { changesNotInText, forecastSourceText, publicationLagText } from "@/lib/plan-of-record-text";
 import { AppError } from "./errors";
 import { closuresOfRun } from "./exports";
 import { enqueueMailsFor } from "./mail/outbox";
@@ -54,6 +54,24 @@ async function sourceOf(run: { id: string; dataDate: string | null; createdAt: D
   return `${forecastSourceText({ dataDate: run.dataDate, at: run.createdAt })}.${missing ? ` ${changesNotInText(missing)}: re-forecast first if they move the closures.` : ""}`;
 }
 
+/** What the public sees (the publication still standing) came from another forecast than the newest. */
+const lags = (standing: { runId: string }, newestRunId: string) => standing.runId !== newestRunId;
+
+/**
+ * For each plan of record with a publication standing behind its newest forecast, that in words
+ * (`publicationLagText`), by scenario id: the project page and the forecast e-mail say it under the forecast. One query.
+ */
+export async function publicationLagTexts(plans: ReadonlyArray<{ planScenarioId: string | null; planRunId: string | null }>): Promise<Map<string, string>> {
+  const withRun = plans.filter((p): p is { planScenarioId: string; planRunId: string } => p.planScenarioId !== null && p.planRunId !== null);
+  const standing = await standingPublications({ scenarioIds: withRun.map((p) => p.planScenarioId) });
+  const out = new Map<string, string>();
+  for (const p of withRun) {
+    const s = standing.get(p.planScenarioId);
+    if (s && lags(s, p.planRunId)) out.set(p.planScenarioId, publicationLagText(s.publishedAt));
+  }
+  return out;
+}
+
 /**
  * Earlier publications, newest first, each with the forecast it came from; and, when the publication still standing
  * (what every feed and advisory shows) came from an earlier forecast than the newest, the two in words — the Share
@@ -68,7 +86,7 @@ export async function closurePublicationsOf({ scenario }: { scenario: ScenarioDe
   return {
     publications: rows.map(({ runDataDate, runAt, ...p }) => ({ ...p, source: forecastSourceText({ dataDate: runDataDate, at: runAt }) })),
     lag:
-      standing && newest && standing.runId !== newest.id
+      standing && newest && lags(standing, newest.id)
         ? { publishedAt: standing.publishedAt, published: forecastSourceText({ dataDate: standing.runDataDate, at: standing.runAt }), newest: forecastSourceText({ dataDate: newest.dataDate, at: newest.createdAt }), newestStale: newest.stale }
         : null,
   };

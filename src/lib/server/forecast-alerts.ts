@@ -13,6 +13,7 @@ import { forecastAlertMail } from "./mail/forecast-alert-mail";
 import { enqueueMail } from "./mail/outbox";
 import { startBackgroundPass } from "./background-pass";
 import { planProgressAndAgainst } from "./plan-progress";
+import { publicationLagTexts } from "./closure-notices";
 
 const baseUrl = () => (process.env.APP_BASE_URL || "http://localhost:3000").replace(/\/+$/, "");
 
@@ -21,14 +22,14 @@ export async function sendForecastAlerts(): Promise<number> {
   let announced = 0;
   const forecasts = await listUnannouncedPlanForecasts();
   // Read before the transactions: a sentence a second old is as true as one read inside them.
-  const texts = await planProgressAndAgainst(forecasts.map((p) => p.planScenarioId)); // no ids: no query
+  const [texts, lagging] = await Promise.all([planProgressAndAgainst(forecasts.map((p) => p.planScenarioId)), publicationLagTexts(forecasts)]); // no ids: no query
   for (const p of forecasts) {
     await inTransaction(async (tx) => {
       if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return;
       announced++;
       const links = { planLink: `${baseUrl()}/scenarios/${p.planScenarioId}`, projectLink: `${baseUrl()}/projects/${p.projectId}` };
       for (const { email: to } of await forecastAlertReaders({ tx, projectId: p.projectId })) {
-        const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, planChanged: p.planChanged, ...(p.planScenarioId ? texts.get(p.planScenarioId) : null), ...links });
+        const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, planChanged: p.planChanged, ...(p.planScenarioId ? texts.get(p.planScenarioId) : null), publicationLag: p.planScenarioId ? lagging.get(p.planScenarioId) : null, ...links });
         if (mail) await enqueueMail(tx, mail);
       }
     });

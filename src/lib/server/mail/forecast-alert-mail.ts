@@ -11,9 +11,20 @@ const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&
 /**
  * `planChanged`: the project chose another plan of record since the last e-mail; this is the new plan's newest
  * forecast. `progress`: the project list's progress sentence (src/lib/server/plan-progress.ts), when the plan has a field log;
- * `against`: how the job stands against the plan run, when there is one of the plan as it stands.
+ * `against`: how the job stands against the plan run, when there is one of the plan as it stands; `publicationLag`: the
+ * lane closures published for the public came from an earlier forecast than this one.
  */
-export function forecastAlertMail(v: { to: string; projectName: string; plan: PlanOfRecordView; planChanged: boolean; planLink: string; projectLink: string; progress?: string | null; against?: string | null }): MailMessage | null {
+export function forecastAlertMail(v: {
+  to: string;
+  projectName: string;
+  plan: PlanOfRecordView;
+  planChanged: boolean;
+  planLink: string;
+  projectLink: string;
+  progress?: string | null;
+  against?: string | null;
+  publicationLag?: string | null;
+}): MailMessage | null {
   const text = planForecastText(v.plan);
   if (!text || !v.plan.planName) return null;
   const paragraphs = [
@@ -22,6 +33,7 @@ export function forecastAlertMail(v: { to: string; projectName: string; plan: Pl
     text.when,
     ...(v.progress ? [v.progress] : []),
     ...(v.against ? [v.against] : []),
+    ...(v.publicationLag ? [v.publicationLag] : []),
     "P80: 8 in 10 of the simulated outcomes finish by that date. A forecast is a planning aid; the project specifications and the engineer in charge decide.",
   ];
   const foot = `You receive this because you asked for forecast e-mails on this project. Turn them off on the project page: ${v.projectLink}`;

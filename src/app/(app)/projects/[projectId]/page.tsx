@@ -19,6 +19,7 @@ import { DailyReforecastForm } from "./daily-reforecast-form";
 import { getDailyReforecast } from "@db/queries/daily-reforecast";
 import { dailyReforecastText } from "@/lib/daily-reforecast";
 import { planProgressAndAgainst } from "@/lib/server/plan-progress";
+import { publicationLagTexts } from "@/lib/server/closure-notices";
 import { ForecastAlertsToggle } from "./forecast-alerts-toggle";
 import { getForecastAlerts } from "@db/queries/forecast-alerts";
 
@@ -35,6 +36,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
     getDailyReforecast({ projectId: project.id }),
   ]);
   const { progress = null, against = null } = (project.planScenarioId && texts.get(project.planScenarioId)) || {};
+  const publicationLag = (plan && project.planScenarioId && (await publicationLagTexts([plan])).get(project.planScenarioId)) || null;
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />
@@ -67,7 +69,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       <section className="card" aria-labelledby="plan-of-record-heading" data-testid="plan-of-record">
         <h2 id="plan-of-record-heading">Plan of record</h2>
         <p className="mt-1 text-sm text-muted">The scenario the project is run by: its newest forecast is what the project list shows and what the owner is told.</p>
-        <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link progress={progress} against={against} />}</div>
+        <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link progress={progress} against={against} publicationLag={publicationLag} />}</div>
         {can(role, "editProject", archived) && (
           <PlanOfRecordPicker projectId={project.id} current={project.planScenarioId} scenarios={(await listProjectScenarios({ projectId: project.id })).map((s) => ({ id: s.id, name: s.name }))} />
         )}
