@@ -113,6 +113,9 @@ function demoSignIns() {
 }
 
 /** The local stand-in for a mail service: every message lands as a JSON file in `mailboxDir`. */
+/** Where the demo job is (its scenarios' `timeZone`): `npm start` and `npm test` show moments in it. */
+const DEMO_TIME_ZONE = "America/Chicago";
+
 async function startFakeSmtp(port, mailboxDir, env) {
   const script = join(root, "scripts", "fake-smtp.ts");
   if (!existsSync(script)) return {};
@@ -186,6 +189,8 @@ async function startMode() {
     say("using the database in DATABASE_URL (no local PostgreSQL started; the demo is seeded only with POURLINE_SEED_DEMO=1).");
   }
   const env = { ...process.env, DATABASE_URL: databaseUrl, NEXT_TELEMETRY_DISABLED: "1" };
+  // The demo's moments are shown where its job is; a database of your own keeps the server's zone unless set.
+  if (ownDatabase && !env.POURLINE_TIME_ZONE) env.POURLINE_TIME_ZONE = DEMO_TIME_ZONE;
   tsx("db/migrate.ts", env, "database migration");
   // The demo's accounts share a published password: seeded into the local demo database only, or on request.
   if (ownDatabase || process.env.POURLINE_SEED_DEMO === "1") tsx("scripts/seed.ts", env, "demo seed");
@@ -256,6 +261,8 @@ export async function startThrowawayApp({ chromium = true, worker = true, quietA
     POURLINE_TRUSTED_PROXIES: "127.0.0.2",
     NEXT_TELEMETRY_DISABLED: "1",
     POURLINE_DIST_DIR: ".next-test",
+    // Not the machine's UTC: a page that showed a moment in two zones (server and browser) would show it here.
+    POURLINE_TIME_ZONE: process.env.POURLINE_TIME_ZONE || DEMO_TIME_ZONE,
   };
   tsx("db/migrate.ts", env, "database migration");
   tsx("scripts/seed.ts", env, "demo seed");

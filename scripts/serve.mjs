@@ -27,6 +27,17 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
 const port = Number(process.env.PORT || 3000);
 const host = process.env.HOST || "127.0.0.1";
 
+// Every moment on a page or in an e-mail is shown in this zone (src/lib/format.ts `displayTimeZone`): refuse to
+// start on a name the runtime does not know rather than fail on every page.
+if (process.env.POURLINE_TIME_ZONE) {
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: process.env.POURLINE_TIME_ZONE });
+  } catch {
+    console.error(`[pourline] POURLINE_TIME_ZONE="${process.env.POURLINE_TIME_ZONE}" is not a time zone this Node knows; use an IANA name such as America/Chicago.`);
+    process.exit(1);
+  }
+}
+
 const app = next({ dev: false, dir: root, hostname: host, port });
 const handle = app.getRequestHandler();
 await app.prepare();

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import localFont from "next/font/local";
 import { connection } from "next/server";
 import { Providers } from "./providers";
+import { displayTimeZone } from "@/lib/format";
 import "./globals.css";
 
 const inter = localFont({
@@ -25,7 +26,8 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   // which an HTML file built ahead of time could not.
   await connection();
   return (
-    <html lang="en" className={inter.variable}>
+    // The browser shows every moment in the zone the server does (src/lib/format.ts `displayTimeZone`).
+    <html lang="en" className={inter.variable} data-time-zone={displayTimeZone()}>
       <body className="min-h-screen font-sans antialiased">
         <Providers>{children}</Providers>
       </body>

@@ -48,9 +48,40 @@ export function formatHour(h: number): string {
   return `${String(h).padStart(2, "0")}:00`;
 }
 
+/**
+ * The one time zone every moment (when something was saved, run, sent) is shown in, on the server's pages, in the
+ * browser and in e-mails alike — so a page never shows one moment two ways: `POURLINE_TIME_ZONE` on the server
+ * (README "Deploying safely"; `npm start` and `npm test` use the demo's America/Chicago), the server's own zone
+ * without it; the browser reads what the server wrote on the page (`<html data-time-zone>`, app/layout.tsx).
+ */
+export function displayTimeZone(): string {
+  const set = typeof document !== "undefined" ? document.documentElement.dataset.timeZone : typeof process !== "undefined" ? process.env.POURLINE_TIME_ZONE : undefined;
+  return set || Intl.DateTimeFormat().resolvedOptions().timeZone;
+}
+
+/** A moment in the display time zone: "4 Dec 2026, 19:40". */
 export function formatDateTime(d: Date | string): string {
+  return formatDateTimeIn(d, displayTimeZone());
+}
+
+// One formatter per zone: building one costs far more than using it, and a table formats hundreds of moments.
+const clocks = new Map<string, Intl.DateTimeFormat>();
+function clockIn(timeZone: string): Intl.DateTimeFormat {
+  let f = clocks.get(timeZone);
+  if (!f) clocks.set(timeZone, (f = new Intl.DateTimeFormat("en-US", { timeZone, year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", hourCycle: "h23" })));
+  return f;
+}
+
+/**
+ * A moment as the clock reads where the work is — "4 Dec 2026, 19:40" in `timeZone` — for the public pages, whose
+ * times are all local to the work, whatever zone the server runs in (formatDateTime uses the process's own).
+ */
+export function formatDateTimeIn(d: Date | string, timeZone: string): string {
   const date = typeof d === "string" ? new Date(d) : d;
-  return isValid(date) ? format(date, `${DATE_PATTERN}, HH:mm`) : String(d);
+  if (!isValid(date)) return String(d);
+  const parts = clockIn(timeZone).formatToParts(date);
+  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? "";
+  return `${formatIsoDate(`${part("year")}-${part("month")}-${part("day")}`)}, ${part("hour")}:${part("minute")}`;
 }
 
 /** Month 1–12 → "Sep" (`long`: "September"). */

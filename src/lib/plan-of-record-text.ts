@@ -56,7 +56,7 @@ export function forecastSourceText(run: { dataDate: string | null; at: Date | st
  * forecast e-mail, so whoever publishes knows to publish again.
  */
 export function publicationLagText(publishedAt: Date | string): string {
-  return `The lane closures published for the public on ${formatDateTime(publishedAt)} come from an earlier forecast: publish again from the plan's Share tab to bring every calendar feed and travel advisory up to date.`;
+  return `The lane closures the public sees (published ${formatDateTime(publishedAt)}) come from an earlier forecast, until someone publishes again from the plan's Share tab.`;
 }
 
 /**

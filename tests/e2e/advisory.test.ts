@@ -9,6 +9,7 @@ import { serverRunDone } from "../helpers/jobs";
 import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
+import { formatDateTimeIn } from "../../src/lib/format";
 
 const browser = browserPerFile();
 let scenarioId: string;
@@ -59,6 +60,22 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
     await link.waitFor();
     advisoryUrl = (await link.getAttribute("href")) ?? "";
     expect(advisoryUrl).toContain("/advisory/");
+    await context.close();
+  });
+
+  it("a reader whose browser is in another time zone sees each moment as the server shows it (one display zone)", async () => {
+    const zone = process.env.POURLINE_TIME_ZONE!;
+    expect(zone).toBe("America/Chicago"); // npm test sets it: not the machine's UTC, not the browser's Tokyo below
+    const { context, page } = await signedIn(browser(), "engineer", 1280, { timezoneId: "Asia/Tokyo" });
+    await new ScenarioPage(page, scenarioId).open("share");
+    const listed = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: await signInAs("engineer") });
+    const publishedAt = new Date(listed.body.publications[0].publishedAt);
+    // Drawn in the browser (the list comes from the API after the page loads), in the installation's zone.
+    const line = page.getByTestId("closure-publications").locator("li").first();
+    await expect.poll(async () => (await line.textContent()) ?? "").toContain(`${formatDateTimeIn(publishedAt, zone)} by `);
+    expect(await line.textContent()).not.toContain(formatDateTimeIn(publishedAt, "Asia/Tokyo"));
+    await page.goto(`${APP_URL}/account`);
+    expect(await page.getByTestId("display-time-zone").textContent()).toContain(`${zone} time`);
     await context.close();
   });
 

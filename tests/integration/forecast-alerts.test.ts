@@ -108,10 +108,10 @@ describe("forecast e-mails", () => {
     await announcedAs(third.runId);
     const mail = (await mailTo(viewer.email)).at(-1)!;
     expect(mail.subject).toContain(formatIsoDate(third.p80));
-    expect(mail.text_body).toMatch(/\n\nThe lane closures published for the public on \d{1,2} \w{3} \d{4}, \d\d:\d\d come from an earlier forecast: publish again from the plan's Share tab/);
+    expect(mail.text_body).toMatch(/\n\nThe lane closures the public sees \(published \d{1,2} \w{3} \d{4}, \d\d:\d\d\) come from an earlier forecast, until someone publishes again from the plan's Share tab\.\n\n/);
     expect(await pageSays()).toBe(true);
     // The e-mails before the publication said nothing of it.
-    expect((await mailTo(viewer.email)).slice(0, -1).some((m) => m.text_body.includes("published for the public"))).toBe(false);
+    expect((await mailTo(viewer.email)).slice(0, -1).some((m) => m.text_body.includes("the public sees"))).toBe(false);
   });
 
   it("stop when turned off, and go with the plan of record: another scenario's runs are not its forecasts", async () => {

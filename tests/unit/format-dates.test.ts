@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { formatClockOnDay, formatIsoClock, formatIsoDate, formatIsoDay } from "@/lib/format";
+import { formatClockOnDay, formatDateTime, formatDateTimeIn, formatIsoClock, formatIsoDate, formatIsoDay } from "@/lib/format";
 
 // Weekdays checked against a printed calendar of 2026–2027 (3 Dec 2026 is a Thursday; 5 Apr 2027 a Monday).
 describe("date words on the week-ahead board and its e-mail", () => {
@@ -20,6 +20,30 @@ describe("date words on the week-ahead board and its e-mail", () => {
     expect(formatClockOnDay("2026-05-22T14:35", "2026-05-22")).toBe("14:35");
     expect(formatClockOnDay("2026-05-23T02:10", "2026-05-22")).toBe("23 May 02:10");
     expect(formatClockOnDay(null, "2026-05-22")).toBe("—");
+  });
+
+  it("a moment as the clock reads where the work is, whatever zone the process runs in", () => {
+    // US Central time is UTC−6 in winter and UTC−5 in summer (the IANA time zone database, America/Chicago).
+    expect(formatDateTimeIn(new Date("2026-12-05T01:40:00Z"), "America/Chicago")).toBe("4 Dec 2026, 19:40");
+    expect(formatDateTimeIn("2027-07-01T12:05:00Z", "America/Chicago")).toBe("1 Jul 2027, 07:05");
+    expect(formatDateTimeIn(new Date("2026-12-05T00:00:00Z"), "UTC")).toBe("5 Dec 2026, 00:00"); // midnight is 00, not 24
+    expect(formatDateTimeIn("not a date", "UTC")).toBe("not a date");
+  });
+
+  it("every moment is shown in the installation's zone (POURLINE_TIME_ZONE), else the process's own", () => {
+    const before = process.env.POURLINE_TIME_ZONE;
+    const moment = new Date("2026-12-05T01:40:00Z");
+    try {
+      process.env.POURLINE_TIME_ZONE = "America/Chicago";
+      expect(formatDateTime(moment)).toBe("4 Dec 2026, 19:40");
+      process.env.POURLINE_TIME_ZONE = "Asia/Tokyo"; // UTC+9, no daylight saving (IANA time zone database)
+      expect(formatDateTime(moment)).toBe("5 Dec 2026, 10:40");
+      delete process.env.POURLINE_TIME_ZONE;
+      expect(formatDateTime(moment)).toBe(formatDateTimeIn(moment, Intl.DateTimeFormat().resolvedOptions().timeZone));
+    } finally {
+      if (before === undefined) delete process.env.POURLINE_TIME_ZONE;
+      else process.env.POURLINE_TIME_ZONE = before;
+    }
   });
 
   it("gives back what it cannot read instead of a wrong date", () => {

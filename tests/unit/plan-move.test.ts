@@ -4,7 +4,7 @@
  * 1990–2100; a time of day after the date does not count. And the sentence the project list and the forecast
  * e-mail build from a plan of record's newest forecast.
  */
-import { describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { p80MoveText, planForecastText, publicationLagText } from "../../src/lib/plan-of-record-text";
 import { forecastAlertMail } from "../../src/lib/server/mail/forecast-alert-mail";
@@ -40,12 +40,17 @@ describe("p80MoveText", () => {
 });
 
 describe("the plan of record's forecast in words (the project list's and the forecast e-mail's)", () => {
+  // Moments are shown in the installation's zone (src/lib/format.ts `displayTimeZone`): pinned here, as `npm test` does.
+  const zoneBefore = process.env.POURLINE_TIME_ZONE;
+  beforeAll(() => void (process.env.POURLINE_TIME_ZONE = "America/Chicago"));
+  afterAll(() => (zoneBefore === undefined ? delete process.env.POURLINE_TIME_ZONE : void (process.env.POURLINE_TIME_ZONE = zoneBefore)));
   const headline = { iterations: 2000, finish: { p10: "2027-08-01", p50: "2027-08-15", p80: "2027-08-23", p90: "2027-08-30" }, targetDate: "2027-07-02", targetProbability: 0, closureHoursTotal: 1, weatherLostShiftsP50: 1 };
   const plan = {
     planScenarioId: "p",
     planName: "Two seasons",
     planRunSummary: headline,
-    planRunAt: "2026-11-01T12:00:00",
+    // 12:00 in Chicago: daylight saving time ended there at 02:00 that morning, so UTC−6 (IANA time zone database).
+    planRunAt: "2026-11-01T18:00:00Z",
     planRunDataDate: "2026-10-31",
     planRunStale: false,
     planRunShiftsNotIn: 0,
@@ -83,10 +88,10 @@ describe("the plan of record's forecast in words (the project list's and the for
     expect(withLog.html).toContain(`<p>${progress}</p>`);
     // The closures the public sees came from an earlier forecast: said after the progress, before the P80 note.
     const lag = publicationLagText(new Date("2026-12-02T19:00:00Z"));
-    expect(lag).toMatch(/^The lane closures published for the public on 2 Dec 2026, \d\d:00 come from an earlier forecast: publish again from the plan's Share tab/);
+    expect(lag).toMatch(/^The lane closures the public sees \(published 2 Dec 2026, \d\d:00\) come from an earlier forecast, until someone publishes again from the plan's Share tab\.$/);
     const lagging = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: false, planLink: "", projectLink: "", progress, publicationLag: lag })!;
     expect(lagging.text).toContain(`${progress}\n\n${lag}\n\nP80: 8 in 10`);
-    expect(withLog.text).not.toContain("published for the public");
+    expect(withLog.text).not.toContain("the public sees");
     // Another plan chosen since the last e-mail: said first.
     const chosen = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: true, planLink: "", projectLink: "" })!;
     expect(chosen.text.startsWith('"Deck" is now run by another plan of record, "Two seasons". Its newest forecast:')).toBe(true);

@@ -29,8 +29,8 @@ export class SignInPage {
 }
 
 /** A fresh browser context signed in as `role`, on the project list. */
-export async function signedIn(browser: Browser, role: DemoRole, width = 1280): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: { width, height: 900 } });
+export async function signedIn(browser: Browser, role: DemoRole, width = 1280, options: { timezoneId?: string } = {}): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport: { width, height: 900 }, ...options });
   const page = await context.newPage();
   await new SignInPage(page).signInAs(role);
   return { context, page };

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/server/page-access";
+import { displayTimeZone } from "@/lib/format";
 import { SESSION_ABSOLUTE_MS } from "@/lib/server/auth";
 import { countLiveSessions } from "@db/queries/users";
 import { AccountDetailsForm, OtherSessions, PasswordChangeForm } from "./account-forms";
@@ -16,6 +17,9 @@ export default async function AccountPage() {
         <h1>Your account</h1>
         <p className="mt-1 text-sm text-muted">
           Signed in as {user.email}. To use another e-mail address, ask a project administrator to invite it.
+        </p>
+        <p className="mt-1 text-sm text-muted" data-testid="display-time-zone">
+          Times of day in Pourline and its e-mails are {displayTimeZone()} time, for everyone in this installation.
         </p>
       </header>
       <AccountDetailsForm name={user.name} title={user.title} />

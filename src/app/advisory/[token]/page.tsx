@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { buildAdvisory, AVOID_MILES } from "@/lib/advisory";
-import { formatDateTime, formatIsoDate } from "@/lib/format";
+import { formatDateTimeIn, formatIsoDate } from "@/lib/format";
 import { orNotFound } from "@/lib/server/page-access";
 import { todayIn } from "@/lib/progress-schema";
 import { requirePublishedPlan } from "@/lib/server/published-plan";
@@ -35,7 +35,7 @@ export default async function AdvisoryPage({ params }: { params: Promise<{ token
           {plan.region && <p className="text-sm text-muted">{plan.region}</p>}
           <h1 data-testid="advisory-title">{plan.structure}: lane closures and expected delays</h1>
           <p className="mt-1 text-sm">
-            Last updated {formatDateTime(plan.publishedAt)} (this page shows each new publication). Times are local ({s.timeZone}). They are planning estimates and move with weather and progress; signs
+            Last updated {formatDateTimeIn(plan.publishedAt, s.timeZone)} (this page shows each new publication). Times are local ({s.timeZone}). They are planning estimates and move with weather and progress; signs
             at the work zone always come first.
           </p>
         </div>

@@ -190,7 +190,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
                     <>
                       <p data-testid="publish-dialog-source">From the newest forecast: {preview.data.source}</p>
                       <p>
-                        {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} go into the public calendar feed and travel advisory (earlier links follow them too).{" "}
+                        {preview.data.closureCount} closure period{preview.data.closureCount === 1 ? "" : "s"} go into the public calendar feed and travel advisory{pubs.data?.publications.length ? " (the links sent before show them too)" : ""}.{" "}
                         {preview.data.to.length === 0 ? "Nobody is on the list, so no e-mail is sent." : "This e-mail goes to people outside Pourline and cannot be called back:"}
                       </p>
                       {preview.data.to.length > 0 && (
