@@ -104,6 +104,16 @@ export const projects = pgTable("projects", {
   dailyReforecastLastOn: date("daily_reforecast_last_on"),
   /** What that day's look decided, in words ("re-forecast from 3 Dec 2026: 2 field-log changes …"). */
   dailyReforecastNote: text("daily_reforecast_note"),
+  /**
+   * The weekly closure e-mail to the project's closure-notice subscribers: the local weekday (0 = Sunday … 6) and
+   * hour (0–23, the published plan's time zone) after which the week ahead of the standing publication is sent
+   * (both null = off; src/lib/server/closure-weekly.ts), the last local date it was sent or skipped for, so it
+   * happens once, and what that day did, in words. CHECK constraints in the migration: the ranges, both or neither.
+   */
+  closureWeeklyDay: integer("closure_weekly_day"),
+  closureWeeklyHour: integer("closure_weekly_hour"),
+  closureWeeklyLastOn: date("closure_weekly_last_on"),
+  closureWeeklyNote: text("closure_weekly_note"),
 });
 export type Project = InferSelectModel<typeof projects>;
 

@@ -125,6 +125,8 @@ const LABELS: Record<string, string | [string, string]> = {
   planScenarioId: "Plan of record",
   forecastAlerts: "Forecast e-mails",
   dailyReforecastHour: "Daily re-forecast hour",
+  closureWeeklyDay: "Weekly closure e-mail day",
+  closureWeeklyHour: "Weekly closure e-mail hour",
   workDate: "Work date",
   operationId: "Operation",
   crew: "Crew",

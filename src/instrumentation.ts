@@ -1,6 +1,6 @@
 /**
  * Runs once per server process. Starts the e-mail outbox poller, the plan-of-record forecast e-mails, the daily
- * re-forecast of plans of record and the daily look-ahead notices in the Node.js runtime, unless
+ * re-forecast of plans of record, the weekly closure e-mails and the daily look-ahead notices in the Node.js runtime, unless
  * POURLINE_OUTBOX=off, there is no database configured, or this is the build.
  */
 export async function register() {
@@ -16,6 +16,10 @@ export async function register() {
   if (process.env.POURLINE_DAILY_REFORECAST !== "off") {
     const { startDailyReforecastPoller } = await import("./lib/server/daily-reforecast");
     startDailyReforecastPoller();
+  }
+  if (process.env.POURLINE_CLOSURE_WEEKLY !== "off") {
+    const { startClosureWeeklyPoller } = await import("./lib/server/closure-weekly");
+    startClosureWeeklyPoller();
   }
   if (process.env.POURLINE_LOOKAHEAD_NOTICES === "off") return;
   const { startLookAheadNoticePoller } = await import("./lib/server/look-ahead-notices");

@@ -20,7 +20,22 @@ export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
     .where(and(eq(shareLinks.tokenHash, tokenHash), eq(shareLinks.scope, "closure-feed"), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())))
     .limit(1);
   if (!link) return null;
-  const [row] = await db
+  const [row] = await publishedPlans()
+    .where(and(eq(closurePublications.scenarioId, link.scenarioId), isNull(shareLinks.revokedAt)))
+    .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
+    .limit(1);
+  return row ?? null;
+}
+
+/** One publication as findPublishedPlan answers it, by id (the weekly closure e-mail's, which found it by project). */
+export async function getPublishedPlan({ publicationId }: { publicationId: string }) {
+  const [row] = await publishedPlans().where(eq(closurePublications.id, publicationId));
+  return row ?? null;
+}
+
+/** Publications with their run, the scenario revision that run was computed from, and the project's names. */
+function publishedPlans() {
+  return getDb()
     .select({
       publicationId: closurePublications.id,
       publishedAt: closurePublications.publishedAt,
@@ -38,9 +53,5 @@ export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
     .innerJoin(simulationRuns, eq(simulationRuns.id, closurePublications.runId))
     .innerJoin(scenarios, eq(scenarios.id, closurePublications.scenarioId))
     .innerJoin(projects, eq(projects.id, scenarios.projectId))
-    .innerJoin(scenarioRevisions, and(eq(scenarioRevisions.scenarioId, simulationRuns.scenarioId), eq(scenarioRevisions.version, simulationRuns.scenarioVersion)))
-    .where(and(eq(closurePublications.scenarioId, link.scenarioId), isNull(shareLinks.revokedAt)))
-    .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
-    .limit(1);
-  return row ?? null;
+    .innerJoin(scenarioRevisions, and(eq(scenarioRevisions.scenarioId, simulationRuns.scenarioId), eq(scenarioRevisions.version, simulationRuns.scenarioVersion)));
 }

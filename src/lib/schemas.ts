@@ -115,6 +115,31 @@ export const planOfRecordSchema = z.object({ planScenarioId: z.uuid("must name o
 /** A member's own choice: an e-mail with each new forecast of the project's plan of record, or not. */
 export const forecastAlertsSchema = z.object({ forecastAlerts: z.boolean({ error: "must be true (send them) or false (stop them)" }) }).strict();
 
+/**
+ * The weekly closure e-mail to the project's closure-notice subscribers: the local weekday (0 = Sunday … 6 =
+ * Saturday) and hour after which it goes out, or both null (off).
+ */
+export const closureWeeklySchema = z
+  .object({
+    closureWeeklyDay: z
+      .number({ error: "must be a day of the week from 0 (Sunday) to 6 (Saturday), or empty to turn it off" })
+      .int("must be a day of the week from 0 (Sunday) to 6 (Saturday)")
+      .min(0, "must be a day of the week from 0 (Sunday) to 6 (Saturday)")
+      .max(6, "must be a day of the week from 0 (Sunday) to 6 (Saturday)")
+      .nullable(),
+    closureWeeklyHour: z
+      .number({ error: "must be a whole hour from 0 to 23, or empty to turn it off" })
+      .int("must be a whole hour from 0 to 23")
+      .min(0, "must be a whole hour from 0 to 23")
+      .max(23, "must be a whole hour from 0 to 23")
+      .nullable(),
+  })
+  .strict()
+  .refine((v) => (v.closureWeeklyDay === null) === (v.closureWeeklyHour === null), {
+    path: ["closureWeeklyHour"],
+    message: "must be set when a day is, and empty when the day is (both empty turn the e-mail off)",
+  });
+
 /** The daily re-forecast of the plan of record: the local hour after which it runs each day, or null (off). */
 export const dailyReforecastSchema = z
   .object({

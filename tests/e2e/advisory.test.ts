@@ -10,6 +10,7 @@ import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/br
 import { signedIn } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 import { formatDateTimeIn } from "../../src/lib/format";
+import { todayIn } from "../../src/lib/progress-schema";
 
 const browser = browserPerFile();
 let scenarioId: string;
@@ -76,6 +77,30 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
     expect(await line.textContent()).not.toContain(formatDateTimeIn(publishedAt, "Asia/Tokyo"));
     await page.goto(`${APP_URL}/account`);
     expect(await page.getByTestId("display-time-zone").textContent()).toContain(`${zone} time`);
+    await context.close();
+  });
+
+  it("the weekly e-mail of the week ahead is set on the Share page, and the Members page says who gets it", async () => {
+    const { context, page } = await signedIn(browser(), "admin");
+    await new ScenarioPage(page, scenarioId).open("share");
+    const weekly = page.getByTestId("closure-weekly");
+    await expect.poll(async () => (await page.getByTestId("closure-weekly-state").textContent()) ?? "").toBe("Off.");
+    // A weekday three days from today's where the work is: the app's own pass does not send during the test.
+    const day = (new Date(`${todayIn(process.env.POURLINE_TIME_ZONE!)}T12:00:00Z`).getUTCDay() + 3) % 7;
+    const dayName = ["Sunday", "Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday"][day];
+    await weekly.getByLabel("Send it weekly").check();
+    await weekly.getByLabel("On", { exact: true }).selectOption(String(day));
+    await weekly.getByLabel("After", { exact: true }).selectOption("7");
+    await weekly.getByRole("button", { name: "Save" }).click();
+    await expect.poll(async () => (await page.getByTestId("closure-weekly-state").textContent()) ?? "").toBe(`Weekly on ${dayName} after 07:00.`);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "closure-weekly");
+    const admin = await signInAs("admin");
+    const projectId = (await call(`/api/scenarios/${scenarioId}`, { cookie: admin })).body.scenario.projectId as string;
+    await page.goto(`${APP_URL}/projects/${projectId}/members`);
+    expect(await page.getByTestId("project-mail-closures").textContent()).toContain(`also goes to them weekly, on ${dayName} after 07:00 (the plan's time zone)`);
+    // Off again, through the API the form uses: the demo project sends nothing weekly in other tests.
+    expect((await call(`/api/projects/${projectId}/closure-weekly`, { method: "PUT", cookie: admin, body: { closureWeeklyDay: null, closureWeeklyHour: null } })).status).toBe(200);
     await context.close();
   });
 

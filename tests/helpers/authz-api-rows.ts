@@ -213,6 +213,16 @@ export const API_ROWS: Record<string, ApiRow> = {
     ok: 201,
     request: async (w) => ({ params: proj(w), body: { email: `${uniq("invitee")}@authz.example`, role: "viewer" } }),
   },
+  "GET /api/projects/[projectId]/closure-weekly": { need: { kind: "project", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
+  // Sends the setting the project has: allowed, it changes nothing the other rows read.
+  "PUT /api/projects/[projectId]/closure-weekly": {
+    need: { kind: "project", action: "shareScenario" },
+    ok: 200,
+    request: async (w) => {
+      const [row] = await w.db`SELECT closure_weekly_day, closure_weekly_hour FROM projects WHERE id = ${w.projectId}`;
+      return { params: proj(w), body: { closureWeeklyDay: row.closure_weekly_day, closureWeeklyHour: row.closure_weekly_hour } };
+    },
+  },
   "GET /api/projects/[projectId]/closure-subscribers": { need: { kind: "project", action: "shareScenario" }, ok: 200, request: async (w) => ({ params: proj(w) }) },
   "POST /api/projects/[projectId]/closure-subscribers": {
     need: { kind: "project", action: "shareScenario" },

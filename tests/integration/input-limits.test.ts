@@ -197,7 +197,7 @@ describe("the work budget, before any run", () => {
   });
 });
 
-describe("the small PUT routes (one's account, a project's archive, plan of record, forecast e-mails and the daily re-forecast): the same checks, a smaller limit", () => {
+describe("the small PUT routes (one's account, a project's archive, plan of record, forecast e-mails, the daily re-forecast and the weekly closure e-mail): the same checks, a smaller limit", () => {
   // Each on an account or project of its own, so a body that is valid by mistake changes nothing another test reads.
   let routes: { path: string; cookie: string; valid: Record<string, unknown>; textField: string; limit: string }[];
   beforeAll(async () => {
@@ -210,6 +210,7 @@ describe("the small PUT routes (one's account, a project's archive, plan of reco
       { path: `/api/projects/${own.body.id}/plan-of-record`, cookie: scheduler, valid: { planScenarioId: null }, textField: "planScenarioId", limit: "1 KB" },
       { path: `/api/projects/${own.body.id}/forecast-alerts`, cookie: scheduler, valid: { forecastAlerts: false }, textField: "forecastAlerts", limit: "1 KB" },
       { path: `/api/projects/${own.body.id}/daily-reforecast`, cookie: scheduler, valid: { dailyReforecastHour: null }, textField: "dailyReforecastHour", limit: "1 KB" },
+      { path: `/api/projects/${own.body.id}/closure-weekly`, cookie: scheduler, valid: { closureWeeklyDay: null, closureWeeklyHour: null }, textField: "closureWeeklyDay", limit: "1 KB" },
     ];
   });
 

@@ -1,6 +1,6 @@
 /**
  * "E-mail from this project": who gets which e-mail, in one place for the administrator. Each list is kept where
- * it is set (a member's own tick, a scenario's Week ahead, the Share tab's closure-notice subscribers); this card
+ * it is set (a member's own tick, a scenario's Week ahead, the Share tab's closure-notice subscribers and their weekly e-mail); this card
  * only reads them, so an administrator who removes someone can see what still goes to them.
  */
 import Link from "next/link";
@@ -8,15 +8,18 @@ import type { Project } from "@db/schema";
 import { forecastAlertReaders } from "@db/queries/forecast-alerts";
 import { listProjectLookAheadNotices } from "@db/queries/look-ahead-notices";
 import { listClosureSubscribers } from "@db/queries/closure-notices";
+import { getClosureWeekly } from "@db/queries/closure-weekly";
+import { weeklyWhenText } from "@/lib/closure-weekly";
 import { formatHour, formatIsoDay } from "@/lib/format";
 
 const namesText = (names: string[]) => new Intl.ListFormat("en-US", { type: "conjunction" }).format(names);
 
 export async function ProjectMail({ project }: { project: Pick<Project, "id" | "planScenarioId" | "archivedAt"> }) {
-  const [readers, notices, subscribers] = await Promise.all([
+  const [readers, notices, subscribers, weekly] = await Promise.all([
     forecastAlertReaders({ projectId: project.id }),
     listProjectLookAheadNotices({ projectId: project.id }),
     listClosureSubscribers({ projectId: project.id }),
+    getClosureWeekly({ projectId: project.id }),
   ]);
   const forecastReaders = readers.map((r) => r.name).sort((a, b) => a.localeCompare(b));
   const shareTab = project.planScenarioId ?? notices[0]?.scenarioId ?? null;
@@ -60,10 +63,13 @@ export async function ProjectMail({ project }: { project: Pick<Project, "id" | "
       </div>
       <div>
         <h3 className="text-sm font-semibold">Closure notices, when a plan&apos;s closures are published</h3>
-        <p className="text-sm">
+        <p className="text-sm" data-testid="project-mail-closures">
           {subscribers.length === 0
             ? "Nobody subscribed yet."
             : `To ${subscribers.length} ${subscribers.length === 1 ? "subscriber" : "subscribers"}: ${subscribers.map((s) => (s.label ? `${s.label} (${s.email})` : s.email)).join(", ")}.`}{" "}
+          {weekly?.day != null && weekly.hour != null
+            ? `The week ahead of the closures published last also goes to them weekly, ${weeklyWhenText(weekly.day, weekly.hour)} (the plan's time zone).`
+            : "No weekly e-mail of the week ahead."}{" "}
           {shareTab && (
             <span className="text-muted">
               Kept on a scenario&apos;s{" "}

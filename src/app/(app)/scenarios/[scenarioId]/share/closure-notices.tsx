@@ -10,6 +10,7 @@ import { applyServerErrors } from "@/lib/form-errors";
 import { formatDateTime } from "@/lib/format";
 import { closureSubscriberSchema } from "@/lib/schemas";
 import { publishLabel } from "./publish-label";
+import { ClosureWeeklyForm } from "./closure-weekly-form";
 
 interface Subscriber {
   id: string;
@@ -163,6 +164,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
               )}
             </>
           )}
+          <ClosureWeeklyForm projectId={projectId} archived={archived} />
         </div>
         <div>
           <h3>Publish</h3>
