@@ -51,6 +51,7 @@ export async function findInvitation({ tokenHash }: { tokenHash: string }) {
       id: invitations.id,
       projectId: invitations.projectId,
       projectName: projects.name,
+      projectArchivedAt: projects.archivedAt,
       email: invitations.email,
       role: invitations.role,
       expiresAt: invitations.expiresAt,

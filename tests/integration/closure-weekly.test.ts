@@ -102,6 +102,15 @@ describe("weekly closure e-mail", () => {
     expect(read.body).toMatchObject({ lastOn: BASE, note: sent.note });
   });
 
+  it("an archived project sends nothing", async () => {
+    await db`UPDATE projects SET archived_at = now() WHERE id = ${projectId}`;
+    try {
+      expect(await ours(atLocal(plusDays(BASE, 7), 6))).toEqual([]);
+    } finally {
+      await db`UPDATE projects SET archived_at = NULL WHERE id = ${projectId}`;
+    }
+  });
+
   it("sends nothing once the publication is withdrawn (its link revoked)", async () => {
     const links = await call(`/api/scenarios/${(await db`SELECT scenario_id FROM closure_publications cp JOIN scenarios s ON s.id = cp.scenario_id WHERE s.project_id = ${projectId}`)[0].scenario_id}/share-links`, { cookie: engineer });
     const feed = links.body.links.find((l: { label: string }) => l.label === "Closure calendar feed");

@@ -52,6 +52,12 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
       <p className="mt-2 flex flex-wrap items-center gap-2 text-sm text-muted">
         {invitation.invitedByName} invited you as <RoleBadge role={invitation.role as ProjectRole} />
       </p>
+      {invitation.projectArchivedAt && (
+        <p className="mt-3 rounded-md border border-line bg-paper px-3 py-2 text-sm" data-testid="invite-archived">
+          This project was archived: once you join you can read and export everything in it, but nothing can be changed
+          until an administrator restores it.
+        </p>
+      )}
       {s && !signedInAsInvitee && (
         <p className="mt-3 rounded-md border border-line bg-paper px-3 py-2 text-sm">
           You are signed in as {s.user.email}. This invitation is for {invitation.email}; accepting it signs you in as that account.
