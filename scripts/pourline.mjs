@@ -112,10 +112,10 @@ function demoSignIns() {
   }
 }
 
-/** The local stand-in for a mail service: every message lands as a JSON file in `mailboxDir`. */
 /** Where the demo job is (its scenarios' `timeZone`): `npm start` and `npm test` show moments in it. */
 const DEMO_TIME_ZONE = "America/Chicago";
 
+/** The local stand-in for a mail service: every message lands as a JSON file in `mailboxDir`. */
 async function startFakeSmtp(port, mailboxDir, env) {
   const script = join(root, "scripts", "fake-smtp.ts");
   if (!existsSync(script)) return {};

@@ -1,8 +1,9 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { closurePublications, closureSubscribers, shareLinks, simulationRuns, users } from "../schema";
 import type { Executor } from "./mail";
+import { newestPublicationFirst, publicationStands } from "./published-plans";
 
 export async function listClosureSubscribers({ projectId }: { projectId: string }) {
   return getDb()
@@ -55,13 +56,13 @@ export async function listClosurePublications({ scenarioId }: { scenarioId: stri
     .innerJoin(simulationRuns, eq(simulationRuns.id, closurePublications.runId))
     .innerJoin(shareLinks, eq(shareLinks.id, closurePublications.shareLinkId))
     .where(eq(closurePublications.scenarioId, scenarioId))
-    .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
+    .orderBy(...newestPublicationFirst)
     .limit(10);
 }
 
 /**
- * Each scenario's publication still standing — its newest whose link was not revoked: what every calendar feed and
- * travel advisory of the scenario shows (published-plans.ts). Scenarios never published are absent.
+ * Each scenario's publication still standing (published-plans.ts `publicationStands`, newest first): what every
+ * calendar feed and travel advisory of the scenario shows. Scenarios never published are absent.
  */
 export async function standingPublications({ scenarioIds }: { scenarioIds: string[] }) {
   type Standing = { runId: string; publishedAt: Date; runDataDate: string | null; runAt: Date };
@@ -77,7 +78,7 @@ export async function standingPublications({ scenarioIds }: { scenarioIds: strin
     .from(closurePublications)
     .innerJoin(shareLinks, eq(shareLinks.id, closurePublications.shareLinkId))
     .innerJoin(simulationRuns, eq(simulationRuns.id, closurePublications.runId))
-    .where(and(inArray(closurePublications.scenarioId, scenarioIds), isNull(shareLinks.revokedAt)))
-    .orderBy(closurePublications.scenarioId, desc(closurePublications.publishedAt), desc(closurePublications.id));
+    .where(and(inArray(closurePublications.scenarioId, scenarioIds), publicationStands))
+    .orderBy(closurePublications.scenarioId, ...newestPublicationFirst);
   return new Map<string, Standing>(rows.map(({ scenarioId, ...r }) => [scenarioId, r]));
 }

@@ -7,6 +7,7 @@ import { and, eq, isNotNull, isNull, lt, or, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { closurePublications, projects, scenarioRevisions, scenarios, shareLinks, simulationRuns } from "../schema";
 import type { Executor } from "./mail";
+import { newestPublicationFirst, publicationStands } from "./published-plans";
 
 /** Turns it on (`day` 0–6 from Sunday and `hour` 0–23, local) or off (both null). Null when there is no such project. */
 export async function setClosureWeekly({ projectId, day, hour }: { projectId: string; day: number | null; hour: number | null }) {
@@ -28,7 +29,7 @@ export async function getClosureWeekly({ projectId }: { projectId: string }) {
 }
 
 /**
- * Projects in use with the weekly e-mail on, each with its newest publication still standing (link not revoked) and
+ * Projects in use with the weekly e-mail on, each with its newest publication still standing (`publicationStands`) and
  * that plan's time zone — enough to tell whether its day has come without reading any run. A project with nothing
  * published is listed with nulls: there is nothing to send.
  */
@@ -43,8 +44,8 @@ export async function listClosureWeeklyProjects() {
     .innerJoin(scenarios, eq(scenarios.id, closurePublications.scenarioId))
     .innerJoin(simulationRuns, eq(simulationRuns.id, closurePublications.runId))
     .innerJoin(scenarioRevisions, and(eq(scenarioRevisions.scenarioId, simulationRuns.scenarioId), eq(scenarioRevisions.version, simulationRuns.scenarioVersion)))
-    .where(and(eq(scenarios.projectId, projects.id), isNull(shareLinks.revokedAt)))
-    .orderBy(sql`${closurePublications.publishedAt} desc, ${closurePublications.id} desc`)
+    .where(and(eq(scenarios.projectId, projects.id), publicationStands))
+    .orderBy(...newestPublicationFirst)
     .limit(1)
     .as("standing");
   return getDb()

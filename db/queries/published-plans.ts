@@ -4,6 +4,14 @@ import { getDb } from "../client";
 import { closurePublications, projects, scenarioRevisions, scenarios, shareLinks, simulationRuns } from "../schema";
 
 /**
+ * A closure publication stands while its link is not revoked (revoking it withdraws the publication); of a scenario's
+ * standing publications the newest is what every one of its calendar feeds and travel advisories shows. One rule for
+ * the token's reads below, the Share page and the project page (closure-notices.ts) and the weekly e-mail.
+ */
+export const publicationStands = isNull(shareLinks.revokedAt);
+export const newestPublicationFirst = [desc(closurePublications.publishedAt), desc(closurePublications.id)] as const;
+
+/**
  * The closure plan a publication's token stands for: the scenario's newest publication — so a calendar subscribed
  * to from an earlier notice, and its travel advisory, follow each new publication, as the notice promises — with
  * its run, the scenario version that run was computed from and the structure's name. Only a live link (not
@@ -21,8 +29,8 @@ export async function findPublishedPlan({ tokenHash }: { tokenHash: string }) {
     .limit(1);
   if (!link) return null;
   const [row] = await publishedPlans()
-    .where(and(eq(closurePublications.scenarioId, link.scenarioId), isNull(shareLinks.revokedAt)))
-    .orderBy(desc(closurePublications.publishedAt), desc(closurePublications.id))
+    .where(and(eq(closurePublications.scenarioId, link.scenarioId), publicationStands))
+    .orderBy(...newestPublicationFirst)
     .limit(1);
   return row ?? null;
 }

@@ -5,12 +5,28 @@
  * (which starts in April 2027) could not take any.
  */
 import { readFileSync } from "node:fs";
+import { addDays, format, parseISO } from "date-fns";
+import { localDateHour } from "@/lib/local-clock";
 import { call } from "./app";
 
 export function isoDaysFromToday(n: number, timeZone = "America/Chicago"): string {
   const d = new Date(Date.now() + n * 86_400_000);
   return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(d);
 }
+
+/** The instant that reads `hour`:30 on local day `day` (`YYYY-MM-DD`) in `timeZone`: a chosen clock for a server pass. */
+export function atLocal(day: string, hour: number, timeZone = "America/Chicago"): Date {
+  const guess = Date.UTC(+day.slice(0, 4), +day.slice(5, 7) - 1, +day.slice(8, 10), hour, 30);
+  for (let h = -14; h <= 14; h++) {
+    const d = new Date(guess + h * 3_600_000);
+    const local = localDateHour(d, timeZone);
+    if (local.date === day && local.hour === hour) return d;
+  }
+  throw new Error(`no instant reads ${day} ${hour}:30 in ${timeZone}`);
+}
+
+/** `iso` (`YYYY-MM-DD`) moved by `n` calendar days. */
+export const plusDays = (iso: string, n: number): string => format(addDays(parseISO(iso), n), "yyyy-MM-dd");
 
 export function pastDefinition(name: string): Record<string, any> {
   const def = JSON.parse(readFileSync(new URL("../../scenarios/small-deterministic.json", import.meta.url), "utf8"));

@@ -8,12 +8,10 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type postgres from "postgres";
-import { addDays, format, parseISO } from "date-fns";
 import { call } from "../helpers/app";
 import { appDatabase, freshTeam } from "../helpers/fresh-team";
-import { isoDaysFromToday, pastDefinition } from "../helpers/progress-fixture";
+import { atLocal, isoDaysFromToday, pastDefinition, plusDays } from "../helpers/progress-fixture";
 import { serverRunDone } from "../helpers/jobs";
-import { localDateHour } from "@/lib/local-clock";
 import { formatIsoDate, formatIsoDay } from "@/lib/format";
 import { parseIsoDate, weekdayOfDayNumber } from "@sim/dates";
 import { sendWeeklyClosureEmails } from "@/lib/server/closure-weekly";
@@ -21,23 +19,12 @@ import { sendWeeklyClosureEmails } from "@/lib/server/closure-weekly";
 const TZ = "America/Chicago"; // the fixture plan's time zone
 // The plan starts a month ahead (30 days: not today's weekday), so its first closures fall in the week from BASE.
 const BASE = isoDaysFromToday(30, TZ);
-const plusDays = (iso: string, n: number) => format(addDays(parseISO(iso), n), "yyyy-MM-dd");
 let db: postgres.Sql;
 let projectId: string;
 let engineer: string;
 let viewer: string;
 const subscriber = `weekly-${Date.now()}@marrin-county.example`;
 
-/** The instant that reads `hour`:30 on local day `day` in the plan's time zone. */
-function atLocal(day: string, hour: number): Date {
-  const guess = Date.UTC(+day.slice(0, 4), +day.slice(5, 7) - 1, +day.slice(8, 10), hour, 30);
-  for (let h = -14; h <= 14; h++) {
-    const d = new Date(guess + h * 3_600_000);
-    const local = localDateHour(d, TZ);
-    if (local.date === day && local.hour === hour) return d;
-  }
-  throw new Error(`no instant reads ${day} ${hour}:30 in ${TZ}`);
-}
 const setting = (cookie: string, body: unknown) => call(`/api/projects/${projectId}/closure-weekly`, { method: "PUT", cookie, body });
 const ours = async (now: Date) => (await sendWeeklyClosureEmails(now)).filter((d) => d.projectId === projectId);
 const mailTo = async (email: string) => db`SELECT subject, text_body FROM email_outbox WHERE to_address = ${email} ORDER BY created_at, id`;

@@ -9,12 +9,10 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type postgres from "postgres";
-import { addDays, format, parseISO } from "date-fns";
 import { call } from "../helpers/app";
 import { appDatabase, freshTeam } from "../helpers/fresh-team";
-import { createPastScenario, isoDaysFromToday } from "../helpers/progress-fixture";
+import { atLocal, createPastScenario, isoDaysFromToday, plusDays } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
-import { localDateHour } from "@/lib/local-clock";
 import { runDailyReforecasts } from "@/lib/server/daily-reforecast";
 
 const TZ = "America/Chicago"; // the fixture plan's time zone
@@ -23,17 +21,6 @@ let projectId: string;
 let engineer: { id: string; cookie: string };
 let planId: string;
 
-/** The instant that reads `hour`:30 on local day `day` in the plan's time zone. */
-function atLocal(day: string, hour: number): Date {
-  const guess = Date.UTC(+day.slice(0, 4), +day.slice(5, 7) - 1, +day.slice(8, 10), hour, 30);
-  for (let h = -14; h <= 14; h++) {
-    const d = new Date(guess + h * 3_600_000);
-    const local = localDateHour(d, TZ);
-    if (local.date === day && local.hour === hour) return d;
-  }
-  throw new Error(`no instant reads ${day} ${hour}:30 in ${TZ}`);
-}
-const plusDays = (iso: string, n: number) => format(addDays(parseISO(iso), n), "yyyy-MM-dd");
 const setting = (cookie: string, body: unknown) => call(`/api/projects/${projectId}/daily-reforecast`, { method: "PUT", cookie, body });
 const ours = async (now: Date) => (await runDailyReforecasts(now)).filter((d) => d.projectId === projectId);
 const reforecasts = async () => db`SELECT data_date::text AS data_date, seed, iterations, created_by FROM simulation_runs WHERE scenario_id = ${planId} AND data_date IS NOT NULL ORDER BY created_at`;

@@ -57,17 +57,22 @@ async function sourceOf(run: { id: string; dataDate: string | null; createdAt: D
 /** What the public sees (the publication still standing) came from another forecast than the newest. */
 const lags = (standing: { runId: string }, newestRunId: string) => standing.runId !== newestRunId;
 
+/** `publicationLagText` when the plan's standing publication lags its newest forecast (`newestRunId`); else null. */
+export function publicationLagOf(standing: { runId: string; publishedAt: Date } | undefined, newestRunId: string | null): string | null {
+  return standing && newestRunId && lags(standing, newestRunId) ? publicationLagText(standing.publishedAt) : null;
+}
+
 /**
  * For each plan of record with a publication standing behind its newest forecast, that in words
- * (`publicationLagText`), by scenario id: the project page and the forecast e-mail say it under the forecast. One query.
+ * (`publicationLagText`), by scenario id: the forecast e-mail says it under the forecast. One query.
  */
 export async function publicationLagTexts(plans: ReadonlyArray<{ planScenarioId: string | null; planRunId: string | null }>): Promise<Map<string, string>> {
-  const withRun = plans.filter((p): p is { planScenarioId: string; planRunId: string } => p.planScenarioId !== null && p.planRunId !== null);
-  const standing = await standingPublications({ scenarioIds: withRun.map((p) => p.planScenarioId) });
+  const ids = plans.flatMap((p) => (p.planScenarioId ? [p.planScenarioId] : []));
+  const standing = await standingPublications({ scenarioIds: ids });
   const out = new Map<string, string>();
-  for (const p of withRun) {
-    const s = standing.get(p.planScenarioId);
-    if (s && lags(s, p.planRunId)) out.set(p.planScenarioId, publicationLagText(s.publishedAt));
+  for (const p of plans) {
+    const text = p.planScenarioId && publicationLagOf(standing.get(p.planScenarioId), p.planRunId);
+    if (text) out.set(p.planScenarioId!, text);
   }
   return out;
 }
