@@ -115,6 +115,15 @@ export const planOfRecordSchema = z.object({ planScenarioId: z.uuid("must name o
 /** A member's own choice: an e-mail with each new forecast of the project's plan of record, or not. */
 export const forecastAlertsSchema = z.object({ forecastAlerts: z.boolean({ error: "must be true (send them) or false (stop them)" }) }).strict();
 
+/** A local whole hour 0–23 after which something runs each day or week, or null (off). */
+const hourOrOff = () =>
+  z
+    .number({ error: "must be a whole hour from 0 to 23, or empty to turn it off" })
+    .int("must be a whole hour from 0 to 23")
+    .min(0, "must be a whole hour from 0 to 23")
+    .max(23, "must be a whole hour from 0 to 23")
+    .nullable();
+
 /**
  * The weekly closure e-mail to the project's closure-notice subscribers: the local weekday (0 = Sunday … 6 =
  * Saturday) and hour after which it goes out, or both null (off).
@@ -127,12 +136,7 @@ export const closureWeeklySchema = z
       .min(0, "must be a day of the week from 0 (Sunday) to 6 (Saturday)")
       .max(6, "must be a day of the week from 0 (Sunday) to 6 (Saturday)")
       .nullable(),
-    closureWeeklyHour: z
-      .number({ error: "must be a whole hour from 0 to 23, or empty to turn it off" })
-      .int("must be a whole hour from 0 to 23")
-      .min(0, "must be a whole hour from 0 to 23")
-      .max(23, "must be a whole hour from 0 to 23")
-      .nullable(),
+    closureWeeklyHour: hourOrOff(),
   })
   .strict()
   .refine((v) => (v.closureWeeklyDay === null) === (v.closureWeeklyHour === null), {
@@ -143,12 +147,7 @@ export const closureWeeklySchema = z
 /** The daily re-forecast of the plan of record: the local hour after which it runs each day, or null (off). */
 export const dailyReforecastSchema = z
   .object({
-    dailyReforecastHour: z
-      .number({ error: "must be a whole hour from 0 to 23, or empty to turn it off" })
-      .int("must be a whole hour from 0 to 23")
-      .min(0, "must be a whole hour from 0 to 23")
-      .max(23, "must be a whole hour from 0 to 23")
-      .nullable(),
+    dailyReforecastHour: hourOrOff(),
   })
   .strict();
 
