@@ -73,8 +73,8 @@ function clockIn(timeZone: string): Intl.DateTimeFormat {
 }
 
 /**
- * A moment as the clock reads where the work is — "4 Dec 2026, 19:40" in `timeZone` — for the public pages, whose
- * times are all local to the work, whatever zone the server runs in (formatDateTime uses the process's own).
+ * A moment as the clock reads in `timeZone` — "4 Dec 2026, 19:40": formatDateTime's, in the display zone, and the
+ * public pages', whose times are all local to the work (the plan's own zone).
  */
 export function formatDateTimeIn(d: Date | string, timeZone: string): string {
   const date = typeof d === "string" ? new Date(d) : d;

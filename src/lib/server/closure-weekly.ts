@@ -33,12 +33,13 @@ export async function sendWeeklyClosureEmails(now = new Date()): Promise<{ proje
     const parsed = plan && parseScenario(plan.definition);
     if (!plan || !parsed?.ok) continue; // withdrawn meanwhile, or a plan this version cannot read: nothing to say
     const days = daysOfWeek(buildAdvisory(parsed.scenario, plan.results as unknown as RunSummary, day, WEEK_DAYS) ?? [], day);
-    const subscribers = days.some((d) => d.closures.length > 0) ? await listClosureSubscribers({ projectId: p.projectId }) : [];
+    const anyClosure = days.some((d) => d.closures.length > 0);
+    const subscribers = anyClosure ? await listClosureSubscribers({ projectId: p.projectId }) : [];
     const week = weekSummary(days, day);
     const note =
       subscribers.length > 0
         ? `On ${formatIsoDate(day)}: sent to ${subscribers.length} subscriber${subscribers.length === 1 ? "" : "s"} — ${week}.`
-        : days.some((d) => d.closures.length > 0)
+        : anyClosure
           ? `On ${formatIsoDate(day)}: nobody is on the list, so nothing was sent (${week}).`
           : `On ${formatIsoDate(day)}: nothing sent — ${week}.`;
     await inTransaction(async (tx) => {
