@@ -52,21 +52,29 @@ const mutation: fc.Arbitrary<Mutation> = fc.oneof(
   { weight: 2, arbitrary: fc.record({ op: fc.constant("add" as const), at: fc.nat(), key: unknownKey, value: hostileValue }) },
 );
 
+/**
+ * A fresh copy of a hostile value: fast-check hands out one shared object per constant ({} and [] above), and a
+ * later mutation adding a key to it would otherwise change every draw after (or make it its own "__proto__").
+ * JSON.parse defines "__proto__" as an own key, as a request body's parser does.
+ */
+const copyOf = (v: Json): Json => (v === null || typeof v !== "object" ? v : JSON.parse(JSON.stringify(v)));
+
 function applyMutation(root: Record<string, Json>, m: Mutation, paths: Path[]): void {
+  const value = "value" in m ? copyOf(m.value) : undefined;
   const path = paths[m.at % paths.length];
   const parentPath = m.op === "add" ? path : path.slice(0, -1);
   let parent: any = root;
   for (const k of parentPath) parent = parent?.[k];
   if (parent === null || typeof parent !== "object") parent = root;
   if (m.op === "add") {
-    if (!Array.isArray(parent)) Object.defineProperty(parent, m.key, { value: m.value, enumerable: true, writable: true, configurable: true });
-    else parent.push(m.value);
+    if (!Array.isArray(parent)) Object.defineProperty(parent, m.key, { value, enumerable: true, writable: true, configurable: true });
+    else parent.push(value);
   } else if (m.op === "drop") {
     const key = path.at(-1)!;
     if (Array.isArray(parent)) parent.splice(Number(key), 1);
     else delete parent[key];
   } else {
-    parent[path.at(-1)!] = m.value;
+    parent[path.at(-1)!] = value;
   }
 }
 
