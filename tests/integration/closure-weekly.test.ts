@@ -34,13 +34,18 @@ beforeAll(async () => {
   const team = await freshTeam(db, ["engineer", "viewer"]);
   projectId = team.projectId;
   [engineer, viewer] = await Promise.all(team.members.map((m) => m.cookie()));
-  const definition = { ...pastDefinition("Weekly closures plan"), startDate: BASE };
-  const created = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie: engineer, body: { name: "Weekly closures plan", definition } });
-  expect(created.status).toBe(201);
-  expect((await serverRunDone(created.body.id, engineer, { seed: "weekly", iterations: 20 })).status).toBe("completed");
-  expect((await call(`/api/projects/${projectId}/closure-subscribers`, { method: "POST", cookie: engineer, body: { email: subscriber, label: "County PIO" } })).status).toBe(201);
-  expect((await call(`/api/scenarios/${created.body.id}/closure-publications`, { method: "POST", cookie: engineer })).status).toBe(201);
+  await publishWeeklyPlan(projectId, engineer, subscriber);
 }, 120_000);
+
+/** A plan starting at BASE, run, with one closure-notice subscriber, published. */
+async function publishWeeklyPlan(project: string, cookie: string, email: string) {
+  const definition = { ...pastDefinition("Weekly closures plan"), startDate: BASE };
+  const created = await call(`/api/projects/${project}/scenarios`, { method: "POST", cookie, body: { name: "Weekly closures plan", definition } });
+  expect(created.status).toBe(201);
+  expect((await serverRunDone(created.body.id, cookie, { seed: "weekly", iterations: 20 })).status).toBe("completed");
+  expect((await call(`/api/projects/${project}/closure-subscribers`, { method: "POST", cookie, body: { email, label: "County PIO" } })).status).toBe(201);
+  expect((await call(`/api/scenarios/${created.body.id}/closure-publications`, { method: "POST", cookie })).status).toBe(201);
+}
 
 afterAll(async () => {
   await db?.end({ timeout: 5 });
@@ -98,12 +103,43 @@ describe("weekly closure e-mail", () => {
     }
   });
 
+  it("one project whose week cannot be claimed does not keep another's e-mail back, whichever is looked at first", async () => {
+    const other = await freshTeam(db, ["engineer"]);
+    const otherEngineer = await other.members[0].cookie();
+    const otherSubscriber = `weekly-other-${Date.now()}@marrin-county.example`;
+    await publishWeeklyPlan(other.projectId, otherEngineer, otherSubscriber);
+    const weekday = weekdayOfDayNumber(parseIsoDate(BASE));
+    expect((await call(`/api/projects/${other.projectId}/closure-weekly`, { method: "PUT", cookie: otherEngineer, body: { closureWeeklyDay: weekday, closureWeeklyHour: 6 } })).status).toBe(200);
+    // The database refuses every change to one project (as a failing disk or a lock timeout would): its claim throws.
+    const refuse = (id: string) =>
+      db.unsafe(`
+        CREATE OR REPLACE FUNCTION pourline_test_refuse_project() RETURNS trigger AS $$
+        BEGIN
+          IF NEW.id = '${id}' THEN RAISE EXCEPTION 'test: project update refused'; END IF;
+          RETURN NEW;
+        END $$ LANGUAGE plpgsql;
+        DROP TRIGGER IF EXISTS pourline_test_refuse_project ON projects;
+        CREATE TRIGGER pourline_test_refuse_project BEFORE UPDATE ON projects FOR EACH ROW EXECUTE FUNCTION pourline_test_refuse_project();`);
+    const both = async (now: Date) => (await sendWeeklyClosureEmails(now)).filter((d) => d.projectId === projectId || d.projectId === other.projectId).map((d) => d.projectId);
+    try {
+      // Each of the two refused in turn (a week apart): one of the two weeks has the refused project looked at first.
+      await refuse(projectId);
+      expect(await both(atLocal(plusDays(BASE, 14), 6))).toEqual([other.projectId]);
+      await refuse(other.projectId);
+      expect(await both(atLocal(plusDays(BASE, 21), 6))).toEqual([projectId]);
+    } finally {
+      await db.unsafe(`DROP TRIGGER IF EXISTS pourline_test_refuse_project ON projects; DROP FUNCTION IF EXISTS pourline_test_refuse_project();`);
+    }
+    // The refused weeks were not marked sent: the next pass sends each.
+    expect(await both(atLocal(plusDays(BASE, 21), 7))).toEqual([other.projectId]);
+  });
+
   it("sends nothing once the publication is withdrawn (its link revoked)", async () => {
     const links = await call(`/api/scenarios/${(await db`SELECT scenario_id FROM closure_publications cp JOIN scenarios s ON s.id = cp.scenario_id WHERE s.project_id = ${projectId}`)[0].scenario_id}/share-links`, { cookie: engineer });
     const feed = links.body.links.find((l: { label: string }) => l.label === "Closure calendar feed");
     expect((await call(`/api/share-links/${feed.id}`, { method: "DELETE", cookie: engineer })).status).toBe(200);
     const count = (await mailTo(subscriber)).length;
-    expect(await ours(atLocal(plusDays(BASE, 7), 6))).toEqual([]);
+    expect(await ours(atLocal(plusDays(BASE, 28), 6))).toEqual([]);
     expect(await mailTo(subscriber)).toHaveLength(count);
   });
 });

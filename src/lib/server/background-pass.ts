@@ -1,9 +1,10 @@
 import "server-only";
 /**
  * The loop every background pass of the web server runs in (the outbox, the look-ahead notices, the forecast
- * e-mails): one pass every `everyMs`, never two at once, an error logged once per distinct message (the database
- * may be away for a while) and the loop kept alive; one loop per name per process even if register() runs twice,
- * and never the reason a process stays alive.
+ * e-mails, the daily re-forecast, the weekly closure e-mail): one pass every `everyMs`, never two at once, an error
+ * logged once per distinct message (the database may be away for a while) and the loop kept alive; one loop per name
+ * per process even if register() runs twice, and never the reason a process stays alive. Within a pass, each project
+ * is worked on its own (`eachItemOnItsOwn`).
  */
 import { describeError } from "./log";
 
@@ -29,4 +30,30 @@ export function startBackgroundPass(name: string, everyMs: number, pass: () => P
   }, everyMs);
   timer.unref?.();
   timers.set(name, timer);
+}
+
+/** The last error logged per pass and item, so an item that keeps failing the same way is reported once. */
+const itemErrors = new Map<string, string>();
+
+/**
+ * A pass's work, item by item (a project, a scenario): an item that throws is logged — by the pass's name, the
+ * item's key and describeError, never the message, which may quote data — once while it keeps failing the same way,
+ * and the pass goes on to the next item. One project that cannot be read or written must not stop every other
+ * project's e-mail or re-forecast. Returns how many items failed (the tests read it).
+ */
+export async function eachItemOnItsOwn<T>(pass: string, items: Iterable<T>, keyOf: (item: T) => string, step: (item: T) => Promise<void>): Promise<number> {
+  let failed = 0;
+  for (const item of items) {
+    const key = `${pass}\u0000${keyOf(item)}`;
+    try {
+      await step(item);
+      itemErrors.delete(key);
+    } catch (e) {
+      failed++;
+      const msg = describeError(e);
+      if (itemErrors.get(key) !== msg) console.error(`[pourline] ${pass} for ${keyOf(item)} failed: ${msg}`);
+      itemErrors.set(key, msg);
+    }
+  }
+  return failed;
 }

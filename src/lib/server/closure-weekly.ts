@@ -16,22 +16,22 @@ import { parseScenario } from "@sim/validate";
 import { buildAdvisory } from "@/lib/advisory";
 import { daysOfWeek, weekSummary, weeklyDueDay, WEEK_DAYS } from "@/lib/closure-weekly";
 import { formatIsoDate } from "@/lib/format";
-import { startBackgroundPass } from "./background-pass";
+import { eachItemOnItsOwn, startBackgroundPass } from "./background-pass";
 import { closureWeeklyMail } from "./mail/closure-weekly-mail";
 import { enqueueMail } from "./mail/outbox";
 
 /** One pass: each project whose week was looked at, with the day's note (the tests read it; the Share page reads the note). */
 export async function sendWeeklyClosureEmails(now = new Date()): Promise<{ projectId: string; note: string; sent: number }[]> {
   const done: { projectId: string; note: string; sent: number }[] = [];
-  for (const p of await listClosureWeeklyProjects()) {
+  await eachItemOnItsOwn("weekly closure e-mail", await listClosureWeeklyProjects(), (p) => p.projectId, async (p) => {
     // Nothing published, or not its day yet: most passes end here, without reading a run.
-    if (!p.publicationId || p.day === null || p.hour === null) continue;
+    if (!p.publicationId || p.day === null || p.hour === null) return;
     const timeZone = p.timeZone ?? "UTC";
     const day = weeklyDueDay({ now, timeZone, weekday: p.day, hour: p.hour, lastOn: p.lastOn });
-    if (day === null) continue;
+    if (day === null) return;
     const plan = await getPublishedPlan({ publicationId: p.publicationId });
     const parsed = plan && parseScenario(plan.definition);
-    if (!plan || !parsed?.ok) continue; // withdrawn meanwhile, or a plan this version cannot read: nothing to say
+    if (!plan || !parsed?.ok) return; // withdrawn meanwhile, or a plan this version cannot read: nothing to say
     const days = daysOfWeek(buildAdvisory(parsed.scenario, plan.results as unknown as RunSummary, day, WEEK_DAYS) ?? [], day);
     const anyClosure = days.some((d) => d.closures.length > 0);
     const subscribers = anyClosure ? await listClosureSubscribers({ projectId: p.projectId }) : [];
@@ -49,7 +49,7 @@ export async function sendWeeklyClosureEmails(now = new Date()): Promise<{ proje
       }
       done.push({ projectId: p.projectId, note, sent: subscribers.length });
     });
-  }
+  });
   return done;
 }
 

@@ -15,7 +15,7 @@ import { getScenario } from "@db/queries/scenarios";
 import { dailyDecision, dayToConsider } from "@/lib/daily-reforecast";
 import { formatIsoDate } from "@/lib/format";
 import { can, type ProjectRole } from "@/lib/permissions";
-import { startBackgroundPass } from "./background-pass";
+import { eachItemOnItsOwn, startBackgroundPass } from "./background-pass";
 import { AppError } from "./errors";
 import { queueReforecast } from "./progress";
 import { validateDefinition } from "./scenario-input";
@@ -23,17 +23,17 @@ import { validateDefinition } from "./scenario-input";
 /** One pass: the projects looked at for their day, with what was decided (the tests read it; the page reads the note). */
 export async function runDailyReforecasts(now = new Date()): Promise<{ projectId: string; note: string; jobId?: string }[]> {
   const done: { projectId: string; note: string; jobId?: string }[] = [];
-  for (const p of await listDailyReforecastPlans()) {
+  await eachItemOnItsOwn("daily re-forecast", await listDailyReforecastPlans(), (p) => p.projectId, async (p) => {
     // Most passes end here: the day was looked at already, or its hour has not come (no further query).
     const day = p.hour === null ? null : dayToConsider({ now, timeZone: p.timeZone ?? "UTC", hour: p.hour, lastOn: p.lastOn });
-    if (day === null || !(await claimDailyReforecastDay({ projectId: p.projectId, day }))) continue;
+    if (day === null || !(await claimDailyReforecastDay({ projectId: p.projectId, day }))) return;
     const scenario = await getScenario({ id: p.scenarioId });
-    if (!scenario) continue; // deleted since the list was read
+    if (!scenario) return; // deleted since the list was read
     let plan;
     try {
       plan = validateDefinition(scenario.definition);
     } catch {
-      continue; // a stored plan always parses; an unreadable one is not this pass's to report
+      return; // a stored plan always parses; an unreadable one is not this pass's to report
     }
     const said = (text: string, jobId?: string) => {
       const note = `On ${formatIsoDate(day)}: ${text}`;
@@ -42,7 +42,7 @@ export async function runDailyReforecasts(now = new Date()): Promise<{ projectId
     };
     if (!p.userId || !can(p.role as ProjectRole | null, "runScenario")) {
       await said("no re-forecast — the person who set it up may no longer run this project's plans; set it up again.");
-      continue;
+      return;
     }
     const decision = dailyDecision({
       day,
@@ -53,7 +53,7 @@ export async function runDailyReforecasts(now = new Date()): Promise<{ projectId
     });
     if (!decision.due) {
       await said(`no re-forecast needed — ${decision.why}.`);
-      continue;
+      return;
     }
     // The newest re-forecast's iterations, as many as still fit the server's work budget (the plan may have grown
     // since); a plan too large for even the fewest is refused in words below.
@@ -65,13 +65,14 @@ export async function runDailyReforecasts(now = new Date()): Promise<{ projectId
       if (e instanceof AppError) {
         // Refused in words (a data date the plan no longer allows): it would be refused again today.
         await said(`the re-forecast was refused — ${e.message.replace(/\.$/, "")}.`);
-        continue;
+        return;
       }
-      // The queue or the database did not answer: hand the day back so the next pass tries again (the loop logs it).
+      // The queue or the database did not answer: hand the day back so the next pass tries again (logged by
+      // eachItemOnItsOwn, and the other projects go on).
       await releaseDailyReforecastDay({ projectId: p.projectId, day, previous: p.lastOn });
       throw e;
     }
-  }
+  });
   return done;
 }
 

@@ -11,7 +11,7 @@ import { forecastAlertReaders } from "@db/queries/forecast-alerts";
 import { inTransaction } from "@db/queries/mail";
 import { forecastAlertMail } from "./mail/forecast-alert-mail";
 import { enqueueMail } from "./mail/outbox";
-import { startBackgroundPass } from "./background-pass";
+import { eachItemOnItsOwn, startBackgroundPass } from "./background-pass";
 import { planProgressAndAgainst } from "./plan-progress";
 import { publicationLagTexts } from "./closure-notices";
 
@@ -23,7 +23,8 @@ export async function sendForecastAlerts(): Promise<number> {
   const forecasts = await listUnannouncedPlanForecasts();
   // Read before the transactions: a sentence a second old is as true as one read inside them.
   const [texts, lagging] = await Promise.all([planProgressAndAgainst(forecasts.map((p) => p.planScenarioId)), publicationLagTexts(forecasts)]); // no ids: no query
-  for (const p of forecasts) {
+  // Each project on its own: one whose e-mail cannot be queued must not keep every other project's news back.
+  await eachItemOnItsOwn("forecast e-mail", forecasts, (p) => p.projectId, async (p) => {
     await inTransaction(async (tx) => {
       if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return;
       announced++;
@@ -33,7 +34,7 @@ export async function sendForecastAlerts(): Promise<number> {
         if (mail) await enqueueMail(tx, mail);
       }
     });
-  }
+  });
   return announced;
 }
 

@@ -13,34 +13,24 @@ import { scenarioLookAhead } from "./look-ahead";
 import { localDate, localHour } from "@/lib/local-clock";
 import { lookAheadMail } from "./mail/look-ahead-mail";
 import { enqueueMail } from "./mail/outbox";
-import { startBackgroundPass } from "./background-pass";
-
-/** The last error logged per scenario: a notice that keeps failing is reported once, not every pass. */
-const lastErrors = new Map<string, string>();
+import { eachItemOnItsOwn, startBackgroundPass } from "./background-pass";
 
 export async function sendDueLookAheadNotices(now = new Date()): Promise<number> {
   let sent = 0;
-  for (const n of await listEnabledNotices()) {
+  // One scenario that cannot be read (say, a definition an older version saved) must not stop the others.
+  await eachItemOnItsOwn("look-ahead notice", await listEnabledNotices(), (n) => n.scenarioId, async (n) => {
     const tz = typeof (n.definition as { timeZone?: unknown }).timeZone === "string" ? ((n.definition as { timeZone: string }).timeZone) : "America/Chicago";
     const today = localDate(now, tz);
-    if (localHour(now, tz) < n.hour || (n.lastSentOn !== null && n.lastSentOn >= today)) continue;
-    try {
-      const board = await scenarioLookAhead({ projectId: n.projectId, definition: n.definition }, now);
-      const link = `${(process.env.APP_BASE_URL || "http://localhost:3000").replace(/\/+$/, "")}/scenarios/${n.scenarioId}/look-ahead`;
-      const compact = compactBoard(board.days);
-      await inTransaction(async (tx) => {
-        if (!(await claimNoticeDay({ tx, scenarioId: n.scenarioId, date: today, board: compact }))) return;
-        for (const to of n.recipients) await enqueueMail(tx, lookAheadMail({ to, scenarioName: n.name, board, previous: (n.lastBoard as CompactBoard | null) ?? null, link }));
-        sent++;
-      });
-      lastErrors.delete(n.scenarioId);
-    } catch (e) {
-      // One scenario that cannot be read (say, a definition an older version saved) must not stop the others.
-      const msg = e instanceof Error ? e.message : String(e);
-      if (lastErrors.get(n.scenarioId) !== msg) console.error(`[pourline] look-ahead notice for ${n.scenarioId} failed: ${msg}`);
-      lastErrors.set(n.scenarioId, msg);
-    }
-  }
+    if (localHour(now, tz) < n.hour || (n.lastSentOn !== null && n.lastSentOn >= today)) return;
+    const board = await scenarioLookAhead({ projectId: n.projectId, definition: n.definition }, now);
+    const link = `${(process.env.APP_BASE_URL || "http://localhost:3000").replace(/\/+$/, "")}/scenarios/${n.scenarioId}/look-ahead`;
+    const compact = compactBoard(board.days);
+    await inTransaction(async (tx) => {
+      if (!(await claimNoticeDay({ tx, scenarioId: n.scenarioId, date: today, board: compact }))) return;
+      for (const to of n.recipients) await enqueueMail(tx, lookAheadMail({ to, scenarioName: n.name, board, previous: (n.lastBoard as CompactBoard | null) ?? null, link }));
+      sent++;
+    });
+  });
   return sent;
 }
 
