@@ -16,10 +16,11 @@ function againstCell(a: AgainstPlan | undefined, toDate: string, doneFt: number)
  */
 export function ProgressToDate({ rows, document = false, against }: { rows: OperationProgress[]; document?: boolean; against?: { byOperation: Map<string, AgainstPlan>; toDate: string; note: string } }) {
   const staged = rows.some((r) => r.stages.length > 1);
-  // On a screen "Against the plan" is a column (the table scrolls in its box); on the narrower paper of a document
-  // it is a line under its operation's row, across the table.
+  // On a screen "Against the plan" is a column (the table scrolls in its box); on the narrower paper of a document,
+  // and on a phone, where a wrapped column made every row a dozen lines tall off-screen, it is a line under its
+  // operation's row (on a phone it stays in view while the table scrolls sideways).
   const column = against && !document;
-  const line = against && document;
+  const line = against;
   const columns = document ? 6 : 7;
   return (
     <div className="scroll-x">
@@ -34,14 +35,14 @@ export function ProgressToDate({ rows, document = false, against }: { rows: Oper
             <th scope="col" className="py-2 pr-6 text-right">Hours lost</th>
             {!document && <th scope="col" className="py-2 pr-3">First shift</th>}
             <th scope="col" className={column ? "py-2 pr-3" : "py-2"}>Last shift</th>
-            {column && <th scope="col" className="py-2">Against the plan</th>}
+            {column && <th scope="col" className="hidden py-2 md:table-cell">Against the plan</th>}
           </tr>
         </thead>
         <tbody>
           {rows.map((r) => {
             const share = shareText(r.doneFt, r.totalFt);
             return [
-              <tr key={r.id} className={`align-top ${line ? "" : "border-b border-line/60"}`} data-testid="progress-to-date-row">
+              <tr key={r.id} className={`align-top ${document && line ? "" : column ? "border-b border-line/60 max-md:border-b-0" : "border-b border-line/60"}`} data-testid="progress-to-date-row">
                 <th scope="row" className="py-2 pr-3 text-left font-normal">{r.name}</th>
                 <td className="py-2 pr-3">
                   <div className="whitespace-nowrap">
@@ -67,12 +68,14 @@ export function ProgressToDate({ rows, document = false, against }: { rows: Oper
                 <td className="py-2 pr-6 text-right">{r.lostHours > 0 ? r.lostHours.toLocaleString("en-US", { maximumFractionDigits: 1 }) : "—"}</td>
                 {!document && <td className="py-2 pr-3 whitespace-nowrap">{r.firstDate ? formatIsoDate(r.firstDate) : "—"}</td>}
                 <td className={`py-2 whitespace-nowrap ${column ? "pr-3" : ""}`}>{r.lastDate ? formatIsoDate(r.lastDate) : "—"}</td>
-                {column && <td className="py-2 min-w-40">{againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}</td>}
+                {column && <td className="hidden py-2 min-w-40 md:table-cell">{againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}</td>}
               </tr>,
               line && (
-                <tr key={`${r.id}-against`} className="border-b border-line/60" data-testid="progress-to-date-against">
+                <tr key={`${r.id}-against`} className={`border-b border-line/60 ${column ? "md:hidden" : ""}`} data-testid="progress-to-date-against">
                   <td colSpan={columns} className="pb-2 pl-3 text-xs">
-                    Against the plan: {againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}
+                    <div className={column ? "sticky left-0 max-w-[calc(100vw-5rem)]" : ""}>
+                      Against the plan: {againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}
+                    </div>
                   </td>
                 </tr>
               ),

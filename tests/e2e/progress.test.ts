@@ -77,6 +77,16 @@ describe("field log", () => {
       expect.stringMatching(new RegExp(`^Overlay placement400 ft of 1,000 ft40 %1—\\d+ \\w+ \\d{4}\\d+ \\w+ \\d{4}${against}$`)),
     ]);
     expect(await inspector.getByTestId("progress-to-date").locator("xpath=..").textContent()).toContain(`Against the plan: how far the plan run of`);
+    // On a phone the standing is a line under each operation, in view, not a column off to the right of the screen.
+    expect(await inspector.getByTestId("progress-to-date-against").first().isVisible()).toBe(false);
+    await inspector.setViewportSize({ width: 390, height: 844 });
+    const line = inspector.getByTestId("progress-to-date-against").first();
+    await line.waitFor();
+    expect(await line.textContent()).toMatch(new RegExp(`^Against the plan: ${against}$`));
+    expect(await inspector.getByRole("columnheader", { name: "Against the plan" }).isVisible()).toBe(false);
+    const box = (await line.locator("div").boundingBox())!;
+    expect(box.x + box.width).toBeLessThanOrEqual(390);
+    await inspector.setViewportSize({ width: 1280, height: 900 });
     expect(await inspector.getByTestId("field-log-csv").getAttribute("href")).toBe(`/api/scenarios/${scenarioId}/exports/field-log.csv`);
     // A day's report, from the date in the log: that day's shifts in sum, printable, with the days either side.
     await inspector.getByTestId("progress-row").first().getByRole("link", { name: formatIsoDate(day(2)) }).click();
@@ -122,7 +132,12 @@ describe("field log", () => {
     const drift = engineer.getByTestId("drift-chart");
     await drift.waitFor({ timeout: 15_000 });
     await expect.poll(() => drift.locator("tbody tr").count(), { timeout: 15_000 }).toBe(2);
-    expect(await drift.locator("tbody tr").first().locator("th").textContent()).toBe("Plan");
+    // Each forecast says when it was run, and a re-forecast by whom (two of one data date are told apart so).
+    const when = "\\d{1,2} \\w{3} \\d{4}, \\d\\d:\\d\\d";
+    expect(await drift.locator("tbody tr th").allTextContents()).toEqual([
+      expect.stringMatching(new RegExp(`^Planrun ${when}$`)),
+      expect.stringMatching(new RegExp(`^${formatIsoDate(day(2))}run ${when} by Dana Whitcomb$`)),
+    ]);
     await engineer.getByTestId("reforecast-digest").waitFor();
     // Nothing inspected yet (no shift of the operation that finds deterioration): the plan's rate stands, said so.
     expect(await engineer.getByTestId("reforecast-digest").textContent()).toMatch(/: 3 shifts used; no packet inspected yet, so the plan's mean discovery probability \(\d+\.\d %\) stands\.$/);

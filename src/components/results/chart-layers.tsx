@@ -91,6 +91,8 @@ export interface LayerBand {
   fill: string;
   fillOpacity: number;
   label?: string;
+  /** How far below the plot's top the label's baseline sits (16 px): lower where another label shares the top. */
+  labelY?: number;
 }
 
 /** Shaded spans of the x axis over the plot's full height, with an optional label at the top. */
@@ -111,7 +113,7 @@ export function BandsLayer({ bands }: { bands: readonly LayerBand[] }) {
           <g key={i}>
             <rect x={x1} y={area.y} width={x2 - x1} height={area.height} fill={b.fill} fillOpacity={b.fillOpacity} />
             {b.label && (
-              <text x={(x1 + x2) / 2} y={area.y + 16} textAnchor="middle" fontSize={12} fill="var(--color-brand-800)">
+              <text x={(x1 + x2) / 2} y={area.y + (b.labelY ?? 16)} textAnchor="middle" fontSize={12} fill="var(--color-brand-800)">
                 {b.label}
               </text>
             )}

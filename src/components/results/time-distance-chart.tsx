@@ -104,6 +104,8 @@ export function TimeDistanceChart({
     fill: b.kind === "winter" ? "var(--color-brand-100)" : "var(--color-muted)",
     fillOpacity: b.kind === "winter" ? 0.7 : 0.16,
     label: b.kind === "winter" && b.x2 - b.x1 > (hi - lo) / 12 ? "Winter" : undefined,
+    // Below the data date's label, which sits at the top beside its line — on a phone the two ran into each other.
+    ...(dataDay !== undefined ? { labelY: 34 } : {}),
   }));
   // Recorded progress under the plan's lines: thick and pale, in the operation's colour.
   const lineLayer: LayerSeries[] = [

@@ -20,6 +20,8 @@ export interface LookAheadBoard {
   rainRule: string;
   forecast: {
     status: ForecastStatus;
+    /** Whose forecast, in words, for "Forecast … from <source>". */
+    source: string;
     message: string | null;
     fetchedAt: string | null;
     ageMinutes: number | null;
@@ -33,6 +35,14 @@ export interface LookAheadBoard {
   days: LookAheadDay[];
   /** When every cell of the week is closed (winter, a plan not started yet): the plan's next open time, else null. */
   nextOpen: NextOpenTime | null;
+}
+
+/**
+ * The forecast's source as the board names it. `npm start` and the tests run a local stand-in with invented weeks
+ * (FORECAST_FAKE=1): a board that said "the National Weather Service" then would pass invented weather off as real.
+ */
+export function forecastSourceName(env: Record<string, string | undefined> = process.env): string {
+  return env.FORECAST_FAKE === "1" ? "the local stand-in weather service (invented weather for the demo, not a real forecast)" : "the National Weather Service";
 }
 
 export async function scenarioLookAhead(scenario: { projectId: string; definition: unknown }, now = new Date()): Promise<LookAheadBoard> {
@@ -49,6 +59,7 @@ export async function scenarioLookAhead(scenario: { projectId: string; definitio
     rainRule: RAIN_RULE,
     forecast: {
       status: state.status,
+      source: forecastSourceName(),
       message: state.message,
       fetchedAt: state.fetchedAt?.toISOString() ?? null,
       ageMinutes: state.ageMinutes === null ? null : Math.round(state.ageMinutes),

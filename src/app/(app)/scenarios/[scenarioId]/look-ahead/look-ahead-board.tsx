@@ -12,7 +12,7 @@ interface Board {
   today: string;
   timeZone: string;
   rainRule: string;
-  forecast: { status: "fresh" | "stale" | "none" | "noLocation"; message: string | null; ageMinutes: number | null; place: string | null; office: string | null; firstHour: string | null; lastHour: string | null };
+  forecast: { status: "fresh" | "stale" | "none" | "noLocation"; source: string; message: string | null; ageMinutes: number | null; place: string | null; office: string | null; firstHour: string | null; lastHour: string | null };
   days: LookAheadDay[];
   nextOpen: NextOpenTime | null;
 }
@@ -60,7 +60,7 @@ export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: s
         </p>
         {f.status === "fresh" && (
           <p className="mt-1 text-sm text-muted" data-testid="forecast-source">
-            Forecast{f.place ? ` for ${f.place}` : ""} from the National Weather Service, fetched {age(f.ageMinutes)}; hours {f.firstHour && formatIsoClock(f.firstHour)} to {f.lastHour && formatIsoClock(f.lastHour)} ({b.timeZone}).
+            Forecast{f.place ? ` for ${f.place}` : ""} from {f.source}, fetched {age(f.ageMinutes)}; hours {f.firstHour && formatIsoClock(f.firstHour)} to {f.lastHour && formatIsoClock(f.lastHour)} ({b.timeZone}).
           </p>
         )}
         {f.message && (

@@ -11,6 +11,8 @@ import { formatIsoDate } from "@/lib/format";
 
 export interface DriftPoint {
   label: string;
+  /** When (and by whom) it was run, in words: "run 4 Dec 2026, 12:57 by Dana Whitcomb". */
+  made: string;
   p50: string;
   p80: string;
 }
@@ -53,12 +55,13 @@ export function DriftChart({ points }: { points: DriftPoint[] }) {
         </thead>
         <tbody>
           {points.map((p, i) => (
-            <tr key={i} className="border-b border-line/60">
+            <tr key={i} className="border-b border-line/60 align-top">
               <th scope="row" className="py-1 pr-3 text-left font-normal">
                 {p.label}
+                <span className="block text-xs text-muted">{p.made}</span>
               </th>
-              <td className="py-1 pr-3">{formatIsoDate(p.p50)}</td>
-              <td className="py-1">{formatIsoDate(p.p80)}</td>
+              <td className="py-1 pr-3 whitespace-nowrap">{formatIsoDate(p.p50)}</td>
+              <td className="py-1 whitespace-nowrap">{formatIsoDate(p.p80)}</td>
             </tr>
           ))}
         </tbody>
