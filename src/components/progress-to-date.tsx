@@ -23,66 +23,69 @@ export function ProgressToDate({ rows, document = false, against }: { rows: Oper
   const line = against;
   const columns = document ? 6 : 7;
   return (
-    <div className="scroll-x">
-      <table className="w-full text-sm" data-testid="progress-to-date">
-        <caption className="sr-only">Progress to date by operation</caption>
-        <thead>
-          <tr className="border-b border-line text-left">
-            <th scope="col" className="py-2 pr-3">Operation</th>
-            <th scope="col" className="py-2 pr-3">Done</th>
-            <th scope="col" className="py-2 pr-3">Share</th>
-            <th scope="col" className="py-2 pr-3 text-right">Shifts</th>
-            <th scope="col" className="py-2 pr-6 text-right">Hours lost</th>
-            {!document && <th scope="col" className="py-2 pr-3">First shift</th>}
-            <th scope="col" className={column ? "py-2 pr-3" : "py-2"}>Last shift</th>
-            {column && <th scope="col" className="hidden py-2 md:table-cell">Against the plan</th>}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((r) => {
-            const share = shareText(r.doneFt, r.totalFt);
-            return [
-              <tr key={r.id} className={`align-top ${document && line ? "" : column ? "border-b border-line/60 max-md:border-b-0" : "border-b border-line/60"}`} data-testid="progress-to-date-row">
-                <th scope="row" className="py-2 pr-3 text-left font-normal">{r.name}</th>
-                <td className="py-2 pr-3">
-                  <div className="whitespace-nowrap">
-                    {feet(r.doneFt)} of {feet(r.totalFt)}
-                  </div>
-                  {/* A stage by its short name ("Stage 1" of "Stage 1: L1 behind barrier, …"): the line stays one line. */}
-                  {staged && r.stages.length > 0 && (
-                    <div className="text-xs text-muted">{r.stages.map((st) => `${st.stageName.split(":")[0]}: ${feet(st.doneFt)} of ${feet(st.totalFt)}`).join(" · ")}</div>
-                  )}
-                </td>
-                <td className="py-2 pr-3">
-                  <div className="flex items-center gap-2">
-                    {/* The bar repeats the figure beside it, so it is hidden from screen readers. */}
-                    {!document && (
-                      <div className="h-2 w-24 overflow-hidden rounded bg-line" aria-hidden="true">
-                        <div className="h-full bg-brand-600" style={{ width: `${r.totalFt > 0 ? Math.min(100, (100 * r.doneFt) / r.totalFt) : 0}%` }} />
-                      </div>
+    <div>
+      {/* Focusable and named: on a phone the table scrolls sideways, and a keyboard must be able to scroll it too. */}
+      <div className="scroll-x" {...(document ? {} : { tabIndex: 0, role: "region", "aria-label": "Progress to date (scrolls sideways)" })}>
+        <table className="w-full text-sm" data-testid="progress-to-date">
+          <caption className="sr-only">Progress to date by operation</caption>
+          <thead>
+            <tr className="border-b border-line text-left">
+              <th scope="col" className="py-2 pr-3">Operation</th>
+              <th scope="col" className="py-2 pr-3">Done</th>
+              <th scope="col" className="py-2 pr-3">Share</th>
+              <th scope="col" className="py-2 pr-3 text-right">Shifts</th>
+              <th scope="col" className="py-2 pr-6 text-right">Hours lost</th>
+              {!document && <th scope="col" className="py-2 pr-3">First shift</th>}
+              <th scope="col" className={column ? "py-2 pr-3" : "py-2"}>Last shift</th>
+              {column && <th scope="col" className="hidden py-2 md:table-cell">Against the plan</th>}
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => {
+              const share = shareText(r.doneFt, r.totalFt);
+              return [
+                <tr key={r.id} className={`align-top ${document && line ? "" : column ? "border-b border-line/60 max-md:border-b-0" : "border-b border-line/60"}`} data-testid="progress-to-date-row">
+                  <th scope="row" className="py-2 pr-3 text-left font-normal">{r.name}</th>
+                  <td className="py-2 pr-3">
+                    <div className="whitespace-nowrap">
+                      {feet(r.doneFt)} of {feet(r.totalFt)}
+                    </div>
+                    {/* A stage by its short name ("Stage 1" of "Stage 1: L1 behind barrier, …"): the line stays one line. */}
+                    {staged && r.stages.length > 0 && (
+                      <div className="text-xs text-muted">{r.stages.map((st) => `${st.stageName.split(":")[0]}: ${feet(st.doneFt)} of ${feet(st.totalFt)}`).join(" · ")}</div>
                     )}
-                    <span className="whitespace-nowrap">{share}</span>
-                  </div>
-                </td>
-                <td className="py-2 pr-3 text-right">{r.shifts.toLocaleString("en-US")}</td>
-                <td className="py-2 pr-6 text-right">{r.lostHours > 0 ? r.lostHours.toLocaleString("en-US", { maximumFractionDigits: 1 }) : "—"}</td>
-                {!document && <td className="py-2 pr-3 whitespace-nowrap">{r.firstDate ? formatIsoDate(r.firstDate) : "—"}</td>}
-                <td className={`py-2 whitespace-nowrap ${column ? "pr-3" : ""}`}>{r.lastDate ? formatIsoDate(r.lastDate) : "—"}</td>
-                {column && <td className="hidden py-2 min-w-40 md:table-cell">{againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}</td>}
-              </tr>,
-              line && (
-                <tr key={`${r.id}-against`} className={`border-b border-line/60 ${column ? "md:hidden" : ""}`} data-testid="progress-to-date-against">
-                  <td colSpan={columns} className="pb-2 pl-3 text-xs">
-                    <div className={column ? "sticky left-0 max-w-[calc(100vw-5rem)]" : ""}>
-                      Against the plan: {againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}
+                  </td>
+                  <td className="py-2 pr-3">
+                    <div className="flex items-center gap-2">
+                      {/* The bar repeats the figure beside it, so it is hidden from screen readers. */}
+                      {!document && (
+                        <div className="h-2 w-24 overflow-hidden rounded bg-line" aria-hidden="true">
+                          <div className="h-full bg-brand-600" style={{ width: `${r.totalFt > 0 ? Math.min(100, (100 * r.doneFt) / r.totalFt) : 0}%` }} />
+                        </div>
+                      )}
+                      <span className="whitespace-nowrap">{share}</span>
                     </div>
                   </td>
-                </tr>
-              ),
-            ];
-          })}
-        </tbody>
-      </table>
+                  <td className="py-2 pr-3 text-right">{r.shifts.toLocaleString("en-US")}</td>
+                  <td className="py-2 pr-6 text-right">{r.lostHours > 0 ? r.lostHours.toLocaleString("en-US", { maximumFractionDigits: 1 }) : "—"}</td>
+                  {!document && <td className="py-2 pr-3 whitespace-nowrap">{r.firstDate ? formatIsoDate(r.firstDate) : "—"}</td>}
+                  <td className={`py-2 whitespace-nowrap ${column ? "pr-3" : ""}`}>{r.lastDate ? formatIsoDate(r.lastDate) : "—"}</td>
+                  {column && <td className="hidden py-2 min-w-40 md:table-cell">{againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}</td>}
+                </tr>,
+                line && (
+                  <tr key={`${r.id}-against`} className={`border-b border-line/60 ${column ? "md:hidden" : ""}`} data-testid="progress-to-date-against">
+                    <td colSpan={columns} className="pb-2 pl-3 text-xs">
+                      <div className={column ? "sticky left-0 max-w-[calc(100vw-5rem)]" : ""}>
+                        Against the plan: {againstCell(against.byOperation.get(r.id), against.toDate, r.doneFt)}
+                      </div>
+                    </td>
+                  </tr>
+                ),
+              ];
+            })}
+          </tbody>
+        </table>
+      </div>
       {against && <p className="mt-2 text-xs text-muted">{against.note}</p>}
     </div>
   );

@@ -72,15 +72,19 @@ describe("on a phone", () => {
     await screenshot(page, "phone-tabs");
   });
 
-  it("an inspector's field log, daily report and week-ahead board fit the screen; the log's table scrolls inside its box", async () => {
+  it("an inspector's field log, daily report and week-ahead board fit the screen; the log's shifts read as cards, nothing off to the side", async () => {
     const page = await phone("inspector");
     const scenario = new ScenarioPage(page, scenarioId);
     await scenario.open("progress");
     await page.getByRole("heading", { name: "Field log" }).waitFor();
     expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
-    // The table is wider than the phone; its own box scrolls instead of the page.
-    const box = page.getByRole("region", { name: "Field log" }).locator(".scroll-x").first();
-    expect(await box.evaluate((e) => e.scrollWidth > e.clientWidth)).toBe(true);
+    // Each shift is a card as wide as the box: nothing of it is hidden off to the right (it used to scroll sideways).
+    const box = page.getByTestId("progress-table").locator("xpath=..");
+    expect(await box.evaluate((e) => e.scrollWidth <= e.clientWidth)).toBe(true);
+    for (const row of await page.getByTestId("progress-row").all()) {
+      const b = (await row.boundingBox())!;
+      expect(b.x + b.width).toBeLessThanOrEqual(PHONE);
+    }
     await screenshot(page, "phone-field-log");
     // A day's report is the brief's width on paper, and the phone's on the phone.
     await page.goto(`${APP_URL}/scenarios/${scenarioId}/progress/daily`);

@@ -76,7 +76,7 @@ describe("field log", () => {
       expect.stringMatching(new RegExp(`^Mechanical milling1,000 ft of 1,000 ft100 %2—\\d+ \\w+ \\d{4}\\d+ \\w+ \\d{4}${against}$`)),
       expect.stringMatching(new RegExp(`^Overlay placement400 ft of 1,000 ft40 %1—\\d+ \\w+ \\d{4}\\d+ \\w+ \\d{4}${against}$`)),
     ]);
-    expect(await inspector.getByTestId("progress-to-date").locator("xpath=..").textContent()).toContain(`Against the plan: how far the plan run of`);
+    expect(await inspector.getByTestId("progress-to-date").locator("xpath=../..").textContent()).toContain(`Against the plan: how far the plan run of`);
     // On a phone the standing is a line under each operation, in view, not a column off to the right of the screen.
     expect(await inspector.getByTestId("progress-to-date-against").first().isVisible()).toBe(false);
     await inspector.setViewportSize({ width: 390, height: 844 });
@@ -86,7 +86,17 @@ describe("field log", () => {
     expect(await inspector.getByRole("columnheader", { name: "Against the plan" }).isVisible()).toBe(false);
     const box = (await line.locator("div").boundingBox())!;
     expect(box.x + box.width).toBeLessThanOrEqual(390);
+    // The field log reads as cards on a phone: each shift inside the screen, its actions too, the cells named.
+    const row = inspector.getByTestId("progress-row").first();
+    for (const part of [row, row.getByRole("button", { name: "Delete" })]) {
+      const b = (await part.boundingBox())!;
+      expect(b.x + b.width).toBeLessThanOrEqual(390);
+    }
+    const named = await row.locator("td[data-label]:not([data-empty])").evaluateAll((tds) => tds.map((td) => getComputedStyle(td, "::before").content));
+    expect(named).toEqual(['"Weather: "', '"Recorded by: "']);
+    expect(await seriousA11yViolations(inspector)).toEqual([]);
     await inspector.setViewportSize({ width: 1280, height: 900 });
+    expect(await row.locator("td[data-label]").first().evaluate((td) => getComputedStyle(td, "::before").content)).toBe("none");
     expect(await inspector.getByTestId("field-log-csv").getAttribute("href")).toBe(`/api/scenarios/${scenarioId}/exports/field-log.csv`);
     // A day's report, from the date in the log: that day's shifts in sum, printable, with the days either side.
     await inspector.getByTestId("progress-row").first().getByRole("link", { name: formatIsoDate(day(2)) }).click();

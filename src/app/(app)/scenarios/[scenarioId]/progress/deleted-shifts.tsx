@@ -29,7 +29,7 @@ export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id:
         Deleted shifts ({rows.length.toLocaleString("en-US")}) — kept on record, not in any new forecast
       </summary>
       <div className="scroll-x mt-2">
-        <table className="w-full">
+        <table className="stack-on-phone w-full">
           <caption className="sr-only">Deleted shifts, most recently deleted first</caption>
           <thead>
             <tr className="border-b border-line text-left">
@@ -47,12 +47,14 @@ export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id:
             {rows.map((r) => (
               <tr key={r.id} className="border-b border-line/60 align-top text-muted" data-testid="deleted-shift">
                 <ShiftCells e={r} shiftName={shiftName} names={names} />
-                <td className="py-2 pr-3">{r.enteredByName}</td>
-                <td className="py-2 pr-3">
+                <td className="py-2 pr-3" data-label="Recorded by">
+                  {r.enteredByName}
+                </td>
+                <td className="py-2 pr-3" data-label="Deleted">
                   {r.deletedByName ?? "—"}, {r.deletedAt ? formatDateTime(r.deletedAt) : "—"}
                 </td>
                 {canRecord && (
-                  <td className="py-2">
+                  <td className="py-2" data-actions>
                     <RestoreButton entryId={r.id} what={`the ${names[r.operationId] ?? r.operationId} entry of ${formatIsoDate(r.workDate)}`} />
                   </td>
                 )}

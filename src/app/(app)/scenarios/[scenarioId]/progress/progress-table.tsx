@@ -129,7 +129,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
         </div>
       )}
       <div className="scroll-x">
-        <table className="w-full text-sm" data-testid="progress-table">
+        <table className="stack-on-phone w-full text-sm" data-testid="progress-table">
           <caption className="sr-only">Recorded shifts, newest first</caption>
           <thead>
             <tr className="border-b border-line text-left">
@@ -137,7 +137,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
               <th scope="col" className="py-2 pr-3">Weather</th>
               <th scope="col" className="py-2 pr-3">Lost</th>
               <th scope="col" className="py-2 pr-3">Discovered</th>
-              <th scope="col" className="py-2 pr-3">By</th>
+              <th scope="col" className="py-2 pr-3">Recorded by</th>
               <th scope="col" className="py-2">
                 <span className="sr-only">Actions</span>
               </th>
@@ -148,12 +148,14 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
               <Fragment key={e.id}>
                 <tr className="border-b border-line/60 align-top" data-testid="progress-row">
                   <ShiftCells e={e} shiftName={shiftName} names={names} dayHref={(day) => `/scenarios/${scenarioId}/progress/daily?date=${day}`} />
-                  <td className="py-2 pr-3">
+                  <td className="py-2 pr-3" data-label="Weather" data-empty={e.tempF === null && !e.rain ? true : undefined}>
                     {e.tempF === null ? "—" : `${e.tempF} °F`}
                     {e.rain ? ", rain" : ""}
                   </td>
-                  <td className="py-2 pr-3">{e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}</td>
-                  <td className="py-2 pr-3">
+                  <td className="py-2 pr-3" data-label="Lost" data-empty={e.lostHours > 0 ? undefined : true}>
+                    {e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}
+                  </td>
+                  <td className="py-2 pr-3" data-label="Discovered" data-empty={e.discovered.length === 0 ? true : undefined}>
                     {e.discovered.length === 0
                       ? "—"
                       : e.discovered.map((d, i) => (
@@ -162,8 +164,10 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
                           </div>
                         ))}
                   </td>
-                  <td className="py-2 pr-3">{e.enteredByName}</td>
-                  <td className="py-2 whitespace-nowrap">
+                  <td className="py-2 pr-3" data-label="Recorded by">
+                    {e.enteredByName}
+                  </td>
+                  <td className="py-2 whitespace-nowrap" data-actions>
                     {canRecord && (
                       <button type="button" className="btn-secondary mr-1" onClick={() => setOpen(open?.id === e.id && open.mode === "edit" ? null : { id: e.id, mode: "edit" })}>
                         Edit

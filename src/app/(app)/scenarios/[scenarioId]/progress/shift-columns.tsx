@@ -1,7 +1,10 @@
 import Link from "next/link";
 import { formatIsoDate, formatStation } from "@/lib/format";
 
-/** The columns that say which shift a row is — date, shift, operation, stations, crew — for the log and its deleted shifts alike. */
+/**
+ * The columns that say which shift a row is — date, shift, operation, stations, crew — for the log and its deleted
+ * shifts alike. The data- marks are for a phone, where the row is read as a card (globals.css `stack-on-phone`).
+ */
 export function ShiftHeads() {
   return (
     <>
@@ -24,7 +27,7 @@ export function ShiftCells(props: {
   const { e, shiftName, names, dayHref } = props;
   return (
     <>
-      <td className="py-2 pr-3 whitespace-nowrap">
+      <td className="py-2 pr-3 whitespace-nowrap" data-inline>
         {dayHref ? (
           <Link href={dayHref(e.workDate)} className="text-brand-700 hover:underline" title="This day's report">
             {formatIsoDate(e.workDate)}
@@ -33,12 +36,18 @@ export function ShiftCells(props: {
           formatIsoDate(e.workDate)
         )}
       </td>
-      <td className="py-2 pr-3">{shiftName(e.shift)}</td>
-      <td className="py-2 pr-3">{names[e.operationId] ?? e.operationId}</td>
-      <td className="py-2 pr-3 whitespace-nowrap">
+      <td className="py-2 pr-3" data-inline>
+        {shiftName(e.shift)}
+      </td>
+      <td className="py-2 pr-3" data-inline>
+        {names[e.operationId] ?? e.operationId}
+      </td>
+      <td className="py-2 pr-3 whitespace-nowrap" data-inline>
         {formatStation(e.fromStationFt)} – {formatStation(e.toStationFt)}
       </td>
-      <td className="py-2 pr-3">{e.crew || "—"}</td>
+      <td className="py-2 pr-3" data-label="Crew" data-empty={e.crew ? undefined : true}>
+        {e.crew || "—"}
+      </td>
     </>
   );
 }
