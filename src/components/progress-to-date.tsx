@@ -1,6 +1,7 @@
 import { formatIsoDate } from "@/lib/format";
 import { shareText, type OperationProgress } from "@/lib/progress-to-date";
 import { againstPlanText, type AgainstPlan } from "@/lib/against-plan";
+import { ScrollBox } from "./scroll-box";
 
 const feet = (ft: number) => `${Math.round(ft).toLocaleString("en-US")} ft`;
 
@@ -24,8 +25,7 @@ export function ProgressToDate({ rows, document = false, against }: { rows: Oper
   const columns = document ? 6 : 7;
   return (
     <div>
-      {/* Focusable and named: on a phone the table scrolls sideways, and a keyboard must be able to scroll it too. */}
-      <div className="scroll-x" {...(document ? {} : { tabIndex: 0, role: "region", "aria-label": "Progress to date (scrolls sideways)" })}>
+      <ScrollBox label="Progress to date (scrolls sideways)">
         <table className="w-full text-sm" data-testid="progress-to-date">
           <caption className="sr-only">Progress to date by operation</caption>
           <thead>
@@ -85,7 +85,7 @@ export function ProgressToDate({ rows, document = false, against }: { rows: Oper
             })}
           </tbody>
         </table>
-      </div>
+      </ScrollBox>
       {against && <p className="mt-2 text-xs text-muted">{against.note}</p>}
     </div>
   );

@@ -10,6 +10,7 @@ import { SortableHead, TableRows } from "@/components/sortable-table";
 import type { RunSummary } from "@sim/summary";
 import { stageLabel } from "@/lib/stage-text";
 import { quantileText } from "./summary-text";
+import { ScrollBox } from "@/components/scroll-box";
 
 type Row = { order: number; stage: string; name: string; finish: RunSummary["operations"][number]["finish"] };
 
@@ -46,12 +47,12 @@ export function OperationsTable({ operations, stages = [], sortable = true }: { 
     getSortedRowModel: getSortedRowModel(),
   });
   return (
-    <div className="scroll-x">
+    <ScrollBox label="Finish by operation (scrolls sideways)">
       <table className="w-full border-collapse" data-testid="operations-table">
         <caption className="sr-only">Finish percentiles {staged ? "per stage and per operation" : "per operation"}{sortable ? "; the column headers sort the table" : ""}.</caption>
         <SortableHead table={table} sortable={sortable} />
         <TableRows table={table} />
       </table>
-    </div>
+    </ScrollBox>
   );
 }

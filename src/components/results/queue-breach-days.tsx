@@ -7,6 +7,7 @@
 import type { RunSummary } from "@sim/summary";
 import { daysOverLimit, describeQueueLimit, type QueueLimit } from "@sim/queue-limit";
 import { formatClockOnDay, formatIsoDate } from "@/lib/format";
+import { ScrollBox } from "@/components/scroll-box";
 
 const SHOWN = 40;
 
@@ -28,7 +29,7 @@ export function QueueBreachDays({ summary, limit }: { summary: RunSummary; limit
             {over.length} day{over.length === 1 ? "" : "s"} in the iteration nearest the P50 (the limit is part of the plan, in the plan editor&apos;s Traffic section).
           </p>
           {/* Figures right-aligned under right-aligned headings, in even-width digits, so a column reads down. */}
-          <div className="scroll-x mt-2">
+          <ScrollBox label="Days past the queue limit (scrolls sideways)" className="mt-2">
             <table className="w-full max-w-2xl text-sm tabular-nums [&_td]:px-2 [&_td]:text-right [&_th]:px-2 [&_thead_th]:text-right [&_thead_th:first-child]:text-left">
               <thead>
                 <tr>
@@ -51,7 +52,7 @@ export function QueueBreachDays({ summary, limit }: { summary: RunSummary; limit
                 ))}
               </tbody>
             </table>
-          </div>
+          </ScrollBox>
           {over.length > SHOWN && <p className="mt-1 text-xs text-muted">The first {SHOWN} are listed; the day-by-day table above has them all.</p>}
         </>
       )}

@@ -7,6 +7,7 @@ import { parseScenario } from "@sim/validate";
 import type { Distribution, Scenario } from "@sim/schema";
 import { stageSentence } from "@/lib/stage-text";
 import { formatIsoDate, formatStation, monthName } from "@/lib/format";
+import { ScrollBox } from "@/components/scroll-box";
 
 const DAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
 const n = (v: number) => v.toLocaleString("en-US", { maximumFractionDigits: 2 });
@@ -85,7 +86,7 @@ export function InputsSummary({ definition }: { definition: unknown }) {
         </div>
       </dl>
 
-      <div className="scroll-x">
+      <ScrollBox label="Operations (scrolls sideways)">
         <table className="w-full min-w-[640px] border-collapse">
           <caption className="mb-1 text-left font-semibold">Operations</caption>
           <thead>
@@ -131,7 +132,7 @@ export function InputsSummary({ definition }: { definition: unknown }) {
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollBox>
 
       <div>
         <h3>Stages</h3>

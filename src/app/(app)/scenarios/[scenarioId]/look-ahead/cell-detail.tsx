@@ -3,6 +3,7 @@ import { formatIsoClock, formatIsoDay } from "@/lib/format";
 import { STATUS_WORDS, hourRanges } from "@/lib/look-ahead-notice";
 import { GATE_LABELS } from "@sim/lookahead-gates";
 import type { LookAheadDay, LookAheadShift, OperationCell } from "@sim/lookahead";
+import { ScrollBox } from "@/components/scroll-box";
 
 const fmt = (v: number | null, unit: string) => (v === null ? "—" : `${Math.round(v)}${unit}`);
 const hhmm = (iso: string) => formatIsoClock(iso, { year: false });
@@ -37,7 +38,7 @@ export function CellDetail({ day, shift, cell, onClose }: { day: LookAheadDay; s
         </ul>
       )}
       {cell.hours.length > 0 && (
-        <div className="mt-3 scroll-x">
+        <ScrollBox label="Hour by hour (scrolls sideways)" className="mt-3">
           <table className="w-full border-collapse text-sm" data-testid="hour-reasons">
             <caption className="text-left text-sm font-medium">Hour by hour</caption>
             <thead>
@@ -61,7 +62,7 @@ export function CellDetail({ day, shift, cell, onClose }: { day: LookAheadDay; s
               ))}
             </tbody>
           </table>
-        </div>
+        </ScrollBox>
       )}
       {cell.pourStarts.length > 0 && (
         <div className="mt-3">

@@ -1,6 +1,7 @@
 import { formatDateTime, formatIsoDate } from "@/lib/format";
 import { RestoreButton } from "./restore-button";
 import { ShiftCells, ShiftHeads } from "./shift-columns";
+import { ScrollBox } from "@/components/scroll-box";
 
 export interface DeletedShiftView {
   id: string;
@@ -28,7 +29,7 @@ export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id:
       <summary className="cursor-pointer">
         Deleted shifts ({rows.length.toLocaleString("en-US")}) — kept on record, not in any new forecast
       </summary>
-      <div className="scroll-x mt-2">
+      <ScrollBox label="Deleted shifts (scrolls sideways)" className="mt-2">
         <table className="stack-on-phone w-full">
           <caption className="sr-only">Deleted shifts, most recently deleted first</caption>
           <thead>
@@ -62,7 +63,7 @@ export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id:
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollBox>
     </details>
   );
 }

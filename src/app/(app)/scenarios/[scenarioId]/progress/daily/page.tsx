@@ -12,6 +12,7 @@ import { daySum, neighbourDays, readDay } from "@/lib/daily-report";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { ProgressToDate } from "@/components/progress-to-date";
 import { PrintButton } from "../../brief/print-button";
+import { ScrollBox } from "@/components/scroll-box";
 
 export const metadata: Metadata = { title: "Daily report" };
 
@@ -102,7 +103,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
             {sum.conditions > 0 ? `; ${sum.conditions} discovered condition${sum.conditions === 1 ? "" : "s"} (${sum.conditionAreaSqFt.toLocaleString("en-US")} ft²)` : ""}.
           </p>
           {/* On a phone the table scrolls in its own box; at the brief's width (and on paper) it fits whole. */}
-          <div className="scroll-x">
+          <ScrollBox label="Shifts worked that day (scrolls sideways)">
             <table className="w-full text-sm" data-testid="daily-shifts">
               <caption className="sr-only">Shifts worked on {formatIsoDay(day)}</caption>
               <thead>
@@ -135,7 +136,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
                 ))}
               </tbody>
             </table>
-          </div>
+          </ScrollBox>
           {sum.conditions > 0 && (
             <div>
               <h4 className="text-sm font-semibold">Conditions found</h4>
