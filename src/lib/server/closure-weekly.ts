@@ -42,13 +42,14 @@ export async function sendWeeklyClosureEmails(now = new Date()): Promise<{ proje
         : anyClosure
           ? `On ${formatIsoDate(day)}: nobody is on the list, so nothing was sent (${week}).`
           : `On ${formatIsoDate(day)}: nothing sent — ${week}.`;
-    await inTransaction(async (tx) => {
-      if (!(await claimClosureWeeklyDay({ tx, projectId: p.projectId, day, note }))) return;
+    const claimed = await inTransaction(async (tx) => {
+      if (!(await claimClosureWeeklyDay({ tx, projectId: p.projectId, day, note }))) return false;
       for (const s of subscribers) {
         await enqueueMail(tx, closureWeeklyMail({ to: s.email, structure: plan.structureName || plan.projectName, projectName: plan.projectName, timeZone, day, days, publishedAt: plan.publishedAt }));
       }
-      done.push({ projectId: p.projectId, note, sent: subscribers.length });
+      return true;
     });
+    if (claimed) done.push({ projectId: p.projectId, note, sent: subscribers.length }); // once committed
   });
   return done;
 }

@@ -25,15 +25,17 @@ export async function sendForecastAlerts(): Promise<number> {
   const [texts, lagging] = await Promise.all([planProgressAndAgainst(forecasts.map((p) => p.planScenarioId)), publicationLagTexts(forecasts)]); // no ids: no query
   // Each project on its own: one whose e-mail cannot be queued must not keep every other project's news back.
   await eachItemOnItsOwn("forecast e-mail", forecasts, (p) => p.projectId, async (p) => {
-    await inTransaction(async (tx) => {
-      if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return;
-      announced++;
+    // Counted once the transaction has committed: a project whose e-mail failed was not announced.
+    const claimed = await inTransaction(async (tx) => {
+      if (!(await claimPlanAnnouncement({ tx, projectId: p.projectId, from: p.announcedRunId, to: p.newestRunId! }))) return false;
       const links = { planLink: `${baseUrl()}/scenarios/${p.planScenarioId}`, projectLink: `${baseUrl()}/projects/${p.projectId}` };
       for (const { email: to } of await forecastAlertReaders({ tx, projectId: p.projectId })) {
         const mail = forecastAlertMail({ to, projectName: p.projectName, plan: p, planChanged: p.planChanged, ...(p.planScenarioId ? texts.get(p.planScenarioId) : null), publicationLag: p.planScenarioId ? lagging.get(p.planScenarioId) : null, ...links });
         if (mail) await enqueueMail(tx, mail);
       }
+      return true;
     });
+    if (claimed) announced++;
   });
   return announced;
 }

@@ -25,11 +25,12 @@ export async function sendDueLookAheadNotices(now = new Date()): Promise<number>
     const board = await scenarioLookAhead({ projectId: n.projectId, definition: n.definition }, now);
     const link = `${(process.env.APP_BASE_URL || "http://localhost:3000").replace(/\/+$/, "")}/scenarios/${n.scenarioId}/look-ahead`;
     const compact = compactBoard(board.days);
-    await inTransaction(async (tx) => {
-      if (!(await claimNoticeDay({ tx, scenarioId: n.scenarioId, date: today, board: compact }))) return;
+    const claimed = await inTransaction(async (tx) => {
+      if (!(await claimNoticeDay({ tx, scenarioId: n.scenarioId, date: today, board: compact }))) return false;
       for (const to of n.recipients) await enqueueMail(tx, lookAheadMail({ to, scenarioName: n.name, board, previous: (n.lastBoard as CompactBoard | null) ?? null, link }));
-      sent++;
+      return true;
     });
+    if (claimed) sent++; // once committed
   });
   return sent;
 }
