@@ -520,6 +520,11 @@ export const engineJobs = pgTable(
     timeLimitSeconds: integer("time_limit_seconds").notNull(),
     error: text("error"),
     createdById: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    /**
+     * Asked for by the daily re-forecast (in `created_by`'s name) rather than by that person pressing a button: the
+     * record says which, so a forecast nobody pressed for is not read as someone's decision.
+     */
+    automatic: boolean("automatic").notNull().default(false),
     createdAt: ts("created_at").notNull().defaultNow(),
     startedAt: ts("started_at"),
     finishedAt: ts("finished_at"),

@@ -24,6 +24,8 @@ export interface NewEngineJob {
   totalUnits: number;
   timeLimitSeconds: number;
   userId: string | null;
+  /** Asked for by the daily re-forecast, not by the person pressing a button (engine_jobs.automatic). */
+  automatic?: boolean;
 }
 
 /**

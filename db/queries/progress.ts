@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql, type AnyColumn, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
-import { progressEntries, progressHistory, scenarios, simulationRuns, users } from "../schema";
+import { engineJobs, progressEntries, progressHistory, scenarios, simulationRuns, users } from "../schema";
 import { isForecast, planRunsOf } from "./runs";
 import type { ProgressEntry } from "../../sim/progress-entry";
 
@@ -185,6 +185,8 @@ export async function listReforecastRuns({ scenarioId }: { scenarioId: string })
       summary: simulationRuns.summary,
       createdAt: simulationRuns.createdAt,
       createdByName: users.name,
+      // Made by a job the daily re-forecast asked for (in the name of whoever set it up), not by someone pressing Re-forecast.
+      automatic: sql<boolean>`exists (select 1 from ${engineJobs} where ${engineJobs.runId} = ${simulationRuns.id} and ${engineJobs.kind} = 'reforecast' and ${engineJobs.automatic})`,
     })
     .from(simulationRuns)
     .leftJoin(users, eq(users.id, simulationRuns.createdById))

@@ -51,6 +51,17 @@ export function forecastSourceText(run: { dataDate: string | null; at: Date | st
 }
 
 /**
+ * When and by whom a forecast was run, for the drift table: "run 4 Dec 2026, 12:57 by Dana Whitcomb", or for one the
+ * daily re-forecast asked for, "run 5 Dec 2026, 06:00 by the daily re-forecast, in Dana Whitcomb's name" — a
+ * forecast nobody pressed for is not to be read as that person's decision.
+ */
+export function runMadeText(run: { at: Date | string; byName: string | null; automatic: boolean }): string {
+  const at = `run ${formatDateTime(run.at)}`;
+  if (run.automatic) return `${at} by the daily re-forecast${run.byName ? `, in ${run.byName}'s name` : ""}`;
+  return run.byName ? `${at} by ${run.byName}` : at;
+}
+
+/**
  * The lane closures the public sees (every calendar feed and travel advisory shows the publication still standing)
  * came from an earlier forecast than the plan's newest: said under the forecast, on the project page and in the
  * forecast e-mail, so whoever publishes knows to publish again.

@@ -14,6 +14,8 @@ import { appDatabase, freshTeam } from "../helpers/fresh-team";
 import { atLocal, createPastScenario, isoDaysFromToday, plusDays } from "../helpers/progress-fixture";
 import { waitForJob } from "../helpers/jobs";
 import { runDailyReforecasts } from "@/lib/server/daily-reforecast";
+import { listReforecastRuns } from "@db/queries/progress";
+import { runMadeText } from "@/lib/plan-of-record-text";
 
 const TZ = "America/Chicago"; // the fixture plan's time zone
 let db: postgres.Sql;
@@ -75,6 +77,13 @@ describe("daily re-forecast", () => {
     expect(runs.at(-1)).toEqual({ data_date: plusDays(day, -1), seed: "by-hand", iterations: 20, created_by: engineer.id });
     const [row] = await db`SELECT daily_reforecast_note FROM projects WHERE id = ${projectId}`;
     expect(row.daily_reforecast_note).toBe(decided.note);
+    // On record as the daily re-forecast's, in the engineer's name; the one by hand stays the engineer's own.
+    const drift = await listReforecastRuns({ scenarioId: planId });
+    expect(drift.map((r) => [r.seed, r.createdByName !== null, r.automatic])).toEqual([
+      ["by-hand", true, false],
+      ["by-hand", true, true],
+    ]);
+    expect(runMadeText({ at: drift[1].createdAt, byName: drift[1].createdByName, automatic: drift[1].automatic })).toMatch(/^run .+ by the daily re-forecast, in .+'s name$/);
   });
 
   it("is not needed the next day when the field log has not changed; a shift recorded since makes it due", async () => {

@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { p80MoveText, planForecastText, publicationLagText } from "../../src/lib/plan-of-record-text";
+import { p80MoveText, planForecastText, publicationLagText, runMadeText } from "../../src/lib/plan-of-record-text";
 import { forecastAlertMail } from "../../src/lib/server/mail/forecast-alert-mail";
 
 const dayNumber = (iso: string) => Date.UTC(Number(iso.slice(0, 4)), Number(iso.slice(5, 7)) - 1, Number(iso.slice(8, 10))) / 86_400_000;
@@ -96,5 +96,15 @@ describe("the plan of record's forecast in words (the project list's and the for
     const chosen = forecastAlertMail({ to: "a@b.example", projectName: "Deck", plan, planChanged: true, planLink: "", projectLink: "" })!;
     expect(chosen.text.startsWith('"Deck" is now run by another plan of record, "Two seasons". Its newest forecast:')).toBe(true);
     expect(forecastAlertMail({ to: "a@b.example", projectName: "x", plan: { ...plan, planRunSummary: null }, planChanged: false, planLink: "", projectLink: "" })).toBeNull();
+  });
+});
+
+describe("runMadeText", () => {
+  const at = new Date("2026-12-05T12:00:00Z"); // 06:00 in the tests' display zone, America/Chicago
+  it("names the person who ran it, or the daily re-forecast and in whose name it ran", () => {
+    expect(runMadeText({ at, byName: "Dana Whitcomb", automatic: false })).toBe("run 5 Dec 2026, 06:00 by Dana Whitcomb");
+    expect(runMadeText({ at, byName: "Dana Whitcomb", automatic: true })).toBe("run 5 Dec 2026, 06:00 by the daily re-forecast, in Dana Whitcomb's name");
+    expect(runMadeText({ at, byName: null, automatic: true })).toBe("run 5 Dec 2026, 06:00 by the daily re-forecast");
+    expect(runMadeText({ at, byName: null, automatic: false })).toBe("run 5 Dec 2026, 06:00");
   });
 });

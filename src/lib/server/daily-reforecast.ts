@@ -59,7 +59,7 @@ export async function runDailyReforecasts(now = new Date()): Promise<{ projectId
     // since); a plan too large for even the fewest is refused in words below.
     const iterations = Math.max(10, Math.min(decision.iterations, iterationsThatFit(plan, "server")));
     try {
-      const job = await queueReforecast({ scenario, body: { dataDate: decision.dataDate, seed: decision.seed, iterations }, userId: p.userId, now });
+      const job = await queueReforecast({ scenario, body: { dataDate: decision.dataDate, seed: decision.seed, iterations }, userId: p.userId, automatic: true, now });
       await said(`re-forecast from the field log as of ${formatIsoDate(decision.dataDate)} (${decision.why}).`, job.id);
     } catch (e) {
       if (e instanceof AppError) {

@@ -36,7 +36,7 @@ function checkServerBudget(plan: Scenario, iterations: number) {
   if (problem) throw badRequest([problem], "The run is larger than the work budget; nothing was run or saved.");
 }
 
-export async function queueRunJob(input: { plan: Scenario; projectId: string; computation: Computation; dataDate?: string; userId: string; forecast?: ForecastInput | null }) {
+export async function queueRunJob(input: { plan: Scenario; projectId: string; computation: Computation; dataDate?: string; userId: string; automatic?: boolean; forecast?: ForecastInput | null }) {
   const { plan, computation: c } = input;
   checkServerBudget(plan, c.iterations);
   const extra = input.forecast ? { forecast: input.forecast } : {};
@@ -52,6 +52,7 @@ export async function queueRunJob(input: { plan: Scenario; projectId: string; co
     totalUnits: c.iterations,
     timeLimitSeconds: timeLimitSeconds(runWork(plan, c.iterations).total),
     userId: input.userId,
+    ...(input.automatic ? { automatic: true } : {}),
   }, extra);
 }
 

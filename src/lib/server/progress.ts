@@ -68,7 +68,7 @@ type ReforecastBody = z.output<typeof reforecastSchema>;
  * When the data date is today and the project's cached forecast is recent, the re-forecast starts from it
  * (./forecast/reforecast-input); the key names that forecast too, so a newer forecast is a new computation.
  */
-export async function queueReforecast({ scenario, body, userId, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; now?: Date }) {
+export async function queueReforecast({ scenario, body, userId, automatic = false, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; automatic?: boolean; now?: Date }) {
   const plan = validateDefinition(scenario.definition);
   const last = formatDayNumber(parseIsoDate(plan.startDate) + HORIZON_DAYS - 1);
   if (body.dataDate < plan.startDate || body.dataDate > last) {
@@ -89,6 +89,7 @@ export async function queueReforecast({ scenario, body, userId, now = new Date()
     projectId: scenario.projectId,
     computation: { scenarioId: scenario.id, scenarioVersion: scenario.version, seed: body.seed, iterations: body.iterations, reforecast: { dataDate: body.dataDate, inputsHash: hash } },
     userId,
+    automatic,
     forecast,
   });
   return job;

@@ -24,6 +24,7 @@ import { againstPlanFor } from "@/lib/against-plan";
 import { orNotFound } from "@/lib/server/page-access";
 import { MAX_AGE_HOURS } from "@/lib/server/forecast/reforecast-input";
 import { forecastSourceSentence } from "@/lib/reforecast-weather-text";
+import { runMadeText } from "@/lib/plan-of-record-text";
 
 export const metadata: Metadata = { title: "Field log" };
 
@@ -83,7 +84,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
     ...drift.map((r) => ({
       label: formatIsoDate(r.dataDate),
       // Two re-forecasts of one data date (a shift recorded later that day) are told apart by when they were run.
-      made: `run ${formatDateTime(r.createdAt)}${r.createdByName ? ` by ${r.createdByName}` : ""}`,
+      made: runMadeText({ at: r.createdAt, byName: r.createdByName, automatic: r.automatic }),
       ...((r.summary as { finish: { p50: string; p80: string } }).finish),
     })),
   ];

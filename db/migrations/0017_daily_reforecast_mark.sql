@@ -1,0 +1,1 @@
+ALTER TABLE "engine_jobs" ADD COLUMN "automatic" boolean DEFAULT false NOT NULL;
