@@ -99,6 +99,12 @@ describe("on a phone", () => {
     await page.goto(`${APP_URL}/scenarios/${scenarioId}/progress/daily`);
     await page.getByTestId("daily-report").waitFor();
     expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
+    // Its shifts are cards too, each inside the screen.
+    for (const row of await page.getByTestId("daily-shifts").locator("tbody tr").all()) {
+      const b = (await row.boundingBox())!;
+      expect(b.x + b.width).toBeLessThanOrEqual(PHONE);
+    }
+    expect(await page.getByTestId("daily-shifts").locator("xpath=..").evaluate((e) => e.scrollWidth <= e.clientWidth)).toBe(true);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "phone-daily-report");
     await scenario.open("lookAhead");

@@ -12,7 +12,6 @@ import { daySum, neighbourDays, readDay } from "@/lib/daily-report";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { ProgressToDate } from "@/components/progress-to-date";
 import { PrintButton } from "../../brief/print-button";
-import { ScrollBox } from "@/components/scroll-box";
 
 export const metadata: Metadata = { title: "Daily report" };
 
@@ -102,9 +101,9 @@ export default async function DailyReportPage({ params, searchParams }: { params
             {sum.lostHours > 0 ? `; ${sum.lostHours.toLocaleString("en-US", { maximumFractionDigits: 1 })} hours lost` : "; no hours lost"}
             {sum.conditions > 0 ? `; ${sum.conditions} discovered condition${sum.conditions === 1 ? "" : "s"} (${sum.conditionAreaSqFt.toLocaleString("en-US")} ft²)` : ""}.
           </p>
-          {/* On a phone the table scrolls in its own box; at the brief's width (and on paper) it fits whole. */}
-          <ScrollBox label="Shifts worked that day (scrolls sideways)">
-            <table className="w-full text-sm" data-testid="daily-shifts">
+          {/* On a phone each shift is a card (globals.css stack-on-phone); at the brief's width and on paper, a table. */}
+          <div>
+            <table className="stack-on-phone w-full text-sm" data-testid="daily-shifts">
               <caption className="sr-only">Shifts worked on {formatIsoDay(day)}</caption>
               <thead>
                 <tr className="border-b border-line text-left">
@@ -114,29 +113,39 @@ export default async function DailyReportPage({ params, searchParams }: { params
                   <th scope="col" className="py-2 pr-2">Crew</th>
                   <th scope="col" className="py-2 pr-2">Weather</th>
                   <th scope="col" className="py-2 pr-2">Lost</th>
-                  <th scope="col" className="py-2">By</th>
+                  <th scope="col" className="py-2">Recorded by</th>
                 </tr>
               </thead>
               <tbody>
                 {shifts.map((e) => (
                   <tr key={e.id} className="border-b border-line/60 align-top">
-                    <td className="py-2 pr-2">{shiftName(e.shift)}</td>
-                    <td className="py-2 pr-2">{names[e.operationId] ?? e.operationId}</td>
-                    <td className="py-2 pr-2">
+                    <td className="py-2 pr-2" data-inline>
+                      {shiftName(e.shift)}
+                    </td>
+                    <td className="py-2 pr-2" data-inline>
+                      {names[e.operationId] ?? e.operationId}
+                    </td>
+                    <td className="py-2 pr-2" data-inline>
                       {formatStation(e.fromStationFt)} – {formatStation(e.toStationFt)}
                     </td>
-                    <td className="py-2 pr-2">{e.crew || "—"}</td>
-                    <td className="py-2 pr-2">
+                    <td className="py-2 pr-2" data-label="Crew" data-empty={e.crew ? undefined : true}>
+                      {e.crew || "—"}
+                    </td>
+                    <td className="py-2 pr-2" data-label="Weather" data-empty={e.tempF === null && !e.rain ? true : undefined}>
                       {e.tempF === null ? "—" : `${e.tempF} °F`}
                       {e.rain ? ", rain" : ""}
                     </td>
-                    <td className="py-2 pr-2">{e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}</td>
-                    <td className="py-2">{e.enteredByName}</td>
+                    <td className="py-2 pr-2" data-label="Lost" data-empty={e.lostHours > 0 ? undefined : true}>
+                      {e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}
+                    </td>
+                    <td className="py-2" data-label="Recorded by">
+                      {e.enteredByName}
+                    </td>
                   </tr>
                 ))}
               </tbody>
             </table>
-          </ScrollBox>
+          </div>
           {sum.conditions > 0 && (
             <div>
               <h4 className="text-sm font-semibold">Conditions found</h4>
