@@ -5,10 +5,10 @@ import { formatIsoDate, formatStation } from "@/lib/format";
  * The columns that say which shift a row is — date, shift, operation, stations, crew — for the log and its deleted
  * shifts alike. The data- marks are for a phone, where the row is read as a card (globals.css `stack-on-phone`).
  */
-export function ShiftHeads() {
+export function ShiftHeads({ date = true }: { date?: boolean } = {}) {
   return (
     <>
-      <th scope="col" className="py-2 pr-3">Date</th>
+      {date && <th scope="col" className="py-2 pr-3">Date</th>}
       <th scope="col" className="py-2 pr-3">Shift</th>
       <th scope="col" className="py-2 pr-3">Operation</th>
       <th scope="col" className="py-2 pr-3">Stations</th>
@@ -17,25 +17,31 @@ export function ShiftHeads() {
   );
 }
 
-/** `dayHref`: the date links to that day's report (the log's rows; a deleted shift is in no report). */
+/**
+ * `dayHref`: the date links to that day's report (the log's rows; a deleted shift is in no report). `date: false`:
+ * a day's report, whose rows are all of one day.
+ */
 export function ShiftCells(props: {
+  date?: boolean;
   e: { workDate: string; shift: string; operationId: string; fromStationFt: number; toStationFt: number; crew: string };
   shiftName: (id: string) => string;
   names: Record<string, string>;
   dayHref?: (day: string) => string;
 }) {
-  const { e, shiftName, names, dayHref } = props;
+  const { e, shiftName, names, dayHref, date = true } = props;
   return (
     <>
-      <td className="py-2 pr-3 whitespace-nowrap" data-inline>
-        {dayHref ? (
-          <Link href={dayHref(e.workDate)} className="text-brand-700 hover:underline" title="This day's report">
-            {formatIsoDate(e.workDate)}
-          </Link>
-        ) : (
-          formatIsoDate(e.workDate)
-        )}
-      </td>
+      {date && (
+        <td className="py-2 pr-3 whitespace-nowrap" data-inline>
+          {dayHref ? (
+            <Link href={dayHref(e.workDate)} className="text-brand-700 hover:underline" title="This day's report">
+              {formatIsoDate(e.workDate)}
+            </Link>
+          ) : (
+            formatIsoDate(e.workDate)
+          )}
+        </td>
+      )}
       <td className="py-2 pr-3" data-inline>
         {shiftName(e.shift)}
       </td>

@@ -12,6 +12,7 @@ import { daySum, neighbourDays, readDay } from "@/lib/daily-report";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { ProgressToDate } from "@/components/progress-to-date";
 import { PrintButton } from "../../brief/print-button";
+import { ShiftCells, ShiftHeads } from "../shift-columns";
 
 export const metadata: Metadata = { title: "Daily report" };
 
@@ -107,10 +108,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
               <caption className="sr-only">Shifts worked on {formatIsoDay(day)}</caption>
               <thead>
                 <tr className="border-b border-line text-left">
-                  <th scope="col" className="py-2 pr-2">Shift</th>
-                  <th scope="col" className="py-2 pr-2">Operation</th>
-                  <th scope="col" className="py-2 pr-2">Stations</th>
-                  <th scope="col" className="py-2 pr-2">Crew</th>
+                  <ShiftHeads date={false} />
                   <th scope="col" className="py-2 pr-2">Weather</th>
                   <th scope="col" className="py-2 pr-2">Lost</th>
                   <th scope="col" className="py-2">Recorded by</th>
@@ -119,18 +117,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
               <tbody>
                 {shifts.map((e) => (
                   <tr key={e.id} className="border-b border-line/60 align-top">
-                    <td className="py-2 pr-2" data-inline>
-                      {shiftName(e.shift)}
-                    </td>
-                    <td className="py-2 pr-2" data-inline>
-                      {names[e.operationId] ?? e.operationId}
-                    </td>
-                    <td className="py-2 pr-2" data-inline>
-                      {formatStation(e.fromStationFt)} – {formatStation(e.toStationFt)}
-                    </td>
-                    <td className="py-2 pr-2" data-label="Crew" data-empty={e.crew ? undefined : true}>
-                      {e.crew || "—"}
-                    </td>
+                    <ShiftCells e={e} date={false} shiftName={shiftName} names={names} />
                     <td className="py-2 pr-2" data-label="Weather" data-empty={e.tempF === null && !e.rain ? true : undefined}>
                       {e.tempF === null ? "—" : `${e.tempF} °F`}
                       {e.rain ? ", rain" : ""}
