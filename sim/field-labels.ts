@@ -127,6 +127,8 @@ const LABELS: Record<string, string | [string, string]> = {
   dailyReforecastHour: "Daily re-forecast hour",
   closureWeeklyDay: "Weekly closure e-mail day",
   closureWeeklyHour: "Weekly closure e-mail hour",
+  deleted: "Deleted shifts in the export",
+  part: "Part of the export",
   workDate: "Work date",
   operationId: "Operation",
   crew: "Crew",

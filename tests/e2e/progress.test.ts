@@ -172,6 +172,7 @@ describe("field log", () => {
     const deleted = engineer.getByTestId("deleted-shifts");
     await deleted.locator("summary").click();
     expect(await deleted.locator("summary").textContent()).toBe("Deleted shifts (1) — kept on record, not in any new forecast");
+    expect(await deleted.getByTestId("field-log-csv-with-deleted").getAttribute("href")).toBe(`/api/scenarios/${scenarioId}/exports/field-log.csv?deleted=include`);
     expect(await deleted.getByTestId("deleted-shift").textContent()).toMatch(/Overlay placement.*Rosa Tenney.*Dana Whitcomb, /);
     expect(await engineer.getByTestId("behind-field").textContent()).toMatch(/: 1 change in the field log is not in it — shifts worked after its data date, recorded or corrected since it was run, or deleted since\./);
     await screenshot(engineer, "field-log-deleted-shift");

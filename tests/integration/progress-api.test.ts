@@ -166,6 +166,23 @@ describe("progress entries", () => {
     expect(csv.headers.get("content-disposition")).toBe('attachment; filename="progress-deletes-field-log.csv"');
     const rows = Papa.parse<Record<string, string>>(csv.body, { header: true, skipEmptyLines: true }).data;
     expect(rows).toEqual([expect.objectContaining({ work_date: day(1), operation: "milling", operation_name: "Mechanical milling", station_from: "STA 0+00", station_to: "STA 3+00", length_ft: "300", crew: "M3", recorded_by: "Rosa Tenney" })]);
+    // With the deleted shifts (for an audit): the same shift, and the deleted ones marked with who deleted them and when.
+    const audit = await call(`/api/scenarios/${s.id}/exports/field-log.csv?deleted=include`, { cookie: viewer });
+    expect(audit.status).toBe(200);
+    expect(audit.headers.get("content-disposition")).toBe('attachment; filename="progress-deletes-field-log-with-deleted.csv"');
+    const all = Papa.parse<Record<string, string>>(audit.body, { header: true, skipEmptyLines: true }).data;
+    expect(all.filter((r) => r.status === "recorded")).toEqual([expect.objectContaining({ crew: "M3", deleted_by: "", deleted_at: "" })]);
+    // The milling Dana deleted and the overlay Rosa deleted again after it was put back; three rows in all.
+    const deletedRows = all.filter((r) => r.status === "deleted").map((r) => [r.operation, r.crew, r.deleted_by, Number.isNaN(Date.parse(r.deleted_at))]);
+    expect(deletedRows.sort()).toEqual([
+      ["milling", "M1", "Dana Whitcomb", false],
+      ["overlay", "M1", "Rosa Tenney", false],
+    ]);
+    expect(all).toHaveLength(3);
+    // Any other value is refused, naming what was asked for.
+    const bad = await call(`/api/scenarios/${s.id}/exports/field-log.csv?deleted=yes`, { cookie: viewer });
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields).toEqual([{ path: "deleted", label: "Deleted shifts in the export", message: "must be include, or left out" }]);
   });
 });
 

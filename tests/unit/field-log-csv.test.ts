@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import Papa from "papaparse";
-import { FIELD_LOG_COLUMNS, fieldLogCsv, type FieldLogRow } from "../../src/lib/exports/field-log-csv";
+import { DELETED_COLUMNS, FIELD_LOG_COLUMNS, fieldLogCsv, type FieldLogRow } from "../../src/lib/exports/field-log-csv";
 
 const names = { operations: { milling: "Mechanical milling" }, shifts: { night: "Night shift" } };
 const shift = (over: Partial<FieldLogRow> = {}): FieldLogRow => ({
@@ -43,5 +43,23 @@ describe("fieldLogCsv", () => {
     const [row] = read(fieldLogCsv([shift({ crew: '=HYPERLINK("http://evil.example","x")', lostReason: "@SUM(A1)" })], names)).data;
     expect(row.crew).toBe(`'=HYPERLINK("http://evil.example","x")`);
     expect(row.lost_reason).toBe("'@SUM(A1)");
+  });
+
+  it("with deleted shifts: every shift ever entered, in the order worked then entered, each marked recorded or deleted", () => {
+    const kept = [shift({ workDate: "2026-06-03", createdAt: new Date("2026-06-04T06:10:00Z") }), shift({ workDate: "2026-06-05", fromStationFt: 1600, toStationFt: 1900 })];
+    const gone = [
+      { ...shift({ workDate: "2026-06-04", crew: "M2" }), deletedByName: "Dana Whitcomb", deletedAt: new Date("2026-06-06T14:00:00Z") },
+      { ...shift({ workDate: "2026-06-03", crew: "M9", createdAt: new Date("2026-06-04T05:00:00Z") }), deletedByName: null, deletedAt: new Date("2026-06-05T09:00:00Z") },
+    ];
+    const parsed = read(fieldLogCsv(kept, names, { deleted: gone }));
+    expect(parsed.meta.fields).toEqual([...FIELD_LOG_COLUMNS, ...DELETED_COLUMNS]);
+    expect(parsed.data.map((r) => [r.work_date, r.crew, r.status, r.deleted_by, r.deleted_at])).toEqual([
+      ["2026-06-03", "M9", "deleted", "", "2026-06-05T09:00:00.000Z"],
+      ["2026-06-03", "M1", "recorded", "", ""],
+      ["2026-06-04", "M2", "deleted", "Dana Whitcomb", "2026-06-06T14:00:00.000Z"],
+      ["2026-06-05", "M1", "recorded", "", ""],
+    ]);
+    // Without them, the plain export: the log as it stands, its columns unchanged.
+    expect(read(fieldLogCsv(kept, names)).meta.fields).toEqual(FIELD_LOG_COLUMNS);
   });
 });

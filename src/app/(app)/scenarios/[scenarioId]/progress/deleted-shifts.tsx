@@ -21,8 +21,8 @@ export interface DeletedShiftView {
  * project engineer can see who deleted what and when, and those who record shifts can put one back. Folded away:
  * most days there is nothing to look at.
  */
-export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id: string) => string; names: Record<string, string>; canRecord: boolean }) {
-  const { rows, shiftName, names, canRecord } = props;
+export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id: string) => string; names: Record<string, string>; canRecord: boolean; csvHref: string }) {
+  const { rows, shiftName, names, canRecord, csvHref } = props;
   if (rows.length === 0) return null;
   return (
     <details className="mt-4 text-sm" data-testid="deleted-shifts">
@@ -64,6 +64,10 @@ export function DeletedShifts(props: { rows: DeletedShiftView[]; shiftName: (id:
           </tbody>
         </table>
       </ScrollBox>
+      {/* For an audit: every shift ever entered, each marked recorded or deleted — the plain download leaves these out. */}
+      <a className="btn-secondary mt-2" href={csvHref} download data-testid="field-log-csv-with-deleted">
+        Download the field log with deleted shifts (CSV)
+      </a>
     </details>
   );
 }

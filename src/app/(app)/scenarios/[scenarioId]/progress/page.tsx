@@ -131,7 +131,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           )}
         </div>
         <ProgressTable scenarioId={scenario.id} entries={entries} facts={facts} canRecord={canRecord} names={names} />
-        <DeletedShifts rows={deleted} shiftName={shiftName} names={names} canRecord={canRecord} />
+        <DeletedShifts rows={deleted} shiftName={shiftName} names={names} canRecord={canRecord} csvHref={`/api/scenarios/${scenario.id}/exports/field-log.csv?deleted=include`} />
       </section>
       <section className="card space-y-4" aria-labelledby="drift-heading">
         <h2 id="drift-heading">Re-forecast and drift</h2>
