@@ -64,6 +64,9 @@ export function workingDays(cal: Pick<OpCalendar, "open" | "shifts">, from: numb
 export function planReference(run: { trace: unknown; scenarioVersion: number } | null, version: number, plan: Scenario): PlanReference | null {
   if (!run || run.scenarioVersion !== version || !run.trace) return null;
   const trace = run.trace as Trace;
+  // A stored trace another version wrote differently is no reference, rather than the project page's error (and the
+  // forecast e-mail pass's, for every project).
+  if (!Array.isArray(trace.packets) || !Array.isArray(trace.pauses)) return null;
   // Stored as JSON, an unfinished packet's finish is null: Infinity, as the engine had it.
   const finite = (v: number | null) => (v === null ? Infinity : v);
   return {

@@ -64,6 +64,9 @@ describe("against the plan", () => {
     expect(planReference({ trace: stored, scenarioVersion: 2 }, 3, plan)).toBeNull();
     expect(planReference({ trace: null, scenarioVersion: 3 }, 3, plan)).toBeNull();
     expect(planReference(null, 3, plan)).toBeNull();
+    // A trace stored in another shape (another version's) is no reference, not a thrown error.
+    expect(planReference({ trace: { packets: "?" }, scenarioVersion: 3 }, 3, plan)).toBeNull();
+    expect(planReference({ trace: [1, 2], scenarioVersion: 3 }, 3, plan)).toBeNull();
     const ref = planReference({ trace: stored, scenarioVersion: 3 }, 3, plan)!;
     expect(ref.trace.packets[0].finish).toBe(Infinity);
     expect(ref.trace.pauses[0].end).toBe(Infinity);
