@@ -5,7 +5,7 @@
  * all run through it.
  */
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { eachItemOnItsOwn } from "@/lib/server/background-pass";
+import { eachItemOnItsOwn, startBackgroundPass } from "@/lib/server/background-pass";
 import { DatabaseError } from "@db/safe-errors";
 
 let logged: string[];
@@ -56,3 +56,26 @@ describe("eachItemOnItsOwn", () => {
     expect(logged.map((l) => l.split(" failed")[0])).toEqual(["[pourline] test pass c for k", "[pourline] test pass d for k"]);
   });
 });
+
+describe("startBackgroundPass", () => {
+  it("runs the pass on its interval and logs a failing pass once while it fails the same way, again when it fails differently", async () => {
+    vi.useFakeTimers();
+    try {
+      const errors = [new DatabaseError("57P01"), new DatabaseError("57P01"), new DatabaseError("08006"), null];
+      let runs = 0;
+      startBackgroundPass("test pass e", 1_000, async () => {
+        const e = errors[runs++];
+        if (e) throw e;
+      });
+      for (let i = 0; i < 4; i++) await vi.advanceTimersByTimeAsync(1_000);
+      expect(runs).toBe(4);
+      expect(logged).toEqual([
+        "[pourline] test pass e pass failed: DatabaseError: Database query failed (57P01)",
+        "[pourline] test pass e pass failed: DatabaseError: Database query failed (08006)",
+      ]);
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+});
+

@@ -10,20 +10,31 @@ import { describeError } from "./log";
 
 const timers = ((globalThis as unknown as { __pourlinePasses?: Map<string, ReturnType<typeof setInterval>> }).__pourlinePasses ??= new Map());
 
+/** The last error logged per failing thing (a pass, or one item of a pass): one that keeps failing the same way is reported once. */
+const lastLogged = new Map<string, string>();
+
+/** Runs `work`; a throw is logged as "<what> failed: <describeError>" unless `key` last failed the same way. */
+async function loggedOnce(key: string, what: string, work: () => Promise<unknown>): Promise<boolean> {
+  try {
+    await work();
+    lastLogged.delete(key);
+    return true;
+  } catch (e) {
+    const msg = describeError(e);
+    if (lastLogged.get(key) !== msg) console.error(`[pourline] ${what} failed: ${msg}`);
+    lastLogged.set(key, msg);
+    return false;
+  }
+}
+
 export function startBackgroundPass(name: string, everyMs: number, pass: () => Promise<unknown>) {
   if (timers.has(name)) return;
   let busy = false;
-  let lastError = "";
   const timer = setInterval(async () => {
     if (busy) return;
     busy = true;
     try {
-      await pass();
-      lastError = "";
-    } catch (e) {
-      const msg = describeError(e);
-      if (msg !== lastError) console.error(`[pourline] ${name} pass failed: ${msg}`);
-      lastError = msg;
+      await loggedOnce(name, `${name} pass`, pass);
     } finally {
       busy = false;
     }
@@ -31,9 +42,6 @@ export function startBackgroundPass(name: string, everyMs: number, pass: () => P
   timer.unref?.();
   timers.set(name, timer);
 }
-
-/** The last error logged per pass and item, so an item that keeps failing the same way is reported once. */
-const itemErrors = new Map<string, string>();
 
 /**
  * A pass's work, item by item (a project, a scenario): an item that throws is logged — by the pass's name, the
@@ -44,16 +52,7 @@ const itemErrors = new Map<string, string>();
 export async function eachItemOnItsOwn<T>(pass: string, items: Iterable<T>, keyOf: (item: T) => string, step: (item: T) => Promise<void>): Promise<number> {
   let failed = 0;
   for (const item of items) {
-    const key = `${pass}\u0000${keyOf(item)}`;
-    try {
-      await step(item);
-      itemErrors.delete(key);
-    } catch (e) {
-      failed++;
-      const msg = describeError(e);
-      if (itemErrors.get(key) !== msg) console.error(`[pourline] ${pass} for ${keyOf(item)} failed: ${msg}`);
-      itemErrors.set(key, msg);
-    }
+    if (!(await loggedOnce(`${pass}\u0000${keyOf(item)}`, `${pass} for ${keyOf(item)}`, () => step(item)))) failed++;
   }
   return failed;
 }
