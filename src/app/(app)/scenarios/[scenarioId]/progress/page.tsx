@@ -80,7 +80,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   const shiftName = (id: string) => plan.calendar.shifts.find((s) => s.id === id)?.name ?? id;
   const lastDate = lastWorkDate(entries);
   const points: DriftPoint[] = [
-    ...(planRun ? [{ label: "Plan", made: `run ${formatDateTime(planRun.createdAt)}`, ...((planRun.summary as { finish: { p50: string; p80: string } }).finish) }] : []),
+    ...(planRun ? [{ label: "Plan", made: runMadeText({ at: planRun.createdAt, byName: null, automatic: false }), ...((planRun.summary as { finish: { p50: string; p80: string } }).finish) }] : []),
     ...drift.map((r) => ({
       label: formatIsoDate(r.dataDate),
       // Two re-forecasts of one data date (a shift recorded later that day) are told apart by when they were run.

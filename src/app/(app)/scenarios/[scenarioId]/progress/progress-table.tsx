@@ -6,7 +6,7 @@ import { api, ApiError } from "@/lib/api-client";
 import { formatDateTime, formatIsoDate, formatStation } from "@/lib/format";
 import { DISCOVERED_LABELS } from "@/lib/progress-schema";
 import { ProgressForm, type PlanFacts } from "./progress-form";
-import { ShiftCells, ShiftHeads } from "./shift-columns";
+import { ShiftCells, ShiftHeads, WeatherAndLostCells } from "./shift-columns";
 // Type only: erased from the client bundle, so the server-only query module is never shipped.
 import type { ProgressFields } from "@db/queries/progress";
 
@@ -148,13 +148,7 @@ export function ProgressTable({ scenarioId, entries, facts, canRecord, names }: 
               <Fragment key={e.id}>
                 <tr className="border-b border-line/60 align-top" data-testid="progress-row">
                   <ShiftCells e={e} shiftName={shiftName} names={names} dayHref={(day) => `/scenarios/${scenarioId}/progress/daily?date=${day}`} />
-                  <td className="py-2 pr-3" data-label="Weather" data-empty={e.tempF === null && !e.rain ? true : undefined}>
-                    {e.tempF === null ? "—" : `${e.tempF} °F`}
-                    {e.rain ? ", rain" : ""}
-                  </td>
-                  <td className="py-2 pr-3" data-label="Lost" data-empty={e.lostHours > 0 ? undefined : true}>
-                    {e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}
-                  </td>
+                  <WeatherAndLostCells e={e} />
                   <td className="py-2 pr-3" data-label="Discovered" data-empty={e.discovered.length === 0 ? true : undefined}>
                     {e.discovered.length === 0
                       ? "—"

@@ -57,3 +57,18 @@ export function ShiftCells(props: {
     </>
   );
 }
+
+/** The weather seen and the hours lost, for the log and a day's report alike (each named, or left out, on a phone). */
+export function WeatherAndLostCells({ e }: { e: { tempF: number | null; rain: boolean; lostHours: number; lostReason: string } }) {
+  return (
+    <>
+      <td className="py-2 pr-3" data-label="Weather" data-empty={e.tempF === null && !e.rain ? true : undefined}>
+        {e.tempF === null ? "—" : `${e.tempF} °F`}
+        {e.rain ? ", rain" : ""}
+      </td>
+      <td className="py-2 pr-3" data-label="Lost" data-empty={e.lostHours > 0 ? undefined : true}>
+        {e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}
+      </td>
+    </>
+  );
+}

@@ -12,7 +12,7 @@ import { daySum, neighbourDays, readDay } from "@/lib/daily-report";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { ProgressToDate } from "@/components/progress-to-date";
 import { PrintButton } from "../../brief/print-button";
-import { ShiftCells, ShiftHeads } from "../shift-columns";
+import { ShiftCells, ShiftHeads, WeatherAndLostCells } from "../shift-columns";
 
 export const metadata: Metadata = { title: "Daily report" };
 
@@ -118,13 +118,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
                 {shifts.map((e) => (
                   <tr key={e.id} className="border-b border-line/60 align-top">
                     <ShiftCells e={e} date={false} shiftName={shiftName} names={names} />
-                    <td className="py-2 pr-2" data-label="Weather" data-empty={e.tempF === null && !e.rain ? true : undefined}>
-                      {e.tempF === null ? "—" : `${e.tempF} °F`}
-                      {e.rain ? ", rain" : ""}
-                    </td>
-                    <td className="py-2 pr-2" data-label="Lost" data-empty={e.lostHours > 0 ? undefined : true}>
-                      {e.lostHours > 0 ? `${e.lostHours} h (${e.lostReason})` : "—"}
-                    </td>
+                    <WeatherAndLostCells e={e} />
                     <td className="py-2" data-label="Recorded by">
                       {e.enteredByName}
                     </td>
