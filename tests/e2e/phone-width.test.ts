@@ -81,6 +81,16 @@ describe("on a phone", () => {
     await screenshot(page, "phone-tabs");
   });
 
+  it("the Outlook's date charts keep the tick that names the year when a phone-wide chart drops the crowded ones", async () => {
+    const page = await phone("viewer");
+    await new ScenarioPage(page, scenarioId).open("outlook");
+    for (const chart of ["confidence-curve", "finish-histogram"]) {
+      const ticks = page.locator(`[data-testid=${chart}] .recharts-xAxis-tick-labels .recharts-cartesian-axis-tick-value`);
+      await ticks.first().waitFor({ timeout: 30_000 });
+      expect(await ticks.first().textContent(), chart).toMatch(/ \d{4}$/);
+    }
+  });
+
   it("an inspector's field log, daily report and week-ahead board fit the screen; the log's shifts read as cards, nothing off to the side", async () => {
     const page = await phone("inspector");
     const scenario = new ScenarioPage(page, scenarioId);

@@ -59,6 +59,8 @@ export function ConfidenceChart({
           dataKey="x"
           domain={[lo, hi]}
           ticks={ticks}
+          // Keep the first tick, the one that carries the year, when a phone-wide chart drops the overlapping ones.
+          interval="preserveStart"
           tickFormatter={label}
           tick={AXIS_TICK}
           allowDataOverflow
