@@ -5,21 +5,31 @@ import type { Scenario } from "@sim/schema";
 import { formatDateTime, formatIsoDate } from "@/lib/format";
 import { lastWorkDate, progressSentence, progressToDate, type FieldLogRecord } from "@/lib/progress-to-date";
 import { againstPlanFor, againstPlanSentence } from "@/lib/against-plan";
+import { eachItemOnItsOwn } from "./background-pass";
 
-type PlanLog = { scenarioId: string; version: number; entries: FieldLogRecord[] };
+type PlanLog = { scenarioId: string; version: number; definition: unknown; entries: FieldLogRecord[] };
 
-/** `make` for each plan of record with shifts in its field log and a plan that parses, by scenario id (one read of the logs). */
-async function perPlanLog<T>(planScenarioIds: ReadonlyArray<string | null>, make: (plan: Scenario, log: PlanLog) => T | null | Promise<T | null>): Promise<Map<string, T>> {
-  const ids = [...new Set(planScenarioIds.filter((id): id is string => id !== null))];
+/**
+ * `make` for each log with shifts and a plan that parses, by scenario id. A plan whose sentence throws has none and
+ * is logged (src/lib/server/background-pass.ts `eachItemOnItsOwn`: its id and the error's class, once while it keeps
+ * failing): one odd plan must not take the project list, or every project's forecast e-mail, down with it.
+ */
+export async function eachPlanLog<T>(logs: ReadonlyArray<PlanLog>, make: (plan: Scenario, log: PlanLog) => T | null | Promise<T | null>): Promise<Map<string, T>> {
   const out = new Map<string, T>();
-  for (const log of await listLogsOfScenarios({ scenarioIds: ids })) {
-    if (log.entries.length === 0) continue;
+  await eachItemOnItsOwn("progress sentence", logs, (log) => log.scenarioId, async (log) => {
+    if (log.entries.length === 0) return;
     const parsed = parseScenario(log.definition);
-    if (!parsed.ok) continue;
+    if (!parsed.ok) return;
     const made = await make(parsed.scenario, log);
     if (made !== null) out.set(log.scenarioId, made);
-  }
+  });
   return out;
+}
+
+/** `eachPlanLog` over the plans of record given (one read of the logs). */
+async function perPlanLog<T>(planScenarioIds: ReadonlyArray<string | null>, make: (plan: Scenario, log: PlanLog) => T | null | Promise<T | null>): Promise<Map<string, T>> {
+  const ids = [...new Set(planScenarioIds.filter((id): id is string => id !== null))];
+  return eachPlanLog(await listLogsOfScenarios({ scenarioIds: ids }), make);
 }
 
 /**
