@@ -121,4 +121,22 @@ describe("on a phone", () => {
     expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
     expect(await seriousA11yViolations(page)).toEqual([]);
   });
+
+  it("an administrator's Members page: each person's role and Remove lie inside the screen, not off to the side", async () => {
+    const page = await phone("admin");
+    await page.goto(`${APP_URL}/projects/${projectId}/members`);
+    const people = page.getByRole("region", { name: "People on this project" });
+    const roles = people.getByRole("combobox");
+    await roles.first().waitFor();
+    const removes = people.getByRole("button", { name: "Remove" });
+    // At least the demo's five members (other tests may add people), each removable but the administrator herself.
+    expect(await roles.count()).toBeGreaterThanOrEqual(5);
+    expect(await removes.count()).toBe((await roles.count()) - 1);
+    for (const control of [...(await roles.all()), ...(await removes.all())]) {
+      const b = (await control.boundingBox())!;
+      expect(b.x).toBeGreaterThanOrEqual(0);
+      expect(b.x + b.width).toBeLessThanOrEqual(PHONE);
+    }
+    await screenshot(page, "phone-members");
+  });
 });

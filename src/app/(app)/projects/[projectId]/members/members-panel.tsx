@@ -71,7 +71,8 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
             {members.error.message}
           </p>
         ) : (
-          <table className="mt-3 w-full min-w-[560px] border-collapse">
+          <table className="stack-on-phone mt-3 w-full border-collapse max-md:px-5 md:min-w-[560px]">
+            {/* On a phone each person is a card (globals.css stack-on-phone): the role and Remove were off the screen's edge. */}
             <thead>
               <tr>
                 <th className="table-head">Person</th>
@@ -83,15 +84,15 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
             </thead>
             <tbody>
               {members.data.map((m) => (
-                <tr key={m.userId}>
-                  <td className="table-cell">
+                <tr key={m.userId} className="border-b border-line">
+                  <td className="px-3 py-2 text-sm">
                     <span className="font-medium">{m.name}</span>
                     <span className="block text-xs text-muted">
                       {m.email}
                       {m.title ? ` · ${m.title}` : ""}
                     </span>
                   </td>
-                  <td className="table-cell">
+                  <td className="px-3 py-2 text-sm">
                     <label className="sr-only" htmlFor={`role-${m.userId}`}>
                       Role of {m.name}
                     </label>
@@ -103,7 +104,7 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
                       ))}
                     </select>
                   </td>
-                  <td className="table-cell text-right">
+                  <td className="px-3 py-2 text-sm md:text-right" data-actions {...(m.userId === selfId ? { "data-empty": true } : {})}>
                     {m.userId !== selfId && (
                       <button type="button" className="btn-danger" onClick={() => window.confirm(`Remove ${m.name} from this project?`) && remove.mutate(m.userId)}>
                         Remove

@@ -26,7 +26,8 @@ const TONE: Record<OperationCell["status"], string> = {
 };
 
 function age(min: number | null): string {
-  if (min === null) return "";
+  if (min === null) return "at a time not on record";
+  if (min < 1) return "just now"; // "0 min ago" reads like a fault
   return min < 90 ? `${min} min ago` : min < 2880 ? `${Math.round(min / 60)} h ago` : `${Math.round(min / 1440)} days ago`;
 }
 
