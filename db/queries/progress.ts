@@ -273,6 +273,20 @@ export async function getLatestPlanRunWithTrace({ scenarioId }: { scenarioId: st
   return row ?? null;
 }
 
+/**
+ * `getLatestPlanRunWithTrace` for many scenarios in one query, by scenario id (a scenario never run has none): the
+ * project list and the forecast e-mails measure each plan of record against its plan run without a query per project.
+ */
+export async function listLatestPlanRunsWithTrace({ scenarioIds }: { scenarioIds: string[] }) {
+  if (scenarioIds.length === 0) return new Map<string, never>();
+  const rows = await getDb()
+    .selectDistinctOn([simulationRuns.scenarioId], { scenarioId: simulationRuns.scenarioId, ...planRunColumns, trace: sql<unknown>`${simulationRuns.results} -> 'representative' -> 'trace'` })
+    .from(simulationRuns)
+    .where(and(inArray(simulationRuns.scenarioId, scenarioIds), isNull(simulationRuns.dataDate), isForecast))
+    .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt), desc(simulationRuns.id));
+  return new Map(rows.map(({ scenarioId, ...run }) => [scenarioId, run]));
+}
+
 /** The latest re-forecast's full results (for the chart with actuals). */
 export async function getLatestReforecast({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()

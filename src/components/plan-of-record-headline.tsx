@@ -8,7 +8,7 @@ export type { PlanOfRecordView } from "@/lib/plan-of-record-text";
  * the target, and how old the forecast is — said as stale when the plan changed after it. The words are
  * src/lib/plan-of-record-text.ts's, the same as the forecast e-mail's. `progress`: how far the field log says the
  * job has got (src/lib/server/plan-progress.ts), said under the forecast; `against`: how it stands against the plan
- * run (the project page's, not the list's); `publicationLag`: the closures the public sees came from an earlier forecast.
+ * run; `publicationLag`: the closures the public sees came from an earlier forecast.
  */
 export function PlanOfRecordHeadline({
   plan,

@@ -1,5 +1,5 @@
 import "server-only";
-import { getLatestPlanRunWithTrace, listLogsOfScenarios } from "@db/queries/progress";
+import { listLatestPlanRunsWithTrace, listLogsOfScenarios } from "@db/queries/progress";
 import { parseScenario } from "@sim/validate";
 import type { Scenario } from "@sim/schema";
 import { formatDateTime, formatIsoDate } from "@/lib/format";
@@ -26,31 +26,20 @@ export async function eachPlanLog<T>(logs: ReadonlyArray<PlanLog>, make: (plan: 
   return out;
 }
 
-/** `eachPlanLog` over the plans of record given (one read of the logs). */
-async function perPlanLog<T>(planScenarioIds: ReadonlyArray<string | null>, make: (plan: Scenario, log: PlanLog) => T | null | Promise<T | null>): Promise<Map<string, T>> {
+/**
+ * Each plan of record's progress sentence (src/lib/progress-to-date.ts `progressSentence`) and, beside it, the
+ * standing against its plan run (src/lib/against-plan.ts `againstPlanSentence`; null without a run of the plan as it
+ * stands), by scenario id: for the project list, the project page and the forecast e-mail. Three queries however many
+ * projects (the logs, the plans, each plan's newest plan run with its median iteration). A plan with no shift in its
+ * log, or one that no longer parses, has neither.
+ */
+export async function planProgressAndAgainst(planScenarioIds: ReadonlyArray<string | null>): Promise<Map<string, { progress: string | null; against: string | null }>> {
   const ids = [...new Set(planScenarioIds.filter((id): id is string => id !== null))];
-  return eachPlanLog(await listLogsOfScenarios({ scenarioIds: ids }), make);
-}
-
-/**
- * Each plan of record's progress sentence (src/lib/progress-to-date.ts `progressSentence`), by scenario id, for the
- * project list: two queries however many projects. A plan with no shift in its log, or one that no longer parses, has
- * none.
- */
-export function planProgressTexts(planScenarioIds: ReadonlyArray<string | null>): Promise<Map<string, string>> {
-  return perPlanLog(planScenarioIds, (plan, log) => progressSentence(plan, log.entries, formatIsoDate));
-}
-
-/**
- * The progress sentence and, beside it, the standing against the plan run (src/lib/against-plan.ts
- * `againstPlanSentence`; null without a run of the plan as it stands): for the project page and the forecast e-mail,
- * about one project at a time — it reads each plan run's trace, which the project list does without.
- */
-export function planProgressAndAgainst(planScenarioIds: ReadonlyArray<string | null>): Promise<Map<string, { progress: string | null; against: string | null }>> {
-  return perPlanLog(planScenarioIds, async (plan, log) => {
+  const [logs, runs] = await Promise.all([listLogsOfScenarios({ scenarioIds: ids }), listLatestPlanRunsWithTrace({ scenarioIds: ids })]);
+  return eachPlanLog(logs, (plan, log) => {
     const rows = progressToDate(plan, log.entries);
     const toDate = lastWorkDate(log.entries);
-    const against = againstPlanFor({ rows, run: await getLatestPlanRunWithTrace({ scenarioId: log.scenarioId }), version: log.version, plan, toDate, formatDate: formatIsoDate, formatDateTime });
+    const against = againstPlanFor({ rows, run: runs.get(log.scenarioId) ?? null, version: log.version, plan, toDate, formatDate: formatIsoDate, formatDateTime });
     return { progress: progressSentence(plan, log.entries, formatIsoDate), against: against && againstPlanSentence(rows, against.byOperation, toDate, formatIsoDate) };
   });
 }

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { listProjectsForUser } from "@db/queries/projects";
 import { pageUser } from "@/lib/server/page-access";
-import { planProgressTexts } from "@/lib/server/plan-progress";
+import { planProgressAndAgainst } from "@/lib/server/plan-progress";
 import { RoleBadge } from "@/components/role-badge";
 import { PlanOfRecordHeadline } from "@/components/plan-of-record-headline";
 import { formatDateTime, formatStation } from "@/lib/format";
@@ -13,7 +13,7 @@ export const metadata: Metadata = { title: "Projects" };
 export default async function ProjectsPage() {
   const { user } = await pageUser();
   const projects = await listProjectsForUser({ userId: user.id });
-  const progress = await planProgressTexts(projects.map((p) => p.planScenarioId));
+  const progress = await planProgressAndAgainst(projects.map((p) => p.planScenarioId));
   const active = projects.filter((p) => p.archivedAt === null);
   const archived = projects.filter((p) => p.archivedAt !== null);
   return (
@@ -50,7 +50,7 @@ export default async function ProjectsPage() {
 
 type ProjectRow = Awaited<ReturnType<typeof listProjectsForUser>>[number];
 
-function ProjectCards({ projects, progress }: { projects: ProjectRow[]; progress: Map<string, string> }) {
+function ProjectCards({ projects, progress }: { projects: ProjectRow[]; progress: Awaited<ReturnType<typeof planProgressAndAgainst>> }) {
   return (
     <ul className="grid gap-4 md:grid-cols-2">
       {projects.map((p) => (
@@ -78,7 +78,7 @@ function ProjectCards({ projects, progress }: { projects: ProjectRow[]; progress
             <div className="mt-4 border-t border-line pt-3">
               <p className="text-xs font-semibold uppercase tracking-wide text-muted">Plan of record</p>
               <div className="mt-1">
-                <PlanOfRecordHeadline plan={p} progress={p.planScenarioId ? progress.get(p.planScenarioId) : null} />
+                <PlanOfRecordHeadline plan={p} {...(p.planScenarioId ? progress.get(p.planScenarioId) : null)} />
               </div>
             </div>
           </Link>
