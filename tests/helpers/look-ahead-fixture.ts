@@ -1,6 +1,6 @@
 /**
  * A week-ahead fixture: the field-log deck (started three weeks ago, every day a work day, windows on every
- * day type) with holidays worked through and a one-day winter on New Year's Eve, so no day of the board is
+ * day type, holidays worked through, a one-day winter on New Year's Eve), so no day of the board is
  * closed by the calendar outside the last week of December; overlay placement gated at 45 °F and rising, no rain.
  */
 import { call } from "./app";
@@ -8,10 +8,8 @@ import { pastDefinition } from "./progress-fixture";
 
 export function lookAheadDefinition(name: string): Record<string, any> {
   const def = pastDefinition(name);
-  // A winter must run across the new year (MM-DD end before start), so the shortest one is New Year's Eve
-  // alone; it touches the board only when the tests run in the last week of December.
-  def.calendar.season = { plan: "single", winterStart: "12-31", winterEnd: "01-01" };
-  def.calendar.holidays = { policy: "workThrough", observeFederal: true };
+  // pastDefinition's winter is New Year's Eve alone (the shortest a winter can be): it touches the board only when
+  // the tests run in the last week of December, and the tests step over it (`openInFixture`).
   def.timeZone = "America/Chicago";
   const overlay = def.operations.find((o: { id: string }) => o.id === "overlay");
   overlay.gates = { minTempF: 45, rising: true, noRain: true };

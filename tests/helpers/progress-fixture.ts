@@ -1,6 +1,6 @@
 /**
  * A field-log fixture: the small deterministic deck (1,000 ft from STA 0+00, milling then overlay) moved so it
- * started three weeks before today, with a short winter that does not touch those weeks, created in the demo
+ * started three weeks before today, with the shortest winter there is (31 Dec alone), created in the demo
  * project through the API. Progress entries must not be in the future, so a fixture of the seeded demo
  * (which starts in April 2027) could not take any.
  */
@@ -25,6 +25,9 @@ export function atLocal(day: string, hour: number, timeZone = "America/Chicago")
   throw new Error(`no instant reads ${day} ${hour}:30 in ${timeZone}`);
 }
 
+/** Whether the fixtures' calendar works `iso` (`YYYY-MM-DD`): every day but 31 Dec, their one-day winter. */
+export const openInFixture = (iso: string): boolean => !iso.endsWith("-12-31");
+
 /** `iso` (`YYYY-MM-DD`) moved by `n` calendar days. */
 export const plusDays = (iso: string, n: number): string => format(addDays(parseISO(iso), n), "yyyy-MM-dd");
 
@@ -33,9 +36,12 @@ export function pastDefinition(name: string): Record<string, any> {
   def.name = name;
   def.startDate = isoDaysFromToday(-21);
   delete def.targetDate;
-  // A one-day "winter" (31 Dec to 1 Jan), so progress and re-forecast run at any time of year; every day a work day.
+  // The shortest winter there is (31 Dec alone: a winter runs into the next year), so progress and re-forecast run at
+  // any time of year; every day a work day, holidays worked through (a test run the day before Thanksgiving must not
+  // find the next day stood down). Tests that look at given days step over 31 Dec (`openInFixture`).
   def.calendar.season = { plan: "single", winterStart: "12-31", winterEnd: "01-01" };
   def.calendar.workDays = [0, 1, 2, 3, 4, 5, 6];
+  def.calendar.holidays = { policy: "workThrough", observeFederal: true };
   def.calendar.closureWindows = def.calendar.closureWindows.map((w: Record<string, unknown>) => ({ ...w, dayTypes: ["weekday", "saturday", "sunday", "holiday"] }));
   return def;
 }
