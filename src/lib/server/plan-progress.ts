@@ -14,13 +14,13 @@ type PlanLog = { scenarioId: string; version: number; definition: unknown; entri
  * is logged (src/lib/server/background-pass.ts `eachItemOnItsOwn`: its id and the error's class, once while it keeps
  * failing): one odd plan must not take the project list, or every project's forecast e-mail, down with it.
  */
-export async function eachPlanLog<T>(logs: ReadonlyArray<PlanLog>, make: (plan: Scenario, log: PlanLog) => T | null | Promise<T | null>): Promise<Map<string, T>> {
+export async function eachPlanLog<T>(logs: ReadonlyArray<PlanLog>, make: (plan: Scenario, log: PlanLog) => T | null): Promise<Map<string, T>> {
   const out = new Map<string, T>();
   await eachItemOnItsOwn("progress sentence", logs, (log) => log.scenarioId, async (log) => {
     if (log.entries.length === 0) return;
     const parsed = parseScenario(log.definition);
     if (!parsed.ok) return;
-    const made = await make(parsed.scenario, log);
+    const made = make(parsed.scenario, log);
     if (made !== null) out.set(log.scenarioId, made);
   });
   return out;
