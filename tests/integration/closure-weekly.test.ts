@@ -12,6 +12,7 @@ import { call } from "../helpers/app";
 import { appDatabase, freshTeam } from "../helpers/fresh-team";
 import { atLocal, isoDaysFromToday, pastDefinition, plusDays } from "../helpers/progress-fixture";
 import { serverRunDone } from "../helpers/jobs";
+import { refuseRows } from "../helpers/refuse-rows";
 import { formatIsoDate, formatIsoDay } from "@/lib/format";
 import { parseIsoDate, weekdayOfDayNumber } from "@sim/dates";
 import { sendWeeklyClosureEmails } from "@/lib/server/closure-weekly";
@@ -111,24 +112,17 @@ describe("weekly closure e-mail", () => {
     const weekday = weekdayOfDayNumber(parseIsoDate(BASE));
     expect((await call(`/api/projects/${other.projectId}/closure-weekly`, { method: "PUT", cookie: otherEngineer, body: { closureWeeklyDay: weekday, closureWeeklyHour: 6 } })).status).toBe(200);
     // The database refuses every change to one project (as a failing disk or a lock timeout would): its claim throws.
-    const refuse = (id: string) =>
-      db.unsafe(`
-        CREATE OR REPLACE FUNCTION pourline_test_refuse_project() RETURNS trigger AS $$
-        BEGIN
-          IF NEW.id = '${id}' THEN RAISE EXCEPTION 'test: project update refused'; END IF;
-          RETURN NEW;
-        END $$ LANGUAGE plpgsql;
-        DROP TRIGGER IF EXISTS pourline_test_refuse_project ON projects;
-        CREATE TRIGGER pourline_test_refuse_project BEFORE UPDATE ON projects FOR EACH ROW EXECUTE FUNCTION pourline_test_refuse_project();`);
+    const refuse = (id: string) => refuseRows(db, { name: "project", table: "projects", on: "UPDATE", when: `NEW.id = '${id}'` });
     const both = async (now: Date) => (await sendWeeklyClosureEmails(now)).filter((d) => d.projectId === projectId || d.projectId === other.projectId).map((d) => d.projectId);
+    let allow: () => Promise<void> = async () => {};
     try {
       // Each of the two refused in turn (a week apart): one of the two weeks has the refused project looked at first.
-      await refuse(projectId);
+      allow = await refuse(projectId);
       expect(await both(atLocal(plusDays(BASE, 14), 6))).toEqual([other.projectId]);
-      await refuse(other.projectId);
+      allow = await refuse(other.projectId);
       expect(await both(atLocal(plusDays(BASE, 21), 6))).toEqual([projectId]);
     } finally {
-      await db.unsafe(`DROP TRIGGER IF EXISTS pourline_test_refuse_project ON projects; DROP FUNCTION IF EXISTS pourline_test_refuse_project();`);
+      await allow();
     }
     // The refused weeks were not marked sent: the next pass sends each.
     expect(await both(atLocal(plusDays(BASE, 21), 7))).toEqual([other.projectId]);

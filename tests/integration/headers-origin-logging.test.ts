@@ -9,6 +9,7 @@ import { randomUUID } from "node:crypto";
 import { sql } from "drizzle-orm";
 import { APP_URL, call, demoDefinition, kestrelProject, signInAs } from "../helpers/app";
 import { appDatabase } from "../helpers/fresh-team";
+import { refuseRows } from "../helpers/refuse-rows";
 import { createPool } from "../../db/client";
 
 const db = appDatabase();
@@ -16,19 +17,12 @@ const appLog = process.env.POURLINE_APP_LOG;
 if (!appLog) throw new Error("POURLINE_APP_LOG is not set: run through `npm test`, which records the app's output there.");
 const PROBE = "log-probe-";
 
+let allowScenarios: () => Promise<void>;
 beforeAll(async () => {
-  await db.unsafe(`
-    CREATE OR REPLACE FUNCTION pourline_test_refuse_scenario() RETURNS trigger AS $$
-    BEGIN
-      IF NEW.name LIKE '${PROBE}%' THEN RAISE EXCEPTION 'test: scenario insert refused'; END IF;
-      RETURN NEW;
-    END $$ LANGUAGE plpgsql;
-    DROP TRIGGER IF EXISTS pourline_test_refuse_scenario ON scenarios;
-    CREATE TRIGGER pourline_test_refuse_scenario BEFORE INSERT ON scenarios FOR EACH ROW EXECUTE FUNCTION pourline_test_refuse_scenario();
-  `);
+  allowScenarios = await refuseRows(db, { name: "scenario", table: "scenarios", on: "INSERT", when: `NEW.name LIKE '${PROBE}%'` });
 });
 afterAll(async () => {
-  await db.unsafe(`DROP TRIGGER IF EXISTS pourline_test_refuse_scenario ON scenarios; DROP FUNCTION IF EXISTS pourline_test_refuse_scenario();`);
+  await allowScenarios?.();
   await db.end();
 });
 

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import postgres from "postgres";
 import { createHash, randomUUID } from "node:crypto";
 import { call, kestrelProject, signInAs } from "../helpers/app";
+import { refuseRows } from "../helpers/refuse-rows";
 import { hashPassword } from "../../src/lib/server/password";
 import { findMail, linkIn, type CaughtMessage } from "../../src/lib/server/mailbox";
 
@@ -30,19 +31,12 @@ async function signInCookie(email: string, password: string): Promise<string | n
 
 const tokenOf = (link: string) => new URL(link).pathname.split("/").pop()!;
 
+let allowOutbox: () => Promise<void>;
 beforeAll(async () => {
-  await appDb.unsafe(`
-    CREATE OR REPLACE FUNCTION pourline_test_refuse_outbox() RETURNS trigger AS $$
-    BEGIN
-      IF NEW.to_address LIKE '${REFUSED}%' THEN RAISE EXCEPTION 'test: outbox insert refused'; END IF;
-      RETURN NEW;
-    END $$ LANGUAGE plpgsql;
-    DROP TRIGGER IF EXISTS pourline_test_refuse_outbox ON email_outbox;
-    CREATE TRIGGER pourline_test_refuse_outbox BEFORE INSERT ON email_outbox FOR EACH ROW EXECUTE FUNCTION pourline_test_refuse_outbox();
-  `);
+  allowOutbox = await refuseRows(appDb, { name: "outbox", table: "email_outbox", on: "INSERT", when: `NEW.to_address LIKE '${REFUSED}%'` });
 });
 afterAll(async () => {
-  await appDb.unsafe(`DROP TRIGGER IF EXISTS pourline_test_refuse_outbox ON email_outbox; DROP FUNCTION IF EXISTS pourline_test_refuse_outbox();`);
+  await allowOutbox?.();
   await appDb.end();
 });
 
