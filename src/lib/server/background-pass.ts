@@ -4,7 +4,7 @@ import "server-only";
  * e-mails, the daily re-forecast, the weekly closure e-mail): one pass every `everyMs`, never two at once, an error
  * logged once per distinct message (the database may be away for a while) and the loop kept alive; one loop per name
  * per process even if register() runs twice, and never the reason a process stays alive. Within a pass, each project
- * is worked on its own (`eachItemOnItsOwn`).
+ * is worked on its own (`eachItemOnItsOwn`; the project list's progress sentences go plan by plan through it too).
  */
 import { describeError } from "./log";
 
@@ -47,7 +47,8 @@ export function startBackgroundPass(name: string, everyMs: number, pass: () => P
  * A pass's work, item by item (a project, a scenario): an item that throws is logged — by the pass's name, the
  * item's key and describeError, never the message, which may quote data — once while it keeps failing the same way,
  * and the pass goes on to the next item. One project that cannot be read or written must not stop every other
- * project's e-mail or re-forecast. Returns how many items failed (the tests read it).
+ * project's e-mail or re-forecast (or, on the project list, every other plan's progress sentence). Returns how many
+ * items failed (the tests read it).
  */
 export async function eachItemOnItsOwn<T>(pass: string, items: Iterable<T>, keyOf: (item: T) => string, step: (item: T) => Promise<void>): Promise<number> {
   let failed = 0;
