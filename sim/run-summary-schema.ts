@@ -45,7 +45,7 @@ const pauseRecordSchema = z
 const traceSchema = z.object({ packets: list(tracePacketSchema, MAX_TRACE_ITEMS), pauses: list(pauseRecordSchema, MAX_TRACE_ITEMS) }).strict();
 
 /** One period a closure stood (short-term: one window interval a crew used; standing: while its stage was open). */
-const closurePeriodSchema = z
+export const closurePeriodSchema = z
   .object({ closure: closureId, name: text(LIMITS.name), kind: closureKind, lanes, start: dayTime, end: dayTime })
   .strict();
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "../client";
-import { closurePublications, closureSubscribers, shareLinks, simulationRuns, users } from "../schema";
+import { closurePublications, closureSubscribers, scenarios, shareLinks, simulationRuns, users } from "../schema";
 import type { Executor } from "./mail";
 import { newestPublicationFirst, publicationStands } from "./published-plans";
 
@@ -81,4 +81,24 @@ export async function standingPublications({ scenarioIds }: { scenarioIds: strin
     .where(and(inArray(closurePublications.scenarioId, scenarioIds), publicationStands))
     .orderBy(closurePublications.scenarioId, ...newestPublicationFirst);
   return new Map<string, Standing>(rows.map(({ scenarioId, ...r }) => [scenarioId, r]));
+}
+
+/**
+ * Each run's closure timeline (its representative iteration's, the closures a publication of it tells the public)
+ * and its scenario's time zone, by run id: only that part of the stored results is read. A run stored before the
+ * timeline was recorded has `timeline: null`.
+ */
+export async function closureTimelinesOf({ runIds }: { runIds: string[] }) {
+  type Timeline = { timeline: unknown[] | null; timeZone: string | null };
+  if (runIds.length === 0) return new Map<string, Timeline>();
+  const rows = await getDb()
+    .select({
+      id: simulationRuns.id,
+      timeline: sql<unknown[] | null>`(case when jsonb_typeof(${simulationRuns.results}->'representative'->'closureTimeline') = 'array' then ${simulationRuns.results}->'representative'->'closureTimeline' end)`,
+      timeZone: sql<string | null>`${scenarios.definition}->>'timeZone'`,
+    })
+    .from(simulationRuns)
+    .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
+    .where(inArray(simulationRuns.id, [...new Set(runIds)]));
+  return new Map<string, Timeline>(rows.map(({ id, ...r }) => [id, r]));
 }

@@ -63,11 +63,12 @@ export function runMadeText(run: { at: Date | string; byName: string | null; aut
 
 /**
  * The lane closures the public sees (every calendar feed and travel advisory shows the publication still standing)
- * came from an earlier forecast than the plan's newest: said under the forecast, on the project page and in the
- * forecast e-mail, so whoever publishes knows to publish again.
+ * came from an earlier forecast than the plan's newest, with other closures from today on: said under the forecast,
+ * on the project page and in the forecast e-mail, so whoever publishes knows to publish again; `changes` says what
+ * differs (closure-changes.ts `closureChangesText`) when the two forecasts can be compared.
  */
-export function publicationLagText(publishedAt: Date | string): string {
-  return `The lane closures the public sees (published ${formatDateTime(publishedAt)}) come from an earlier forecast, until someone publishes again from the plan's Share tab.`;
+export function publicationLagText(publishedAt: Date | string, changes: string | null = null): string {
+  return `The lane closures the public sees (published ${formatDateTime(publishedAt)}) come from an earlier forecast, until someone publishes again from the plan's Share tab.${changes ? ` ${changes}` : ""}`;
 }
 
 /**

@@ -4,6 +4,7 @@
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import ICAL from "ical.js";
+import { format, parse } from "date-fns";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { findMail } from "../../src/lib/server/mailbox";
 import { serverRunDone, waitForJob } from "../helpers/jobs";
@@ -131,6 +132,17 @@ describe("closure notices", () => {
     let listed = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: engineer });
     expect(listed.body.lag).toBeNull();
 
+    // A plan edit that moves no work (its description) run with the same seed: a newer forecast with the very
+    // same closures — the public's notice still holds, and the Share page does not ask for another.
+    const current = (await call(`/api/scenarios/${scenarioId}`, { cookie: engineer })).body.scenario;
+    const edited = { name: current.name, definition: { ...current.definition, description: "Closures checked with the county." }, version: current.version };
+    expect((await call(`/api/scenarios/${scenarioId}`, { method: "PUT", cookie: engineer, body: edited })).status).toBe(200);
+    expect((await serverRunDone(scenarioId, engineer, { seed: "notice", iterations: 20 })).status).toBe("completed");
+    const again = await call(`/api/scenarios/${scenarioId}/closure-publications?preview=1`, { cookie: engineer });
+    expect(again.body.preview.runId).not.toBe(first.preview.runId);
+    listed = await call(`/api/scenarios/${scenarioId}/closure-publications`, { cookie: engineer });
+    expect(listed.body.lag).toBeNull();
+
     // A re-forecast from yesterday with nothing in this scenario's field log: every operation starts over from
     // today, so its closures are not the plan run's. It is now the newest forecast, and the Share page says the
     // published closures lag it.
@@ -141,6 +153,12 @@ describe("closure notices", () => {
     expect(listed.body.lag.newest).toMatch(/^Re-forecast from the field log as of /);
     expect(listed.body.lag.published).toBe(listed.body.publications[0].source);
     expect(listed.body.lag.newestStale).toBe(false);
+    // What a new notice would change, in numbers and with the first day that differs (from today on, where the work is).
+    expect(listed.body.lag.changes).toMatch(
+      /^(The newest forecast has [\d,]+ closures? the public has not been told of from today on|[\d,]+ of the [\d,]+ closures? published from today on (is|are) not in the newest forecast(, which has [\d,]+ closures? the public has not been told of)?); the first difference is on \w{3} \d{1,2} \w{3} \d{4}\.$/,
+    );
+    const firstDay = format(parse(listed.body.lag.changes.match(/on (\w{3} \d{1,2} \w{3} \d{4})\.$/)[1], "EEE d MMM yyyy", new Date()), "yyyy-MM-dd");
+    expect(firstDay >= todayIn(timeZone)).toBe(true);
 
     const second = await publish();
     expect(second.preview.source).toBe(`${listed.body.lag.newest}.`);

@@ -104,11 +104,28 @@ describe("forecast e-mails", () => {
       return String(page.body).includes('data-testid="plan-publication-lag"');
     };
     expect(await pageSays()).toBe(false); // published from the newest forecast: nothing lags
-    const third = await run(planId, "third");
-    await announcedAs(third.runId);
+    // A plan edit that moves no work (its description) run with the published run's seed: a newer forecast with the
+    // same closures — the public's notice holds.
+    const current = (await call(`/api/scenarios/${planId}`, { cookie: engineer.cookie })).body.scenario;
+    const edited = { name: current.name, definition: { ...current.definition, description: "Closures checked with the county." }, version: current.version };
+    expect((await call(`/api/scenarios/${planId}`, { method: "PUT", cookie: engineer.cookie, body: edited })).status).toBe(200);
+    const [pub] = await db`SELECT r.id, r.seed FROM closure_publications p JOIN simulation_runs r ON r.id = p.run_id WHERE p.scenario_id = ${planId}`;
+    const same = await run(planId, pub.seed);
+    expect(same.runId).not.toBe(pub.id);
+    await announcedAs(same.runId);
+    expect((await mailTo(viewer.email)).at(-1)!.text_body).not.toContain("the public sees");
+    expect(await pageSays()).toBe(false);
+    // A re-forecast from yesterday: every operation but the recorded milling starts over from today, so its
+    // closures from today on are not the published plan run's.
+    const queued = await call(`/api/scenarios/${planId}/reforecast`, { method: "POST", cookie: engineer.cookie, body: { dataDate: isoDaysFromToday(-1), seed: "third", iterations: 20 } });
+    expect(queued.status).toBe(202);
+    const third = await waitForJob(queued.body.job.id, engineer.cookie);
+    expect(third.status).toBe("completed");
+    await announcedAs(third.runId!);
     const mail = (await mailTo(viewer.email)).at(-1)!;
-    expect(mail.subject).toContain(formatIsoDate(third.p80));
-    expect(mail.text_body).toMatch(/\n\nThe lane closures the public sees \(published \d{1,2} \w{3} \d{4}, \d\d:\d\d\) come from an earlier forecast, until someone publishes again from the plan's Share tab\.\n\n/);
+    expect(mail.text_body).toMatch(
+      /\n\nThe lane closures the public sees \(published \d{1,2} \w{3} \d{4}, \d\d:\d\d\) come from an earlier forecast, until someone publishes again from the plan's Share tab\. .*from today on.*; the first difference is on \w{3} \d{1,2} \w{3} \d{4}\.\n\n/,
+    );
     expect(await pageSays()).toBe(true);
     // The e-mails before the publication said nothing of it.
     expect((await mailTo(viewer.email)).slice(0, -1).some((m) => m.text_body.includes("the public sees"))).toBe(false);

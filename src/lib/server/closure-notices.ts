@@ -1,13 +1,15 @@
 import "server-only";
 import { getDb } from "@db/client";
-import { insertClosurePublication, listClosurePublications, listClosureSubscribers, standingPublications } from "@db/queries/closure-notices";
+import { closureTimelinesOf, insertClosurePublication, listClosurePublications, listClosureSubscribers, standingPublications } from "@db/queries/closure-notices";
 import { getProject } from "@db/queries/projects";
 import { getNewestForecast } from "@db/queries/runs";
 import { countShiftsNotInRun } from "@db/queries/progress";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { createShareLink } from "@db/queries/shares";
 import type { RunSummary } from "@sim/index";
+import { closureChanges, closureChangesText, closureTimeline } from "@/lib/closure-changes";
 import { closureLocalTimes, hoursSince } from "@/lib/exports/closures";
+import { displayTimeZone } from "@/lib/format";
 import { todayIn } from "@/lib/progress-schema";
 import { changesNotInText, forecastSourceText, publicationLagText } from "@/lib/plan-of-record-text";
 import { AppError } from "./errors";
@@ -54,33 +56,51 @@ async function sourceOf(run: { id: string; dataDate: string | null; createdAt: D
   return `${forecastSourceText({ dataDate: run.dataDate, at: run.createdAt })}.${missing ? ` ${changesNotInText(missing)}: re-forecast first if they move the closures.` : ""}`;
 }
 
-/** What the public sees (the publication still standing) came from another forecast than the newest. */
-const lags = (standing: { runId: string }, newestRunId: string) => standing.runId !== newestRunId;
-
-/** `publicationLagText` when the plan's standing publication lags its newest forecast (`newestRunId`); else null. */
-export function publicationLagOf(standing: { runId: string; publishedAt: Date } | undefined, newestRunId: string | null): string | null {
-  return standing && newestRunId && lags(standing, newestRunId) ? publicationLagText(standing.publishedAt) : null;
-}
-
 /**
- * For each plan of record with a publication standing behind its newest forecast, that in words
- * (`publicationLagText`), by scenario id: the forecast e-mail says it under the forecast. One query.
+ * Whether what the public sees (each scenario's publication still standing, `standing.runId`) lags its newest
+ * forecast (`newestRunId`), by scenario id — absent when it does not. It lags when the newest forecast's closures
+ * from today on (in the scenario's time zone) differ from the published ones (`changes`, said in words); a newer
+ * forecast that moves none does not lag. A run stored before closure timelines were kept cannot be compared: then a
+ * newer forecast lags, `changes` null. One query for all the runs' timelines.
  */
-export async function publicationLagTexts(plans: ReadonlyArray<{ planScenarioId: string | null; planRunId: string | null }>): Promise<Map<string, string>> {
-  const ids = plans.flatMap((p) => (p.planScenarioId ? [p.planScenarioId] : []));
-  const standing = await standingPublications({ scenarioIds: ids });
-  const out = new Map<string, string>();
-  for (const p of plans) {
-    const text = p.planScenarioId && publicationLagOf(standing.get(p.planScenarioId), p.planRunId);
-    if (text) out.set(p.planScenarioId!, text);
+async function lagsOf(pairs: ReadonlyArray<{ scenarioId: string; standingRunId: string; newestRunId: string }>): Promise<Map<string, { changes: string | null }>> {
+  const differing = pairs.filter((p) => p.standingRunId !== p.newestRunId);
+  const timelines = await closureTimelinesOf({ runIds: differing.flatMap((p) => [p.standingRunId, p.newestRunId]) });
+  const out = new Map<string, { changes: string | null }>();
+  for (const p of differing) {
+    const was = timelines.get(p.standingRunId);
+    const now = timelines.get(p.newestRunId);
+    const published = closureTimeline(was?.timeline);
+    const newest = closureTimeline(now?.timeline);
+    if (!published || !newest) {
+      out.set(p.scenarioId, { changes: null });
+      continue;
+    }
+    const changes = closureChanges(published, newest, todayIn(now?.timeZone ?? displayTimeZone()));
+    if (changes) out.set(p.scenarioId, { changes: closureChangesText(changes) });
   }
   return out;
 }
 
 /**
+ * For each plan of record whose standing publication lags its newest forecast (`lagsOf`), that in words
+ * (`publicationLagText`), by scenario id: the project page and the forecast e-mail say it under the forecast.
+ */
+export async function publicationLagTexts(plans: ReadonlyArray<{ planScenarioId: string | null; planRunId: string | null }>): Promise<Map<string, string>> {
+  const ids = plans.flatMap((p) => (p.planScenarioId ? [p.planScenarioId] : []));
+  const standing = await standingPublications({ scenarioIds: ids });
+  const pairs = plans.flatMap((p) => {
+    const s = p.planScenarioId ? standing.get(p.planScenarioId) : undefined;
+    return s && p.planRunId ? [{ scenarioId: p.planScenarioId!, standingRunId: s.runId, newestRunId: p.planRunId }] : [];
+  });
+  const lags = await lagsOf(pairs);
+  return new Map([...lags].map(([scenarioId, lag]) => [scenarioId, publicationLagText(standing.get(scenarioId)!.publishedAt, lag.changes)]));
+}
+
+/**
  * Earlier publications, newest first, each with the forecast it came from; and, when the publication still standing
- * (what every feed and advisory shows) came from an earlier forecast than the newest, the two in words — the Share
- * page says the public lags the forecast.
+ * (what every feed and advisory shows) lags the newest forecast (`lagsOf`), the two forecasts and what changed in
+ * words — the Share page says the public lags the forecast.
  */
 export async function closurePublicationsOf({ scenario }: { scenario: ScenarioDetail }) {
   const [rows, newest, standing] = await Promise.all([
@@ -88,11 +108,12 @@ export async function closurePublicationsOf({ scenario }: { scenario: ScenarioDe
     getNewestForecast({ scenarioId: scenario.id, withResults: false }),
     standingPublications({ scenarioIds: [scenario.id] }).then((m) => m.get(scenario.id)),
   ]);
+  const lag = standing && newest ? (await lagsOf([{ scenarioId: scenario.id, standingRunId: standing.runId, newestRunId: newest.id }])).get(scenario.id) : undefined;
   return {
     publications: rows.map(({ runDataDate, runAt, ...p }) => ({ ...p, source: forecastSourceText({ dataDate: runDataDate, at: runAt }) })),
     lag:
-      standing && newest && lags(standing, newest.id)
-        ? { publishedAt: standing.publishedAt, published: forecastSourceText({ dataDate: standing.runDataDate, at: standing.runAt }), newest: forecastSourceText({ dataDate: newest.dataDate, at: newest.createdAt }), newestStale: newest.stale }
+      standing && newest && lag
+        ? { publishedAt: standing.publishedAt, published: forecastSourceText({ dataDate: standing.runDataDate, at: standing.runAt }), newest: forecastSourceText({ dataDate: newest.dataDate, at: newest.createdAt }), newestStale: newest.stale, changes: lag.changes }
         : null,
   };
 }

@@ -19,8 +19,7 @@ import { DailyReforecastForm } from "./daily-reforecast-form";
 import { getDailyReforecast } from "@db/queries/daily-reforecast";
 import { dailyReforecastText } from "@/lib/daily-reforecast";
 import { planProgressAndAgainst } from "@/lib/server/plan-progress";
-import { publicationLagOf } from "@/lib/server/closure-notices";
-import { standingPublications } from "@db/queries/closure-notices";
+import { publicationLagTexts } from "@/lib/server/closure-notices";
 import { ForecastAlertsToggle } from "./forecast-alerts-toggle";
 import { getForecastAlerts } from "@db/queries/forecast-alerts";
 
@@ -30,15 +29,16 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { projectId } = await params;
   const access = await orNotFound(requireProject(projectId, "read"));
   const { project, role, archived, user } = access;
-  const [plan, alertsOn, texts, daily, standing] = await Promise.all([
-    getPlanOfRecord({ projectId: project.id }),
+  const planRead = getPlanOfRecord({ projectId: project.id });
+  const [plan, alertsOn, texts, daily, lags] = await Promise.all([
+    planRead,
     getForecastAlerts({ projectId: project.id, userId: user.id }),
     planProgressAndAgainst([project.planScenarioId]),
     getDailyReforecast({ projectId: project.id }),
-    standingPublications({ scenarioIds: project.planScenarioId ? [project.planScenarioId] : [] }),
+    planRead.then((p) => publicationLagTexts([{ planScenarioId: project.planScenarioId, planRunId: p?.planRunId ?? null }])),
   ]);
   const { progress = null, against = null } = (project.planScenarioId && texts.get(project.planScenarioId)) || {};
-  const publicationLag = project.planScenarioId ? publicationLagOf(standing.get(project.planScenarioId), plan?.planRunId ?? null) : null;
+  const publicationLag = (project.planScenarioId && lags.get(project.planScenarioId)) || null;
   return (
     <div className="space-y-6">
       <Breadcrumb here={project.name} />

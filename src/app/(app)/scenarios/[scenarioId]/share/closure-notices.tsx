@@ -32,7 +32,7 @@ interface Publication {
 interface Publications {
   publications: Publication[];
   /** Set when what every feed and advisory shows came from an earlier forecast than the newest: both in words. */
-  lag: { publishedAt: string; published: string; newest: string; newestStale: boolean } | null;
+  lag: { publishedAt: string; published: string; newest: string; newestStale: boolean; changes: string | null } | null;
 }
 
 /** What publishing the newest forecast would send; publishing names `runId`, so a newer one is refused, not sent unseen. */
@@ -249,7 +249,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
   );
 }
 
-/** What every feed and advisory shows came from an earlier forecast than the newest (the server decides): said in words. */
+/** What every feed and advisory shows came from an earlier forecast whose closures differ from the newest's (the server decides): said in words. */
 function PublishedLag({ lag }: { lag: NonNullable<Publications["lag"]> }) {
   return (
     <div className="mt-3 rounded-md border border-warn/40 bg-warn-bg px-3 py-2 text-sm" data-testid="publication-lags">
@@ -257,6 +257,7 @@ function PublishedLag({ lag }: { lag: NonNullable<Publications["lag"]> }) {
         <strong>The public sees an earlier forecast.</strong>{" "}
         {lag.newestStale ? "The newest forecast is of an earlier version of the plan: run the scenario again, then publish." : "Publish again to bring every calendar feed and travel advisory up to date."}
       </p>
+      {lag.changes && <p className="mt-1" data-testid="publication-changes">{lag.changes}</p>}
       <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-xs">
         <dt className="font-medium">Published {formatDateTime(lag.publishedAt)}</dt>
         <dd>{lag.published}</dd>
