@@ -136,6 +136,15 @@ export const runSummarySchema = z
   .strict();
 
 export type RunSummary = z.output<typeof runSummarySchema>;
+/**
+ * The figures of a run summary that comparing scenarios shows: db/queries/compare.ts reads only these of a stored
+ * run (not the trace, histogram or per-day closures) and src/lib/compare-contract.ts serves them.
+ */
+export type CompareFigures = Pick<RunSummary, "startDate" | "unfinishedIterations" | "finish" | "finishAt" | "cdf" | "target" | "weatherLostShifts"> & {
+  /** Absent (or null) for runs of plans without a traffic or costs section. */
+  delay?: RunSummary["delay"] | null;
+  cost?: RunSummary["cost"] | null;
+};
 export type DateQuantiles = z.output<typeof dateQuantilesSchema>;
 /** null = reached only by unfinished iterations. */
 export type NumberQuantiles = z.output<typeof numberQuantilesSchema>;

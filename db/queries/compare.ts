@@ -3,23 +3,19 @@ import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { scenarios, simulationRuns } from "../schema";
 import { isForecast } from "./runs";
+import type { CompareFigures } from "../../sim/run-summary-schema";
 
-/** The part of a stored RunSummary that comparing needs (not the trace, histogram or per-day closures). */
-export interface CompareSlice {
-  startDate: string;
-  unfinishedIterations: number;
-  finish: { p10: string; p50: string; p80: string; p90: string };
-  finishAt: { p10: string; p50: string; p80: string; p90: string };
-  cdf: { date: string; p: number }[];
-  target: { date: string; probability: number } | null;
-  weatherLostShifts: { p50: number; p80: number };
+/**
+ * The part of a stored run that comparing needs: the run summary's compare figures (sim `CompareFigures`), null
+ * where a run stored before a figure was recorded lacks it, and its closure hours of either era.
+ */
+export type CompareSlice = Omit<CompareFigures, NullableFigure | "delay" | "cost"> & { [K in NullableFigure | "delay" | "cost"]: NonNullable<CompareFigures[K]> | null } & {
   /** Crew closure hours of runs stored before the closure timeline. */
   totalByClosure: Record<string, number> | null;
   /** Lane-closed hours, P50 (runs with the closure timeline). */
   laneClosedP50: number | null;
-  delay: { vehicleHours: { p50: number | null; p80: number | null } } | null;
-  cost: { roadUser: { p50: number | null; p80: number | null } | null; contract: { p50: number | null; p80: number | null } | null; valueOfTimeYear?: number } | null;
-}
+};
+type NullableFigure = "unfinishedIterations" | "cdf" | "target";
 
 /**
  * The scenarios `ids` of one project, each with its latest run's compare slice (null when never run).

@@ -1,6 +1,7 @@
 // Compare: delay and cost rows with differences from the first scenario; "—" where a run has no such figure.
 import { describe, expect, it } from "vitest";
-import { compareRows, type CompareRun, type CompareScenario } from "@/components/results/compare-logic";
+import { compareRows } from "@/components/results/compare-logic";
+import type { CompareRun, CompareScenario } from "@/lib/compare-contract";
 
 function run(over: Partial<CompareRun> = {}): CompareRun {
   return {
@@ -12,12 +13,14 @@ function run(over: Partial<CompareRun> = {}): CompareRun {
     ...over,
   };
 }
+/** P50 and P80 as the run summary has them (its mean is not compared). */
+const q = (p50: number, p80: number) => ({ p50, p80, mean: null });
 const sc = (id: string, r: CompareRun | null): CompareScenario => ({ id, name: id, version: 1, run: r });
 
 describe("delay and cost rows", () => {
   it("show P50/P80 delay, road-user and contract cost with signed differences", () => {
-    const a = run({ delay: { vehicleHours: { p50: 450000, p80: 500000 } }, cost: { roadUser: { p50: 9_500_000, p80: 10_000_000 }, contract: { p50: 7_200_000, p80: 7_500_000 } } });
-    const b = run({ delay: { vehicleHours: { p50: 470500, p80: 495000 } }, cost: { roadUser: { p50: 9_900_000, p80: 9_950_000 }, contract: { p50: 7_000_000, p80: 7_500_000 } } });
+    const a = run({ delay: { vehicleHours: q(450000, 500000) }, cost: { valueOfTimeYear: 2026, roadUser: q(9_500_000, 10_000_000), contract: q(7_200_000, 7_500_000) } });
+    const b = run({ delay: { vehicleHours: q(470500, 495000) }, cost: { valueOfTimeYear: 2026, roadUser: q(9_900_000, 9_950_000), contract: q(7_000_000, 7_500_000) } });
     const rows = new Map(compareRows([sc("A", a), sc("B", b)]).map((r) => [r.id, r.cells]));
     expect(rows.get("delayP50")).toEqual([{ text: "450,000 veh-h", diff: null }, { text: "470,500 veh-h", diff: "+20,500 veh-h" }]);
     expect(rows.get("delayP80")![1].diff).toBe("\u22125,000 veh-h");
@@ -27,7 +30,7 @@ describe("delay and cost rows", () => {
   });
 
   it("a run without traffic reads — and gives no difference", () => {
-    const a = run({ delay: { vehicleHours: { p50: 100, p80: 200 } }, cost: { roadUser: { p50: 2000, p80: 4000 }, contract: null } });
+    const a = run({ delay: { vehicleHours: q(100, 200) }, cost: { valueOfTimeYear: 2026, roadUser: q(2000, 4000), contract: null } });
     const b = run();
     const rows = new Map(compareRows([sc("A", a), sc("B", b)]).map((r) => [r.id, r.cells]));
     expect(rows.get("delayP50")![1]).toEqual({ text: "—", diff: null });

@@ -1,6 +1,7 @@
 // Compare: the ids parameter, and differences from the first scenario in days, points, hours and shifts.
 import { describe, expect, it } from "vitest";
-import { compareRows, dayDiff, parseCompareIds, signed, type CompareRun, type CompareScenario } from "@/components/results/compare-logic";
+import { compareRows, dayDiff, signed } from "@/components/results/compare-logic";
+import { parseCompareIds, type CompareRun, type CompareScenario } from "@/lib/compare-contract";
 import { dateTicks } from "@/components/results/date-axis";
 import { civilFromDays, daysFromCivil } from "@sim/dates";
 

@@ -1,52 +1,12 @@
 /**
- * Comparing scenarios: the `ids` query parameter and the comparison table. Contract: `parseCompareIds`
- * accepts 1–4 distinct ids separated by commas and names the field `ids` in every problem; the table is a
- * list of metric rows, each giving a text per scenario and a difference from the first, so a new row (delay, cost) is one more entry
- * in `COMPARE_METRICS`. Differences are against the first scenario, signed, with units ("+12 d").
+ * Comparing scenarios: the comparison table (what the compare API serves is src/lib/compare-contract.ts). The
+ * table is a list of metric rows, each giving a text per scenario and a difference from the first, so a new row
+ * (delay, cost) is one more entry in `COMPARE_METRICS`. Differences are against the first scenario, signed, with
+ * units ("+12 d").
  */
+import type { CompareRun, CompareScenario } from "@/lib/compare-contract";
 import { formatIsoDate, formatPercent } from "@/lib/format";
 import { isoToDay } from "./date-axis";
-
-export const MAX_COMPARE = 4;
-
-export type IdsResult = { ok: true; ids: string[] } | { ok: false; message: string };
-
-export function parseCompareIds(raw: string | null | undefined): IdsResult {
-  const ids = (raw ?? "").split(",").map((s) => s.trim()).filter(Boolean);
-  if (ids.length < 1) return { ok: false, message: "must list at least one scenario id" };
-  if (ids.length > MAX_COMPARE) return { ok: false, message: `must list at most ${MAX_COMPARE} scenario ids` };
-  if (new Set(ids).size !== ids.length) return { ok: false, message: "must not list a scenario twice" };
-  return { ok: true, ids };
-}
-
-/** What the compare API returns for a scenario's latest run (a slice of its RunSummary). */
-export interface CompareRun {
-  id: string;
-  scenarioVersion: number;
-  stale: boolean;
-  /** "server" or "verified": compare shows forecasts only (the data layer leaves pending and rejected runs out). */
-  verification: "server" | "verified" | "pending" | "rejected";
-  iterations: number;
-  createdAt: string;
-  startDate: string;
-  unfinishedIterations: number;
-  finish: { p10: string; p50: string; p80: string; p90: string };
-  finishAt: { p10: string; p50: string; p80: string; p90: string };
-  cdf: { date: string; p: number }[];
-  target: { date: string; probability: number } | null;
-  weatherLostShifts: { p50: number; p80: number };
-  closureHoursTotal: number;
-  /** From RunSummary.delay / .cost; absent for runs of plans without a traffic or costs section. */
-  delay?: { vehicleHours: { p50: number | null; p80: number | null } } | null;
-  cost?: { roadUser: { p50: number | null; p80: number | null } | null; contract: { p50: number | null; p80: number | null } | null; valueOfTimeYear?: number } | null;
-}
-
-export interface CompareScenario {
-  id: string;
-  name: string;
-  version: number;
-  run: CompareRun | null;
-}
 
 export interface CompareMetric {
   id: string;

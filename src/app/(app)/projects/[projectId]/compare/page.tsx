@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { requireProject } from "@/lib/server/access";
 import { can } from "@/lib/permissions";
-import { MAX_COMPARE } from "@/components/results/compare-logic";
+import { MAX_COMPARE } from "@/lib/compare-contract";
 import { CompareView } from "./compare-view";
 import { orNotFound } from "@/lib/server/page-access";
 import { Breadcrumb } from "@/components/breadcrumb";

@@ -51,7 +51,8 @@ export function NoticeForm({ scenarioId }: { scenarioId: string }) {
         }}
       >
         <label className="flex items-center gap-2 pt-7 text-sm">
-          <input type="checkbox" checked={enabled} onChange={(e) => setEnabled(e.target.checked)} /> Send daily
+          <input type="checkbox" checked={enabled} onChange={(e) => setEnabled(e.target.checked)} /> {/* Ticked before anything is saved: say it starts on saving, not that it is sending now. */}
+          {q.data === null ? "Send daily, once saved" : "Send daily"}
         </label>
         <div>
           <label htmlFor="notice-hour" className="field-label">

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { AppError, badRequest, handler } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
-import { parseCompareIds, type CompareScenario } from "@/components/results/compare-logic";
+import { parseCompareIds, type CompareScenario } from "@/lib/compare-contract";
 import { listCompareScenarios } from "@db/queries/compare";
 
 const uuid = z.uuid();
