@@ -7,10 +7,10 @@ import { formatDateTime, formatIsoDate, formatStation } from "@/lib/format";
 import { DISCOVERED_LABELS } from "@/lib/progress-schema";
 import { ProgressForm, type PlanFacts } from "./progress-form";
 import { ShiftCells, ShiftHeads, WeatherAndLostCells } from "./shift-columns";
-// Type only: erased from the client bundle, so the server-only query module is never shipped.
-import type { ProgressFields } from "@db/queries/progress";
+import type { ProgressEntry } from "@/lib/progress-schema";
 
-export interface EntryView extends ProgressFields {
+/** A shift as the table shows it: the progress-entry contract's fields, plus who recorded it and its version. */
+export interface EntryView extends ProgressEntry {
   id: string;
   version: number;
   enteredByName: string;
