@@ -4,6 +4,7 @@ import { getDb } from "../client";
 import { scenarios, simulationRuns } from "../schema";
 import { isForecast } from "./runs";
 import type { CompareFigures } from "../../sim/run-summary-schema";
+import { staleSql } from "./stale";
 
 /**
  * The part of a stored run that comparing needs: the run summary's compare figures (sim `CompareFigures`), null
@@ -59,7 +60,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       iterations: latest.iterations,
       runAt: latest.runAt,
       runVerification: latest.runVerification,
-      runStale: sql<boolean | null>`(${latest.runVersion} <> ${scenarios.version})`,
+      runStale: sql<boolean | null>`${staleSql(latest.runVersion, scenarios.version)}`,
       slice: latest.slice,
     })
     .from(scenarios)

@@ -8,6 +8,7 @@ import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users } from "../schema";
 import { reforecastsOf, shiftsNotInRun } from "./progress";
+import { runIsStale } from "./stale";
 
 /** Turns it on at `hour` (0–23, local), set up by `userId`, or off (`hour` null). Null when there is no such project. */
 export async function setDailyReforecast({ projectId, hour, userId }: { projectId: string; hour: number | null; userId: string }) {
@@ -80,7 +81,7 @@ export async function getNewestReforecastBasis({ scenarioId }: { scenarioId: str
   const [row] = await getDb()
     .select({
       dataDate: sql<string>`${simulationRuns.dataDate}`,
-      scenarioVersion: simulationRuns.scenarioVersion,
+      stale: runIsStale(),
       seed: simulationRuns.seed,
       iterations: simulationRuns.iterations,
       changes: shiftsNotInRun,

@@ -5,6 +5,7 @@ import { getDb } from "../client";
 import { engineJobs, progressEntries, progressHistory, scenarios, simulationRuns, users } from "../schema";
 import { isForecast, planRunsOf } from "./runs";
 import type { ProgressEntry } from "../../sim/progress-entry";
+import { runIsStale } from "./stale";
 
 /** The fields a person records about one shift (what history stores before and after a change): the entry contract's output. */
 export type ProgressFields = ProgressEntry;
@@ -247,6 +248,7 @@ export async function getForecastStandingOn({ scenarioId, day, timeZone }: { sce
 const planRunColumns = {
   id: simulationRuns.id,
   scenarioVersion: simulationRuns.scenarioVersion,
+  stale: runIsStale(),
   seed: simulationRuns.seed,
   iterations: simulationRuns.iterations,
   summary: simulationRuns.summary,
@@ -290,7 +292,7 @@ export async function listLatestPlanRunsWithTrace({ scenarioIds }: { scenarioIds
 /** The latest re-forecast's full results (for the chart with actuals). */
 export async function getLatestReforecast({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
-    .select({ id: simulationRuns.id, dataDate: simulationRuns.dataDate, scenarioVersion: simulationRuns.scenarioVersion, results: simulationRuns.results, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun })
+    .select({ id: simulationRuns.id, dataDate: simulationRuns.dataDate, scenarioVersion: simulationRuns.scenarioVersion, stale: runIsStale(), results: simulationRuns.results, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun })
     .from(simulationRuns)
     .where(reforecastsOf(scenarioId))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))

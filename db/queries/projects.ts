@@ -5,6 +5,7 @@ import { getDb, prepared } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users, type Role } from "../schema";
 import { isForecast } from "./runs";
 import { shiftsNotInRun } from "./progress";
+import { staleSql } from "./stale";
 
 /**
  * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
@@ -44,7 +45,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     planRunSummary: planRun.summary,
     planRunAt: planRun.at,
     planRunDataDate: planRun.dataDate,
-    planRunStale: sql<boolean | null>`(${planRun.version} <> ${plan.version})`,
+    planRunStale: sql<boolean | null>`${staleSql(planRun.version, plan.version)}`,
     /** Field-log changes the newest forecast does not know (progress.ts `shiftsNotInRun`). */
     planRunShiftsNotIn: planRun.shiftsNotIn,
     previousRunSummary: previousRun.summary,

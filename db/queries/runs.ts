@@ -3,6 +3,7 @@ import { and, desc, eq, gt, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb, prepared } from "../client";
 import { projectMembers, scenarios, simulationRuns, users, type RunVerification, type StoredRunResults } from "../schema";
 import { storedResultsOf, type StoredResults } from "../stored-results";
+import { staleSql } from "./stale";
 
 /** Runs a person may see as a scenario's forecast: computed by the server, or reproduced by it exactly. */
 export const FORECAST_VERIFICATIONS: RunVerification[] = ["server", "verified"];
@@ -102,7 +103,7 @@ const listColumns = {
   createdByName: users.name,
   dataDate: simulationRuns.dataDate,
   verification: simulationRuns.verification,
-  stale: sql<boolean>`(${simulationRuns.scenarioVersion} <> ${scenarios.version})`.as("stale"),
+  stale: staleSql(simulationRuns.scenarioVersion, scenarios.version).as("stale"),
   planRun: sql<boolean>`(${simulationRuns.dataDate} is null)`.as("plan_run"),
 };
 

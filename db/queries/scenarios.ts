@@ -5,6 +5,7 @@ import { getDb, prepared, type Database } from "../client";
 import { scenarioRevisions, scenarios, simulationRuns, users, type RunVerification } from "../schema";
 import { isForecast } from "./runs";
 import { reforecastsOf } from "./progress";
+import { staleSql } from "./stale";
 
 const owner = alias(users, "owner");
 const editor = alias(users, "editor");
@@ -76,7 +77,7 @@ function projectScenarios(db: Database) {
       runSummary: latestRun.runSummary,
       runAt: latestRun.runAt,
       runVerification: latestRun.runVerification,
-      runStale: sql<boolean | null>`(${latestRun.runVersion} <> ${scenarios.version})`,
+      runStale: sql<boolean | null>`${staleSql(latestRun.runVersion, scenarios.version)}`,
       pendingRunAt: pendingRun.pendingAt,
       reforecastP80: latestReforecast.reforecastP80,
       reforecastDataDate: latestReforecast.reforecastDataDate,

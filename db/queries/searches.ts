@@ -5,6 +5,7 @@ import { getDb } from "../client";
 import { engineJobs, planSearches, planSearchVariants, scenarios, users } from "../schema";
 import type { SearchSpec } from "../../sim/search";
 import type { PlanOutcome } from "../../sim/frontier";
+import { staleSql } from "./stale";
 
 export interface NewSearch {
   projectId: string;
@@ -37,7 +38,7 @@ export async function getSearch({ id }: { id: string }) {
       projectId: planSearches.projectId,
       scenarioId: planSearches.scenarioId,
       scenarioVersion: planSearches.scenarioVersion,
-      currentVersion: scenarios.version,
+      stale: staleSql(planSearches.scenarioVersion, scenarios.version),
       scenarioName: scenarios.name,
       name: planSearches.name,
       spec: planSearches.spec,

@@ -61,8 +61,8 @@ export function workingDays(cal: Pick<OpCalendar, "open" | "shifts">, from: numb
  * The plan run to compare with: its median iteration's trace, when the run was made of the plan as it stands (a run
  * of an earlier version drew another plan); null otherwise, or when it has no trace.
  */
-export function planReference(run: { trace: unknown; scenarioVersion: number } | null, version: number, plan: Scenario): PlanReference | null {
-  if (!run || run.scenarioVersion !== version || !run.trace) return null;
+export function planReference(run: { trace: unknown; stale: boolean } | null, plan: Scenario): PlanReference | null {
+  if (!run || run.stale || !run.trace) return null;
   const trace = run.trace as Trace;
   // A stored trace another version wrote differently is no reference, rather than the project page's error (and the
   // forecast e-mail pass's, for every project).
@@ -174,14 +174,14 @@ export function againstPlanNote(runLabel: string, toDateLabel: string): string {
 /** Everything a page needs to show progress against the plan, or null when there is no current plan run to compare with. */
 export function againstPlanFor(input: {
   rows: ReadonlyArray<{ id: string; doneFt: number }>;
-  run: { trace: unknown; scenarioVersion: number; createdAt: Date } | null;
-  version: number;
+  /** The newest plan run; `stale` (the data layer's rule): made of an earlier version of the plan. */
+  run: { trace: unknown; stale: boolean; createdAt: Date } | null;
   plan: Scenario;
   toDate: string;
   formatDate: (iso: string) => string;
   formatDateTime: (d: Date) => string;
 }) {
-  const ref = planReference(input.run, input.version, input.plan);
+  const ref = planReference(input.run, input.plan);
   if (!ref || !input.run || !input.toDate) return null;
   const cal = compileCalendar(input.plan);
   const index = new Map(input.plan.operations.map((o, i) => [o.id, i]));

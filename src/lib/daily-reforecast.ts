@@ -29,7 +29,8 @@ export function dayToConsider(input: { now: Date; timeZone: string; hour: number
 
 export interface NewestReforecast {
   dataDate: string;
-  scenarioVersion: number;
+  /** Made of an earlier version of the plan (the data layer's `staleSql`). */
+  stale: boolean;
   /** Field-log changes it does not know (the data layer's `shiftsNotInRun`). */
   changes: number;
   seed: string;
@@ -45,7 +46,7 @@ export type DailyDecision =
  * reaches (a data date after it is refused). Seed and iterations follow the newest re-forecast, so a day's change
  * in the forecast comes from the field, not from a different draw.
  */
-export function dailyDecision(input: { day: string; startDate: string; lastDataDate: string; scenarioVersion: number; newest: NewestReforecast | null }): DailyDecision {
+export function dailyDecision(input: { day: string; startDate: string; lastDataDate: string; newest: NewestReforecast | null }): DailyDecision {
   const dataDate = shiftDay(input.day, -1);
   if (dataDate < input.startDate) return { due: false, why: `the plan starts on ${formatIsoDate(input.startDate)}` };
   if (dataDate > input.lastDataDate) return { due: false, why: `the plan's calendar ends on ${formatIsoDate(input.lastDataDate)}` };
@@ -55,7 +56,7 @@ export function dailyDecision(input: { day: string; startDate: string; lastDataD
   // Someone re-forecast from today already: an older data date would only step back.
   if (n.dataDate > dataDate) return { due: false, why: `the newest re-forecast is as of ${formatIsoDate(n.dataDate)}` };
   if (n.changes > 0) return { due: true, dataDate, ...draw, why: `${n.changes} field-log ${n.changes === 1 ? "change is" : "changes are"} not in the newest re-forecast` };
-  if (n.scenarioVersion !== input.scenarioVersion) return { due: true, dataDate, ...draw, why: "the plan changed since the newest re-forecast" };
+  if (n.stale) return { due: true, dataDate, ...draw, why: "the plan changed since the newest re-forecast" };
   if (n.dataDate <= shiftDay(dataDate, -QUIET_DAYS)) return { due: true, dataDate, ...draw, why: `the newest re-forecast is as of ${formatIsoDate(n.dataDate)}, a week or more ago` };
   return { due: false, why: "the newest re-forecast knows every shift in the field log" };
 }

@@ -60,12 +60,9 @@ export function inputsHash(definition: unknown, seed: string, iterations: number
   return cyrb53(text, 1) + cyrb53(text, 2);
 }
 
-/** A stored run as the results view shows it: stale when the plan was saved again after the run. */
-export function resultsRunOf(
-  run: { id: string; iterations: number; seed: string; createdAt: Date; createdByName: string | null; scenarioVersion: number },
-  currentVersion: number,
-) {
-  return { id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale: run.scenarioVersion !== currentVersion };
+/** A stored run as the results view shows it: stale (the data layer's rule) when the plan was saved again after the run. */
+export function resultsRunOf(run: { id: string; iterations: number; seed: string; createdAt: Date; createdByName: string | null; stale: boolean }) {
+  return { id: run.id, iterations: run.iterations, seed: run.seed, createdAt: run.createdAt.toISOString(), createdByName: run.createdByName ?? "", stale: run.stale };
 }
 
 /** What a re-forecast stores about its as-built state beside the run summary. */

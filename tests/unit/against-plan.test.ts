@@ -61,13 +61,13 @@ describe("against the plan", () => {
   it("compares only with a run of the plan as it stands, reading a stored null finish as unfinished", () => {
     const plan = { startDate: "2027-04-05", deck: { lengthFt: 250, packetFt: 100 } } as Scenario;
     const stored = { packets: [{ op: "mill", packet: 0, crew: 0, start: 0, finish: null }], pauses: [{ op: "mill", packet: 0, crew: 0, start: 5, end: null, reason: "weather" }] };
-    expect(planReference({ trace: stored, scenarioVersion: 2 }, 3, plan)).toBeNull();
-    expect(planReference({ trace: null, scenarioVersion: 3 }, 3, plan)).toBeNull();
-    expect(planReference(null, 3, plan)).toBeNull();
+    expect(planReference({ trace: stored, stale: true }, plan)).toBeNull();
+    expect(planReference({ trace: null, stale: false }, plan)).toBeNull();
+    expect(planReference(null, plan)).toBeNull();
     // A trace stored in another shape (another version's) is no reference, not a thrown error.
-    expect(planReference({ trace: { packets: "?" }, scenarioVersion: 3 }, 3, plan)).toBeNull();
-    expect(planReference({ trace: [1, 2], scenarioVersion: 3 }, 3, plan)).toBeNull();
-    const ref = planReference({ trace: stored, scenarioVersion: 3 }, 3, plan)!;
+    expect(planReference({ trace: { packets: "?" }, stale: false }, plan)).toBeNull();
+    expect(planReference({ trace: [1, 2], stale: false }, plan)).toBeNull();
+    const ref = planReference({ trace: stored, stale: false }, plan)!;
     expect(ref.trace.packets[0].finish).toBe(Infinity);
     expect(ref.trace.pauses[0].end).toBe(Infinity);
     expect(againstPlan([{ id: "mill", doneFt: 0 }], ref, "2027-04-09").get("mill")!.plannedFt).toBe(0);

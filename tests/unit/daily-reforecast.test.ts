@@ -8,8 +8,8 @@ import fc from "fast-check";
 import { dailyDecision, dayToConsider, QUIET_DAYS, type NewestReforecast } from "@/lib/daily-reforecast";
 import { localDateHour } from "@/lib/local-clock";
 
-const newest = (over: Partial<NewestReforecast> = {}): NewestReforecast => ({ dataDate: "2027-05-10", scenarioVersion: 3, changes: 0, seed: "s", iterations: 500, ...over });
-const decide = (n: NewestReforecast | null, day = "2027-05-12", version = 3) => dailyDecision({ day, startDate: "2027-04-01", lastDataDate: "2033-03-31", scenarioVersion: version, newest: n });
+const newest = (over: Partial<NewestReforecast> = {}): NewestReforecast => ({ dataDate: "2027-05-10", stale: false, changes: 0, seed: "s", iterations: 500, ...over });
+const decide = (n: NewestReforecast | null, day = "2027-05-12") => dailyDecision({ day, startDate: "2027-04-01", lastDataDate: "2033-03-31", newest: n });
 
 describe("localDateHour", () => {
   it("reads the clock where the work is, across the date line of UTC", () => {
@@ -37,7 +37,7 @@ describe("dailyDecision", () => {
     expect(decide(newest({ changes: 1 }))).toMatchObject({ due: true, why: "1 field-log change is not in the newest re-forecast" });
   });
   it("re-forecasts when the plan changed since, or when there is none yet (with the Field log's defaults)", () => {
-    expect(decide(newest(), "2027-05-12", 4)).toMatchObject({ due: true, why: "the plan changed since the newest re-forecast" });
+    expect(decide(newest({ stale: true }))).toMatchObject({ due: true, why: "the plan changed since the newest re-forecast" });
     expect(decide(null)).toEqual({ due: true, dataDate: "2027-05-11", seed: "daily", iterations: 1_000, why: "the plan has no re-forecast yet" });
   });
   it("waits while nothing changes, for a week", () => {
@@ -55,8 +55,8 @@ describe("dailyDecision", () => {
   it("whatever the newest re-forecast, a due one starts from the day before and never from a date the newest is past", () => {
     const iso = fc.integer({ min: 0, max: 400 }).map((n) => new Date(Date.UTC(2027, 3, 1 + n)).toISOString().slice(0, 10));
     fc.assert(
-      fc.property(iso, iso, fc.nat(5), fc.integer({ min: 1, max: 3 }), (day, dataDate, changes, version) => {
-        const d = decide(newest({ dataDate, changes }), day, version);
+      fc.property(iso, iso, fc.nat(5), fc.boolean(), (day, dataDate, changes, stale) => {
+        const d = decide(newest({ dataDate, changes, stale }), day);
         const dayBefore = new Date(Date.parse(`${day}T00:00:00Z`) - 86_400_000).toISOString().slice(0, 10);
         if (d.due) {
           expect(d.dataDate).toBe(dayBefore);
@@ -64,7 +64,7 @@ describe("dailyDecision", () => {
         } else if (dataDate <= dayBefore && dayBefore >= "2027-04-01") {
           // Not due although it could be: nothing changed and the newest is under a week old.
           expect(changes).toBe(0);
-          expect(version).toBe(3);
+          expect(stale).toBe(false);
           expect(Date.parse(dayBefore) - Date.parse(dataDate)).toBeLessThan(QUIET_DAYS * 86_400_000);
         }
       }),

@@ -35,7 +35,7 @@ const PREVIEW_LINKS = { feedUrl: "(a new calendar link, created when you publish
 async function draftPublication(scenario: ScenarioDetail, links: { feedUrl: string; advisoryUrl: string }) {
   const run = await getNewestForecast({ scenarioId: scenario.id });
   if (!run) throw new AppError("conflict", "Run the scenario before publishing its closures.");
-  if (run.scenarioVersion !== scenario.version) {
+  if (run.stale) {
     throw new AppError("conflict", `The newest forecast (${forecastSourceText({ dataDate: run.dataDate, at: run.createdAt })}) is of an earlier version of the plan. Run the scenario${run.dataDate ? " or re-forecast it" : ""} again before publishing closures.`);
   }
   const definition = validateDefinition(scenario.definition);

@@ -48,7 +48,6 @@ export async function runDailyReforecasts(now = new Date()): Promise<{ projectId
       day,
       startDate: plan.startDate,
       lastDataDate: formatDayNumber(parseIsoDate(plan.startDate) + HORIZON_DAYS - 1),
-      scenarioVersion: scenario.version,
       newest: await getNewestReforecastBasis({ scenarioId: scenario.id }),
     });
     if (!decision.due) {

@@ -39,7 +39,7 @@ export async function planProgressAndAgainst(planScenarioIds: ReadonlyArray<stri
   return eachPlanLog(logs, (plan, log) => {
     const rows = progressToDate(plan, log.entries);
     const toDate = lastWorkDate(log.entries);
-    const against = againstPlanFor({ rows, run: runs.get(log.scenarioId) ?? null, version: log.version, plan, toDate, formatDate: formatIsoDate, formatDateTime });
+    const against = againstPlanFor({ rows, run: runs.get(log.scenarioId) ?? null, plan, toDate, formatDate: formatIsoDate, formatDateTime });
     return { progress: progressSentence(plan, log.entries, formatIsoDate), against: against && againstPlanSentence(rows, against.byOperation, toDate, formatIsoDate) };
   });
 }

@@ -47,7 +47,7 @@ export function searchView(search: SearchDetail, variants: Awaited<ReturnType<ty
   const front = nonDominated(done.map((v) => objectivesOf(v.outcome!)));
   const onFront = new Set(done.filter((_, i) => front[i]).map((v) => v.idx));
   return {
-    search: { ...search, createdAt: search.createdAt.toISOString(), stale: search.scenarioVersion !== search.currentVersion, variantCount: variants.length - 1 },
+    search: { ...search, createdAt: search.createdAt.toISOString(), variantCount: variants.length - 1 },
     variants: variants.map((v) => ({ ...v, current: v.idx === 0, onFrontier: onFront.has(v.idx) })),
   };
 }

@@ -39,7 +39,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
           <ResultsView
             summary={run.results as unknown as RunSummary}
             definition={scenario.definition}
-            run={resultsRunOf(run, scenario.version)}
+            run={resultsRunOf(run)}
           />
         </>
       ) : (

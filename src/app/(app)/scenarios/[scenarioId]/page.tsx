@@ -50,7 +50,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
         scenarioVersion={scenario.version}
         definition={scenario.definition}
         shownHeading={newerReforecast ? "Plan run" : undefined}
-        shown={run ? { key: planComputationKey(run), summary: run.results as unknown as RunSummary, run: resultsRunOf(run, scenario.version) } : null}
+        shown={run ? { key: planComputationKey(run), summary: run.results as unknown as RunSummary, run: resultsRunOf(run) } : null}
         header={
           run && (
             <>

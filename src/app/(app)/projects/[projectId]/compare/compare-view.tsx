@@ -22,7 +22,8 @@ interface ListRow {
   name: string;
   version: number;
   runId: string | null;
-  runVersion: number | null;
+  /** The data layer's rule: the plan changed after the run. */
+  runStale: boolean | null;
   runSummary: RunHeadline | null;
 }
 
@@ -113,7 +114,7 @@ export function CompareView({ projectId, canEdit, initialIds }: { projectId: str
                       <span className="block font-medium">{s.name}</span>
                       <span className="block text-xs text-muted">
                         {s.runSummary ? <>P80 {quantileText(s.runSummary.finish.p80)}</> : "not run yet"}
-                        {s.runId && s.runVersion !== s.version && <span className="badge ml-2 bg-warn-bg text-warn">Stale</span>}
+                        {s.runId && s.runStale && <span className="badge ml-2 bg-warn-bg text-warn">Stale</span>}
                       </span>
                     </span>
                     {checked && (

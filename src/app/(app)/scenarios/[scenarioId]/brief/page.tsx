@@ -45,7 +45,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
   const d = validateDefinition(scenario.definition);
   const s = run?.results as unknown as RunSummary | undefined;
   const progressRows = progressToDate(d, entries);
-  const against = run && againstPlanFor({ rows: progressRows, run: { trace: s?.representative.trace, scenarioVersion: run.scenarioVersion, createdAt: run.createdAt }, version: scenario.version, plan: d, toDate: lastWorkDate(entries), formatDate: formatIsoDate, formatDateTime });
+  const against = run && againstPlanFor({ rows: progressRows, run: { trace: s?.representative.trace, stale: run.stale, createdAt: run.createdAt }, plan: d, toDate: lastWorkDate(entries), formatDate: formatIsoDate, formatDateTime });
   return (
     <article className="brief space-y-6" data-testid="owner-brief">
       <div className="flex items-start justify-between gap-4 print:hidden">
@@ -98,7 +98,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
               {iterationsStatement(s).warning}
             </p>
           )}
-          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run, scenario.version)} document heading={newerReforecast ? "Plan run" : undefined} />
+          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run)} document heading={newerReforecast ? "Plan run" : undefined} />
           <BriefTraffic plan={d} summary={s} seed={run.seed} iterations={run.iterations} />
         </>
       )}

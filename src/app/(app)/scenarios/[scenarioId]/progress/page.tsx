@@ -61,7 +61,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
     getLatestPlanRunWithTrace({ scenarioId }),
     getLatestReforecast({ scenarioId }),
   ]);
-  const chartRun = latestRe ? { results: latestRe.results, version: latestRe.scenarioVersion, dataDate: latestRe.dataDate } : await getLatestRun({ scenarioId }).then((r) => r && { results: r.results, version: r.scenarioVersion, dataDate: null });
+  const chartRun = latestRe ? { results: latestRe.results, stale: latestRe.stale, dataDate: latestRe.dataDate } : await getLatestRun({ scenarioId }).then((r) => r && { results: r.results, stale: r.stale, dataDate: null });
   const entries: EntryView[] = rows.map((r) => ({ ...r, enteredByName: r.enteredByName ?? "" }));
   const canRecord = can(role, "recordProgress", archived);
   const canRun = can(role, "runScenario", archived);
@@ -92,7 +92,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
   const latestResults = latestRe ? (latestRe.results as { reforecast?: Digest; forecastDates?: string[] }) : undefined;
   const digest = latestResults?.reforecast;
   const progressRows = progressToDate(plan, entries);
-  const against = againstPlanFor({ rows: progressRows, run: planRun, version: scenario.version, plan, toDate: lastDate, formatDate: formatIsoDate, formatDateTime });
+  const against = againstPlanFor({ rows: progressRows, run: planRun, plan, toDate: lastDate, formatDate: formatIsoDate, formatDateTime });
 
   return (
     <div className="space-y-5">
@@ -170,7 +170,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
             <TimeDistanceChart
               summary={chartRun.results as unknown as RunSummary}
               plan={plan}
-              stale={chartRun.version !== scenario.version}
+              stale={chartRun.stale}
               actuals={actualsOf(plan, entries)}
               dataDay={chartRun.dataDate ? parseIsoDate(chartRun.dataDate) + 1 : undefined}
             />

@@ -43,7 +43,7 @@ export default async function DailyReportPage({ params, searchParams }: { params
   const [standing, planRun] = await Promise.all([getForecastStandingOn({ scenarioId, day, timeZone: plan.timeZone }), getLatestPlanRunWithTrace({ scenarioId })]);
   const rowsToDate = progressToDate(plan, toDate);
   // Against the plan at the end of this day (not of the log's last shift): the day's own standing.
-  const against = againstPlanFor({ rows: rowsToDate, run: planRun, version: scenario.version, plan, toDate: day, formatDate: formatIsoDate, formatDateTime });
+  const against = againstPlanFor({ rows: rowsToDate, run: planRun, plan, toDate: day, formatDate: formatIsoDate, formatDateTime });
   // The project list's words for a forecast, as it read at the end of that day.
   const forecast = standing
     ? planForecastText({ planScenarioId: scenario.id, planName: scenario.name, planRunSummary: standing.summary, planRunAt: standing.createdAt, planRunDataDate: standing.dataDate, planRunStale: null })
