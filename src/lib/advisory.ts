@@ -11,6 +11,7 @@ import type { Scenario } from "@sim/schema";
 import { breaksLimit, queueLimitOf } from "@sim/queue-limit";
 import { compileTraffic } from "@sim/traffic";
 import { clock } from "./closure-advice-text";
+import { formatIsoDay } from "./format";
 import { hoursSince } from "./exports/closures";
 
 /** Hours whose expected backup passes a quarter mile are "hours to avoid": an editorial threshold of this page. */
@@ -91,4 +92,14 @@ export function buildAdvisory(s: Scenario, summary: Pick<RunSummary, "startDate"
     });
   }
   return out;
+}
+
+/**
+ * What a driver reading the advisory before the work resumes needs first: when the first day listed lies after
+ * `today` (a winter shutdown, a job not started), "Nothing is planned to be closed before Wednesday 31 Mar 2027."
+ * Null when the list starts today or is empty (the page says there is no closure from today on).
+ */
+export function nothingBeforeText(days: ReadonlyArray<Pick<AdvisoryDay, "date">>, today: string): string | null {
+  const first = days[0]?.date;
+  return first && first > today ? `Nothing is planned to be closed before ${formatIsoDay(first, { long: true })}.` : null;
 }

@@ -114,6 +114,13 @@ describe("closure hours, publishing and the public advisory", { timeout: 180_000
     expect(res?.status()).toBe(200);
     await page.getByTestId("advisory-title").waitFor();
     expect(await page.getByText("do not use your phone or photograph the work zone").count()).toBe(1);
+    // A first day listed after today (the demo's winter) is said first, so nobody reads the list as closed today.
+    const firstDay = (await page.getByTestId("advisory-day").first().locator("h3 span").first().textContent())!.trim();
+    const today = todayIn("America/Chicago"); // the demo plan's time zone
+    const firstIso = new Date(`${firstDay.replace(/^\w+ /, "")} 12:00 UTC`).toISOString().slice(0, 10);
+    const nothingBefore = page.getByTestId("advisory-nothing-before");
+    if (firstIso > today) expect(await nothingBefore.textContent()).toBe(`Nothing is planned to be closed before ${firstDay}.`);
+    else expect(await nothingBefore.count()).toBe(0);
     // Read on a phone: the page does not scroll sideways (its day tables scroll in their own boxes).
     await page.waitForLoadState("networkidle");
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);

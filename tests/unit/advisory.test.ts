@@ -7,8 +7,9 @@ import { describe, expect, it } from "vitest";
 import { formatDayNumber, parseIsoDate } from "../../sim/dates";
 import { hourlyQueues } from "../../sim/hourly-queue";
 import { parseScenario, runScenario } from "../../sim/index";
-import { AVOID_MILES, buildAdvisory } from "../../src/lib/advisory";
+import { AVOID_MILES, buildAdvisory, nothingBeforeText } from "../../src/lib/advisory";
 import { hoursSince } from "../../src/lib/exports/closures";
+import { formatIsoDate } from "../../src/lib/format";
 
 const load = (f: string) => {
   const p = parseScenario(JSON.parse(readFileSync(new URL(`../../scenarios/${f}`, import.meta.url), "utf8")));
@@ -96,6 +97,17 @@ describe("the travel advisory", () => {
     for (const date of ["2027-05-28", "2027-05-29", "2027-05-30", "2027-05-31"]) if (listed.has(date)) expect(flagged.has(date)).toBe(true);
     for (const date of ["2027-05-25", "2027-06-02"]) if (listed.has(date)) expect(flagged.has(date)).toBe(false);
     expect([...flagged].some((d) => d.startsWith("2027-05-"))).toBe(true);
+  });
+
+  it("says when nothing is closed before the first day listed (a winter shutdown), and nothing when the list starts today", () => {
+    // The demo's first season ends in the autumn and its second opens in the spring: from a day in its winter the
+    // first day listed is in the spring.
+    const winterDay = "2026-12-15";
+    const fromWinter = buildAdvisory(s, run, winterDay, 3)!;
+    expect(fromWinter[0].date > winterDay).toBe(true);
+    expect(nothingBeforeText(fromWinter, winterDay)).toBe(`Nothing is planned to be closed before ${fromWinter[0].weekday} ${formatIsoDate(fromWinter[0].date)}.`);
+    expect(nothingBeforeText(fromWinter, fromWinter[0].date)).toBeNull();
+    expect(nothingBeforeText([], winterDay)).toBeNull();
   });
 
   it("starts at today: nothing before it, and at most the days asked for", () => {

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { buildAdvisory, AVOID_MILES } from "@/lib/advisory";
+import { buildAdvisory, nothingBeforeText, AVOID_MILES } from "@/lib/advisory";
 import { formatDateTimeIn, formatIsoDate } from "@/lib/format";
 import { orNotFound } from "@/lib/server/page-access";
 import { todayIn } from "@/lib/progress-schema";
@@ -20,7 +20,9 @@ export default async function AdvisoryPage({ params }: { params: Promise<{ token
   const { token } = await params;
   const plan = await orNotFound(requirePublishedPlan(token));
   const s = plan.definition;
-  const days = buildAdvisory(s, plan.summary, todayIn(s.timeZone)) ?? [];
+  const today = todayIn(s.timeZone);
+  const days = buildAdvisory(s, plan.summary, today) ?? [];
+  const nothingBefore = nothingBeforeText(days, today);
   const hasTraffic = !!s.traffic && s.traffic.directions.length > 0;
   return (
     <div className="min-h-screen">
@@ -52,6 +54,11 @@ export default async function AdvisoryPage({ params }: { params: Promise<{ token
             </p>
           ) : (
             <p className="text-sm text-muted">This plan carries no traffic estimate, so only the closures are listed.</p>
+          )}
+          {nothingBefore && (
+            <p className="card font-medium" data-testid="advisory-nothing-before">
+              {nothingBefore}
+            </p>
           )}
           {days.length === 0 ? (
             <p className="card" data-testid="advisory-none">
@@ -106,7 +113,7 @@ export default async function AdvisoryPage({ params }: { params: Promise<{ token
               ))}
             </ol>
           )}
-          {days.length > 0 && <p className="text-sm text-muted">The list shows up to 45 days ahead. Every closure is in the calendar below.</p>}
+          {days.length > 0 && <p className="text-sm text-muted">The list shows the next 45 days with a closure or a backup. Every closure is in the calendar below.</p>}
         </section>
 
         <p className="text-sm">
