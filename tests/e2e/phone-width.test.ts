@@ -118,8 +118,26 @@ describe("on a phone", () => {
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "phone-daily-report");
     await scenario.open("lookAhead");
+    // The week ahead reads by day on a phone: a card a day, each shift's cell inside the screen (the seven-column
+    // grid scrolled sideways), and a cell's reasons open under it rather than at the foot of the week.
+    const days = page.getByTestId("look-ahead-day");
+    await days.first().waitFor({ timeout: 30_000 });
+    expect(await days.count()).toBe(7);
+    expect(await page.getByTestId("look-ahead-grid").count()).toBe(0);
+    const cells = page.getByTestId("look-ahead-days").locator("button[data-status]");
+    expect(await cells.count()).toBeGreaterThanOrEqual(7);
+    for (const b of await cells.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().toJSON()))) {
+      expect(b.left).toBeGreaterThanOrEqual(0);
+      expect(b.right).toBeLessThanOrEqual(PHONE);
+    }
+    await days.nth(1).locator("button[data-status]").first().click();
+    const detail = days.nth(1).getByTestId("cell-detail");
+    await detail.waitFor();
+    const d = (await detail.boundingBox())!;
+    expect(d.x + d.width).toBeLessThanOrEqual(PHONE);
     expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
     expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "phone-week-ahead");
   });
 
   it("an administrator's Members page: each person's role and Remove lie inside the screen, not off to the side", async () => {

@@ -7,6 +7,7 @@ import { formatIsoClock, formatIsoDay } from "@/lib/format";
 import { STATUS_MARKS, STATUS_WORDS, allClosedSentence, cellWhy } from "@/lib/look-ahead-notice";
 import type { LookAheadDay, NextOpenTime, OperationCell } from "@sim/lookahead";
 import { CellDetail } from "./cell-detail";
+import { useNarrowScreen } from "@/components/use-narrow-screen";
 
 interface Board {
   today: string;
@@ -31,14 +32,44 @@ function age(min: number | null): string {
   return min < 90 ? `${min} min ago` : min < 2880 ? `${Math.round(min / 60)} h ago` : `${Math.round(min / 1440)} days ago`;
 }
 
-/** The week ahead as a grid: one row per shift and weather-gated operation, one column per day. */
+type Row = { shiftId: string; shiftName: string; opId: string; opName: string };
+type Key = { date: string; shiftId: string; opId: string };
+
+/** One cell: what the weather lets this operation do that shift, pressed for the hour-by-hour reasons. */
+function CellButton({ date, row, cell, isOpen, onToggle, wide }: { date: string; row: Row; cell: OperationCell; isOpen: boolean; onToggle: () => void; wide?: boolean }) {
+  const why = cellWhy(cell);
+  return (
+    <button
+      type="button"
+      data-testid={`cell-${date}-${row.shiftId}-${row.opId}`}
+      data-status={cell.status}
+      aria-expanded={isOpen}
+      aria-label={`${row.opName}, ${row.shiftName}, ${formatIsoDay(date, { long: true })}: ${STATUS_WORDS[cell.status]}${why ? ` — ${why}` : ""}. Show the reasons.`}
+      onClick={onToggle}
+      className={`w-full min-w-24 rounded border px-2 py-1 text-left ${TONE[cell.status]} ${isOpen ? "ring-2 ring-brand-600" : ""}`}
+    >
+      <span aria-hidden="true" className="mr-1 font-bold">{STATUS_MARKS[cell.status]}</span>
+      <span className="font-medium">{STATUS_WORDS[cell.status]}</span>
+      {/* In the grid a reason is cut to the cell; on a phone's day card the whole of it fits. */}
+      {why && <span className={`block text-xs ${wide ? "" : "truncate"}`}>{why}</span>}
+    </button>
+  );
+}
+
+const LEGEND = "✓ may work · ◐ part of the shift · ✗ blocked by the weather · ? the forecast cannot tell · – closed (no work day, holiday, winter or no closure window)";
+
+/**
+ * The week ahead: one row per shift and weather-gated operation, one column per day — and on a phone, where seven
+ * columns do not fit, one card per day with its shifts one under another and a cell's reasons opened under it.
+ */
 export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: string; locationHref: string | null }) {
   const q = useQuery({ queryKey: ["scenarios", scenarioId, "look-ahead"], queryFn: () => api<Board>(`/api/scenarios/${scenarioId}/look-ahead`) });
-  const [open, setOpen] = useState<{ date: string; shiftId: string; opId: string } | null>(null);
+  const [open, setOpen] = useState<Key | null>(null);
+  const narrow = useNarrowScreen();
   if (q.isPending) return <p className="text-sm text-muted">Loading the week ahead…</p>;
   if (q.isError) return <p role="alert" className="text-sm text-bad">{q.error.message}</p>;
   const b = q.data;
-  const rows: { shiftId: string; shiftName: string; opId: string; opName: string }[] = [];
+  const rows: Row[] = [];
   for (const d of b.days)
     for (const s of d.shifts)
       for (const o of s.operations)
@@ -48,6 +79,8 @@ export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: s
     const s = d?.shifts.find((x) => x.shiftId === shiftId);
     return s ? { day: d!, shift: s, cell: s.operations.find((o) => o.operationId === opId) ?? null } : null;
   };
+  const isOpen = (date: string, r: Row) => open?.date === date && open.shiftId === r.shiftId && open.opId === r.opId;
+  const toggle = (date: string, r: Row) => setOpen(isOpen(date, r) ? null : { date, shiftId: r.shiftId, opId: r.opId });
   const selected = open && find(open.date, open.shiftId, open.opId);
   const f = b.forecast;
   const allClosed = allClosedSentence(b.days, b.nextOpen);
@@ -85,6 +118,32 @@ export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: s
       )}
       {rows.length === 0 ? (
         <p className="text-sm text-muted">No operation of this scenario has a weather gate, so the weather decides nothing here.</p>
+      ) : narrow ? (
+        <div>
+          <ol className="space-y-3" data-testid="look-ahead-days" aria-label="Week ahead, day by day">
+            {b.days.map((d) => (
+              <li key={d.date} className="rounded-md border border-line p-3" data-testid="look-ahead-day">
+                <h3 className="text-base">{formatIsoDay(d.date, { long: true })}</h3>
+                <ul className="mt-2 space-y-2">
+                  {rows.map((r) => {
+                    const hit = find(d.date, r.shiftId, r.opId);
+                    if (!hit?.cell) return null;
+                    return (
+                      <li key={`${r.shiftId}-${r.opId}`} className="space-y-1">
+                        <p className="text-sm">
+                          <span className="font-medium">{r.opName}</span> <span className="text-muted">· {r.shiftName}</span>
+                        </p>
+                        <CellButton date={d.date} row={r} cell={hit.cell} isOpen={isOpen(d.date, r)} onToggle={() => toggle(d.date, r)} wide />
+                        {isOpen(d.date, r) && <CellDetail day={hit.day} shift={hit.shift} cell={hit.cell} onClose={() => setOpen(null)} />}
+                      </li>
+                    );
+                  })}
+                </ul>
+              </li>
+            ))}
+          </ol>
+          <p className="mt-2 text-xs text-muted">{LEGEND}</p>
+        </div>
       ) : (
         <div className="scroll-x">
           <table className="w-full border-collapse text-sm" data-testid="look-ahead-grid">
@@ -107,26 +166,11 @@ export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: s
                     <span className="block text-xs font-normal text-muted">{r.shiftName}</span>
                   </th>
                   {b.days.map((d) => {
-                    const hit = find(d.date, r.shiftId, r.opId);
-                    const c = hit?.cell;
+                    const c = find(d.date, r.shiftId, r.opId)?.cell;
                     if (!c) return <td key={d.date} className="table-cell text-muted">—</td>;
-                    const why = cellWhy(c);
-                    const isOpen = open?.date === d.date && open.shiftId === r.shiftId && open.opId === r.opId;
                     return (
                       <td key={d.date} className="table-cell p-1 align-top">
-                        <button
-                          type="button"
-                          data-testid={`cell-${d.date}-${r.shiftId}-${r.opId}`}
-                          data-status={c.status}
-                          aria-expanded={isOpen}
-                          aria-label={`${r.opName}, ${r.shiftName}, ${formatIsoDay(d.date, { long: true })}: ${STATUS_WORDS[c.status]}${why ? ` — ${why}` : ""}. Show the reasons.`}
-                          onClick={() => setOpen(isOpen ? null : { date: d.date, shiftId: r.shiftId, opId: r.opId })}
-                          className={`w-full min-w-24 rounded border px-2 py-1 text-left ${TONE[c.status]} ${isOpen ? "ring-2 ring-brand-600" : ""}`}
-                        >
-                          <span aria-hidden="true" className="mr-1 font-bold">{STATUS_MARKS[c.status]}</span>
-                          <span className="font-medium">{STATUS_WORDS[c.status]}</span>
-                          {why && <span className="block truncate text-xs">{why}</span>}
-                        </button>
+                        <CellButton date={d.date} row={r} cell={c} isOpen={isOpen(d.date, r)} onToggle={() => toggle(d.date, r)} />
                       </td>
                     );
                   })}
@@ -134,13 +178,10 @@ export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: s
               ))}
             </tbody>
           </table>
-          <p className="mt-2 text-xs text-muted">
-            ✓ may work · ◐ part of the shift · ✗ blocked by the weather · ? the forecast cannot tell · – closed (no work day, holiday, winter or no closure window)
-          </p>
+          <p className="mt-2 text-xs text-muted">{LEGEND}</p>
         </div>
       )}
-      {selected?.cell && <CellDetail day={selected.day} shift={selected.shift} cell={selected.cell} onClose={() => setOpen(null)} />}
+      {!narrow && selected?.cell && <CellDetail day={selected.day} shift={selected.shift} cell={selected.cell} onClose={() => setOpen(null)} />}
     </section>
   );
 }
-
