@@ -27,6 +27,7 @@ import type { SearchSpec } from "../sim/search";
 import type { PlanOutcome } from "../sim/frontier";
 import type { RunSummary } from "../sim/run-summary-schema";
 import type { ProgressEntry } from "../sim/progress-entry";
+import type { ProgressRecord } from "../sim/asbuilt";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 const ts = (name: string) => timestamp(name, { withTimezone: true, mode: "date" });
@@ -459,6 +460,11 @@ export const planSearches = pgTable(
     spec: jsonb("spec").$type<SearchSpec>().notNull(),
     method: text("method").$type<"grid" | "sample">().notNull(),
     gridSize: integer("grid_size").notNull(),
+    /**
+     * A search from the field log (`spec.fromFieldLog`): the field log's shifts as they stood when it was started,
+     * so every plan of it starts from the same as-built state however the log changes meanwhile; null otherwise.
+     */
+    fieldLog: jsonb("field_log").$type<ProgressRecord[]>(),
     createdById: text("created_by")
       .notNull()
       .references(() => users.id),

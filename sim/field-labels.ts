@@ -138,6 +138,10 @@ const LABELS: Record<string, string | [string, string]> = {
   lostReason: "Reason for lost hours",
   areaSqFt: "Area",
   dataDate: "Data date",
+  spec: "Search",
+  dimensions: ["Things to vary", "Thing to vary"],
+  maxVariants: "At most plans",
+  fromFieldLog: "From the field log",
 };
 
 const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];

@@ -39,6 +39,12 @@ export const searchSpecSchema = z.object({
   maxVariants: z.number().int().min(2, "must be at least 2").max(MAX_SEARCH_VARIANTS, `must be at most ${MAX_SEARCH_VARIANTS}`),
   iterations: z.number().int().min(100, "must be at least 100").max(5_000, "must be at most 5,000 per variant"),
   seed: z.string().trim().min(1, "must not be empty").max(60),
+  /**
+   * Search the rest of the job instead of the whole plan: every plan starts from the field log's as-built state at
+   * this data date, as a re-forecast does (MODEL.md "Re-forecast"), on the climate profile alone. Absent: from the
+   * plan's start.
+   */
+  fromFieldLog: z.object({ dataDate: isoDate }).strict().optional(),
 });
 export type SearchSpec = z.infer<typeof searchSpecSchema>;
 
@@ -167,7 +173,7 @@ export function intRange(from: number, to: number, step = 1): number[] {
 }
 
 /** Problems of a spec against the plan it varies (unknown operations, shifts or windows), with their paths. */
-export function specProblems(plan: Pick<ScenarioInput, "operations" | "calendar">, spec: Pick<SearchSpec, "dimensions">): { path: string; message: string }[] {
+export function specProblems(plan: Pick<ScenarioInput, "operations" | "calendar">, spec: Pick<SearchSpec, "dimensions" | "fromFieldLog">): { path: string; message: string }[] {
   const problems: { path: string; message: string }[] = [];
   const crewIds = new Set(plan.operations.filter((o) => o.kind === "crew").map((o) => o.id));
   const shiftIds = new Set(plan.calendar.shifts.map((s) => s.id));
@@ -179,6 +185,8 @@ export function specProblems(plan: Pick<ScenarioInput, "operations" | "calendar"
       d.values.forEach((set, j) => set.forEach((sh) => !shiftIds.has(sh) && problems.push({ path: `${at}.values[${j}]`, message: `"${sh}" is not a shift of this plan` })));
     if (d.kind === "closureWindows")
       d.values.forEach((set, j) => set.forEach((w) => w >= windows && problems.push({ path: `${at}.values[${j}]`, message: `window ${w + 1} does not exist (the plan has ${windows})` })));
+    // The field log says when the work started; a search of the rest of the job cannot move it.
+    if (d.kind === "startDate" && spec.fromFieldLog) problems.push({ path: at, message: "start dates cannot vary in a search from the field log: the work has started" });
   });
   const kinds = spec.dimensions.map((d) => (d.kind === "crews" || d.kind === "shifts" ? `${d.kind}:${d.operation}` : d.kind));
   kinds.forEach((k, i) => kinds.indexOf(k) !== i && problems.push({ path: `spec.dimensions[${i}]`, message: "varies the same thing as an earlier dimension" }));

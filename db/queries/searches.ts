@@ -5,6 +5,7 @@ import { getDb } from "../client";
 import { engineJobs, planSearches, planSearchVariants, scenarios, users } from "../schema";
 import type { SearchSpec } from "../../sim/search";
 import type { PlanOutcome } from "../../sim/frontier";
+import type { ProgressRecord } from "../../sim/asbuilt";
 import { staleSql } from "./stale";
 
 export interface NewSearch {
@@ -15,6 +16,8 @@ export interface NewSearch {
   spec: SearchSpec;
   method: "grid" | "sample";
   gridSize: number;
+  /** A search from the field log: its shifts as they stand now (`planSearches.fieldLog`). */
+  fieldLog?: ProgressRecord[] | null;
   userId: string;
   variants: { idx: number; choice: number[] | null; label: string; bossJobId: string }[];
 }
@@ -24,7 +27,7 @@ export async function createSearch(input: NewSearch) {
   return getDb().transaction(async (tx) => {
     const [search] = await tx
       .insert(planSearches)
-      .values({ projectId: input.projectId, scenarioId: input.scenarioId, scenarioVersion: input.scenarioVersion, name: input.name, spec: input.spec, method: input.method, gridSize: input.gridSize, createdById: input.userId })
+      .values({ projectId: input.projectId, scenarioId: input.scenarioId, scenarioVersion: input.scenarioVersion, name: input.name, spec: input.spec, method: input.method, gridSize: input.gridSize, fieldLog: input.fieldLog ?? null, createdById: input.userId })
       .returning();
     await tx.insert(planSearchVariants).values(input.variants.map((v) => ({ ...v, searchId: search.id })));
     return search;
@@ -44,6 +47,8 @@ export async function getSearch({ id }: { id: string }) {
       spec: planSearches.spec,
       method: planSearches.method,
       gridSize: planSearches.gridSize,
+      /** How many shifts a search from the field log started from (null for a search from the plan's start). */
+      fieldLogShifts: sql<number | null>`jsonb_array_length(${planSearches.fieldLog})`,
       createdAt: planSearches.createdAt,
       createdByName: users.name,
       jobId: engineJobs.id,
@@ -57,6 +62,12 @@ export async function getSearch({ id }: { id: string }) {
   return row ?? null;
 }
 export type SearchDetail = NonNullable<Awaited<ReturnType<typeof getSearch>>>;
+
+/** The field log a search from the field log started from (the worker's read; null for one from the plan's start). */
+export async function getSearchFieldLog({ id }: { id: string }): Promise<ProgressRecord[] | null> {
+  const [row] = await getDb().select({ fieldLog: planSearches.fieldLog }).from(planSearches).where(eq(planSearches.id, id));
+  return row?.fieldLog ?? null;
+}
 
 export async function listVariants({ searchId }: { searchId: string }) {
   return getDb()

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { readFileSync } from "node:fs";
 import { dominates, nonDominated, objectivesOf, outcomeOf } from "../../sim/frontier";
-import { applyVariant, buildVariants, fullGrid, latinHypercube, searchSpecSchema, variantLabel, type SearchDimension } from "../../sim/search";
+import { applyVariant, buildVariants, fullGrid, latinHypercube, searchSpecSchema, specProblems, variantLabel, type SearchDimension } from "../../sim/search";
 import { BROWSER_WORK_BUDGET, iterationsThatFit, runWork, SEARCH_WORK_BUDGET, searchBudgetProblem, SERVER_WORK_BUDGET, timeLimitSeconds } from "../../sim/budget";
 import { parseScenario } from "../../sim/validate";
 import type { ScenarioInput } from "../../sim/schema";
@@ -96,6 +96,16 @@ describe("variants", () => {
   it("keeps only the allowed closure windows", () => {
     const v = applyVariant(demo, [{ kind: "closureWindows", values: [[0]] }], [0]);
     expect(v.calendar.closureWindows).toEqual([demo.calendar.closureWindows[0]]);
+  });
+
+  it("a search from the field log cannot vary the start date (the work has started), and says so by path", () => {
+    const dims: SearchDimension[] = [{ kind: "crews", operation: "placement", values: [1, 2] }, { kind: "startDate", values: ["2027-04-05", "2027-04-19"] }];
+    const fromLog = { dataDate: "2027-06-01" };
+    expect(specProblems(demo, { dimensions: dims, fromFieldLog: fromLog })).toEqual([{ path: "spec.dimensions[1]", message: "start dates cannot vary in a search from the field log: the work has started" }]);
+    expect(specProblems(demo, { dimensions: dims })).toEqual([]);
+    expect(searchSpecSchema.safeParse({ dimensions: dims.slice(0, 1), maxVariants: 10, iterations: 1000, seed: "s", fromFieldLog: fromLog }).success).toBe(true);
+    const bad = searchSpecSchema.safeParse({ dimensions: dims.slice(0, 1), maxVariants: 10, iterations: 1000, seed: "s", fromFieldLog: { dataDate: "June" } });
+    expect(bad.error!.issues[0].path).toEqual(["fromFieldLog", "dataDate"]);
   });
 
   it("refuses a spec without dimensions, in words", () => {

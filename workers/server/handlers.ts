@@ -7,7 +7,7 @@
 import { claimEngineJob, finishEngineJob, getEngineJob, getScenarioRevision, reportEngineProgress, type EngineJob } from "../../db/queries/jobs";
 import { getRunForCheck, saveRun, setRunVerification } from "../../db/queries/runs";
 import { listProgress } from "../../db/queries/progress";
-import { getSearch, getVariant, saveVariantOutcome, variantProgress } from "../../db/queries/searches";
+import { getSearch, getSearchFieldLog, getVariant, saveVariantOutcome, variantProgress } from "../../db/queries/searches";
 import { applyVariant } from "../../sim/search";
 import { parseScenario } from "../../sim/validate";
 import type { ScenarioInput } from "../../sim/schema";
@@ -114,7 +114,9 @@ async function handleVariant(pool: ThreadPool, job: EngineJob, idx: number) {
   if (!definition) return void (await finishEngineJob({ id: job.id, status: "failed", error: "The scenario version no longer exists." }));
   const plan = variant.choice ? applyVariant(definition, search.spec.dimensions, variant.choice) : definition;
   const progress = await variantProgress({ searchId: job.searchId });
-  const r = await runWatched(pool, job, { kind: "variant", definition: plan, seed: job.seed, iterations: job.iterations }, progress.finished * job.iterations);
+  const from = search.spec.fromFieldLog;
+  const fromFieldLog = from ? { dataDate: from.dataDate, records: (await getSearchFieldLog({ id: job.searchId })) ?? [] } : null;
+  const r = await runWatched(pool, job, { kind: "variant", definition: plan, seed: job.seed, iterations: job.iterations, fromFieldLog }, progress.finished * job.iterations);
   if (!r) return;
   if (r.kind === "variant") await saveVariantOutcome({ searchId: job.searchId, idx, status: "done", outcome: r.outcome, problem: null });
   else await saveVariantOutcome({ searchId: job.searchId, idx, status: "infeasible", outcome: null, problem: r.kind === "infeasible" ? r.problem : "unexpected result" });

@@ -14,7 +14,7 @@ export type EngineTask =
   | { kind: "run"; definition: unknown; seed: string; iterations: number }
   | { kind: "reforecast"; definition: unknown; seed: string; iterations: number; dataDate: string; records: ProgressRecord[]; forecast?: HourlyInput | null }
   | { kind: "verify"; definition: unknown; seed: string; iterations: number; claimed: unknown }
-  | { kind: "variant"; definition: unknown; seed: string; iterations: number };
+  | { kind: "variant"; definition: unknown; seed: string; iterations: number; fromFieldLog?: { dataDate: string; records: ProgressRecord[] } | null };
 
 export type TaskResult =
   | { kind: "run"; summary: RunSummary }
@@ -69,7 +69,9 @@ export function runTask(task: EngineTask, onProgress: Progress): TaskResult {
     const summary = summarizeRun(compiled, runIterations(compiled, task.seed, 0, task.iterations, onProgress));
     return { kind: "reforecast", summary: withinContract(summary), reforecast: asBuiltDigest(plan, asBuilt) };
   }
-  const compiled = compileScenario(plan);
+  // A plan of a search from the field log starts, as a re-forecast does, from the as-built state at the data date.
+  const from = task.kind === "variant" ? task.fromFieldLog : null;
+  const compiled = compileScenario(plan, from ? { asBuilt: buildAsBuilt(plan, from.records, from.dataDate) } : undefined);
   const summary = summarizeRun(compiled, runIterations(compiled, task.seed, 0, task.iterations, onProgress));
   if (task.kind === "variant") return { kind: "variant", outcome: outcomeOf(summary) };
   if (task.kind === "verify") {

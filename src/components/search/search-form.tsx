@@ -9,6 +9,7 @@ import { useMutation } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
 import { gridSize, intRange, MAX_SEARCH_VARIANTS, type SearchDimension, type SearchSpec } from "@sim/search";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
+import { formatIsoDate } from "@/lib/format";
 
 interface PlanShape {
   startDate: string;
@@ -17,7 +18,10 @@ interface PlanShape {
   deck: { startStationFt: number; lengthFt: number };
 }
 
-export function SearchForm({ scenarioId, plan }: { scenarioId: string; plan: PlanShape }) {
+/** The scenario's field log, when it has shifts: how many, and the last day they reach. */
+type FieldLogShape = { shifts: number; lastWorkDate: string } | null;
+
+export function SearchForm({ scenarioId, plan, fieldLog }: { scenarioId: string; plan: PlanShape; fieldLog: FieldLogShape }) {
   const router = useRouter();
   const crewOps = plan.operations.filter((o) => o.kind === "crew");
   const [name, setName] = useState("Plan search");
@@ -32,6 +36,8 @@ export function SearchForm({ scenarioId, plan }: { scenarioId: string; plan: Pla
   const [iterations, setIterations] = useState(1000);
   const [maxVariants, setMaxVariants] = useState(60);
   const [seed, setSeed] = useState("search");
+  const [fromLog, setFromLog] = useState(fieldLog !== null);
+  const [dataDate, setDataDate] = useState(fieldLog?.lastWorkDate ?? "");
 
   const dimensions = useMemo(() => {
     const dims: SearchDimension[] = [];
@@ -42,27 +48,28 @@ export function SearchForm({ scenarioId, plan }: { scenarioId: string; plan: Pla
     if (windows && n > 1) dims.push({ kind: "closureWindows", values: [intRange(0, n - 1), ...intRange(0, n - 1).map((w) => intRange(0, n - 1).filter((x) => x !== w))] });
     if (season && cutoffDate) dims.push({ kind: "season", values: [{ plan: "single" }, { plan: "two", cutoffDate, cutoffStationFt: cutoffStation }] });
     if (holidays) dims.push({ kind: "holidayPolicy", values: ["standDown", "workThrough"] });
-    if (start.on) {
+    // Once the work has started (a search from the field log) its start date is history, not a choice.
+    if (start.on && !fromLog) {
       const a = parseIsoDate(start.from);
       const b = parseIsoDate(start.to);
       dims.push({ kind: "startDate", values: intRange(a, Math.max(a, b), Math.max(1, start.stepDays)).map(formatDayNumber) });
     }
     return dims.filter((d) => d.values.length > 0);
-  }, [crewOps, crews, shiftOps, windows, season, cutoffDate, cutoffStation, holidays, start, plan]);
+  }, [crewOps, crews, shiftOps, windows, season, cutoffDate, cutoffStation, holidays, start, fromLog, plan]);
   const size = dimensions.length ? gridSize(dimensions) : 0;
 
   const create = useMutation({
     mutationFn: (spec: SearchSpec) => api<{ search: { id: string } }>(`/api/scenarios/${scenarioId}/searches`, { method: "POST", body: { name, spec } }),
     onSuccess: (r) => router.push(`/scenarios/${scenarioId}/search/${r.search.id}`),
   });
-  const problem = create.error instanceof ApiError && create.error.fields.length ? create.error.fields.map((f) => `${f.path} ${f.message}`).join("; ") : create.error?.message;
+  const problem = create.error instanceof ApiError && create.error.fields.length ? create.error.fields.map((f) => `${f.label ?? f.path}: ${f.message}`).join("; ") : create.error?.message;
 
   return (
     <form
       className="card space-y-4"
       onSubmit={(e) => {
         e.preventDefault();
-        create.mutate({ dimensions, maxVariants, iterations, seed });
+        create.mutate({ dimensions, maxVariants, iterations, seed, ...(fromLog ? { fromFieldLog: { dataDate } } : {}) });
       }}
     >
       <h2>New plan search</h2>
@@ -70,6 +77,23 @@ export function SearchForm({ scenarioId, plan }: { scenarioId: string; plan: Pla
         <label htmlFor="search-name" className="field-label">Name</label>
         <input id="search-name" className="field-input w-80" value={name} maxLength={120} onChange={(e) => setName(e.target.value)} />
       </div>
+      <fieldset className="space-y-2 text-sm" data-testid="search-from">
+        <legend className="field-label">Where each plan starts</legend>
+        <label className="flex items-center gap-2">
+          <input type="radio" name="search-from" checked={!fromLog} onChange={() => setFromLog(false)} /> From the plan&apos;s start ({formatIsoDate(plan.startDate)}): the whole job
+        </label>
+        <div className="flex flex-wrap items-center gap-2">
+          <label className="flex items-center gap-2">
+            <input type="radio" name="search-from" checked={fromLog} onChange={() => setFromLog(true)} /> From the field log as of
+          </label>
+          <input type="date" className="field-input mt-0 inline-block w-44" value={dataDate} onChange={(e) => setDataDate(e.target.value)} aria-label="Data date" disabled={!fromLog} />
+        </div>
+        <p className="text-xs text-muted">
+          {fieldLog
+            ? `The rest of the job: every plan starts from the work the field log records up to that day (${fieldLog.shifts.toLocaleString("en-US")} shift${fieldLog.shifts === 1 ? "" : "s"} in it now, the last on ${formatIsoDate(fieldLog.lastWorkDate)}), as a re-forecast does, on the climate profile without the weather forecast.`
+            : "The rest of the job: every plan starts from the work the field log records up to that day, as a re-forecast does (nothing is recorded yet)."}
+        </p>
+      </fieldset>
       <fieldset className="space-y-2">
         <legend className="field-label">Crews per operation</legend>
         {crewOps.map((o) => (
@@ -99,7 +123,7 @@ export function SearchForm({ scenarioId, plan }: { scenarioId: string; plan: Pla
           <label>at station (ft) <input type="number" className="field-input mt-0 ml-1 inline-block w-28" value={cutoffStation} onChange={(e) => setCutoffStation(Number(e.target.value))} /></label>
         </div>
         <div className="flex flex-wrap items-center gap-2">
-          <label className="flex items-center gap-2"><input type="checkbox" checked={start.on} onChange={(e) => setStart({ ...start, on: e.target.checked })} /> Start dates: between</label>
+          <label className="flex items-center gap-2"><input type="checkbox" checked={start.on && !fromLog} disabled={fromLog} onChange={(e) => setStart({ ...start, on: e.target.checked })} /> Start dates{fromLog ? " (not from the field log: the work has started)" : ""}: between</label>
           <input type="date" className="field-input mt-0 inline-block w-44" value={start.from} onChange={(e) => setStart({ ...start, from: e.target.value })} aria-label="Earliest start" />
           and <input type="date" className="field-input mt-0 inline-block w-44" value={start.to} onChange={(e) => setStart({ ...start, to: e.target.value })} aria-label="Latest start" />
           <label>every <input type="number" min={1} max={90} className="field-input mt-0 mx-1 inline-block w-16" value={start.stepDays} onChange={(e) => setStart({ ...start, stepDays: Number(e.target.value) })} /> days</label>

@@ -8,11 +8,12 @@ import { useRouter } from "next/navigation";
 import { useMutation, useQuery } from "@tanstack/react-query";
 import { JobProgress, useJob } from "@/components/run/job-progress";
 import { api } from "@/lib/api-client";
+import { formatIsoDate } from "@/lib/format";
 import { SearchPlans } from "./search-plans";
 import type { VariantRow } from "./search-logic";
 
 interface SearchReply {
-  search: { id: string; name: string; method: "grid" | "sample"; gridSize: number; variantCount: number; jobId: string | null; jobStatus: string | null; stale: boolean; scenarioVersion: number; scenarioId: string };
+  search: { id: string; name: string; method: "grid" | "sample"; gridSize: number; variantCount: number; jobId: string | null; jobStatus: string | null; stale: boolean; scenarioVersion: number; scenarioId: string; fromFieldLog: { dataDate: string } | null; fieldLogShifts: number | null };
   variants: VariantRow[];
 }
 
@@ -43,15 +44,28 @@ export function SearchView({ searchId, targetDate, canRun, canEdit }: { searchId
         {save.isError && <p role="alert" className="mt-2 text-sm text-bad">Could not save the variant: {save.error.message}</p>}
       </section>
       <SearchPlans variants={query.data.variants} targetDate={targetDate} onSave={canEdit ? (row) => save.mutate(row) : undefined} saving={save.isPending} />
+      {canEdit && s.fromFieldLog && (
+        // A saved variant is a new scenario without this one's field log: its forecasts plan the whole job again.
+        <p className="text-sm text-muted" data-testid="search-save-note">
+          A plan saved as a scenario is the whole plan from its start: the new scenario has no field log of its own. To carry a change into the job under
+          way, make it in this scenario&apos;s Plan and re-forecast from the Field log.
+        </p>
+      )}
     </div>
   );
 }
 
 /** "Every combination: 2 variants, plus the plan as saved (version 3); … 3 of 3 finished." */
-export function SearchSize({ search: s, variants }: { search: { method: "grid" | "sample"; gridSize: number; variantCount: number; scenarioVersion: number; stale: boolean }; variants: readonly VariantRow[] }) {
+export function SearchSize({ search: s, variants }: { search: { method: "grid" | "sample"; gridSize: number; variantCount: number; scenarioVersion: number; stale: boolean; fromFieldLog: { dataDate: string } | null; fieldLogShifts: number | null }; variants: readonly VariantRow[] }) {
   const done = variants.filter((v) => v.status !== "pending").length;
+  const shifts = s.fieldLogShifts ?? 0;
   return (
     <>
+      {s.fromFieldLog && (
+        <span className="block font-medium text-ink" data-testid="search-from-field-log">
+          The rest of the job: each plan starts from the field log as of {formatIsoDate(s.fromFieldLog.dataDate)} ({shifts.toLocaleString("en-US")} shift{shifts === 1 ? "" : "s"} when the search began), as a re-forecast does.
+        </span>
+      )}
       {s.method === "grid" ? `Every combination: ${s.variantCount} variants` : `A space-filling sample of ${s.variantCount} variants out of ${s.gridSize.toLocaleString("en-US")} combinations`}, plus the plan as saved
       (version {s.scenarioVersion}
       {s.stale ? ", since changed" : ""}); every plan runs with the same seed. {done} of {variants.length} finished.

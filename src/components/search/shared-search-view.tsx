@@ -11,7 +11,7 @@ import { SearchSize } from "./search-view";
 import type { VariantRow } from "./search-logic";
 
 export interface SharedSearchReply {
-  search: { name: string; method: "grid" | "sample"; gridSize: number; variantCount: number; scenarioVersion: number; stale: boolean; jobStatus: string | null };
+  search: { name: string; method: "grid" | "sample"; gridSize: number; variantCount: number; scenarioVersion: number; stale: boolean; jobStatus: string | null; fromFieldLog: { dataDate: string } | null; fieldLogShifts: number | null };
   variants: VariantRow[];
 }
 

@@ -63,6 +63,19 @@ export async function validateDelete({ scenario, id }: { scenario: ScenarioDetai
 type ReforecastBody = z.output<typeof reforecastSchema>;
 
 /**
+ * A data date a re-forecast (or a search from the field log) may start from, or the problem at `path`: inside the
+ * plan's calendar, and not after today where the work is — progress after today cannot have been recorded, so a
+ * later data date would forecast from a deck that pretends the days in between passed with no work.
+ */
+export function dataDateProblem(plan: { startDate: string; timeZone: string }, dataDate: string, path: string, now = new Date()): { path: string; message: string } | null {
+  const last = formatDayNumber(parseIsoDate(plan.startDate) + HORIZON_DAYS - 1);
+  if (dataDate < plan.startDate || dataDate > last) return { path, message: `Data date must be between the plan's start (${plan.startDate}) and ${last}` };
+  const today = todayIn(plan.timeZone, now);
+  if (dataDate > today) return { path, message: `Data date must not be in the future (today is ${today})` };
+  return null;
+}
+
+/**
  * Queues a re-forecast from the as-built state at `dataDate`; a worker computes it and stores it as a run with
  * that data date. The job's key includes the field entries it uses, so a new entry means a new computation.
  * When the data date is today and the project's cached forecast is recent, the re-forecast starts from it
@@ -70,14 +83,9 @@ type ReforecastBody = z.output<typeof reforecastSchema>;
  */
 export async function queueReforecast({ scenario, body, userId, automatic = false, now = new Date() }: { scenario: ScenarioDetail; body: ReforecastBody; userId: string; automatic?: boolean; now?: Date }) {
   const plan = validateDefinition(scenario.definition);
-  const last = formatDayNumber(parseIsoDate(plan.startDate) + HORIZON_DAYS - 1);
-  if (body.dataDate < plan.startDate || body.dataDate > last) {
-    throw badRequest([{ path: "dataDate", message: `Data date must be between the plan's start (${plan.startDate}) and ${last}` }]);
-  }
-  // Progress after today cannot have been recorded, so a later data date would forecast from a deck that
-  // pretends the days in between passed with no work.
+  const wrongDate = dataDateProblem(plan, body.dataDate, "dataDate", now);
+  if (wrongDate) throw badRequest([wrongDate]);
   const today = todayIn(plan.timeZone, now);
-  if (body.dataDate > today) throw badRequest([{ path: "dataDate", message: `Data date must not be in the future (today is ${today})` }]);
   const overBudget = budgetProblem(plan, body.iterations, "server");
   if (overBudget) throw badRequest([overBudget], "The re-forecast is larger than the server's work budget; nothing was run or saved.");
   const rows = await listProgress({ scenarioId: scenario.id });

@@ -16,6 +16,8 @@ import { searchJobKey } from "@/lib/run-keys";
 import { badRequest } from "./errors";
 import { queue } from "./jobs";
 import { validateDefinition } from "./scenario-input";
+import { dataDateProblem, toRecord } from "./progress";
+import { listProgress } from "@db/queries/progress";
 
 export const searchWriteSchema = z.object({
   name: z.string().trim().min(1, "must not be empty").max(120),
@@ -28,6 +30,11 @@ export async function startSearch({ scenario, body, userId }: { scenario: Scenar
   if (never.length) throw badRequest(never, "This plan can never finish; no search was started.");
   const problems = specProblems(plan, body.spec);
   if (problems.length) throw badRequest(problems, "The search names things this plan does not have.");
+  const from = body.spec.fromFieldLog;
+  const wrongDate = from && dataDateProblem(plan, from.dataDate, "spec.fromFieldLog.dataDate");
+  if (wrongDate) throw badRequest([wrongDate], "A search from the field log starts from a day the field log can describe; nothing was started.");
+  // The field log as it stands now: every plan of the search starts from the same as-built state.
+  const fieldLog = from ? (await listProgress({ scenarioId: scenario.id })).map(toRecord) : null;
   const built = buildVariants(body.spec);
   const runs = built.variants.length + 1; // the plan as saved runs too, as the reference point
   const overBudget = searchBudgetProblem(plan, body.spec.iterations, runs);
@@ -35,7 +42,7 @@ export async function startSearch({ scenario, body, userId }: { scenario: Scenar
   const variants = [{ choice: null, label: "The plan as saved" }, ...built.variants.map((choice) => ({ choice, label: variantLabel(body.spec.dimensions, choice) }))];
   return enqueueSearch(
     await queue(),
-    { projectId: scenario.projectId, scenarioId: scenario.id, scenarioVersion: scenario.version, name: body.name, spec: body.spec, method: built.method, gridSize: built.gridSize, userId },
+    { projectId: scenario.projectId, scenarioId: scenario.id, scenarioVersion: scenario.version, name: body.name, spec: body.spec, method: built.method, gridSize: built.gridSize, fieldLog, userId },
     variants,
     { seed: body.spec.seed, iterations: body.spec.iterations, timeLimitSeconds: timeLimitSeconds(runWork(plan, body.spec.iterations).total), singletonKeyOf: searchJobKey },
   );
@@ -47,7 +54,7 @@ export function searchView(search: SearchDetail, variants: Awaited<ReturnType<ty
   const front = nonDominated(done.map((v) => objectivesOf(v.outcome!)));
   const onFront = new Set(done.filter((_, i) => front[i]).map((v) => v.idx));
   return {
-    search: { ...search, createdAt: search.createdAt.toISOString(), variantCount: variants.length - 1 },
+    search: { ...search, createdAt: search.createdAt.toISOString(), variantCount: variants.length - 1, fromFieldLog: search.spec.fromFieldLog ?? null },
     variants: variants.map((v) => ({ ...v, current: v.idx === 0, onFrontier: onFront.has(v.idx) })),
   };
 }
@@ -61,7 +68,7 @@ export function publicSearchView(search: SearchDetail, variants: Awaited<ReturnT
   const view = searchView(search, variants);
   const s = view.search;
   return {
-    search: { name: s.name, method: s.method, gridSize: s.gridSize, variantCount: s.variantCount, scenarioVersion: s.scenarioVersion, stale: s.stale, createdAt: s.createdAt, createdByName: s.createdByName, jobStatus: s.jobStatus },
+    search: { name: s.name, method: s.method, gridSize: s.gridSize, variantCount: s.variantCount, scenarioVersion: s.scenarioVersion, stale: s.stale, createdAt: s.createdAt, createdByName: s.createdByName, jobStatus: s.jobStatus, fromFieldLog: s.fromFieldLog, fieldLogShifts: s.fieldLogShifts },
     variants: view.variants.map((v) => ({ idx: v.idx, label: v.label, status: v.status, outcome: v.outcome, problem: v.problem, current: v.current, onFrontier: v.onFrontier })),
   };
 }

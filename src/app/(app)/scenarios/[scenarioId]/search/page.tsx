@@ -5,6 +5,7 @@ import { orNotFound } from "@/lib/server/page-access";
 import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import { listSearches } from "@db/queries/searches";
+import { listProgress } from "@db/queries/progress";
 import { validateDefinition } from "@/lib/server/scenario-input";
 import { SearchForm } from "@/components/search/search-form";
 
@@ -14,11 +15,13 @@ export const metadata: Metadata = { title: "Plan search" };
 export default async function SearchPage({ params }: { params: Promise<{ scenarioId: string }> }) {
   const { scenarioId } = await params;
   const { scenario, role, archived } = await orNotFound(requireScenario(scenarioId, "read"));
-  const searches = await listSearches({ scenarioId });
+  const [searches, log] = await Promise.all([listSearches({ scenarioId }), listProgress({ scenarioId })]);
   const plan = validateDefinition(scenario.definition);
+  // A job under way searches the rest of the work by default, from the last day its field log reaches.
+  const fieldLog = log.length ? { shifts: log.length, lastWorkDate: log.reduce((d, r) => (r.workDate > d ? r.workDate : d), log[0].workDate) } : null;
   return (
     <div className="space-y-5">
-      {can(role, "runScenario", archived) ? <SearchForm scenarioId={scenario.id} plan={plan} /> : null}
+      {can(role, "runScenario", archived) ? <SearchForm scenarioId={scenario.id} plan={plan} fieldLog={fieldLog} /> : null}
       <section className="card">
         <h2>Saved searches</h2>
         {searches.length === 0 ? (

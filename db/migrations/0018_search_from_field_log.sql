@@ -1,0 +1,1 @@
+ALTER TABLE "plan_searches" ADD COLUMN "field_log" jsonb;
