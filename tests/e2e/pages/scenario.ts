@@ -1,10 +1,10 @@
-/** Page object: one scenario, its tabs (Outlook, Plan, Field log, Field data, Share) and the plan editor's sections. */
+/** Page object: one scenario, its tabs (Outlook, Plan, Field log, Week ahead, Plan search, Field data, Share) and the plan editor's sections. */
 import type { Page } from "playwright-core";
 import { APP_URL } from "../../helpers/app";
 
-export type ScenarioTab = "outlook" | "plan" | "lookAhead" | "progress" | "data" | "share" | "brief";
-const TAB_PATH: Record<ScenarioTab, string> = { outlook: "", plan: "/plan", lookAhead: "/look-ahead", progress: "/progress", data: "/data", share: "/share", brief: "/brief" };
-const TAB_LABEL: Partial<Record<ScenarioTab, string>> = { outlook: "Outlook", plan: "Plan", lookAhead: "Week ahead", progress: "Field log", data: "Field data", share: "Share" };
+export type ScenarioTab = "outlook" | "plan" | "lookAhead" | "progress" | "search" | "data" | "share" | "brief";
+const TAB_PATH: Record<ScenarioTab, string> = { outlook: "", plan: "/plan", lookAhead: "/look-ahead", progress: "/progress", search: "/search", data: "/data", share: "/share", brief: "/brief" };
+const TAB_LABEL: Partial<Record<ScenarioTab, string>> = { outlook: "Outlook", plan: "Plan", lookAhead: "Week ahead", progress: "Field log", search: "Plan search", data: "Field data", share: "Share" };
 export type PlanSection = "sequence" | "stages" | "crews" | "calendar" | "weather" | "traffic";
 
 export class ScenarioPage {
