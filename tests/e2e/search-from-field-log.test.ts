@@ -1,7 +1,8 @@
 /**
  * A scheduler's plan search on a job under way, in Debian's Chromium: the form starts from the field log by default
  * (as of the last day it records), a start date cannot be chosen then, and the search's page says it searched the
- * rest of the job and what a saved variant is.
+ * rest of the job and what a saved variant is; a variant used in the plan becomes its next version, and the Field log
+ * opens to re-forecast it.
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import { call, kestrelProject, signInAs } from "../helpers/app";
@@ -48,6 +49,15 @@ describe("a plan search of the rest of the job", { timeout: 120_000 }, () => {
     await page.getByText("3 of 3 finished.", { exact: false }).waitFor({ timeout: 60_000 });
     expect(await page.getByTestId("search-save-note").textContent()).toContain("the new scenario has no field log of its own");
     await screenshot(page, "search-rest-of-job");
+
+    // Standing down for holidays (the fixture works through them), made the plan itself: a new version that keeps
+    // the field log, and on to the Field log to re-forecast it.
+    await page.getByRole("row", { name: /stand down for holidays/ }).getByTestId("adopt-variant").click();
+    const dialog = page.getByTestId("adopt-dialog");
+    expect(await dialog.textContent()).toContain("“stand down for holidays” becomes version 2 of this scenario");
+    await dialog.getByRole("button", { name: "Use in this plan" }).click();
+    await page.waitForURL(`${APP_URL}/scenarios/${scenarioId}/progress`);
+    expect(await page.getByText(/^Version 2 · last saved/).count()).toBe(1);
     await context.close();
   });
 });

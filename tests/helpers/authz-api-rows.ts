@@ -303,6 +303,18 @@ export const API_ROWS: Record<string, ApiRow> = {
     ok: 201,
     request: async (w) => ({ params: { searchId: w.searchId }, body: { idx: 1, name: uniq("from search") } }),
   },
+  // Making a variant the plan saves a new version of the searched scenario: a fresh scenario and search per call,
+  // since each allowed call moves its scenario past the version the search varied.
+  "POST /api/searches/[searchId]/adopt": {
+    need: { kind: "scenario", action: "editScenario" },
+    ok: 200,
+    request: async (w) => {
+      const s = await newScenario(w, w.projectId, admin(w), "to adopt into");
+      const search = must(await call(`/api/scenarios/${s.id}/searches`, { method: "POST", cookie: admin(w), body: { name: uniq("adopt"), spec: SMALL_SEARCH } }), 202, "search");
+      // Variant 2 works through holidays: a change to the demo plan, which stands down (variant 1 is the plan as it is).
+      return { params: { searchId: search.search.id }, body: { idx: 2 } };
+    },
+  },
 
   // ---- sharing ----
   // The week ahead: every member reads the board; the daily notice is a sharing act; the location belongs to

@@ -70,6 +70,37 @@ describe("a plan search from the field log", () => {
     expect(view.variants.filter((v: { status: string }) => v.status === "done").length).toBe(3);
   });
 
+  it("makes a variant the plan itself: a new version of the scenario that keeps its field log, and only over the version searched", async () => {
+    const started = await call(`/api/scenarios/${scenarioId}/searches`, { method: "POST", cookie: engineer, body: { name: "Crews for the rest", spec: spec() } });
+    expect(started.status).toBe(202);
+    const searchId = started.body.search.id;
+    const before = (await call(`/api/scenarios/${scenarioId}`, { cookie: engineer })).body.scenario;
+    const shifts = (await call(`/api/scenarios/${scenarioId}/progress`, { cookie: engineer })).body.entries.length;
+    const twoCrews = (await call(`/api/searches/${searchId}`, { cookie: engineer })).body.variants.find((v: { label: string }) => v.label === "overlay: 2 crews");
+    expect((await call(`/api/searches/${searchId}/adopt`, { method: "POST", cookie: engineer, body: { idx: 0 } })).body.fields[0]).toMatchObject({ path: "idx", message: "must be a variant of the search" });
+    // One crew is what the plan has: that variant changes nothing, so no version is made for it.
+    const oneCrew = (await call(`/api/searches/${searchId}`, { cookie: engineer })).body.variants.find((v: { label: string }) => v.label === "overlay: 1 crew");
+    const same = await call(`/api/searches/${searchId}/adopt`, { method: "POST", cookie: engineer, body: { idx: oneCrew.idx } });
+    expect(same.status).toBe(400);
+    expect(same.body.fields[0]).toMatchObject({ path: "idx", message: "is the plan as it stands: nothing to change" });
+
+    const adopted = await call(`/api/searches/${searchId}/adopt`, { method: "POST", cookie: engineer, body: { idx: twoCrews.idx } });
+    expect(adopted.status, JSON.stringify(adopted.body)).toBe(200);
+    expect(adopted.body).toEqual({ scenarioId, version: before.version + 1 });
+    const after = (await call(`/api/scenarios/${scenarioId}`, { cookie: engineer })).body;
+    expect(after.scenario.definition.operations.find((o: { id: string }) => o.id === "overlay").crews).toBe(2);
+    expect(after.scenario.name).toBe(before.name);
+    expect(after.revisions[0].changeNote).toBe(`Variant ${twoCrews.idx} of the plan search “Crews for the rest”: overlay: 2 crews`);
+    // The field log stays with the scenario: the next re-forecast starts from it with the new crews.
+    expect((await call(`/api/scenarios/${scenarioId}/progress`, { cookie: engineer })).body.entries.length).toBe(shifts);
+    // The search varied the version before: a second variant would overwrite the first, so it is refused.
+    const again = await call(`/api/searches/${searchId}/adopt`, { method: "POST", cookie: engineer, body: { idx: twoCrews.idx } });
+    expect(again.status).toBe(409);
+    expect(again.body.error).toMatch(/^The plan was saved again after this search \(it varied version \d+; the plan is at version \d+ now\)\. Nothing was changed/);
+    expect((await call(`/api/scenarios/${scenarioId}`, { cookie: engineer })).body.scenario.version).toBe(before.version + 1);
+    expect((await waitForJob(started.body.job.id, engineer, { timeoutMs: 120_000 })).status).toBe("completed");
+  });
+
   it("refuses a start date to vary, and a data date after today, naming each field", async () => {
     const withStart = await call(`/api/scenarios/${scenarioId}/searches`, {
       method: "POST",

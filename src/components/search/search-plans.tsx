@@ -2,7 +2,8 @@
 /**
  * The plans of a search, as the signed-in page and a search's share link both show them: the frontier chart
  * and a sortable, filterable table. `onSave`, when given, adds the "Save as scenario" button to each finished
- * variant (the signed-in page, for those who may edit); a shared search has none.
+ * variant (the signed-in page, for those who may edit), and `onAdopt` the "Use in this plan" button (while the
+ * plan is still the version searched); a shared search has neither.
  */
 import { useMemo, useState } from "react";
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
@@ -14,7 +15,7 @@ import { filterRows, type VariantRow } from "./search-logic";
 const col = createColumnHelper<VariantRow>();
 const finishKey = (r: VariantRow) => (r.outcome ? (r.outcome.p80Finish === "unfinished" ? "9999" : r.outcome.p80Finish) : "");
 
-export function SearchPlans({ variants, targetDate, onSave, saving = false }: { variants: VariantRow[]; targetDate: string | null; onSave?: (row: VariantRow) => void; saving?: boolean }) {
+export function SearchPlans({ variants, targetDate, onSave, onAdopt, saving = false }: { variants: VariantRow[]; targetDate: string | null; onSave?: (row: VariantRow) => void; onAdopt?: (row: VariantRow) => void; saving?: boolean }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "p80", desc: false }]);
   const [byTarget, setByTarget] = useState(false);
   const [frontierOnly, setFrontierOnly] = useState(false);
@@ -41,15 +42,22 @@ export function SearchPlans({ variants, targetDate, onSave, saving = false }: { 
               header: () => <span className="sr-only">Save</span>,
               cell: (c) =>
                 !c.row.original.current && c.row.original.status === "done" ? (
-                  <button type="button" className="btn-secondary" disabled={saving} onClick={() => onSave(c.row.original)} data-testid="save-variant">
-                    Save as scenario
-                  </button>
+                  <span className="flex flex-wrap gap-2">
+                    <button type="button" className="btn-secondary" disabled={saving} onClick={() => onSave(c.row.original)} data-testid="save-variant">
+                      Save as scenario
+                    </button>
+                    {onAdopt && (
+                      <button type="button" className="btn-secondary" disabled={saving} onClick={() => onAdopt(c.row.original)} data-testid="adopt-variant">
+                        Use in this plan
+                      </button>
+                    )}
+                  </span>
                 ) : null,
             }),
           ]
         : []),
     ],
-    [onSave, saving],
+    [onSave, onAdopt, saving],
   );
   const table = useReactTable({ data: rows, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
 

@@ -4,9 +4,11 @@
  * table of every plan (./search-plans), each variant one click from becoming a scenario. Partial results
  * appear as they arrive.
  */
+import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useMutation, useQuery } from "@tanstack/react-query";
 import { JobProgress, useJob } from "@/components/run/job-progress";
+import { ConfirmDialog } from "@/components/confirm-dialog";
 import { api } from "@/lib/api-client";
 import { formatIsoDate } from "@/lib/format";
 import { SearchPlans } from "./search-plans";
@@ -25,6 +27,13 @@ export function SearchView({ searchId, targetDate, canRun, canEdit }: { searchId
     refetchInterval: (q) => (q.state.data?.search.jobStatus === "queued" || q.state.data?.search.jobStatus === "running" ? 2000 : false),
   });
   const job = useJob(query.data?.search.jobId ?? null, () => query.refetch());
+  const [adopting, setAdopting] = useState<VariantRow | null>(null);
+  const adopt = useMutation({
+    mutationFn: (row: VariantRow) => api<{ scenarioId: string; version: number }>(`/api/searches/${searchId}/adopt`, { method: "POST", body: { idx: row.idx } }),
+    // On a job under way the next step is the re-forecast from the Field log; otherwise the Outlook's run. A whole
+    // page load: the scenario's header (version, last saved) is a layout the router would keep from before.
+    onSuccess: (r) => window.location.assign(`/scenarios/${r.scenarioId}${query.data?.search.fromFieldLog ? "/progress" : ""}`),
+  });
   const save = useMutation({
     mutationFn: (row: VariantRow) => api<{ id: string }>(`/api/searches/${searchId}/scenarios`, { method: "POST", body: { idx: row.idx, name: `${query.data?.search.name ?? "Search"} — variant ${row.idx}`.slice(0, 120) } }),
     onSuccess: (r) => router.push(`/scenarios/${r.id}`),
@@ -43,13 +52,40 @@ export function SearchView({ searchId, targetDate, canRun, canEdit }: { searchId
         {job.data && <JobProgress job={job.data} label="Search progress" unit="iterations" canCancel={canRun} />}
         {save.isError && <p role="alert" className="mt-2 text-sm text-bad">Could not save the variant: {save.error.message}</p>}
       </section>
-      <SearchPlans variants={query.data.variants} targetDate={targetDate} onSave={canEdit ? (row) => save.mutate(row) : undefined} saving={save.isPending} />
+      <SearchPlans
+        variants={query.data.variants}
+        targetDate={targetDate}
+        onSave={canEdit ? (row) => save.mutate(row) : undefined}
+        onAdopt={canEdit && !s.stale ? (row) => setAdopting(row) : undefined}
+        saving={save.isPending || adopt.isPending}
+      />
       {canEdit && s.fromFieldLog && (
         // A saved variant is a new scenario without this one's field log: its forecasts plan the whole job again.
         <p className="text-sm text-muted" data-testid="search-save-note">
           A plan saved as a scenario is the whole plan from its start: the new scenario has no field log of its own. To carry a change into the job under
-          way, make it in this scenario&apos;s Plan and re-forecast from the Field log.
+          way, choose Use in this plan, then re-forecast from the Field log.
         </p>
+      )}
+      {adopting && (
+        <ConfirmDialog
+          title="Use this variant in the plan?"
+          confirmLabel="Use in this plan"
+          busyLabel="Saving…"
+          busy={adopt.isPending}
+          error={adopt.isError ? adopt.error.message : null}
+          onConfirm={() => adopt.mutate(adopting)}
+          onCancel={() => {
+            setAdopting(null);
+            adopt.reset();
+          }}
+          testId="adopt-dialog"
+        >
+          <p>
+            “{adopting.label}” becomes version {s.scenarioVersion + 1} of this scenario, with that in its change note; its field log stays with it. Its
+            forecasts are out of date until it is run{s.fromFieldLog ? " or re-forecast" : ""} again, and this search&apos;s other variants can then only be
+            saved as scenarios of their own.
+          </p>
+        </ConfirmDialog>
       )}
     </div>
   );
