@@ -30,7 +30,7 @@ export function headlineOf(s: RunSummary): RunHeadline & Record<string, unknown>
 }
 
 /** Key-sorted JSON, so the hash does not depend on property order. */
-function stableStringify(v: unknown): string {
+export function stableStringify(v: unknown): string {
   if (Array.isArray(v)) return `[${v.map(stableStringify).join(",")}]`;
   if (v && typeof v === "object") {
     return `{${Object.keys(v as object)

@@ -46,7 +46,7 @@ export function SearchPlans({ variants, targetDate, onSave, onAdopt, saving = fa
                     <button type="button" className="btn-secondary" disabled={saving} onClick={() => onSave(c.row.original)} data-testid="save-variant">
                       Save as scenario
                     </button>
-                    {onAdopt && (
+                    {onAdopt && c.row.original.changesPlan && (
                       <button type="button" className="btn-secondary" disabled={saving} onClick={() => onAdopt(c.row.original)} data-testid="adopt-variant">
                         Use in this plan
                       </button>

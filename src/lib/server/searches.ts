@@ -4,7 +4,8 @@ import "server-only";
  * (sim/search) and queuing them, and the view of a search with its frontier (sim/frontier).
  */
 import { z } from "zod";
-import { buildVariants, searchSpecSchema, specProblems, variantLabel } from "@sim/search";
+import { applyVariant, buildVariants, searchSpecSchema, specProblems, variantLabel, type SearchSpec } from "@sim/search";
+import { stableStringify } from "@/lib/run-record";
 import { nonDominated, objectivesOf } from "@sim/frontier";
 import { runWork, searchBudgetProblem, timeLimitSeconds } from "@sim/budget";
 import { weatherFeasibility } from "@sim/feasibility";
@@ -48,14 +49,32 @@ export async function startSearch({ scenario, body, userId }: { scenario: Scenar
   );
 }
 
-/** A search as the page draws it: each finished plan with its objectives and whether it is on the frontier. */
-export function searchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>) {
+/**
+ * For one search: the plan each variant makes of the version it varied, and whether that differs from it at all: one of a
+ * dimension's levels is usually the plan's own, so a variant may choose exactly what the plan has (compared by
+ * value, whatever order the keys were written in).
+ */
+export function variantPlans(base: unknown, dims: SearchSpec["dimensions"]) {
+  const current = validateDefinition(base);
+  const asIs = stableStringify(current); // once per search, not per variant: the page asks every 2 s while it runs
+  return (choice: readonly number[]) => {
+    const plan = applyVariant(current, dims, choice);
+    return { plan, changes: stableStringify(plan) !== asIs };
+  };
+}
+
+/**
+ * A search as the page draws it: each finished plan with its objectives and whether it is on the frontier, and —
+ * given the version it varied (`base`) — whether using it in the plan would change anything.
+ */
+export function searchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>, base: unknown = null) {
   const done = variants.filter((v) => v.status === "done" && v.outcome);
   const front = nonDominated(done.map((v) => objectivesOf(v.outcome!)));
   const onFront = new Set(done.filter((_, i) => front[i]).map((v) => v.idx));
+  const planOf = base !== null ? variantPlans(base, search.spec.dimensions) : null;
   return {
     search: { ...search, createdAt: search.createdAt.toISOString(), variantCount: variants.length - 1, fromFieldLog: search.spec.fromFieldLog ?? null },
-    variants: variants.map((v) => ({ ...v, current: v.idx === 0, onFrontier: onFront.has(v.idx) })),
+    variants: variants.map((v) => ({ ...v, current: v.idx === 0, onFrontier: onFront.has(v.idx), changesPlan: !!planOf && v.choice !== null && planOf(v.choice).changes })),
   };
 }
 export type SearchView = ReturnType<typeof searchView>;

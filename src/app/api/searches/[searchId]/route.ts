@@ -4,6 +4,7 @@ import { AppError, handler } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { searchView } from "@/lib/server/searches";
 import { getSearch, listVariants } from "@db/queries/searches";
+import { getScenarioRevision } from "@db/queries/jobs";
 
 /** A search with every variant so far (partial results while it runs) and its frontier. */
 export const GET = handler(async (_req: Request, ctx: { params: Promise<{ searchId: string }> }) => {
@@ -11,5 +12,6 @@ export const GET = handler(async (_req: Request, ctx: { params: Promise<{ search
   const search = z.uuid().safeParse(searchId).success ? await getSearch({ id: searchId }) : null;
   if (!search) throw new AppError("not_found", "No such search.");
   await requireScenario(search.scenarioId, "read");
-  return NextResponse.json(searchView(search, await listVariants({ searchId })));
+  const [variants, base] = await Promise.all([listVariants({ searchId }), getScenarioRevision({ scenarioId: search.scenarioId, version: search.scenarioVersion })]);
+  return NextResponse.json(searchView(search, variants, base));
 });

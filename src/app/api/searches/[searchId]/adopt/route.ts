@@ -2,10 +2,10 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { AppError, badRequest, handler, readJson } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
-import { applyVariant } from "@sim/search";
 import { updateScenario } from "@db/queries/scenarios";
 import { getScenarioRevision } from "@db/queries/jobs";
 import { getSearch, getVariant } from "@db/queries/searches";
+import { variantPlans } from "@/lib/server/searches";
 import { validateDefinition } from "@/lib/server/scenario-input";
 
 const adoptSchema = z.object({ idx: z.number().int().min(1, "must be a variant of the search") });
@@ -28,10 +28,10 @@ export const POST = handler(async (req: Request, ctx: { params: Promise<{ search
   if (search.stale) throw new AppError("conflict", stale);
   const base = await getScenarioRevision({ scenarioId: search.scenarioId, version: search.scenarioVersion });
   if (!base) throw new AppError("not_found", "The scenario version this search varied no longer exists.");
-  const current = validateDefinition(base);
-  const definition = validateDefinition(applyVariant(current, search.spec.dimensions, variant.choice));
+  const { plan, changes } = variantPlans(base, search.spec.dimensions)(variant.choice);
   // A variant may choose exactly what the plan has (one of its levels is the plan's own): no version for nothing.
-  if (JSON.stringify(definition) === JSON.stringify(current)) throw badRequest([{ path: "idx", message: "is the plan as it stands: nothing to change" }]);
+  if (!changes) throw badRequest([{ path: "idx", message: "is the plan as it stands: nothing to change" }]);
+  const definition = validateDefinition(plan);
   const result = await updateScenario({
     id: scenario.id,
     expectedVersion: search.scenarioVersion,
