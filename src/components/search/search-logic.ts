@@ -23,8 +23,6 @@ export interface ChartPoint {
   cost: number | null;
   current: boolean;
   onFrontier: boolean;
-  /** Using it in the plan would change something (false for a variant that chooses what the plan has; absent on a shared search). */
-  changesPlan?: boolean;
 }
 
 /** Finished plans with a P80 finish date, as chart points (an unfinished P80 cannot be placed on a date axis). */
