@@ -79,10 +79,10 @@ export async function getProgressEntry({ id, deleted = false }: { id: string; de
 export async function listLogsOfScenarios({ scenarioIds }: { scenarioIds: string[] }) {
   if (scenarioIds.length === 0) return [];
   const [plans, entries] = await Promise.all([
-    getDb().select({ id: scenarios.id, definition: scenarios.definition, version: scenarios.version }).from(scenarios).where(inArray(scenarios.id, scenarioIds)),
+    getDb().select({ id: scenarios.id, definition: scenarios.definition }).from(scenarios).where(inArray(scenarios.id, scenarioIds)),
     logOf(inArray(progressEntries.scenarioId, scenarioIds)),
   ]);
-  return plans.map((p) => ({ scenarioId: p.id, definition: p.definition, version: p.version, entries: entries.filter((e) => e.scenarioId === p.id) }));
+  return plans.map((p) => ({ scenarioId: p.id, definition: p.definition, entries: entries.filter((e) => e.scenarioId === p.id) }));
 }
 
 const deletedBy = alias(users, "deleted_by_user");

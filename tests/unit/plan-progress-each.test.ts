@@ -11,7 +11,7 @@ import type { FieldLogRecord } from "@/lib/progress-to-date";
 const definition = JSON.parse(readFileSync("scenarios/kestrel-two-season.json", "utf8"));
 // The sentence maker below reads no field of a shift; one stands for "the log has shifts".
 const someShifts = [{ id: "e1" } as unknown as FieldLogRecord];
-const log = (scenarioId: string, over: Partial<{ definition: unknown; entries: FieldLogRecord[] }> = {}) => ({ scenarioId, version: 1, definition, entries: someShifts, ...over });
+const log = (scenarioId: string, over: Partial<{ definition: unknown; entries: FieldLogRecord[] }> = {}) => ({ scenarioId, definition, entries: someShifts, ...over });
 
 let logged: string[];
 beforeEach(() => {

@@ -7,7 +7,7 @@ import { lastWorkDate, progressSentence, progressToDate, type FieldLogRecord } f
 import { againstPlanFor, againstPlanSentence } from "@/lib/against-plan";
 import { eachItemOnItsOwn } from "./background-pass";
 
-type PlanLog = { scenarioId: string; version: number; definition: unknown; entries: FieldLogRecord[] };
+type PlanLog = { scenarioId: string; definition: unknown; entries: FieldLogRecord[] };
 
 /**
  * `make` for each log with shifts and a plan that parses, by scenario id. A plan whose sentence throws has none and
