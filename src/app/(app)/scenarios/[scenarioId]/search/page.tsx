@@ -6,6 +6,7 @@ import { can } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import { listSearches } from "@db/queries/searches";
 import { listProgress } from "@db/queries/progress";
+import { lastWorkDate } from "@/lib/progress-to-date";
 import { validateDefinition } from "@/lib/server/scenario-input";
 import { SearchForm } from "@/components/search/search-form";
 
@@ -18,7 +19,7 @@ export default async function SearchPage({ params }: { params: Promise<{ scenari
   const [searches, log] = await Promise.all([listSearches({ scenarioId }), listProgress({ scenarioId })]);
   const plan = validateDefinition(scenario.definition);
   // A job under way searches the rest of the work by default, from the last day its field log reaches.
-  const fieldLog = log.length ? { shifts: log.length, lastWorkDate: log.reduce((d, r) => (r.workDate > d ? r.workDate : d), log[0].workDate) } : null;
+  const fieldLog = log.length ? { shifts: log.length, lastWorkDate: lastWorkDate(log) } : null;
   return (
     <div className="space-y-5">
       {can(role, "runScenario", archived) ? <SearchForm scenarioId={scenario.id} plan={plan} fieldLog={fieldLog} /> : null}
