@@ -10,6 +10,8 @@ import type { Page } from "playwright-core";
 import { APP_URL, call, kestrelProject, signInAs, type DemoRole } from "../helpers/app";
 import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
 import { signedIn } from "./pages/sign-in";
+import { newSearch, uniq } from "../helpers/authz-world";
+import { createPastScenario } from "../helpers/progress-fixture";
 import { ScenarioPage, type PlanSection, type ScenarioTab } from "./pages/scenario";
 
 const PHONE = 390;
@@ -138,6 +140,40 @@ describe("on a phone", () => {
     expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await screenshot(page, "phone-week-ahead");
+  });
+
+  it("a scheduler's finished plan search reads as a card a plan, with Save as scenario and Use in this plan inside the screen", { timeout: 120_000 }, async () => {
+    // A scenario of its own, searched over holidays: its plan works through them, so standing down changes it.
+    const engineer = await signInAs("engineer");
+    const own = (await createPastScenario(engineer, projectId, uniq("Phone search"))).id;
+    const searchId = await newSearch(own, engineer);
+    const page = await phone("scheduler");
+    await page.goto(`${APP_URL}/scenarios/${own}/search/${searchId}`);
+    await page.getByText("3 of 3 finished.", { exact: false }).waitFor({ timeout: 60_000 });
+    const plans = page.getByRole("list", { name: "Plans" });
+    const cards = plans.getByRole("listitem");
+    expect(await cards.count()).toBe(3);
+    // The table's five columns and two buttons were 520 px wide and hid the buttons off to the right.
+    expect(await page.getByTestId("search-table").locator("table").count()).toBe(0);
+    const buttons = [...(await page.getByTestId("save-variant").all()), ...(await page.getByTestId("adopt-variant").all())];
+    expect(buttons.length).toBe(3); // two variants to save, one of them changes the plan
+    for (const b of buttons) {
+      const box = (await b.boundingBox())!;
+      expect(box.x).toBeGreaterThanOrEqual(0);
+      expect(box.x + box.width).toBeLessThanOrEqual(PHONE);
+    }
+    expect(await cards.filter({ hasText: "stand down for holidays" }).getByTestId("adopt-variant").count()).toBe(1);
+    // Sorting is a select on a phone: by plan name, A to Z, then Z to A.
+    const sort = page.getByLabel("Sort by");
+    const names = async () => (await cards.locator("> div:first-child").allTextContents()).map((t) => t.replace(/Frontier$/, ""));
+    await sort.selectOption({ label: "Plan, A to Z" });
+    const az = await names();
+    expect(az).toEqual([...az].sort((a, b) => a.localeCompare(b)));
+    await sort.selectOption({ label: "Plan, Z to A" });
+    expect(await names()).toEqual([...az].reverse());
+    expect(await pageWidth(page)).toBeLessThanOrEqual(PHONE);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "phone-search-plans");
   });
 
   it("an administrator's Members page: each person's role and Remove lie inside the screen, not off to the side", async () => {

@@ -7,7 +7,8 @@
  */
 import { useMemo, useState } from "react";
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
-import { SortableHead, TableRows } from "@/components/sortable-table";
+import { RowCards, SortableHead, TableRows } from "@/components/sortable-table";
+import { useNarrowScreen } from "@/components/use-narrow-screen";
 import { formatIsoDate, formatPercent } from "@/lib/format";
 import { FrontierChart } from "./frontier-chart";
 import { filterRows, type VariantRow } from "./search-logic";
@@ -22,16 +23,22 @@ export function SearchPlans({ variants, targetDate, onSave, onAdopt, saving = fa
   const rows = useMemo(() => filterRows(variants, { p80By: byTarget ? targetDate : null, frontierOnly }), [variants, byTarget, frontierOnly, targetDate]);
   const columns = useMemo(
     () => [
-      col.accessor("label", {
+      // Sorted by the name the reader sees: the plan as saved has a label of its own.
+      col.accessor((r) => (r.current ? "The plan as saved" : r.label), {
+        id: "label",
         header: "Plan",
+        // "text" compares without case; the automatic choice reads rows past the tenth and falls back to a
+        // case-sensitive compare on a short table ("The plan as saved" before "stand down …").
+        sortingFn: "text",
+        meta: { sortWords: ["A to Z", "Z to A"] },
         cell: (c) => (
           <span>
-            {c.row.original.current ? <strong>The plan as saved</strong> : c.getValue()}
+            {c.row.original.current ? <strong>{c.getValue()}</strong> : c.getValue()}
             {c.row.original.onFrontier && <span className="badge ml-2 bg-brand-50 text-brand-800">Frontier</span>}
           </span>
         ),
       }),
-      col.accessor(finishKey, { id: "p80", header: "P80 finish", cell: (c) => (c.row.original.outcome ? formatIsoDate(c.row.original.outcome.p80Finish === "unfinished" ? null : c.row.original.outcome.p80Finish) || "unfinished" : statusText(c.row.original)) }),
+      col.accessor(finishKey, { id: "p80", header: "P80 finish", meta: { sortWords: ["earliest first", "latest first"] }, cell: (c) => (c.row.original.outcome ? formatIsoDate(c.row.original.outcome.p80Finish === "unfinished" ? null : c.row.original.outcome.p80Finish) || "unfinished" : statusText(c.row.original)) }),
       col.accessor((r) => r.outcome?.targetProbability ?? -1, { id: "target", header: "Meets target", cell: (c) => (c.getValue() < 0 ? "—" : formatPercent(c.getValue())) }),
       col.accessor((r) => r.outcome?.delayVehHours ?? -1, { id: "delay", header: "Delay (veh-h)", cell: (c) => (c.getValue() < 0 ? "—" : Math.round(c.getValue()).toLocaleString("en-US")) }),
       col.accessor((r) => r.outcome?.contractCost ?? -1, { id: "cost", header: "Contract cost", cell: (c) => (c.getValue() < 0 ? "—" : `$${Math.round(c.getValue()).toLocaleString("en-US")}`) }),
@@ -59,6 +66,7 @@ export function SearchPlans({ variants, targetDate, onSave, onAdopt, saving = fa
     ],
     [onSave, onAdopt, saving],
   );
+  const narrow = useNarrowScreen();
   const table = useReactTable({ data: rows, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
 
   return (
@@ -79,12 +87,18 @@ export function SearchPlans({ variants, targetDate, onSave, onAdopt, saving = fa
             <input type="checkbox" checked={frontierOnly} onChange={(e) => setFrontierOnly(e.target.checked)} /> Frontier only
           </label>
         </div>
-        <div className="mt-3 scroll-x">
-          <table className="w-full text-sm" data-testid="search-table">
-            <SortableHead table={table} />
-            <TableRows table={table} />
-          </table>
-        </div>
+        {narrow ? (
+          <div className="mt-3" data-testid="search-table">
+            <RowCards table={table} label="Plans" />
+          </div>
+        ) : (
+          <div className="mt-3 scroll-x">
+            <table className="w-full text-sm" data-testid="search-table">
+              <SortableHead table={table} />
+              <TableRows table={table} />
+            </table>
+          </div>
+        )}
       </section>
     </>
   );

@@ -3,7 +3,8 @@ import Link from "next/link";
 import { useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
-import { SortableHead, TableRows } from "@/components/sortable-table";
+import { RowCards, SortableHead, TableRows } from "@/components/sortable-table";
+import { useNarrowScreen } from "@/components/use-narrow-screen";
 import { api } from "@/lib/api-client";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
@@ -44,6 +45,8 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
     () => [
       col.accessor("name", {
         header: "Scenario",
+        sortingFn: "text", // without case, whatever the table's length (see search-plans.tsx)
+        meta: { sortWords: ["A to Z", "Z to A"] },
         cell: (c) => (
           <div>
             <Link href={`/scenarios/${c.row.original.id}`} className="font-medium text-brand-700 hover:underline">
@@ -61,8 +64,8 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
           </div>
         ),
       }),
-      col.accessor((r) => r.runSummary?.finish.p50 ?? "", { id: "p50", header: "P50 finish", cell: (c) => formatIsoDate(c.getValue() || null) }),
-      col.accessor((r) => r.runSummary?.finish.p80 ?? "", { id: "p80", header: "P80 finish", cell: (c) => <span className="font-semibold">{formatIsoDate(c.getValue() || null)}</span> }),
+      col.accessor((r) => r.runSummary?.finish.p50 ?? "", { id: "p50", header: "P50 finish", meta: { sortWords: ["earliest first", "latest first"] }, cell: (c) => formatIsoDate(c.getValue() || null) }),
+      col.accessor((r) => r.runSummary?.finish.p80 ?? "", { id: "p80", header: "P80 finish", meta: { sortWords: ["earliest first", "latest first"] }, cell: (c) => <span className="font-semibold">{formatIsoDate(c.getValue() || null)}</span> }),
       col.accessor((r) => r.runSummary?.targetProbability ?? -1, {
         id: "target",
         header: "Meets target",
@@ -71,6 +74,7 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
       col.accessor((r) => (r.runId ? (r.runStale ? "stale" : "current") : "none"), {
         id: "run",
         header: "Forecast",
+        meta: { sortWords: ["current first", "stale first"] },
         cell: (c) => {
           const v = c.getValue();
           const r = c.row.original;
@@ -88,6 +92,7 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
       col.accessor("version", { header: "Version", cell: (c) => `v${c.getValue()}` }),
       col.accessor("updatedAt", {
         header: "Last change",
+        meta: { sortWords: ["oldest first", "newest first"] },
         cell: (c) => (
           <span>
             {formatDateTime(c.getValue())}
@@ -102,6 +107,7 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
     [planScenarioId],
   );
 
+  const narrow = useNarrowScreen();
   const table = useReactTable({
     data: query.data ?? [],
     columns,
@@ -154,10 +160,16 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
           </Link>
         )}
       </div>
-      <table className="w-full min-w-[720px] border-collapse" data-testid="scenario-table">
-        <SortableHead table={table} />
-        <TableRows table={table} cellClassName="table-cell align-top" />
-      </table>
+      {narrow ? (
+        <div className="px-5 pb-5" data-testid="scenario-table">
+          <RowCards table={table} label="Scenarios" />
+        </div>
+      ) : (
+        <table className="w-full min-w-[720px] border-collapse" data-testid="scenario-table">
+          <SortableHead table={table} />
+          <TableRows table={table} cellClassName="table-cell align-top" />
+        </table>
+      )}
     </section>
   );
 }
