@@ -12,6 +12,7 @@ import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
 import { projectDetailsSchema } from "@/lib/schemas";
+import type { ProjectSavedAnswer } from "@/lib/project-contract";
 import { LIMITS } from "@sim/limits";
 import { formatStation } from "@/lib/format";
 import { describedBy, LabelledField as Field } from "@/components/labelled-field";
@@ -51,7 +52,7 @@ export function ProjectDetailsForm({ project }: { project?: ProjectDetails }) {
   const [saved, setSaved] = useState(false);
   const save = useMutation({
     mutationFn: (v: Output) =>
-      project ? api<{ id: string }>(`/api/projects/${project.id}`, { method: "PUT", body: v }) : api<{ id: string }>("/api/projects", { method: "POST", body: v }),
+      project ? api<ProjectSavedAnswer>(`/api/projects/${project.id}`, { method: "PUT", body: v }) : api<ProjectSavedAnswer>("/api/projects", { method: "POST", body: v }),
     onSuccess: (r, v) => {
       if (!project) {
         // The project's page: it has no scenario yet and offers New scenario, whose standard template takes this deck.

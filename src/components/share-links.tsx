@@ -14,19 +14,9 @@ import { api } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
 import { formatDateTime } from "@/lib/format";
 import { shareLinkSchema } from "@/lib/schemas";
+import type { ShareLinkCreatedAnswer, ShareLinkRow, ShareLinksAnswer } from "@/lib/share-link-contract";
 
-interface LinkRow {
-  id: string;
-  label: string;
-  scope: "scenario" | "closure-feed" | "search";
-  searchName: string | null;
-  expiresAt: string;
-  revokedAt: string | null;
-  createdAt: string;
-  createdByName: string;
-}
-
-function statusOf(l: LinkRow): { text: string; tone: string } {
+function statusOf(l: ShareLinkRow): { text: string; tone: string } {
   if (l.revokedAt) return { text: "Revoked", tone: "bg-bad-bg text-bad" };
   if (new Date(l.expiresAt).getTime() <= Date.now()) return { text: "Expired", tone: "bg-paper text-muted border border-line" };
   return { text: "Live", tone: "bg-brand-50 text-brand-800" };
@@ -60,7 +50,7 @@ function addressProblem(err: unknown, typed: string): string | undefined {
 }
 
 /** What a link opens, in words. */
-function opensWhat(l: LinkRow): string {
+function opensWhat(l: ShareLinkRow): string {
   if (l.scope === "search") return `Plan search “${l.searchName ?? ""}”`;
   if (l.scope === "closure-feed") return "Closure calendar and travel advisory";
   return "This scenario";
@@ -82,7 +72,7 @@ export interface ShareLinksProps {
 export function ShareLinks({ endpoint, shows, listHeading, showOpens = false, canCreate = true }: ShareLinksProps) {
   const qc = useQueryClient();
   const key = ["share-links", endpoint];
-  const links = useQuery({ queryKey: key, queryFn: () => api<{ links: LinkRow[] }>(endpoint).then((r) => r.links) });
+  const links = useQuery({ queryKey: key, queryFn: () => api<ShareLinksAnswer>(endpoint).then((r) => r.links) });
   const form = useForm<ShareLinkForm, unknown, z.output<typeof shareLinkFormSchema>>({
     resolver: zodResolver(shareLinkFormSchema),
     defaultValues: { label: "", expiresInDays: 14, emailTo: "" },
@@ -92,10 +82,10 @@ export function ShareLinks({ endpoint, shows, listHeading, showOpens = false, ca
   const [emailedTo, setEmailedTo] = useState<string[]>([]);
   const [copied, setCopied] = useState(false);
   const [formError, setFormError] = useState<string | null>(null);
-  const [revoking, setRevoking] = useState<LinkRow | null>(null);
+  const [revoking, setRevoking] = useState<ShareLinkRow | null>(null);
 
   const create = useMutation({
-    mutationFn: (body: z.output<typeof shareLinkFormSchema>) => api<{ path: string; emailedTo: string[] }>(endpoint, { method: "POST", body }),
+    mutationFn: (body: z.output<typeof shareLinkFormSchema>) => api<ShareLinkCreatedAnswer>(endpoint, { method: "POST", body }),
     onSuccess: (r) => {
       setCreated(`${window.location.origin}${r.path}`);
       setEmailedTo(r.emailedTo ?? []);

@@ -37,3 +37,8 @@ export interface CompareScenario {
   version: number;
   run: CompareRun | null;
 }
+
+/** In the order the ids were asked for. */
+export interface CompareAnswer {
+  scenarios: CompareScenario[];
+}

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { chartPoints, costShade, filterRows, type VariantRow } from "@/components/search/search-logic";
+import { chartPoints, costShade, filterRows } from "@/components/search/search-logic";
+import type { VariantRow } from "@/lib/search-contract";
 
 const row = (idx: number, p80: string | null, over: Partial<VariantRow> = {}): VariantRow => ({
   idx,

@@ -8,7 +8,7 @@ import { useEffect, useMemo, useRef } from "react";
 import { formatDateTime } from "@/lib/format";
 import { diffDefinitions, toFormValues } from "./plan-logic";
 import { DifferenceList } from "./difference-list";
-import type { ScenarioRecord } from "./types";
+import type { ScenarioRecord } from "@/lib/scenario-contract";
 
 export function ConflictDialog({
   theirs,

@@ -4,12 +4,12 @@ import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
 import { PlanForm } from "./plan-form";
-import type { ScenarioResponse } from "./types";
+import type { ScenarioAnswer } from "@/lib/scenario-contract";
 
 export function PlanEditor({ scenarioId }: { scenarioId: string }) {
   const query = useQuery({
     queryKey: ["scenarios", scenarioId],
-    queryFn: () => api<ScenarioResponse>(`/api/scenarios/${scenarioId}`),
+    queryFn: () => api<ScenarioAnswer>(`/api/scenarios/${scenarioId}`),
   });
   // Bumped to start the form afresh from the server's copy ("keep theirs").
   const [generation, setGeneration] = useState(0);

@@ -22,7 +22,7 @@ import { describeProblemPath, plainMessage } from "./problem-labels";
 import { SaveBar } from "./save-bar";
 import { SequenceSection } from "./sequence-section";
 import { StagesSection } from "./stages-section";
-import type { ScenarioRecord, ScenarioResponse } from "./types";
+import type { ScenarioAnswer, ScenarioConflict, ScenarioRecord, ScenarioSavedAnswer } from "@/lib/scenario-contract";
 import { TrafficSection } from "./traffic-section";
 import { WeatherSection } from "./weather-section";
 import { useLeaveGuard } from "./use-leave-guard";
@@ -41,7 +41,7 @@ function initialValues(s: ScenarioRecord): ScenarioInput {
   return { ...v, name: s.name, description: s.description ?? v.description ?? "" };
 }
 
-export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload: () => Promise<void> }) {
+export function PlanForm({ data, onReload }: { data: ScenarioAnswer; onReload: () => Promise<void> }) {
   const { scenario, role, archived, revisions } = data;
   const canEdit = can(role, "editScenario", archived);
   const readOnly = !canEdit;
@@ -104,7 +104,7 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
     setSaving(true);
     try {
       const def = parsed.scenario;
-      const res = await api<{ version: number }>(`/api/scenarios/${scenario.id}`, {
+      const res = await api<ScenarioSavedAnswer>(`/api/scenarios/${scenario.id}`, {
         method: "PUT",
         body: { name: def.name, description: def.description, definition: def, version, changeNote: changeNote.trim() },
       });
@@ -117,8 +117,9 @@ export function PlanForm({ data, onReload }: { data: ScenarioResponse; onReload:
       await queryClient.invalidateQueries({ queryKey: ["scenarios", scenario.id] });
       router.refresh(); // the header above shows the version too
     } catch (e) {
-      if (e instanceof ApiError && e.status === 409 && e.body.current) {
-        setConflict({ theirs: e.body.current as ScenarioRecord, mine: values });
+      const theirs = e instanceof ApiError && e.status === 409 ? (e.body as ScenarioConflict).current : null;
+      if (theirs) {
+        setConflict({ theirs, mine: values });
       } else if (e instanceof ApiError && e.status === 400 && e.fields.length) {
         setConflict(null);
         showProblems("server", e.fields);

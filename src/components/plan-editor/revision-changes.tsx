@@ -6,19 +6,14 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { RevisionPairAnswer } from "@/lib/scenario-contract";
 import { diffDefinitions, toFormValues } from "./plan-logic";
 import { DifferenceList } from "./difference-list";
-
-interface RevisionPair {
-  version: number;
-  definition: unknown;
-  previous: { version: number; definition: unknown } | null;
-}
 
 function Changes({ scenarioId, version }: { scenarioId: string; version: number }) {
   const q = useQuery({
     queryKey: ["scenarios", scenarioId, "revisions", version],
-    queryFn: () => api<RevisionPair>(`/api/scenarios/${scenarioId}/revisions?version=${version}`),
+    queryFn: () => api<RevisionPairAnswer>(`/api/scenarios/${scenarioId}/revisions?version=${version}`),
     staleTime: Infinity, // a saved version never changes
   });
   if (q.isPending) return <p className="mt-1 text-muted">Loading…</p>;

@@ -1,7 +1,7 @@
 "use client";
 /** The sticky save bar: unsaved-changes state, change note, explicit Save, and who saved what last (with history). */
 import { formatDateTime } from "@/lib/format";
-import type { Revision, ScenarioRecord } from "./types";
+import type { Revision, ScenarioRecord } from "@/lib/scenario-contract";
 import { RevisionChanges } from "./revision-changes";
 
 export function SaveBar({

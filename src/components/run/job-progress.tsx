@@ -6,24 +6,15 @@
 import { useEffect } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { JobAnswer, JobView } from "@/lib/job-contract";
 import { ProgressLine } from "./progress-line";
 
-export interface JobState {
-  id: string;
-  kind: "run" | "reforecast" | "verify" | "search";
-  status: "queued" | "running" | "completed" | "failed" | "cancelled";
-  progress: { done: number; total: number; fraction: number; secondsLeft: number | null };
-  runId: string | null;
-  searchId: string | null;
-  error: string | null;
-}
+export const jobEnded = (j: JobView | undefined) => !!j && (j.status === "completed" || j.status === "failed" || j.status === "cancelled");
 
-export const jobEnded = (j: JobState | undefined) => !!j && (j.status === "completed" || j.status === "failed" || j.status === "cancelled");
-
-export function useJob(jobId: string | null, onEnd?: (job: JobState) => void) {
+export function useJob(jobId: string | null, onEnd?: (job: JobView) => void) {
   const query = useQuery({
     queryKey: ["jobs", jobId],
-    queryFn: () => api<{ job: JobState }>(`/api/jobs/${jobId}`).then((r) => r.job),
+    queryFn: () => api<JobAnswer>(`/api/jobs/${jobId}`).then((r) => r.job),
     enabled: !!jobId,
     refetchInterval: (q) => (jobEnded(q.state.data) ? false : 1000),
   });
@@ -42,7 +33,7 @@ export function formatSecondsLeft(s: number | null) {
   return `about ${Math.round(s / 60)} min left`;
 }
 
-const STATUS_TEXT: Record<JobState["status"], string> = {
+const STATUS_TEXT: Record<JobView["status"], string> = {
   queued: "Waiting for a server worker…",
   running: "",
   completed: "Done.",
@@ -50,7 +41,7 @@ const STATUS_TEXT: Record<JobState["status"], string> = {
   cancelled: "Cancelled; nothing was saved.",
 };
 
-export function JobProgress({ job, label, unit = "iterations", canCancel }: { job: JobState; label: string; unit?: string; canCancel: boolean }) {
+export function JobProgress({ job, label, unit = "iterations", canCancel }: { job: JobView; label: string; unit?: string; canCancel: boolean }) {
   const qc = useQueryClient();
   const cancel = useMutation({
     mutationFn: () => api(`/api/jobs/${job.id}`, { method: "DELETE" }),

@@ -5,6 +5,7 @@ import { budgetProblem } from "@sim/budget";
 import { parseScenario } from "@sim/validate";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { RunStoredAnswer } from "@/lib/run-contract";
 import { mark, RUN_MARKS } from "@workers/run-marks";
 import { planComputationKey } from "@/lib/run-keys";
 import type { RunSummary } from "@sim/summary";
@@ -38,7 +39,7 @@ export function RunPanel({ scenarioId, version, definition: given, canRun, block
   // The workers start and compile the plan while the page is read, when a run is possible at all.
   const pool = useEnginePool(canRun && plan.ok && blockers.length === 0 ? definition : null);
   const save = useMutation({
-    mutationFn: (body: SaveBody) => api<{ id: string; verification: string; verifyJobId: string | null }>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
+    mutationFn: (body: SaveBody) => api<RunStoredAnswer>(`/api/scenarios/${scenarioId}/runs`, { method: "POST", body }),
     onSuccess: (_, body) => {
       mark(RUN_MARKS.saved);
       updateLocalRun(scenarioId, planComputationKey(body), { save: "saved" });

@@ -8,7 +8,8 @@ import { CartesianGrid, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAx
 import { AXIS_TICK, GRID_STROKE } from "@/components/results/chart-style";
 import { formatIsoDate } from "@/lib/format";
 import { dateTicks } from "@/components/results/date-axis";
-import { chartPoints, costShade, dayLabel, type ChartPoint, type VariantRow } from "./search-logic";
+import type { VariantRow } from "@/lib/search-contract";
+import { chartPoints, costShade, dayLabel, type ChartPoint } from "./search-logic";
 
 const money = (v: number | null) => (v === null ? "—" : `$${Math.round(v).toLocaleString("en-US")}`);
 

@@ -7,6 +7,7 @@ import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import { useMutation } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
+import type { SearchStartedAnswer } from "@/lib/search-contract";
 import { gridSize, intRange, MAX_SEARCH_VARIANTS, type SearchDimension, type SearchSpec } from "@sim/search";
 import { formatDayNumber, parseIsoDate } from "@sim/dates";
 import { formatIsoDate } from "@/lib/format";
@@ -59,7 +60,7 @@ export function SearchForm({ scenarioId, plan, fieldLog }: { scenarioId: string;
   const size = dimensions.length ? gridSize(dimensions) : 0;
 
   const create = useMutation({
-    mutationFn: (spec: SearchSpec) => api<{ search: { id: string } }>(`/api/scenarios/${scenarioId}/searches`, { method: "POST", body: { name, spec } }),
+    mutationFn: (spec: SearchSpec) => api<SearchStartedAnswer>(`/api/scenarios/${scenarioId}/searches`, { method: "POST", body: { name, spec } }),
     onSuccess: (r) => router.push(`/scenarios/${scenarioId}/search/${r.search.id}`),
   });
   const problem = create.error instanceof ApiError && create.error.fields.length ? create.error.fields.map((f) => `${f.label ?? f.path}: ${f.message}`).join("; ") : create.error?.message;

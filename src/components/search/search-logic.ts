@@ -1,18 +1,6 @@
 /** Rows of a plan search as the table and the chart use them (pure: unit-tested). */
 import { parseIsoDate, formatDayNumber } from "@sim/dates";
-import type { PlanOutcome } from "@sim/frontier";
-
-export interface VariantRow {
-  idx: number;
-  label: string;
-  status: "pending" | "done" | "infeasible" | "failed";
-  outcome: PlanOutcome | null;
-  problem: string | null;
-  current: boolean;
-  onFrontier: boolean;
-  /** Using it in the plan would change something (false for a variant that chooses what the plan has; absent on a shared search). */
-  changesPlan?: boolean;
-}
+import type { VariantRow } from "@/lib/search-contract";
 
 export interface ChartPoint {
   idx: number;

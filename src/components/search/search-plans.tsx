@@ -11,7 +11,8 @@ import { RowCards, SortableHead, TableRows } from "@/components/sortable-table";
 import { useNarrowScreen } from "@/components/use-narrow-screen";
 import { formatIsoDate, formatPercent } from "@/lib/format";
 import { FrontierChart } from "./frontier-chart";
-import { filterRows, type VariantRow } from "./search-logic";
+import type { VariantRow } from "@/lib/search-contract";
+import { filterRows } from "./search-logic";
 
 const col = createColumnHelper<VariantRow>();
 const finishKey = (r: VariantRow) => (r.outcome ? (r.outcome.p80Finish === "unfinished" ? "9999" : r.outcome.p80Finish) : "");

@@ -11,31 +11,27 @@ import { JobProgress, useJob } from "@/components/run/job-progress";
 import { ConfirmDialog } from "@/components/confirm-dialog";
 import { api } from "@/lib/api-client";
 import { formatIsoDate } from "@/lib/format";
+import type { ScenarioCreatedAnswer } from "@/lib/scenario-contract";
+import type { SearchAdoptedAnswer, SearchAnswer, SharedSearchRecord, VariantRow } from "@/lib/search-contract";
 import { SearchPlans } from "./search-plans";
-import type { VariantRow } from "./search-logic";
-
-interface SearchReply {
-  search: { id: string; name: string; method: "grid" | "sample"; gridSize: number; variantCount: number; jobId: string | null; jobStatus: string | null; stale: boolean; scenarioVersion: number; scenarioId: string; fromFieldLog: { dataDate: string } | null; fieldLogShifts: number | null };
-  variants: VariantRow[];
-}
 
 export function SearchView({ searchId, targetDate, canRun, canEdit }: { searchId: string; targetDate: string | null; canRun: boolean; canEdit: boolean }) {
   const router = useRouter();
   const query = useQuery({
     queryKey: ["searches", searchId],
-    queryFn: () => api<SearchReply>(`/api/searches/${searchId}`),
+    queryFn: () => api<SearchAnswer>(`/api/searches/${searchId}`),
     refetchInterval: (q) => (q.state.data?.search.jobStatus === "queued" || q.state.data?.search.jobStatus === "running" ? 2000 : false),
   });
   const job = useJob(query.data?.search.jobId ?? null, () => query.refetch());
   const [adopting, setAdopting] = useState<VariantRow | null>(null);
   const adopt = useMutation({
-    mutationFn: (row: VariantRow) => api<{ scenarioId: string; version: number }>(`/api/searches/${searchId}/adopt`, { method: "POST", body: { idx: row.idx } }),
+    mutationFn: (row: VariantRow) => api<SearchAdoptedAnswer>(`/api/searches/${searchId}/adopt`, { method: "POST", body: { idx: row.idx } }),
     // On a job under way the next step is the re-forecast from the Field log; otherwise the Outlook's run. A whole
     // page load: the scenario's header (version, last saved) is a layout the router would keep from before.
     onSuccess: (r) => window.location.assign(`/scenarios/${r.scenarioId}${query.data?.search.fromFieldLog ? "/progress" : ""}`),
   });
   const save = useMutation({
-    mutationFn: (row: VariantRow) => api<{ id: string }>(`/api/searches/${searchId}/scenarios`, { method: "POST", body: { idx: row.idx, name: `${query.data?.search.name ?? "Search"} — variant ${row.idx}`.slice(0, 120) } }),
+    mutationFn: (row: VariantRow) => api<ScenarioCreatedAnswer>(`/api/searches/${searchId}/scenarios`, { method: "POST", body: { idx: row.idx, name: `${query.data?.search.name ?? "Search"} — variant ${row.idx}`.slice(0, 120) } }),
     onSuccess: (r) => router.push(`/scenarios/${r.id}`),
   });
 
@@ -92,7 +88,7 @@ export function SearchView({ searchId, targetDate, canRun, canEdit }: { searchId
 }
 
 /** "Every combination: 2 variants, plus the plan as saved (version 3); … 3 of 3 finished." */
-export function SearchSize({ search: s, variants }: { search: { method: "grid" | "sample"; gridSize: number; variantCount: number; scenarioVersion: number; stale: boolean; fromFieldLog: { dataDate: string } | null; fieldLogShifts: number | null }; variants: readonly VariantRow[] }) {
+export function SearchSize({ search: s, variants }: { search: SharedSearchRecord; variants: readonly VariantRow[] }) {
   const done = variants.filter((v) => v.status !== "pending").length;
   const shifts = s.fieldLogShifts ?? 0;
   return (

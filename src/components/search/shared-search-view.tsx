@@ -6,21 +6,16 @@
  */
 import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { SharedSearchAnswer, SharedSearchPlans } from "@/lib/search-contract";
 import { SearchPlans } from "./search-plans";
 import { SearchSize } from "./search-view";
-import type { VariantRow } from "./search-logic";
-
-export interface SharedSearchReply {
-  search: { name: string; method: "grid" | "sample"; gridSize: number; variantCount: number; scenarioVersion: number; stale: boolean; jobStatus: string | null; fromFieldLog: { dataDate: string } | null; fieldLogShifts: number | null };
-  variants: VariantRow[];
-}
 
 const running = (status: string | null | undefined) => status === "queued" || status === "running";
 
-export function SharedSearchView({ token, initial, targetDate }: { token: string; initial: SharedSearchReply; targetDate: string | null }) {
-  const query = useQuery({
+export function SharedSearchView({ token, initial, targetDate }: { token: string; initial: SharedSearchPlans; targetDate: string | null }) {
+  const query = useQuery<SharedSearchPlans>({
     queryKey: ["shared-search", token],
-    queryFn: () => api<SharedSearchReply>(`/api/shared-search/${encodeURIComponent(token)}`),
+    queryFn: () => api<SharedSearchAnswer>(`/api/shared-search/${encodeURIComponent(token)}`),
     initialData: initial,
     refetchInterval: (q) => (running(q.state.data?.search.jobStatus) ? 3000 : false),
   });

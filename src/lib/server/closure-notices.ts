@@ -12,6 +12,7 @@ import { closureLocalTimes, hoursSince } from "@/lib/exports/closures";
 import { displayTimeZone } from "@/lib/format";
 import { todayIn } from "@/lib/progress-schema";
 import { changesNotInText, forecastSourceText, publicationLagText } from "@/lib/plan-of-record-text";
+import type { ClosureNoticePreview, ClosurePublicationsAnswer, ClosurePublishedAnswer } from "@/lib/closure-notice-contract";
 import { AppError } from "./errors";
 import { closuresOfRun } from "./exports";
 import { enqueueMailsFor } from "./mail/outbox";
@@ -102,7 +103,7 @@ export async function publicationLagTexts(plans: ReadonlyArray<{ planScenarioId:
  * (what every feed and advisory shows) lags the newest forecast (`lagsOf`), the two forecasts and what changed in
  * words — the Share page says the public lags the forecast.
  */
-export async function closurePublicationsOf({ scenario }: { scenario: ScenarioDetail }) {
+export async function closurePublicationsOf({ scenario }: { scenario: ScenarioDetail }): Promise<ClosurePublicationsAnswer> {
   const [rows, newest, standing] = await Promise.all([
     listClosurePublications({ scenarioId: scenario.id }),
     getNewestForecast({ scenarioId: scenario.id, withResults: false }),
@@ -110,10 +111,10 @@ export async function closurePublicationsOf({ scenario }: { scenario: ScenarioDe
   ]);
   const lag = standing && newest ? (await lagsOf([{ scenarioId: scenario.id, standingRunId: standing.runId, newestRunId: newest.id }])).get(scenario.id) : undefined;
   return {
-    publications: rows.map(({ runDataDate, runAt, ...p }) => ({ ...p, source: forecastSourceText({ dataDate: runDataDate, at: runAt }) })),
+    publications: rows.map(({ runDataDate, runAt, ...p }) => ({ ...p, publishedAt: p.publishedAt.toISOString(), source: forecastSourceText({ dataDate: runDataDate, at: runAt }) })),
     lag:
       standing && newest && lag
-        ? { publishedAt: standing.publishedAt, published: forecastSourceText({ dataDate: standing.runDataDate, at: standing.runAt }), newest: forecastSourceText({ dataDate: newest.dataDate, at: newest.createdAt }), newestStale: newest.stale, changes: lag.changes }
+        ? { publishedAt: standing.publishedAt.toISOString(), published: forecastSourceText({ dataDate: standing.runDataDate, at: standing.runAt }), newest: forecastSourceText({ dataDate: newest.dataDate, at: newest.createdAt }), newestStale: newest.stale, changes: lag.changes }
         : null,
   };
 }
@@ -122,7 +123,7 @@ export async function closurePublicationsOf({ scenario }: { scenario: ScenarioDe
  * The notice exactly as publishing would send it, for the confirmation people see first: the run it comes
  * from, the recipients, subject and text. Publishing names that run, so what was previewed is what goes out.
  */
-export async function previewClosurePlan({ scenario }: { scenario: ScenarioDetail }) {
+export async function previewClosurePlan({ scenario }: { scenario: ScenarioDetail }): Promise<ClosureNoticePreview> {
   const d = await draftPublication(scenario, PREVIEW_LINKS);
   const sample = d.mail(d.subscribers[0]?.email ?? "");
   return { runId: d.run.id, source: await sourceOf(d.run), closureCount: d.closures.length, to: d.subscribers.map((s) => s.email), subject: sample.subject, text: sample.text };
@@ -134,7 +135,7 @@ export async function previewClosurePlan({ scenario }: { scenario: ScenarioDetai
  * transaction, so either everyone is told about a recorded publication or nothing happened. `runId` is the run
  * the user previewed; a newer run since then is refused rather than sent unseen.
  */
-export async function publishClosurePlan({ scenario, userId, baseUrl, runId }: { scenario: ScenarioDetail; userId: string; baseUrl: string; runId?: string }) {
+export async function publishClosurePlan({ scenario, userId, baseUrl, runId }: { scenario: ScenarioDetail; userId: string; baseUrl: string; runId?: string }): Promise<ClosurePublishedAnswer> {
   const { token, tokenHash } = newShareToken();
   const links = { feedUrl: `${baseUrl}/api/shared/${token}/closures.ics`, advisoryUrl: `${baseUrl}/advisory/${token}` };
   const d = await draftPublication(scenario, links);
@@ -147,6 +148,6 @@ export async function publishClosurePlan({ scenario, userId, baseUrl, runId }: {
       { userId, projectId: scenario.projectId },
       d.subscribers.map((s) => d.mail(s.email)),
     );
-    return { id: publication.id, publishedAt: publication.publishedAt, closureCount: d.closures.length, notified: d.subscribers.length, ...links };
+    return { id: publication.id, publishedAt: publication.publishedAt.toISOString(), closureCount: d.closures.length, notified: d.subscribers.length, ...links };
   });
 }

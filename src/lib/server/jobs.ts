@@ -15,6 +15,7 @@ import { queueVerification } from "@workers/server/sweep";
 import { runJobKey, type Computation } from "@/lib/run-keys";
 import type { ForecastInput } from "@/lib/run-record";
 import { databaseUrl } from "@db/client";
+import type { JobView } from "@/lib/job-contract";
 import { badRequest } from "./errors";
 
 const globalForBoss = globalThis as unknown as { __pourlineBoss?: Promise<PgBoss> };
@@ -70,8 +71,8 @@ export async function cancelJob(job: EngineJob) {
   return cancelled;
 }
 
-/** A job as the API and the browser see it: progress as a fraction and, once under way, the time left. */
-export function jobView(job: EngineJob, now = Date.now()) {
+/** A job as the API and the browser see it (src/lib/job-contract.ts): progress as a fraction and, once under way, the time left. */
+export function jobView(job: EngineJob, now = Date.now()): JobView {
   const fraction = job.totalUnits > 0 ? Math.min(1, job.doneUnits / job.totalUnits) : 0;
   const elapsed = job.startedAt ? (now - job.startedAt.getTime()) / 1000 : 0;
   const secondsLeft = job.status === "running" && fraction > 0 && elapsed > 0 ? Math.round((elapsed / fraction) * (1 - fraction)) : null;
@@ -94,4 +95,3 @@ export function jobView(job: EngineJob, now = Date.now()) {
     finishedAt: job.finishedAt?.toISOString() ?? null,
   };
 }
-export type JobView = ReturnType<typeof jobView>;

@@ -5,37 +5,15 @@ import "server-only";
  * "cannot tell" and the message says why.
  */
 import { localDate } from "@/lib/local-clock";
-import { lookAhead, nextOpenAfter, DEFAULT_RAIN_POP_PCT, type LookAheadDay, type NextOpenTime } from "@sim/lookahead";
+import { lookAhead, nextOpenAfter, DEFAULT_RAIN_POP_PCT } from "@sim/lookahead";
 import { getProject } from "@db/queries/projects";
 import { everyCellClosed } from "@/lib/look-ahead-notice";
-import { projectForecast, type ForecastStatus } from "./forecast/cache";
+import type { LookAheadBoard } from "@/lib/look-ahead-contract";
+import { projectForecast } from "./forecast/cache";
 import { toHourlyArrays } from "./forecast/nws-format";
 import { validateDefinition } from "./scenario-input";
 
 export const RAIN_RULE = `An hour counts as rain when its chance of precipitation is ${DEFAULT_RAIN_POP_PCT} % or more.`;
-
-export interface LookAheadBoard {
-  today: string;
-  timeZone: string;
-  rainRule: string;
-  forecast: {
-    status: ForecastStatus;
-    /** Whose forecast, in words, for "Forecast … from <source>". */
-    source: string;
-    message: string | null;
-    fetchedAt: string | null;
-    ageMinutes: number | null;
-    place: string | null;
-    office: string | null;
-    generatedAt: string | null;
-    firstHour: string | null;
-    lastHour: string | null;
-    gaps: Record<string, number> | null;
-  };
-  days: LookAheadDay[];
-  /** When every cell of the week is closed (winter, a plan not started yet): the plan's next open time, else null. */
-  nextOpen: NextOpenTime | null;
-}
 
 /**
  * The forecast's source as the board names it. `npm start` and the tests run a local stand-in with invented weeks

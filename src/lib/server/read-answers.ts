@@ -12,13 +12,28 @@ import { storedRunAnswer } from "./stored-run-answer";
 import { storedResultsFor } from "./run-results-cache";
 import type { SignedIn } from "./session-token";
 import type { ProjectRole } from "@/lib/permissions";
+import type { RunHeadline } from "@/lib/run-record";
+import type { ScenarioListAnswer } from "@/lib/scenario-list-contract";
 import { getRunToServe } from "@db/queries/runs";
 import { listProjectScenarios } from "@db/queries/scenarios";
 
 /** GET /api/projects/:projectId/scenarios — with an ETag of the list; 304 only after the membership check. */
 export async function scenarioListAnswer(request: ReadRequest, projectId: string, s: SignedIn): Promise<PlainAnswer> {
   await requireProjectAs(s, projectId, "read");
-  return jsonWithEtag(request, { scenarios: await listProjectScenarios({ projectId }) });
+  const rows = await listProjectScenarios({ projectId });
+  const answer: ScenarioListAnswer = {
+    scenarios: rows.map((r) => ({
+      ...r,
+      createdAt: r.createdAt.toISOString(),
+      updatedAt: r.updatedAt.toISOString(),
+      // The column holds what `headlineOf` (src/lib/run-record.ts) stored; the data layer cannot name that type.
+      runSummary: r.runSummary as (RunHeadline & Record<string, unknown>) | null,
+      // Null for a scenario never run or with no run waiting, though the data layer types these lateral joins as set.
+      runAt: r.runAt?.toISOString() ?? null,
+      pendingRunAt: r.pendingRunAt?.toISOString() ?? null,
+    })),
+  };
+  return jsonWithEtag(request, answer);
 }
 
 /**

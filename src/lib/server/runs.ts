@@ -13,13 +13,15 @@ import type { ScenarioDetail } from "@db/queries/scenarios";
 import { headlineOf, storedRun } from "@/lib/run-record";
 import { resultKey, type Computation } from "@/lib/run-keys";
 import { MAX_SERVER_ITERATIONS, type runWriteSchema } from "@/lib/schemas";
+import type { JobAnswer } from "@/lib/job-contract";
+import type { RunStoredAnswer } from "@/lib/run-contract";
 import { AppError, badRequest } from "./errors";
 import { jobView, queueRunJob, queueVerifyJob } from "./jobs";
 import { validateDefinition } from "./scenario-input";
 
 type RunBody = z.output<typeof runWriteSchema>;
 
-export type RecordRunResult = { status: 201; body: Record<string, unknown> } | { status: 202; body: { job: ReturnType<typeof jobView> } };
+export type RecordRunResult = { status: 201; body: RunStoredAnswer } | { status: 202; body: JobAnswer };
 
 export async function recordRun({ scenario, body, userId }: { scenario: ScenarioDetail; body: RunBody; userId: string }): Promise<RecordRunResult> {
   if (body.scenarioVersion !== undefined && body.scenarioVersion !== scenario.version) {
@@ -49,5 +51,5 @@ export async function recordRun({ scenario, body, userId }: { scenario: Scenario
     const { job } = await queueVerifyJob({ id: saved.id, projectId: scenario.projectId, scenarioId: scenario.id, scenarioVersion: scenario.version, seed: body.seed, iterations: body.iterations, createdById: userId }, plan);
     verifyJobId = job.id;
   }
-  return { status: 201, body: { id: saved.id, createdAt: saved.createdAt, scenarioVersion: scenario.version, headline: headlineOf(summary), verification: saved.verification, verifyJobId } };
+  return { status: 201, body: { id: saved.id, createdAt: saved.createdAt.toISOString(), scenarioVersion: scenario.version, headline: headlineOf(summary), verification: saved.verification, verifyJobId } };
 }

@@ -19,6 +19,7 @@ import { queue } from "./jobs";
 import { validateDefinition } from "./scenario-input";
 import { dataDateProblem, toRecord } from "./progress";
 import { listProgress } from "@db/queries/progress";
+import type { SearchAnswer, SharedSearchPlans } from "@/lib/search-contract";
 
 export const searchWriteSchema = z.object({
   name: z.string().trim().min(1, "must not be empty").max(120),
@@ -67,7 +68,7 @@ export function variantPlans(base: unknown, dims: SearchSpec["dimensions"]) {
  * A search as the page draws it: each finished plan with its objectives and whether it is on the frontier, and —
  * given the version it varied (`base`) — whether using it in the plan would change anything.
  */
-export function searchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>, base: unknown = null) {
+export function searchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>, base: unknown = null): SearchAnswer {
   const done = variants.filter((v) => v.status === "done" && v.outcome);
   const front = nonDominated(done.map((v) => objectivesOf(v.outcome!)));
   const onFront = new Set(done.filter((_, i) => front[i]).map((v) => v.idx));
@@ -77,13 +78,12 @@ export function searchView(search: SearchDetail, variants: Awaited<ReturnType<ty
     variants: variants.map((v) => ({ ...v, current: v.idx === 0, onFrontier: onFront.has(v.idx), changesPlan: !!planOf && v.choice !== null && planOf(v.choice).changes })),
   };
 }
-export type SearchView = ReturnType<typeof searchView>;
 
 /**
  * A search as a share link shows it: the same plans and frontier marks, without ids that lead anywhere (no
  * job to follow or cancel, no scenario or project id, no variant choices to save as a scenario).
  */
-export function publicSearchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>) {
+export function publicSearchView(search: SearchDetail, variants: Awaited<ReturnType<typeof listVariants>>): SharedSearchPlans {
   const view = searchView(search, variants);
   const s = view.search;
   return {

@@ -9,6 +9,7 @@ import { parseScenario } from "@sim/validate";
 import { AppError } from "./errors";
 import { hashShareToken } from "./share-token";
 import { publicSearchView } from "./searches";
+import type { SharedSearchAnswer } from "@/lib/search-contract";
 
 const GONE = "This link does not exist, has expired or was revoked.";
 
@@ -55,7 +56,7 @@ export async function loadSharedScenario(token: string) {
  * The plan search behind a live search link, read-only: its frontier and table of plans, the project and the
  * scenario's name and target — nothing to save, cancel or follow to another search.
  */
-export async function loadSharedSearch(token: string) {
+export async function loadSharedSearch(token: string): Promise<SharedSearchAnswer> {
   const link = await liveLink(token, SEARCH_VIEW);
   const search = link.searchId ? await getSearch({ id: link.searchId }) : null;
   // The link's scenario is the search's by construction; checked anyway so a row can never open another's search.
@@ -64,10 +65,9 @@ export async function loadSharedSearch(token: string) {
   if (!scenario) throw new AppError("not_found", GONE);
   const target = (scenario.definition as { targetDate?: unknown }).targetDate;
   return {
-    link: { label: link.label, expiresAt: link.expiresAt },
+    link: { label: link.label, expiresAt: link.expiresAt.toISOString() },
     project: project && { name: project.name, structureName: project.structureName, region: project.region },
     scenario: { name: scenario.name, targetDate: typeof target === "string" ? target : null },
     ...publicSearchView(search, variants),
   };
 }
-export type SharedSearch = Awaited<ReturnType<typeof loadSharedSearch>>;

@@ -10,6 +10,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { AccountDetailsAnswer, SessionsEndedAnswer } from "@/lib/account-contract";
 import { applyServerErrors } from "@/lib/form-errors";
 import { accountDetailsSchema, MIN_PASSWORD_LENGTH, passwordChangeSchema } from "@/lib/schemas";
 import { describedBy, LabelledField as Field } from "@/components/labelled-field";
@@ -24,7 +25,7 @@ export function AccountDetailsForm({ name, title }: { name: string; title: strin
   const [failure, setFailure] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const save = useMutation({
-    mutationFn: (v: DetailsOut) => api<DetailsOut>("/api/account", { method: "PUT", body: v }),
+    mutationFn: (v: DetailsOut) => api<AccountDetailsAnswer>("/api/account", { method: "PUT", body: v }),
     onSuccess: (v) => {
       reset(v);
       setSaved(true);
@@ -123,7 +124,7 @@ export function PasswordChangeForm() {
 export function OtherSessions({ elsewhere }: { elsewhere: number }) {
   const router = useRouter();
   const end = useMutation({
-    mutationFn: () => api<{ endedElsewhere: number }>("/api/account/sessions", { method: "DELETE" }),
+    mutationFn: () => api<SessionsEndedAnswer>("/api/account/sessions", { method: "DELETE" }),
     onSuccess: () => router.refresh(),
   });
   return (

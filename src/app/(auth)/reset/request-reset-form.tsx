@@ -2,10 +2,11 @@
 import { useState } from "react";
 import { useMutation } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
+import type { PasswordResetRequestedAnswer } from "@/lib/account-contract";
 
 export function RequestResetForm() {
   const [email, setEmail] = useState("");
-  const request = useMutation({ mutationFn: () => api<{ message: string }>("/api/auth/password-reset", { method: "POST", body: { email } }) });
+  const request = useMutation({ mutationFn: () => api<PasswordResetRequestedAnswer>("/api/auth/password-reset", { method: "POST", body: { email } }) });
   const emailError = request.error instanceof ApiError ? request.error.fields.find((f) => f.path === "email")?.message : undefined;
   if (request.isSuccess) {
     return (

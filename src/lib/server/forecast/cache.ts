@@ -6,12 +6,11 @@ import "server-only";
  * is served with its age and a plain message. Nothing here throws for a service failure.
  */
 import { claimForecastFetch, getCachedForecast, saveForecast, saveForecastError } from "@db/queries/forecast";
+import type { ForecastStatus } from "@/lib/look-ahead-contract";
 import { fetchHourlyForecast, ForecastError, type FetchedForecast } from "./nws-client";
 
 export const FRESH_MS = 60 * 60_000;
 export const RETRY_AFTER_MS = 10 * 60_000;
-
-export type ForecastStatus = "fresh" | "stale" | "none" | "noLocation";
 
 export interface ProjectForecast {
   status: ForecastStatus;

@@ -2,7 +2,7 @@ import "server-only";
 /** The daily look-ahead e-mail: what changed since the last one first, then the whole board, then the link. */
 import { formatIsoDay } from "@/lib/format";
 import { allClosedSentence, boardLines, changesSince, type CompactBoard } from "@/lib/look-ahead-notice";
-import type { LookAheadBoard } from "../look-ahead";
+import type { LookAheadBoard } from "@/lib/look-ahead-contract";
 import type { MailMessage } from "./outbox";
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);

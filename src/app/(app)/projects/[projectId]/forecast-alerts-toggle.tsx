@@ -2,6 +2,7 @@
 import { useState } from "react";
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { ForecastAlertsAnswer } from "@/lib/project-contract";
 
 /**
  * A member's own forecast e-mails on this project: one checkbox, saved as it is ticked. On an archived project
@@ -10,7 +11,7 @@ import { api } from "@/lib/api-client";
 export function ForecastAlertsToggle({ projectId, initial, email, archived }: { projectId: string; initial: boolean; email: string; archived: boolean }) {
   const [on, setOn] = useState(initial);
   const save = useMutation({
-    mutationFn: (next: boolean) => api<{ forecastAlerts: boolean }>(`/api/projects/${projectId}/forecast-alerts`, { method: "PUT", body: { forecastAlerts: next } }),
+    mutationFn: (next: boolean) => api<ForecastAlertsAnswer>(`/api/projects/${projectId}/forecast-alerts`, { method: "PUT", body: { forecastAlerts: next } }),
     onMutate: (next) => setOn(next),
     // Not saved: the box shows what is stored again.
     onError: (_e, next) => setOn(!next),

@@ -2,6 +2,7 @@
 import { useState } from "react";
 import { useMutation } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
+import type { ProjectLocation } from "@/lib/project-contract";
 
 /** Where the structure is, for the week-ahead weather forecast. Administrators and engineers change it; everyone sees it. */
 export function LocationForm({ projectId, latitude, longitude, canEdit }: { projectId: string; latitude: number | null; longitude: number | null; canEdit: boolean }) {
@@ -11,7 +12,7 @@ export function LocationForm({ projectId, latitude, longitude, canEdit }: { proj
     mutationFn: () => {
       // Not a number: sent as typed, so the server names the field instead of the value silently clearing it.
       const num = (s: string) => (s.trim() === "" ? null : Number.isFinite(Number(s)) ? Number(s) : s);
-      return api<{ latitude: number | null; longitude: number | null }>(`/api/projects/${projectId}/location`, { method: "PUT", body: { latitude: num(lat), longitude: num(lon) } });
+      return api<ProjectLocation>(`/api/projects/${projectId}/location`, { method: "PUT", body: { latitude: num(lat), longitude: num(lon) } });
     },
   });
   const problem = (path: string) => (save.error instanceof ApiError ? save.error.fields.find((f) => f.path === path)?.message : undefined);

@@ -7,37 +7,15 @@ import { RowCards, SortableHead, TableRows } from "@/components/sortable-table";
 import { useNarrowScreen } from "@/components/use-narrow-screen";
 import { api } from "@/lib/api-client";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
-import type { RunHeadline } from "@/lib/run-record";
-import { VerificationBadge, type Verification } from "@/components/results/verification-badge";
-
-interface ScenarioListRow {
-  id: string;
-  name: string;
-  description: string;
-  version: number;
-  updatedAt: string;
-  updatedByName: string;
-  ownerName: string;
-  changeNote: string;
-  runId: string | null;
-  runVersion: number | null;
-  runSummary: RunHeadline | null;
-  runAt: string | null;
-  runVerification: Verification | null;
-  runStale: boolean | null;
-  /** A newer browser run the server has not verified yet (not the forecast). */
-  pendingRunAt: string | null;
-  /** The newest re-forecast from the field log, if any: its P80 and data date. */
-  reforecastP80: string | null;
-  reforecastDataDate: string | null;
-}
+import type { ScenarioListAnswer, ScenarioListRow } from "@/lib/scenario-list-contract";
+import { VerificationBadge } from "@/components/results/verification-badge";
 
 const col = createColumnHelper<ScenarioListRow>();
 
 export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { projectId: string; canEdit: boolean; planScenarioId?: string | null }) {
   const query = useQuery({
     queryKey: ["projects", projectId, "scenarios"],
-    queryFn: () => api<{ scenarios: ScenarioListRow[] }>(`/api/projects/${projectId}/scenarios`).then((r) => r.scenarios),
+    queryFn: () => api<ScenarioListAnswer>(`/api/projects/${projectId}/scenarios`).then((r) => r.scenarios),
   });
   const [sorting, setSorting] = useState<SortingState>([{ id: "updatedAt", desc: true }]);
 

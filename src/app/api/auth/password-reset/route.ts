@@ -10,6 +10,7 @@ import { insertPasswordReset } from "@db/queries/invitations";
 import { inTransaction } from "@db/queries/mail";
 import { MAX_RESETS_PER_ACCOUNT, MAX_RESETS_PER_ADDRESS, RESET_LINK_MS, RESET_REQUESTED, RESET_TOO_MANY, RESET_WINDOW_MS } from "@/lib/server/mail/reset";
 import { getUserByEmail, reserveAttempt } from "@db/queries/users";
+import type { PasswordResetRequestedAnswer } from "@/lib/account-contract";
 
 /**
  * Always the same 200 answer whether or not the account exists; an e-mail is queued only for a real account.
@@ -31,5 +32,5 @@ export const POST = handler(async (req: Request) => {
       await enqueueMail(tx, passwordResetMail({ to: user.email, name: user.name, link }));
     });
   }
-  return NextResponse.json({ ok: true, message: RESET_REQUESTED });
+  return NextResponse.json({ ok: true, message: RESET_REQUESTED } satisfies PasswordResetRequestedAnswer);
 });

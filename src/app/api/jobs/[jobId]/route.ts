@@ -3,6 +3,7 @@ import { z } from "zod";
 import { AppError, handler } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { cancelJob, jobView } from "@/lib/server/jobs";
+import type { JobAnswer } from "@/lib/job-contract";
 import { getEngineJob } from "@db/queries/jobs";
 
 type Ctx = { params: Promise<{ jobId: string }> };
@@ -18,7 +19,7 @@ async function jobOf(ctx: Ctx) {
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const job = await jobOf(ctx);
   await requireScenario(job.scenarioId, "read");
-  return NextResponse.json({ job: jobView(job) });
+  return NextResponse.json({ job: jobView(job) } satisfies JobAnswer);
 });
 
 /** Cancels a queued or running job: its owner, or a project administrator. */
@@ -28,5 +29,5 @@ export const DELETE = handler(async (_req: Request, ctx: Ctx) => {
   if (job.createdById !== user.id && role !== "admin") throw new AppError("forbidden", "Only the person who started this job, or a project administrator, may cancel it.");
   const cancelled = await cancelJob(job);
   if (!cancelled) throw new AppError("conflict", `The job is already ${job.status}; there is nothing to cancel.`);
-  return NextResponse.json({ job: jobView(cancelled) });
+  return NextResponse.json({ job: jobView(cancelled) } satisfies JobAnswer);
 });

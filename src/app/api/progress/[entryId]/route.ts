@@ -3,13 +3,20 @@ import { AppError, badRequest, handler, readJson } from "@/lib/server/errors";
 import { fieldsOf, requireProgressEntry, validateDelete, validateEntry } from "@/lib/server/progress";
 import { progressUpdateSchema } from "@/lib/progress-schema";
 import { deleteProgressEntry, getProgressEntry, listProgressHistory, updateProgressEntry } from "@db/queries/progress";
+import type { ProgressEntryAnswer } from "@/lib/progress-contract";
 
 type Ctx = { params: Promise<{ entryId: string }> };
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { entryId } = await ctx.params;
   const { entry } = await requireProgressEntry(entryId, "read");
-  return NextResponse.json({ entry, history: await listProgressHistory({ entryId }) });
+  const history = await listProgressHistory({ entryId });
+  const answer: ProgressEntryAnswer = {
+    entry: { ...entry, createdAt: entry.createdAt.toISOString(), updatedAt: entry.updatedAt.toISOString() },
+    // The history columns are untyped JSON (db/schema.ts): what was stored is a record of the entry's fields, or null.
+    history: history.map((h) => ({ ...h, changedAt: h.changedAt.toISOString(), before: h.before as Record<string, unknown> | null, after: h.after as Record<string, unknown> | null })),
+  };
+  return NextResponse.json(answer);
 });
 
 /** Saves only over the version the editor loaded (409 otherwise, nothing changes); history keeps before and after. */

@@ -3,6 +3,7 @@ import { AppError, handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { projectDetailsSchema } from "@/lib/schemas";
 import { updateProject } from "@db/queries/projects";
+import type { ProjectSavedAnswer } from "@/lib/project-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
@@ -19,5 +20,5 @@ export const PUT = handler(async (req: Request, ctx: Ctx) => {
   const body = await readJson(req, projectDetailsSchema, { maxBytes: 64 * 1024 });
   // Removed between the check and the write: the same answer as any project that is not there.
   if (!(await updateProject({ projectId, project: body }))) throw new AppError("not_found", "No such project.");
-  return NextResponse.json({ id: projectId });
+  return NextResponse.json({ id: projectId } satisfies ProjectSavedAnswer);
 });

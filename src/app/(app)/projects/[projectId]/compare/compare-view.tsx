@@ -9,29 +9,19 @@ import { useEffect, useMemo, useState } from "react";
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { formatIsoDate } from "@/lib/format";
-import type { RunHeadline } from "@/lib/run-record";
 import { cdfPoints, ConfidenceChart, LineSwatch, seriesStyle, type Curve } from "@/components/results";
 import { compareRows } from "@/components/results/compare-logic";
-import { MAX_COMPARE, type CompareScenario } from "@/lib/compare-contract";
+import { MAX_COMPARE, type CompareAnswer, type CompareScenario } from "@/lib/compare-contract";
+import type { ScenarioListAnswer } from "@/lib/scenario-list-contract";
 import { quantileText } from "@/components/results/summary-text";
 import { VariantForm } from "./variant-form";
 import { VerificationBadge } from "@/components/results/verification-badge";
-
-interface ListRow {
-  id: string;
-  name: string;
-  version: number;
-  runId: string | null;
-  /** The data layer's rule: the plan changed after the run. */
-  runStale: boolean | null;
-  runSummary: RunHeadline | null;
-}
 
 export function CompareView({ projectId, canEdit, initialIds }: { projectId: string; canEdit: boolean; initialIds: string[] }) {
   const [selected, setSelected] = useState<string[]>(initialIds);
   const list = useQuery({
     queryKey: ["projects", projectId, "scenarios"],
-    queryFn: () => api<{ scenarios: ListRow[] }>(`/api/projects/${projectId}/scenarios`).then((r) => r.scenarios),
+    queryFn: () => api<ScenarioListAnswer>(`/api/projects/${projectId}/scenarios`).then((r) => r.scenarios),
   });
   const known = useMemo(() => new Set((list.data ?? []).map((s) => s.id)), [list.data]);
   const valid = list.data ? selected.filter((id) => known.has(id)) : [];
@@ -48,7 +38,7 @@ export function CompareView({ projectId, canEdit, initialIds }: { projectId: str
   const key = valid.join(",");
   const compare = useQuery({
     queryKey: ["projects", projectId, "compare", key],
-    queryFn: () => api<{ scenarios: CompareScenario[] }>(`/api/projects/${projectId}/compare?ids=${key}`).then((r) => r.scenarios),
+    queryFn: () => api<CompareAnswer>(`/api/projects/${projectId}/compare?ids=${key}`).then((r) => r.scenarios),
     enabled: valid.length >= 2,
     placeholderData: keepPreviousData,
   });

@@ -8,6 +8,7 @@ import type { z } from "zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
+import type { ScenarioCreatedAnswer } from "@/lib/scenario-contract";
 import { variantSchema } from "@/lib/schemas";
 
 export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioId: string; scenarioName: string; projectId: string }) {
@@ -22,7 +23,7 @@ export function VariantForm({ scenarioId, scenarioName, projectId }: { scenarioI
   const inputId = useId();
   const errorId = useId();
   const create = useMutation({
-    mutationFn: (n: string) => api<{ id: string }>(`/api/scenarios/${scenarioId}/variants`, { method: "POST", body: { name: n } }),
+    mutationFn: (n: string) => api<ScenarioCreatedAnswer>(`/api/scenarios/${scenarioId}/variants`, { method: "POST", body: { name: n } }),
     onSuccess: async ({ id }) => {
       await queryClient.invalidateQueries({ queryKey: ["projects", projectId, "scenarios"] });
       router.push(`/scenarios/${id}/plan`);

@@ -10,17 +10,10 @@ import { applyServerErrors } from "@/lib/form-errors";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/permissions";
 import { formatDateTime } from "@/lib/format";
 import { invitationSchema, memberSchema } from "@/lib/schemas";
+import type { InvitationCreatedAnswer, InvitationsAnswer, MembersAnswer } from "@/lib/member-contract";
 
 type MemberForm = z.infer<typeof memberSchema>;
 const memberField = (p: string) => (p === "email" || p === "role" ? p : null);
-
-interface Member {
-  userId: string;
-  email: string;
-  name: string;
-  title: string;
-  role: ProjectRole;
-}
 
 const ROLE_HELP: Record<ProjectRole, string> = {
   admin: "manages members; everything an engineer can do",
@@ -46,7 +39,7 @@ function RoleSelect({ id, field }: { id: string; field: UseFormRegisterReturn })
 export function MembersPanel({ projectId, selfId }: { projectId: string; selfId: string }) {
   const qc = useQueryClient();
   const key = ["projects", projectId, "members"];
-  const members = useQuery({ queryKey: key, queryFn: () => api<{ members: Member[] }>(`/api/projects/${projectId}/members`).then((r) => r.members) });
+  const members = useQuery({ queryKey: key, queryFn: () => api<MembersAnswer>(`/api/projects/${projectId}/members`).then((r) => r.members) });
   const form = useForm<MemberForm>({ resolver: zodResolver(memberSchema), defaultValues: { email: "", role: "viewer" } });
   const [addError, setAddError] = useState<string | null>(null);
   const refresh = () => qc.invalidateQueries({ queryKey: key });
@@ -167,24 +160,16 @@ export function MembersPanel({ projectId, selfId }: { projectId: string; selfId:
   );
 }
 
-interface PendingInvitation {
-  id: string;
-  email: string;
-  role: ProjectRole;
-  expiresAt: string;
-  invitedByName: string;
-}
-
 /** Invites someone without an account: the server e-mails a single-use link that expires in 7 days. */
 function InviteByEmail({ projectId }: { projectId: string }) {
   const qc = useQueryClient();
   const key = ["projects", projectId, "invitations"];
-  const pending = useQuery({ queryKey: key, queryFn: () => api<{ invitations: PendingInvitation[] }>(`/api/projects/${projectId}/invitations`).then((r) => r.invitations) });
+  const pending = useQuery({ queryKey: key, queryFn: () => api<InvitationsAnswer>(`/api/projects/${projectId}/invitations`).then((r) => r.invitations) });
   const form = useForm<MemberForm>({ resolver: zodResolver(invitationSchema), defaultValues: { email: "", role: "viewer" } });
   const [sentTo, setSentTo] = useState<string | null>(null);
   const [err, setErr] = useState<string | null>(null);
   const invite = useMutation({
-    mutationFn: (v: MemberForm) => api<{ email: string }>(`/api/projects/${projectId}/invitations`, { method: "POST", body: v }),
+    mutationFn: (v: MemberForm) => api<InvitationCreatedAnswer>(`/api/projects/${projectId}/invitations`, { method: "POST", body: v }),
     onSuccess: (r) => {
       setSentTo(r.email);
       form.reset({ email: "", role: form.getValues("role") });

@@ -5,26 +5,15 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError, type FieldProblem } from "@/lib/api-client";
 import { applyClimateFit, applySurvey } from "@/lib/csv/apply";
 import { formatDateTime, formatStation, formatPercent } from "@/lib/format";
-import type { SurveyRange } from "@/lib/csv/survey-csv";
-import { WeatherPreview, type WeatherPreviewData } from "./weather-preview";
-
-type Preview = WeatherPreviewData | { kind: "survey"; ranges: SurveyRange[]; current: SurveyRange[] };
-
-interface UploadReply {
-  upload: { id: string; filename: string; rowCount: number };
-  preview: Preview;
-  scenarioVersion: number;
-}
-
-interface ScenarioReply {
-  scenario: { name: string; description: string; version: number; definition: Record<string, any> };
-}
+import type { ScenarioAnswer } from "@/lib/scenario-contract";
+import type { SurveyUploadPreview, UploadAnswer, UploadsAnswer, WeatherUploadPreview } from "@/lib/upload-contract";
+import { WeatherPreview } from "./weather-preview";
 
 function uploadForm(scenarioId: string, data: FormData) {
   return fetch(`/api/scenarios/${scenarioId}/uploads`, { method: "POST", body: data, credentials: "same-origin" }).then(async (res) => {
     const json = await res.json().catch(() => ({}));
     if (!res.ok) throw new ApiError(res.status, json.error ?? `The server answered ${res.status}.`, json.fields ?? []);
-    return json as UploadReply;
+    return json as UploadAnswer;
   });
 }
 
@@ -51,7 +40,7 @@ function ApplyButton({ scenarioId, label, build }: { scenarioId: string; label: 
   const qc = useQueryClient();
   const apply = useMutation({
     mutationFn: async () => {
-      const { scenario } = await api<ScenarioReply>(`/api/scenarios/${scenarioId}`);
+      const { scenario } = await api<ScenarioAnswer>(`/api/scenarios/${scenarioId}`);
       const definition = build(scenario.definition);
       return api(`/api/scenarios/${scenarioId}`, { method: "PUT", body: { name: scenario.name, description: scenario.description, definition, version: scenario.version, changeNote: label } });
     },
@@ -74,7 +63,7 @@ function ApplyButton({ scenarioId, label, build }: { scenarioId: string; label: 
   );
 }
 
-function SurveyPreview({ p }: { p: Extract<Preview, { kind: "survey" }> }) {
+function SurveyPreview({ p }: { p: SurveyUploadPreview }) {
   return (
     <div className="mt-4 scroll-x">
       <p className="text-sm">
@@ -193,13 +182,13 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
       {check.data?.preview.kind === "weather" && (
         <>
           <WeatherPreview p={check.data.preview} />
-          <ApplyButton scenarioId={scenarioId} label={`Weather profile fitted from ${check.data.upload.filename}`} build={(d) => applyClimateFit(d, (check.data!.preview as Extract<Preview, { kind: "weather" }>).fit)} />
+          <ApplyButton scenarioId={scenarioId} label={`Weather profile fitted from ${check.data.upload.filename}`} build={(d) => applyClimateFit(d, (check.data!.preview as WeatherUploadPreview).fit)} />
         </>
       )}
       {check.data?.preview.kind === "survey" && (
         <>
           <SurveyPreview p={check.data.preview} />
-          <ApplyButton scenarioId={scenarioId} label={`Deck survey from ${check.data.upload.filename}`} build={(d) => applySurvey(d, (check.data!.preview as Extract<Preview, { kind: "survey" }>).ranges)} />
+          <ApplyButton scenarioId={scenarioId} label={`Deck survey from ${check.data.upload.filename}`} build={(d) => applySurvey(d, (check.data!.preview as SurveyUploadPreview).ranges)} />
         </>
       )}
     </section>
@@ -209,7 +198,7 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
 export function FieldDataPanel({ scenarioId }: { scenarioId: string }) {
   const uploads = useQuery({
     queryKey: ["scenarios", scenarioId, "uploads"],
-    queryFn: () => api<{ uploads: { id: string; kind: string; filename: string; rowCount: number; uploadedAt: string; uploadedByName: string }[] }>(`/api/scenarios/${scenarioId}/uploads`).then((r) => r.uploads),
+    queryFn: () => api<UploadsAnswer>(`/api/scenarios/${scenarioId}/uploads`).then((r) => r.uploads),
   });
   return (
     <div className="space-y-5">

@@ -1,25 +1,13 @@
 "use client";
 /** What a checked weather history would change: how each column was read, then current → fitted per month. */
-import type { ClimateFit } from "@sim/weather-fit";
 import type { ColumnReading } from "@/lib/csv/weather-csv";
+import type { WeatherUploadPreview } from "@/lib/upload-contract";
 import { monthName } from "@/lib/format";
 
 const MONTHS = Array.from({ length: 12 }, (_, i) => monthName(i + 1));
 const FROM: Record<NonNullable<ColumnReading["unitFrom"]>, string> = { chosen: "as you chose", header: "stated in the header", guessed: "guessed from the values — choose the unit if it is wrong" };
 
-export interface WeatherPreviewData {
-  kind: "weather";
-  fit: ClimateFit;
-  current: { monthly: Record<string, number>[] };
-  days: number;
-  from: string;
-  to: string;
-  columns: ColumnReading[];
-  ignored: string[];
-  skipped: number;
-}
-
-function ColumnsRead({ p }: { p: WeatherPreviewData }) {
+function ColumnsRead({ p }: { p: WeatherUploadPreview }) {
   return (
     <div className="text-sm" data-testid="weather-columns">
       <p className="font-medium">How the file was read</p>
@@ -42,7 +30,7 @@ function ColumnsRead({ p }: { p: WeatherPreviewData }) {
   );
 }
 
-export function WeatherPreview({ p }: { p: WeatherPreviewData }) {
+export function WeatherPreview({ p }: { p: WeatherUploadPreview }) {
   const cell = (cur: number, fit: number | null | undefined, digits = 1) => (
     <td className="table-cell whitespace-nowrap">
       {cur.toFixed(digits)} <span className="text-muted">→</span> <span className="font-semibold">{fit == null ? "—" : fit.toFixed(digits)}</span>

@@ -5,18 +5,10 @@ import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { formatIsoClock, formatIsoDay } from "@/lib/format";
 import { STATUS_MARKS, STATUS_WORDS, allClosedSentence, cellWhy } from "@/lib/look-ahead-notice";
-import type { LookAheadDay, NextOpenTime, OperationCell } from "@sim/lookahead";
+import type { OperationCell } from "@sim/lookahead";
+import type { LookAheadBoard } from "@/lib/look-ahead-contract";
 import { CellDetail } from "./cell-detail";
 import { useNarrowScreen } from "@/components/use-narrow-screen";
-
-interface Board {
-  today: string;
-  timeZone: string;
-  rainRule: string;
-  forecast: { status: "fresh" | "stale" | "none" | "noLocation"; source: string; message: string | null; ageMinutes: number | null; place: string | null; office: string | null; firstHour: string | null; lastHour: string | null };
-  days: LookAheadDay[];
-  nextOpen: NextOpenTime | null;
-}
 
 const TONE: Record<OperationCell["status"], string> = {
   go: "border-ok/40 bg-white text-ok",
@@ -63,7 +55,7 @@ const LEGEND = "✓ may work · ◐ part of the shift · ✗ blocked by the weat
  * columns do not fit, one card per day with its shifts one under another and a cell's reasons opened under it.
  */
 export function LookAheadBoardView({ scenarioId, locationHref }: { scenarioId: string; locationHref: string | null }) {
-  const q = useQuery({ queryKey: ["scenarios", scenarioId, "look-ahead"], queryFn: () => api<Board>(`/api/scenarios/${scenarioId}/look-ahead`) });
+  const q = useQuery({ queryKey: ["scenarios", scenarioId, "look-ahead"], queryFn: () => api<LookAheadBoard>(`/api/scenarios/${scenarioId}/look-ahead`) });
   const [open, setOpen] = useState<Key | null>(null);
   const narrow = useNarrowScreen();
   if (q.isPending) return <p className="text-sm text-muted">Loading the week ahead…</p>;

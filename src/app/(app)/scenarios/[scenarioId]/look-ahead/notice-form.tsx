@@ -4,19 +4,13 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
 import { formatIsoDay } from "@/lib/format";
 import { HourOptions } from "@/components/hour-options";
-
-interface Notice {
-  enabled: boolean;
-  hour: number;
-  recipients: string[];
-  lastSentOn: string | null;
-}
+import type { LookAheadNoticeAnswer } from "@/lib/look-ahead-contract";
 
 /** The daily e-mail of this board to the field team, at a chosen local hour, saying what changed since the last one. */
 export function NoticeForm({ scenarioId }: { scenarioId: string }) {
   const qc = useQueryClient();
   const key = ["scenarios", scenarioId, "look-ahead-notice"];
-  const q = useQuery({ queryKey: key, queryFn: () => api<{ notice: Notice | null }>(`/api/scenarios/${scenarioId}/look-ahead/notice`).then((r) => r.notice) });
+  const q = useQuery({ queryKey: key, queryFn: () => api<LookAheadNoticeAnswer>(`/api/scenarios/${scenarioId}/look-ahead/notice`).then((r) => r.notice) });
   const [enabled, setEnabled] = useState(true);
   const [hour, setHour] = useState(15);
   const [recipients, setRecipients] = useState("");

@@ -8,6 +8,7 @@ import { DISCOVERED_LABELS } from "@/lib/progress-schema";
 import { ProgressForm, type PlanFacts } from "./progress-form";
 import { ShiftCells, ShiftHeads, WeatherAndLostCells } from "./shift-columns";
 import type { ProgressEntry } from "@/lib/progress-schema";
+import type { ProgressEntryAnswer, ProgressHistoryRow } from "@/lib/progress-contract";
 
 /** A shift as the table shows it: the progress-entry contract's fields, plus who recorded it and its version. */
 export interface EntryView extends ProgressEntry {
@@ -16,22 +17,12 @@ export interface EntryView extends ProgressEntry {
   enteredByName: string;
 }
 
-interface HistoryRow {
-  id: string;
-  changedAt: string;
-  changedByName: string;
-  action: "create" | "edit" | "delete" | "restore";
-  before: Record<string, unknown> | null;
-  /** Null for the row that deleted the entry. */
-  after: Record<string, unknown> | null;
-}
-
 const FIELD_LABELS: Record<string, string> = {
   workDate: "work date", shift: "shift", operationId: "operation", fromStationFt: "from station", toStationFt: "to station", crew: "crew",
   tempF: "temperature", rain: "rain", lostHours: "lost hours", lostReason: "reason", discovered: "discovered conditions",
 };
 
-function changes(h: HistoryRow): string {
+function changes(h: ProgressHistoryRow): string {
   if (h.action === "create") return "created the entry";
   if (h.action === "delete") return "deleted the entry";
   if (h.action === "restore") return "put the deleted entry back";
@@ -44,11 +35,11 @@ function changes(h: HistoryRow): string {
 }
 
 function History({ entryId }: { entryId: string }) {
-  const [rows, setRows] = useState<HistoryRow[] | null>(null);
+  const [rows, setRows] = useState<ProgressHistoryRow[] | null>(null);
   const [error, setError] = useState<string | null>(null);
   useEffect(() => {
     let live = true;
-    api<{ history: HistoryRow[] }>(`/api/progress/${entryId}`).then(
+    api<ProgressEntryAnswer>(`/api/progress/${entryId}`).then(
       (r) => live && setRows(r.history),
       (e: Error) => live && setError(e.message),
     );

@@ -9,7 +9,8 @@ import { useState } from "react";
 import { useMutation } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
 import { formatIsoDate } from "@/lib/format";
-import { JobProgress, useJob, type JobState } from "@/components/run/job-progress";
+import { JobProgress, useJob } from "@/components/run/job-progress";
+import type { JobAnswer } from "@/lib/job-contract";
 
 const ITERATIONS = [500, 1_000, 2_000, 5_000];
 
@@ -19,7 +20,7 @@ export function ReforecastPanel({ scenarioId, defaultDate, minDate, maxDate }: {
   const [iterations, setIterations] = useState(1_000);
   const [seed, setSeed] = useState("pourline");
   const run = useMutation({
-    mutationFn: () => api<{ job: JobState }>(`/api/scenarios/${scenarioId}/reforecast`, { method: "POST", body: { dataDate, iterations, seed } }),
+    mutationFn: () => api<JobAnswer>(`/api/scenarios/${scenarioId}/reforecast`, { method: "POST", body: { dataDate, iterations, seed } }),
   });
   const job = useJob(run.data?.job.id ?? null, (j) => j.status === "completed" && router.refresh());
   const busy = run.isPending || job.data?.status === "queued" || job.data?.status === "running";

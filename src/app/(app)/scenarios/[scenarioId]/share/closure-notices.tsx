@@ -11,40 +11,7 @@ import { formatDateTime } from "@/lib/format";
 import { closureSubscriberSchema } from "@/lib/schemas";
 import { publishLabel } from "./publish-label";
 import { ClosureWeeklyForm } from "./closure-weekly-form";
-
-interface Subscriber {
-  id: string;
-  email: string;
-  label: string;
-}
-interface Publication {
-  id: string;
-  closureCount: number;
-  notified: number;
-  publishedAt: string;
-  publishedByName: string;
-  runId: string;
-  /** The forecast it came from, in words. */
-  source: string;
-  /** Its link was revoked: the feeds and advisories show the newest publication still standing. */
-  withdrawn: boolean;
-}
-interface Publications {
-  publications: Publication[];
-  /** Set when what every feed and advisory shows came from an earlier forecast than the newest: both in words. */
-  lag: { publishedAt: string; published: string; newest: string; newestStale: boolean; changes: string | null } | null;
-}
-
-/** What publishing the newest forecast would send; publishing names `runId`, so a newer one is refused, not sent unseen. */
-interface NoticePreview {
-  runId: string;
-  /** Which forecast, in words, and the field-log changes it does not know. */
-  source: string;
-  closureCount: number;
-  to: string[];
-  subject: string;
-  text: string;
-}
+import type { ClosurePreviewAnswer, ClosurePublicationsAnswer, ClosurePublishedAnswer, ClosureSubscribersAnswer } from "@/lib/closure-notice-contract";
 
 /**
  * Who hears about closures, and the one action that tells them: publish this scenario's planned closures —
@@ -54,8 +21,8 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
   const qc = useQueryClient();
   const subsKey = ["projects", projectId, "closure-subscribers"];
   const pubsKey = ["scenarios", scenarioId, "closure-publications"];
-  const subs = useQuery({ queryKey: subsKey, queryFn: () => api<{ subscribers: Subscriber[] }>(`/api/projects/${projectId}/closure-subscribers`).then((r) => r.subscribers) });
-  const pubs = useQuery({ queryKey: pubsKey, queryFn: () => api<Publications>(`/api/scenarios/${scenarioId}/closure-publications`) });
+  const subs = useQuery({ queryKey: subsKey, queryFn: () => api<ClosureSubscribersAnswer>(`/api/projects/${projectId}/closure-subscribers`).then((r) => r.subscribers) });
+  const pubs = useQuery({ queryKey: pubsKey, queryFn: () => api<ClosurePublicationsAnswer>(`/api/scenarios/${scenarioId}/closure-publications`) });
   const form = useForm<z.input<typeof closureSubscriberSchema>, unknown, z.output<typeof closureSubscriberSchema>>({
     resolver: zodResolver(closureSubscriberSchema),
     defaultValues: { email: "", label: "" },
@@ -69,7 +36,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
   const [confirming, setConfirming] = useState(false);
   const preview = useQuery({
     queryKey: [...pubsKey, "preview"],
-    queryFn: () => api<{ preview: NoticePreview }>(`/api/scenarios/${scenarioId}/closure-publications?preview=1`).then((r) => r.preview),
+    queryFn: () => api<ClosurePreviewAnswer>(`/api/scenarios/${scenarioId}/closure-publications?preview=1`).then((r) => r.preview),
     enabled: confirming,
     staleTime: 0,
     gcTime: 0,
@@ -77,7 +44,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
   const remove = useMutation({ mutationFn: (id: string) => api(`/api/projects/${projectId}/closure-subscribers/${id}`, { method: "DELETE" }), onSuccess: () => qc.invalidateQueries({ queryKey: subsKey }) });
   const publish = useMutation({
     mutationFn: (runId: string) =>
-      api<{ closureCount: number; notified: number; feedUrl: string; advisoryUrl: string }>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", body: { runId } }),
+      api<ClosurePublishedAnswer>(`/api/scenarios/${scenarioId}/closure-publications`, { method: "POST", body: { runId } }),
     onSuccess: () => {
       setConfirming(false);
       return qc.invalidateQueries({ queryKey: pubsKey });
@@ -250,7 +217,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
 }
 
 /** What every feed and advisory shows came from an earlier forecast whose closures differ from the newest's (the server decides): said in words. */
-function PublishedLag({ lag }: { lag: NonNullable<Publications["lag"]> }) {
+function PublishedLag({ lag }: { lag: NonNullable<ClosurePublicationsAnswer["lag"]> }) {
   return (
     <div className="mt-3 rounded-md border border-warn/40 bg-warn-bg px-3 py-2 text-sm" data-testid="publication-lags">
       <p>

@@ -5,12 +5,7 @@ import { api } from "@/lib/api-client";
 import { HourOptions } from "@/components/hour-options";
 import { SaveOutcome } from "@/components/save-outcome";
 import { WEEKDAY_NAMES, weeklySettingText } from "@/lib/closure-weekly";
-
-interface ClosureWeekly {
-  closureWeeklyDay: number | null;
-  closureWeeklyHour: number | null;
-  note: string | null;
-}
+import type { ClosureWeeklyAnswer } from "@/lib/closure-notice-contract";
 
 /**
  * The weekly e-mail of the week ahead to the closure-notice subscribers: on for a weekday after a local hour, or off;
@@ -19,7 +14,7 @@ interface ClosureWeekly {
 export function ClosureWeeklyForm({ projectId, archived }: { projectId: string; archived: boolean }) {
   const qc = useQueryClient();
   const key = ["projects", projectId, "closure-weekly"];
-  const current = useQuery({ queryKey: key, queryFn: () => api<ClosureWeekly>(`/api/projects/${projectId}/closure-weekly`) });
+  const current = useQuery({ queryKey: key, queryFn: () => api<ClosureWeeklyAnswer>(`/api/projects/${projectId}/closure-weekly`) });
   const [on, setOn] = useState(false);
   const [day, setDay] = useState(4);
   const [hour, setHour] = useState(7);

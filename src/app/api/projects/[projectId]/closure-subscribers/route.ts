@@ -3,6 +3,7 @@ import { handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { closureSubscriberSchema } from "@/lib/schemas";
 import { addClosureSubscriber, listClosureSubscribers } from "@db/queries/closure-notices";
+import type { ClosureSubscribersAnswer } from "@/lib/closure-notice-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
@@ -10,7 +11,8 @@ type Ctx = { params: Promise<{ projectId: string }> };
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
   await requireProject(projectId, "shareScenario", "look");
-  return NextResponse.json({ subscribers: await listClosureSubscribers({ projectId }) });
+  const subscribers = (await listClosureSubscribers({ projectId })).map((s) => ({ ...s, createdAt: s.createdAt.toISOString() }));
+  return NextResponse.json({ subscribers } satisfies ClosureSubscribersAnswer);
 });
 
 export const POST = handler(async (req: Request, ctx: Ctx) => {

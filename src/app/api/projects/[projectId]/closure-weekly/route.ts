@@ -3,6 +3,7 @@ import { AppError, handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { closureWeeklySchema } from "@/lib/schemas";
 import { getClosureWeekly, setClosureWeekly } from "@db/queries/closure-weekly";
+import type { ClosureWeeklyAnswer } from "@/lib/closure-notice-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
@@ -12,7 +13,7 @@ export const GET = handler(async (_req: Request, ctx: Ctx) => {
   await requireProject(projectId, "shareScenario", "look");
   const row = await getClosureWeekly({ projectId });
   if (!row) throw new AppError("not_found", "No such project.");
-  return NextResponse.json({ closureWeeklyDay: row.day, closureWeeklyHour: row.hour, lastOn: row.lastOn, note: row.note });
+  return NextResponse.json({ closureWeeklyDay: row.day, closureWeeklyHour: row.hour, lastOn: row.lastOn, note: row.note } satisfies ClosureWeeklyAnswer);
 });
 
 /**

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { AppError, badRequest, handler } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
-import { parseCompareIds, type CompareScenario } from "@/lib/compare-contract";
+import { parseCompareIds, type CompareAnswer, type CompareScenario } from "@/lib/compare-contract";
 import { listCompareScenarios } from "@db/queries/compare";
 
 const uuid = z.uuid();
@@ -52,5 +52,5 @@ export const GET = handler(async (req: Request, ctx: { params: Promise<{ project
           : null,
     };
   });
-  return NextResponse.json({ scenarios: out });
+  return NextResponse.json({ scenarios: out } satisfies CompareAnswer);
 });

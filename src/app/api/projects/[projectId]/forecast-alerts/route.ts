@@ -3,6 +3,7 @@ import { AppError, handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { forecastAlertsSchema } from "@/lib/schemas";
 import { setForecastAlerts } from "@db/queries/forecast-alerts";
+import type { ForecastAlertsAnswer } from "@/lib/project-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
@@ -15,5 +16,5 @@ export const PUT = handler(async (req: Request, ctx: Ctx) => {
   const { user } = await requireProject(projectId, "read");
   const body = await readJson(req, forecastAlertsSchema, { maxBytes: 1024 });
   if (!(await setForecastAlerts({ projectId, userId: user.id, enabled: body.forecastAlerts }))) throw new AppError("not_found", "No such project.");
-  return NextResponse.json({ forecastAlerts: body.forecastAlerts });
+  return NextResponse.json({ forecastAlerts: body.forecastAlerts } satisfies ForecastAlertsAnswer);
 });

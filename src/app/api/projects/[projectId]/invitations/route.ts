@@ -9,6 +9,7 @@ import { appBaseUrl } from "@/lib/server/mail/links";
 import { insertInvitation, listPendingInvitations } from "@db/queries/invitations";
 import { inTransaction } from "@db/queries/mail";
 import { listMembers } from "@db/queries/projects";
+import type { InvitationCreatedAnswer, InvitationsAnswer } from "@/lib/member-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
@@ -17,7 +18,8 @@ const INVITATION_DAYS = 7;
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
   await requireProject(projectId, "manageMembers", "look");
-  return NextResponse.json({ invitations: await listPendingInvitations({ projectId }) });
+  const invitations = (await listPendingInvitations({ projectId })).map((i) => ({ ...i, expiresAt: i.expiresAt.toISOString(), createdAt: i.createdAt.toISOString() }));
+  return NextResponse.json({ invitations } satisfies InvitationsAnswer);
 });
 
 /**
@@ -40,5 +42,6 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
     await enqueueMailsFor(tx, { userId: user.id, projectId }, [invitationMail({ to: email, projectName: project.name, role: body.role, inviterName: user.name, link, expiresAt })]);
     return inv;
   });
-  return NextResponse.json(row, { status: 201 });
+  const answer: InvitationCreatedAnswer = { ...row, expiresAt: row.expiresAt.toISOString(), createdAt: row.createdAt.toISOString() };
+  return NextResponse.json(answer, { status: 201 });
 });

@@ -3,6 +3,7 @@ import { handler, readJson } from "@/lib/server/errors";
 import { requireProject } from "@/lib/server/access";
 import { projectLocationSchema } from "@/lib/look-ahead-schemas";
 import { setProjectLocation } from "@db/queries/forecast";
+import type { ProjectLocation } from "@/lib/project-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
@@ -12,5 +13,5 @@ export const PUT = handler(async (req: Request, ctx: Ctx) => {
   await requireProject(projectId, "editProject");
   const body = await readJson(req, projectLocationSchema);
   await setProjectLocation({ projectId, latitude: body.latitude, longitude: body.longitude });
-  return NextResponse.json({ latitude: body.latitude, longitude: body.longitude });
+  return NextResponse.json({ latitude: body.latitude, longitude: body.longitude } satisfies ProjectLocation);
 });

@@ -5,13 +5,15 @@ import { memberSchema } from "@/lib/schemas";
 import { changeMembership, listMembers } from "@db/queries/projects";
 import { LAST_ADMIN } from "@/lib/server/membership";
 import { getUserByEmail } from "@db/queries/users";
+import type { MembersAnswer } from "@/lib/member-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { projectId } = await ctx.params;
   await requireProject(projectId, "read");
-  return NextResponse.json({ members: await listMembers({ projectId }) });
+  const members = (await listMembers({ projectId })).map((m) => ({ ...m, addedAt: m.addedAt.toISOString() }));
+  return NextResponse.json({ members } satisfies MembersAnswer);
 });
 
 /** Adds an existing user (or changes their role). Inviting new people by e-mail is a separate flow. */

@@ -6,6 +6,7 @@ import { scenarioListAnswer } from "@/lib/server/read-answers";
 import { validateDefinition } from "@/lib/server/scenario-input";
 import { scenarioWriteSchema } from "@/lib/schemas";
 import { createScenario } from "@db/queries/scenarios";
+import type { ScenarioCreatedAnswer } from "@/lib/scenario-contract";
 
 type Ctx = { params: Promise<{ projectId: string }> };
 
@@ -22,5 +23,5 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   // The parse output is stored, not the body: unknown keys are dropped and defaults written out.
   const definition = validateDefinition(body.definition);
   const row = await createScenario({ projectId, name: body.name, description: body.description, definition, userId: user.id, changeNote: body.changeNote || "Created" });
-  return NextResponse.json(row, { status: 201 });
+  return NextResponse.json(row satisfies ScenarioCreatedAnswer, { status: 201 });
 });

@@ -4,6 +4,7 @@ import { closurePublicationSchema } from "@/lib/schemas";
 import { requireScenario } from "@/lib/server/access";
 import { closurePublicationsOf, previewClosurePlan, publishClosurePlan } from "@/lib/server/closure-notices";
 import { appBaseUrl } from "@/lib/server/mail/links";
+import type { ClosurePreviewAnswer } from "@/lib/closure-notice-contract";
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
@@ -11,7 +12,7 @@ type Ctx = { params: Promise<{ scenarioId: string }> };
 export const GET = handler(async (req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario } = await requireScenario(scenarioId, "shareScenario", "look");
-  if (new URL(req.url).searchParams.get("preview") === "1") return NextResponse.json({ preview: await previewClosurePlan({ scenario }) });
+  if (new URL(req.url).searchParams.get("preview") === "1") return NextResponse.json({ preview: await previewClosurePlan({ scenario }) } satisfies ClosurePreviewAnswer);
   return NextResponse.json(await closurePublicationsOf({ scenario }));
 });
 

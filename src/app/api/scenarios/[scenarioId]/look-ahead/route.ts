@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { handler } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { scenarioLookAhead } from "@/lib/server/look-ahead";
+import type { LookAheadBoard } from "@/lib/look-ahead-contract";
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
@@ -9,5 +10,5 @@ type Ctx = { params: Promise<{ scenarioId: string }> };
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   const { scenario } = await requireScenario(scenarioId, "read");
-  return NextResponse.json(await scenarioLookAhead(scenario), { headers: { "cache-control": "no-store" } });
+  return NextResponse.json((await scenarioLookAhead(scenario)) satisfies LookAheadBoard, { headers: { "cache-control": "no-store" } });
 });

@@ -3,6 +3,7 @@ import { handler, readJson } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { queueReforecast } from "@/lib/server/progress";
 import { jobView } from "@/lib/server/jobs";
+import type { JobAnswer } from "@/lib/job-contract";
 import { reforecastSchema } from "@/lib/progress-schema";
 import { getLatestPlanRun, listReforecastRuns } from "@db/queries/progress";
 
@@ -26,5 +27,5 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenario, user } = await requireScenario(scenarioId, "runScenario");
   const body = await readJson(req, reforecastSchema);
   const job = await queueReforecast({ scenario, body, userId: user.id });
-  return NextResponse.json({ job: jobView(job) }, { status: 202 });
+  return NextResponse.json({ job: jobView(job) } satisfies JobAnswer, { status: 202 });
 });

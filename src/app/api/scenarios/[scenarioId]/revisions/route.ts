@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { AppError, badRequest, handler } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { getRevisionWithPrevious } from "@db/queries/scenarios";
+import type { RevisionPairAnswer } from "@/lib/scenario-contract";
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
@@ -16,5 +17,5 @@ export const GET = handler(async (req: Request, ctx: Ctx) => {
   if (!/^[1-9]\d{0,8}$/.test(version)) throw badRequest([{ path: "version", message: "Version must be a whole number from 1" }]);
   const revision = await getRevisionWithPrevious({ scenarioId, version: Number(version) });
   if (!revision) throw new AppError("not_found", `This scenario has no version ${Number(version).toLocaleString("en-US")}.`);
-  return NextResponse.json(revision);
+  return NextResponse.json({ ...revision, savedAt: revision.savedAt.toISOString() } satisfies RevisionPairAnswer);
 });

@@ -4,6 +4,7 @@ import { requireScenario } from "@/lib/server/access";
 import { jobView } from "@/lib/server/jobs";
 import { searchWriteSchema, startSearch } from "@/lib/server/searches";
 import { listSearches } from "@db/queries/searches";
+import type { SearchStartedAnswer } from "@/lib/search-contract";
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
@@ -20,5 +21,5 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   const { scenario, user } = await requireScenario(scenarioId, "runScenario");
   const body = await readJson(req, searchWriteSchema);
   const { search, job } = await startSearch({ scenario, body, userId: user.id });
-  return NextResponse.json({ search: { id: search.id, method: search.method, gridSize: search.gridSize }, job: jobView(job) }, { status: 202 });
+  return NextResponse.json({ search: { id: search.id, method: search.method, gridSize: search.gridSize }, job: jobView(job) } satisfies SearchStartedAnswer, { status: 202 });
 });

@@ -8,13 +8,14 @@ import { newShareToken } from "@/lib/server/share-token";
 import { enqueueMailsFor } from "@/lib/server/mail/outbox";
 import { shareLinkMail } from "@/lib/server/mail/templates";
 import { appBaseUrl } from "@/lib/server/mail/links";
+import { shareLinkCreatedAnswer, shareLinksAnswer } from "@/lib/server/share-link-answers";
 
 type Ctx = { params: Promise<{ scenarioId: string }> };
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   await requireScenario(scenarioId, "shareScenario", "look");
-  return NextResponse.json({ links: await listShareLinks({ scenarioId }) });
+  return NextResponse.json(shareLinksAnswer(await listShareLinks({ scenarioId })));
 });
 
 /**
@@ -38,5 +39,5 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
     );
     return link;
   });
-  return NextResponse.json({ ...row, token, path, emailedTo: recipients }, { status: 201 });
+  return NextResponse.json(shareLinkCreatedAnswer(row, { token, path, emailedTo: recipients }), { status: 201 });
 });

@@ -11,6 +11,7 @@ import { fitClimateProfile } from "@sim/weather-fit";
 import { controlCharacterIn } from "@sim/text";
 import { LIMITS } from "@sim/limits";
 import { readBodyBytes } from "@/lib/server/json-body";
+import type { UploadAnswer, UploadPreview, UploadsAnswer } from "@/lib/upload-contract";
 
 /** The file plus the form's other fields and multipart framing. */
 const MAX_UPLOAD_BODY_BYTES = MAX_UPLOAD_BYTES + 64 * 1024;
@@ -33,7 +34,8 @@ const CSV_TYPES = new Set(["text/csv", "text/plain", "application/csv", "applica
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { scenarioId } = await ctx.params;
   await requireScenario(scenarioId, "read");
-  return NextResponse.json({ uploads: await listUploads({ scenarioId }) });
+  const uploads = (await listUploads({ scenarioId })).map((u) => ({ ...u, uploadedAt: u.uploadedAt.toISOString() }));
+  return NextResponse.json({ uploads } satisfies UploadsAnswer);
 });
 
 function rowErrors(problems: RowProblem[], read?: { columns: { header: string; readAs: string; unit: string | null }[]; ignored: string[] }) {
@@ -80,14 +82,15 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
   const text = new TextDecoder("utf-8", { fatal: false }).decode(content);
   const definition = validateDefinition(scenario.definition);
 
-  let preview: Record<string, unknown>;
+  let preview: UploadPreview;
   let rowCount: number;
   if (fields.data.kind === "weather") {
     const { observations, problems, columns, ignored, skipped } = parseWeatherCsv(text, { temperature: fields.data.temperature, precipitation: fields.data.precipitation, wind: fields.data.wind });
     if (problems.length) throw rowErrors(problems, { columns, ignored });
     const fit = fitClimateProfile(observations);
     rowCount = observations.length;
-    preview = { kind: "weather", fit, current: definition.weather, days: observations.length, from: observations[0]?.date, to: observations.at(-1)?.date, columns, ignored, skipped };
+    // A file without one complete day is refused above, so the first and last days exist.
+    preview = { kind: "weather", fit, current: definition.weather, days: observations.length, from: observations[0].date, to: observations.at(-1)!.date, columns, ignored, skipped };
   } else {
     const { ranges, problems } = parseSurveyCsv(text, definition.deck);
     if (problems.length) throw rowErrors(problems);
@@ -110,5 +113,6 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
     rowCount,
     userId: user.id,
   });
-  return NextResponse.json({ upload: { id: row.id, uploadedAt: row.uploadedAt, filename: file.name, rowCount }, preview, scenarioVersion: scenario.version }, { status: 201 });
+  const answer: UploadAnswer = { upload: { id: row.id, uploadedAt: row.uploadedAt.toISOString(), filename: file.name, rowCount }, preview, scenarioVersion: scenario.version };
+  return NextResponse.json(answer, { status: 201 });
 });

@@ -4,6 +4,7 @@ import { requireScenario } from "@/lib/server/access";
 import { validateDefinition } from "@/lib/server/scenario-input";
 import { variantSchema } from "@/lib/schemas";
 import { createScenario } from "@db/queries/scenarios";
+import type { ScenarioCreatedAnswer } from "@/lib/scenario-contract";
 
 /** A what-if: a copy of the scenario under a new name, owned by whoever made it. */
 export const POST = handler(async (req: Request, ctx: { params: Promise<{ scenarioId: string }> }) => {
@@ -20,5 +21,5 @@ export const POST = handler(async (req: Request, ctx: { params: Promise<{ scenar
     userId: user.id,
     changeNote: `Variant of “${scenario.name}” v${scenario.version}`,
   });
-  return NextResponse.json(row, { status: 201 });
+  return NextResponse.json(row satisfies ScenarioCreatedAnswer, { status: 201 });
 });

@@ -7,6 +7,7 @@ import { getScenarioRevision } from "@db/queries/jobs";
 import { getSearch, getVariant } from "@db/queries/searches";
 import { variantPlans } from "@/lib/server/searches";
 import { validateDefinition } from "@/lib/server/scenario-input";
+import type { SearchAdoptedAnswer } from "@/lib/search-contract";
 
 const adoptSchema = z.object({ idx: z.number().int().min(1, "must be a variant of the search") });
 
@@ -43,5 +44,5 @@ export const POST = handler(async (req: Request, ctx: { params: Promise<{ search
   });
   if (!result.ok && result.reason === "missing") throw new AppError("not_found", "No such scenario.");
   if (!result.ok) throw new AppError("conflict", stale);
-  return NextResponse.json({ scenarioId: scenario.id, version: result.version });
+  return NextResponse.json({ scenarioId: scenario.id, version: result.version } satisfies SearchAdoptedAnswer);
 });

@@ -4,6 +4,7 @@ import { AppError, badRequest, handler, readJson } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { applyVariant } from "@sim/search";
 import { createScenario } from "@db/queries/scenarios";
+import type { ScenarioCreatedAnswer } from "@/lib/scenario-contract";
 import { getScenarioRevision } from "@db/queries/jobs";
 import { getSearch, getVariant } from "@db/queries/searches";
 import { validateDefinition } from "@/lib/server/scenario-input";
@@ -34,5 +35,5 @@ export const POST = handler(async (req: Request, ctx: { params: Promise<{ search
     userId: user.id,
     changeNote: `Variant ${body.idx} of the search “${search.name}” on “${search.scenarioName}” v${search.scenarioVersion}`,
   });
-  return NextResponse.json(row, { status: 201 });
+  return NextResponse.json(row satisfies ScenarioCreatedAnswer, { status: 201 });
 });

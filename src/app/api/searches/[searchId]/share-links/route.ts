@@ -10,6 +10,7 @@ import { newShareToken } from "@/lib/server/share-token";
 import { enqueueMailsFor } from "@/lib/server/mail/outbox";
 import { searchLinkMail } from "@/lib/server/mail/templates";
 import { appBaseUrl } from "@/lib/server/mail/links";
+import { shareLinkCreatedAnswer, shareLinksAnswer } from "@/lib/server/share-link-answers";
 
 type Ctx = { params: Promise<{ searchId: string }> };
 
@@ -24,7 +25,7 @@ async function searchToShare(ctx: Ctx, intent: Intent) {
 
 export const GET = handler(async (_req: Request, ctx: Ctx) => {
   const { search } = await searchToShare(ctx, "look");
-  return NextResponse.json({ links: await listSearchShareLinks({ searchId: search.id }) });
+  return NextResponse.json(shareLinksAnswer(await listSearchShareLinks({ searchId: search.id })));
 });
 
 /**
@@ -47,5 +48,5 @@ export const POST = handler(async (req: Request, ctx: Ctx) => {
     );
     return link;
   });
-  return NextResponse.json({ ...row, token, path, emailedTo: recipients }, { status: 201 });
+  return NextResponse.json(shareLinkCreatedAnswer(row, { token, path, emailedTo: recipients }), { status: 201 });
 });

@@ -8,6 +8,7 @@ import { z } from "zod";
 import { useMutation } from "@tanstack/react-query";
 import { api, ApiError, type FieldProblem } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
+import type { ScenarioCreatedAnswer } from "@/lib/scenario-contract";
 import { variantSchema } from "@/lib/schemas";
 import { templateScenario, type ProjectDeck } from "@/lib/scenario-template";
 import { describeProblemPath } from "@/components/plan-editor/problem-labels";
@@ -32,9 +33,9 @@ export function NewScenarioForm({ projectId, deck, existing }: { projectId: stri
     mutationFn: async (v: NewScenario) => {
       if (v.source === "template") {
         const definition = templateScenario(v.name, deck, v.startDate);
-        return { definition, ...(await api<{ id: string }>(`/api/projects/${projectId}/scenarios`, { method: "POST", body: { name: v.name, definition, changeNote: "Created from the standard template" } })) };
+        return { definition, ...(await api<ScenarioCreatedAnswer>(`/api/projects/${projectId}/scenarios`, { method: "POST", body: { name: v.name, definition, changeNote: "Created from the standard template" } })) };
       }
-      return { definition: null, ...(await api<{ id: string }>(`/api/scenarios/${v.source}/variants`, { method: "POST", body: { name: v.name } })) };
+      return { definition: null, ...(await api<ScenarioCreatedAnswer>(`/api/scenarios/${v.source}/variants`, { method: "POST", body: { name: v.name } })) };
     },
     onSuccess: (r) => router.push(`/scenarios/${r.id}/plan`),
     onError: (e) => {

@@ -1,0 +1,36 @@
+/**
+ * What `GET /api/progress/:id` answers: one shift of the field log as stored, and its history — who created,
+ * corrected, deleted or put it back, and when, newest first — which the field log's table lists under the shift.
+ * Times are ISO strings: what the JSON carries.
+ */
+import type { ProgressEntry } from "@sim/progress-entry";
+
+/** A shift as stored: the field-log entry contract's fields (sim/progress-entry) and the record kept about them. */
+export type ProgressEntryRecord = ProgressEntry & {
+  id: string;
+  projectId: string;
+  scenarioId: string | null;
+  version: number;
+  enteredById: string;
+  enteredByName: string;
+  createdAt: string;
+  updatedAt: string;
+};
+
+export interface ProgressHistoryRow {
+  id: string;
+  changedAt: string;
+  changedByName: string;
+  action: "create" | "edit" | "delete" | "restore";
+  /**
+   * The entry's fields before and after the change, as they were stored then: older rows may predate fields added to
+   * the entry since, so they are read as plain records. Null before a creation or a put-back, and after a deletion.
+   */
+  before: Record<string, unknown> | null;
+  after: Record<string, unknown> | null;
+}
+
+export interface ProgressEntryAnswer {
+  entry: ProgressEntryRecord;
+  history: ProgressHistoryRow[];
+}
