@@ -59,6 +59,11 @@ describe("the plan of record", () => {
     await printed.waitFor();
     expect(await printed.textContent()).toMatch(new RegExp(`P80 finish ${p80}`));
     expect(await printed.getByRole("link").count()).toBe(0);
+    // Its big figures are the re-forecast's too (they were the plan run's, under a notice saying otherwise).
+    const answer = page.getByTestId("brief-answer");
+    expect(await answer.getByRole("heading").textContent()).toMatch(/^Finish dates re-forecast from the field log as of \d{1,2} \w{3} \d{4} \([\d,]+ iterations, run .+\)$/);
+    expect(await answer.textContent()).toContain(`P80 finish${p80}`);
+    expect(await page.getByTestId("brief-iterations").textContent()).toContain("The plan run below: ");
     await page.goto(planUrl);
     await notice.getByRole("link", { name: "Open the field log and its forecasts" }).click();
     await page.waitForURL(/\/progress$/);

@@ -2,6 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import postgres from "postgres";
 import { call, kestrelProject, signInAs } from "../helpers/app";
+import { formatIsoDate } from "../../src/lib/format";
 
 // The app's own database, to age a link past its expiry without waiting.
 const appDb = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
@@ -44,6 +45,29 @@ describe("share links", () => {
     expect(res.body.run.results.finish.p80).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     // Nothing about other scenarios or members leaks.
     expect(JSON.stringify(res.body)).not.toMatch(/password|email/i);
+  });
+
+  it("tells the link's reader when the field log has moved the plan run on, without a link into the app", async () => {
+    // The seeded plan of record has re-forecasts newer than its plan run; a scenario never re-forecast has none.
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: scheduler });
+    const rows = list.body.scenarios as { id: string; name: string; reforecastP80: string | null; runId: string | null }[];
+    const moved = rows.find((r) => r.name === "Kestrel Bay Causeway — two seasons")!;
+    const still = rows.find((r) => r.runId && !r.reforecastP80)!;
+    const linkTo = async (id: string) => (await call(`/api/scenarios/${id}/share-links`, { method: "POST", cookie: scheduler, body: { expiresInDays: 7, label: "reader" } })).body as { token: string };
+
+    const movedLink = await linkTo(moved.id);
+    const api = await call(`/api/shared/${movedLink.token}`);
+    expect(api.body.reforecast.summary.finish.p80).toBe(moved.reforecastP80);
+    const page = await call(`/shared/${movedLink.token}`);
+    expect(page.status).toBe(200);
+    const html = String(page.body);
+    expect(html).toContain("The field log has moved this forecast on.");
+    expect(html).toContain(`P80 finish <strong>${formatIsoDate(moved.reforecastP80!)}</strong>`);
+    expect(html).not.toContain(`/scenarios/${moved.id}/progress`);
+
+    const stillPage = await call(`/shared/${(await linkTo(still.id)).token}`);
+    expect(stillPage.status).toBe(200);
+    expect(String(stillPage.body)).not.toContain("The field log has moved this forecast on.");
   });
 
   it("a revoked link is 404 at once", async () => {

@@ -19,9 +19,9 @@ export function newerThanShown<R extends ReforecastHeadline>(reforecast: R | nul
 /**
  * The Outlook and the owner brief show the plan as run; once the field log has re-forecast it, that plan run no
  * longer says when the job will finish. Said above the charts, so nobody quotes the plan's P80 when the project list
- * (the plan of record's headline) already quotes the re-forecast's. `document`: the printed brief (no link).
+ * (the plan of record's headline) already quotes the re-forecast's. `document`: the printed brief (no link); `scenarioId` null: a share link's page (no link either).
  */
-export function NewerReforecastNotice(props: { scenarioId: string; reforecast: ReforecastHeadline; shownRunAt: Date | string | null; document?: boolean }) {
+export function NewerReforecastNotice(props: { scenarioId: string | null; reforecast: ReforecastHeadline; shownRunAt: Date | string | null; document?: boolean }) {
   const { scenarioId, reforecast, shownRunAt, document = false } = props;
   // The project list's words for a forecast (without "how far it moved", which the drift chart says).
   const text = planForecastText({ planScenarioId: scenarioId, planName: null, planRunSummary: reforecast.summary, planRunAt: reforecast.createdAt, planRunDataDate: reforecast.dataDate, planRunStale: false });
@@ -36,8 +36,8 @@ export function NewerReforecastNotice(props: { scenarioId: string; reforecast: R
       </p>
       <p className="mt-1">
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}
-        {/* The printed brief has nothing to click. */}
-        {!document && (
+        {/* The printed brief has nothing to click; a share link's reader (no scenario id) has no field log to open. */}
+        {!document && scenarioId && (
           <Link className="font-medium text-brand-700 underline" href={`/scenarios/${scenarioId}/progress`}>
             Open the field log and its forecasts
           </Link>

@@ -2,6 +2,7 @@ import "server-only";
 import { getProject } from "@db/queries/projects";
 import { getLatestRun } from "@db/queries/runs";
 import { getScenario } from "@db/queries/scenarios";
+import { getNewestReforecastHeadline } from "@db/queries/progress";
 import { findLiveShareLink } from "@db/queries/shares";
 import type { ShareScope } from "@db/schema";
 import { getSearch, listVariants } from "@db/queries/searches";
@@ -43,12 +44,15 @@ export async function loadSharedScenario(token: string) {
   // Publish the parsed definition: only fields of the format leave through a link, whatever a row holds.
   const parsed = parseScenario(scenario.definition);
   const definition = parsed.ok ? parsed.scenario : scenario.definition;
-  const [project, run] = await Promise.all([getProject({ id: scenario.projectId }), getLatestRun({ scenarioId: scenario.id })]);
+  // The newest re-forecast too: once the field log has moved the plan run on, the link's reader is told (as the
+  // Outlook and the owner brief tell their readers), not left quoting the plan run's P80.
+  const [project, run, reforecast] = await Promise.all([getProject({ id: scenario.projectId }), getLatestRun({ scenarioId: scenario.id }), getNewestReforecastHeadline({ scenarioId: scenario.id })]);
   return {
     link: { label: link.label, expiresAt: link.expiresAt },
     project: project && { name: project.name, structureName: project.structureName, region: project.region },
     scenario: { name: scenario.name, description: scenario.description, version: scenario.version, updatedAt: scenario.updatedAt, updatedByName: scenario.updatedByName, definition },
     run,
+    reforecast,
   };
 }
 

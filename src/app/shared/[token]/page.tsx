@@ -8,6 +8,7 @@ import { InputsSummary } from "./inputs-summary";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
 import { VerificationBadge } from "@/components/results/verification-badge";
+import { NewerReforecastNotice, newerThanShown } from "@/components/results/newer-reforecast-notice";
 
 // A share link is a bearer secret: keep it out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Shared forecast", robots: { index: false, follow: false }, referrer: "no-referrer" };
@@ -17,6 +18,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
   const shared = await orNotFound(loadSharedScenario(token));
   const { link, project, scenario, run } = shared;
   const stale = !!run && run.stale;
+  const newerReforecast = newerThanShown(shared.reforecast, run);
   return (
     <SharedPageFrame expiresAt={link.expiresAt} project={project}>
       <div>
@@ -29,6 +31,8 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
         </p>
       </div>
 
+      {/* No link to the field log: the link's reader has no account to follow it with. */}
+      {newerReforecast && <NewerReforecastNotice scenarioId={null} reforecast={newerReforecast} shownRunAt={run?.createdAt ?? null} />}
       {run ? (
         <>
           <p className="text-sm text-muted">

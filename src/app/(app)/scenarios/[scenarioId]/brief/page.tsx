@@ -11,7 +11,7 @@ import { formatDateTime, formatIsoDate, formatPercent, formatStation } from "@/l
 import { stageSentence } from "@/lib/stage-text";
 import { PrintButton } from "./print-button";
 import { orNotFound } from "@/lib/server/page-access";
-import { resultsRunOf } from "@/lib/run-record";
+import { resultsRunOf, type RunHeadline } from "@/lib/run-record";
 import { iterationsStatement } from "@/components/results/summary-text";
 import { VerificationBadge } from "@/components/results/verification-badge";
 import { getNewestReforecastHeadline, listProgress } from "@db/queries/progress";
@@ -45,6 +45,9 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
   const d = validateDefinition(scenario.definition);
   const s = run?.results as unknown as RunSummary | undefined;
   const progressRows = progressToDate(d, entries);
+  // The answer tiles are the forecast the project stands on: the re-forecast when the field log has moved the plan
+  // run on (an executive quotes the big figures, not the notice above them), else the plan run's own.
+  const reforecastHead = newerReforecast && (newerReforecast.summary as Partial<RunHeadline>).finish ? (newerReforecast.summary as unknown as RunHeadline) : null;
   const against = run && againstPlanFor({ rows: progressRows, run: { trace: s?.representative.trace, stale: run.stale, createdAt: run.createdAt }, plan: d, toDate: lastWorkDate(entries), formatDate: formatIsoDate, formatDateTime });
   return (
     <article className="brief space-y-6" data-testid="owner-brief">
@@ -71,26 +74,21 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
         <p className="card">This scenario has not been run yet: there is no forecast to brief.</p>
       ) : (
         <>
-          <section aria-labelledby="answer-heading" className="grid gap-3 sm:grid-cols-4">
-            <h3 id="answer-heading" className="sr-only">
-              Finish dates
-            </h3>
-            {(["p50", "p80", "p90"] as const).map((k) => (
-              <div key={k} className="card">
-                <p className="text-xs font-semibold uppercase text-muted">{k.toUpperCase()} finish</p>
-                <p className="mt-1 text-xl font-semibold">{formatIsoDate(s.finish[k])}</p>
-              </div>
-            ))}
-            <div className="card">
-              <p className="text-xs font-semibold uppercase text-muted">Target {s.target ? formatIsoDate(s.target.date) : "—"}</p>
-              <p className="mt-1 text-xl font-semibold">{s.target ? `${formatPercent(s.target.probability)} chance` : "no target set"}</p>
-            </div>
-          </section>
+          {reforecastHead && newerReforecast ? (
+            <AnswerTiles
+              heading={`Finish dates re-forecast from the field log as of ${newerReforecast.dataDate ? formatIsoDate(newerReforecast.dataDate) : "its data date"} (${reforecastHead.iterations.toLocaleString("en-US")} iterations, run ${formatDateTime(newerReforecast.createdAt)})`}
+              finish={reforecastHead.finish}
+              target={reforecastHead.targetDate && reforecastHead.targetProbability !== null ? { date: reforecastHead.targetDate, probability: reforecastHead.targetProbability } : null}
+            />
+          ) : (
+            <AnswerTiles finish={s.finish} target={s.target ?? null} />
+          )}
           {run.stale && (
             <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This forecast was computed from version {run.scenarioVersion}; the plan has changed since.</p>
           )}
           <p className="text-sm" data-testid="brief-iterations">
-            <VerificationBadge verification={run.verification} /> {iterationsStatement(s).text} Monte Carlo forecast, seed “{run.seed}”, computed {formatDateTime(run.createdAt)}. P80 means 80 % of the simulated outcomes
+            <VerificationBadge verification={run.verification} /> {reforecastHead ? "The plan run below: " : ""}
+            {iterationsStatement(s).text} Monte Carlo forecast, seed “{run.seed}”, computed {formatDateTime(run.createdAt)}. P80 means 80 % of the simulated outcomes
             finished on or before that date, given the assumptions below.
           </p>
           {iterationsStatement(s).warning && (
@@ -159,5 +157,26 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
       </section>
       <SafetyNote />
     </article>
+  );
+}
+
+/** The brief's answer: P50, P80 and P90 finish and the chance of the target. `heading`: said aloud only when given. */
+function AnswerTiles({ heading, finish, target }: { heading?: string; finish: { p50: string; p80: string; p90: string }; target: { date: string; probability: number } | null }) {
+  return (
+    <section aria-labelledby="answer-heading" className="grid gap-3 sm:grid-cols-4" data-testid="brief-answer">
+      <h3 id="answer-heading" className={heading ? "text-sm font-semibold sm:col-span-4" : "sr-only"}>
+        {heading ?? "Finish dates"}
+      </h3>
+      {(["p50", "p80", "p90"] as const).map((k) => (
+        <div key={k} className="card">
+          <p className="text-xs font-semibold uppercase text-muted">{k.toUpperCase()} finish</p>
+          <p className="mt-1 text-xl font-semibold">{formatIsoDate(finish[k])}</p>
+        </div>
+      ))}
+      <div className="card">
+        <p className="text-xs font-semibold uppercase text-muted">Target {target ? formatIsoDate(target.date) : "—"}</p>
+        <p className="mt-1 text-xl font-semibold">{target ? `${formatPercent(target.probability)} chance` : "no target set"}</p>
+      </div>
+    </section>
   );
 }
