@@ -63,7 +63,7 @@ describe("the plan of record", () => {
     const answer = page.getByTestId("brief-answer");
     expect(await answer.getByRole("heading").textContent()).toMatch(/^Finish dates re-forecast from the field log as of \d{1,2} \w{3} \d{4} \([\d,]+ iterations, run .+\)$/);
     expect(await answer.textContent()).toContain(`P80 finish${p80}`);
-    expect(await page.getByTestId("brief-iterations").textContent()).toContain("The plan run below: ");
+    expect(await page.getByTestId("brief-iterations").textContent()).toContain("Below is the plan run, which knows nothing of the work done since. ");
     await page.goto(planUrl);
     await notice.getByRole("link", { name: "Open the field log and its forecasts" }).click();
     await page.waitForURL(/\/progress$/);

@@ -64,10 +64,13 @@ describe("share links", () => {
     expect(html).toContain("The field log has moved this forecast on.");
     expect(html).toContain(`P80 finish <strong>${formatIsoDate(moved.reforecastP80!)}</strong>`);
     expect(html).not.toContain(`/scenarios/${moved.id}/progress`);
+    // What follows is called the plan run, not the forecast.
+    expect(html).toMatch(/<h2[^>]*>Plan run<\/h2>/);
 
     const stillPage = await call(`/shared/${(await linkTo(still.id)).token}`);
     expect(stillPage.status).toBe(200);
     expect(String(stillPage.body)).not.toContain("The field log has moved this forecast on.");
+    expect(String(stillPage.body)).toMatch(/<h2[^>]*>Forecast<\/h2>/);
   });
 
   it("a revoked link is 404 at once", async () => {

@@ -36,7 +36,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
       {run ? (
         <>
           <p className="text-sm text-muted">
-            <VerificationBadge verification={run.verification} /> Forecast: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
+            <VerificationBadge verification={run.verification} /> {newerReforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
             {run.createdByName ? ` by ${run.createdByName}` : ""}
             {stale ? ` — computed from plan version ${run.scenarioVersion}; the plan has changed since.` : "."}
           </p>
@@ -44,6 +44,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
             summary={run.results as unknown as RunSummary}
             definition={scenario.definition}
             run={resultsRunOf(run)}
+            heading={newerReforecast ? "Plan run" : undefined}
           />
         </>
       ) : (

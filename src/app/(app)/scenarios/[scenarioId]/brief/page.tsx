@@ -62,7 +62,8 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
           {project?.structureName} · scenario “{scenario.name}” (version {scenario.version}, saved {formatDateTime(scenario.updatedAt)} by {scenario.updatedByName})
         </p>
       </div>
-      {newerReforecast && <NewerReforecastNotice scenarioId={scenario.id} reforecast={newerReforecast} shownRunAt={run?.createdAt ?? null} document />}
+      {/* Its "below is the plan as run" is said before the plan run itself, since the answer tiles between are the re-forecast's. */}
+      {newerReforecast && <NewerReforecastNotice scenarioId={scenario.id} reforecast={newerReforecast} shownRunAt={reforecastHead ? null : (run?.createdAt ?? null)} document />}
       {entries.length > 0 && (
         <section aria-labelledby="to-date-heading" className="card break-inside-avoid" data-testid="brief-progress">
           <h3 id="to-date-heading">Progress to date</h3>
@@ -87,7 +88,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
             <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This forecast was computed from version {run.scenarioVersion}; the plan has changed since.</p>
           )}
           <p className="text-sm" data-testid="brief-iterations">
-            <VerificationBadge verification={run.verification} /> {reforecastHead ? "The plan run below: " : ""}
+            <VerificationBadge verification={run.verification} /> {reforecastHead ? "Below is the plan run, which knows nothing of the work done since. " : ""}
             {iterationsStatement(s).text} Monte Carlo forecast, seed “{run.seed}”, computed {formatDateTime(run.createdAt)}. P80 means 80 % of the simulated outcomes
             finished on or before that date, given the assumptions below.
           </p>
