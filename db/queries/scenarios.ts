@@ -36,13 +36,14 @@ export async function listProjectScenarios({ projectId }: { projectId: string })
 }
 
 function projectScenarios(db: Database) {
+  // Every field of the three lateral joins is null for a scenario without such a run: typed so, for the readers.
   const latestRun = db
     .select({
-      runId: sql<string>`${simulationRuns.id}`.as("run_id"),
-      runVersion: sql<number>`${simulationRuns.scenarioVersion}`.as("run_version"),
-      runSummary: sql<Record<string, unknown>>`${simulationRuns.summary}`.as("run_summary"),
-      runAt: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("run_at"),
-      runVerification: sql<RunVerification>`${simulationRuns.verification}`.as("run_verification"),
+      runId: sql<string | null>`${simulationRuns.id}`.as("run_id"),
+      runVersion: sql<number | null>`${simulationRuns.scenarioVersion}`.as("run_version"),
+      runSummary: sql<Record<string, unknown> | null>`${simulationRuns.summary}`.as("run_summary"),
+      runAt: sql<Date | null>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("run_at"),
+      runVerification: sql<RunVerification | null>`${simulationRuns.verification}`.as("run_verification"),
     })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNull(simulationRuns.dataDate), isForecast))
@@ -51,7 +52,7 @@ function projectScenarios(db: Database) {
     .as("latest_run");
   // A browser run still waiting for the server is not the forecast; the list only says one exists.
   const pendingRun = db
-    .select({ pendingAt: sql<Date>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("pending_at") })
+    .select({ pendingAt: sql<Date | null>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("pending_at") })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNull(simulationRuns.dataDate), eq(simulationRuns.verification, "pending")))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
@@ -61,8 +62,8 @@ function projectScenarios(db: Database) {
   // does not read as still finishing on the plan's dates.
   const latestReforecast = db
     .select({
-      reforecastP80: sql<string>`${simulationRuns.summary}->'finish'->>'p80'`.as("reforecast_p80"),
-      reforecastDataDate: sql<string>`${simulationRuns.dataDate}`.as("reforecast_data_date"),
+      reforecastP80: sql<string | null>`${simulationRuns.summary}->'finish'->>'p80'`.as("reforecast_p80"),
+      reforecastDataDate: sql<string | null>`${simulationRuns.dataDate}`.as("reforecast_data_date"),
     })
     .from(simulationRuns)
     .where(reforecastsOf(scenarios.id))

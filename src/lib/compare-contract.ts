@@ -5,6 +5,7 @@
  * summary's own (sim `CompareFigures`), or `run: null`.
  */
 import type { CompareFigures } from "@sim/run-summary-schema";
+import type { RunVerification } from "./run-contract";
 
 export const MAX_COMPARE = 4;
 
@@ -24,7 +25,7 @@ export type CompareRun = CompareFigures & {
   scenarioVersion: number;
   stale: boolean;
   /** "server" or "verified": compare shows forecasts only (the data layer leaves pending and rejected runs out). */
-  verification: "server" | "verified" | "pending" | "rejected";
+  verification: RunVerification;
   iterations: number;
   createdAt: string;
   /** Lane-closed hours, P50 (crew closure hours for runs stored before the closure timeline). */

@@ -1,5 +1,5 @@
 /** Whether a forecast on screen is one the server stands behind. */
-export type Verification = "server" | "verified" | "pending" | "rejected";
+import type { RunVerification as Verification } from "@/lib/run-contract";
 
 const TEXT: Record<Verification, { label: string; title: string; cls: string }> = {
   verified: { label: "Verified by the server", title: "Computed in a browser and reproduced exactly by the server", cls: "bg-brand-50 text-brand-800" },

@@ -28,7 +28,7 @@ export async function scenarioListAnswer(request: ReadRequest, projectId: string
       updatedAt: r.updatedAt.toISOString(),
       // The column holds what `headlineOf` (src/lib/run-record.ts) stored; the data layer cannot name that type.
       runSummary: r.runSummary as (RunHeadline & Record<string, unknown>) | null,
-      // Null for a scenario never run or with no run waiting, though the data layer types these lateral joins as set.
+      // Null for a scenario never run or with no run waiting.
       runAt: r.runAt?.toISOString() ?? null,
       pendingRunAt: r.pendingRunAt?.toISOString() ?? null,
     })),
