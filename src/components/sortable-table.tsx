@@ -6,7 +6,6 @@
 import { flexRender, type RowData, type Table } from "@tanstack/react-table";
 
 declare module "@tanstack/react-table" {
-  // eslint-disable-next-line @typescript-eslint/no-unused-vars
   interface ColumnMeta<TData extends RowData, TValue> {
     /** How the phone's sort select words the two directions, e.g. ["earliest first", "latest first"]. */
     sortWords?: [ascending: string, descending: string];

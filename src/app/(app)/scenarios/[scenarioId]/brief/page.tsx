@@ -85,7 +85,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
             <AnswerTiles finish={s.finish} target={s.target ?? null} />
           )}
           {run.stale && (
-            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This forecast was computed from version {run.scenarioVersion}; the plan has changed since.</p>
+            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This {reforecastHead ? "plan run" : "forecast"} was computed from version {run.scenarioVersion}; the plan has changed since.</p>
           )}
           <p className="text-sm" data-testid="brief-iterations">
             <VerificationBadge verification={run.verification} /> {reforecastHead ? "Below is the plan run, which knows nothing of the work done since. " : ""}
@@ -161,7 +161,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
   );
 }
 
-/** The brief's answer: P50, P80 and P90 finish and the chance of the target. `heading`: said aloud only when given. */
+/** The brief's answer: P50, P80 and P90 finish and the chance of the target; `heading` shown when given (else "Finish dates" for screen readers only). */
 function AnswerTiles({ heading, finish, target }: { heading?: string; finish: { p50: string; p80: string; p90: string }; target: { date: string; probability: number } | null }) {
   return (
     <section aria-labelledby="answer-heading" className="grid gap-3 sm:grid-cols-4" data-testid="brief-answer">
