@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, isNotNull, isNull, sql, type AnyColumn, ty
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { engineJobs, progressEntries, progressHistory, scenarios, simulationRuns, users } from "../schema";
-import { isForecast, planRunsOf } from "./runs";
+import { forecastOrder, isForecast, planRunsOf } from "./runs";
 import type { ProgressEntry } from "../../sim/progress-entry";
 import { runIsStale } from "./stale";
 
@@ -232,15 +232,15 @@ export async function countShiftsNotInRun({ runId }: { runId: string }): Promise
 }
 
 /**
- * The forecast that stood at the end of `day` where the work is (`timeZone`): the newest plan run or re-forecast
- * run on or before that day — a later run, whatever its data date, was not known then. Null before the first.
+ * The forecast that stood at the end of `day` where the work is (`timeZone`): of the runs made on or before that
+ * day (a later run, whatever its data date, was not known then), the one `forecastOrder` puts first. Null before the first.
  */
 export async function getForecastStandingOn({ scenarioId, day, timeZone }: { scenarioId: string; day: string; timeZone: string }) {
   const [row] = await getDb()
     .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarioId), isForecast, sql`(${simulationRuns.createdAt} AT TIME ZONE ${timeZone})::date <= ${day}::date`))
-    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .orderBy(...forecastOrder)
     .limit(1);
   return row ?? null;
 }
@@ -306,7 +306,7 @@ export async function getLatestReforecast({ scenarioId }: { scenarioId: string }
  */
 export async function getNewestReforecastHeadline({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
-    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun })
+    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun, stale: runIsStale() })
     .from(simulationRuns)
     .where(reforecastsOf(scenarioId))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))

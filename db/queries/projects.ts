@@ -1,15 +1,15 @@
 import "server-only";
-import { and, asc, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
+import { and, asc, eq, isNotNull, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb, prepared } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users, type Role } from "../schema";
-import { isForecast } from "./runs";
+import { forecastOrder, isForecast } from "./runs";
 import { shiftsNotInRun } from "./progress";
 import { staleSql } from "./stale";
 
 /**
  * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
- * newest forecast — a plan run or a re-forecast from the field log, whichever came last — with whether the plan
+ * forecast — its newest re-forecast from the field log, else its newest plan run (runs.ts `forecastOrder`) — with whether the plan
  * changed after it, how many field-log changes it does not know, and the forecast before that one. The caller left-joins `plan` on projects.plan_scenario_id, and
  * `planRun` and `previousRun` laterally.
  */
@@ -26,15 +26,15 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
-    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .orderBy(...forecastOrder)
     .limit(1)
     .as("plan_run");
-  // The forecast before the newest: how far the finish moved since.
+  // The forecast before it, in the same order: how far the finish moved since.
   const previousRun = db
     .select({ summary: sql<Record<string, unknown>>`${simulationRuns.summary}`.as("previous_run_summary") })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
-    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .orderBy(...forecastOrder)
     .limit(1)
     .offset(1)
     .as("previous_run");

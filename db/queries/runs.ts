@@ -87,6 +87,16 @@ export async function getRunForCheck({ id }: { id: string }) {
 export const planRunsOf = (scenarioId: string) => and(eq(simulationRuns.scenarioId, scenarioId), isNull(simulationRuns.dataDate));
 
 /**
+ * Which of a scenario's forecast runs is *the* forecast, first in this order: its newest re-forecast from the field
+ * log once it has one, else its newest plan run. A plan run computes the plan from its start date and knows nothing
+ * of the work done, so pressing Run on a job under way must not move the project's finish date, its forecast e-mail
+ * or the closures published to the public back to the plan's; the re-forecast stays the forecast (marked stale when
+ * the plan changed after it) until the next one. One rule for the project list, the forecast e-mail, the closure
+ * notices and the forecast history.
+ */
+export const forecastOrder = [desc(sql`${simulationRuns.dataDate} is not null`), desc(simulationRuns.createdAt), desc(simulationRuns.id)];
+
+/**
  * What every reader of a run gets. "Stale" (computed from an older version than the scenario's) and "plan
  * run" (no data date) are decided here, once, rather than by each page.
  */
@@ -107,14 +117,14 @@ const listColumns = {
   planRun: sql<boolean>`(${simulationRuns.dataDate} is null)`.as("plan_run"),
 };
 
-function runsQuery(where: SQL | undefined, withResults: boolean) {
+function runsQuery(where: SQL | undefined, withResults: boolean, order: SQL[] = [desc(simulationRuns.createdAt), desc(simulationRuns.id)]) {
   return getDb()
     .select(withResults ? { ...listColumns, results: simulationRuns.results } : { ...listColumns, results: sql<Record<string, unknown> | null>`null` })
     .from(simulationRuns)
     .innerJoin(scenarios, eq(scenarios.id, simulationRuns.scenarioId))
     .leftJoin(users, eq(users.id, simulationRuns.createdById))
     .where(where)
-    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id));
+    .orderBy(...order);
 }
 
 /** Plan runs, newest first, each with its verification (pending and rejected included, marked as such). */
@@ -187,12 +197,12 @@ export async function getLatestRun({ scenarioId }: { scenarioId: string }) {
 }
 
 /**
- * The scenario's newest forecast of any kind — its latest plan run or a later re-forecast from the field log,
- * whichever was run last (the project list's rule) — with its results: what the planned closures are published
- * from, so the public hears what the field has made of the plan.
+ * The scenario's forecast (`forecastOrder`: its newest re-forecast from the field log, else its newest plan run)
+ * with its results: what the planned closures are published from, so the public hears what the field has made of
+ * the plan.
  */
 export async function getNewestForecast({ scenarioId, withResults = true }: { scenarioId: string; withResults?: boolean }) {
-  const [row] = await runsQuery(and(eq(simulationRuns.scenarioId, scenarioId), isForecast), withResults).limit(1);
+  const [row] = await runsQuery(and(eq(simulationRuns.scenarioId, scenarioId), isForecast), withResults, forecastOrder).limit(1);
   return row ?? null;
 }
 

@@ -1,6 +1,6 @@
 /**
- * Forecast e-mails: a member ticks "E-mail me each new forecast of the plan of record"; each new plan run or
- * re-forecast of the plan of record is then e-mailed to those who asked — once, in the project list's words — and
+ * Forecast e-mails: a member ticks "E-mail me each new forecast of the plan of record"; each new forecast of the
+ * plan of record (a plan run, or once it has one a re-forecast from the field log — db/queries/runs.ts `forecastOrder`) is then e-mailed to those who asked — once, in the project list's words — and
  * to nobody else, with how far the field log says the job has got once it has shifts; choosing another plan of record sends its newest forecast, said as the new plan; an archived
  * project sends nothing until it is restored. The
  * app's own sender (every 2 s under `npm test`) does the sending; the tests wait for its outbox rows.
@@ -45,6 +45,15 @@ async function run(scenarioId: string, seed: string): Promise<{ runId: string; p
   expect(job.status).toBe("completed");
   const [row] = await db`SELECT summary FROM simulation_runs WHERE id = ${job.runId}`;
   return { runId: job.runId!, p80: row.summary.finish.p80 };
+}
+
+/** A re-forecast of the plan from the field log as of yesterday, run by the server; its run id. */
+async function reforecast(seed: string): Promise<string> {
+  const queued = await call(`/api/scenarios/${planId}/reforecast`, { method: "POST", cookie: engineer.cookie, body: { dataDate: isoDaysFromToday(-1), seed, iterations: 20 } });
+  expect(queued.status).toBe(202);
+  const job = await waitForJob(queued.body.job.id, engineer.cookie);
+  expect(job.status).toBe("completed");
+  return job.runId!;
 }
 
 /** Waits (bounded) until the app's sender has announced `runId`. */
@@ -117,11 +126,7 @@ describe("forecast e-mails", () => {
     expect(await pageSays()).toBe(false);
     // A re-forecast from yesterday: every operation but the recorded milling starts over from today, so its
     // closures from today on are not the published plan run's.
-    const queued = await call(`/api/scenarios/${planId}/reforecast`, { method: "POST", cookie: engineer.cookie, body: { dataDate: isoDaysFromToday(-1), seed: "third", iterations: 20 } });
-    expect(queued.status).toBe(202);
-    const third = await waitForJob(queued.body.job.id, engineer.cookie);
-    expect(third.status).toBe("completed");
-    await announcedAs(third.runId!);
+    await announcedAs(await reforecast("third"));
     const mail = (await mailTo(viewer.email)).at(-1)!;
     expect(mail.text_body).toMatch(
       /\n\nThe lane closures the public sees \(published \d{1,2} \w{3} \d{4}, \d\d:\d\d\) come from an earlier forecast, until someone publishes again from the plan's Share tab\. .*from today on.*; the first difference is on \w{3} \d{1,2} \w{3} \d{4}\.\n\n/,
@@ -129,6 +134,26 @@ describe("forecast e-mails", () => {
     expect(await pageSays()).toBe(true);
     // The e-mails before the publication said nothing of it.
     expect((await mailTo(viewer.email)).slice(0, -1).some((m) => m.text_body.includes("the public sees"))).toBe(false);
+  });
+
+  it("a plan run after a re-forecast is not the forecast: no e-mail, and the project list and the published closures keep the re-forecast", async () => {
+    const standing = await announced();
+    const [kind] = await db`SELECT data_date FROM simulation_runs WHERE id = ${standing}`;
+    expect(kind.data_date).not.toBeNull(); // the re-forecast of the test before
+    const sent = (await mailTo(viewer.email)).length;
+    // Run the plan again: a plan run from the plan's start, knowing nothing of the shift in the field log.
+    const planRun = await run(planId, "plan-again");
+    await sendForecastAlerts();
+    expect(await announced()).toBe(standing);
+    expect(await mailTo(viewer.email)).toHaveLength(sent);
+    const listed = (await call("/api/projects", { cookie: viewer.cookie })).body.projects.find((p: { id: string }) => p.id === projectId);
+    expect(listed.planRunId).toBe(standing);
+    expect(listed.planRunDataDate).toBe(isoDaysFromToday(-1));
+    // Published now, the public's closures come from the re-forecast too, not from the newer plan run.
+    expect((await call(`/api/scenarios/${planId}/closure-publications`, { method: "POST", cookie: engineer.cookie })).status).toBe(201);
+    const [pub] = await db`SELECT run_id FROM closure_publications WHERE scenario_id = ${planId} ORDER BY published_at DESC, id DESC LIMIT 1`;
+    expect(pub.run_id).toBe(standing);
+    expect(pub.run_id).not.toBe(planRun.runId);
   });
 
   it("stop when turned off, and go with the plan of record: another scenario's runs are not its forecasts", async () => {
@@ -139,8 +164,8 @@ describe("forecast e-mails", () => {
     await sendForecastAlerts();
     expect(await announced()).toBe(before);
     expect((await alerts(viewer.cookie, { forecastAlerts: false })).status).toBe(200);
-    const third = await run(planId, "third");
-    await announcedAs(third.runId);
+    // The plan's next forecast: a re-forecast (a plan run no longer is one once the plan has re-forecasts).
+    await announcedAs(await reforecast("fourth"));
     expect(await mailTo(viewer.email)).toHaveLength(sent);
     expect((await alerts(viewer.cookie, { forecastAlerts: true })).status).toBe(200);
   });

@@ -9,11 +9,8 @@ export interface ReforecastHeadline {
   createdAt: Date | string;
   /** Field-log changes it does not know (db/queries/progress.ts `shiftsNotInRun`). */
   shiftsNotIn: number;
-}
-
-/** The newest re-forecast when it is newer than the plan run a page shows (or there is none): then it is the forecast. */
-export function newerThanShown<R extends ReforecastHeadline>(reforecast: R | null, shown: { createdAt: Date | string } | null): R | null {
-  return reforecast && (!shown || new Date(reforecast.createdAt) > new Date(shown.createdAt)) ? reforecast : null;
+  /** The plan changed after it (the data layer's stale rule); it is still the forecast until the next re-forecast. */
+  stale?: boolean | null;
 }
 
 /**
@@ -33,6 +30,7 @@ export function NewerReforecastNotice(props: { scenarioId: string | null; refore
         {formatDateTime(reforecast.createdAt)}): P80 finish <strong>{text.p80}</strong>
         {text.rest}
         {reforecast.shiftsNotIn > 0 ? ` ${changesNotInText(reforecast.shiftsNotIn, "that re-forecast")}.` : ""}
+        {reforecast.stale ? " The plan has changed since that re-forecast, so it is stale until the next one." : ""}
       </p>
       <p className="mt-1">
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}

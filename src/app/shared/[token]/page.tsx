@@ -8,7 +8,7 @@ import { InputsSummary } from "./inputs-summary";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
 import { VerificationBadge } from "@/components/results/verification-badge";
-import { NewerReforecastNotice, newerThanShown } from "@/components/results/newer-reforecast-notice";
+import { NewerReforecastNotice } from "@/components/results/newer-reforecast-notice";
 
 // A share link is a bearer secret: keep it out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Shared forecast", robots: { index: false, follow: false }, referrer: "no-referrer" };
@@ -18,7 +18,8 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
   const shared = await orNotFound(loadSharedScenario(token));
   const { link, project, scenario, run } = shared;
   const stale = !!run && run.stale;
-  const newerReforecast = newerThanShown(shared.reforecast, run);
+  // The newest re-forecast is the forecast whenever there is one, however recent the plan run shown (runs.ts `forecastOrder`).
+  const leadingReforecast = shared.reforecast;
   return (
     <SharedPageFrame expiresAt={link.expiresAt} project={project}>
       <div>
@@ -32,11 +33,11 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
       </div>
 
       {/* No link to the field log: the link's reader has no account to follow it with. */}
-      {newerReforecast && <NewerReforecastNotice scenarioId={null} reforecast={newerReforecast} shownRunAt={run?.createdAt ?? null} />}
+      {leadingReforecast && <NewerReforecastNotice scenarioId={null} reforecast={leadingReforecast} shownRunAt={run?.createdAt ?? null} />}
       {run ? (
         <>
           <p className="text-sm text-muted">
-            <VerificationBadge verification={run.verification} /> {newerReforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
+            <VerificationBadge verification={run.verification} /> {leadingReforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
             {run.createdByName ? ` by ${run.createdByName}` : ""}
             {stale ? ` — computed from plan version ${run.scenarioVersion}; the plan has changed since.` : "."}
           </p>
@@ -44,7 +45,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
             summary={run.results as unknown as RunSummary}
             definition={scenario.definition}
             run={resultsRunOf(run)}
-            heading={newerReforecast ? "Plan run" : undefined}
+            heading={leadingReforecast ? "Plan run" : undefined}
           />
         </>
       ) : (
