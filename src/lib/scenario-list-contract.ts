@@ -7,20 +7,10 @@
  */
 import type { RunVerification } from "./run-contract";
 import type { RunHeadline } from "./run-record";
+import type { ScenarioRecord } from "./scenario-contract";
 
-export interface ScenarioListRow {
-  id: string;
-  projectId: string;
-  name: string;
-  description: string;
-  version: number;
-  changeNote: string;
-  createdAt: string;
-  updatedAt: string;
-  ownerId: string;
-  ownerName: string;
-  updatedById: string;
-  updatedByName: string;
+/** A scenario's own columns as one scenario's answer has them (without the plan itself), then its runs. */
+export interface ScenarioListRow extends Omit<ScenarioRecord, "definition"> {
   /** The latest forecast (a plan run, not a re-forecast): all null when the scenario was never run. */
   runId: string | null;
   runVersion: number | null;
