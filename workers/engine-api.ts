@@ -71,7 +71,10 @@ export function createEngineApi(now: () => number = () => Date.now()): EngineApi
       // Each new definition: another plan may take paths through the engine the last one did not.
       if (fresh) {
         const t0 = now();
-        for (let k = 0; k < WARM_UP_ITERATIONS && now() - t0 < WARM_UP_MS; k += WARM_UP_STEP) runIterations(c, "warm-up", k, k + WARM_UP_STEP);
+        const parts: PartialRun[] = [];
+        for (let k = 0; k < WARM_UP_ITERATIONS && now() - t0 < WARM_UP_MS; k += WARM_UP_STEP) parts.push(runIterations(c, "warm-up", k, k + WARM_UP_STEP));
+        // The summary's code too: any worker may be the one that summarises the run.
+        summarizeRun(c, mergePartials(parts));
       }
       return compileMs;
     },
