@@ -35,7 +35,7 @@ export interface EngineApi {
 
 const PROGRESS_EVERY_MS = 150;
 /**
- * `prepare` also runs the engine on throwaway iterations, in steps, for at most WARM_UP_MS: the first iterations of
+ * `prepare` also runs the engine on throwaway iterations, in steps, for at most WARM_UP_MS (and summarises them): the first iterations of
  * a fresh worker run before the JavaScript engine has optimised the hot loops, and two fresh workers on two cores
  * pay most, each optimising while the other computes. Measured on the development machine, December 2026: in
  * Node 20, 5,000 iterations in each of two processes at once took 1.18–1.31 s cold and 0.80–0.89 s after 100–1,000
