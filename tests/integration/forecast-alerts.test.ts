@@ -89,7 +89,7 @@ describe("forecast e-mails", () => {
 
     const mail = await mailTo(viewer.email);
     expect(mail.map((m) => m.subject)).toEqual([before.p80, first.p80, second.p80].map((p80) => expect.stringMatching(new RegExp(`^Forecast for Hardening test \\w+: P80 finish ${formatIsoDate(p80)}$`))));
-    expect(mail[0].text_body).toMatch(/^"Hardening test \w+" is now run by another plan of record, "Forecast e-mails plan"\. Its newest forecast:/);
+    expect(mail[0].text_body).toMatch(/^"Hardening test \w+" is now run by another plan of record, "Forecast e-mails plan"\. Its forecast:/);
     expect(mail[1].text_body).toMatch(/^A new forecast of the plan of record of "Hardening test \w+":/);
     expect(mail[1].text_body).toContain(`Forecast e-mails plan: P80 finish ${formatIsoDate(first.p80)} (P50 `);
     expect(mail[1].text_body).toContain(`/scenarios/${planId}`);

@@ -28,7 +28,7 @@ export function forecastAlertMail(v: {
   const text = planForecastText(v.plan);
   if (!text || !v.plan.planName) return null;
   const paragraphs = [
-    v.planChanged ? `"${v.projectName}" is now run by another plan of record, "${v.plan.planName}". Its newest forecast:` : `A new forecast of the plan of record of "${v.projectName}":`,
+    v.planChanged ? `"${v.projectName}" is now run by another plan of record, "${v.plan.planName}". Its forecast:` : `A new forecast of the plan of record of "${v.projectName}":`,
     `${v.plan.planName}: P80 finish ${text.p80}${text.rest}`,
     text.when,
     ...(v.progress ? [v.progress] : []),
