@@ -52,7 +52,7 @@ function Section({ title, id, children, description }: { title: string; id: stri
   );
 }
 
-/** `heading`: "Forecast", or "Plan run" where a newer re-forecast from the field log is the forecast (said above it). */
+/** `heading`: "Forecast", or "Plan run" where a re-forecast from the field log is the forecast (said above it). */
 export function ResultsView({ summary, definition: given, run, document = false, heading = "Forecast" }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean; heading?: string }) {
   // A page refresh brings the same plan as a new object: keep the one already parsed and drawn.
   const definition = useJsonStable(given);

@@ -8,7 +8,7 @@ import { InputsSummary } from "./inputs-summary";
 import { orNotFound } from "@/lib/server/page-access";
 import { resultsRunOf } from "@/lib/run-record";
 import { VerificationBadge } from "@/components/results/verification-badge";
-import { NewerReforecastNotice } from "@/components/results/newer-reforecast-notice";
+import { ReforecastNotice } from "@/components/results/reforecast-notice";
 
 // A share link is a bearer secret: keep it out of search engines and out of Referer headers.
 export const metadata: Metadata = { title: "Shared forecast", robots: { index: false, follow: false }, referrer: "no-referrer" };
@@ -16,10 +16,8 @@ export const metadata: Metadata = { title: "Shared forecast", robots: { index: f
 export default async function SharedPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const shared = await orNotFound(loadSharedScenario(token));
-  const { link, project, scenario, run } = shared;
+  const { link, project, scenario, run, reforecast } = shared;
   const stale = !!run && run.stale;
-  // The newest re-forecast is the forecast whenever there is one, however recent the plan run shown (runs.ts `forecastOrder`).
-  const leadingReforecast = shared.reforecast;
   return (
     <SharedPageFrame expiresAt={link.expiresAt} project={project}>
       <div>
@@ -32,12 +30,13 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
         </p>
       </div>
 
-      {/* No link to the field log: the link's reader has no account to follow it with. */}
-      {leadingReforecast && <NewerReforecastNotice scenarioId={null} reforecast={leadingReforecast} shownRunAt={run?.createdAt ?? null} />}
+      {/* The newest re-forecast is the forecast whenever there is one (runs.ts `forecastOrder`); no link to the field
+          log: the link's reader has no account to follow it with. */}
+      {reforecast && <ReforecastNotice scenarioId={null} reforecast={reforecast} shownRunAt={run?.createdAt ?? null} />}
       {run ? (
         <>
           <p className="text-sm text-muted">
-            <VerificationBadge verification={run.verification} /> {leadingReforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
+            <VerificationBadge verification={run.verification} /> {reforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, {formatDateTime(run.createdAt)}
             {run.createdByName ? ` by ${run.createdByName}` : ""}
             {stale ? ` — computed from plan version ${run.scenarioVersion}; the plan has changed since.` : "."}
           </p>
@@ -45,7 +44,7 @@ export default async function SharedPage({ params }: { params: Promise<{ token: 
             summary={run.results as unknown as RunSummary}
             definition={scenario.definition}
             run={resultsRunOf(run)}
-            heading={leadingReforecast ? "Plan run" : undefined}
+            heading={reforecast ? "Plan run" : undefined}
           />
         </>
       ) : (

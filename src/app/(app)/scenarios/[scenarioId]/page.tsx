@@ -15,7 +15,7 @@ import { resultsRunOf } from "@/lib/run-record";
 import { parseScenario } from "@sim/validate";
 import { weatherFeasibility } from "@sim/feasibility";
 import { getNewestReforecastHeadline } from "@db/queries/progress";
-import { NewerReforecastNotice } from "@/components/results/newer-reforecast-notice";
+import { ReforecastNotice } from "@/components/results/reforecast-notice";
 
 export const metadata: Metadata = { title: "Outlook" };
 
@@ -30,16 +30,14 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
   const pending = unverified?.verification === "pending" ? unverified : null;
   const run = pending ?? forecast;
   const stale = !!run && run.stale;
-  // A re-forecast newer than the run shown is the scenario's current forecast: say so above the plan's charts.
-  // The newest re-forecast is the forecast whenever there is one, however recent the plan run shown (runs.ts `forecastOrder`).
-  const leadingReforecast = reforecast;
   const parsed = parseScenario(scenario.definition);
   // A plan the weather never lets finish is said in words here, before anyone starts a run.
   const blockers = parsed.ok ? weatherFeasibility(parsed.scenario).map((p) => p.message) : [];
   return (
     <div className="space-y-5">
       <RunPanel scenarioId={scenario.id} version={scenario.version} definition={scenario.definition} canRun={can(role, "runScenario", archived)} blockers={blockers} />
-      {leadingReforecast && <NewerReforecastNotice scenarioId={scenario.id} reforecast={leadingReforecast} shownRunAt={run?.createdAt ?? null} />}
+      {/* The newest re-forecast is the forecast whenever there is one, however recent the plan run shown (runs.ts `forecastOrder`). */}
+      {reforecast && <ReforecastNotice scenarioId={scenario.id} reforecast={reforecast} shownRunAt={run?.createdAt ?? null} />}
       {unverified?.verification === "rejected" && (
         <p className="rounded-md border border-bad/30 bg-bad/10 px-4 py-2 text-sm" role="alert" data-testid="rejected-run">
           The run of {formatDateTime(unverified.createdAt)} ({unverified.iterations.toLocaleString("en-US")} iterations, seed “{unverified.seed}”) did not match the server’s
@@ -50,7 +48,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
         scenarioId={scenario.id}
         scenarioVersion={scenario.version}
         definition={scenario.definition}
-        shownHeading={leadingReforecast ? "Plan run" : undefined}
+        shownHeading={reforecast ? "Plan run" : undefined}
         shown={run ? { key: planComputationKey(run), summary: run.results as unknown as RunSummary, run: resultsRunOf(run) } : null}
         header={
           run && (
@@ -91,7 +89,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
                 </a>
               </nav>
               <p className="text-sm text-muted">
-                <VerificationBadge verification={run.verification} /> {pending ? "Newest run" : leadingReforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”,{" "}
+                <VerificationBadge verification={run.verification} /> {pending ? "Newest run" : reforecast ? "Plan run" : "Forecast"}: {run.iterations.toLocaleString("en-US")} iterations, seed “{run.seed}”,{" "}
                 {formatDateTime(run.createdAt)}
                 {run.createdByName ? ` by ${run.createdByName}` : ""}.
               </p>

@@ -18,7 +18,7 @@ import { getNewestReforecastHeadline, listProgress } from "@db/queries/progress"
 import { ProgressToDate } from "@/components/progress-to-date";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { againstPlanFor } from "@/lib/against-plan";
-import { NewerReforecastNotice } from "@/components/results/newer-reforecast-notice";
+import { ReforecastNotice } from "@/components/results/reforecast-notice";
 
 export const metadata: Metadata = { title: "Owner brief" };
 
@@ -40,15 +40,13 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
     getNewestReforecastHeadline({ scenarioId }),
     listProgress({ scenarioId }),
   ]);
-  // A job under way: the brief leads with the newest re-forecast when it is newer than the plan run it shows.
-  // The newest re-forecast is the forecast whenever there is one, however recent the plan run shown (runs.ts `forecastOrder`).
-  const leadingReforecast = reforecast;
   const d = validateDefinition(scenario.definition);
   const s = run?.results as unknown as RunSummary | undefined;
   const progressRows = progressToDate(d, entries);
-  // The answer tiles are the forecast the project stands on: the re-forecast when the field log has moved the plan
-  // run on (an executive quotes the big figures, not the notice above them), else the plan run's own.
-  const reforecastHead = leadingReforecast && (leadingReforecast.summary as Partial<RunHeadline>).finish ? (leadingReforecast.summary as unknown as RunHeadline) : null;
+  // The answer tiles are the forecast the project stands on: the newest re-forecast whenever there is one, however
+  // recent the plan run (runs.ts `forecastOrder`) — an executive quotes the big figures, not the notice above them —
+  // else the plan run's own.
+  const reforecastHead = reforecast && (reforecast.summary as Partial<RunHeadline>).finish ? (reforecast.summary as unknown as RunHeadline) : null;
   const against = run && againstPlanFor({ rows: progressRows, run: { trace: s?.representative.trace, stale: run.stale, createdAt: run.createdAt }, plan: d, toDate: lastWorkDate(entries), formatDate: formatIsoDate, formatDateTime });
   return (
     <article className="brief space-y-6" data-testid="owner-brief">
@@ -64,7 +62,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
         </p>
       </div>
       {/* Its "below is the plan as run" is said before the plan run itself, since the answer tiles between are the re-forecast's. */}
-      {leadingReforecast && <NewerReforecastNotice scenarioId={scenario.id} reforecast={leadingReforecast} shownRunAt={reforecastHead ? null : (run?.createdAt ?? null)} document />}
+      {reforecast && <ReforecastNotice scenarioId={scenario.id} reforecast={reforecast} shownRunAt={reforecastHead ? null : (run?.createdAt ?? null)} document />}
       {entries.length > 0 && (
         <section aria-labelledby="to-date-heading" className="card break-inside-avoid" data-testid="brief-progress">
           <h3 id="to-date-heading">Progress to date</h3>
@@ -76,9 +74,9 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
         <p className="card">This scenario has not been run yet: there is no forecast to brief.</p>
       ) : (
         <>
-          {reforecastHead && leadingReforecast ? (
+          {reforecastHead && reforecast ? (
             <AnswerTiles
-              heading={`Finish dates re-forecast from the field log as of ${leadingReforecast.dataDate ? formatIsoDate(leadingReforecast.dataDate) : "its data date"} (${reforecastHead.iterations.toLocaleString("en-US")} iterations, run ${formatDateTime(leadingReforecast.createdAt)})`}
+              heading={`Finish dates re-forecast from the field log as of ${reforecast.dataDate ? formatIsoDate(reforecast.dataDate) : "its data date"} (${reforecastHead.iterations.toLocaleString("en-US")} iterations, run ${formatDateTime(reforecast.createdAt)})`}
               finish={reforecastHead.finish}
               target={reforecastHead.targetDate && reforecastHead.targetProbability !== null ? { date: reforecastHead.targetDate, probability: reforecastHead.targetProbability } : null}
             />
@@ -98,7 +96,7 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
               {iterationsStatement(s).warning}
             </p>
           )}
-          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run)} document heading={leadingReforecast ? "Plan run" : undefined} />
+          <ResultsView summary={s} definition={scenario.definition} run={resultsRunOf(run)} document heading={reforecast ? "Plan run" : undefined} />
           <BriefTraffic plan={d} summary={s} seed={run.seed} iterations={run.iterations} />
         </>
       )}

@@ -18,7 +18,7 @@ export interface ReforecastHeadline {
  * longer says when the job will finish. Said above the charts, so nobody quotes the plan's P80 when the project list
  * (the plan of record's headline) already quotes the re-forecast's. `document`: the printed brief (no link); `scenarioId` null: a share link's page (no link either).
  */
-export function NewerReforecastNotice(props: { scenarioId: string | null; reforecast: ReforecastHeadline; shownRunAt: Date | string | null; document?: boolean }) {
+export function ReforecastNotice(props: { scenarioId: string | null; reforecast: ReforecastHeadline; shownRunAt: Date | string | null; document?: boolean }) {
   const { scenarioId, reforecast, shownRunAt, document = false } = props;
   // The project list's words for a forecast (without "how far it moved", which the drift chart says).
   const text = planForecastText({ planScenarioId: scenarioId, planName: null, planRunSummary: reforecast.summary, planRunAt: reforecast.createdAt, planRunDataDate: reforecast.dataDate, planRunStale: false });
