@@ -3,6 +3,7 @@ import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { scenarios, simulationRuns } from "../schema";
 import { isForecast } from "./runs";
+import { reforecastsOf } from "./progress";
 import type { CompareFigures } from "../../sim/run-summary-schema";
 import { staleSql } from "./stale";
 
@@ -19,7 +20,8 @@ export type CompareSlice = Omit<CompareFigures, NullableFigure | "delay" | "cost
 type NullableFigure = "unfinishedIterations" | "cdf" | "target";
 
 /**
- * The scenarios `ids` of one project, each with its latest run's compare slice (null when never run).
+ * The scenarios `ids` of one project, each with its latest plan run's compare slice (null when never run) and the
+ * headline of its newest re-forecast from the field log (every field null when it has none).
  * Ids of other projects are simply not returned; the caller decides what a missing id means.
  */
 export async function listCompareScenarios({ projectId, ids }: { projectId: string; ids: string[] }) {
@@ -50,6 +52,24 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
     .where(and(inArray(simulationRuns.scenarioId, ids), isNull(simulationRuns.dataDate), isForecast))
     .orderBy(simulationRuns.scenarioId, desc(simulationRuns.createdAt))
     .as("latest_run");
+  // The newest re-forecast from the field log: on a job under way the plan runs compared here start from the plan's
+  // start and know nothing of the work done, so the page says beside them what the field log has made of the plan.
+  const summary = simulationRuns.summary;
+  const reforecast = getDb()
+    .select({
+      dataDate: sql<string | null>`${simulationRuns.dataDate}`.as("reforecast_data_date"),
+      createdAt: sql<Date | null>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("reforecast_at"),
+      p50: sql<string | null>`${summary} -> 'finish' ->> 'p50'`.as("reforecast_p50"),
+      p80: sql<string | null>`${summary} -> 'finish' ->> 'p80'`.as("reforecast_p80"),
+      targetDate: sql<string | null>`${summary} ->> 'targetDate'`.as("reforecast_target_date"),
+      targetProbability: sql<number | null>`(${summary} ->> 'targetProbability')::float8`.as("reforecast_target_probability"),
+      stale: sql<boolean | null>`${staleSql(simulationRuns.scenarioVersion, scenarios.version)}`.as("reforecast_stale"),
+    })
+    .from(simulationRuns)
+    .where(reforecastsOf(scenarios.id))
+    .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))
+    .limit(1)
+    .as("newest_reforecast");
   return getDb()
     .select({
       id: scenarios.id,
@@ -62,8 +82,16 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       runVerification: latest.runVerification,
       runStale: sql<boolean | null>`${staleSql(latest.runVersion, scenarios.version)}`,
       slice: latest.slice,
+      reforecastDataDate: reforecast.dataDate,
+      reforecastAt: reforecast.createdAt,
+      reforecastP50: reforecast.p50,
+      reforecastP80: reforecast.p80,
+      reforecastTargetDate: reforecast.targetDate,
+      reforecastTargetProbability: reforecast.targetProbability,
+      reforecastStale: reforecast.stale,
     })
     .from(scenarios)
     .leftJoin(latest, eq(latest.scenarioId, scenarios.id))
+    .leftJoinLateral(reforecast, sql`true`)
     .where(and(eq(scenarios.projectId, projectId), inArray(scenarios.id, ids)));
 }

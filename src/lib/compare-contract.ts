@@ -1,8 +1,8 @@
 /**
  * What the compare API (`GET /api/projects/:id/compare?ids=…`) takes and returns — one contract for the route, the
  * compare page and its table. `parseCompareIds` accepts 1–4 distinct ids separated by commas and names the field
- * `ids` in every problem; each scenario comes back with its latest forecast's compare figures, which are the run
- * summary's own (sim `CompareFigures`), or `run: null`.
+ * `ids` in every problem; each scenario comes back with its latest plan run's compare figures, which are the run
+ * summary's own (sim `CompareFigures`), or `run: null`, and its newest re-forecast's headline, or `reforecast: null`.
  */
 import type { CompareFigures } from "@sim/run-summary-schema";
 import type { RunVerification } from "./run-contract";
@@ -32,11 +32,29 @@ export type CompareRun = CompareFigures & {
   closureHoursTotal: number;
 };
 
+/**
+ * A scenario's newest re-forecast from its field log, in brief. On a job under way compare's figures are plan runs
+ * from the plan's start, which know nothing of the work done; this is what the field log has made of the plan.
+ */
+export interface CompareReforecast {
+  /** The data date: the work recorded up to this day (yyyy-mm-dd). */
+  dataDate: string;
+  createdAt: string;
+  p50: string;
+  p80: string;
+  targetDate: string | null;
+  targetProbability: number | null;
+  /** The plan changed after it (the data layer's stale rule). */
+  stale: boolean;
+}
+
 export interface CompareScenario {
   id: string;
   name: string;
   version: number;
   run: CompareRun | null;
+  /** Null when the scenario has never been re-forecast from a field log. */
+  reforecast: CompareReforecast | null;
 }
 
 /** In the order the ids were asked for. */

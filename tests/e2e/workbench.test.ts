@@ -7,6 +7,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { APP_URL, call, kestrelProject, mainDemoVariant, signInAs, type DemoRole } from "../helpers/app";
 import { browserPerFile, screenshot, seriousA11yViolations } from "../helpers/browser";
+import { reforecastText } from "@/components/results/compare-logic";
 import { signedIn as signedInAs } from "./pages/sign-in";
 import { ScenarioPage } from "./pages/scenario";
 
@@ -167,13 +168,25 @@ describe("workbench", () => {
     const { context, page } = await signedIn("viewer");
     const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: await signInAs("viewer") });
     // The seeded demo scenarios (other tests add their own, under other names).
-    const seeded = list.body.scenarios.filter((s: { name: string; runId: string | null }) => s.name.startsWith("Kestrel Bay Causeway") && s.runId);
-    const ids = seeded.slice(0, 2).map((s: { id: string }) => s.id);
+    type Listed = { id: string; name: string; runId: string | null; reforecastP80: string | null };
+    const all = (list.body.scenarios as Listed[]).filter((s) => s.name.startsWith("Kestrel Bay Causeway") && s.runId);
+    // The plan of record (the job under way, re-forecast from its field log) and one plan never re-forecast.
+    const seeded = [all.find((s) => s.reforecastP80)!, all.find((s) => !s.reforecastP80)!];
+    const ids = seeded.map((s) => s.id);
     await page.goto(`${APP_URL}/projects/${projectId}/compare?ids=${ids.join(",")}`);
     await page.getByTestId("compare-curves").waitFor({ timeout: 20_000 });
     const table = page.getByTestId("compare-table");
     await table.waitFor();
-    for (const s of seeded.slice(0, 2)) expect(await table.textContent()).toContain(s.name);
+    for (const s of seeded) expect(await table.textContent()).toContain(s.name);
+    // The plan runs compared start from the plan's start; what the field log has made of the plan is said beside them.
+    const answer = (await call(`/api/projects/${projectId}/compare?ids=${ids.join(",")}`, { cookie: await signInAs("viewer") })).body;
+    const notice = page.getByTestId("compare-reforecast-notice");
+    expect(await notice.textContent()).toContain(`${seeded[0].name} has been re-forecast from its field log: ${reforecastText(answer.scenarios[0].reforecast)}.`);
+    expect(await notice.textContent()).not.toContain(`${seeded[1].name} has been re-forecast`);
+    const reforecastRow = table.locator('[data-metric="reforecast"]');
+    expect(await reforecastRow.locator("td").allTextContents()).toEqual([reforecastText(answer.scenarios[0].reforecast), "none"]);
+    // A viewer cannot start a plan search, so the notice offers none.
+    expect(await notice.getByRole("link", { name: /plan search/ }).count()).toBe(0);
     // Delay and cost sit beside the dates, with a figure for every seeded scenario.
     const delayRow = table.locator('[data-metric="delayP50"]');
     await delayRow.waitFor();

@@ -15,7 +15,7 @@ function run(over: Partial<CompareRun> = {}): CompareRun {
 }
 /** P50 and P80 as the run summary has them (its mean is not compared). */
 const q = (p50: number, p80: number) => ({ p50, p80, mean: null });
-const sc = (id: string, r: CompareRun | null): CompareScenario => ({ id, name: id, version: 1, run: r });
+const sc = (id: string, r: CompareRun | null): CompareScenario => ({ id, name: id, version: 1, run: r, reforecast: null });
 
 describe("delay and cost rows", () => {
   it("show P50/P80 delay, road-user and contract cost with signed differences", () => {

@@ -1,7 +1,7 @@
 // Compare: the ids parameter, and differences from the first scenario in days, points, hours and shifts.
 import { describe, expect, it } from "vitest";
-import { compareRows, dayDiff, signed } from "@/components/results/compare-logic";
-import { parseCompareIds, type CompareRun, type CompareScenario } from "@/lib/compare-contract";
+import { compareRows, dayDiff, reforecastNotice, reforecastText, signed } from "@/components/results/compare-logic";
+import { parseCompareIds, type CompareReforecast, type CompareRun, type CompareScenario } from "@/lib/compare-contract";
 import { dateTicks } from "@/components/results/date-axis";
 import { civilFromDays, daysFromCivil } from "@sim/dates";
 
@@ -24,7 +24,7 @@ function run(over: Partial<CompareRun> = {}): CompareRun {
     ...over,
   };
 }
-const sc = (id: string, r: CompareRun | null): CompareScenario => ({ id, name: id, version: 1, run: r });
+const sc = (id: string, r: CompareRun | null): CompareScenario => ({ id, name: id, version: 1, run: r, reforecast: null });
 
 describe("parseCompareIds", () => {
   it("accepts 1–4 distinct ids, trimming blanks", () => {
@@ -100,5 +100,33 @@ describe("dateTicks", () => {
       expect(z).toBeLessThanOrEqual(hi);
     }
     expect(t.label(daysFromCivil(2027, 10, 1))).toBe("Oct 2027");
+  });
+});
+
+describe("a re-forecast beside the plan runs compared", () => {
+  const reforecast = (over: Partial<CompareReforecast> = {}): CompareReforecast => ({
+    dataDate: "2026-10-31",
+    createdAt: "2026-11-01T11:00:00Z",
+    p50: "2027-08-15",
+    p80: "2027-08-23",
+    targetDate: "2027-07-02",
+    targetProbability: 0,
+    stale: false,
+    ...over,
+  });
+
+  it("says its P80, P50, chance of the target and data date in the project list's words", () => {
+    expect(reforecastText(reforecast())).toBe("P80 23 Aug 2027 (P50 15 Aug 2027), 0\u00a0% chance of finishing by the 2 Jul 2027 target, from the work recorded up to 31 Oct 2026");
+    expect(reforecastText(reforecast({ targetDate: null, targetProbability: null, stale: true }))).toBe(
+      "P80 23 Aug 2027 (P50 15 Aug 2027), from the work recorded up to 31 Oct 2026 (the plan has changed since, so it is stale until the next one)",
+    );
+    expect(reforecastText(reforecast({ p80: "unfinished" }))).toMatch(/^P80 not reached within the six-year horizon \(P50 15 Aug 2027\)/);
+  });
+
+  it("is said above the figures only when a chosen scenario has one, naming each that has", () => {
+    expect(reforecastNotice([sc("a", run()), sc("b", run())])).toBeNull();
+    const notice = reforecastNotice([sc("plain", run()), { ...sc("Under way", run()), reforecast: reforecast() }]);
+    expect(notice?.lead).toMatch(/plan runs from each plan's start date, which know nothing of the work done/);
+    expect(notice?.lines).toEqual([`Under way has been re-forecast from its field log: ${reforecastText(reforecast())}.`]);
   });
 });

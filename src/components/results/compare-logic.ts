@@ -4,9 +4,10 @@
  * (delay, cost) is one more entry in `COMPARE_METRICS`. Differences are against the first scenario, signed, with
  * units ("+12 d").
  */
-import type { CompareRun, CompareScenario } from "@/lib/compare-contract";
+import type { CompareReforecast, CompareRun, CompareScenario } from "@/lib/compare-contract";
 import { formatIsoDate, formatPercent } from "@/lib/format";
 import { isoToDay } from "./date-axis";
+import { quantileText } from "./summary-text";
 
 export interface CompareMetric {
   id: string;
@@ -124,4 +125,28 @@ export function compareRows(scenarios: CompareScenario[], metrics: CompareMetric
       return { text: m.text(s.run), diff: i > 0 && base ? m.diff(base, s.run) : null };
     }),
   }));
+}
+
+/**
+ * A re-forecast in the project list's words: "P80 23 Aug 2027 (P50 15 Aug 2027), 0 % chance of finishing by the
+ * 2 Jul 2027 target, from the work recorded up to 31 Oct 2026" — and when the plan changed since, that it is stale.
+ */
+export function reforecastText(f: CompareReforecast): string {
+  const target = f.targetDate && f.targetProbability !== null ? `, ${formatPercent(f.targetProbability).replace(" ", "\u00a0")} chance of finishing by the ${formatIsoDate(f.targetDate)} target` : "";
+  const stale = f.stale ? " (the plan has changed since, so it is stale until the next one)" : "";
+  return `P80 ${quantileText(f.p80)} (P50 ${quantileText(f.p50)})${target}, from the work recorded up to ${formatIsoDate(f.dataDate)}${stale}`;
+}
+
+/**
+ * What the page says above the figures when a chosen scenario has been re-forecast from its field log: the figures
+ * compared are plan runs from each plan's start, which know nothing of the work done, so an executive comparing the
+ * plan of record with a variant must not read the plan run's P80 as the job's finish. Null when none has one.
+ */
+export function reforecastNotice(scenarios: CompareScenario[]): { lead: string; lines: string[] } | null {
+  const with_ = scenarios.filter((s): s is CompareScenario & { reforecast: CompareReforecast } => s.reforecast !== null);
+  if (with_.length === 0) return null;
+  return {
+    lead: "The figures below are plan runs from each plan's start date, which know nothing of the work done.",
+    lines: with_.map((s) => `${s.name} has been re-forecast from its field log: ${reforecastText(s.reforecast)}.`),
+  };
 }

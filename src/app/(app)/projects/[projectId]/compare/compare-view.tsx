@@ -2,7 +2,8 @@
 /**
  * The compare page body: pick 2–4 scenarios (kept in the URL as ?ids=, first = baseline), their confidence
  * curves on one date axis, and the table of figures with differences from the first. Data: the project's
- * scenario list (for the checkboxes) and /api/projects/<id>/compare (latest run of each chosen scenario).
+ * scenario list (for the checkboxes) and /api/projects/<id>/compare (latest plan run of each chosen scenario, and its
+ * newest re-forecast from the field log, which the page says beside the plan runs).
  */
 import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
@@ -10,7 +11,7 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { formatIsoDate } from "@/lib/format";
 import { cdfPoints, ConfidenceChart, LineSwatch, seriesStyle, type Curve } from "@/components/results";
-import { compareRows } from "@/components/results/compare-logic";
+import { compareRows, reforecastNotice, reforecastText } from "@/components/results/compare-logic";
 import { MAX_COMPARE, type CompareAnswer, type CompareScenario } from "@/lib/compare-contract";
 import type { ScenarioListAnswer } from "@/lib/scenario-list-contract";
 import { quantileText } from "@/components/results/summary-text";
@@ -104,6 +105,7 @@ export function CompareView({ projectId, canEdit, initialIds }: { projectId: str
                       <span className="block font-medium">{s.name}</span>
                       <span className="block text-xs text-muted">
                         {s.runSummary ? <>P80 {quantileText(s.runSummary.finish.p80)}</> : "not run yet"}
+                        {s.reforecastP80 && <> · re-forecast from the field log: P80 {quantileText(s.reforecastP80)}</>}
                         {s.runId && s.runStale && <span className="badge ml-2 bg-warn-bg text-warn">Stale</span>}
                       </span>
                     </span>
@@ -168,12 +170,35 @@ function CompareResults({
     if (points.length) curves.push({ id: s.id, name: s.name, points, ...seriesStyle(i) });
   });
   const rows = compareRows(scenarios);
+  const notice = reforecastNotice(scenarios);
+  const underWay = scenarios.find((s) => s.reforecast);
   const aria =
     "Confidence curves of the chosen scenarios on one date axis: " +
     scenarios.map((s) => (s.run ? `${s.name}, 80 % finish by ${quantileText(s.run.finish.p80)}` : `${s.name}, not run yet`)).join("; ") +
     ". The table below gives the figures.";
   return (
     <div className="space-y-5" aria-busy={busy || undefined}>
+      {notice && (
+        <div className="rounded-md border border-brand-700/30 bg-brand-50 px-4 py-3 text-sm" role="status" data-testid="compare-reforecast-notice">
+          <p>
+            <strong>{notice.lead}</strong>
+          </p>
+          {notice.lines.map((line) => (
+            <p key={line} className="mt-1">
+              {line}
+            </p>
+          ))}
+          {canEdit && underWay && (
+            <p className="mt-1">
+              To weigh ways of finishing the job from here, run a{" "}
+              <Link className="font-medium text-brand-700 underline" href={`/scenarios/${underWay.id}/search`}>
+                plan search from the field log
+              </Link>
+              : each plan it tries starts from the work recorded.
+            </p>
+          )}
+        </div>
+      )}
       <section className="card" aria-labelledby="curves-heading">
         <h2 id="curves-heading">Confidence curves</h2>
         <p className="mt-0.5 text-sm text-muted">Share of iterations finished by each date, one line per scenario.</p>
@@ -204,7 +229,7 @@ function CompareResults({
           Figures
         </h2>
         <table className="mt-3 w-full min-w-[640px] border-collapse" data-testid="compare-table">
-          <caption className="sr-only">Latest-run figures of each scenario, with the difference from the first scenario.</caption>
+          <caption className="sr-only">Latest plan-run figures of each scenario, with the difference from the first scenario.</caption>
           <thead>
             <tr>
               <th scope="col" className="table-head w-48">
@@ -253,9 +278,21 @@ function CompareResults({
                 ))}
               </tr>
             ))}
+            {notice && (
+              <tr data-metric="reforecast">
+                <th scope="row" className="table-cell text-left font-medium">
+                  Re-forecast from the field log
+                </th>
+                {scenarios.map((s) => (
+                  <td key={s.id} className="table-cell text-sm">
+                    {s.reforecast ? reforecastText(s.reforecast) : <span className="text-muted">none</span>}
+                  </td>
+                ))}
+              </tr>
+            )}
             <tr>
               <th scope="row" className="table-cell text-left font-medium">
-                Latest run
+                Latest plan run
               </th>
               {scenarios.map((s) => (
                 <td key={s.id} className="table-cell text-xs text-muted">

@@ -28,7 +28,7 @@ export default async function ComparePage({
       <header>
         <h1>Compare scenarios</h1>
         <p className="mt-1 text-sm text-muted">
-          {project.structureName} · the latest run of each scenario, side by side. Differences are from the first scenario chosen.
+          {project.structureName} · the latest plan run of each scenario, side by side. Differences are from the first scenario chosen.
         </p>
       </header>
       <CompareView projectId={project.id} canEdit={can(role, "editScenario", archived)} initialIds={initialIds} />

@@ -8,7 +8,8 @@ import { listCompareScenarios } from "@db/queries/compare";
 const uuid = z.uuid();
 
 /**
- * GET ?ids=a,b,c → each scenario (in the order asked) with its latest run's compare figures, or `run: null`.
+ * GET ?ids=a,b,c → each scenario (in the order asked) with its latest plan run's compare figures, or `run: null`,
+ * and its newest re-forecast's headline, or `reforecast: null`.
  * 1–4 distinct ids (400 naming `ids` otherwise); every id must be a scenario of this project (404 otherwise,
  * without saying which exist elsewhere).
  */
@@ -48,6 +49,18 @@ export const GET = handler(async (req: Request, ctx: { params: Promise<{ project
               closureHoursTotal: s.laneClosedP50 ?? Object.values(s.totalByClosure ?? {}).reduce((a, b) => a + Number(b), 0),
               delay: s.delay ?? null,
               cost: s.cost ?? null,
+            }
+          : null,
+      reforecast:
+        r.reforecastDataDate && r.reforecastAt && r.reforecastP50 && r.reforecastP80
+          ? {
+              dataDate: r.reforecastDataDate,
+              createdAt: r.reforecastAt.toISOString(),
+              p50: r.reforecastP50,
+              p80: r.reforecastP80,
+              targetDate: r.reforecastTargetDate,
+              targetProbability: r.reforecastTargetProbability,
+              stale: !!r.reforecastStale,
             }
           : null,
     };
