@@ -51,6 +51,10 @@ describe("the plan of record", () => {
     expect(await notice.textContent()).toMatch(new RegExp(`The field log has moved this forecast on\\..*P80 finish ${p80}.*Below is the plan as run on`));
     // The plan run's own card says what it is.
     await page.getByRole("heading", { name: "Plan run", level: 2 }).waitFor();
+    // Its holiday trade-off weighs the whole plan; the executive (who runs no plans) is told what weighs the rest.
+    expect(await page.getByTestId("tradeoff-note").textContent()).toBe(
+      "On a job under way this weighs the whole plan from its start date, holidays already past included. A plan search from the field log weighs it for the rest of the job.",
+    );
     expect(await seriousA11yViolations(page)).toEqual([]);
     // The owner brief of the plan leads with the same re-forecast, with nothing to click.
     const planUrl = page.url();

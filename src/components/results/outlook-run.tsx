@@ -36,6 +36,7 @@ export function OutlookRun({
   header,
   empty,
   shownHeading,
+  tradeoffNote,
 }: {
   scenarioId: string;
   scenarioVersion: number;
@@ -45,6 +46,8 @@ export function OutlookRun({
   empty: ReactNode;
   /** The heading of the server's run when it is not the forecast (ResultsView `heading`); a run just made here is. */
   shownHeading?: string;
+  /** ResultsView `tradeoffNote`. */
+  tradeoffNote?: ReactNode;
 }) {
   const local = useLocalRun(scenarioId);
   const { show, sameAsLocal } = chooseShownRun(local, shown?.key ?? null, scenarioVersion);
@@ -62,7 +65,7 @@ export function OutlookRun({
   return (
     <>
       <div className="space-y-5">{showLocal ? <LocalRunHeader local={local!} /> : header}</div>
-      <ResultsView summary={summary} definition={definition} run={run} heading={showLocal ? undefined : shownHeading} />
+      <ResultsView summary={summary} definition={definition} run={run} heading={showLocal ? undefined : shownHeading} tradeoffNote={tradeoffNote} />
     </>
   );
 }

@@ -6,7 +6,7 @@
  * `document`: the owner brief's layout — one column (charts as wide as the page), and nothing to click (no
  * sorting, no trade-off button), because it is printed.
  */
-import { memo, useEffect, useMemo } from "react";
+import { memo, useEffect, useMemo, type ReactNode } from "react";
 import { mark, RUN_MARKS } from "@workers/run-marks";
 import { parseScenario } from "@sim/validate";
 import { queueLimitOf } from "@sim/queue-limit";
@@ -53,7 +53,22 @@ function Section({ title, id, children, description }: { title: string; id: stri
 }
 
 /** `heading`: "Forecast", or "Plan run" where a re-forecast from the field log is the forecast (said above it). */
-export function ResultsView({ summary, definition: given, run, document = false, heading = "Forecast" }: { summary: RunSummary; definition: unknown; run: ResultsRun; document?: boolean; heading?: string }) {
+export function ResultsView({
+  summary,
+  definition: given,
+  run,
+  document = false,
+  heading = "Forecast",
+  tradeoffNote,
+}: {
+  summary: RunSummary;
+  definition: unknown;
+  run: ResultsRun;
+  document?: boolean;
+  heading?: string;
+  /** Said under the holiday trade-off: on a job under way, that it weighs the whole plan, and where to weigh the rest. */
+  tradeoffNote?: ReactNode;
+}) {
   // A page refresh brings the same plan as a new object: keep the one already parsed and drawn.
   const definition = useJsonStable(given);
   const plan = useMemo(() => {
@@ -168,6 +183,11 @@ export function ResultsView({ summary, definition: given, run, document = false,
 
       {plan && !document && (
         <Section title="Holiday trade-off" id={`${idp}-tradeoff`} description="Days gained by working through federal holidays against the extra delay to drivers, on the same seeds.">
+          {tradeoffNote && (
+            <p className="mb-3 text-sm" data-testid="tradeoff-note">
+              {tradeoffNote}
+            </p>
+          )}
           <TradeoffPanel definition={definition} seed={run.seed} iterations={run.iterations} />
         </Section>
       )}

@@ -1,3 +1,4 @@
+import Link from "next/link";
 import type { Metadata } from "next";
 import { RevisionChanges } from "@/components/plan-editor/revision-changes";
 import { requireScenario } from "@/lib/server/access";
@@ -49,6 +50,24 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
         scenarioVersion={scenario.version}
         definition={scenario.definition}
         shownHeading={reforecast ? "Plan run" : undefined}
+        tradeoffNote={
+          reforecast && (
+            <>
+              On a job under way this weighs the whole plan from its start date, holidays already past included.{" "}
+              {can(role, "runScenario", archived) ? (
+                <>
+                  For the rest of the job, vary the holiday policy in a{" "}
+                  <Link className="font-medium text-brand-700 underline" href={`/scenarios/${scenario.id}/search`}>
+                    plan search from the field log
+                  </Link>
+                  .
+                </>
+              ) : (
+                "A plan search from the field log weighs it for the rest of the job."
+              )}
+            </>
+          )
+        }
         shown={run ? { key: planComputationKey(run), summary: run.results as unknown as RunSummary, run: resultsRunOf(run) } : null}
         header={
           run && (
