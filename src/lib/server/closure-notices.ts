@@ -29,7 +29,8 @@ const PREVIEW_LINKS = { feedUrl: "(a new calendar link, created when you publish
 
 /**
  * What a publication of the newest forecast would send — the same text the preview shows and the outbox gets.
- * The newest forecast is the latest plan run or a later re-forecast from the field log (`getNewestForecast`): on a
+ * The forecast is the newest re-forecast from the field log once there is one, else the latest plan run
+ * (`getNewestForecast`, by the forecast rule of db/queries/runs.ts `forecastOrder`): on a
  * job under way the public hears the closures the field log has moved, not the plan's first guess. Refused, like
  * publishing, when there is no forecast or it is of an earlier version of the plan.
  */

@@ -59,7 +59,7 @@ export function ClosureNotices({ projectId, scenarioId, archived = false }: { pr
     <section className="card" aria-labelledby="notices-heading" data-testid="closure-notices">
       <h2 id="notices-heading">Closure notices</h2>
       <p className="mt-1 text-sm text-muted">
-        Publishing sends the planned lane closures of this scenario&apos;s newest forecast — its latest run, or a later re-forecast from the field log — to
+        Publishing sends the planned lane closures of this scenario&apos;s forecast — its newest re-forecast from the field log once it has one, else its latest run — to
         everyone on the list, with a calendar feed they can subscribe to and a travel advisory for drivers. Every feed and advisory published before
         follows the newest publication, so subscribers never need to subscribe again. Closures come from the forecast&apos;s representative iteration:
         planning estimates that move with weather and progress. Work-zone traffic control and public notice follow the project&apos;s own requirements.

@@ -17,7 +17,8 @@ export const GET = handler(async (req: Request, ctx: Ctx) => {
 });
 
 /**
- * Publishes the planned closures of the newest forecast (plan run or re-forecast, of the current version) and
+ * Publishes the planned closures of the forecast (the newest re-forecast once there is one, else the newest plan run;
+ * of the current version) and
  * notifies the project's subscribers. The body may name the previewed run (`{runId}`); no body publishes the newest
  * forecast as it is.
  */
