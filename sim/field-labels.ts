@@ -129,6 +129,7 @@ const LABELS: Record<string, string | [string, string]> = {
   closureWeeklyHour: "Weekly closure e-mail hour",
   deleted: "Deleted shifts in the export",
   part: "Part of the export",
+  of: "Run the calendar is of",
   workDate: "Work date",
   operationId: "Operation",
   crew: "Crew",

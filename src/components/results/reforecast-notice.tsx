@@ -36,9 +36,16 @@ export function ReforecastNotice(props: { scenarioId: string | null; reforecast:
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}
         {/* The printed brief has nothing to click; a share link's reader (no scenario id) has no field log to open. */}
         {!document && scenarioId && (
-          <Link className="font-medium text-brand-700 underline" href={`/scenarios/${scenarioId}/progress`}>
-            Open the field log and its forecasts
-          </Link>
+          <>
+            <Link className="font-medium text-brand-700 underline" href={`/scenarios/${scenarioId}/progress`}>
+              Open the field log and its forecasts
+            </Link>
+            {" · "}
+            {/* The closures still ahead: the Outlook's own calendar export is of the plan run drawn below it. */}
+            <a className="font-medium text-brand-700 underline" href={`/api/scenarios/${scenarioId}/exports/closures.ics?of=forecast`} download>
+              Its planned closures (calendar)
+            </a>
+          </>
         )}
       </p>
     </div>

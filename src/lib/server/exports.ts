@@ -1,7 +1,7 @@
 import "server-only";
 import type { RunSummary } from "@sim/index";
 import { getProject } from "@db/queries/projects";
-import { getLatestRun } from "@db/queries/runs";
+import { getLatestRun, getNewestForecast } from "@db/queries/runs";
 import type { ScenarioDetail } from "@db/queries/scenarios";
 import { plannedClosures } from "@/lib/exports/closures";
 import { closuresToIcs } from "@/lib/exports/ical";
@@ -21,13 +21,24 @@ export function closuresOfRun(summary: RunSummary) {
   return closures;
 }
 
-export async function closuresCalendar(scenario: ScenarioDetail): Promise<string> {
+/**
+ * Which run a scenario's closure calendar is of: `plan-run` — its latest plan run, the run the Outlook draws; `forecast`
+ * — its forecast by the forecast rule (db/queries/runs.ts `forecastOrder`: the newest re-forecast from the field log
+ * once there is one), whose closures on a job under way are the ones still ahead.
+ */
+export const CALENDAR_RUNS = ["plan-run", "forecast"] as const;
+export type CalendarRun = (typeof CALENDAR_RUNS)[number];
+
+export async function closuresCalendar(scenario: ScenarioDetail, of: CalendarRun = "plan-run"): Promise<string> {
   const definition = validateDefinition(scenario.definition);
-  const summary = await latestSummaryOf(scenario);
+  const run = of === "forecast" ? await getNewestForecast({ scenarioId: scenario.id }) : await getLatestRun({ scenarioId: scenario.id });
+  if (!run) throw new AppError("not_found", "This scenario has not been run yet; run it first.");
+  const summary = run.results as unknown as RunSummary;
   const project = await getProject({ id: scenario.projectId });
   return closuresToIcs({
     closures: closuresOfRun(summary),
-    startDate: definition.startDate,
+    // The closure hours count from the run's own start date: a plan whose start moved after the run keeps its dates.
+    startDate: summary.startDate,
     timeZone: definition.timeZone,
     structure: project?.structureName ?? definition.name,
     scenario: scenario.name,

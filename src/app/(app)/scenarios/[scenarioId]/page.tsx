@@ -104,7 +104,7 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
                   Time–distance trace (CSV)
                 </a>
                 <a className="btn-secondary" href={`/api/scenarios/${scenario.id}/exports/closures.ics`} download>
-                  Planned closures (calendar)
+                  {reforecast ? "Planned closures of the plan run (calendar)" : "Planned closures (calendar)"}
                 </a>
               </nav>
               <p className="text-sm text-muted">
