@@ -43,7 +43,7 @@ export function ReforecastNotice(props: { scenarioId: string | null; reforecast:
             {" · "}
             {/* The closures still ahead: the Outlook's own calendar export is of the plan run drawn below it. */}
             <a className="font-medium text-brand-700 underline" href={`/api/scenarios/${scenarioId}/exports/closures.ics?of=forecast`} download>
-              Its planned closures (calendar)
+              The re-forecast&apos;s planned closures (calendar)
             </a>
           </>
         )}
