@@ -71,6 +71,11 @@ export function publicationLagText(publishedAt: Date | string, changes: string |
   return `The lane closures the public sees (published ${formatDateTime(publishedAt)}) come from an earlier forecast, until someone publishes again from the plan's Share tab.${changes ? ` ${changes}` : ""}`;
 }
 
+/** "0 % chance of finishing by the 2 Jul 2027 target" (the percent kept with its sign), or "" without a target. */
+export function targetChanceText(targetDate: string | null, probability: number | null): string {
+  return targetDate && probability !== null ? `${formatPercent(probability).replace(" ", "\u00a0")} chance of finishing by the ${formatIsoDate(targetDate)} target` : "";
+}
+
 /**
  * The newest forecast of a plan of record as "P80 finish {p80}{rest}" plus a line saying which forecast and how old
  * (stale when the plan changed after it, and how many field-log changes it does not know); null when not run yet.
@@ -79,7 +84,8 @@ export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: s
   const h = plan.planRunSummary as RunHeadline | null;
   if (!h?.finish || !plan.planRunAt) return null;
   const move = p80MoveText(h.finish.p80, (plan.previousRunSummary as RunHeadline | null | undefined)?.finish?.p80);
-  const target = h.targetDate && h.targetProbability !== null ? `; ${formatPercent(h.targetProbability).replace(" ", "\u00a0")} chance of finishing by the ${formatIsoDate(h.targetDate)} target` : "";
+  const chance = targetChanceText(h.targetDate, h.targetProbability);
+  const target = chance ? `; ${chance}` : "";
   const source = forecastSourceText({ dataDate: plan.planRunDataDate, at: plan.planRunAt });
   return {
     p80: formatIsoDate(h.finish.p80),

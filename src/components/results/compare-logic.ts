@@ -8,6 +8,7 @@ import type { CompareReforecast, CompareRun, CompareScenario } from "@/lib/compa
 import { formatIsoDate, formatPercent } from "@/lib/format";
 import { isoToDay } from "./date-axis";
 import { quantileText } from "./summary-text";
+import { targetChanceText } from "@/lib/plan-of-record-text";
 
 export interface CompareMetric {
   id: string;
@@ -132,7 +133,8 @@ export function compareRows(scenarios: CompareScenario[], metrics: CompareMetric
  * 2 Jul 2027 target, from the work recorded up to 31 Oct 2026" — and when the plan changed since, that it is stale.
  */
 export function reforecastText(f: CompareReforecast): string {
-  const target = f.targetDate && f.targetProbability !== null ? `, ${formatPercent(f.targetProbability).replace(" ", "\u00a0")} chance of finishing by the ${formatIsoDate(f.targetDate)} target` : "";
+  const chance = targetChanceText(f.targetDate, f.targetProbability);
+  const target = chance ? `, ${chance}` : "";
   const stale = f.stale ? " (the plan has changed since, so it is stale until the next one)" : "";
   return `P80 ${quantileText(f.p80)} (P50 ${quantileText(f.p50)})${target}, from the work recorded up to ${formatIsoDate(f.dataDate)}${stale}`;
 }

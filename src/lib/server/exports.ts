@@ -8,10 +8,13 @@ import { closuresToIcs } from "@/lib/exports/ical";
 import { AppError } from "./errors";
 import { validateDefinition } from "./scenario-input";
 
-export async function latestSummaryOf(scenario: ScenarioDetail): Promise<RunSummary> {
-  const run = await getLatestRun({ scenarioId: scenario.id });
+function summaryOf(run: { results: unknown } | null): RunSummary {
   if (!run) throw new AppError("not_found", "This scenario has not been run yet; run it first.");
   return run.results as unknown as RunSummary;
+}
+
+export async function latestSummaryOf(scenario: ScenarioDetail): Promise<RunSummary> {
+  return summaryOf(await getLatestRun({ scenarioId: scenario.id }));
 }
 
 /** The run's closure timeline as closures, or 409 for a run stored before the engine kept one. */
@@ -31,9 +34,7 @@ export type CalendarRun = (typeof CALENDAR_RUNS)[number];
 
 export async function closuresCalendar(scenario: ScenarioDetail, of: CalendarRun = "plan-run"): Promise<string> {
   const definition = validateDefinition(scenario.definition);
-  const run = of === "forecast" ? await getNewestForecast({ scenarioId: scenario.id }) : await getLatestRun({ scenarioId: scenario.id });
-  if (!run) throw new AppError("not_found", "This scenario has not been run yet; run it first.");
-  const summary = run.results as unknown as RunSummary;
+  const summary = summaryOf(of === "forecast" ? await getNewestForecast({ scenarioId: scenario.id }) : await getLatestRun({ scenarioId: scenario.id }));
   const project = await getProject({ id: scenario.projectId });
   return closuresToIcs({
     closures: closuresOfRun(summary),
