@@ -35,7 +35,7 @@ export function ForecastAlertsToggle({ projectId, initial, email, archived }: { 
           <p id="forecast-alerts-hint" className="text-xs text-muted">
             {archived
               ? "The project is archived, so none are sent."
-              : `To ${email}, when the plan is run or re-forecast from the field log, or another plan is chosen: its P80 and P50 finish, how far it moved, the chance of meeting the target, how far the job has got and how it stands against the plan.`}
+              : `To ${email}, each time its forecast moves on (a new run of the plan until the field log has re-forecast it, then each new re-forecast) or another plan is chosen: its P80 and P50 finish, how far it moved, the chance of meeting the target, how far the job has got and how it stands against the plan.`}
           </p>
         </div>
       </div>

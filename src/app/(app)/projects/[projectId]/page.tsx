@@ -70,7 +70,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       </header>
       <section className="card" aria-labelledby="plan-of-record-heading" data-testid="plan-of-record">
         <h2 id="plan-of-record-heading">Plan of record</h2>
-        <p className="mt-1 text-sm text-muted">The scenario the project is run by: its newest forecast is what the project list shows and what the owner is told.</p>
+        <p className="mt-1 text-sm text-muted">The scenario the project is run by: its forecast — the newest re-forecast from the field log once there is one, else its newest run — is what the project list shows and what the owner is told.</p>
         <div className="mt-3">{plan && <PlanOfRecordHeadline plan={plan} link progress={progress} against={against} publicationLag={publicationLag} />}</div>
         {can(role, "editProject", archived) && (
           <PlanOfRecordPicker projectId={project.id} current={project.planScenarioId} scenarios={(await listProjectScenarios({ projectId: project.id })).map((s) => ({ id: s.id, name: s.name }))} />
