@@ -1,4 +1,5 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql, type AnyColumn, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
@@ -117,6 +118,23 @@ export async function createProgressEntry(input: { projectId: string; scenarioId
       .returning({ id: progressEntries.id, version: progressEntries.version });
     await tx.insert(progressHistory).values({ entryId: row.id, changedById: input.userId, action: "create", before: null, after: fields });
     return row;
+  });
+}
+
+/**
+ * Many shifts at once (a field log loaded from a file): every one with its history row, in one transaction, so a
+ * failure part-way stores none of them. Inserted in chunks: one statement's parameters stay under PostgreSQL's limit.
+ */
+export async function createProgressEntries(input: { projectId: string; scenarioId: string; entries: ProgressFields[]; userId: string }): Promise<number> {
+  if (input.entries.length === 0) return 0;
+  return getDb().transaction(async (tx) => {
+    for (let i = 0; i < input.entries.length; i += 500) {
+      // Ids chosen here, so each history row names its entry without relying on the order rows come back in.
+      const chunk = input.entries.slice(i, i + 500).map((e) => ({ id: randomUUID(), fields: recordedFields(e) }));
+      await tx.insert(progressEntries).values(chunk.map(({ id, fields }) => ({ id, projectId: input.projectId, scenarioId: input.scenarioId, ...fields, enteredById: input.userId })));
+      await tx.insert(progressHistory).values(chunk.map(({ id, fields }) => ({ entryId: id, changedById: input.userId, action: "create" as const, before: null, after: fields })));
+    }
+    return input.entries.length;
   });
 }
 

@@ -36,3 +36,11 @@ export async function api<T>(path: string, init: { method?: string; body?: unkno
   }
   return json as T;
 }
+
+/** A form upload (multipart: a file and its fields), answered in JSON like every other call. */
+export async function uploadFile<T>(path: string, data: FormData): Promise<T> {
+  const res = await fetch(path, { method: "POST", body: data, credentials: "same-origin" });
+  const json = await res.json().catch(() => ({}));
+  if (!res.ok) throw new ApiError(res.status, json.error ?? `The server answered ${res.status}.`, json.fields ?? [], json);
+  return json as T;
+}

@@ -34,3 +34,16 @@ export interface ProgressEntryAnswer {
   entry: ProgressEntryRecord;
   history: ProgressHistoryRow[];
 }
+
+/**
+ * What `POST /api/scenarios/:id/progress/import` answers once a file's shifts are in the log (all of them; a file
+ * with any problem stores none and answers 400 naming each line and column): how many were loaded, and how many rows
+ * the download with deleted shifts marked deleted and were left out.
+ */
+export interface ProgressImportAnswer {
+  imported: number;
+  skippedDeleted: number;
+  /** The work dates of the first and last shift loaded (yyyy-mm-dd). */
+  from: string;
+  to: string;
+}

@@ -101,6 +101,14 @@ function surveyForm(): FormData {
   return form;
 }
 
+/** A field log of one shift as a CSV upload (the download's columns), for a scenario of its own. */
+function shiftsForm(): FormData {
+  const s = millingShift();
+  const form = new FormData();
+  form.set("file", new Blob([`work_date,shift,operation,station_from_ft,station_to_ft,crew\n${s.workDate},day,milling,0,300,M1\n`], { type: "text/csv" }), "field-log.csv");
+  return form;
+}
+
 export const API_ROWS: Record<string, ApiRow> = {
   // ---- accounts: no permission, the same answer for everyone ----
   "POST /api/auth/signin": {
@@ -370,6 +378,11 @@ export const API_ROWS: Record<string, ApiRow> = {
     need: { kind: "scenario", action: "recordProgress" },
     ok: 201,
     request: async (w) => ({ params: { scenarioId: (await createPastScenario(admin(w), w.projectId, uniq("field log"))).id }, body: millingShift() }),
+  },
+  "POST /api/scenarios/[scenarioId]/progress/import": {
+    need: { kind: "scenario", action: "recordProgress" },
+    ok: 201,
+    request: async (w) => ({ params: { scenarioId: (await createPastScenario(admin(w), w.projectId, uniq("field log file"))).id }, body: shiftsForm() }),
   },
   "GET /api/progress/[entryId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { entryId: w.field.entryId } }) },
   "PUT /api/progress/[entryId]": {

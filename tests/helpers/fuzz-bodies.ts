@@ -119,7 +119,7 @@ const hostileText = fc.oneof(
 );
 const csvCell = fc.oneof(fc.constantFrom("1200", "12+50", "-1", "1e308", "NaN", "", "\u0000", "=1+1", "2027-02-30", "0.5", "1.5", '"', "x".repeat(5_000)), fc.string({ maxLength: 12 }));
 const csvText = fc.oneof(
-  fc.tuple(fc.constantFrom("from_station,to_station,repair_share", "date,tmax,tmin,precip,wind", "from_station,to_station", "", "a,b,c"), fc.array(fc.array(csvCell, { maxLength: 6 }), { maxLength: 200 })).map(([h, rows]) => [h, ...rows.map((r) => r.join(","))].join("\n")),
+  fc.tuple(fc.constantFrom("from_station,to_station,repair_share", "date,tmax,tmin,precip,wind", "from_station,to_station", "", "a,b,c", "work_date,shift,operation,station_from_ft,station_to_ft,rain,lost_hours,discovered"), fc.array(fc.array(csvCell, { maxLength: 6 }), { maxLength: 200 })).map(([h, rows]) => [h, ...rows.map((r) => r.join(","))].join("\n")),
   fc.string({ unit: "binary", maxLength: 2_000 }),
   fc.constantFrom("PK\u0003\u0004 not a spreadsheet", "\u0000\u0001\u0002", "\ufeffdate,tmax\n"),
 );

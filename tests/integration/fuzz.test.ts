@@ -1,6 +1,7 @@
 /**
  * Fuzzing the write routes: POURLINE_FUZZ_RUNS (default 2,000) generated invalid or extreme bodies per route —
- * scenario create and update, field progress, share links (of a scenario and of a plan search), CSV uploads — sent over HTTP with bounded concurrency.
+ * scenario create and update, field progress (a shift, and shifts loaded from a file), share links (of a scenario and of a plan search), CSV
+ * uploads — sent over HTTP with bounded concurrency.
  * Every answer must be below 500, arrive within PER_REQUEST_MS, and a 400 must name its fields. Nothing may be
  * stored except by a 2xx answer: the rows counted after the run must equal the rows before plus the 2xx answers
  * (a generated body can be valid by chance; it then counts as a save, honestly, and is reported).
@@ -154,6 +155,15 @@ describe(`fuzz: ${RUNS} generated bodies per write route`, () => {
     const bodies = sample(bodiesFrom(() => ({ label: "Fuzzed search link", expiresInDays: 7, emailTo: [] as string[] })), 6);
     const stored = judge("create search link", await sendAll(bodies, json("POST", path)));
     expect(await count(path, "links")).toBe(before + stored);
+  });
+
+  it("POST /api/scenarios/:id/progress/import (multipart)", { timeout: ROUTE_TIMEOUT_MS }, async () => {
+    const path = `/api/scenarios/${field.id}/progress`;
+    const before = await count(path, "entries");
+    const stored = judge("load shifts from a file", await sendAll(sample(uploadBodies, 7), upload(`${path}/import`)));
+    // A file loads whole or not at all; none of these can load (no cell is a work date the plan accepts).
+    expect(stored).toBe(0);
+    expect(await count(path, "entries")).toBe(before);
   });
 
   it("POST /api/scenarios/:id/uploads (multipart)", { timeout: ROUTE_TIMEOUT_MS }, async () => {

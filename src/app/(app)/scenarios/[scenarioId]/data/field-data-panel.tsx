@@ -2,38 +2,13 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { api, ApiError, type FieldProblem } from "@/lib/api-client";
+import { api, ApiError, uploadFile } from "@/lib/api-client";
+import { UploadProblems } from "@/components/upload-problems";
 import { applyClimateFit, applySurvey } from "@/lib/csv/apply";
 import { formatDateTime, formatStation, formatPercent } from "@/lib/format";
 import type { ScenarioAnswer } from "@/lib/scenario-contract";
 import type { SurveyUploadPreview, UploadAnswer, UploadsAnswer, WeatherUploadPreview } from "@/lib/upload-contract";
 import { WeatherPreview } from "./weather-preview";
-
-function uploadForm(scenarioId: string, data: FormData) {
-  return fetch(`/api/scenarios/${scenarioId}/uploads`, { method: "POST", body: data, credentials: "same-origin" }).then(async (res) => {
-    const json = await res.json().catch(() => ({}));
-    if (!res.ok) throw new ApiError(res.status, json.error ?? `The server answered ${res.status}.`, json.fields ?? []);
-    return json as UploadAnswer;
-  });
-}
-
-function Problems({ error }: { error: Error }) {
-  const fields: FieldProblem[] = error instanceof ApiError ? error.fields : [];
-  return (
-    <div role="alert" className="mt-4 rounded-md border border-bad/40 bg-bad-bg px-3 py-2 text-sm" data-testid="upload-errors">
-      <p className="font-medium text-bad">{error.message}</p>
-      {fields.length > 0 && (
-        <ul className="mt-2 max-h-64 list-disc overflow-y-auto pl-5">
-          {fields.map((f, i) => (
-            <li key={i}>
-              <span className="font-mono text-xs">{f.path}</span>: {f.message}
-            </li>
-          ))}
-        </ul>
-      )}
-    </div>
-  );
-}
 
 function ApplyButton({ scenarioId, label, build }: { scenarioId: string; label: string; build: (definition: Record<string, any>) => Record<string, any> }) {
   const router = useRouter();
@@ -101,7 +76,7 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
       data.set("kind", kind);
       if (kind === "weather") Object.entries(units).forEach(([k, v]) => data.set(k, v));
       if (file) data.set("file", file);
-      return uploadForm(scenarioId, data);
+      return uploadFile<UploadAnswer>(`/api/scenarios/${scenarioId}/uploads`, data);
     },
     onSuccess: () => qc.invalidateQueries({ queryKey: ["scenarios", scenarioId, "uploads"] }),
   });
@@ -178,7 +153,7 @@ function UploadCard({ scenarioId, kind }: { scenarioId: string; kind: "weather" 
           {check.isPending ? "Checking…" : "Check the file"}
         </button>
       </form>
-      {check.isError && <Problems error={check.error} />}
+      {check.isError && <UploadProblems error={check.error} />}
       {check.data?.preview.kind === "weather" && (
         <>
           <WeatherPreview p={check.data.preview} />

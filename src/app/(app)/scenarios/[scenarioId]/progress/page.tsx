@@ -13,6 +13,7 @@ import type { Scenario } from "@sim/schema";
 import { TimeDistanceChart, type ActualSeries } from "@/components/results/time-distance-chart";
 import { DriftChart, type DriftPoint } from "./drift-chart";
 import { ProgressForm, type PlanFacts } from "./progress-form";
+import { ImportShifts } from "./import-shifts";
 import { lastRecorded } from "./entry-defaults";
 import { ProgressTable, type EntryView } from "./progress-table";
 import { ReforecastPanel } from "./reforecast-panel";
@@ -103,6 +104,7 @@ export default async function FieldLogPage({ params }: { params: Promise<{ scena
           <div className="mt-4">
             <ProgressForm scenarioId={scenario.id} facts={facts} />
           </div>
+          <ImportShifts scenarioId={scenario.id} />
         </section>
       )}
       {entries.length > 0 && (
