@@ -80,7 +80,7 @@ describe("shifts loaded from a CSV file", () => {
     const text = ["work_date,shift,operation,station_from_ft,station_to_ft", `${day(0)},day,milling,0,300`, `${day(1)},graveyard,milling,300,600`].join("\n");
     const res = await load(other, text);
     expect(res.status).toBe(400);
-    expect(res.body.error).toBe("The file has 1 problem; nothing was imported. Fix them and upload again.");
+    expect(res.body.error).toBe("The file has 1 problem; nothing was imported. Fix it and upload again.");
     expect(res.body.fields.map((f: { path: string; message: string }) => `${f.path}: ${f.message}`)).toEqual(["row 3 · shift: “graveyard” is not a shift of this plan (Day shift)"]);
     expect(await entriesOf(other)).toEqual([]);
   });

@@ -45,7 +45,7 @@ export function rowErrors(problems: RowProblem[], read?: { columns: { header: st
   const howRead = read?.columns.length ? ` Read as: ${read.columns.map((c) => `“${c.header}” = ${c.readAs}${c.unit ? ` in ${c.unit}` : ""}`).join("; ")}.` : "";
   return new AppError(
     "bad_request",
-    `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix them and upload again.${howRead}`,
+    `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported. Fix ${problems.length === 1 ? "it" : "them"} and upload again.${howRead}`,
     problems.map((p) => ({ path: where(p), message: p.message })),
   );
 }
