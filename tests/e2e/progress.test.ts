@@ -184,3 +184,31 @@ describe("field log", () => {
     expect(await engineer.getByTestId("progress-row").first().textContent()).toContain("Rosa Tenney");
   });
 });
+
+describe("shifts loaded from a file", () => {
+  it("an inspector loads a site spreadsheet into a field log: a bad row is named by its line, the good file loads whole", async () => {
+    const scheduler = await signInAs("scheduler");
+    const id = (await createPastScenario(scheduler, (await kestrelProject(scheduler)).id, "E2E field log from a file")).id;
+    const page = await signedIn("inspector");
+    await new ScenarioPage(page, id).open("progress");
+    const box = page.getByTestId("import-shifts");
+    await box.getByText("Load shifts from a file (CSV)").click();
+    const file = (rows: string[]) => ({ name: "site-log.csv", mimeType: "text/csv", buffer: Buffer.from(["Work date,Shift,Operation name,Station from,Station to,Rain", ...rows].join("\n")) });
+    const good = [`${day(1)},Day shift,Mechanical milling,0+00,2+00,no`, `${day(2)},Day shift,Mechanical milling,2+00,4+00,yes`];
+    await box.locator("input[type=file]").setInputFiles(file([...good, `${day(3)},Day shift,Planing,4+00,5+00,no`]));
+    await box.getByRole("button", { name: "Load the shifts" }).click();
+    const problems = page.getByTestId("upload-errors");
+    await problems.waitFor();
+    expect(await problems.textContent()).toContain("The file has 1 problem; nothing was imported.");
+    expect(await problems.textContent()).toContain("row 4 · operation_name: “Planing” is not an operation of this plan");
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await box.locator("input[type=file]").setInputFiles(file(good));
+    await box.getByRole("button", { name: "Load the shifts" }).click();
+    await expect.poll(() => box.getByTestId("import-shifts-done").textContent().catch(() => "")).toBe(
+      `Loaded 2 shifts, worked ${formatIsoDate(day(1))} to ${formatIsoDate(day(2))}. The forecast knows them from the next re-forecast.`,
+    );
+    // The log lists them at once.
+    await expect.poll(() => page.getByText("2 shifts recorded.").count()).toBe(1);
+    await screenshot(page, "field-log-loaded-from-a-file");
+  });
+});
