@@ -109,14 +109,22 @@ export async function listProgressHistory({ entryId }: { entryId: string }) {
 }
 
 /** Creates an entry and its first history row (before = null) in one transaction. */
-export async function createProgressEntry(input: { projectId: string; scenarioId: string; fields: ProgressFields; userId: string }) {
+type NewEntries = { projectId: string; scenarioId: string; userId: string };
+/** A new shift's row and its "create" history row, one id between them (chosen here). */
+function newEntryRows(input: NewEntries, entry: ProgressFields) {
+  const id = randomUUID();
+  const fields = recordedFields(entry);
+  return {
+    entry: { id, projectId: input.projectId, scenarioId: input.scenarioId, ...fields, enteredById: input.userId },
+    history: { entryId: id, changedById: input.userId, action: "create" as const, before: null, after: fields },
+  };
+}
+
+export async function createProgressEntry(input: NewEntries & { fields: ProgressFields }) {
   return getDb().transaction(async (tx) => {
-    const fields = recordedFields(input.fields);
-    const [row] = await tx
-      .insert(progressEntries)
-      .values({ projectId: input.projectId, scenarioId: input.scenarioId, ...fields, enteredById: input.userId })
-      .returning({ id: progressEntries.id, version: progressEntries.version });
-    await tx.insert(progressHistory).values({ entryId: row.id, changedById: input.userId, action: "create", before: null, after: fields });
+    const rows = newEntryRows(input, input.fields);
+    const [row] = await tx.insert(progressEntries).values(rows.entry).returning({ id: progressEntries.id, version: progressEntries.version });
+    await tx.insert(progressHistory).values(rows.history);
     return row;
   });
 }
@@ -125,14 +133,14 @@ export async function createProgressEntry(input: { projectId: string; scenarioId
  * Many shifts at once (a field log loaded from a file): every one with its history row, in one transaction, so a
  * failure part-way stores none of them. Inserted in chunks: one statement's parameters stay under PostgreSQL's limit.
  */
-export async function createProgressEntries(input: { projectId: string; scenarioId: string; entries: ProgressFields[]; userId: string }): Promise<number> {
+export async function createProgressEntries(input: NewEntries & { entries: ProgressFields[] }): Promise<number> {
   if (input.entries.length === 0) return 0;
   return getDb().transaction(async (tx) => {
     for (let i = 0; i < input.entries.length; i += 500) {
-      // Ids chosen here, so each history row names its entry without relying on the order rows come back in.
-      const chunk = input.entries.slice(i, i + 500).map((e) => ({ id: randomUUID(), fields: recordedFields(e) }));
-      await tx.insert(progressEntries).values(chunk.map(({ id, fields }) => ({ id, projectId: input.projectId, scenarioId: input.scenarioId, ...fields, enteredById: input.userId })));
-      await tx.insert(progressHistory).values(chunk.map(({ id, fields }) => ({ entryId: id, changedById: input.userId, action: "create" as const, before: null, after: fields })));
+      // Ids chosen before the insert, so each history row names its entry without relying on the order rows come back in.
+      const chunk = input.entries.slice(i, i + 500).map((e) => newEntryRows(input, e));
+      await tx.insert(progressEntries).values(chunk.map((r) => r.entry));
+      await tx.insert(progressHistory).values(chunk.map((r) => r.history));
     }
     return input.entries.length;
   });
