@@ -1,7 +1,8 @@
 /**
  * The deterministic calendar of a scenario, compiled once (never per iteration). Contract (MODEL.md,
  * "When a crew may work" conditions 1–3 and "Calendar"): for each crew operation, the sorted, disjoint open
- * intervals = (its shifts on work days) ∩ (its closure's windows by day type) − blocked intervals, in hours
+ * intervals = (its shifts on work days, but not those that start in a blocked interval) ∩ (its closure's
+ * windows by day type) − blocked intervals, in hours
  * since 00:00 of `startDate`, up to a horizon. Blocked = holiday stand-down blocks, winters (with the
  * demobilization hours before each), the two-season cut-off. Also: day types, winter boundaries, the shift
  * instances of each operation (for weather-lost shift counting) and a per-day index for O(1) look-ups.
@@ -194,6 +195,7 @@ export function openBeforeBlocks(
   shifts: ReadonlyArray<{ startHour: number; lengthHours: number }>,
   windows: ReadonlyArray<WindowLike> | null,
   changeover: { setupHours: number; takedownHours: number } | null = null,
+  blocked: Pairs | null = null,
 ): { open: Pairs; shiftPairs: Pairs } {
   const shiftPairs: Pairs = [];
   for (let d = 0; d < pattern.days; d++) {
@@ -205,10 +207,27 @@ export function openBeforeBlocks(
   for (let i = 0; i < shiftPairs.length; i += 2) order.push(i);
   order.sort((a, b) => shiftPairs[a] - shiftPairs[b] || shiftPairs[a + 1] - shiftPairs[b + 1]);
   for (const i of order) sortedShifts.push(shiftPairs[i], shiftPairs[i + 1]);
-  const merged = sortMerge(shiftPairs);
+  const merged = sortMerge(blocked === null ? shiftPairs : startedOutside(sortedShifts, blocked));
   if (windows === null) return { open: merged, shiftPairs: sortedShifts };
   const usable = usableParts(windowIntervals(pattern, windows), changeover?.setupHours ?? 0, changeover?.takedownHours ?? 0);
   return { open: intersect(merged, usable), shiftPairs: sortedShifts };
+}
+
+/**
+ * The shift instances (sorted by start) that do not start inside a blocked interval (sorted, merged):
+ * a shift begun in a stand-down or a winter is not worked at all, not even after the block ends (MODEL.md,
+ * condition 3).
+ */
+function startedOutside(sortedShifts: Pairs, blocked: Pairs): Pairs {
+  const out: Pairs = [];
+  let j = 0;
+  for (let i = 0; i < sortedShifts.length; i += 2) {
+    const s = sortedShifts[i];
+    while (j < blocked.length && blocked[j + 1] <= s) j += 2;
+    if (j < blocked.length && blocked[j] <= s) continue;
+    out.push(s, sortedShifts[i + 1]);
+  }
+  return out;
 }
 
 function monthDayOf(md: string): [number, number] {
@@ -313,7 +332,7 @@ export function compileCalendar(scenario: Scenario, horizonDays = HORIZON_DAYS):
     const shifts = op.shifts.map((id) => cal.shifts.find((s) => s.id === id)!);
     const closure = op.closure === undefined ? null : cal.closures.find((c) => c.id === op.closure)!;
     const windows = closure ? cal.closureWindows.filter((w) => w.closure === closure.id) : null;
-    const { open, shiftPairs } = openBeforeBlocks(pattern, shifts, windows, closure);
+    const { open, shiftPairs } = openBeforeBlocks(pattern, shifts, windows, closure, blockedMerged);
     const clipped = intersect(open, horizonPair);
     return {
       open: toIntervals(subtract(clipped, blockedMerged), days),

@@ -18,6 +18,7 @@ export { impactModel, iterationImpact, roadUserCost, contractCost, DEFAULT_VALUE
 export { drawSamples, type IterationSamples } from "./samples";
 export { nearestRank, quantiles } from "./percentiles";
 export { HORIZON_DAYS } from "./calendar";
+export { MODEL_REVISION } from "./model-revision";
 export type { Scenario, ScenarioInput, FieldProblem, Traffic, Costs } from "./schema";
 
 export function runScenario(scenario: Scenario, opts: { iterations: number; seed: string }): RunSummary {

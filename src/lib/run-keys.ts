@@ -1,7 +1,10 @@
+import { MODEL_REVISION } from "@sim/model-revision";
+
 /**
  * Names of computations. A result key says what a stored run is the result of, so the same computation is
  * stored once whoever asks (a browser run and a server run of the same scenario version, seed and iterations
- * share one); a job key says what an engine job computes, so asking twice gives the same job.
+ * share one); a job key says what an engine job computes, so asking twice gives the same job. Both name the
+ * model rules' revision too: after a rule change the same inputs are a new computation.
  */
 export interface Computation {
   scenarioId: string;
@@ -13,7 +16,7 @@ export interface Computation {
 }
 
 export function resultKey(c: Computation): string {
-  const base = `${c.scenarioId}:v${c.scenarioVersion}:${c.iterations}:${JSON.stringify(c.seed)}`;
+  const base = `${c.scenarioId}:v${c.scenarioVersion}:${c.iterations}:${JSON.stringify(c.seed)}:m${MODEL_REVISION}`;
   return c.reforecast ? `${base}:reforecast:${c.reforecast.dataDate}:${c.reforecast.inputsHash}` : `${base}:plan`;
 }
 

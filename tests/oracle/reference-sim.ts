@@ -180,7 +180,8 @@ export function isOpenByCalendar(s: Scenario, cal: RefCalendar, op: CrewOperatio
     for (const id of op.shifts) {
       const sh = s.calendar.shifts.find((x) => x.id === id)!;
       const a = dd * 24 + sh.startHour;
-      if (t >= a && t < a + sh.lengthHours) inShift = true;
+      // Condition 3's second half: a shift that started in a blocked interval is not worked at all.
+      if (t >= a && t < a + sh.lengthHours && !cal.blocked.some(([x, y]) => a >= x && a < y)) inShift = true;
     }
   }
   if (!inShift) return false;

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { compileCalendar, firstIntervalAfter, nextIntervalAfter, type Intervals } from "../../sim/calendar";
 import { formatHours, parseIsoDate } from "../../sim/dates";
-import type { CrewOperation, Scenario } from "../../sim/schema";
+import type { CrewOperation, Scenario, ScenarioInput } from "../../sim/schema";
 import { parseScenario } from "../../sim/validate";
 import { small } from "./engine-fixtures";
 
@@ -81,6 +81,37 @@ describe("compileCalendar", () => {
       "2027-04-12T21:00/05:00",
     ]);
     expect(c.cal.ops[0]!.open.starts[0]).toBe(21);
+  });
+
+  it("does not work a night shift that began in a stand-down or a winter, even after the block ends", () => {
+    // MODEL.md condition 3 (common practice, no published source): Memorial Day 2027 is Mon 31 May (5 U.S.C.
+    // 6103: last Monday of May), so the block runs Fri 28 May 15:00 → Tue 1 Jun 00:00. Monday night's shift
+    // starts 21:00 inside it: not worked, not even Tuesday 00:00–05:00. Tuesday night's is the first back.
+    const night = (s: ScenarioInput) => {
+      s.calendar.shifts = [{ id: "night", name: "Night", startHour: 21, lengthHours: 8 }];
+      s.calendar.workDays = [0, 1, 2, 3, 4, 5, 6];
+      s.calendar.closureWindows = [{ closure: "one-lane", dayTypes: ["weekday", "saturday", "sunday", "holiday"], startHour: 21, endHour: 5 }];
+      for (const o of s.operations) (o as CrewOperation).shifts = ["night"];
+    };
+    const c = compiled((s) => {
+      s.startDate = "2027-05-24";
+      night(s);
+    });
+    expect(openBetween(c, "2027-05-27", "2027-06-03")).toEqual([
+      "2027-05-27T21:00/05:00", // Thursday night, before the block
+      "2027-06-01T21:00/05:00", // Tuesday night: nothing on Tuesday 00:00–05:00
+      "2027-06-02T21:00/05:00",
+    ]);
+    // The same at a winter's end (31 Mar 00:00): the night of 30 Mar began in the winter.
+    const w = compiled((s) => {
+      s.startDate = "2027-11-22";
+      s.calendar.holidays.policy = "workThrough";
+      s.calendar.season = { plan: "single", winterStart: "12-01", winterEnd: "03-31", demobilizeHours: 0 };
+      night(s);
+    });
+    expect(openBetween(w, "2028-03-30", "2028-04-02")).toEqual(["2028-03-31T21:00/05:00", "2028-04-01T21:00/05:00"]);
+    // A shift that starts before a block is still worked up to the block's start (Tue 30 Nov night → Wed 00:00).
+    expect(openBetween(w, "2027-11-30", "2027-12-01")).toEqual(["2027-11-30T21:00/00:00"]);
   });
 
   it("blocks winter and the demobilization hours before it; a cut-off date moves the first winter", () => {

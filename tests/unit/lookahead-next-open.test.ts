@@ -50,12 +50,13 @@ describe("the next open time after a week of closed cells", () => {
 
   it("across the second winter, the first instant after it (inside a night window) and the day window after it", () => {
     // Board 10–16 Nov 2027; the winter is [15 Nov 2027 00:00, 31 Mar 2028 00:00) (MODEL.md: winterEnd is the
-    // first day back). Fri 31 Mar 00:00 lies inside Thursday night's restriping window (Thu 21:00 – Fri 05:00,
-    // a weekday), so restriping may work from that instant; placement's day window opens only at 09:30.
+    // first day back). Fri 31 Mar 00:00 lies inside Thursday night's restriping shift (Thu 21:00 – Fri 05:00),
+    // but that shift began in the winter, so it is not worked (MODEL.md, condition 3): restriping's first
+    // shift back is Friday night's; placement's day window opens at 09:30.
     const next = nextOpenAfter(demo(), { today: "2027-11-10" });
     expect(next?.operations.map((o) => [o.operationId, o.start, o.weekday])).toEqual([
-      ["restriping", "2028-03-31T00:00", "Friday"],
       ["placement", "2028-03-31T09:30", "Friday"],
+      ["restriping", "2028-03-31T21:00", "Friday"],
     ]);
   });
 

@@ -242,16 +242,19 @@ describe("laws of stages and the closure timeline", () => {
     // 6540506 on main (`npm run sim -- <file> --iterations 60 --seed single-pass --json`), on the same demos then
     // stored as version 1 (upgraded, they equal these files). The values recorded before the weather rules
     // (commit 40da1ef) no longer apply: the weather model changed, stages did not change it.
-    // `delayFloor`: holiday-work's median iteration has a 2 h weather pause of the night restriping crew inside
-    // a closure window (21:00–23:00). The single-pass engine counted the lanes open during it; the closure
-    // timeline keeps a short-term closure standing from first to last use in a window interval (MODEL.md,
-    // "Closures that stand"), so the finish is the same and the delay can only be higher.
-    type Golden = { p50: string; p90: string } & ({ delayP50: number | null } | { delayFloor: number });
+    // `delayNear`: the single-pass engine's median delay, which two later rules move by under 1 % with the
+    // same finishes. (1) Holiday-work's median iteration has a 2 h weather pause of the night restriping crew
+    // inside a closure window (21:00–23:00): the single-pass engine counted the lanes open during it; the
+    // closure timeline keeps a short-term closure standing from first to last use in a window interval
+    // (MODEL.md, "Closures that stand"). (2) A night shift that began in a holiday stand-down or a winter is no
+    // longer worked after the block ends (MODEL.md, condition 3), so the closures of those nights' small hours
+    // move to later nights (+0.05 to +0.7 % here).
+    type Golden = { p50: string; p90: string } & ({ delayP50: null } | { delayNear: number });
     const golden: Record<string, Golden> = {
-      "kestrel-two-season.json": { p50: "2028-09-29T20:29", p90: "2029-06-24T20:28", delayP50: 467058.6 },
-      "kestrel-single-season.json": { p50: "2028-09-15T20:33", p90: "2029-06-03T20:33", delayP50: 452833 },
-      "kestrel-two-placement-crews.json": { p50: "2028-07-07T20:57", p90: "2028-08-21T20:30", delayP50: 385541.2 },
-      "kestrel-holiday-work.json": { p50: "2028-09-17T20:35", p90: "2029-06-11T20:28", delayFloor: 490079.3 },
+      "kestrel-two-season.json": { p50: "2028-09-29T20:29", p90: "2029-06-24T20:28", delayNear: 467058.6 },
+      "kestrel-single-season.json": { p50: "2028-09-15T20:33", p90: "2029-06-03T20:33", delayNear: 452833 },
+      "kestrel-two-placement-crews.json": { p50: "2028-07-07T20:57", p90: "2028-08-21T20:30", delayNear: 385541.2 },
+      "kestrel-holiday-work.json": { p50: "2028-09-17T20:35", p90: "2029-06-11T20:28", delayNear: 490079.3 },
       "small-deterministic.json": { p50: "2027-04-07T09:00", p90: "2027-04-07T09:00", delayP50: null },
     };
     for (const [file, want] of Object.entries(golden)) {
@@ -265,9 +268,7 @@ describe("laws of stages and the closure timeline", () => {
       if ("delayP50" in want) expect([file, delay]).toEqual([file, want.delayP50]);
       else {
         expect(delay).not.toBeNull();
-        expect(delay!).toBeGreaterThan(want.delayFloor);
-        // One 2 h night pause: the difference stays under 1 % (the same iteration, the same finish).
-        expect(delay! - want.delayFloor).toBeLessThan(0.01 * want.delayFloor);
+        expect([file, Math.abs(delay! - want.delayNear) / want.delayNear < 0.01]).toEqual([file, true]);
       }
     }
   }, 120_000);
