@@ -207,8 +207,13 @@ export const simulationRuns = pgTable(
      * `verified`: reproduced exactly; `rejected`: the server got a different summary (never shown as a forecast).
      */
     verification: text("verification").$type<RunVerification>().notNull().default("pending"),
-    /** scenario:version:seed:iterations:kind:data date (+ as-built hash): the same computation is stored once. */
+    /** scenario:version:seed:iterations:model revision:kind:data date (+ as-built hash): the same computation is stored once. */
     resultKey: text("result_key"),
+    /**
+     * The revision of the model rules the run was computed under (sim/model-revision.ts). No default: every insert
+     * says it; rows stored before the column are revision 1. A run of older rules is marked (stale.ts `olderRulesSql`).
+     */
+    modelRevision: integer("model_revision").notNull(),
     /**
      * `results` as its readers are sent it (GET /api/runs/:id), made once when the run is stored
      * (db/stored-results.ts) so a read never parses or serialises it: the JSON raw-deflated and left open (sync

@@ -18,6 +18,7 @@ import { closureSubscribers, progressEntries, progressHistory, projectMembers, p
 import { hashPassword } from "../src/lib/server/password";
 import { todayIn } from "../src/lib/progress-schema";
 import { planRunRecord, reforecastRunRecord } from "../src/lib/run-record";
+import { MODEL_REVISION } from "../sim/model-revision";
 import { parseScenario } from "../sim/validate";
 import type { Scenario } from "../sim/schema";
 import { parseIsoDate, formatDayNumber } from "../sim/dates";
@@ -146,7 +147,7 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           .values({ projectId, name: scenario.name, description: scenario.description, definition: raw, ownerId, updatedById: ownerId, changeNote: "Demo scenario" })
           .returning({ id: scenarios.id, version: scenarios.version });
         await tx.insert(scenarioRevisions).values({ scenarioId: row.id, version: row.version, definition: raw, savedById: ownerId, changeNote: "Demo scenario" });
-        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...run, ...storedResultsOf(run.results), createdById: ownerId, createdAt: runAt, verification: "server" });
+        await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...run, ...storedResultsOf(run.results), createdById: ownerId, createdAt: runAt, verification: "server", modelRevision: MODEL_REVISION });
         return row;
       };
       for (let k = 0; k < definitions.length; k++) {
@@ -171,7 +172,7 @@ export async function seed(url: string, { now = new Date() }: { now?: Date } = {
           .returning({ id: progressEntries.id });
         await tx.insert(progressHistory).values(inserted.map((r, i) => ({ entryId: r.id, changedById: inspectorId, action: "create" as const, before: null, after: fieldLog[i], changedAt: noonOf(parseIsoDate(fieldLog[i].workDate) + 1) })));
         for (const { headline: _h, reforecast: _r, ...columns } of reforecasts) {
-          await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, ...storedResultsOf(columns.results), createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server" });
+          await tx.insert(simulationRuns).values({ scenarioId: row.id, scenarioVersion: row.version, ...columns, ...storedResultsOf(columns.results), createdById: engineerId, createdAt: noonOf(parseIsoDate(columns.dataDate) + 1), verification: "server", modelRevision: MODEL_REVISION });
         }
       }
       // Next season's plan was run today, and is that project's plan of record.

@@ -8,7 +8,7 @@ import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users } from "../schema";
 import { reforecastsOf, shiftsNotInRun } from "./progress";
-import { runIsStale } from "./stale";
+import { olderRulesSql, runIsStale } from "./stale";
 
 /** Turns it on at `hour` (0–23, local), set up by `userId`, or off (`hour` null). Null when there is no such project. */
 export async function setDailyReforecast({ projectId, hour, userId }: { projectId: string; hour: number | null; userId: string }) {
@@ -82,6 +82,7 @@ export async function getNewestReforecastBasis({ scenarioId }: { scenarioId: str
     .select({
       dataDate: sql<string>`${simulationRuns.dataDate}`,
       stale: runIsStale(),
+      olderRules: olderRulesSql(),
       seed: simulationRuns.seed,
       iterations: simulationRuns.iterations,
       changes: shiftsNotInRun,

@@ -6,7 +6,7 @@ import { getDb } from "../client";
 import { engineJobs, progressEntries, progressHistory, scenarios, simulationRuns, users } from "../schema";
 import { forecastOrder, isForecast, planRunsOf } from "./runs";
 import type { ProgressEntry } from "../../sim/progress-entry";
-import { runIsStale } from "./stale";
+import { olderRulesSql, runIsStale } from "./stale";
 
 /** The fields a person records about one shift (what history stores before and after a change): the entry contract's output. */
 export type ProgressFields = ProgressEntry;
@@ -332,7 +332,7 @@ export async function getLatestReforecast({ scenarioId }: { scenarioId: string }
  */
 export async function getNewestReforecastHeadline({ scenarioId }: { scenarioId: string }) {
   const [row] = await getDb()
-    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun, stale: runIsStale() })
+    .select({ dataDate: simulationRuns.dataDate, summary: simulationRuns.summary, createdAt: simulationRuns.createdAt, shiftsNotIn: shiftsNotInRun, stale: runIsStale(), olderRules: olderRulesSql(), modelRevision: simulationRuns.modelRevision })
     .from(simulationRuns)
     .where(reforecastsOf(scenarioId))
     .orderBy(desc(simulationRuns.createdAt), desc(simulationRuns.id))

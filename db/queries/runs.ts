@@ -3,7 +3,8 @@ import { and, desc, eq, gt, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb, prepared } from "../client";
 import { projectMembers, scenarios, simulationRuns, users, type RunVerification, type StoredRunResults } from "../schema";
 import { storedResultsOf, type StoredResults } from "../stored-results";
-import { staleSql } from "./stale";
+import { MODEL_REVISION } from "../../sim/model-revision";
+import { olderRulesSql, staleSql } from "./stale";
 
 /** Runs a person may see as a scenario's forecast: computed by the server, or reproduced by it exactly. */
 export const FORECAST_VERIFICATIONS: RunVerification[] = ["server", "verified"];
@@ -37,7 +38,8 @@ export async function saveRun(input: NewRun) {
   const insert = () =>
     getDb()
       .insert(simulationRuns)
-      .values({ ...values, ...stored, createdById: userId })
+      // The rules this server computes and verifies by (a browser run was computed by the same bundle of sim/).
+      .values({ ...values, ...stored, createdById: userId, modelRevision: MODEL_REVISION })
       .onConflictDoNothing({ target: simulationRuns.resultKey })
       .returning(returning);
   let [row] = await insert();
@@ -97,8 +99,9 @@ export const planRunsOf = (scenarioId: string) => and(eq(simulationRuns.scenario
 export const forecastOrder = [desc(sql`${simulationRuns.dataDate} is not null`), desc(simulationRuns.createdAt), desc(simulationRuns.id)];
 
 /**
- * What every reader of a run gets. "Stale" (computed from an older version than the scenario's) and "plan
- * run" (no data date) are decided here, once, rather than by each page.
+ * What every reader of a run gets. "Stale" (computed from an older version than the scenario's), "older
+ * rules" (computed under an earlier revision of the model rules) and "plan run" (no data date) are decided
+ * here, once, rather than by each page.
  */
 const listColumns = {
   id: simulationRuns.id,
@@ -114,6 +117,8 @@ const listColumns = {
   dataDate: simulationRuns.dataDate,
   verification: simulationRuns.verification,
   stale: staleSql(simulationRuns.scenarioVersion, scenarios.version).as("stale"),
+  olderRules: olderRulesSql().as("older_rules"),
+  modelRevision: simulationRuns.modelRevision,
   planRun: sql<boolean>`(${simulationRuns.dataDate} is null)`.as("plan_run"),
 };
 

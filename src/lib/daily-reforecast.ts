@@ -4,7 +4,7 @@
  * so each morning's re-forecast starts from the day before: the last day whose shifts are in.
  *
  * It is due once a local day, after the chosen hour, when the newest re-forecast is behind: the field log has
- * changes it does not know, the plan was edited since, or it is a week old (so a job with nothing recorded — rain,
+ * changes it does not know, the plan was edited since, the engine's model rules changed since, or it is a week old (so a job with nothing recorded — rain,
  * a winter shut-down — still has its forecast move on with the calendar, and members who asked for forecast
  * e-mails are not written to every morning about nothing).
  */
@@ -31,6 +31,8 @@ export interface NewestReforecast {
   dataDate: string;
   /** Made of an earlier version of the plan (the data layer's `staleSql`). */
   stale: boolean;
+  /** Computed under an earlier revision of the model rules (the data layer's `olderRulesSql`). */
+  olderRules: boolean;
   /** Field-log changes it does not know (the data layer's `shiftsNotInRun`). */
   changes: number;
   seed: string;
@@ -57,6 +59,7 @@ export function dailyDecision(input: { day: string; startDate: string; lastDataD
   if (n.dataDate > dataDate) return { due: false, why: `the newest re-forecast is as of ${formatIsoDate(n.dataDate)}` };
   if (n.changes > 0) return { due: true, dataDate, ...draw, why: `${n.changes} field-log ${n.changes === 1 ? "change is" : "changes are"} not in the newest re-forecast` };
   if (n.stale) return { due: true, dataDate, ...draw, why: "the plan changed since the newest re-forecast" };
+  if (n.olderRules) return { due: true, dataDate, ...draw, why: "the model rules changed since the newest re-forecast" };
   if (n.dataDate <= shiftDay(dataDate, -QUIET_DAYS)) return { due: true, dataDate, ...draw, why: `the newest re-forecast is as of ${formatIsoDate(n.dataDate)}, a week or more ago` };
   return { due: false, why: "the newest re-forecast knows every shift in the field log" };
 }
@@ -71,5 +74,5 @@ export interface DailyReforecastState {
 /** What the daily re-forecast does, in words, for everyone on the project. */
 export function dailyReforecastText(s: DailyReforecastState): string {
   if (s.hour === null) return "Re-forecast by hand only: someone presses Re-forecast on the plan's Field log.";
-  return `Re-forecast each morning after ${formatHour(s.hour)} (the plan's time zone) from the field log as of the day before, when the log or the plan changed or the newest re-forecast is a week old${s.byName ? `; set up by ${s.byName}, in whose name it runs` : ""}.`;
+  return `Re-forecast each morning after ${formatHour(s.hour)} (the plan's time zone) from the field log as of the day before, when the log, the plan or the engine's model rules changed, or the newest re-forecast is a week old${s.byName ? `; set up by ${s.byName}, in whose name it runs` : ""}.`;
 }

@@ -8,7 +8,7 @@ import fc from "fast-check";
 import { dailyDecision, dayToConsider, QUIET_DAYS, type NewestReforecast } from "@/lib/daily-reforecast";
 import { localDateHour } from "@/lib/local-clock";
 
-const newest = (over: Partial<NewestReforecast> = {}): NewestReforecast => ({ dataDate: "2027-05-10", stale: false, changes: 0, seed: "s", iterations: 500, ...over });
+const newest = (over: Partial<NewestReforecast> = {}): NewestReforecast => ({ dataDate: "2027-05-10", stale: false, olderRules: false, changes: 0, seed: "s", iterations: 500, ...over });
 const decide = (n: NewestReforecast | null, day = "2027-05-12") => dailyDecision({ day, startDate: "2027-04-01", lastDataDate: "2033-03-31", newest: n });
 
 describe("localDateHour", () => {
@@ -39,6 +39,9 @@ describe("dailyDecision", () => {
   it("re-forecasts when the plan changed since, or when there is none yet (with the Field log's defaults)", () => {
     expect(decide(newest({ stale: true }))).toMatchObject({ due: true, why: "the plan changed since the newest re-forecast" });
     expect(decide(null)).toEqual({ due: true, dataDate: "2027-05-11", seed: "daily", iterations: 1_000, why: "the plan has no re-forecast yet" });
+  });
+  it("re-forecasts when the newest re-forecast was computed under earlier model rules (the same seed and iterations)", () => {
+    expect(decide(newest({ olderRules: true, dataDate: "2027-05-11" }))).toEqual({ due: true, dataDate: "2027-05-11", seed: "s", iterations: 500, why: "the model rules changed since the newest re-forecast" });
   });
   it("waits while nothing changes, for a week", () => {
     expect(decide(newest({ dataDate: "2027-05-11" }))).toEqual({ due: false, why: "the newest re-forecast knows every shift in the field log" });

@@ -2,6 +2,7 @@ import Link from "next/link";
 import { formatDateTime, formatIsoDate } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
 import { planForecastText, changesNotInText } from "@/lib/plan-of-record-text";
+import { olderRulesText } from "@/lib/model-rules-text";
 
 export interface ReforecastHeadline {
   dataDate: string | null;
@@ -11,6 +12,9 @@ export interface ReforecastHeadline {
   shiftsNotIn: number;
   /** The plan changed after it (the data layer's stale rule); it is still the forecast until the next re-forecast. */
   stale?: boolean | null;
+  /** Computed under an earlier revision of the model rules (the data layer's `olderRules`), and that revision. */
+  olderRules?: boolean | null;
+  modelRevision?: number;
 }
 
 /**
@@ -31,6 +35,7 @@ export function ReforecastNotice(props: { scenarioId: string | null; reforecast:
         {text.rest}
         {reforecast.shiftsNotIn > 0 ? ` ${changesNotInText(reforecast.shiftsNotIn, "that re-forecast")}.` : ""}
         {reforecast.stale ? " The plan has changed since that re-forecast, so it is stale until the next one." : ""}
+        {reforecast.olderRules ? ` ${olderRulesText("That re-forecast", reforecast.modelRevision ?? 1)} The next re-forecast uses today's rules.` : ""}
       </p>
       <p className="mt-1">
         {shownRunAt ? `Below is the plan as run on ${formatDateTime(shownRunAt)}, which knows nothing of the work done since. ` : ""}

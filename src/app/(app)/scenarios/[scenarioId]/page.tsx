@@ -17,6 +17,7 @@ import { parseScenario } from "@sim/validate";
 import { weatherFeasibility } from "@sim/feasibility";
 import { getNewestReforecastHeadline } from "@db/queries/progress";
 import { ReforecastNotice } from "@/components/results/reforecast-notice";
+import { olderRulesText } from "@/lib/model-rules-text";
 
 export const metadata: Metadata = { title: "Outlook" };
 
@@ -91,6 +92,12 @@ export default async function OutlookPage({ params }: { params: Promise<{ scenar
                     ))}
                   </div>
                 </div>
+              )}
+              {run.olderRules && (
+                <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="older-rules-run">
+                  {olderRulesText("This run", run.modelRevision)}{" "}
+                  {can(role, "runScenario", archived) ? "Run it again for figures under today’s rules." : "Figures under today’s rules need someone who runs plans to run it again."}
+                </p>
               )}
               <nav aria-label="Exports" className="flex flex-wrap items-center gap-2 text-sm">
                 <span className="text-muted">Take it with you:</span>

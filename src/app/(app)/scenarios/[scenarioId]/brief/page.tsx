@@ -19,6 +19,7 @@ import { ProgressToDate } from "@/components/progress-to-date";
 import { lastWorkDate, progressToDate } from "@/lib/progress-to-date";
 import { againstPlanFor } from "@/lib/against-plan";
 import { ReforecastNotice } from "@/components/results/reforecast-notice";
+import { olderRulesText } from "@/lib/model-rules-text";
 
 export const metadata: Metadata = { title: "Owner brief" };
 
@@ -85,6 +86,11 @@ export default async function BriefPage({ params }: { params: Promise<{ scenario
           )}
           {run.stale && (
             <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm">This {reforecastHead ? "plan run" : "forecast"} was computed from version {run.scenarioVersion}; the plan has changed since.</p>
+          )}
+          {run.olderRules && (
+            <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" data-testid="brief-older-rules">
+              {olderRulesText(reforecastHead ? "This plan run" : "This forecast", run.modelRevision)}
+            </p>
           )}
           <p className="text-sm" data-testid="brief-iterations">
             <VerificationBadge verification={run.verification} /> {reforecastHead ? "Below is the plan run, which knows nothing of the work done since. " : ""}

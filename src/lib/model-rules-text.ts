@@ -1,0 +1,17 @@
+/**
+ * A run computed under an earlier revision of the model rules (the data layer's `olderRules`), in words: what
+ * changed since, so a planner can judge whether it matters to this plan before running it again.
+ */
+import { MODEL_CHANGES, MODEL_REVISION } from "@sim/model-revision";
+
+export function rulesChangedSince(revision: number): string[] {
+  const out: string[] = [];
+  for (let r = revision + 1; r <= MODEL_REVISION; r++) if (MODEL_CHANGES[r]) out.push(MODEL_CHANGES[r]);
+  return out;
+}
+
+/** "computed under earlier model rules; since then, …" — the caller says what to do about it. */
+export function olderRulesText(what: string, revision: number): string {
+  const changes = rulesChangedSince(revision);
+  return `${what} was computed under earlier model rules${changes.length ? `; since then ${changes.join("; and ")}` : ""}.`;
+}
