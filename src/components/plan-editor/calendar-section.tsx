@@ -134,7 +134,7 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
           <NumberField
             name="calendar.holidays.standDownStartHour"
             label="Stand-down starts at (hour of the day before)"
-            hint="15 = 15:00; 12 = noon; 0 = the whole day before."
+            hint="15 = 15:00; 12 = noon; 0 = the whole day before. Crews come back with the first shift that starts after the stand-down: a night shift begun on its last day is not worked."
             min={0}
             max={24}
             step="0.5"
@@ -199,7 +199,7 @@ export function CalendarSection({ readOnly }: { readOnly: boolean }) {
             ]}
           />
           <TextField name="calendar.season.winterStart" label="Winter starts (MM-DD)" />
-          <TextField name="calendar.season.winterEnd" label="Winter ends (MM-DD)" />
+          <TextField name="calendar.season.winterEnd" label="Winter ends (MM-DD)" hint="The first day back; its first shift is the first to start that day (a night shift of the day before is not worked)." />
           <NumberField name="calendar.season.demobilizeHours" label="Demobilize before winter (h)" min={0} />
           <NumberField name="calendar.season.remobilizeHours" label="Remobilize after winter (h)" min={0} />
         </div>
