@@ -5,7 +5,7 @@ import { getDb, prepared } from "../client";
 import { projectMembers, projects, scenarios, simulationRuns, users, type Role } from "../schema";
 import { forecastOrder, isForecast } from "./runs";
 import { shiftsNotInRun } from "./progress";
-import { staleSql } from "./stale";
+import { olderRulesSql, staleSql } from "./stale";
 
 /**
  * The headline of a project's plan of record, as columns to select beside the project: the plan's name and its
@@ -23,6 +23,7 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
       dataDate: sql<string | null>`${simulationRuns.dataDate}`.as("plan_run_data_date"),
       version: sql<number>`${simulationRuns.scenarioVersion}`.as("plan_run_version"),
       shiftsNotIn: sql<number>`${shiftsNotInRun}`.as("plan_run_shifts_not_in"),
+      olderRules: sql<boolean>`${olderRulesSql()}`.as("plan_run_older_rules"),
     })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, projects.planScenarioId), isForecast))
@@ -48,6 +49,8 @@ function planOfRecordParts(db: ReturnType<typeof getDb>) {
     planRunStale: sql<boolean | null>`${staleSql(planRun.version, plan.version)}`,
     /** Field-log changes the newest forecast does not know (progress.ts `shiftsNotInRun`). */
     planRunShiftsNotIn: planRun.shiftsNotIn,
+    /** Computed under an earlier revision of the model rules (stale.ts `olderRulesSql`). */
+    planRunOlderRules: planRun.olderRules,
     previousRunSummary: previousRun.summary,
   };
   return { plan, planRun, previousRun, columns };

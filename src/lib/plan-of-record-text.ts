@@ -18,6 +18,8 @@ export interface PlanOfRecordView {
   planRunStale: boolean | null;
   /** Field-log changes that forecast does not know (db/queries/progress.ts `shiftsNotInRun`). */
   planRunShiftsNotIn?: number | null;
+  /** That forecast was computed under an earlier revision of the model rules. */
+  planRunOlderRules?: boolean | null;
   /** The forecast before the newest, to say how far the finish moved (null: the newest is the only one). */
   previousRunSummary?: RunHeadline | Record<string, unknown> | null;
 }
@@ -78,7 +80,8 @@ export function targetChanceText(targetDate: string | null, probability: number 
 
 /**
  * The newest forecast of a plan of record as "P80 finish {p80}{rest}" plus a line saying which forecast and how old
- * (stale when the plan changed after it, and how many field-log changes it does not know); null when not run yet.
+ * (stale when the plan changed after it, how many field-log changes it does not know, and whether it was computed
+ * under earlier model rules); null when not run yet.
  */
 export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: string; when: string } | null {
   const h = plan.planRunSummary as RunHeadline | null;
@@ -90,6 +93,6 @@ export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: s
   return {
     p80: formatIsoDate(h.finish.p80),
     rest: ` (P50 ${formatIsoDate(h.finish.p50)})${move ? `, ${move}` : ""}${target}.`,
-    when: `${source}${plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}${plan.planRunShiftsNotIn ? ` ${changesNotInText(plan.planRunShiftsNotIn)}.` : ""}`,
+    when: `${source}${plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}${plan.planRunShiftsNotIn ? ` ${changesNotInText(plan.planRunShiftsNotIn)}.` : ""}${plan.planRunOlderRules ? " It was computed under earlier model rules." : ""}`,
   };
 }

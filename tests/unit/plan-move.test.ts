@@ -72,6 +72,12 @@ describe("the plan of record's forecast in words (the project list's and the for
     expect(planForecastText({ ...plan, planRunSummary: null, planRunAt: null })).toBeNull();
   });
 
+  it("says when the forecast was computed under earlier model rules", () => {
+    expect(planForecastText({ ...plan, planRunOlderRules: true })?.when).toBe(
+      "Re-forecast from the field log as of 31 Oct 2026, run 1 Nov 2026, 12:00. It was computed under earlier model rules.",
+    );
+  });
+
   it("the e-mail says the same sentence, links the plan, and escapes what people typed in its HTML", () => {
     const mail = forecastAlertMail({ to: "a@b.example", projectName: "Deck <b>overlay</b>", plan: { ...plan, planName: "Plan & co" }, planChanged: false, planLink: "http://x/scenarios/p", projectLink: "http://x/projects/q" })!;
     expect(mail.subject).toBe("Forecast for Deck <b>overlay</b>: P80 finish 23 Aug 2027");
