@@ -36,6 +36,23 @@ export interface ProgressEntryAnswer {
 }
 
 /**
+ * What `POST /api/scenarios/:id/progress/import/check` answers for a file whose every row passes (one with any
+ * problem answers 400 naming each line and column, as the import does): what loading it would add. Nothing is stored.
+ */
+export interface ProgressImportPreview {
+  shifts: number;
+  skippedDeleted: number;
+  /** The work dates of the first and last shift in the file (yyyy-mm-dd); null when it holds none. */
+  from: string | null;
+  to: string | null;
+  /** Each operation the file records, in the plan's order: its shifts, the feet they cover, their dates, hours lost. */
+  operations: { operationId: string; name: string; shifts: number; feet: number; first: string; last: string; lostHours: number }[];
+  rainShifts: number;
+  /** Discovered conditions recorded with the shifts. */
+  discovered: number;
+}
+
+/**
  * What `POST /api/scenarios/:id/progress/import` answers once a file's shifts are in the log (all of them; a file
  * with any problem stores none and answers 400 naming each line and column): how many were loaded, and how many rows
  * the download with deleted shifts marked deleted and were left out.

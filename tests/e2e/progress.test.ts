@@ -186,7 +186,7 @@ describe("field log", () => {
 });
 
 describe("shifts loaded from a file", () => {
-  it("an inspector loads a site spreadsheet into a field log: a bad row is named by its line, the good file loads whole", async () => {
+  it("an inspector loads a site spreadsheet into a field log: a bad row is named by its line, the good file is checked, then loads whole", async () => {
     const scheduler = await signInAs("scheduler");
     const id = (await createPastScenario(scheduler, (await kestrelProject(scheduler)).id, "E2E field log from a file")).id;
     const page = await signedIn("inspector");
@@ -196,14 +196,25 @@ describe("shifts loaded from a file", () => {
     const file = (rows: string[]) => ({ name: "site-log.csv", mimeType: "text/csv", buffer: Buffer.from(["Work date,Shift,Operation name,Station from,Station to,Rain", ...rows].join("\n")) });
     const good = [`${day(1)},Day shift,Mechanical milling,0+00,2+00,no`, `${day(2)},Day shift,Mechanical milling,2+00,4+00,yes`];
     await box.locator("input[type=file]").setInputFiles(file([...good, `${day(3)},Day shift,Planing,4+00,5+00,no`]));
-    await box.getByRole("button", { name: "Load the shifts" }).click();
+    await box.getByRole("button", { name: "Check the file" }).click();
     const problems = page.getByTestId("upload-errors");
     await problems.waitFor();
     expect(await problems.textContent()).toContain("The file has 1 problem; nothing was imported.");
     expect(await problems.textContent()).toContain("row 4 · operation_name: “Planing” is not an operation of this plan");
+    expect(await box.getByRole("button", { name: /^Load the/ }).count()).toBe(0);
     expect(await seriousA11yViolations(page)).toEqual([]);
     await box.locator("input[type=file]").setInputFiles(file(good));
-    await box.getByRole("button", { name: "Load the shifts" }).click();
+    await box.getByRole("button", { name: "Check the file" }).click();
+    // What it would add, before anything is stored: the log is still empty.
+    const preview = box.getByTestId("import-shifts-preview");
+    await preview.waitFor();
+    expect(await preview.textContent()).toContain(`The file holds 2 shifts, worked ${formatIsoDate(day(1))} to ${formatIsoDate(day(2))}`);
+    expect(await preview.getByRole("row", { name: /Mechanical milling/ }).textContent()).toContain("400 ft");
+    expect(await preview.textContent()).toContain("1 shift with rain; 0 discovered conditions.");
+    expect(await page.getByText("2 shifts recorded.").count()).toBe(0);
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await screenshot(page, "field-log-file-checked");
+    await box.getByRole("button", { name: "Load the 2 shifts" }).click();
     await expect.poll(() => box.getByTestId("import-shifts-done").textContent().catch(() => "")).toBe(
       `Loaded 2 shifts, worked ${formatIsoDate(day(1))} to ${formatIsoDate(day(2))}. The forecast knows them from the next re-forecast.`,
     );

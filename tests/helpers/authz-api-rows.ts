@@ -384,6 +384,11 @@ export const API_ROWS: Record<string, ApiRow> = {
     ok: 201,
     request: async (w) => ({ params: { scenarioId: (await createPastScenario(admin(w), w.projectId, uniq("field log file"))).id }, body: shiftsForm() }),
   },
+  "POST /api/scenarios/[scenarioId]/progress/import/check": {
+    need: { kind: "scenario", action: "recordProgress" },
+    ok: 200,
+    request: async (w) => ({ params: { scenarioId: (await createPastScenario(admin(w), w.projectId, uniq("field log file checked"))).id }, body: shiftsForm() }),
+  },
   "GET /api/progress/[entryId]": { need: { kind: "scenario", action: "read" }, ok: 200, request: async (w) => ({ params: { entryId: w.field.entryId } }) },
   "PUT /api/progress/[entryId]": {
     need: { kind: "scenario", action: "recordProgress" },

@@ -166,6 +166,15 @@ describe(`fuzz: ${RUNS} generated bodies per write route`, () => {
     expect(await count(path, "entries")).toBe(before);
   });
 
+  it("POST /api/scenarios/:id/progress/import/check (multipart)", { timeout: ROUTE_TIMEOUT_MS }, async () => {
+    const path = `/api/scenarios/${field.id}/progress`;
+    const before = await count(path, "entries");
+    const passed = judge("check a file of shifts", await sendAll(sample(uploadBodies, 8), upload(`${path}/import/check`)));
+    // The check reads as the import does (none of these passes it) and stores nothing whatever it answers.
+    expect(passed).toBe(0);
+    expect(await count(path, "entries")).toBe(before);
+  });
+
   it("POST /api/scenarios/:id/uploads (multipart)", { timeout: ROUTE_TIMEOUT_MS }, async () => {
     const path = `/api/scenarios/${target.id}/uploads`;
     const before = await count(path, "uploads");

@@ -1,5 +1,6 @@
 /**
- * Loading shifts into the field log from a CSV file, over HTTP against the running app: an inspector loads a file,
+ * Loading shifts into the field log from a CSV file, over HTTP against the running app: the check says what a file
+ * would add and stores nothing; an inspector loads a file,
  * the shifts are in the log in their name with a history row each; the field log's own download loads into another
  * scenario as the same shifts; a file with one bad row, or one that repeats shifts already recorded, loads nothing
  * and names each line and column.
@@ -22,6 +23,7 @@ const csvFile = (text: string, name = "site-log.csv") => {
   return form;
 };
 const load = (id: string, text: string, cookie = inspector.cookie) => call(`/api/scenarios/${id}/progress/import`, { method: "POST", cookie, body: csvFile(text) });
+const check = (id: string, text: string, cookie = inspector.cookie) => call(`/api/scenarios/${id}/progress/import/check`, { method: "POST", cookie, body: csvFile(text) });
 const entriesOf = async (id: string) => (await call(`/api/scenarios/${id}/progress`, { cookie: engineer })).body.entries as Record<string, unknown>[];
 /** An entry's recorded fields (what a shift is), without who recorded it, when, or its id. */
 const fieldsOf = (e: Record<string, unknown>) => {
@@ -50,6 +52,31 @@ afterAll(async () => {
 });
 
 describe("shifts loaded from a CSV file", () => {
+  it("are checked first: the check says what the file would add, operation by operation, and stores nothing", async () => {
+    const other = (await createPastScenario(engineer, projectId, "Checked, not loaded")).id;
+    const res = await check(other, SITE_LOG);
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({
+      shifts: 3,
+      skippedDeleted: 0,
+      from: day(0),
+      to: day(2),
+      operations: [
+        { operationId: "milling", name: "Mechanical milling", shifts: 2, feet: 600, first: day(0), last: day(1), lostHours: 2 },
+        { operationId: "overlay", name: "Overlay placement", shifts: 1, feet: 200, first: day(2), last: day(2), lostHours: 0 },
+      ],
+      rainShifts: 1,
+      discovered: 1,
+    });
+    expect(await entriesOf(other)).toEqual([]);
+    // A file the import would refuse, the check refuses in the same words.
+    const bad = ["work_date,shift,operation,station_from_ft,station_to_ft", `${day(0)},graveyard,milling,0,300`].join("\n");
+    const refused = await check(other, bad);
+    expect(refused.status).toBe(400);
+    expect(refused.body.fields.map((f: { path: string; message: string }) => `${f.path}: ${f.message}`)).toEqual(["row 2 · shift: “graveyard” is not a shift of this plan (Day shift)"]);
+    expect(await entriesOf(other)).toEqual([]);
+  });
+
   it("are in the log at once, in the loader's name, each with its history", async () => {
     const res = await load(scenarioId, SITE_LOG);
     expect(res.status).toBe(201);

@@ -4,7 +4,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { readFieldLogCsv, MAX_IMPORT_SHIFTS } from "@/lib/csv/field-log-import";
+import { importSummary, readFieldLogCsv, MAX_IMPORT_SHIFTS } from "@/lib/csv/field-log-import";
 import { fieldLogCsv, type FieldLogRow } from "@/lib/exports/field-log-csv";
 import { parseScenario } from "@sim/validate";
 import type { ProgressEntry } from "@sim/progress-entry";
@@ -128,5 +128,28 @@ describe("a field log loaded from a CSV file", () => {
     expect(readFieldLogCsv("work_date,shift,operation,from,to\n2027-04-06,day,milling,0,100", plan, [], TODAY).problems[0]).toMatchObject({ row: 1, field: "stations" });
     const many = ["work_date,shift,operation,station_from_ft,station_to_ft", ...Array.from({ length: MAX_IMPORT_SHIFTS + 1 }, () => "2027-04-06,day,milling,0,1")].join("\n");
     expect(readFieldLogCsv(many, plan, [], TODAY).problems).toEqual([{ row: 1, field: "(file)", message: "the file holds 5,001 shifts; load at most 5,000 at a time" }]);
+  });
+
+  it("sums what a checked file would add, operation by operation in the plan's order, before anything is stored", () => {
+    // Overlay rows first in the file: the summary follows the plan (milling, then overlay), not the file.
+    const log = [
+      shift({ workDate: "2027-04-09", operationId: "overlay", fromStationFt: 0, toStationFt: 150, rain: true, lostHours: 1.5, lostReason: "Rain" }),
+      shift({ crew: "M1", discovered: [{ kind: "bottom-mat", fromStationFt: 50, toStationFt: 75, areaSqFt: 12 }] }),
+      shift({ workDate: "2027-04-07", fromStationFt: 200, toStationFt: 450.5, lostHours: 2, lostReason: "Breakdown" }),
+    ];
+    const read = readFieldLogCsv(download(log), plan, [], TODAY);
+    expect(read.problems).toEqual([]);
+    expect(importSummary(read, plan)).toEqual({
+      shifts: 3,
+      skippedDeleted: 0,
+      from: "2027-04-06",
+      to: "2027-04-09",
+      operations: [
+        { operationId: "milling", name: "Mechanical milling", shifts: 2, feet: 450.5, first: "2027-04-06", last: "2027-04-07", lostHours: 2 },
+        { operationId: "overlay", name: "Overlay placement", shifts: 1, feet: 150, first: "2027-04-09", last: "2027-04-09", lostHours: 1.5 },
+      ],
+      rainShifts: 1,
+      discovered: 1,
+    });
   });
 });

@@ -13,6 +13,7 @@
 import { readCsv, type RowProblem } from "./common";
 import { checkProgressEntry, DISCOVERED_KINDS, DISCOVERED_LABELS, progressEntrySchema, type ProgressEntry, type RuleEntry } from "@/lib/progress-schema";
 import type { Scenario } from "@sim/schema";
+import type { ProgressImportPreview } from "@/lib/progress-contract";
 
 /** The most shifts one file may hold (a season of two shifts a day over every operation is well under it). */
 export const MAX_IMPORT_SHIFTS = 5_000;
@@ -147,4 +148,37 @@ export function readFieldLogCsv(text: string, plan: Scenario, existing: Readonly
     }
   }
   return { shifts: problems.length ? [] : shifts, skippedDeleted, problems };
+}
+
+/**
+ * What a file's shifts come to, operation by operation in the plan's order — what the Field log shows after
+ * "Check the file" and before anything is stored, so whoever loads a season of shifts sees that the file says what
+ * they meant (each operation's shifts and feet, the dates, the rain and lost hours) before it is in the log.
+ */
+export function importSummary(read: Pick<FieldLogImport, "shifts" | "skippedDeleted">, plan: Scenario): ProgressImportPreview {
+  const entries = read.shifts.map((s) => s.entry);
+  const dates = entries.map((e) => e.workDate).sort();
+  const operations = plan.operations.flatMap((op) => {
+    const mine = entries.filter((e) => e.operationId === op.id);
+    if (mine.length === 0) return [];
+    const days = mine.map((e) => e.workDate).sort();
+    return [{
+      operationId: op.id,
+      name: op.name,
+      shifts: mine.length,
+      feet: mine.reduce((sum, e) => sum + (e.toStationFt - e.fromStationFt), 0),
+      first: days[0],
+      last: days.at(-1)!,
+      lostHours: mine.reduce((sum, e) => sum + e.lostHours, 0),
+    }];
+  });
+  return {
+    shifts: entries.length,
+    skippedDeleted: read.skippedDeleted,
+    from: dates[0] ?? null,
+    to: dates.at(-1) ?? null,
+    operations,
+    rainShifts: entries.filter((e) => e.rain).length,
+    discovered: entries.reduce((sum, e) => sum + e.discovered.length, 0),
+  };
 }
