@@ -5,7 +5,7 @@ import { scenarios, simulationRuns } from "../schema";
 import { isForecast } from "./runs";
 import { reforecastsOf } from "./progress";
 import type { CompareFigures } from "../../sim/run-summary-schema";
-import { staleSql } from "./stale";
+import { olderRulesSql, staleSql } from "./stale";
 
 /**
  * The part of a stored run that comparing needs: the run summary's compare figures (sim `CompareFigures`), null
@@ -35,6 +35,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       iterations: simulationRuns.iterations,
       runAt: simulationRuns.createdAt,
       runVerification: simulationRuns.verification,
+      runOlderRules: sql<boolean>`${olderRulesSql()}`.as("run_older_rules"),
       slice: sql<CompareSlice>`jsonb_build_object(
         'startDate', ${r} -> 'startDate',
         'unfinishedIterations', ${r} -> 'unfinishedIterations',
@@ -64,6 +65,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       targetDate: sql<string | null>`${summary} ->> 'targetDate'`.as("reforecast_target_date"),
       targetProbability: sql<number | null>`(${summary} ->> 'targetProbability')::float8`.as("reforecast_target_probability"),
       stale: sql<boolean | null>`${staleSql(simulationRuns.scenarioVersion, scenarios.version)}`.as("reforecast_stale"),
+      olderRules: sql<boolean | null>`${olderRulesSql()}`.as("reforecast_older_rules"),
     })
     .from(simulationRuns)
     .where(reforecastsOf(scenarios.id))
@@ -81,6 +83,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       runAt: latest.runAt,
       runVerification: latest.runVerification,
       runStale: sql<boolean | null>`${staleSql(latest.runVersion, scenarios.version)}`,
+      runOlderRules: latest.runOlderRules,
       slice: latest.slice,
       reforecastDataDate: reforecast.dataDate,
       reforecastAt: reforecast.createdAt,
@@ -89,6 +92,7 @@ export async function listCompareScenarios({ projectId, ids }: { projectId: stri
       reforecastTargetDate: reforecast.targetDate,
       reforecastTargetProbability: reforecast.targetProbability,
       reforecastStale: reforecast.stale,
+      reforecastOlderRules: reforecast.olderRules,
     })
     .from(scenarios)
     .leftJoin(latest, eq(latest.scenarioId, scenarios.id))

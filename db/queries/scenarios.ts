@@ -5,7 +5,7 @@ import { getDb, prepared, type Database } from "../client";
 import { scenarioRevisions, scenarios, simulationRuns, users, type RunVerification } from "../schema";
 import { isForecast } from "./runs";
 import { reforecastsOf } from "./progress";
-import { staleSql } from "./stale";
+import { olderRulesSql, staleSql } from "./stale";
 
 const owner = alias(users, "owner");
 const editor = alias(users, "editor");
@@ -44,6 +44,7 @@ function projectScenarios(db: Database) {
       runSummary: sql<Record<string, unknown> | null>`${simulationRuns.summary}`.as("run_summary"),
       runAt: sql<Date | null>`${simulationRuns.createdAt}`.mapWith(simulationRuns.createdAt).as("run_at"),
       runVerification: sql<RunVerification | null>`${simulationRuns.verification}`.as("run_verification"),
+      runOlderRules: sql<boolean | null>`${olderRulesSql()}`.as("run_older_rules"),
     })
     .from(simulationRuns)
     .where(and(eq(simulationRuns.scenarioId, scenarios.id), isNull(simulationRuns.dataDate), isForecast))
@@ -79,6 +80,7 @@ function projectScenarios(db: Database) {
       runAt: latestRun.runAt,
       runVerification: latestRun.runVerification,
       runStale: sql<boolean | null>`${staleSql(latestRun.runVersion, scenarios.version)}`,
+      runOlderRules: latestRun.runOlderRules,
       pendingRunAt: pendingRun.pendingAt,
       reforecastP80: latestReforecast.reforecastP80,
       reforecastDataDate: latestReforecast.reforecastDataDate,

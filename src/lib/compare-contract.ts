@@ -24,6 +24,8 @@ export type CompareRun = CompareFigures & {
   id: string;
   scenarioVersion: number;
   stale: boolean;
+  /** Computed under an earlier revision of the model rules (the data layer's `olderRules`). */
+  olderRules: boolean;
   /** "server" or "verified": compare shows forecasts only (the data layer leaves pending and rejected runs out). */
   verification: RunVerification;
   iterations: number;
@@ -46,6 +48,8 @@ export interface CompareReforecast {
   targetProbability: number | null;
   /** The plan changed after it (the data layer's stale rule). */
   stale: boolean;
+  /** Computed under an earlier revision of the model rules. */
+  olderRules: boolean;
 }
 
 export interface CompareScenario {

@@ -19,6 +19,8 @@ export interface ScenarioListRow extends Omit<ScenarioRecord, "definition"> {
   runVerification: RunVerification | null;
   /** The data layer's rule: the plan changed after the run. */
   runStale: boolean | null;
+  /** The run was computed under an earlier revision of the model rules (the data layer's `olderRules`). */
+  runOlderRules: boolean | null;
   /** A newer browser run the server has not verified yet (not the forecast). */
   pendingRunAt: string | null;
   /** The newest re-forecast from the field log, if any: its P80 and data date. */

@@ -65,6 +65,7 @@ describe("compare on a job under way", () => {
       targetDate: stored.summary.targetDate,
       targetProbability: stored.summary.targetProbability,
       stale: false,
+      olderRules: false,
     });
     expect(a.reforecast?.targetDate).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(b.reforecast).toBeNull();

@@ -51,6 +51,11 @@ describe("a run of older model rules", () => {
     expect([old.status, old.body.run.olderRules, old.body.run.modelRevision, old.body.run.stale]).toEqual([200, true, 1, false]);
     const listed = await call(`/api/scenarios/${s.id}/runs`, { cookie: scheduler });
     expect(listed.body.runs[0].olderRules).toBe(true);
+    // The project's scenario list and Compare say it too (compare runs of different rules are not like with like).
+    const list = await call(`/api/projects/${projectId}/scenarios`, { cookie: scheduler });
+    expect(list.body.scenarios.find((x: { id: string }) => x.id === s.id).runOlderRules).toBe(true);
+    const compared = await call(`/api/projects/${projectId}/compare?ids=${s.id}`, { cookie: scheduler });
+    expect(compared.body.scenarios[0].run.olderRules).toBe(true);
 
     const page = (await call(`/scenarios/${s.id}`, { cookie: scheduler })).body as string;
     expect(page).toContain('data-testid="older-rules-run"');
@@ -68,6 +73,7 @@ describe("a run of older model rules", () => {
     expect(redone.runId).not.toBe(runId);
     const now = await call(`/api/runs/${redone.runId}`, { cookie: scheduler });
     expect([now.body.run.olderRules, now.body.run.modelRevision]).toEqual([false, MODEL_REVISION]);
+    expect((await call(`/api/projects/${projectId}/compare?ids=${s.id}`, { cookie: scheduler })).body.scenarios[0].run.olderRules).toBe(false);
     expect((await call(`/scenarios/${s.id}`, { cookie: scheduler })).body).not.toContain('data-testid="older-rules-run"');
   });
 });

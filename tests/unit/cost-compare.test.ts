@@ -5,7 +5,7 @@ import type { CompareRun, CompareScenario } from "@/lib/compare-contract";
 
 function run(over: Partial<CompareRun> = {}): CompareRun {
   return {
-    id: "r", scenarioVersion: 1, stale: false, verification: "server", iterations: 500, createdAt: "2026-01-01T00:00:00Z", startDate: "2027-04-05",
+    id: "r", scenarioVersion: 1, stale: false, olderRules: false, verification: "server", iterations: 500, createdAt: "2026-01-01T00:00:00Z", startDate: "2027-04-05",
     unfinishedIterations: 0,
     finish: { p10: "2027-09-20", p50: "2027-10-01", p80: "2027-10-10", p90: "2027-10-20" },
     finishAt: { p10: "2027-09-20T10:00", p50: "2027-10-01T10:00", p80: "2027-10-10T10:00", p90: "2027-10-20T10:00" },

@@ -1,6 +1,6 @@
 // Compare: the ids parameter, and differences from the first scenario in days, points, hours and shifts.
 import { describe, expect, it } from "vitest";
-import { compareRows, dayDiff, reforecastNotice, reforecastText, signed } from "@/components/results/compare-logic";
+import { compareRows, dayDiff, olderRulesNotice, reforecastNotice, reforecastText, signed } from "@/components/results/compare-logic";
 import { parseCompareIds, type CompareReforecast, type CompareRun, type CompareScenario } from "@/lib/compare-contract";
 import { dateTicks } from "@/components/results/date-axis";
 import { civilFromDays, daysFromCivil } from "@sim/dates";
@@ -10,6 +10,7 @@ function run(over: Partial<CompareRun> = {}): CompareRun {
     id: "r",
     scenarioVersion: 1,
     stale: false,
+    olderRules: false,
     verification: "server",
     iterations: 500,
     createdAt: "2026-01-01T00:00:00Z",
@@ -112,6 +113,7 @@ describe("a re-forecast beside the plan runs compared", () => {
     targetDate: "2027-07-02",
     targetProbability: 0,
     stale: false,
+    olderRules: false,
     ...over,
   });
 
@@ -119,6 +121,9 @@ describe("a re-forecast beside the plan runs compared", () => {
     expect(reforecastText(reforecast())).toBe("P80 23 Aug 2027 (P50 15 Aug 2027), 0\u00a0% chance of finishing by the 2 Jul 2027 target, from the work recorded up to 31 Oct 2026");
     expect(reforecastText(reforecast({ targetDate: null, targetProbability: null, stale: true }))).toBe(
       "P80 23 Aug 2027 (P50 15 Aug 2027), from the work recorded up to 31 Oct 2026 (the plan has changed since, so it is stale until the next one)",
+    );
+    expect(reforecastText(reforecast({ olderRules: true }))).toBe(
+      "P80 23 Aug 2027 (P50 15 Aug 2027), 0\u00a0% chance of finishing by the 2 Jul 2027 target, from the work recorded up to 31 Oct 2026 (computed under earlier model rules)",
     );
     expect(reforecastText(reforecast({ p80: "unfinished" }))).toMatch(/^P80 not reached within the six-year horizon \(P50 15 Aug 2027\)/);
   });
@@ -128,5 +133,17 @@ describe("a re-forecast beside the plan runs compared", () => {
     const notice = reforecastNotice([sc("plain", run()), { ...sc("Under way", run()), reforecast: reforecast() }]);
     expect(notice?.lead).toMatch(/plan runs from each plan's start date, which know nothing of the work done/);
     expect(notice?.lines).toEqual([`Under way has been re-forecast from its field log: ${reforecastText(reforecast())}.`]);
+  });
+});
+
+describe("runs of earlier model rules among those compared", () => {
+  it("are named, and the notice says the differences are partly the rules' when today's runs are beside them", () => {
+    expect(olderRulesNotice([sc("A", run()), sc("B", run())])).toBeNull();
+    expect(olderRulesNotice([sc("A", run({ olderRules: true })), sc("B", run())])).toBe(
+      "The latest plan run of A was computed under earlier model rules, so the differences below are partly the rules'. Run it again to compare under today's rules.",
+    );
+    expect(olderRulesNotice([sc("A", run({ olderRules: true })), sc("B", run({ olderRules: true })), sc("C", run({ olderRules: true }))])).toBe(
+      "The latest plan runs of A, B and C were computed under earlier model rules. Run them again to compare under today's rules.",
+    );
   });
 });

@@ -136,7 +136,8 @@ export function reforecastText(f: CompareReforecast): string {
   const chance = targetChanceText(f.targetDate, f.targetProbability);
   const target = chance ? `, ${chance}` : "";
   const stale = f.stale ? " (the plan has changed since, so it is stale until the next one)" : "";
-  return `P80 ${quantileText(f.p80)} (P50 ${quantileText(f.p50)})${target}, from the work recorded up to ${formatIsoDate(f.dataDate)}${stale}`;
+  const rules = f.olderRules ? " (computed under earlier model rules)" : "";
+  return `P80 ${quantileText(f.p80)} (P50 ${quantileText(f.p50)})${target}, from the work recorded up to ${formatIsoDate(f.dataDate)}${stale}${rules}`;
 }
 
 /**
@@ -151,4 +152,17 @@ export function reforecastNotice(scenarios: CompareScenario[]): { lead: string; 
     lead: "The figures below are plan runs from each plan's start date, which know nothing of the work done.",
     lines: with_.map((s) => `${s.name} has been re-forecast from its field log: ${reforecastText(s.reforecast)}.`),
   };
+}
+
+/**
+ * The runs compared that were computed under earlier model rules, named: beside runs of today's rules their figures
+ * differ by the rule change as well as by the plans, so the page says which to run again to compare like with like.
+ * Null when every run compared is of today's rules.
+ */
+export function olderRulesNotice(scenarios: CompareScenario[]): string | null {
+  const older = scenarios.filter((s) => s.run?.olderRules).map((s) => s.name);
+  if (older.length === 0) return null;
+  const which = older.length === 1 ? `run of ${older[0]} was` : `runs of ${older.slice(0, -1).join(", ")} and ${older.at(-1)} were`;
+  const mixed = older.length < scenarios.filter((s) => s.run).length;
+  return `The latest plan ${which} computed under earlier model rules${mixed ? ", so the differences below are partly the rules'" : ""}. Run ${older.length === 1 ? "it" : "them"} again to compare under today's rules.`;
 }

@@ -61,6 +61,11 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
           return (
             <span className="flex flex-wrap gap-1">
               {v === "stale" ? <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">Stale</span> : <span className="badge bg-brand-50 text-brand-800">Current</span>}
+              {r.runOlderRules && (
+                <span className="badge bg-warn-bg text-warn" title="Computed under earlier model rules: run it again for today's">
+                  Older rules
+                </span>
+              )}
               <VerificationBadge verification={r.runVerification} />
               {pending}
             </span>

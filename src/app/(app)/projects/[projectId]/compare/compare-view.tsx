@@ -11,7 +11,7 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { formatIsoDate } from "@/lib/format";
 import { cdfPoints, ConfidenceChart, LineSwatch, seriesStyle, type Curve } from "@/components/results";
-import { compareRows, reforecastNotice, reforecastText } from "@/components/results/compare-logic";
+import { compareRows, olderRulesNotice, reforecastNotice, reforecastText } from "@/components/results/compare-logic";
 import { MAX_COMPARE, type CompareAnswer, type CompareScenario } from "@/lib/compare-contract";
 import type { ScenarioListAnswer } from "@/lib/scenario-list-contract";
 import { quantileText } from "@/components/results/summary-text";
@@ -171,6 +171,7 @@ function CompareResults({
   });
   const rows = compareRows(scenarios);
   const notice = reforecastNotice(scenarios);
+  const rulesNotice = olderRulesNotice(scenarios);
   const underWay = scenarios.find((s) => s.reforecast);
   const aria =
     "Confidence curves of the chosen scenarios on one date axis: " +
@@ -198,6 +199,11 @@ function CompareResults({
             </p>
           )}
         </div>
+      )}
+      {rulesNotice && (
+        <p className="rounded-md border border-warn/30 bg-warn-bg px-4 py-2 text-sm" role="status" data-testid="compare-older-rules">
+          {rulesNotice}
+        </p>
       )}
       <section className="card" aria-labelledby="curves-heading">
         <h2 id="curves-heading">Confidence curves</h2>
@@ -246,6 +252,7 @@ function CompareResults({
                   <div className="mt-1 flex flex-wrap items-center gap-1.5 font-normal">
                     {i === 0 ? <span className="badge bg-brand-50 text-brand-800">Baseline</span> : null}
                     {s.run?.stale && <span className="badge bg-warn-bg text-warn">Stale run</span>}
+                    {s.run?.olderRules && <span className="badge bg-warn-bg text-warn" title="Computed under earlier model rules">Older rules</span>}
                     {s.run && <VerificationBadge verification={s.run.verification} />}
                     {!s.run && <span className="badge border border-line text-muted">Not run yet</span>}
                     {s.run && s.run.unfinishedIterations > 0 && (

@@ -35,6 +35,7 @@ export const GET = handler(async (req: Request, ctx: { params: Promise<{ project
               id: r.runId,
               scenarioVersion: r.runVersion!,
               stale: !!r.runStale,
+              olderRules: !!r.runOlderRules,
               verification: r.runVerification!,
               iterations: r.iterations!,
               createdAt: new Date(r.runAt!).toISOString(),
@@ -61,6 +62,7 @@ export const GET = handler(async (req: Request, ctx: { params: Promise<{ project
               targetDate: r.reforecastTargetDate,
               targetProbability: r.reforecastTargetProbability,
               stale: !!r.reforecastStale,
+              olderRules: !!r.reforecastOlderRules,
             }
           : null,
     };
