@@ -140,10 +140,10 @@ describe("runs of earlier model rules among those compared", () => {
   it("are named, and the notice says the differences are partly the rules' when today's runs are beside them", () => {
     expect(olderRulesNotice([sc("A", run()), sc("B", run())])).toBeNull();
     expect(olderRulesNotice([sc("A", run({ olderRules: true })), sc("B", run())])).toBe(
-      "The latest plan run of A was computed under earlier model rules, so the differences below are partly the rules'. Run it again to compare under today's rules.",
+      "The latest plan run of A was computed under earlier model rules, so the differences below are partly the rules'. A new run of it compares under today's rules.",
     );
     expect(olderRulesNotice([sc("A", run({ olderRules: true })), sc("B", run({ olderRules: true })), sc("C", run({ olderRules: true }))])).toBe(
-      "The latest plan runs of A, B and C were computed under earlier model rules. Run them again to compare under today's rules.",
+      "The latest plan runs of A, B and C were computed under earlier model rules. A new run of each compares under today's rules.",
     );
   });
 });

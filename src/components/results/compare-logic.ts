@@ -164,5 +164,5 @@ export function olderRulesNotice(scenarios: CompareScenario[]): string | null {
   if (older.length === 0) return null;
   const which = older.length === 1 ? `run of ${older[0]} was` : `runs of ${older.slice(0, -1).join(", ")} and ${older.at(-1)} were`;
   const mixed = older.length < scenarios.filter((s) => s.run).length;
-  return `The latest plan ${which} computed under earlier model rules${mixed ? ", so the differences below are partly the rules'" : ""}. Run ${older.length === 1 ? "it" : "them"} again to compare under today's rules.`;
+  return `The latest plan ${which} computed under earlier model rules${mixed ? ", so the differences below are partly the rules'" : ""}. A new run of ${older.length === 1 ? "it" : "each"} compares under today's rules.`;
 }

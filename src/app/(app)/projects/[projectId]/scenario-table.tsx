@@ -60,7 +60,14 @@ export function ScenarioTable({ projectId, canEdit, planScenarioId = null }: { p
           if (v === "none") return <span className="flex flex-wrap gap-1">{pending ?? <span className="badge border border-line text-muted">Not run</span>}</span>;
           return (
             <span className="flex flex-wrap gap-1">
-              {v === "stale" ? <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">Stale</span> : <span className="badge bg-brand-50 text-brand-800">Current</span>}
+              {/* "Current" is said only of a run of today's plan and today's model rules. */}
+              {v === "stale" ? (
+                <span className="badge bg-warn-bg text-warn" title="The scenario changed after this run">
+                  Stale
+                </span>
+              ) : (
+                !r.runOlderRules && <span className="badge bg-brand-50 text-brand-800">Current</span>
+              )}
               {r.runOlderRules && (
                 <span className="badge bg-warn-bg text-warn" title="Computed under earlier model rules: run it again for today's">
                   Older rules
