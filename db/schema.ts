@@ -470,6 +470,8 @@ export const planSearches = pgTable(
      * so every plan of it starts from the same as-built state however the log changes meanwhile; null otherwise.
      */
     fieldLog: jsonb("field_log").$type<ProgressRecord[]>(),
+    /** The revision of the model rules its plans are computed under (sim/model-revision.ts), as on simulation_runs. */
+    modelRevision: integer("model_revision").notNull(),
     createdById: text("created_by")
       .notNull()
       .references(() => users.id),

@@ -6,7 +6,8 @@ import { engineJobs, planSearches, planSearchVariants, scenarios, users } from "
 import type { SearchSpec } from "../../sim/search";
 import type { PlanOutcome } from "../../sim/frontier";
 import type { ProgressRecord } from "../../sim/asbuilt";
-import { staleSql } from "./stale";
+import { olderRulesSql, staleSql } from "./stale";
+import { MODEL_REVISION } from "../../sim/model-revision";
 
 export interface NewSearch {
   projectId: string;
@@ -27,7 +28,7 @@ export async function createSearch(input: NewSearch) {
   return getDb().transaction(async (tx) => {
     const [search] = await tx
       .insert(planSearches)
-      .values({ projectId: input.projectId, scenarioId: input.scenarioId, scenarioVersion: input.scenarioVersion, name: input.name, spec: input.spec, method: input.method, gridSize: input.gridSize, fieldLog: input.fieldLog ?? null, createdById: input.userId })
+      .values({ projectId: input.projectId, scenarioId: input.scenarioId, scenarioVersion: input.scenarioVersion, name: input.name, spec: input.spec, method: input.method, gridSize: input.gridSize, fieldLog: input.fieldLog ?? null, modelRevision: MODEL_REVISION, createdById: input.userId })
       .returning();
     await tx.insert(planSearchVariants).values(input.variants.map((v) => ({ ...v, searchId: search.id })));
     return search;
@@ -42,6 +43,7 @@ export async function getSearch({ id }: { id: string }) {
       scenarioId: planSearches.scenarioId,
       scenarioVersion: planSearches.scenarioVersion,
       stale: staleSql(planSearches.scenarioVersion, scenarios.version),
+      olderRules: olderRulesSql(planSearches.modelRevision),
       scenarioName: scenarios.name,
       name: planSearches.name,
       spec: planSearches.spec,

@@ -16,8 +16,8 @@ export function staleSql(computedFor: AnyColumn | SQL | SQL.Aliased, current: An
 export const runIsStale = () => staleSql(simulationRuns.scenarioVersion, sql`(select s.version from ${scenarios} s where s.id = ${simulationRuns.scenarioId})`);
 
 /**
- * The one rule for "older rules": a `simulation_runs` row computed under an earlier revision of the model rules
- * than this engine's (sim/model-revision.ts). Its figures are what the old rules said; running again gives
+ * The one rule for "older rules": a `simulation_runs` row (or, given its column, a plan search) computed under an
+ * earlier revision of the model rules than this engine's (sim/model-revision.ts). Its figures are what the old rules said; running again gives
  * today's. Not "stale" (the plan did not change), so it is said in its own words.
  */
-export const olderRulesSql = () => sql<boolean>`(${simulationRuns.modelRevision} < ${MODEL_REVISION})`;
+export const olderRulesSql = (revision: AnyColumn = simulationRuns.modelRevision) => sql<boolean>`(${revision} < ${MODEL_REVISION})`;

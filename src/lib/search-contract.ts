@@ -38,6 +38,8 @@ export interface SearchRecord {
   /** The version the search varied; `stale` once the plan was saved again since (then it can no longer be adopted). */
   scenarioVersion: number;
   stale: boolean;
+  /** Its plans are computed under an earlier revision of the model rules (the data layer's `olderRules`). */
+  olderRules: boolean;
   scenarioName: string;
   name: string;
   spec: SearchSpec;
@@ -59,7 +61,7 @@ export interface SearchAnswer {
   variants: SearchVariant[];
 }
 
-export type SharedSearchRecord = Pick<SearchRecord, "name" | "method" | "gridSize" | "variantCount" | "scenarioVersion" | "stale" | "createdAt" | "createdByName" | "jobStatus" | "fromFieldLog" | "fieldLogShifts">;
+export type SharedSearchRecord = Pick<SearchRecord, "name" | "method" | "gridSize" | "variantCount" | "scenarioVersion" | "stale" | "olderRules" | "createdAt" | "createdByName" | "jobStatus" | "fromFieldLog" | "fieldLogShifts">;
 
 /** The search itself as a link shows it; the shared page receives this part first from the server, then reads the whole answer again. */
 export interface SharedSearchPlans {

@@ -8,6 +8,7 @@ import type postgres from "postgres";
 import { call, kestrelProject, signInAs, demoDefinition } from "../helpers/app";
 import { appDatabase } from "../helpers/fresh-team";
 import { waitForJob } from "../helpers/jobs";
+import { newSearch, newSearchLink } from "../helpers/authz-world";
 import { MODEL_CHANGES, MODEL_REVISION } from "../../sim/model-revision";
 
 let db: postgres.Sql;
@@ -75,5 +76,19 @@ describe("a run of older model rules", () => {
     expect([now.body.run.olderRules, now.body.run.modelRevision]).toEqual([false, MODEL_REVISION]);
     expect((await call(`/api/projects/${projectId}/compare?ids=${s.id}`, { cookie: scheduler })).body.scenarios[0].run.olderRules).toBe(false);
     expect((await call(`/scenarios/${s.id}`, { cookie: scheduler })).body).not.toContain('data-testid="older-rules-run"');
+  });
+
+  it("a plan search of older rules is said so, to its members and on its share link", async () => {
+    const created = await call(`/api/projects/${projectId}/scenarios`, { method: "POST", cookie: scheduler, body: { name: "Older rules search", definition: { ...base, name: "Older rules search" } } });
+    expect(created.status).toBe(201);
+    const searchId = await newSearch(created.body.id, scheduler);
+    const link = await newSearchLink(searchId, scheduler);
+    const read = async () => [
+      (await call(`/api/searches/${searchId}`, { cookie: scheduler })).body.search.olderRules,
+      (await call(`/api/shared-search/${link.token}`, { cookie: null })).body.search.olderRules,
+    ];
+    expect(await read()).toEqual([false, false]);
+    await db`UPDATE plan_searches SET model_revision = 1 WHERE id = ${searchId}`;
+    expect(await read()).toEqual([true, true]);
   });
 });

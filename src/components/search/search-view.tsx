@@ -101,6 +101,11 @@ export function SearchSize({ search: s, variants }: { search: SharedSearchRecord
       {s.method === "grid" ? `Every combination: ${s.variantCount} variants` : `A space-filling sample of ${s.variantCount} variants out of ${s.gridSize.toLocaleString("en-US")} combinations`}, plus the plan as saved
       (version {s.scenarioVersion}
       {s.stale ? ", since changed" : ""}); every plan runs with the same seed. {done} of {variants.length} finished.
+      {s.olderRules && (
+        <span className="block text-warn" data-testid="search-older-rules">
+          Its plans were computed under earlier model rules; a new search computes them under today&apos;s.
+        </span>
+      )}
     </>
   );
 }

@@ -87,7 +87,7 @@ export function publicSearchView(search: SearchDetail, variants: Awaited<ReturnT
   const view = searchView(search, variants);
   const s = view.search;
   return {
-    search: { name: s.name, method: s.method, gridSize: s.gridSize, variantCount: s.variantCount, scenarioVersion: s.scenarioVersion, stale: s.stale, createdAt: s.createdAt, createdByName: s.createdByName, jobStatus: s.jobStatus, fromFieldLog: s.fromFieldLog, fieldLogShifts: s.fieldLogShifts },
+    search: { name: s.name, method: s.method, gridSize: s.gridSize, variantCount: s.variantCount, scenarioVersion: s.scenarioVersion, stale: s.stale, olderRules: s.olderRules, createdAt: s.createdAt, createdByName: s.createdByName, jobStatus: s.jobStatus, fromFieldLog: s.fromFieldLog, fieldLogShifts: s.fieldLogShifts },
     variants: view.variants.map((v) => ({ idx: v.idx, label: v.label, status: v.status, outcome: v.outcome, problem: v.problem, current: v.current, onFrontier: v.onFrontier })),
   };
 }
