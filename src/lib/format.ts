@@ -89,6 +89,11 @@ export function monthName(month: number, long = false): string {
   return format(new Date(2001, month - 1, 1), long ? "MMMM" : "MMM");
 }
 
+/** "1 shift", "2,000 shifts", "3 discovered conditions": a count with its noun, singular only for exactly one. */
+export function countText(n: number, one: string, many = `${one}s`): string {
+  return `${n.toLocaleString("en-US")} ${n === 1 ? one : many}`;
+}
+
 export function formatPercent(p: number | null | undefined, digits = 0): string {
   return p == null ? "—" : `${(p * 100).toFixed(digits)} %`;
 }

@@ -4,6 +4,9 @@
  */
 import { MODEL_CHANGES, MODEL_REVISION } from "@sim/model-revision";
 
+/** The words for a result of an earlier revision of the rules, the same wherever one is shown. */
+export const UNDER_OLDER_RULES = "computed under earlier model rules";
+
 export function rulesChangedSince(revision: number): string[] {
   const out: string[] = [];
   for (let r = revision + 1; r <= MODEL_REVISION; r++) if (MODEL_CHANGES[r]) out.push(MODEL_CHANGES[r]);
@@ -13,5 +16,5 @@ export function rulesChangedSince(revision: number): string[] {
 /** "computed under earlier model rules; since then, …" — the caller says what to do about it. */
 export function olderRulesText(what: string, revision: number): string {
   const changes = rulesChangedSince(revision);
-  return `${what} was computed under earlier model rules${changes.length ? `; since then ${changes.join("; and ")}` : ""}.`;
+  return `${what} was ${UNDER_OLDER_RULES}${changes.length ? `; since then ${changes.join("; and ")}` : ""}.`;
 }

@@ -5,6 +5,7 @@
 import { differenceInCalendarDays, isValid, parseISO } from "date-fns";
 import { formatDateTime, formatIsoDate, formatPercent } from "@/lib/format";
 import type { RunHeadline } from "@/lib/run-record";
+import { UNDER_OLDER_RULES } from "@/lib/model-rules-text";
 
 /** A project's plan of record and its newest forecast, as db/queries/projects.ts `planOfRecordParts` selects them. */
 export interface PlanOfRecordView {
@@ -93,6 +94,6 @@ export function planForecastText(plan: PlanOfRecordView): { p80: string; rest: s
   return {
     p80: formatIsoDate(h.finish.p80),
     rest: ` (P50 ${formatIsoDate(h.finish.p50)})${move ? `, ${move}` : ""}${target}.`,
-    when: `${source}${plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}${plan.planRunShiftsNotIn ? ` ${changesNotInText(plan.planRunShiftsNotIn)}.` : ""}${plan.planRunOlderRules ? " It was computed under earlier model rules." : ""}`,
+    when: `${source}${plan.planRunStale ? "; the plan has changed since, so this forecast is stale." : "."}${plan.planRunShiftsNotIn ? ` ${changesNotInText(plan.planRunShiftsNotIn)}.` : ""}${plan.planRunOlderRules ? ` It was ${UNDER_OLDER_RULES}.` : ""}`,
   };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { formatClockOnDay, formatDateTime, formatDateTimeIn, formatIsoClock, formatIsoDate, formatIsoDay } from "@/lib/format";
+import { countText, formatClockOnDay, formatDateTime, formatDateTimeIn, formatIsoClock, formatIsoDate, formatIsoDay } from "@/lib/format";
 
 // Weekdays checked against a printed calendar of 2026–2027 (3 Dec 2026 is a Thursday; 5 Apr 2027 a Monday).
 describe("date words on the week-ahead board and its e-mail", () => {
@@ -61,5 +61,17 @@ describe("date words on the week-ahead board and its e-mail", () => {
         expect(formatIsoDay(iso).slice(0, 3)).toBe(weekday);
       }),
     );
+  });
+});
+
+describe("a count with its noun", () => {
+  it("is singular only for exactly one, with thousands grouped", () => {
+    expect([countText(0, "shift"), countText(1, "shift"), countText(2000, "shift"), countText(1, "discovered condition"), countText(3, "day", "days")]).toEqual([
+      "0 shifts",
+      "1 shift",
+      "2,000 shifts",
+      "1 discovered condition",
+      "3 days",
+    ]);
   });
 });

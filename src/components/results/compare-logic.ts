@@ -9,6 +9,7 @@ import { formatIsoDate, formatPercent } from "@/lib/format";
 import { isoToDay } from "./date-axis";
 import { quantileText } from "./summary-text";
 import { targetChanceText } from "@/lib/plan-of-record-text";
+import { UNDER_OLDER_RULES } from "@/lib/model-rules-text";
 
 export interface CompareMetric {
   id: string;
@@ -136,7 +137,7 @@ export function reforecastText(f: CompareReforecast): string {
   const chance = targetChanceText(f.targetDate, f.targetProbability);
   const target = chance ? `, ${chance}` : "";
   const stale = f.stale ? " (the plan has changed since, so it is stale until the next one)" : "";
-  const rules = f.olderRules ? " (computed under earlier model rules)" : "";
+  const rules = f.olderRules ? ` (${UNDER_OLDER_RULES})` : "";
   return `P80 ${quantileText(f.p80)} (P50 ${quantileText(f.p50)})${target}, from the work recorded up to ${formatIsoDate(f.dataDate)}${stale}${rules}`;
 }
 
@@ -164,5 +165,5 @@ export function olderRulesNotice(scenarios: CompareScenario[]): string | null {
   if (older.length === 0) return null;
   const which = older.length === 1 ? `run of ${older[0]} was` : `runs of ${older.slice(0, -1).join(", ")} and ${older.at(-1)} were`;
   const mixed = older.length < scenarios.filter((s) => s.run).length;
-  return `The latest plan ${which} computed under earlier model rules${mixed ? ", so the differences below are partly the rules'" : ""}. A new run of ${older.length === 1 ? "it" : "each"} compares under today's rules.`;
+  return `The latest plan ${which} ${UNDER_OLDER_RULES}${mixed ? ", so the differences below are partly the rules'" : ""}. A new run of ${older.length === 1 ? "it" : "each"} compares under today's rules.`;
 }

@@ -11,6 +11,7 @@ import { JobProgress, useJob } from "@/components/run/job-progress";
 import { ConfirmDialog } from "@/components/confirm-dialog";
 import { api } from "@/lib/api-client";
 import { formatIsoDate } from "@/lib/format";
+import { UNDER_OLDER_RULES } from "@/lib/model-rules-text";
 import type { ScenarioCreatedAnswer } from "@/lib/scenario-contract";
 import type { SearchAdoptedAnswer, SearchAnswer, SharedSearchRecord, VariantRow } from "@/lib/search-contract";
 import { SearchPlans } from "./search-plans";
@@ -103,7 +104,7 @@ export function SearchSize({ search: s, variants }: { search: SharedSearchRecord
       {s.stale ? ", since changed" : ""}); every plan runs with the same seed. {done} of {variants.length} finished.
       {s.olderRules && (
         <span className="block text-warn" data-testid="search-older-rules">
-          Its plans were computed under earlier model rules; a new search computes them under today&apos;s.
+          Its plans were {UNDER_OLDER_RULES}; a new search computes them under today&apos;s.
         </span>
       )}
     </>

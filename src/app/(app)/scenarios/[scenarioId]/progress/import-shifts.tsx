@@ -9,11 +9,9 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useMutation } from "@tanstack/react-query";
 import { uploadFile } from "@/lib/api-client";
-import { formatIsoDate } from "@/lib/format";
+import { countText, formatIsoDate } from "@/lib/format";
 import type { ProgressImportAnswer, ProgressImportPreview } from "@/lib/progress-contract";
 import { UploadProblems } from "@/components/upload-problems";
-
-const plural = (n: number, one: string, many = `${one}s`) => `${n.toLocaleString("en-US")} ${n === 1 ? one : many}`;
 
 function fileForm(f: File): FormData {
   const data = new FormData();
@@ -26,9 +24,9 @@ function Preview({ preview }: { preview: ProgressImportPreview }) {
   return (
     <div className="mt-3" data-testid="import-shifts-preview">
       <p>
-        The file holds {plural(preview.shifts, "shift")}
+        The file holds {countText(preview.shifts, "shift")}
         {preview.from && preview.to ? `, worked ${formatIsoDate(preview.from)} to ${formatIsoDate(preview.to)}` : ""}
-        {preview.skippedDeleted ? ` (${plural(preview.skippedDeleted, "row")} marked deleted will be left out)` : ""}; every row passed the field log&apos;s checks. Nothing is
+        {preview.skippedDeleted ? ` (${countText(preview.skippedDeleted, "row")} marked deleted will be left out)` : ""}; every row passed the field log&apos;s checks. Nothing is
         stored yet.
       </p>
       <div className="mt-2 overflow-x-auto">
@@ -57,7 +55,7 @@ function Preview({ preview }: { preview: ProgressImportPreview }) {
         </table>
       </div>
       <p className="mt-2 text-muted">
-        {plural(preview.rainShifts, "shift")} with rain; {plural(preview.discovered, "discovered condition")}.
+        {countText(preview.rainShifts, "shift")} with rain; {countText(preview.discovered, "discovered condition")}.
       </p>
     </div>
   );
@@ -115,14 +113,14 @@ export function ImportShifts({ scenarioId }: { scenarioId: string }) {
           <>
             <Preview preview={preview} />
             <button type="button" className="btn-primary mt-3" disabled={!file || busy} onClick={() => file && load.mutate(file)}>
-              {load.isPending ? "Loading…" : `Load the ${plural(preview.shifts, "shift")}`}
+              {load.isPending ? "Loading…" : `Load the ${countText(preview.shifts, "shift")}`}
             </button>
           </>
         )}
         {done && (
           <p className="mt-3 text-ok" data-testid="import-shifts-done">
-            Loaded {plural(done.imported, "shift")}, worked {formatIsoDate(done.from)} to {formatIsoDate(done.to)}
-            {done.skippedDeleted ? ` (${plural(done.skippedDeleted, "row")} marked deleted left out)` : ""}. The forecast knows them from the next
+            Loaded {countText(done.imported, "shift")}, worked {formatIsoDate(done.from)} to {formatIsoDate(done.to)}
+            {done.skippedDeleted ? ` (${countText(done.skippedDeleted, "row")} marked deleted left out)` : ""}. The forecast knows them from the next
             re-forecast.
           </p>
         )}
