@@ -29,6 +29,7 @@ function Preview({ preview }: { preview: ProgressImportPreview }) {
         {preview.skippedDeleted ? ` (${countText(preview.skippedDeleted, "row")} marked deleted will be left out)` : ""}; every row passed the field log&apos;s checks. Nothing is
         stored yet.
       </p>
+      {/* On a phone the table scrolls sideways rather than breaking its figures. */}
       <div className="mt-2 overflow-x-auto">
         <table className="w-full min-w-[560px] border-collapse">
           <caption className="sr-only">What the file would add, by operation</caption>
@@ -46,8 +47,8 @@ function Preview({ preview }: { preview: ProgressImportPreview }) {
               <tr key={o.operationId}>
                 <th scope="row" className="table-cell text-left font-medium">{o.name}</th>
                 <td className="table-cell text-right">{o.shifts.toLocaleString("en-US")}</td>
-                <td className="table-cell text-right">{o.feet.toLocaleString("en-US", { maximumFractionDigits: 1 })} ft</td>
-                <td className="table-cell">{o.first === o.last ? formatIsoDate(o.first) : `${formatIsoDate(o.first)} – ${formatIsoDate(o.last)}`}</td>
+                <td className="table-cell whitespace-nowrap text-right">{o.feet.toLocaleString("en-US", { maximumFractionDigits: 1 })} ft</td>
+                <td className="table-cell whitespace-nowrap">{o.first === o.last ? formatIsoDate(o.first) : `${formatIsoDate(o.first)} – ${formatIsoDate(o.last)}`}</td>
                 <td className="table-cell text-right">{o.lostHours.toLocaleString("en-US", { maximumFractionDigits: 1 })}</td>
               </tr>
             ))}
