@@ -45,7 +45,7 @@ export interface ProgressImportPreview {
   /** The work dates of the first and last shift in the file (yyyy-mm-dd); null when it holds none. */
   from: string | null;
   to: string | null;
-  /** Each operation the file records, in the plan's order: its shifts, the feet they cover, their dates, hours lost. */
+  /** Each operation the file records, in the plan's order: its shifts, the feet a re-forecast counts done from them (progress to date), their dates, hours lost. */
   operations: { operationId: string; name: string; shifts: number; feet: number; first: string; last: string; lostHours: number }[];
   rainShifts: number;
   /** Discovered conditions recorded with the shifts. */

@@ -14,6 +14,7 @@ import { readCsv, type RowProblem } from "./common";
 import { checkProgressEntry, DISCOVERED_KINDS, DISCOVERED_LABELS, progressEntrySchema, type ProgressEntry, type RuleEntry } from "@/lib/progress-schema";
 import type { Scenario } from "@sim/schema";
 import type { ProgressImportPreview } from "@/lib/progress-contract";
+import { progressToDate } from "@/lib/progress-to-date";
 
 /** The most shifts one file may hold (a season of two shifts a day over every operation is well under it). */
 export const MAX_IMPORT_SHIFTS = 5_000;
@@ -150,6 +151,12 @@ export function readFieldLogCsv(text: string, plan: Scenario, existing: Readonly
   return { shifts: problems.length ? [] : shifts, skippedDeleted, problems };
 }
 
+/** The first and last work date of some shifts (yyyy-mm-dd; null when there are none). */
+export function workDateSpan(entries: ReadonlyArray<{ workDate: string }>): { from: string | null; to: string | null } {
+  const dates = entries.map((e) => e.workDate).sort();
+  return { from: dates[0] ?? null, to: dates.at(-1) ?? null };
+}
+
 /**
  * What a file's shifts come to, operation by operation in the plan's order — what the Field log shows after
  * "Check the file" and before anything is stored, so whoever loads a season of shifts sees that the file says what
@@ -157,26 +164,15 @@ export function readFieldLogCsv(text: string, plan: Scenario, existing: Readonly
  */
 export function importSummary(read: Pick<FieldLogImport, "shifts" | "skippedDeleted">, plan: Scenario): ProgressImportPreview {
   const entries = read.shifts.map((s) => s.entry);
-  const dates = entries.map((e) => e.workDate).sort();
-  const operations = plan.operations.flatMap((op) => {
-    const mine = entries.filter((e) => e.operationId === op.id);
-    if (mine.length === 0) return [];
-    const days = mine.map((e) => e.workDate).sort();
-    return [{
-      operationId: op.id,
-      name: op.name,
-      shifts: mine.length,
-      feet: mine.reduce((sum, e) => sum + (e.toStationFt - e.fromStationFt), 0),
-      first: days[0],
-      last: days.at(-1)!,
-      lostHours: mine.reduce((sum, e) => sum + e.lostHours, 0),
-    }];
-  });
+  // The Field log's own per-operation reading (progress to date), of the file's shifts alone: the feet are what a
+  // re-forecast would count as done from them.
+  const operations = progressToDate(plan, entries)
+    .filter((o) => o.shifts > 0)
+    .map((o) => ({ operationId: o.id, name: o.name, shifts: o.shifts, feet: o.doneFt, first: o.firstDate!, last: o.lastDate!, lostHours: o.lostHours }));
   return {
     shifts: entries.length,
     skippedDeleted: read.skippedDeleted,
-    from: dates[0] ?? null,
-    to: dates.at(-1) ?? null,
+    ...workDateSpan(entries),
     operations,
     rainShifts: entries.filter((e) => e.rain).length,
     discovered: entries.reduce((sum, e) => sum + e.discovered.length, 0),

@@ -3,6 +3,7 @@ import { handler } from "@/lib/server/errors";
 import { requireScenario } from "@/lib/server/access";
 import { fieldsOf } from "@/lib/server/progress";
 import { readShiftsFile } from "@/lib/server/progress-import";
+import { workDateSpan } from "@/lib/csv/field-log-import";
 import { createProgressEntries } from "@db/queries/progress";
 import type { ProgressImportAnswer } from "@/lib/progress-contract";
 
@@ -16,6 +17,7 @@ export const POST = handler(async (req: Request, ctx: { params: Promise<{ scenar
   const { scenario, user } = await requireScenario(scenarioId, "recordProgress");
   const { read } = await readShiftsFile(req, scenario);
   const imported = await createProgressEntries({ projectId: scenario.projectId, scenarioId, entries: read.shifts.map((s) => fieldsOf(s.entry)), userId: user.id });
-  const dates = read.shifts.map((s) => s.entry.workDate).sort();
-  return NextResponse.json({ imported, skippedDeleted: read.skippedDeleted, from: dates[0], to: dates.at(-1)! } satisfies ProgressImportAnswer, { status: 201 });
+  // readShiftsFile refuses a file without a shift to load, so the span has both ends.
+  const { from, to } = workDateSpan(read.shifts.map((s) => s.entry));
+  return NextResponse.json({ imported, skippedDeleted: read.skippedDeleted, from: from!, to: to! } satisfies ProgressImportAnswer, { status: 201 });
 });
